@@ -37,83 +37,100 @@ export interface NonlinearOptions {
 
 const MAX_ITERATIONS = 200;
 
-interface Profile {
-  sse: number;
-  /** x_inf (fitted or fixed) and amplitude A for this k. */
-  xInf: number;
-  amplitude: number;
-  u: Float64Array;
-  residuals: Float64Array;
+/** The linear sub-problem at one k: best x_inf and A, with u = e^(-k t) and the residuals kept in buffers. */
+class Profile {
+  sse = 0;
+  xInf = 0;
+  amplitude = 0;
+  // Plain arrays: small typed arrays cost more to allocate than they save here.
+  readonly u: number[];
+  readonly residuals: number[];
+  constructor(n: number) {
+    this.u = new Array<number>(n);
+    this.residuals = new Array<number>(n);
+  }
+
+  evaluate(k: number, t: number[], x: ArrayLike<number>, fixedInfinity: number | undefined): this {
+    const { u, residuals } = this;
+    const n = t.length;
+    for (let i = 0; i < n; i++) u[i] = Math.exp(-k * t[i]);
+    if (fixedInfinity === undefined) {
+      let um = 0;
+      let xm = 0;
+      for (let i = 0; i < n; i++) {
+        um += u[i];
+        xm += x[i];
+      }
+      um /= n;
+      xm /= n;
+      let suu = 0;
+      let sux = 0;
+      for (let i = 0; i < n; i++) {
+        suu += (u[i] - um) * (u[i] - um);
+        sux += (u[i] - um) * (x[i] - xm);
+      }
+      this.amplitude = sux / suu;
+      this.xInf = xm - this.amplitude * um;
+    } else {
+      let suu = 0;
+      let sux = 0;
+      for (let i = 0; i < n; i++) {
+        suu += u[i] * u[i];
+        sux += u[i] * (x[i] - fixedInfinity);
+      }
+      this.amplitude = sux / suu;
+      this.xInf = fixedInfinity;
+    }
+    let sse = 0;
+    for (let i = 0; i < n; i++) {
+      const r = x[i] - this.xInf - this.amplitude * u[i];
+      residuals[i] = r;
+      sse += r * r;
+    }
+    this.sse = sse;
+    return this;
+  }
 }
 
-/** The linear sub-problem at fixed k: best x_inf and A, and the residuals. */
-function profileAt(k: number, t: number[], x: ArrayLike<number>, fixedInfinity: number | undefined): Profile {
+/**
+ * Kaufman's derivative of the residuals with respect to k, (I - P)(A t u) with P the projection on the
+ * linear columns, written into `out`; returns its products with the residuals and with itself.
+ */
+function projectedJacobian(p: Profile, t: number[], fitted: boolean, out: number[]): { g: number; h: number } {
   const n = t.length;
-  const u = new Float64Array(n);
-  for (let i = 0; i < n; i++) u[i] = Math.exp(-k * t[i]);
-  let xInf: number;
-  let amplitude: number;
-  if (fixedInfinity === undefined) {
-    let um = 0;
-    let xm = 0;
-    for (let i = 0; i < n; i++) {
-      um += u[i];
-      xm += x[i];
-    }
-    um /= n;
-    xm /= n;
-    let suu = 0;
-    let sux = 0;
-    for (let i = 0; i < n; i++) {
-      suu += (u[i] - um) * (u[i] - um);
-      sux += (u[i] - um) * (x[i] - xm);
-    }
-    amplitude = sux / suu;
-    xInf = xm - amplitude * um;
-  } else {
-    let suu = 0;
-    let sux = 0;
-    for (let i = 0; i < n; i++) {
-      suu += u[i] * u[i];
-      sux += u[i] * (x[i] - fixedInfinity);
-    }
-    amplitude = sux / suu;
-    xInf = fixedInfinity;
-  }
-  const residuals = new Float64Array(n);
-  let sse = 0;
-  for (let i = 0; i < n; i++) {
-    const r = x[i] - xInf - amplitude * u[i];
-    residuals[i] = r;
-    sse += r * r;
-  }
-  return { sse, xInf, amplitude, u, residuals };
-}
-
-/** Kaufman's Jacobian of the residuals with respect to k: (I - P)(A t u), P the projection on the linear columns. */
-function projectedJacobian(p: Profile, t: number[], fitted: boolean): Float64Array {
-  const n = t.length;
-  const v = new Float64Array(n);
-  for (let i = 0; i < n; i++) v[i] = p.amplitude * t[i] * p.u[i];
-  let uu = 0;
-  let uv = 0;
+  const { u } = p;
   let um = 0;
   let vm = 0;
-  if (fitted) {
-    for (let i = 0; i < n; i++) {
-      um += p.u[i];
-      vm += v[i];
-    }
-    um /= n;
-    vm /= n;
-  }
   for (let i = 0; i < n; i++) {
-    uu += (p.u[i] - um) * (p.u[i] - um);
-    uv += (p.u[i] - um) * (v[i] - vm);
+    out[i] = p.amplitude * t[i] * u[i];
+    if (fitted) {
+      um += u[i];
+      vm += out[i];
+    }
+  }
+  um /= n;
+  vm /= n;
+  let uu = 0;
+  let uv = 0;
+  for (let i = 0; i < n; i++) {
+    uu += (u[i] - um) * (u[i] - um);
+    uv += (u[i] - um) * (out[i] - vm);
   }
   const b = uv / uu;
-  for (let i = 0; i < n; i++) v[i] = v[i] - vm - b * (p.u[i] - um);
-  return v;
+  let g = 0;
+  let h = 0;
+  for (let i = 0; i < n; i++) {
+    const j = out[i] - vm - b * (u[i] - um);
+    out[i] = j;
+    g += j * p.residuals[i];
+    h += j * j;
+  }
+  return { g, h };
+}
+
+function estimateOf(value: number, variance: number, tc: number, unit: string): Estimate {
+  const se = Math.sqrt(Math.max(variance, 0));
+  return { value, standardError: se, ci95: [value - tc * se, value + tc * se], unit };
 }
 
 function startingK(run: FirstOrderRun, t: number[]): number {
@@ -144,29 +161,31 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
   }
 
   let k = options.initialK ?? startingK(run, t);
-  let current = profileAt(k, t, x, fixedInfinity);
+  let current = new Profile(t.length).evaluate(k, t, x, fixedInfinity);
+  let trial = new Profile(t.length);
+  const jacobian = new Array<number>(t.length);
   let lambda = 1e-3;
   let iterations = 0;
   let converged = false;
   while (iterations < MAX_ITERATIONS && !converged) {
     iterations++;
-    const jac = projectedJacobian(current, t, fitted);
-    let g = 0;
-    let h = 0;
-    for (let i = 0; i < t.length; i++) {
-      g += jac[i] * current.residuals[i];
-      h += jac[i] * jac[i];
-    }
+    const { g, h } = projectedJacobian(current, t, fitted, jacobian);
     if (h === 0 || current.sse === 0) break;
     for (;;) {
       const step = -g / (h * (1 + lambda));
-      const trial = profileAt(k + step, t, x, fixedInfinity);
+      // A step of 1e-11 k is far inside any reported precision; near the optimum each step is larger
+      // than the error that remains, and a smaller one only measures rounding in the sum of squares.
+      if (Math.abs(step) <= 1e-11 * Math.abs(k)) {
+        converged = true;
+        break;
+      }
+      trial.evaluate(k + step, t, x, fixedInfinity);
       if (trial.sse <= current.sse) {
-        const relativeGain = (current.sse - trial.sse) / current.sse;
         k += step;
-        current = trial;
+        const accepted = trial;
+        trial = current;
+        current = accepted;
         lambda = Math.max(lambda / 10, 1e-12);
-        converged = Math.abs(step) <= 1e-13 * Math.abs(k) || relativeGain <= 1e-15;
         break;
       }
       lambda *= 10;
@@ -182,30 +201,27 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
   }
 
   const n = t.length;
-  const dk = new Float64Array(n);
+  // Jacobian columns of the model in parameter order k, A (, x_inf).
+  const dk = new Array<number>(n);
   for (let i = 0; i < n; i++) dk[i] = -current.amplitude * t[i] * current.u[i];
-  const columns: ArrayLike<number>[] = [dk, current.u];
-  if (fitted) columns.push(new Float64Array(n).fill(1));
+  const columns: ArrayLike<number>[] = fitted ? [dk, current.u, new Array<number>(n).fill(1)] : [dk, current.u];
+  // Row-major (J'J)^-1: var k at [0]; var A at [4] (3 x 3) or [3] (2 x 2); var x_inf at [8], cov(A, x_inf) at [5].
   const inv = inverseNormalMatrix(columns);
   const dof = n - parameters;
   const s2 = current.sse / dof;
   const tc = tCritical95(dof);
-  const estimate = (value: number, variance: number, unit: string): Estimate => {
-    const se = Math.sqrt(Math.max(variance, 0) * s2);
-    return { value, standardError: se, ci95: [value - tc * se, value + tc * se], unit };
-  };
   const readingUnit = run.readingUnit ?? '';
-  const kEstimate = estimate(k, inv[0][0], rateUnitOf(run.timeUnit));
-  const x0Variance = fitted ? inv[1][1] + inv[2][2] + 2 * inv[1][2] : inv[1][1];
+  const kEstimate = estimateOf(k, inv[0] * s2, tc, rateUnitOf(run.timeUnit));
+  const x0Variance = fitted ? inv[4] + inv[8] + 2 * inv[5] : inv[3];
   return {
     infinityMode: options.infinity,
     k: kEstimate,
     halfLife: halfLifeOf(kEstimate, run.timeUnit),
-    x0: estimate(current.xInf + current.amplitude, x0Variance, readingUnit),
-    infinity: estimate(current.xInf, fitted ? inv[2][2] : 0, readingUnit),
+    x0: estimateOf(current.xInf + current.amplitude, x0Variance * s2, tc, readingUnit),
+    infinity: estimateOf(current.xInf, fitted ? inv[8] * s2 : 0, tc, readingUnit),
     residualSD: Math.sqrt(s2),
     dof,
-    residuals: Array.from(current.residuals),
+    residuals: current.residuals,
     iterations,
   };
 }

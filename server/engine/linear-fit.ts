@@ -65,20 +65,24 @@ function checkInput(x: ArrayLike<number>, y: ArrayLike<number>, sigma: ArrayLike
   }
 }
 
-function weightsOf(n: number, sigma: ArrayLike<number> | undefined): Float64Array {
-  const w = new Float64Array(n);
-  for (let i = 0; i < n; i++) w[i] = sigma ? 1 / (sigma[i] * sigma[i]) : 1;
+/** Weights 1/sigma^2, or undefined for an ordinary fit (every weight 1, no array needed). */
+type Weights = Float64Array | undefined;
+
+function weightsOf(sigma: ArrayLike<number> | undefined): Weights {
+  if (!sigma) return undefined;
+  const w = new Float64Array(sigma.length);
+  for (let i = 0; i < sigma.length; i++) w[i] = 1 / (sigma[i] * sigma[i]);
   return w;
 }
 
-function weightedMean(v: ArrayLike<number>, w: Float64Array, sumW: number): number {
+function weightedMean(v: ArrayLike<number>, w: Weights, sumW: number): number {
   let m = 0;
-  for (let i = 0; i < v.length; i++) m += w[i] * v[i];
+  for (let i = 0; i < v.length; i++) m += (w ? w[i] : 1) * v[i];
   m /= sumW;
   // One correction pass: the mean of the deviations from the first estimate restores the digits
   // lost when the values share a large common part.
   let c = 0;
-  for (let i = 0; i < v.length; i++) c += w[i] * (v[i] - m);
+  for (let i = 0; i < v.length; i++) c += (w ? w[i] : 1) * (v[i] - m);
   return m + c / sumW;
 }
 
@@ -90,9 +94,12 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: Lin
   const { sigma } = options;
   checkInput(x, y, sigma);
   const n = x.length;
-  const w = weightsOf(n, sigma);
-  let sumW = 0;
-  for (let i = 0; i < n; i++) sumW += w[i];
+  const w = weightsOf(sigma);
+  let sumW = n;
+  if (w) {
+    sumW = 0;
+    for (let i = 0; i < n; i++) sumW += w[i];
+  }
   const xm = weightedMean(x, w, sumW);
   const ym = weightedMean(y, w, sumW);
   let sxx = 0;
@@ -101,9 +108,10 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: Lin
   for (let i = 0; i < n; i++) {
     const dx = x[i] - xm;
     const dy = y[i] - ym;
-    sxx += w[i] * dx * dx;
-    sxy += w[i] * dx * dy;
-    syy += w[i] * dy * dy;
+    const wi = w ? w[i] : 1;
+    sxx += wi * dx * dx;
+    sxy += wi * dx * dy;
+    syy += wi * dy * dy;
   }
   if (!(sxx > 0)) {
     throw new EngineError('degenerate-x', 'all x values are equal, so no slope can be fitted', 'x');
@@ -115,7 +123,7 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: Lin
   for (let i = 0; i < n; i++) {
     const r = y[i] - ym - slope * (x[i] - xm);
     residuals[i] = r;
-    sse += w[i] * r * r;
+    sse += (w ? w[i] : 1) * r * r;
   }
   const dof = n - 2;
   const reducedChiSquared = sse / dof;
@@ -148,14 +156,15 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, opt
   const { sigma } = options;
   checkInput(x, y, sigma);
   const n = x.length;
-  const w = weightsOf(n, sigma);
+  const w = weightsOf(sigma);
   let sxx = 0;
   let sxy = 0;
   let syy = 0;
   for (let i = 0; i < n; i++) {
-    sxx += w[i] * x[i] * x[i];
-    sxy += w[i] * x[i] * y[i];
-    syy += w[i] * y[i] * y[i];
+    const wi = w ? w[i] : 1;
+    sxx += wi * x[i] * x[i];
+    sxy += wi * x[i] * y[i];
+    syy += wi * y[i] * y[i];
   }
   if (!(sxx > 0)) {
     throw new EngineError('degenerate-x', 'all x values are zero, so no slope through the origin can be fitted', 'x');
@@ -166,7 +175,7 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, opt
   for (let i = 0; i < n; i++) {
     const r = y[i] - slope * x[i];
     residuals[i] = r;
-    sse += w[i] * r * r;
+    sse += (w ? w[i] : 1) * r * r;
   }
   const dof = n - 1;
   const reducedChiSquared = sse / dof;

@@ -117,17 +117,31 @@ function scaleOf(text: string, fail: (detail?: string) => never): Scale {
   return frames[0].acc;
 }
 
-export function parseUnit(text: string, expected?: UnitKind, field = 'unit'): Unit {
+// Parsed spellings, kept because every fitted estimate names its unit; bounded against odd input.
+const parsed = new Map<string, Unit>();
+const MAX_PARSED = 1000;
+
+function parseNew(text: string, trimmed: string, field: string): Unit {
   function fail(detail?: string): never {
     throw new EngineError('unknown-unit', `unknown unit "${text}"${detail ? `: ${detail}` : ''}`, field);
   }
-  const trimmed = text.trim();
   const { dim, mult, pow10 } = scaleOf(trimmed, fail);
   const kinds = Object.keys(KIND_DIMS) as UnitKind[];
   const kind = kinds.find((k) => KIND_DIMS[k].every((d, i) => d === dim[i]));
   if (!kind) fail(`not a unit of ${kinds.join(', ')}`);
-  if (expected && kind !== expected) throw kindMismatch(trimmed, kind, expected, field);
-  return { text: trimmed, kind, factor: pow10 < 0 ? mult / 10 ** -pow10 : mult * 10 ** pow10 };
+  return Object.freeze({ text: trimmed, kind, factor: pow10 < 0 ? mult / 10 ** -pow10 : mult * 10 ** pow10 });
+}
+
+export function parseUnit(text: string, expected?: UnitKind, field = 'unit'): Unit {
+  const trimmed = text.trim();
+  let unit = parsed.get(trimmed);
+  if (!unit) {
+    unit = parseNew(text, trimmed, field);
+    if (parsed.size >= MAX_PARSED) parsed.clear();
+    parsed.set(trimmed, unit);
+  }
+  if (expected && unit.kind !== expected) throw kindMismatch(trimmed, unit.kind, expected, field);
+  return unit;
 }
 
 function kindMismatch(text: string, kind: UnitKind, expected: UnitKind, field: string): EngineError {

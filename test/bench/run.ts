@@ -1,0 +1,8 @@
+import { benchEngineRefit } from './engine-refit.ts';
+
+// `npm run bench`: prints figures; targets are compared by a reader, never asserted.
+const engine = benchEngineRefit();
+console.log(
+  `engine: ${Math.round(engine.refitsPerSecond).toLocaleString('en-US')} full refits/s ` +
+    `(${engine.microsecondsPerRefit.toFixed(1)} µs each; 4 runs x 16 readings, both ln F models, exponential fit, second stage; one core; target >= 50,000/s)`,
+);
