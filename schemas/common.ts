@@ -1,0 +1,43 @@
+import { z } from 'zod';
+
+/**
+ * Building blocks of the public contract shared by every experiment kind.
+ * A reported number may be sent as a JSON number or as a numeric string: the string keeps the
+ * digits the student wrote (0.0520 keeps its last zero), which the significant-figure check reads.
+ */
+export const NumberLike = z
+  .union([z.number(), z.string().regex(/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/, 'a number such as 0.0521 or 5.21e-2')])
+  .refine((v) => Number.isFinite(Number(v)), 'a finite number');
+export type NumberLike = z.infer<typeof NumberLike>;
+
+export const FiniteNumber = z.number().refine(Number.isFinite, 'a finite number');
+
+export const UnitText = z.string().trim().min(1, 'a unit such as min^-1 or M').max(40);
+
+/** A value with the unit it is in, e.g. a catalyst concentration. */
+export const Quantity = z.object({ value: FiniteNumber, unit: UnitText });
+export type Quantity = z.infer<typeof Quantity>;
+
+/** A value a student reports, with its uncertainty (the standard error unless stated) and unit. */
+export const ReportedValue = z.object({
+  value: NumberLike,
+  uncertainty: NumberLike.optional(),
+  // Checked by the grader, not here: an unknown unit is a finding, not a rejected submission.
+  unit: z.string().max(40),
+});
+export type ReportedValue = z.infer<typeof ReportedValue>;
+
+/** Pseudonymous ids only; the pattern keeps names and free text out of ids. */
+export const StudentId = z
+  .string()
+  .regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$/, 'letters, digits, dot, underscore or hyphen, at most 64');
+
+export const Tolerance = z
+  .object({
+    relative: z.number().nonnegative().optional(),
+    absolute: z.number().nonnegative().optional(),
+  })
+  .refine((t) => t.relative !== undefined || t.absolute !== undefined, 'give relative, absolute or both');
+export type Tolerance = z.infer<typeof Tolerance>;
+
+export const FitModel = z.enum(['origin', 'intercept']);

@@ -1,0 +1,98 @@
+import { z } from 'zod';
+import { FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Tolerance, UnitText } from '../common.ts';
+
+/**
+ * Experiment kind `first-order-catalysis`: first-order runs followed by a physical observable (optical
+ * rotation, absorbance, conductance) at several catalyst concentrations, then
+ * k_obs = k_N + k_A [catalyst].
+ */
+export const KIND = 'first-order-catalysis';
+
+const Reading = z.tuple([FiniteNumber, FiniteNumber]);
+
+/** A run's raw data as measured (or as handed out in a class dataset). */
+export const RunData = z.object({
+  label: z.string().trim().min(1).max(40),
+  catalyst: Quantity,
+  /** Unit of the times in `readings`. */
+  timeUnit: UnitText,
+  /** [t, x] pairs in time order. */
+  readings: z.array(Reading).min(3, 'at least 3 readings').max(1000),
+  /** x_inf, the end value; absent when it was never measured (then the Guggenheim method). */
+  infinity: FiniteNumber.optional(),
+  temperatureC: FiniteNumber.optional(),
+});
+export type RunData = z.infer<typeof RunData>;
+
+export const SubmittedRun = RunData.extend({
+  reported: z
+    .object({
+      /** The student's ln F column, one entry per reading (null where left blank). */
+      lnF: z.array(NumberLike.nullable()).optional(),
+      k: ReportedValue.optional(),
+    })
+    .optional(),
+});
+export type SubmittedRun = z.infer<typeof SubmittedRun>;
+
+export const Submission = z.object({
+  studentId: StudentId,
+  runs: z.array(SubmittedRun).min(1, 'at least one run').max(50),
+  reported: z.object({ kN: ReportedValue.optional(), kA: ReportedValue.optional() }).optional(),
+});
+export type Submission = z.infer<typeof Submission>;
+
+const points = z.number().nonnegative().max(1000);
+
+export const Rubric = z.object({
+  /** Per run, for readings that match the class dataset (only with `classDataset`). */
+  readings: points.default(1),
+  /** Per run, for the ln F column; 0 when the column is not asked for. */
+  lnF: points.default(1),
+  /** Per run. */
+  k: points.default(2),
+  kUncertainty: points.default(1),
+  kN: points.default(2),
+  kNUncertainty: points.default(1),
+  kA: points.default(2),
+  kAUncertainty: points.default(1),
+  /** Once, for values rounded consistently with their uncertainties. */
+  sigFigs: points.default(0),
+});
+export type Rubric = z.infer<typeof Rubric>;
+
+export const Tolerances = z.object({
+  reading: Tolerance.default({ absolute: 0.0005 }),
+  lnF: Tolerance.default({ absolute: 0.002 }),
+  k: Tolerance.default({ relative: 0.01 }),
+  kUncertainty: Tolerance.default({ relative: 0.25 }),
+  kN: Tolerance.default({ relative: 0.02 }),
+  kA: Tolerance.default({ relative: 0.02 }),
+  /** For the standard errors of k_N and k_A. */
+  rateLawUncertainty: Tolerance.default({ relative: 0.25 }),
+});
+export type Tolerances = z.infer<typeof Tolerances>;
+
+const Band = z
+  .object({ min: FiniteNumber, max: FiniteNumber, unit: UnitText })
+  .refine((b) => b.min < b.max, 'min must be below max');
+
+export const Settings = z.object({
+  kind: z.literal(KIND),
+  /** The model asked for ln F against t. */
+  fitModel: FitModel,
+  /** How k_obs against [catalyst] is to be fitted. */
+  rateLawFit: z.enum(['ordinary', 'weighted']).default('ordinary'),
+  /** Units the instructor expects values reported in. */
+  units: z
+    .object({ k: UnitText.default('min^-1'), kN: UnitText.default('min^-1'), kA: UnitText.default('M^-1 min^-1') })
+    .default({ k: 'min^-1', kN: 'min^-1', kA: 'M^-1 min^-1' }),
+  tolerances: Tolerances.default(Tolerances.parse({})),
+  rubric: Rubric.default(Rubric.parse({})),
+  /** The runs handed to every student, when the class analyses shared data. */
+  classDataset: z.object({ runs: z.array(RunData).min(1) }).optional(),
+  /** Plausibility bands. */
+  reference: z.object({ kN: Band.optional(), kA: Band.optional() }).optional(),
+});
+export type Settings = z.infer<typeof Settings>;
+export type SettingsInput = z.input<typeof Settings>;

@@ -1,0 +1,92 @@
+import { z } from 'zod';
+
+/** What the checker returns for one submission; the same for every experiment kind. */
+export const Stage = z.enum(['readings', 'run', 'rate-law', 'reporting']);
+export const Severity = z.enum(['info', 'warning', 'error']);
+
+export const findingCodes = [
+  'sign-flipped',
+  'log-base',
+  'time-unit',
+  'concentration-unit',
+  'decimal-shift',
+  'swapped-axes',
+  'wrong-infinity',
+  'fit-model',
+  'half-life-for-rate',
+  'uncertainty-kind',
+  'carried-forward',
+  'transcription',
+  'suspect-reading',
+  'implausible',
+  'sig-figs',
+  'unit-unrecognised',
+  'missing-value',
+  'unexplained',
+] as const;
+export const FindingCode = z.enum(findingCodes);
+export type FindingCode = z.infer<typeof FindingCode>;
+
+export const transcriptionDetails = [
+  'transposed-digits',
+  'dropped-digit',
+  'extra-digit',
+  'decimal-point',
+  'sign-lost',
+  'row-shift',
+  'missing-row',
+  'extra-row',
+  'other',
+] as const;
+
+export const Finding = z.object({
+  /** Stable within a result: `code@path`, so a TA's override can name it across regrades. */
+  id: z.string(),
+  code: FindingCode,
+  /** Further codes when more than one cause explains the value at once (e.g. sign and log base). */
+  alsoCodes: z.array(FindingCode).optional(),
+  /** For transcription: which slip; for wrong-infinity: which value was used. */
+  detail: z.string().optional(),
+  stage: Stage,
+  /** Where in the submission, e.g. `runs[2].reported.k`. */
+  path: z.string(),
+  reported: z.number().nullable().optional(),
+  expected: z.number().nullable().optional(),
+  unit: z.string().optional(),
+  severity: Severity,
+  pointsLost: z.number().nonnegative(),
+  /** The rubric item the points come from. */
+  rubricItem: z.string().optional(),
+  /** Plain words, quoting the numbers, saying what to check. A likely cause, never a verdict. */
+  message: z.string(),
+});
+export type Finding = z.infer<typeof Finding>;
+
+export const Estimate = z.object({
+  value: z.number(),
+  standardError: z.number(),
+  ci95: z.tuple([z.number(), z.number()]),
+  unit: z.string(),
+});
+
+/** A refit value in the instructor's unit, and in the unit the student declared where that differs. */
+export const RefitValue = z.object({
+  instructor: Estimate,
+  declared: Estimate.optional(),
+});
+
+export const Rejection = z.object({ path: z.string(), message: z.string() });
+export type Rejection = z.infer<typeof Rejection>;
+
+export const CheckResult = z.object({
+  studentId: z.string().nullable(),
+  status: z.enum(['checked', 'rejected']),
+  score: z.number().nullable(),
+  maxScore: z.number(),
+  /** Our own values for every quantity; the shape is the experiment kind's. */
+  refit: z.record(z.string(), z.unknown()).nullable(),
+  findings: z.array(Finding),
+  rejected: z.array(Rejection).optional(),
+  engineVersion: z.string(),
+});
+export type CheckResult = z.infer<typeof CheckResult>;

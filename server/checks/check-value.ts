@@ -1,0 +1,89 @@
+import type { Tolerance } from '../../schemas/common.ts';
+import type { Finding } from '../../schemas/result.ts';
+import { likelyCause } from './cause-text.ts';
+import type { DraftFinding } from './draft-finding.ts';
+import { expandCandidates, explain, type Candidate, type Expanded, type Factor } from './explain.ts';
+import { withUnit } from './format.ts';
+import { withinTolerance } from './tolerance.ts';
+
+/** One reported number against the refit: right, carried forward, explained by a likely cause, or not. */
+export interface ValueCheck {
+  /** The quantity in words, e.g. `k_obs of run "0.10 M"`. */
+  what: string;
+  path: string;
+  stage: Finding['stage'];
+  rubricItem: string;
+  itemKey: string;
+  /** Points at stake. */
+  charge: number;
+  reported: number;
+  unit: string;
+  expected: number;
+  /** Other values that earn full credit (another accepted method). */
+  alsoRight?: number[];
+  /** The value that follows from the student's own earlier numbers, and where those came from. */
+  carriedForward?: { value: number; from: string };
+  /** Values produced by known slips of method (each with its cause). */
+  slips?: Candidate[];
+  /** Scalings that known slips of units or copying produce. */
+  factors: Factor[];
+  tolerance: Tolerance;
+}
+
+export type ValueOutcome =
+  | { kind: 'right' }
+  | { kind: 'carried-forward' }
+  | { kind: 'explained'; by: Expanded }
+  | { kind: 'unexplained' };
+
+export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome {
+  const { reported, expected, tolerance } = c;
+  if (withinTolerance(reported, expected, tolerance) || (c.alsoRight ?? []).some((v) => withinTolerance(reported, v, tolerance))) {
+    return { kind: 'right' };
+  }
+  const base = {
+    path: c.path,
+    stage: c.stage,
+    reported,
+    expected,
+    unit: c.unit,
+    rubricItem: c.rubricItem,
+    itemKey: c.itemKey,
+  };
+  const intro = `${c.what} is ${withUnit(reported, c.unit)}; the refit from your data gives ${withUnit(expected, c.unit)}.`;
+  if (c.carriedForward && withinTolerance(reported, c.carriedForward.value, tolerance)) {
+    drafts.push({
+      ...base,
+      code: 'carried-forward',
+      severity: 'info',
+      charge: 0,
+      message: `${intro} Your value follows correctly from ${c.carriedForward.from}, so the method earns its points here; the difference was scored where it entered.`,
+    });
+    return { kind: 'carried-forward' };
+  }
+  const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips ?? [])];
+  if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
+  const by = explain(reported, expandCandidates(roots, c.factors), tolerance);
+  if (by && by.causes.length > 0) {
+    const [code, ...also] = by.causes;
+    const how = by.says.length ? ` ${by.says.join(' and ')}` : '';
+    drafts.push({
+      ...base,
+      code,
+      alsoCodes: also.length ? also : undefined,
+      detail: by.detail,
+      severity: 'error',
+      charge: c.charge,
+      message: `${intro} Your value matches ${by.basis} (${withUnit(by.root, c.unit)})${how}. ${likelyCause(by.causes, by.detail ? [by.detail] : [])}`,
+    });
+    return { kind: 'explained', by };
+  }
+  drafts.push({
+    ...base,
+    code: 'unexplained',
+    severity: 'error',
+    charge: c.charge,
+    message: `${intro} The difference is outside the tolerance, and no common slip explains it, so no cause is suggested. Please check the calculation of this value step by step.`,
+  });
+  return { kind: 'unexplained' };
+}

@@ -1,0 +1,80 @@
+import type { z } from 'zod';
+import type { CheckResult, Rejection } from '../../schemas/result.ts';
+import type { ExperimentKind } from './experiment-kind.ts';
+import { InputRejected } from './input-rejected.ts';
+import { kindFor } from './kinds.ts';
+import { ENGINE_VERSION } from './version.ts';
+
+/** Assignment settings that failed validation; `issues` name each field and the reason. */
+export class SettingsError extends Error {
+  override readonly name = 'SettingsError';
+  constructor(readonly issues: Rejection[]) {
+    super(`invalid assignment settings: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`);
+  }
+}
+
+export interface Assignment {
+  kind: ExperimentKind;
+  settings: unknown;
+}
+
+/** `runs[2].readings[0]` from a zod path. */
+export function pathText(path: ReadonlyArray<PropertyKey>): string {
+  return path.reduce<string>((text, key) => (typeof key === 'number' ? `${text}[${key}]` : text ? `${text}.${String(key)}` : String(key)), '');
+}
+
+export function issuesOf(error: z.ZodError): Rejection[] {
+  return error.issues.map((issue) => ({ path: pathText(issue.path) || '(root)', message: issue.message }));
+}
+
+/** Validates assignment settings (their `kind` chooses the schema) and fills defaults. */
+export function parseAssignment(input: unknown): Assignment {
+  const kindName = typeof input === 'object' && input !== null ? (input as { kind?: unknown }).kind : undefined;
+  const kind = typeof kindName === 'string' ? kindFor(kindName) : undefined;
+  if (!kind) {
+    throw new SettingsError([{ path: 'kind', message: `unknown experiment kind ${JSON.stringify(kindName)}` }]);
+  }
+  const parsed = kind.settingsSchema.safeParse(input);
+  if (!parsed.success) throw new SettingsError(issuesOf(parsed.error));
+  return { kind, settings: parsed.data };
+}
+
+function rejected(studentId: string | null, maxScore: number, rejections: Rejection[]): CheckResult {
+  return {
+    studentId,
+    status: 'rejected',
+    score: null,
+    maxScore,
+    refit: null,
+    findings: [],
+    rejected: rejections,
+    engineVersion: ENGINE_VERSION,
+  };
+}
+
+function idOf(submission: unknown): string | null {
+  const id = typeof submission === 'object' && submission !== null ? (submission as { studentId?: unknown }).studentId : undefined;
+  return typeof id === 'string' ? id : null;
+}
+
+/**
+ * Checks one submission. Invalid input never throws: it comes back as a rejected result naming
+ * each field and the reason, so one bad submission never stops a batch.
+ */
+export function checkSubmission(assignment: Assignment, submission: unknown): CheckResult {
+  const { kind, settings } = assignment;
+  const parsed = kind.submissionSchema.safeParse(submission);
+  if (!parsed.success) return rejected(idOf(submission), 0, issuesOf(parsed.error));
+  try {
+    return { ...kind.check(settings, parsed.data), engineVersion: ENGINE_VERSION };
+  } catch (error) {
+    if (error instanceof InputRejected) {
+      return rejected(idOf(submission), kind.maxScore(settings, parsed.data), error.rejections);
+    }
+    throw error;
+  }
+}
+
+export function checkBatch(assignment: Assignment, submissions: unknown[]): CheckResult[] {
+  return submissions.map((s) => checkSubmission(assignment, s));
+}

@@ -1,0 +1,16 @@
+import type { z } from 'zod';
+import type { CheckResult } from '../../schemas/result.ts';
+
+/**
+ * One kind of experiment the checker understands. A new kind is a new module that implements this
+ * and is listed in `kinds.ts`; nothing else changes.
+ */
+export interface ExperimentKind<Settings = unknown, Submission = unknown> {
+  kind: string;
+  settingsSchema: z.ZodType<Settings>;
+  submissionSchema: z.ZodType<Submission>;
+  /** Refits, compares, diagnoses and scores one valid submission. Pure. */
+  check(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'>;
+  /** The points available under these settings for this submission's shape. */
+  maxScore(settings: Settings, submission: Submission): number;
+}

@@ -1,0 +1,104 @@
+import type { Tolerance } from '../../schemas/common.ts';
+import type { FindingCode } from '../../schemas/result.ts';
+import { withinTolerance } from './tolerance.ts';
+
+/**
+ * Explaining a mismatch: each candidate is a value the student would have reported had they made
+ * the slips named in `causes`. A reported value is explained by the candidates it matches within
+ * tolerance; the fewest causes win (the simplest story), then the order of `CAUSE_PRIORITY`.
+ */
+export interface Candidate {
+  value: number;
+  causes: FindingCode[];
+  /** What the cause was in this case, e.g. "x_inf = last reading (10.873)". */
+  detail?: string;
+  /** What the value is, in words: "the refit", "the slope of t against ln F". */
+  basis: string;
+}
+
+/** Common slips that scale a value; which apply depends on the quantity. */
+export interface Factor {
+  factor: number;
+  cause: FindingCode;
+  /** How the factor reads in a message, e.g. "divided by ln 10 = 2.302585". */
+  says: string;
+}
+
+// ln 10 = 2.302585093 (a mathematical constant): log10 x = ln x / ln 10.
+export const LN10 = Math.LN10;
+
+export const SIGN: Factor = { factor: -1, cause: 'sign-flipped', says: 'with the sign reversed' };
+export const LOG_BASE: Factor = { factor: 1 / LN10, cause: 'log-base', says: 'divided by ln 10 = 2.302585' };
+// 60 s per min and 60 min per h: definitions of the minute and hour.
+export const TIME_UNIT: Factor[] = [
+  { factor: 1 / 60, cause: 'time-unit', says: 'divided by 60 (per second reported as per minute, or per minute as per hour)' },
+  { factor: 60, cause: 'time-unit', says: 'multiplied by 60 (per minute reported as per second, or per hour as per minute)' },
+  { factor: 1 / 3600, cause: 'time-unit', says: 'divided by 3600 (per second reported as per hour)' },
+  { factor: 3600, cause: 'time-unit', says: 'multiplied by 3600 (per hour reported as per second)' },
+];
+// 1000 mM per M: the definition of the milli prefix.
+export const CONCENTRATION_UNIT: Factor[] = [
+  { factor: 1 / 1000, cause: 'concentration-unit', says: 'divided by 1000 (concentrations in mM where M was meant)' },
+  { factor: 1000, cause: 'concentration-unit', says: 'multiplied by 1000 (concentrations in M where mM was meant)' },
+];
+export const DECIMAL_SHIFT: Factor[] = [-3, -2, -1, 1, 2, 3].map((p) => ({
+  factor: 10 ** p,
+  cause: 'decimal-shift' as const,
+  says: `${p > 0 ? 'multiplied' : 'divided'} by ${10 ** Math.abs(p)} (a misplaced decimal point)`,
+}));
+
+/** When two explanations have as many causes, the more common slip is named. */
+const CAUSE_PRIORITY: FindingCode[] = [
+  'fit-model',
+  'sign-flipped',
+  'log-base',
+  'time-unit',
+  'concentration-unit',
+  'uncertainty-kind',
+  'half-life-for-rate',
+  'swapped-axes',
+  'wrong-infinity',
+  'decimal-shift',
+];
+
+const rank = (c: Candidate) => Math.min(...c.causes.map((code) => CAUSE_PRIORITY.indexOf(code) + 1), CAUSE_PRIORITY.length + 1);
+
+/** A candidate made from a base value: `root` is the base, `says` how the slips scaled it. */
+export type Expanded = Candidate & { root: number; says: string[] };
+
+/** Every base value, alone and with up to `maxCauses` causes in all, from distinct slips. */
+export function expandCandidates(bases: Candidate[], factors: Factor[], maxCauses = 2): Expanded[] {
+  const out: Expanded[] = [];
+  for (const b of bases) {
+    const base = { ...b, root: b.value };
+    out.push({ ...base, says: [] });
+    for (let i = 0; i < factors.length; i++) {
+      const a = factors[i];
+      if (base.causes.length + 1 > maxCauses || base.causes.includes(a.cause)) continue;
+      out.push({ ...base, value: base.value * a.factor, causes: [...base.causes, a.cause], says: [a.says] });
+      for (let j = i + 1; j < factors.length; j++) {
+        const b = factors[j];
+        if (base.causes.length + 2 > maxCauses || b.cause === a.cause || base.causes.includes(b.cause)) continue;
+        out.push({ ...base, value: base.value * a.factor * b.factor, causes: [...base.causes, a.cause, b.cause], says: [a.says, b.says] });
+      }
+    }
+  }
+  return out;
+}
+
+/** The best explanation of `reported`, or undefined when no candidate matches. */
+export function explain<C extends Candidate>(reported: number, candidates: C[], tolerance: Tolerance): C | undefined {
+  let best: C | undefined;
+  for (const c of candidates) {
+    if (!Number.isFinite(c.value) || !withinTolerance(reported, c.value, tolerance)) continue;
+    if (
+      !best ||
+      c.causes.length < best.causes.length ||
+      (c.causes.length === best.causes.length && rank(c) < rank(best)) ||
+      (c.causes.length === best.causes.length && rank(c) === rank(best) && Math.abs(reported - c.value) < Math.abs(reported - best.value))
+    ) {
+      best = c;
+    }
+  }
+  return best;
+}

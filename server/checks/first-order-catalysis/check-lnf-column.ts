@@ -1,0 +1,115 @@
+import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { FindingCode } from '../../../schemas/result.ts';
+import { likelyCause } from '../cause-text.ts';
+import { slipBetween } from '../digit-slips.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { LN10 } from '../explain.ts';
+import { fmt } from '../format.ts';
+import { withinTolerance } from '../tolerance.ts';
+import type { RunAnalysis } from './run-analysis.ts';
+import { infinityAlternatives, lnFWith } from './slip-values.ts';
+
+/** The student's ln F column as numbers (NaN where blank), and whether a slip made it differ from ours. */
+export interface LnFColumn {
+  values: number[];
+  wrong: boolean;
+}
+
+interface ColumnVariant {
+  values: number[];
+  causes: FindingCode[];
+  detail?: string;
+}
+
+/** Columns a student gets by the common slips: log10, a flipped sign, another x_inf, and pairs of them. */
+function variants(a: RunAnalysis, all: RunAnalysis[]): ColumnVariant[] {
+  const ours = a.transform!.lnF;
+  const bases: ColumnVariant[] = [{ values: ours, causes: [] }];
+  for (const alt of infinityAlternatives(a, all)) bases.push({ values: lnFWith(a, alt.value), causes: ['wrong-infinity'], detail: alt.detail });
+  const out: ColumnVariant[] = [];
+  for (const b of bases) {
+    out.push(b);
+    out.push({ ...b, values: b.values.map((v) => v / LN10), causes: [...b.causes, 'log-base'] });
+    out.push({ ...b, values: b.values.map((v) => -v), causes: [...b.causes, 'sign-flipped'] });
+    if (b.causes.length === 0) out.push({ ...b, values: b.values.map((v) => -v / LN10), causes: ['sign-flipped', 'log-base'] });
+  }
+  return out;
+}
+
+/** Every entry the student filled matches the variant (a blank only where the variant is undefined too). */
+function matches(student: number[], variant: number[], settings: Settings): boolean {
+  return student.every((s, i) =>
+    Number.isNaN(s) ? !Number.isFinite(variant[i]) || i === 0 : Number.isFinite(variant[i]) && withinTolerance(s, variant[i], settings.tolerances.lnF),
+  );
+}
+
+export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): LnFColumn | undefined {
+  const path = `${a.path}.reported.lnF`;
+  const column = run.reported?.lnF;
+  const points = settings.rubric.lnF;
+  const common = { stage: 'run' as const, rubricItem: 'lnF', itemKey: `lnF@${a.path}` };
+  if (!column) {
+    if (points > 0) {
+      drafts.push({ ...common, code: 'missing-value', path, severity: 'error', charge: points, message: `The ln F column of run "${a.label}" is missing.` });
+    }
+    return undefined;
+  }
+  if (!a.transform) return undefined;
+  if (column.length !== a.readings.length) {
+    drafts.push({
+      ...common,
+      code: 'unexplained',
+      path,
+      severity: 'error',
+      charge: points,
+      message: `The ln F column of run "${a.label}" has ${column.length} entries for ${a.readings.length} readings, so it cannot be compared row by row. Please give one ln F per reading.`,
+    });
+    return { values: column.map((v) => (v === null ? Number.NaN : Number(v))), wrong: true };
+  }
+  const values = column.map((v) => (v === null ? Number.NaN : Number(v)));
+  const ours = a.transform.lnF;
+  const found = variants(a, all)
+    .filter((v) => matches(values, v.values, settings))
+    .sort((x, y) => x.causes.length - y.causes.length)[0];
+  if (found && found.causes.length === 0) return { values, wrong: false };
+  if (found) {
+    const [code, ...also] = found.causes;
+    const j = values.findIndex((v, i) => i > 0 && Number.isFinite(v));
+    drafts.push({
+      ...common,
+      code,
+      alsoCodes: also.length ? also : undefined,
+      detail: found.detail,
+      path,
+      reported: values[j],
+      expected: ours[j],
+      severity: 'error',
+      charge: points,
+      message:
+        `The ln F column of run "${a.label}" differs from ln F computed from your readings throughout ` +
+        `(at t = ${fmt(a.times[j])}: ${fmt(values[j])} against ${fmt(ours[j])}). ${likelyCause(found.causes, found.detail ? [found.detail] : [])}`,
+    });
+    return { values, wrong: true };
+  }
+  // No column-wide slip: name the entries that are off, each a slip of its own.
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (Number.isNaN(v) ? i === 0 : withinTolerance(v, ours[i], settings.tolerances.lnF)) continue;
+    const slip = Number.isNaN(v) ? undefined : slipBetween(ours[i], v, 4);
+    drafts.push({
+      ...common,
+      code: Number.isNaN(v) ? 'missing-value' : 'unexplained',
+      detail: slip,
+      path: `${path}[${i}]`,
+      reported: Number.isNaN(v) ? null : v,
+      expected: ours[i],
+      severity: 'error',
+      charge: points,
+      message: Number.isNaN(v)
+        ? `ln F at t = ${fmt(a.times[i])} in run "${a.label}" is blank; from your readings it is ${fmt(ours[i])}.`
+        : `ln F at t = ${fmt(a.times[i])} in run "${a.label}" is ${fmt(v)}; from your readings it is ${fmt(ours[i])}.` +
+          (slip ? ` It looks like a copying slip (${slip.replace('-', ' ')}), a guess to check.` : ' Please recompute this entry.'),
+    });
+  }
+  return { values, wrong: true };
+}

@@ -1,0 +1,154 @@
+import type { ReportedValue } from '../../../schemas/common.ts';
+import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import { fitCatalysisLaw, type CatalysisFit } from '../../engine/catalysis-law.ts';
+import { EngineError } from '../../engine/engine-error.ts';
+import type { Estimate } from '../../engine/estimate.ts';
+import { convert, rateUnitOf, type UnitKind } from '../../engine/units.ts';
+import { checkValue } from '../check-value.ts';
+import { convertEstimate } from '../convert-estimate.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { CONCENTRATION_UNIT, DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
+import { fmt } from '../format.ts';
+import { readReported } from '../reported-number.ts';
+import type { StudentK } from './check-run-k.ts';
+import type { RunAnalysis } from './run-analysis.ts';
+
+/** k_N and k_A from our refit, and from the student's own k_obs values where they gave them all. */
+export interface RateLawRefit {
+  kN: Estimate;
+  kA: Estimate;
+  fromReportedK?: { kN: Estimate; kA: Estimate };
+}
+
+// The fit runs in base units (M, s^-1) and its results are converted to the instructor's units.
+const BASE = { concentration: 'M', time: 's' };
+
+function fitInUnits(points: Array<{ c: number; k: number; se?: number }>, weighted: boolean, settings: Settings): { kN: Estimate; kA: Estimate; fit: CatalysisFit } {
+  const fit = fitCatalysisLaw(
+    points.map((p) => ({ concentration: p.c, k: p.k, standardError: p.se })),
+    { units: BASE, weighted },
+  );
+  return { kN: convertEstimate(fit.kN, settings.units.kN), kA: convertEstimate(fit.kA, settings.units.kA), fit };
+}
+
+export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK | undefined>, settings: Settings): RateLawRefit | undefined {
+  const weighted = settings.rateLawFit === 'weighted';
+  const perSecond = (a: RunAnalysis, k: number) => convert(k, rateUnitOf(a.timeUnit), 's^-1');
+  try {
+    const ours = fitInUnits(
+      analyses.map((a) => ({ c: a.concentrationM, k: perSecond(a, a.expected.value), se: perSecond(a, a.expected.standardError) })),
+      weighted,
+      settings,
+    );
+    let fromReportedK: RateLawRefit['fromReportedK'];
+    if (studentKs.every((k) => k !== undefined)) {
+      const canWeight = weighted && studentKs.every((k) => k!.uncertainty !== undefined && k!.uncertainty > 0);
+      const theirs = fitInUnits(
+        analyses.map((a, i) => ({ c: a.concentrationM, k: perSecond(a, studentKs[i]!.value), se: canWeight ? perSecond(a, studentKs[i]!.uncertainty!) : undefined })),
+        canWeight,
+        settings,
+      );
+      fromReportedK = { kN: theirs.kN, kA: theirs.kA };
+    }
+    return { kN: ours.kN, kA: ours.kA, fromReportedK };
+  } catch (error) {
+    // Fewer than three runs, or all at one concentration: there is no second stage to grade.
+    if (error instanceof EngineError) return undefined;
+    throw error;
+  }
+}
+
+interface Constant {
+  name: 'kN' | 'kA';
+  label: string;
+  unitKind: UnitKind;
+}
+const CONSTANTS: Constant[] = [
+  { name: 'kN', label: 'k_N', unitKind: 'first-order-rate' },
+  { name: 'kA', label: 'k_A', unitKind: 'second-order-rate' },
+];
+
+function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: RateLawRefit, settings: Settings, drafts: DraftFinding[]): void {
+  const path = `reported.${c.name}`;
+  const { rubric, tolerances } = settings;
+  const uncertaintyItem = c.name === 'kN' ? 'kNUncertainty' : 'kAUncertainty';
+  if (!reported) {
+    if (rubric[c.name] > 0) {
+      drafts.push({ code: 'missing-value', path, stage: 'rate-law', rubricItem: c.name, itemKey: c.name, severity: 'error', charge: rubric[c.name], message: `${c.label} is missing.` });
+    }
+    return;
+  }
+  const unit = settings.units[c.name];
+  const read = readReported(reported, c.unitKind, unit, unit, { path, what: c.label, stage: 'rate-law' }, drafts);
+  const ours = refit[c.name];
+  const theirs = refit.fromReportedK?.[c.name];
+  const factors = [SIGN, LOG_BASE, ...TIME_UNIT, ...(c.name === 'kA' ? CONCENTRATION_UNIT : []), ...DECIMAL_SHIFT];
+  const from = 'your own k_obs values';
+  checkValue(
+    {
+      what: c.label,
+      path,
+      stage: 'rate-law',
+      rubricItem: c.name,
+      itemKey: c.name,
+      charge: rubric[c.name],
+      reported: read.value,
+      unit,
+      expected: ours.value,
+      carriedForward: theirs && { value: theirs.value, from },
+      factors,
+      tolerance: tolerances[c.name],
+    },
+    drafts,
+  );
+  if (read.uncertainty === undefined) {
+    if (rubric[uncertaintyItem] > 0) {
+      drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage: 'rate-law', rubricItem: uncertaintyItem, itemKey: uncertaintyItem, severity: 'error', charge: rubric[uncertaintyItem], message: `The standard error of ${c.label} is missing.` });
+    }
+  } else {
+    const spread: Candidate[] = [{ value: (ours.ci95[1] - ours.ci95[0]) / 2, causes: ['uncertainty-kind'], basis: 'the half-width of the 95 % confidence interval', detail: '95 % confidence half-width' }];
+    checkValue(
+      {
+        what: `The standard error of ${c.label}`,
+        path: `${path}.uncertainty`,
+        stage: 'rate-law',
+        rubricItem: uncertaintyItem,
+        itemKey: uncertaintyItem,
+        charge: rubric[uncertaintyItem],
+        reported: read.uncertainty,
+        unit,
+        expected: ours.standardError,
+        carriedForward: theirs && { value: theirs.standardError, from },
+        slips: spread,
+        factors: factors.filter((f) => f !== SIGN),
+        tolerance: tolerances.rateLawUncertainty,
+      },
+      drafts,
+    );
+  }
+  checkPlausible(c, read.value, read.uncertainty, settings, drafts);
+}
+
+/** Outside the instructor's reference band, or k_N below zero by more than its 95 % interval. */
+function checkPlausible(c: Constant, value: number, uncertainty: number | undefined, settings: Settings, drafts: DraftFinding[]): void {
+  const band = settings.reference?.[c.name];
+  const path = `reported.${c.name}`;
+  const unit = settings.units[c.name];
+  const warn = (message: string) => drafts.push({ code: 'implausible', path, stage: 'rate-law', severity: 'warning', charge: 0, reported: value, unit, message });
+  if (band) {
+    const inBand = convert(value, unit, band.unit);
+    if (inBand < band.min || inBand > band.max) {
+      warn(`${c.label} = ${fmt(inBand)} ${band.unit} lies outside the range expected for this experiment, ${fmt(band.min)} to ${fmt(band.max)} ${band.unit}. This may be right for your data, but it is worth checking the runs and the units.`);
+      return;
+    }
+  }
+  // 1.96: the two-sided 95 % normal quantile; the degrees of freedom behind a reported value are unknown.
+  if (c.name === 'kN' && uncertainty !== undefined && value + 1.96 * uncertainty < 0) {
+    warn(`k_N = ${fmt(value)} ± ${fmt(uncertainty)} ${unit} is below zero by more than its uncertainty allows; a rate constant cannot be negative. Check the runs at low catalyst concentration and the fit.`);
+  }
+}
+
+export function checkRateLaw(submission: Submission, refit: RateLawRefit | undefined, settings: Settings, drafts: DraftFinding[]): void {
+  if (!refit) return;
+  for (const c of CONSTANTS) checkConstant(c, submission.reported?.[c.name], refit, settings, drafts);
+}

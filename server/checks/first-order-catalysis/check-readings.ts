@@ -1,0 +1,88 @@
+import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { fmt } from '../format.ts';
+import { findSuspectReading } from '../suspect-readings.ts';
+import { compareTables, type TableSlip } from '../transcription.ts';
+import type { RunAnalysis } from './run-analysis.ts';
+
+const slipWords: Record<string, string> = {
+  'transposed-digits': 'two neighbouring digits swapped',
+  'dropped-digit': 'a digit left out',
+  'extra-digit': 'a digit added',
+  'decimal-point': 'the decimal point moved',
+  'sign-lost': 'the sign changed',
+  other: 'a difference that is not a single copying slip',
+};
+
+/** The class run a student's run is a copy of: the same label, else the same position. */
+function classRunFor(run: SubmittedRun, index: number, classRuns: RunData[]): RunData | undefined {
+  return classRuns.find((c) => c.label === run.label) ?? classRuns[index];
+}
+
+function transcriptionDraft(slip: TableSlip, a: RunAnalysis, charge: number): DraftFinding {
+  const common = { code: 'transcription' as const, stage: 'readings' as const, rubricItem: 'readings', itemKey: `readings@${a.path}`, severity: 'error' as const, charge, detail: slip.detail };
+  const run = `run "${a.label}"`;
+  switch (slip.kind) {
+    case 'cell': {
+      const column = slip.column === 0 ? 'time' : 'reading';
+      return {
+        ...common,
+        path: `${a.path}.readings[${slip.row}]`,
+        reported: slip.copy,
+        expected: slip.original,
+        message: `In ${run}, row ${slip.row + 1}, the ${column} is ${fmt(slip.copy)} where the class data have ${fmt(slip.original)}: ${slipWords[slip.detail] ?? slip.detail}. This looks like a copying slip; please check it against the data sheet. Later values were checked against your own copy, so it is scored only here.`,
+      };
+    }
+    case 'table':
+      return { ...common, path: `${a.path}.readings`, message: `The readings of ${run} differ from the class data in several places that no single copying slip explains. Please check the table against the data sheet.` };
+    default: {
+      const what = { 'row-shift': 'the readings appear moved one row against their times', 'missing-row': 'a row appears to be missing', 'extra-row': 'a row appears to be added' }[slip.kind];
+      return {
+        ...common,
+        path: `${a.path}.readings`,
+        message: `In ${run}, from row ${slip.row + 1} on, ${what} compared with the class data. Please check the table against the data sheet; later values were checked against your own copy, so it is scored only here.`,
+      };
+    }
+  }
+}
+
+export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+  const classRuns = settings.classDataset?.runs;
+  if (classRuns) {
+    const original = classRunFor(run, a.index, classRuns);
+    if (!original) return;
+    const charge = settings.rubric.readings;
+    for (const slip of compareTables(original.readings, run.readings)) drafts.push(transcriptionDraft(slip, a, charge));
+    if (original.infinity !== undefined && run.infinity !== undefined && original.infinity !== run.infinity) {
+      drafts.push({
+        code: 'transcription',
+        stage: 'readings',
+        path: `${a.path}.infinity`,
+        rubricItem: 'readings',
+        itemKey: `readings@${a.path}`,
+        severity: 'error',
+        charge,
+        reported: run.infinity,
+        expected: original.infinity,
+        message: `x_inf of run "${a.label}" is ${fmt(run.infinity)} where the class data have ${fmt(original.infinity)}. Please check it against the data sheet.`,
+      });
+    }
+    return;
+  }
+  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text });
+  if (!suspect) return;
+  const guess = suspect.intended
+    ? ` It may have been meant as ${fmt(suspect.intended.value)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`
+    : '';
+  drafts.push({
+    code: 'suspect-reading',
+    detail: suspect.intended?.slip,
+    stage: 'readings',
+    path: `${a.path}.readings[${suspect.index}]`,
+    reported: suspect.reading,
+    expected: suspect.predicted,
+    severity: 'warning',
+    charge: 0,
+    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${fmt(suspect.reading)}) lies far from the curve through the other readings (${fmt(suspect.predicted)} expected).${guess} Your results were checked against your data as given.`,
+  });
+}

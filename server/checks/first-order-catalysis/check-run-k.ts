@@ -1,0 +1,119 @@
+import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { Estimate } from '../../engine/estimate.ts';
+import { rateUnitOf } from '../../engine/units.ts';
+import { checkValue, type ValueOutcome } from '../check-value.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
+import { readReported } from '../reported-number.ts';
+import type { LnFColumn } from './check-lnf-column.ts';
+import type { RunAnalysis } from './run-analysis.ts';
+import { fitDefined, slipFits } from './slip-values.ts';
+
+/** The student's k for one run, in the run's rate unit, as the second stage will use it. */
+export interface StudentK {
+  value: number;
+  uncertainty?: number;
+}
+
+function missing(path: string, what: string, item: string, itemKey: string, charge: number, drafts: DraftFinding[]): void {
+  if (charge > 0) {
+    drafts.push({ code: 'missing-value', path, stage: 'run', rubricItem: item, itemKey, severity: 'error', charge, message: `${what} is missing.` });
+  }
+}
+
+/** Checks a run's reported k and its uncertainty; returns the k as the student has it. */
+export function checkRunK(
+  run: SubmittedRun,
+  a: RunAnalysis,
+  all: RunAnalysis[],
+  ownColumn: LnFColumn | undefined,
+  settings: Settings,
+  drafts: DraftFinding[],
+): StudentK | undefined {
+  const path = `${a.path}.reported.k`;
+  const what = `k_obs of run "${a.label}"`;
+  const reported = run.reported?.k;
+  const { rubric, tolerances } = settings;
+  if (!reported) {
+    missing(path, what, 'k', `k@${a.path}`, rubric.k, drafts);
+    return undefined;
+  }
+  const unit = rateUnitOf(a.timeUnit);
+  const read = readReported(reported, 'first-order-rate', unit, settings.units.k, { path, what, stage: 'run' }, drafts);
+  const slips = slipFits(a, all, settings.fitModel);
+  // k from the student's own ln F column, when that column carries a slip of its own.
+  let own: Estimate | undefined;
+  if (ownColumn?.wrong && a.transform) {
+    const fit = fitDefined(settings.fitModel, a.transform.t, ownColumn.values);
+    own = { value: -fit.slope, standardError: fit.seSlope, ci95: [0, 0], unit };
+  }
+  const outcome = checkValue(
+    {
+      what,
+      path,
+      stage: 'run',
+      rubricItem: 'k',
+      itemKey: `k@${a.path}`,
+      charge: rubric.k,
+      reported: read.value,
+      unit,
+      expected: a.expected.value,
+      alsoRight: a.alsoRight.map((e) => e.value),
+      carriedForward: own && { value: own.value, from: 'your own ln F column' },
+      slips: slips.map((s) => s.k),
+      factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+      tolerance: tolerances.k,
+    },
+    drafts,
+  );
+  checkUncertainty(read.uncertainty, a, own, outcome, slips.map((s) => s.se), settings, drafts);
+  return { value: read.value, uncertainty: read.uncertainty };
+}
+
+/** The standard error of the fit the student's k came from, against the measures of spread often reported instead. */
+function checkUncertainty(
+  reported: number | undefined,
+  a: RunAnalysis,
+  own: Estimate | undefined,
+  kOutcome: ValueOutcome,
+  slipSEs: Candidate[],
+  settings: Settings,
+  drafts: DraftFinding[],
+): void {
+  const path = `${a.path}.reported.k.uncertainty`;
+  const what = `The standard error of k_obs of run "${a.label}"`;
+  const charge = settings.rubric.kUncertainty;
+  if (reported === undefined) {
+    missing(path, what, 'kUncertainty', `kUncertainty@${a.path}`, charge, drafts);
+    return;
+  }
+  // Judge the uncertainty against the fit the value came from, so one slip is not named twice.
+  const by = kOutcome.kind === 'explained' ? kOutcome.by : undefined;
+  const byK = by && slipSEs.find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
+  const expected = kOutcome.kind === 'carried-forward' && own ? own.standardError : a.expected.standardError;
+  const line = a.asked;
+  const spread: Candidate[] = line
+    ? [
+        { value: line.line.residualSD, causes: ['uncertainty-kind'], basis: 'the standard deviation of the ln F points about the line', detail: 'standard deviation of the points' },
+        { value: (line.k.ci95[1] - line.k.ci95[0]) / 2, causes: ['uncertainty-kind'], basis: 'the half-width of the 95 % confidence interval', detail: '95 % confidence half-width' },
+      ]
+    : [];
+  checkValue(
+    {
+      what,
+      path,
+      stage: 'run',
+      rubricItem: 'kUncertainty',
+      itemKey: `kUncertainty@${a.path}`,
+      charge,
+      reported,
+      unit: rateUnitOf(a.timeUnit),
+      expected,
+      alsoRight: byK ? [byK.value] : [],
+      slips: [...spread, ...slipSEs],
+      factors: [LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+      tolerance: settings.tolerances.kUncertainty,
+    },
+    drafts,
+  );
+}

@@ -1,0 +1,68 @@
+import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { CheckResult } from '../../../schemas/result.ts';
+import { EngineError } from '../../engine/engine-error.ts';
+import type { Estimate } from '../../engine/estimate.ts';
+import { convertEstimate } from '../convert-estimate.ts';
+import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
+import { checkLnFColumn } from './check-lnf-column.ts';
+import { checkReadings } from './check-readings.ts';
+import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
+import { checkRunK } from './check-run-k.ts';
+import { checkSigFigs } from './check-sig-figs.ts';
+import { analyseRun, type RunAnalysis } from './run-analysis.ts';
+import { itemPoints, maxScore } from './scoring.ts';
+
+/** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
+function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Settings) {
+  const inUnit = (e: Estimate | undefined, unit: string) => {
+    if (!e) return undefined;
+    try {
+      return convertEstimate(e, unit);
+    } catch (error) {
+      // A declared unit that cannot be read is reported as a finding; the refit just omits it.
+      if (error instanceof EngineError) return undefined;
+      throw error;
+    }
+  };
+  const declared = declaredUnit && declaredUnit !== settings.units.k ? inUnit(a.expected, declaredUnit) : undefined;
+  return {
+    label: a.label,
+    model: a.asked ? a.asked.model : 'exponential',
+    k: { instructor: convertEstimate(a.expected, settings.units.k), ...(declared ? { declared } : {}) },
+    kOtherModel: a.other ? convertEstimate(a.other.k, settings.units.k) : undefined,
+    kExponential: a.exponential ? convertEstimate(a.exponential.k, settings.units.k) : undefined,
+    halfLife: a.asked?.halfLife ?? a.exponential?.halfLife,
+    lnF: a.transform?.lnF,
+    residualSD: a.asked?.line.residualSD,
+  };
+}
+
+export function checkFirstOrderCatalysis(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
+  const analyses = submission.runs.map((run, i) => analyseRun(run, i, settings.fitModel));
+  const drafts: DraftFinding[] = [];
+  submission.runs.forEach((run, i) => checkReadings(run, analyses[i], settings, drafts));
+  const studentKs = submission.runs.map((run, i) => {
+    const column = checkLnFColumn(run, analyses[i], analyses, settings, drafts);
+    return checkRunK(run, analyses[i], analyses, column, settings, drafts);
+  });
+  const rateLaw = refitRateLaw(analyses, studentKs, settings);
+  checkRateLaw(submission, rateLaw, settings, drafts);
+  checkSigFigs(submission, settings, drafts);
+
+  const findings = scoreFindings(drafts, (key) => itemPoints(settings, key));
+  const max = maxScore(settings, submission);
+  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
+  return {
+    studentId: submission.studentId,
+    status: 'checked',
+    score: Math.max(0, max - lost),
+    maxScore: max,
+    refit: {
+      runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
+      kN: rateLaw?.kN,
+      kA: rateLaw?.kA,
+      fromReportedK: rateLaw?.fromReportedK,
+    },
+    findings,
+  };
+}

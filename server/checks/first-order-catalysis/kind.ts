@@ -1,0 +1,12 @@
+import { KIND, Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { ExperimentKind } from '../experiment-kind.ts';
+import { checkFirstOrderCatalysis } from './check-submission.ts';
+import { maxScore } from './scoring.ts';
+
+export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
+  kind: KIND,
+  settingsSchema: Settings,
+  submissionSchema: Submission,
+  check: checkFirstOrderCatalysis,
+  maxScore,
+};

@@ -1,0 +1,100 @@
+import type { SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { LineModel } from '../../engine/linear-fit.ts';
+import { EngineError } from '../../engine/engine-error.ts';
+import type { Estimate } from '../../engine/estimate.ts';
+import { fitTransformed, type FirstOrderLinearFit } from '../../engine/first-order-linear.ts';
+import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../../engine/first-order-nonlinear.ts';
+import { firstOrderTransform, type FirstOrderTransform } from '../../engine/first-order-run.ts';
+import { fitGuggenheim } from '../../engine/guggenheim.ts';
+import { convert, parseUnit, type Unit } from '../../engine/units.ts';
+import { InputRejected } from '../input-rejected.ts';
+
+/** Our own analysis of one run, from the student's raw data as submitted. */
+export interface RunAnalysis {
+  index: number;
+  path: string;
+  label: string;
+  timeUnit: Unit;
+  concentrationM: number;
+  times: number[];
+  readings: number[];
+  infinity?: number;
+  /** ln F with the student's x_inf; absent without one. */
+  transform?: FirstOrderTransform;
+  /** The model the assignment asks for, and the other one. */
+  asked?: FirstOrderLinearFit;
+  other?: FirstOrderLinearFit;
+  /** The exponential fit with x_inf fixed; absent if it cannot converge on these data. */
+  exponential?: FirstOrderNonlinearFit;
+  /** The k the student should report, per the run's time unit: the asked model, or without x_inf the exponential fit. */
+  expected: Estimate;
+  /** Other values that are right too (the Guggenheim k for a run without x_inf). */
+  alsoRight: Estimate[];
+}
+
+/** Maps an engine error's field (`readings[3]`, `times[2]`, `infinity`) into the submission. */
+function rejectAt(runPath: string, error: EngineError): never {
+  const field = error.field ?? '';
+  const m = /^(readings|times)\[(\d+)\]$/.exec(field);
+  const path = m ? `${runPath}.readings[${m[2]}][${m[1] === 'times' ? 0 : 1}]` : `${runPath}.${field || 'readings'}`;
+  throw new InputRejected([{ path, message: error.message }]);
+}
+
+function parseAt<T>(path: string, parse: () => T): T {
+  try {
+    return parse();
+  } catch (error) {
+    if (error instanceof EngineError) throw new InputRejected([{ path, message: error.message }]);
+    throw error;
+  }
+}
+
+/** The exponential fit is shown beside the asked one, never needed to grade: a failure leaves it out. */
+function exponentialOrNothing(fit: () => FirstOrderNonlinearFit): FirstOrderNonlinearFit | undefined {
+  try {
+    return fit();
+  } catch (error) {
+    if (error instanceof EngineError && error.code === 'no-convergence') return undefined;
+    throw error;
+  }
+}
+
+export function analyseRun(run: SubmittedRun, index: number, model: LineModel): RunAnalysis {
+  const path = `runs[${index}]`;
+  const timeUnit = parseAt(`${path}.timeUnit`, () => parseUnit(run.timeUnit, 'time'));
+  const concentrationM = parseAt(`${path}.catalyst.unit`, () => convert(run.catalyst.value, parseUnit(run.catalyst.unit, 'concentration'), 'M'));
+  const times = run.readings.map((r) => r[0]);
+  const readings = run.readings.map((r) => r[1]);
+  const data = { times, readings, timeUnit: run.timeUnit, infinity: run.infinity };
+  try {
+    if (run.infinity === undefined) {
+      const exponential = fitFirstOrderNonlinear(data, { infinity: 'fitted' });
+      const alsoRight = [fitGuggenheim(data).k];
+      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, exponential, expected: exponential.k, alsoRight };
+    }
+    const transform = firstOrderTransform(data, run.infinity);
+    const asked = fitTransformed(transform, run.timeUnit, model);
+    const other = fitTransformed(transform, run.timeUnit, model === 'origin' ? 'intercept' : 'origin');
+    const withIntercept = model === 'intercept' ? asked : other;
+    const exponential = exponentialOrNothing(() => fitFirstOrderNonlinear(data, { infinity: 'fixed', initialK: withIntercept.k.value }));
+    return {
+      index,
+      path,
+      label: run.label,
+      timeUnit,
+      concentrationM,
+      times,
+      readings,
+      infinity: run.infinity,
+      transform,
+      asked,
+      other,
+      exponential,
+      expected: asked.k,
+      alsoRight: [],
+    };
+  } catch (error) {
+    if (error instanceof EngineError) rejectAt(path, error);
+    throw error;
+  }
+}

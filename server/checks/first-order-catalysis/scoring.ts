@@ -1,0 +1,15 @@
+import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+
+/** The points a rubric item instance is worth: `k@runs[2]` is worth rubric.k. */
+export function itemPoints(settings: Settings, itemKey: string): number {
+  const item = itemKey.split('@')[0] as keyof Settings['rubric'];
+  return settings.rubric[item] ?? 0;
+}
+
+/** Per run: readings (with a class dataset), ln F, k and its uncertainty; then the rate law and presentation. */
+export function maxScore(settings: Settings, submission: Submission): number {
+  const r = settings.rubric;
+  const perRun = (settings.classDataset ? r.readings : 0) + r.lnF + r.k + r.kUncertainty;
+  const rateLaw = submission.runs.length >= 3 ? r.kN + r.kNUncertainty + r.kA + r.kAUncertainty : 0;
+  return perRun * submission.runs.length + rateLaw + r.sigFigs;
+}

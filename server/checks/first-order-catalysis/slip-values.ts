@@ -1,0 +1,79 @@
+import { EngineError } from '../../engine/engine-error.ts';
+import { fitLine, fitThroughOrigin, type LineModel } from '../../engine/linear-fit.ts';
+import type { Candidate } from '../explain.ts';
+import { fmt } from '../format.ts';
+import type { RunAnalysis } from './run-analysis.ts';
+
+/**
+ * The numbers a student would get from the run's data by each known slip of method, in the run's
+ * own units: k and its standard error for each, and the ln F column for another x_inf.
+ */
+export interface SlipFit {
+  k: Candidate;
+  se: Candidate;
+}
+
+/** ln F with another x_inf; NaN where the reading is on the wrong side of it. */
+export function lnFWith(a: RunAnalysis, infinity: number): number[] {
+  const span = a.readings[0] - infinity;
+  return a.readings.map((x) => {
+    const f = (x - infinity) / span;
+    return f > 0 ? Math.log(f) : Number.NaN;
+  });
+}
+
+/** x_inf values a student might have used by mistake: the last reading, another run's x_inf. */
+export function infinityAlternatives(a: RunAnalysis, all: RunAnalysis[]): Array<{ value: number; detail: string }> {
+  if (a.infinity === undefined) return [];
+  const out = [{ value: a.readings[a.readings.length - 1], detail: `x_inf taken as the last reading, ${fmt(a.readings[a.readings.length - 1])}` }];
+  for (const other of all) {
+    if (other.index !== a.index && other.infinity !== undefined && other.infinity !== a.infinity && !out.some((o) => o.value === other.infinity)) {
+      out.push({ value: other.infinity, detail: `x_inf of run "${other.label}", ${fmt(other.infinity)}` });
+    }
+  }
+  return out;
+}
+
+function fitModel(model: LineModel, x: number[], y: number[]) {
+  return model === 'origin' ? fitThroughOrigin(x, y) : fitLine(x, y);
+}
+
+/** The asked model fitted to (t, ln F) pairs that are defined. */
+export function fitDefined(model: LineModel, t: number[], lnF: number[]) {
+  const keep = lnF.map((v, i) => (Number.isFinite(v) ? i : -1)).filter((i) => i >= 0);
+  return fitModel(model, keep.map((i) => t[i]), keep.map((i) => lnF[i]));
+}
+
+export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): SlipFit[] {
+  if (!a.transform || !a.other) return [];
+  const { t, lnF } = a.transform;
+  const out: SlipFit[] = [
+    {
+      k: { value: a.other.k.value, causes: ['fit-model'], basis: `the fit ${a.other.model === 'origin' ? 'through the origin' : 'with an intercept'}` },
+      se: { value: a.other.k.standardError, causes: ['fit-model'], basis: `the standard error of the fit ${a.other.model === 'origin' ? 'through the origin' : 'with an intercept'}` },
+    },
+  ];
+  // t regressed on ln F, the slope reported as if it were the slope of ln F on t.
+  const swapped = fitModel(model, lnF, t);
+  out.push({
+    k: { value: -swapped.slope, causes: ['swapped-axes'], basis: 'minus the slope of t against ln F' },
+    se: { value: swapped.seSlope, causes: ['swapped-axes'], basis: 'the standard error of the slope of t against ln F' },
+  });
+  out.push({
+    k: { value: Math.LN2 / a.expected.value, causes: ['half-life-for-rate'], basis: 'the half-life ln 2/k' },
+    se: { value: (Math.LN2 * a.expected.standardError) / a.expected.value ** 2, causes: ['half-life-for-rate'], basis: 'the standard error of the half-life' },
+  });
+  for (const alt of infinityAlternatives(a, all)) {
+    try {
+      const fit = fitDefined(model, t, lnFWith(a, alt.value));
+      out.push({
+        k: { value: -fit.slope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the refit with that x_inf' },
+        se: { value: fit.seSlope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the standard error of the refit with that x_inf' },
+      });
+    } catch (error) {
+      // Too few defined points with that x_inf: not a slip a student could have fitted either.
+      if (!(error instanceof EngineError)) throw error;
+    }
+  }
+  return out;
+}

@@ -1,0 +1,43 @@
+import type { NumberLike } from '../../schemas/common.ts';
+import { decimalsOf } from './digit-slips.ts';
+
+/**
+ * Rounding of a value against its uncertainty: the uncertainty to 1 or 2 significant figures and the
+ * value to the same decimal place (common practice, no source). A number sent as JSON has lost its
+ * trailing zeros, so from a number only over-precision is judged, never too few digits.
+ */
+export interface SigFigProblem {
+  problem: 'uncertainty-digits' | 'value-over-precise' | 'value-under-precise';
+  text: string;
+}
+
+function decimalsOfText(text: string): number {
+  const t = text.trim().toLowerCase();
+  const [mantissa, exp] = t.split('e');
+  const dot = mantissa.indexOf('.');
+  const places = dot < 0 ? 0 : mantissa.length - dot - 1;
+  return places - (exp ? Number(exp) : 0);
+}
+
+function significantFiguresOfText(text: string): number {
+  const mantissa = text.trim().toLowerCase().split('e')[0].replace(/^[-+]/, '').replace('.', '');
+  return mantissa.replace(/^0+/, '').length;
+}
+
+export function sigFigProblem(value: NumberLike, uncertainty: NumberLike): SigFigProblem | undefined {
+  const uText = String(uncertainty);
+  const exactTexts = typeof value === 'string' && typeof uncertainty === 'string';
+  const uDecimals = typeof uncertainty === 'string' ? decimalsOfText(uncertainty) : decimalsOf(uncertainty);
+  const vDecimals = typeof value === 'string' ? decimalsOfText(value) : decimalsOf(value);
+  if (Number(uncertainty) === 0) return undefined;
+  if (significantFiguresOfText(uText) > 2) {
+    return { problem: 'uncertainty-digits', text: `the uncertainty ${uText} has ${significantFiguresOfText(uText)} significant figures; 1 or 2 are meaningful` };
+  }
+  if (vDecimals > uDecimals) {
+    return { problem: 'value-over-precise', text: `the value ${String(value)} has more decimal places than its uncertainty ${uText}` };
+  }
+  if (exactTexts && vDecimals < uDecimals) {
+    return { problem: 'value-under-precise', text: `the value ${String(value)} stops before the last decimal place of its uncertainty ${uText}` };
+  }
+  return undefined;
+}
