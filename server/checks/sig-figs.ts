@@ -4,7 +4,8 @@ import { decimalsOf } from './digit-slips.ts';
 /**
  * Rounding of a value against its uncertainty: the uncertainty to 1 or 2 significant figures and the
  * value to the same decimal place (common practice, no source). A number sent as JSON has lost its
- * trailing zeros, so from a number only over-precision is judged, never too few digits.
+ * trailing zeros, so from a number only over-precision is judged, never too few digits, and a
+ * one-figure uncertainty is allowed the second figure it may have had.
  */
 export interface SigFigProblem {
   problem: 'uncertainty-digits' | 'value-over-precise' | 'value-under-precise';
@@ -33,7 +34,9 @@ export function sigFigProblem(value: NumberLike, uncertainty: NumberLike): SigFi
   if (significantFiguresOfText(uText) > 2) {
     return { problem: 'uncertainty-digits', text: `the uncertainty ${uText} has ${significantFiguresOfText(uText)} significant figures; 1 or 2 are meaningful` };
   }
-  if (vDecimals > uDecimals) {
+  // A JSON number has lost its trailing zeros: an uncertainty that shows one figure may have had two.
+  const uMayHaveLostZero = typeof uncertainty === 'number' && significantFiguresOfText(uText) === 1;
+  if (vDecimals > uDecimals + (uMayHaveLostZero ? 1 : 0)) {
     return { problem: 'value-over-precise', text: `the value ${String(value)} has more decimal places than its uncertainty ${uText}` };
   }
   if (exactTexts && vDecimals < uDecimals) {

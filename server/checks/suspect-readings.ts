@@ -20,6 +20,14 @@ export interface SuspectReading {
   intended?: { value: number; slip: SlipKind };
 }
 
+const undo: Record<SlipKind, SlipKind> = {
+  'sign-lost': 'sign-lost',
+  'decimal-point': 'decimal-point',
+  'transposed-digits': 'transposed-digits',
+  'dropped-digit': 'extra-digit',
+  'extra-digit': 'dropped-digit',
+};
+
 interface Curve {
   times: number[];
   readings: number[];
@@ -52,8 +60,11 @@ export function findSuspectReading(curve: Curve): SuspectReading | undefined {
     const step = 10 ** -decimals;
     const offset = Math.abs(reading - predicted);
     if (offset <= SUSPECT_SDS * without.residualSD || offset <= MIN_OFFSET_STEPS * step) return undefined;
+    // The intended value was written to the run's precision; a slip that added a digit is undone by
+    // dropping one, and the reverse.
     const nearest = oneSlipCopies(reading, decimals)
-      .map((s) => ({ ...s, off: Math.abs(s.value - predicted) }))
+      .filter((s) => decimalsOf(s.value) <= decimals)
+      .map((s) => ({ ...s, kind: undo[s.kind], off: Math.abs(s.value - predicted) }))
       .sort((a, b) => a.off - b.off)[0];
     const onCurve = nearest && nearest.off <= Math.max(4 * without.residualSD, 3 * step);
     return {
