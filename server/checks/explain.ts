@@ -66,20 +66,23 @@ const rank = (c: Candidate) => Math.min(...c.causes.map((code) => CAUSE_PRIORITY
 /** A candidate made from a base value: `root` is the base, `says` how the slips scaled it. */
 export type Expanded = Candidate & { root: number; says: string[] };
 
-/** Every base value, alone and with up to `maxCauses` causes in all, from distinct slips. */
-export function expandCandidates(bases: Candidate[], factors: Factor[], maxCauses = 2): Expanded[] {
+// Two scalings at once are named only when one is the sign, which moves no magnitude; a slip of
+// method joins only the common unit slips. Wider pairings would "explain" almost any number.
+const JOINS_A_METHOD_SLIP = new Set<FindingCode>(['sign-flipped', 'log-base', 'time-unit']);
+
+/** Every base value alone, with one scaling, and with one scaling and the sign; at most two causes. */
+export function expandCandidates(bases: Candidate[], factors: Factor[]): Expanded[] {
   const out: Expanded[] = [];
+  const sign = factors.find((f) => f.cause === 'sign-flipped');
   for (const b of bases) {
-    const base = { ...b, root: b.value };
-    out.push({ ...base, says: [] });
-    for (let i = 0; i < factors.length; i++) {
-      const a = factors[i];
-      if (base.causes.length + 1 > maxCauses || base.causes.includes(a.cause)) continue;
-      out.push({ ...base, value: base.value * a.factor, causes: [...base.causes, a.cause], says: [a.says] });
-      for (let j = i + 1; j < factors.length; j++) {
-        const b = factors[j];
-        if (base.causes.length + 2 > maxCauses || b.cause === a.cause || base.causes.includes(b.cause)) continue;
-        out.push({ ...base, value: base.value * a.factor * b.factor, causes: [...base.causes, a.cause, b.cause], says: [a.says, b.says] });
+    const base: Expanded = { ...b, root: b.value, says: [] };
+    out.push(base);
+    for (const f of factors) {
+      if (base.causes.length > 0 && !JOINS_A_METHOD_SLIP.has(f.cause)) continue;
+      const one: Expanded = { ...base, value: base.value * f.factor, causes: [...base.causes, f.cause], says: [f.says] };
+      out.push(one);
+      if (sign && f !== sign && base.causes.length === 0) {
+        out.push({ ...one, value: -one.value, causes: [sign.cause, f.cause], says: [sign.says, f.says] });
       }
     }
   }

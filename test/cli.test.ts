@@ -1,0 +1,163 @@
+import { execFile } from 'node:child_process';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { promisify } from 'node:util';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { CheckResult } from '../schemas/result.ts';
+import { run } from '../server/cli.ts';
+
+const assignment = { kind: 'first-order-catalysis', fitModel: 'origin' };
+
+/** A run of clean first-order readings, x_inf = 1, with k_obs = 0.02 + 0.6 [H+] per minute. */
+function runAt(label: string, acid: number) {
+  const k = 0.02 + 0.6 * acid;
+  const times = [0, 1, 2, 3, 4, 5, 6, 7, 8];
+  return {
+    label,
+    catalyst: { value: acid, unit: 'M' },
+    timeUnit: 'min',
+    readings: times.map((t) => [t, Number((1 + 9 * Math.exp(-k * t)).toFixed(3))]),
+    infinity: 1,
+    reported: { k: { value: k.toFixed(4), unit: 'min^-1' } },
+  };
+}
+
+// Invented pseudonymous ids.
+const submission = (studentId: string) => ({
+  studentId,
+  runs: [runAt('R1', 0.05), runAt('R2', 0.1), runAt('R3', 0.2)],
+  reported: { kN: { value: '0.0200', unit: 'min^-1' }, kA: { value: '0.600', unit: 'M^-1 min^-1' } },
+});
+const notANumber = { ...submission('s-02'), runs: [{ ...runAt('R1', 0.05), readings: [[0, 10], [1, 'nine'], [2, 8]] }] };
+
+let dir: string;
+const file = (name: string) => join(dir, name);
+
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'rateproof-cli-'));
+  await writeFile(file('assignment.json'), JSON.stringify(assignment));
+  await writeFile(file('bad-assignment.json'), JSON.stringify({ ...assignment, fitModel: 'sideways' }));
+  await writeFile(file('one.json'), JSON.stringify(submission('s-01')));
+  await writeFile(file('batch.json'), JSON.stringify([submission('s-01'), notANumber, submission('s-03')], null, 2));
+  await writeFile(file('malformed.json'), '[\n  { "studentId": "s-01",\n  }\n]\n');
+  const rows = submission('s-01').runs.flatMap((r) =>
+    r.readings.map(([t, x]) => ['s-01', r.label, String(r.catalyst.value).replace('.', ','), 'M', 'min', t, String(x).replace('.', ','), t === 0 ? '1' : ''].join(';')),
+  );
+  await writeFile(file('readings.csv'), ['student_id;run;catalyst;catalyst_unit;time_unit;t;x;infinity', ...rows].join('\n'));
+  await writeFile(file('reported.csv'), 'student_id;run;quantity;value;uncertainty;unit\ns-01;R1;k;0,0500;;min^-1\ns-01;;kN;0,0200;;min^-1\n');
+  await writeFile(file('no-x.csv'), 'student_id,run,catalyst,catalyst_unit,time_unit,t\ns-01,R1,0.05,M,min,0\n');
+});
+
+afterAll(async () => {
+  await rm(dir, { recursive: true, force: true });
+});
+
+async function rateproof(...argv: string[]) {
+  const out = { stdout: '', stderr: '' };
+  const code = await run(argv, {
+    stdout: (text) => (out.stdout += text),
+    stderr: (text) => (out.stderr += text),
+    readFile: (path) => readFile(path, 'utf8'),
+  });
+  return { code, ...out, stderrLines: out.stderr.trimEnd().split('\n') };
+}
+
+describe('rateproof check: files it cannot use', () => {
+  it('a missing file: exit 2 and one line naming it', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('absent.json'));
+    expect(result.code).toBe(2);
+    expect(result.stderrLines).toEqual([`rateproof: cannot read ${file('absent.json')}: no such file`]);
+    expect(result.stdout).toBe('');
+  });
+
+  it('malformed JSON: exit 2 and one line naming the file and the line', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('malformed.json'));
+    expect(result.code).toBe(2);
+    expect(result.stderrLines).toHaveLength(1);
+    expect(result.stderr).toMatch(new RegExp(`^rateproof: cannot read ${file('malformed.json')}: .* at line 3 column 3\\n$`));
+  });
+
+  it('an invalid assignment: exit 2 and one line naming the file and the field', async () => {
+    const result = await rateproof('check', '--assignment', file('bad-assignment.json'), file('one.json'));
+    expect(result.code).toBe(2);
+    expect(result.stderrLines).toHaveLength(1);
+    expect(result.stderr).toMatch(`rateproof: invalid assignment in ${file('bad-assignment.json')}: fitModel: `);
+  });
+
+  it('a CSV with a missing column: exit 2 and one line naming the file, line and column', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('no-x.csv'));
+    expect(result.code).toBe(2);
+    expect(result.stderrLines).toEqual([`rateproof: cannot read ${file('no-x.csv')}: line 1: missing column "x"`]);
+  });
+});
+
+describe('rateproof: arguments', () => {
+  it.each([[[]], [['grade']], [['check', 'one.json']], [['check', '--assignment', 'a.json']], [['check', '--assignment', 'a.json', 'one.json', '--colour']]])(
+    '%j: usage on stderr, exit 2',
+    async (argv) => {
+      const result = await rateproof(...argv);
+      expect(result.code).toBe(2);
+      expect(result.stderr).toContain('usage: rateproof check --assignment');
+      expect(result.stdout).toBe('');
+    },
+  );
+
+  it('--reported only goes with a CSV file', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), '--reported', file('reported.csv'));
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(/^rateproof: --reported goes with a CSV submissions file\nusage:/);
+  });
+});
+
+describe('rateproof check: results', () => {
+  it('--json prints an array of results, also for a single submission object', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), '--json');
+    expect(result.code).toBe(0);
+    expect(result.stderr).toBe('');
+    const results = JSON.parse(result.stdout) as CheckResult[];
+    expect(results).toHaveLength(1);
+    expect(results[0]).toMatchObject({ studentId: 's-01', status: 'checked' });
+  });
+
+  it('one invalid submission in a batch is rejected, naming the field, while the others are checked', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('batch.json'), '--json');
+    expect(result.code).toBe(0);
+    const results = JSON.parse(result.stdout) as CheckResult[];
+    expect(results.map((r) => [r.studentId, r.status])).toEqual([['s-01', 'checked'], ['s-02', 'rejected'], ['s-03', 'checked']]);
+    expect(results[1].rejected).toContainEqual(expect.objectContaining({ path: 'runs[0].readings[1][1]' }));
+  });
+
+  it('prints a table: one row per submission, then each finding or rejection on its own line', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('batch.json'));
+    expect(result.code).toBe(0);
+    const lines = result.stdout.split('\n');
+    expect(lines[0]).toMatch(/^student +score +errors +warnings +info +codes$/);
+    expect(lines[1]).toMatch(/^s-01 +\d+(\.\d+)?\/\d+(\.\d+)? +\d+ +\d+ +\d+/);
+    expect(lines[2]).toMatch(/^s-02 +rejected +0 +0 +0$/);
+    const rejected = lines.indexOf('s-02');
+    expect(lines[rejected + 1]).toMatch(/^ {2}rejected +runs\[0\]\.readings\[1\]\[1\] +\S/);
+  });
+
+  it('reads a CSV readings file with a reported-values file', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('readings.csv'), '--reported', file('reported.csv'), '--json');
+    expect(result.stderr).toBe('');
+    const [checked] = JSON.parse(result.stdout) as CheckResult[];
+    expect(checked).toMatchObject({ studentId: 's-01', status: 'checked' });
+  });
+});
+
+describe('bin/rateproof.js', () => {
+  it('starts the real command', async () => {
+    const bin = fileURLToPath(new URL('../bin/rateproof.js', import.meta.url));
+    const { stdout } = await promisify(execFile)(process.execPath, [bin, 'check', '--assignment', file('assignment.json'), file('one.json'), '--json']);
+    expect((JSON.parse(stdout) as CheckResult[])[0].studentId).toBe('s-01');
+  });
+
+  it('exits 2 on a missing file', async () => {
+    const bin = fileURLToPath(new URL('../bin/rateproof.js', import.meta.url));
+    const failure = await promisify(execFile)(process.execPath, [bin, 'check', '--assignment', file('absent.json'), file('one.json')]).catch((e: unknown) => e);
+    expect(failure).toMatchObject({ code: 2, stderr: `rateproof: cannot read ${file('absent.json')}: no such file\n` });
+  });
+});
