@@ -84,7 +84,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
   const theirs = refit.fromReportedK?.[c.name];
   const factors = [SIGN, LOG_BASE, ...TIME_UNIT, ...(c.name === 'kA' ? CONCENTRATION_UNIT : []), ...DECIMAL_SHIFT];
   const from = 'your own k_obs values';
-  checkValue(
+  const outcome = checkValue(
     {
       what: c.label,
       path,
@@ -126,7 +126,8 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
       drafts,
     );
   }
-  checkPlausible(c, read.value, read.uncertainty, settings, drafts);
+  // A value already found wrong needs no second warning about its size.
+  if (outcome.kind === 'right' || outcome.kind === 'carried-forward') checkPlausible(c, read.value, read.uncertainty, settings, drafts);
 }
 
 /** Outside the instructor's reference band, or k_N below zero by more than its 95 % interval. */

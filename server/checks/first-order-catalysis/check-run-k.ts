@@ -90,7 +90,7 @@ function checkUncertainty(
   // Judge the uncertainty against the fit the value came from, so one slip is not named twice.
   const by = kOutcome.kind === 'explained' ? kOutcome.by : undefined;
   const byK = by && slipSEs.find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
-  const expected = kOutcome.kind === 'carried-forward' && own ? own.standardError : a.expected.standardError;
+  const expected = a.expected.standardError;
   const line = a.asked;
   const spread: Candidate[] = line
     ? [
@@ -110,6 +110,7 @@ function checkUncertainty(
       unit: rateUnitOf(a.timeUnit),
       expected,
       alsoRight: byK ? [byK.value] : [],
+      carriedForward: own && { value: own.standardError, from: 'your own ln F column' },
       slips: [...spread, ...slipSEs],
       factors: [LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       tolerance: settings.tolerances.kUncertainty,
