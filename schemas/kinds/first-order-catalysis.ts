@@ -10,14 +10,23 @@ export const KIND = 'first-order-catalysis';
 
 const Reading = z.tuple([FiniteNumber, FiniteNumber]);
 
+function timesInOrder(rows: Array<[number, number]>, ctx: z.RefinementCtx): void {
+  for (let i = 1; i < rows.length; i++) {
+    const [t, x] = rows[i];
+    const [tBefore, xBefore] = rows[i - 1];
+    if (t < tBefore) ctx.addIssue({ code: 'custom', path: [i, 0], message: `time ${t} comes before the time above it, ${tBefore}` });
+    else if (t === tBefore && x !== xBefore) ctx.addIssue({ code: 'custom', path: [i, 0], message: `time ${t} is repeated with a different reading` });
+  }
+}
+
 /** A run's raw data as measured (or as handed out in a class dataset). */
 export const RunData = z.object({
   label: z.string().trim().min(1).max(40),
   catalyst: Quantity,
   /** Unit of the times in `readings`. */
   timeUnit: UnitText,
-  /** [t, x] pairs in time order. */
-  readings: z.array(Reading).min(3, 'at least 3 readings').max(1000),
+  /** [t, x] pairs in time order. A row repeated exactly is kept (and reported as a likely slip). */
+  readings: z.array(Reading).min(3, 'at least 3 readings').max(1000).superRefine(timesInOrder),
   /** x_inf, the end value; absent when it was never measured (then the Guggenheim method). */
   infinity: FiniteNumber.optional(),
   temperatureC: FiniteNumber.optional(),

@@ -14,6 +14,8 @@ export interface Candidate {
   detail?: string;
   /** What the value is, in words: "the refit", "the slope of t against ln F". */
   basis: string;
+  /** Against another explanation with as many causes, the closer one wins, not the more common. */
+  closestWins?: boolean;
 }
 
 /** Common slips that scale a value; which apply depends on the quantity. */
@@ -89,17 +91,19 @@ export function expandCandidates(bases: Candidate[], factors: Factor[]): Expande
   return out;
 }
 
+function better(c: Candidate, best: Candidate, reported: number): boolean {
+  if (c.causes.length !== best.causes.length) return c.causes.length < best.causes.length;
+  const closer = Math.abs(reported - c.value) < Math.abs(reported - best.value);
+  if (c.closestWins || best.closestWins || rank(c) === rank(best)) return closer;
+  return rank(c) < rank(best);
+}
+
 /** The best explanation of `reported`, or undefined when no candidate matches. */
 export function explain<C extends Candidate>(reported: number, candidates: C[], tolerance: Tolerance): C | undefined {
   let best: C | undefined;
   for (const c of candidates) {
     if (!Number.isFinite(c.value) || !withinTolerance(reported, c.value, tolerance)) continue;
-    if (
-      !best ||
-      c.causes.length < best.causes.length ||
-      (c.causes.length === best.causes.length && rank(c) < rank(best)) ||
-      (c.causes.length === best.causes.length && rank(c) === rank(best) && Math.abs(reported - c.value) < Math.abs(reported - best.value))
-    ) {
+    if (!best || better(c, best, reported)) {
       best = c;
     }
   }

@@ -40,42 +40,50 @@ function fitWithout(curve: Curve, skip: number) {
   return fitFirstOrderNonlinear({ times, readings, timeUnit: curve.timeUnit }, { infinity: 'fitted' });
 }
 
-function predictAt(fit: ReturnType<typeof fitFirstOrderNonlinear>, elapsed: number): number {
-  return fit.infinity.value + (fit.x0.value - fit.infinity.value) * Math.exp(-fit.k.value * elapsed);
+/**
+ * The reading whose removal leaves the tightest curve. Only the three worst-fitting readings of a fit
+ * of all are tried; when one reading is so far off that no fit of all converges, every reading is.
+ */
+function mostSuspect(curve: Curve) {
+  let tried = curve.readings.map((_, i) => i);
+  try {
+    const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted' });
+    tried = tried.sort((a, b) => Math.abs(all.residuals[b]) - Math.abs(all.residuals[a])).slice(0, 3);
+  } catch (error) {
+    if (!(error instanceof EngineError)) throw error;
+  }
+  let best: { index: number; fit: ReturnType<typeof fitWithout> } | undefined;
+  for (const i of tried) {
+    try {
+      const fit = fitWithout(curve, i);
+      if (!best || fit.residualSD < best.fit.residualSD) best = { index: i, fit };
+    } catch (error) {
+      if (!(error instanceof EngineError)) throw error;
+    }
+  }
+  return best;
 }
 
 export function findSuspectReading(curve: Curve): SuspectReading | undefined {
   const n = curve.readings.length;
   if (n < 6) return undefined;
-  try {
-    const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted' });
-    let worst = 0;
-    for (let i = 1; i < n; i++) if (Math.abs(all.residuals[i]) > Math.abs(all.residuals[worst])) worst = i;
-    const without = fitWithout(curve, worst);
-    // Times count from the first reading; without reading 0 they count from reading 1.
-    const origin = worst === 0 ? curve.times[1] : curve.times[0];
-    const predicted = predictAt(without, curve.times[worst] - origin);
-    const reading = curve.readings[worst];
-    const decimals = curve.readings.reduce((d, x) => Math.max(d, decimalsOf(x)), 0);
-    const step = 10 ** -decimals;
-    const offset = Math.abs(reading - predicted);
-    if (offset <= SUSPECT_SDS * without.residualSD || offset <= MIN_OFFSET_STEPS * step) return undefined;
-    // The intended value was written to the run's precision; a slip that added a digit is undone by
-    // dropping one, and the reverse.
-    const nearest = oneSlipCopies(reading, decimals)
-      .filter((s) => decimalsOf(s.value) <= decimals)
-      .map((s) => ({ ...s, kind: undo[s.kind], off: Math.abs(s.value - predicted) }))
-      .sort((a, b) => a.off - b.off)[0];
-    const onCurve = nearest && nearest.off <= Math.max(4 * without.residualSD, 3 * step);
-    return {
-      index: worst,
-      reading,
-      predicted,
-      intended: onCurve ? { value: nearest.value, slip: nearest.kind } : undefined,
-    };
-  } catch (error) {
-    // Data the exponential cannot describe say nothing about single readings.
-    if (error instanceof EngineError) return undefined;
-    throw error;
-  }
+  const best = mostSuspect(curve);
+  if (!best) return undefined;
+  const { index, fit } = best;
+  // Times count from the first reading; without reading 0 they count from reading 1.
+  const origin = index === 0 ? curve.times[1] : curve.times[0];
+  const predicted = fit.infinity.value + (fit.x0.value - fit.infinity.value) * Math.exp(-fit.k.value * (curve.times[index] - origin));
+  const reading = curve.readings[index];
+  const decimals = curve.readings.reduce((d, x) => Math.max(d, decimalsOf(x)), 0);
+  const step = 10 ** -decimals;
+  const offset = Math.abs(reading - predicted);
+  if (offset <= SUSPECT_SDS * fit.residualSD || offset <= MIN_OFFSET_STEPS * step) return undefined;
+  // The intended value was written to the run's precision; a slip that added a digit is undone by
+  // dropping one, and the reverse.
+  const nearest = oneSlipCopies(reading, decimals)
+    .filter((s) => decimalsOf(s.value) <= decimals)
+    .map((s) => ({ ...s, kind: undo[s.kind], off: Math.abs(s.value - predicted) }))
+    .sort((a, b) => a.off - b.off)[0];
+  const onCurve = nearest && nearest.off <= Math.max(4 * fit.residualSD, 3 * step);
+  return { index, reading, predicted, intended: onCurve ? { value: nearest.value, slip: nearest.kind } : undefined };
 }

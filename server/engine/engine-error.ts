@@ -6,7 +6,7 @@ export const engineErrorCodes = {
   'too-few-points': 'fewer points than the fit needs',
   'degenerate-x': 'all x values (times or concentrations) are equal, so no slope can be fitted',
   'non-finite': 'a value is not a finite number',
-  'times-not-increasing': 'the times of a run are not in increasing order',
+  'times-not-increasing': 'the times of a run go back',
   'non-positive-ratio': 'a reading lies on the wrong side of the end value, so ln F is undefined',
   'bad-weight': 'a weight or standard error is not positive',
   'unknown-unit': 'the unit is not recognised',

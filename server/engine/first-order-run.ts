@@ -32,10 +32,11 @@ export function elapsedTimes(run: FirstOrderRun): number[] {
   }
   const elapsed = new Array<number>(times.length);
   for (let i = 0; i < times.length; i++) {
-    if (i > 0 && !(times[i] > times[i - 1])) {
+    // Equal times are allowed (replicate readings fit like any other points); going back is not.
+    if (i > 0 && times[i] < times[i - 1]) {
       throw new EngineError(
         'times-not-increasing',
-        `times[${i}] = ${times[i]} does not come after times[${i - 1}] = ${times[i - 1]}`,
+        `times[${i}] = ${times[i]} comes before times[${i - 1}] = ${times[i - 1]}`,
         `times[${i}]`,
       );
     }

@@ -1,3 +1,4 @@
+import { benchChecks } from './check-throughput.ts';
 import { benchEngineRefit } from './engine-refit.ts';
 
 // `npm run bench`: prints figures; targets are compared by a reader, never asserted.
@@ -5,4 +6,10 @@ const engine = benchEngineRefit();
 console.log(
   `engine: ${Math.round(engine.refitsPerSecond).toLocaleString('en-US')} full refits/s ` +
     `(${engine.microsecondsPerRefit.toFixed(1)} µs each; 4 runs x 16 readings, both ln F models, exponential fit, second stage; one core; target >= 50,000/s)`,
+);
+
+const checks = benchChecks();
+console.log(
+  `checker: ${Math.round(checks.checksPerSecond).toLocaleString('en-US')} checked submissions/s ` +
+    `(${checks.microsecondsPerCheck.toFixed(1)} µs each; clean, 4 runs x 16 readings, default assignment, checkBatch over 2,000; one core)`,
 );

@@ -196,9 +196,16 @@ describe('scoring', () => {
     expect(r.rejected).toEqual([{ path: 'runs[2].timeUnit', message: expect.stringContaining('fortnights') }]);
   });
 
-  it('rejects a reading on the wrong side of x_inf, naming the reading', () => {
+  it('a reading on the wrong side of x_inf is named and left out of the refit, not a rejection', () => {
     const r = check((s) => (s.runs[0].readings[5] = [5, 1.5]));
-    expect(r.rejected?.[0].path).toBe('runs[0].readings[5][1]');
+    expect(r.status).toBe('checked');
+    expect(at(r, 'runs[0].readings[5]')).toMatchObject({ code: 'suspect-reading', severity: 'warning' });
+    expect((r.refit as { runs: Array<{ lnF: number[] }> }).runs[0].lnF[5]).toBeNaN();
+  });
+
+  it('rejects times that go back, naming the row', () => {
+    const r = check((s) => (s.runs[1].readings[4][0] = 2.5));
+    expect(r.rejected).toEqual([{ path: 'runs[1].readings[4][0]', message: 'time 2.5 comes before the time above it, 3' }]);
   });
 
   it('uses the right readings for the section', () => {

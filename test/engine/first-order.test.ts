@@ -101,9 +101,10 @@ describe('typed errors', () => {
   it('all times equal', () => {
     expect(thrown(() => fitFirstOrderLinear({ ...good, times: [3, 3, 3, 3, 3] }, 'intercept')).code).toBe('degenerate-x');
   });
-  it('times out of order name the time', () => {
+  it('times that go back name the time; a repeated time is a replicate reading', () => {
     const e = thrown(() => fitFirstOrderLinear({ ...good, times: [0, 1, 3, 2, 4] }, 'intercept'));
     expect([e.code, e.field]).toEqual(['times-not-increasing', 'times[3]']);
+    expect(fitFirstOrderLinear({ ...good, times: [0, 1, 1, 2, 3] }, 'intercept').line.n).toBe(5);
   });
   it('a non-finite reading or x_inf', () => {
     const e = thrown(() => fitFirstOrderLinear({ ...good, readings: [20, 18, Number.NaN, 15.2, 14.1] }, 'origin'));

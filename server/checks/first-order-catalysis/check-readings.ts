@@ -47,6 +47,25 @@ function transcriptionDraft(slip: TableSlip, a: RunAnalysis, charge: number): Dr
 }
 
 export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+  const before = drafts.length;
+  compareReadings(run, a, settings, drafts);
+  const named = new Set(drafts.slice(before).map((d) => d.path));
+  for (const i of a.excluded) {
+    const path = `${a.path}.readings[${i}]`;
+    if (named.has(path)) continue;
+    drafts.push({
+      code: 'suspect-reading',
+      stage: 'readings',
+      path,
+      reported: a.readings[i],
+      severity: 'warning',
+      charge: 0,
+      message: `In run "${a.label}", the reading at t = ${fmt(a.times[i])} (${fmt(a.readings[i])}) is on the other side of x_inf = ${fmt(a.infinity)} from x_0, so ln F is undefined there; the refit leaves it out. Please check the reading and x_inf.`,
+    });
+  }
+}
+
+function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
   const classRuns = settings.classDataset?.runs;
   if (classRuns) {
     const original = classRunFor(run, a.index, classRuns);
@@ -68,6 +87,20 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
       });
     }
     return;
+  }
+  for (let i = 1; i < run.readings.length; i++) {
+    const [t, x] = run.readings[i];
+    if (t !== run.readings[i - 1][0] || x !== run.readings[i - 1][1]) continue;
+    drafts.push({
+      code: 'suspect-reading',
+      detail: 'extra-row',
+      stage: 'readings',
+      path: `${a.path}.readings[${i}]`,
+      reported: x,
+      severity: 'warning',
+      charge: 0,
+      message: `In run "${a.label}", row ${i + 1} repeats row ${i} exactly (t = ${fmt(t)}, x = ${fmt(x)}); it may have been copied twice. It was fitted as given.`,
+    });
   }
   const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text });
   if (!suspect) return;

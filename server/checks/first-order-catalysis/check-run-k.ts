@@ -4,6 +4,7 @@ import { rateUnitOf } from '../../engine/units.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
+import { decimalsOf } from '../digit-slips.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
 import type { RunAnalysis } from './run-analysis.ts';
@@ -66,8 +67,26 @@ export function checkRunK(
     },
     drafts,
   );
-  checkUncertainty(read.uncertainty, a, own, outcome, slips.map((s) => s.se), settings, drafts);
+  const slipSEs = uncertaintySlips(read.value, Number(reported.value), a, slips.map((s) => s.se));
+  checkUncertainty(read.uncertainty, a, own, outcome, slipSEs, settings, drafts);
   return { value: read.value, uncertainty: read.uncertainty };
+}
+
+/**
+ * The other model's standard error is a candidate only when the value itself does not rule that
+ * model out: with 16 readings from t = 0 the intercept model's SE is about 1.9 times the origin
+ * model's, close to a 95 % half-width (2.13 SE), so the value decides between the two where it can.
+ * Where the two models' k agree to the digits reported, the closer of the two candidates is named.
+ */
+function uncertaintySlips(value: number, written: number, a: RunAnalysis, slipSEs: Candidate[]): Candidate[] {
+  if (!a.other) return slipSEs;
+  const lastPlace = 10 ** -decimalsOf(written) * Math.abs(value / written || 1);
+  const toAsked = Math.abs(value - a.expected.value);
+  const toOther = Math.abs(value - a.other.k.value);
+  if (Math.abs(toAsked - toOther) > lastPlace / 2) {
+    return toOther < toAsked ? slipSEs : slipSEs.filter((se) => !se.causes.includes('fit-model'));
+  }
+  return slipSEs.map((se) => (se.causes.includes('fit-model') ? { ...se, closestWins: true } : se));
 }
 
 /** The standard error of the fit the student's k came from, against the measures of spread often reported instead. */

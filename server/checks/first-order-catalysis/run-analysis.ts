@@ -4,7 +4,7 @@ import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { fitTransformed, type FirstOrderLinearFit } from '../../engine/first-order-linear.ts';
 import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../../engine/first-order-nonlinear.ts';
-import { firstOrderTransform, type FirstOrderTransform } from '../../engine/first-order-run.ts';
+import { elapsedTimes, firstOrderTransform, type FirstOrderRun, type FirstOrderTransform } from '../../engine/first-order-run.ts';
 import { fitGuggenheim } from '../../engine/guggenheim.ts';
 import { convert, parseUnit, type Unit } from '../../engine/units.ts';
 import { InputRejected } from '../input-rejected.ts';
@@ -19,8 +19,10 @@ export interface RunAnalysis {
   times: number[];
   readings: number[];
   infinity?: number;
-  /** ln F with the student's x_inf; absent without one. */
+  /** ln F with the student's x_inf, one entry per reading (NaN where excluded); absent without x_inf. */
   transform?: FirstOrderTransform;
+  /** Readings on the wrong side of x_inf: ln F is undefined there, so the fits leave them out. */
+  excluded: number[];
   /** The model the assignment asks for, and the other one. */
   asked?: FirstOrderLinearFit;
   other?: FirstOrderLinearFit;
@@ -59,6 +61,28 @@ function exponentialOrNothing(fit: () => FirstOrderNonlinearFit): FirstOrderNonl
   }
 }
 
+/**
+ * ln F for the readings on x_0's side of x_inf, and the full column with NaN for the others: a
+ * mis-copied reading past x_inf is a finding about that reading, not a reason to refuse the run.
+ */
+function transformDefined(run: FirstOrderRun, infinity: number) {
+  const span = run.readings[0] - infinity;
+  const keep: number[] = [];
+  const excluded: number[] = [];
+  for (let i = 0; i < run.readings.length; i++) ((run.readings[i] - infinity) / span > 0 ? keep : excluded).push(i);
+  const defined = firstOrderTransform(
+    { ...run, times: keep.map((i) => run.times[i]), readings: keep.map((i) => run.readings[i]) },
+    infinity,
+  );
+  const t = elapsedTimes(run);
+  const transform: FirstOrderTransform = { t, F: t.map(() => Number.NaN), lnF: t.map(() => Number.NaN) };
+  keep.forEach((i, j) => {
+    transform.F[i] = defined.F[j];
+    transform.lnF[i] = defined.lnF[j];
+  });
+  return { transform, defined, excluded };
+}
+
 export function analyseRun(run: SubmittedRun, index: number, model: LineModel): RunAnalysis {
   const path = `runs[${index}]`;
   const timeUnit = parseAt(`${path}.timeUnit`, () => parseUnit(run.timeUnit, 'time'));
@@ -70,11 +94,11 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
     if (run.infinity === undefined) {
       const exponential = fitFirstOrderNonlinear(data, { infinity: 'fitted' });
       const alsoRight = [fitGuggenheim(data).k];
-      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, exponential, expected: exponential.k, alsoRight };
+      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, excluded: [], exponential, expected: exponential.k, alsoRight };
     }
-    const transform = firstOrderTransform(data, run.infinity);
-    const asked = fitTransformed(transform, run.timeUnit, model);
-    const other = fitTransformed(transform, run.timeUnit, model === 'origin' ? 'intercept' : 'origin');
+    const { transform, defined, excluded } = transformDefined(data, run.infinity);
+    const asked = fitTransformed(defined, run.timeUnit, model);
+    const other = fitTransformed(defined, run.timeUnit, model === 'origin' ? 'intercept' : 'origin');
     const withIntercept = model === 'intercept' ? asked : other;
     const exponential = exponentialOrNothing(() => fitFirstOrderNonlinear(data, { infinity: 'fixed', initialK: withIntercept.k.value }));
     return {
@@ -87,6 +111,7 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
       readings,
       infinity: run.infinity,
       transform,
+      excluded,
       asked,
       other,
       exponential,

@@ -54,7 +54,8 @@ export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): 
     },
   ];
   // t regressed on ln F, the slope reported as if it were the slope of ln F on t.
-  const swapped = fitModel(model, lnF, t);
+  const defined = lnF.map((_, i) => i).filter((i) => Number.isFinite(lnF[i]));
+  const swapped = fitModel(model, defined.map((i) => lnF[i]), defined.map((i) => t[i]));
   out.push({
     k: { value: -swapped.slope, causes: ['swapped-axes'], basis: 'minus the slope of t against ln F' },
     se: { value: swapped.seSlope, causes: ['swapped-axes'], basis: 'the standard error of the slope of t against ln F' },

@@ -1,0 +1,71 @@
+import { findingCodes, type FindingCode } from '../../schemas/result.ts';
+import { checkBatch, checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { seededRandom } from '../support/seeded-random.ts';
+import {
+  atExpectedPath,
+  generateAssignment,
+  generateSubmission,
+  slipCase,
+  slipCodes,
+  type SlipCode,
+} from '../support/submission-generator.ts';
+
+/**
+ * The checker on generated submissions (an invented scenario, see the generator): (a) which codes it
+ * reports at the place of each injected slip, and (b) checked submissions per second on clean ones.
+ */
+const CASES_PER_SLIP = 100;
+const BATCH_SIZE = 2000;
+const NOTHING = '(none)';
+
+/** Per case, each code found (as code or among alsoCodes) at any of the slip's expected paths, once. */
+function codesAtSlip(code: SlipCode, seed: number): Set<string> {
+  const { settings, submission, expected } = slipCase(code, seed);
+  const result = checkSubmission(parseAssignment(settings), submission);
+  if (result.status === 'rejected') return new Set(['rejected']);
+  const found = result.findings
+    .filter((f) => expected.some((e) => atExpectedPath(e, f.path)))
+    .flatMap((f) => [f.code, ...(f.alsoCodes ?? [])]);
+  return new Set(found.length > 0 ? found : [NOTHING]);
+}
+
+/** Rows: injected code; columns: codes found at the expected path; counts over 100 cases each. */
+export function confusionTable(): string {
+  const rows = new Map<SlipCode, Map<string, number>>();
+  for (const code of slipCodes) {
+    const counts = new Map<string, number>();
+    for (let seed = 0; seed < CASES_PER_SLIP; seed++) {
+      for (const found of codesAtSlip(code, seed)) counts.set(found, (counts.get(found) ?? 0) + 1);
+    }
+    rows.set(code, counts);
+  }
+  const seen = new Set([...rows.values()].flatMap((counts) => [...counts.keys()]));
+  const columns = [...findingCodes.filter((c: FindingCode) => seen.has(c)), ...['rejected', NOTHING].filter((c) => seen.has(c))];
+  const width = Math.max(...slipCodes.map((c) => c.length));
+  const header = ['injected \\ found'.padEnd(width), ...columns].join(' | ');
+  const lines = slipCodes.map((code) =>
+    [code.padEnd(width), ...columns.map((c) => String(rows.get(code)!.get(c) ?? '').padStart(c.length))].join(' | '),
+  );
+  return [header, header.replace(/[^|]/g, '-'), ...lines].join('\n');
+}
+
+export function benchChecks(): { checksPerSecond: number; microsecondsPerCheck: number } {
+  console.log(`checker diagnoses: codes found at the injected slip's path, ${CASES_PER_SLIP} submissions per slip`);
+  console.log(confusionTable());
+
+  const random = seededRandom(2024);
+  // The default assignment; every student with their own data.
+  const settings = generateAssignment(random);
+  const assignment = parseAssignment(settings);
+  const submissions = Array.from({ length: BATCH_SIZE }, (_, n) => generateSubmission(random, settings, n + 1));
+  checkBatch(assignment, submissions); // warm-up
+  const start = process.hrtime.bigint();
+  let count = 0;
+  while (process.hrtime.bigint() - start < 3_000_000_000n) {
+    const results = checkBatch(assignment, submissions);
+    if (results.some((r) => r.status !== 'checked')) throw new Error('a clean submission was rejected');
+    count += results.length;
+  }
+  const seconds = Number(process.hrtime.bigint() - start) / 1e9;
+  return { checksPerSecond: count / seconds, microsecondsPerCheck: (seconds / count) * 1e6 };
+}
