@@ -21,8 +21,11 @@ export interface ValueCheck {
   expected: number;
   /** Other values that earn full credit (another accepted method). */
   alsoRight?: number[];
-  /** The value that follows from the student's own earlier numbers, and where those came from. */
-  carriedForward?: { value: number; from: string };
+  /**
+   * The value that follows from the student's own earlier numbers, and where those came from;
+   * `quiet` when the value it goes with has already said so (an uncertainty beside its value).
+   */
+  carriedForward?: { value: number; from: string; quiet?: boolean };
   /** Values produced by known slips of method (each with its cause). */
   slips?: Candidate[];
   /** Scalings that known slips of units or copying produce. */
@@ -52,6 +55,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   };
   const intro = `${c.what} is ${withUnit(reported, c.unit)}; the refit from your data gives ${withUnit(expected, c.unit)}.`;
   if (c.carriedForward && withinTolerance(reported, c.carriedForward.value, tolerance)) {
+    if (c.carriedForward.quiet) return { kind: 'carried-forward' };
     drafts.push({
       ...base,
       code: 'carried-forward',

@@ -16,6 +16,8 @@ export interface SuspectReading {
   reading: number;
   /** The curve's value at that time, fitted without the reading. */
   predicted: number;
+  /** Decimal places the run's readings are written to. */
+  decimals: number;
   /** A one-slip copy of the reading that lies on the curve, if one does. */
   intended?: { value: number; slip: SlipKind };
 }
@@ -85,5 +87,5 @@ export function findSuspectReading(curve: Curve): SuspectReading | undefined {
     .map((s) => ({ ...s, kind: undo[s.kind], off: Math.abs(s.value - predicted) }))
     .sort((a, b) => a.off - b.off)[0];
   const onCurve = nearest && nearest.off <= Math.max(4 * fit.residualSD, 3 * step);
-  return { index, reading, predicted, intended: onCurve ? { value: nearest.value, slip: nearest.kind } : undefined };
+  return { index, reading, predicted, decimals, intended: onCurve ? { value: nearest.value, slip: nearest.kind } : undefined };
 }

@@ -159,6 +159,23 @@ describe('each diagnosis, fed data that has exactly that slip', () => {
     expect(at(r, 'reported.kA')).toMatchObject({ code: 'implausible', severity: 'warning', pointsLost: 0 });
   });
 
+  it('transcription: with the class data handed out, run 2 at t = 3 (2 + 10 e^-0.12 = 10.869) copied as 10.896', () => {
+    const original = handMadeSubmission();
+    const withClass = parseAssignment({
+      kind: 'first-order-catalysis',
+      fitModel: 'origin',
+      classDataset: { runs: original.runs.map(({ reported: _, ...run }) => run) },
+    });
+    const r = check((s) => (s.runs[1].readings[3] = [3, 10.896]), withClass);
+    expect(at(r, 'runs[1].readings[3]')).toMatchObject({ code: 'transcription', detail: 'transposed-digits', expected: 10.869, reported: 10.896 });
+  });
+
+  it('suspect-reading: without class data, 10.869 copied as 10.689 stands 0.18 deg off the curve; 10.869 is offered', () => {
+    const r = check((s) => (s.runs[1].readings[3] = [3, 10.689]));
+    expect(at(r, 'runs[1].readings[3]')).toMatchObject({ code: 'suspect-reading', severity: 'warning', detail: 'transposed-digits' });
+    expect(at(r, 'runs[1].readings[3]')!.message).toContain('meant as 10.869');
+  });
+
   it('sig-figs: "0.040003" with uncertainty "0.0012" has more decimal places than its uncertainty', () => {
     const r = check((s) => (s.runs[1].reported!.k = { value: '0.040003', uncertainty: '0.0012', unit: 'min^-1' }));
     expect(at(r, 'runs[1].reported.k')).toMatchObject({ code: 'sig-figs', detail: 'value-over-precise' });

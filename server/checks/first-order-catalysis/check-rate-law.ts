@@ -118,7 +118,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         reported: read.uncertainty,
         unit,
         expected: ours.standardError,
-        carriedForward: theirs && { value: theirs.standardError, from },
+        carriedForward: theirs && { value: theirs.standardError, from, quiet: outcome.kind === 'carried-forward' },
         slips: spread,
         factors: factors.filter((f) => f !== SIGN),
         tolerance: tolerances.rateLawUncertainty,

@@ -30,7 +30,7 @@ function transcriptionDraft(slip: TableSlip, a: RunAnalysis, charge: number): Dr
         path: `${a.path}.readings[${slip.row}]`,
         reported: slip.copy,
         expected: slip.original,
-        message: `In ${run}, row ${slip.row + 1}, the ${column} is ${fmt(slip.copy)} where the class data have ${fmt(slip.original)}: ${slipWords[slip.detail] ?? slip.detail}. This looks like a copying slip; please check it against the data sheet. Later values were checked against your own copy, so it is scored only here.`,
+        message: `In ${run}, row ${slip.row + 1}, the ${column} is ${slip.copy} where the class data have ${slip.original}: ${slipWords[slip.detail] ?? slip.detail}. This looks like a copying slip; please check it against the data sheet. Later values were checked against your own copy, so it is scored only here.`,
       };
     }
     case 'table':
@@ -60,7 +60,7 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
       reported: a.readings[i],
       severity: 'warning',
       charge: 0,
-      message: `In run "${a.label}", the reading at t = ${fmt(a.times[i])} (${fmt(a.readings[i])}) is on the other side of x_inf = ${fmt(a.infinity)} from x_0, so ln F is undefined there; the refit leaves it out. Please check the reading and x_inf.`,
+      message: `In run "${a.label}", the reading at t = ${fmt(a.times[i])} (${a.readings[i]}) is on the other side of x_inf = ${a.infinity} from x_0, so ln F is undefined there; the refit leaves it out. Please check the reading and x_inf.`,
     });
   }
 }
@@ -83,7 +83,7 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
         charge,
         reported: run.infinity,
         expected: original.infinity,
-        message: `x_inf of run "${a.label}" is ${fmt(run.infinity)} where the class data have ${fmt(original.infinity)}. Please check it against the data sheet.`,
+        message: `x_inf of run "${a.label}" is ${run.infinity} where the class data have ${original.infinity}. Please check it against the data sheet.`,
       });
     }
     return;
@@ -99,13 +99,13 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
       reported: x,
       severity: 'warning',
       charge: 0,
-      message: `In run "${a.label}", row ${i + 1} repeats row ${i} exactly (t = ${fmt(t)}, x = ${fmt(x)}); it may have been copied twice. It was fitted as given.`,
+      message: `In run "${a.label}", row ${i + 1} repeats row ${i} exactly (t = ${t}, x = ${x}); it may have been copied twice. It was fitted as given.`,
     });
   }
   const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text });
   if (!suspect) return;
   const guess = suspect.intended
-    ? ` It may have been meant as ${fmt(suspect.intended.value)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`
+    ? ` It may have been meant as ${suspect.intended.value.toFixed(suspect.decimals)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`
     : '';
   drafts.push({
     code: 'suspect-reading',
@@ -116,6 +116,6 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
     expected: suspect.predicted,
     severity: 'warning',
     charge: 0,
-    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${fmt(suspect.reading)}) lies far from the curve through the other readings (${fmt(suspect.predicted)} expected).${guess} Your results were checked against your data as given.`,
+    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${suspect.reading}) lies far from the curve through the other readings (${suspect.predicted.toFixed(suspect.decimals)} expected).${guess} Your results were checked against your data as given.`,
   });
 }

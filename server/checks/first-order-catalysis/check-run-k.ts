@@ -129,7 +129,7 @@ function checkUncertainty(
       unit: rateUnitOf(a.timeUnit),
       expected,
       alsoRight: byK ? [byK.value] : [],
-      carriedForward: own && { value: own.standardError, from: 'your own ln F column' },
+      carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
       slips: [...spread, ...slipSEs],
       factors: [LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       tolerance: settings.tolerances.kUncertainty,
