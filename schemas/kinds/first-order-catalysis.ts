@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Tolerance, UnitText } from '../common.ts';
+import { Estimate } from '../result.ts';
 
 /**
  * Experiment kind `first-order-catalysis`: first-order runs followed by a physical observable (optical
@@ -105,3 +106,27 @@ export const Settings = z.object({
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;
+
+/** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
+export const RunRefit = z.object({
+  label: z.string(),
+  /** The model the expected k comes from: the asked one, or `exponential` for a run without x_inf. */
+  model: z.enum(['origin', 'intercept', 'exponential']),
+  k: z.object({ instructor: Estimate, declared: Estimate.optional() }),
+  kOtherModel: Estimate.optional(),
+  kExponential: Estimate.optional(),
+  halfLife: Estimate.optional(),
+  /** ln F from the student's readings and x_inf, one per reading (null where undefined). */
+  lnF: z.array(z.number().nullable()).optional(),
+  residualSD: z.number().optional(),
+});
+export type RunRefit = z.infer<typeof RunRefit>;
+
+export const Refit = z.object({
+  runs: z.array(RunRefit),
+  kN: Estimate.optional(),
+  kA: Estimate.optional(),
+  /** k_N and k_A fitted to the student's own reported k_obs values. */
+  fromReportedK: z.object({ kN: Estimate, kA: Estimate }).optional(),
+});
+export type Refit = z.infer<typeof Refit>;

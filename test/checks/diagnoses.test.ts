@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Refit, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { fitLine, fitThroughOrigin } from '../../server/engine/linear-fit.ts';
@@ -217,7 +217,7 @@ describe('scoring', () => {
     const r = check((s) => (s.runs[0].readings[5] = [5, 1.5]));
     expect(r.status).toBe('checked');
     expect(at(r, 'runs[0].readings[5]')).toMatchObject({ code: 'suspect-reading', severity: 'warning' });
-    expect((r.refit as { runs: Array<{ lnF: number[] }> }).runs[0].lnF[5]).toBeNaN();
+    expect((r.refit as Refit).runs[0].lnF?.[5]).toBeNull();
   });
 
   it('rejects times that go back, naming the row', () => {

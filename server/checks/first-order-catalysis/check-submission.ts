@@ -1,4 +1,4 @@
-import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { Refit, RunRefit, Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../../schemas/result.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
@@ -13,7 +13,7 @@ import { analyseRun, type RunAnalysis } from './run-analysis.ts';
 import { itemPoints, maxScore } from './scoring.ts';
 
 /** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
-function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Settings) {
+function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Settings): RunRefit {
   const inUnit = (e: Estimate | undefined, unit: string) => {
     if (!e) return undefined;
     try {
@@ -32,7 +32,8 @@ function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Se
     kOtherModel: a.other ? convertEstimate(a.other.k, settings.units.k) : undefined,
     kExponential: a.exponential ? convertEstimate(a.exponential.k, settings.units.k) : undefined,
     halfLife: a.asked?.halfLife ?? a.exponential?.halfLife,
-    lnF: a.transform?.lnF,
+    // NaN (a reading past x_inf) travels as null in JSON.
+    lnF: a.transform?.lnF.map((v) => (Number.isFinite(v) ? v : null)),
     residualSD: a.asked?.line.residualSD,
   };
 }
@@ -52,17 +53,18 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
   const findings = scoreFindings(drafts, (key) => itemPoints(settings, key));
   const max = maxScore(settings, submission);
   const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
+  const refit: Refit = {
+    runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
+    kN: rateLaw?.kN,
+    kA: rateLaw?.kA,
+    fromReportedK: rateLaw?.fromReportedK,
+  };
   return {
     studentId: submission.studentId,
     status: 'checked',
     score: Math.max(0, max - lost),
     maxScore: max,
-    refit: {
-      runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
-      kN: rateLaw?.kN,
-      kA: rateLaw?.kA,
-      fromReportedK: rateLaw?.fromReportedK,
-    },
+    refit,
     findings,
   };
 }
