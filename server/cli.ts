@@ -21,6 +21,7 @@ export interface CliIo {
 type Command = (args: string[], io: CliIo) => Promise<number>;
 
 const USAGE = `usage: rateproof check --assignment A.json SUBMISSIONS.(json|csv) [--reported R.csv] [--json]
+       rateproof serve
 
   check   grade submissions offline against an assignment's settings
           SUBMISSIONS.json holds one submission or an array of them;
@@ -34,7 +35,17 @@ class UsageError extends Error {}
 /** A file that cannot be used: one line naming the file and the reason, then exit 2. */
 class InputError extends Error {}
 
-const commands = new Map<string, Command>([['check', check]]);
+const commands = new Map<string, Command>([
+  ['check', check],
+  ['serve', serve],
+]);
+
+/** Serves the API until stopped; configuration comes from the environment (README). */
+async function serve(): Promise<number> {
+  const { serve: start } = await import('./main.ts');
+  await start();
+  return 0;
+}
 
 /** Runs the command line `argv` (without node and the script) and returns the exit code. */
 export async function run(argv: string[], io: CliIo): Promise<number> {

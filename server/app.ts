@@ -1,0 +1,144 @@
+import { createHash, timingSafeEqual } from 'node:crypto';
+import fastifyMultipart from '@fastify/multipart';
+import fastifySwagger from '@fastify/swagger';
+import fastifySwaggerUi from '@fastify/swagger-ui';
+import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
+import { hasZodFastifySchemaValidationErrors, jsonSchemaTransform, serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
+import type { Config } from './config.ts';
+import { ApiError, errorBody } from './errors.ts';
+import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
+import { routes } from './routes/index.ts';
+import type { RouteSpec } from './routes/route-spec.ts';
+import { decodeUtf8 } from './routes/utf8.ts';
+import type { Store } from './store/connection.ts';
+import { findIdempotent, saveIdempotent } from './store/idempotency.ts';
+import { findCaller } from './store/tokens.ts';
+
+export interface AppOptions {
+  config: Config;
+  store: Store;
+  /** Off in tests; pino otherwise. Logs carry request ids and URLs only, never bodies or tokens. */
+  logger?: boolean;
+}
+
+function sameSecret(a: string, b: string): boolean {
+  const ha = createHash('sha256').update(a).digest();
+  const hb = createHash('sha256').update(b).digest();
+  return timingSafeEqual(ha, hb);
+}
+
+async function callerOf(request: FastifyRequest, options: AppOptions): Promise<Caller> {
+  const header = request.headers.authorization;
+  const token = header?.startsWith('Bearer ') ? header.slice(7).trim() : undefined;
+  if (!token) throw new ApiError('unauthenticated');
+  if (options.config.adminToken && sameSecret(token, options.config.adminToken)) return { kind: 'admin' };
+  const caller = await findCaller(options.store.db, token);
+  if (!caller) throw new ApiError('unauthenticated', 'the API token is not valid');
+  return caller;
+}
+
+function requestHash(request: FastifyRequest): string {
+  const body = typeof request.body === 'string' ? request.body : JSON.stringify(request.body ?? null);
+  return createHash('sha256').update(`${request.method} ${request.url}\n${body}`).digest('hex');
+}
+
+/** Who called and what the URL points to, settled before the body is validated. */
+const resolved = new WeakMap<FastifyRequest, { caller: Caller; scope: Scope }>();
+
+function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions): void {
+  const { db } = options.store;
+  app.route({
+    method: spec.method,
+    url: spec.url,
+    schema: { ...spec.schema, summary: spec.summary, security: [{ bearer: [] }] },
+    // 401, then 404 or 403, come before any complaint about the body.
+    async preValidation(request) {
+      const caller = await callerOf(request, options);
+      const scope = await resolveScope(db, request.params as Record<string, unknown>);
+      authorize(caller, spec.access, scope);
+      resolved.set(request, { caller, scope });
+    },
+    async handler(request, reply) {
+      const { caller, scope } = resolved.get(request)!;
+      const params = request.params as Record<string, string>;
+      const key = spec.idempotent ? request.headers['idempotency-key'] : undefined;
+      const keyText = typeof key === 'string' && caller.kind === 'staff' ? key.slice(0, 200) : undefined;
+      const run = async (trx: typeof db) => {
+        if (keyText !== undefined && caller.kind === 'staff') {
+          const seen = await findIdempotent(trx, caller.staffId, keyText);
+          if (seen) {
+            if (seen.requestHash !== requestHash(request)) throw new ApiError('idempotency-mismatch');
+            return { status: seen.statusCode, body: seen.body, replayed: true };
+          }
+        }
+        const answer = await spec.handler({ db: trx, config: options.config, caller, scope, params, query: request.query as Record<string, unknown>, body: request.body, request, reply });
+        if (keyText !== undefined && caller.kind === 'staff') await saveIdempotent(trx, caller.staffId, keyText, requestHash(request), answer.status, answer.body);
+        return { ...answer, replayed: false };
+      };
+      const answer = spec.transactional ? await db.transaction().execute(run) : await run(db);
+      if (answer.replayed) reply.header('idempotent-replayed', 'true');
+      if ('headers' in answer && answer.headers) reply.headers(answer.headers);
+      if ('contentType' in answer && answer.contentType) reply.type(answer.contentType);
+      return reply.code(answer.status).send(answer.body);
+    },
+  });
+}
+
+/** Builds the app: content parsers, error mapping, OpenAPI, and every route. Never listens. */
+export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
+  const app = Fastify({ logger: options.logger ? { level: options.config.logLevel } : false, bodyLimit: options.config.bodyLimitBytes });
+  app.setValidatorCompiler(validatorCompiler);
+  app.setSerializerCompiler(serializerCompiler);
+
+  // Bodies are decoded strictly: text that is not UTF-8 is refused, never read with replacement characters.
+  app.removeContentTypeParser(['application/json', 'text/plain']);
+  app.addContentTypeParser('application/json', { parseAs: 'buffer' }, (_req, body, done) => {
+    try {
+      const text = decodeUtf8(body as Buffer, 'body');
+      done(null, text.trim() === '' ? undefined : JSON.parse(text));
+    } catch (error) {
+      if (error instanceof ApiError) return done(error, undefined);
+      done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `not valid JSON: ${(error as Error).message}` }]), undefined);
+    }
+  });
+  app.addContentTypeParser(['text/csv', 'text/plain'], { parseAs: 'buffer' }, (_req, body, done) => {
+    try {
+      done(null, decodeUtf8(body as Buffer, 'body'));
+    } catch (error) {
+      done(error as Error, undefined);
+    }
+  });
+  await app.register(fastifyMultipart, { limits: { fileSize: options.config.bodyLimitBytes, files: 2 } });
+
+  app.setErrorHandler((error, request, reply) => {
+    if (error instanceof ApiError) return reply.code(error.status).send(errorBody(error));
+    if (hasZodFastifySchemaValidationErrors(error)) {
+      const where = (error as { validationContext?: string }).validationContext ?? 'body';
+      const details = error.validation.map((v) => ({ path: `${where}${v.instancePath.replace(/\//g, '.')}`, message: v.message ?? 'invalid' }));
+      return reply.code(400).send(errorBody(new ApiError('invalid-input', undefined, details)));
+    }
+    const status = (error as { statusCode?: number }).statusCode;
+    if (status === 413) return reply.code(413).send(errorBody(new ApiError('payload-too-large')));
+    if (status === 415) return reply.code(415).send(errorBody(new ApiError('unsupported-media-type')));
+    if (status !== undefined && status >= 400 && status < 500) {
+      return reply.code(status).send(errorBody(new ApiError('invalid-input', (error as Error).message)));
+    }
+    request.log.error({ err: error }, 'unhandled error');
+    return reply.code(500).send(errorBody(new ApiError('internal')));
+  });
+  app.setNotFoundHandler((_request, reply) => reply.code(404).send(errorBody(new ApiError('not-found'))));
+
+  await app.register(fastifySwagger, {
+    openapi: {
+      info: { title: 'Rateproof API', description: 'Refits, checks and grades kinetics analyses.', version: '1' },
+      components: { securitySchemes: { bearer: { type: 'http', scheme: 'bearer' } } },
+    },
+    transform: jsonSchemaTransform,
+  });
+  await app.register(fastifySwaggerUi, { routePrefix: '/docs' });
+  app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
+  app.get('/health', { schema: { hide: true } }, async () => ({ ok: true, database: options.store.engine }));
+
+  for (const spec of routes) register(app, spec, options);
+  return app;
+}

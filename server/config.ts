@@ -1,0 +1,50 @@
+import { z } from 'zod';
+
+/** The only reader of process.env: validated once, at start-up. */
+const ConfigSchema = z.object({
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//, 'a postgres:// connection URL')
+    .optional(),
+  RATEPROOF_DATA_DIR: z.string().min(1).default('./data'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  /** Creates courses and their first instructors; at least 24 characters when set. */
+  RATEPROOF_ADMIN_TOKEN: z.string().min(24, 'at least 24 characters').optional(),
+  RATEPROOF_BODY_LIMIT_MB: z.coerce.number().positive().max(100).default(5),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+});
+
+export interface Config {
+  databaseUrl?: string;
+  dataDir: string;
+  host: string;
+  port: number;
+  adminToken?: string;
+  bodyLimitBytes: number;
+  logLevel: z.infer<typeof ConfigSchema>['LOG_LEVEL'];
+}
+
+export class ConfigError extends Error {
+  override readonly name = 'ConfigError';
+}
+
+export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  // Empty variables count as unset, as a shell `VAR=` usually means.
+  const present = Object.fromEntries(Object.entries(env).filter(([, v]) => v !== undefined && v !== ''));
+  const parsed = ConfigSchema.safeParse(present);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`invalid configuration:\n${lines.join('\n')}`);
+  }
+  const c = parsed.data;
+  return {
+    databaseUrl: c.DATABASE_URL,
+    dataDir: c.RATEPROOF_DATA_DIR,
+    host: c.HOST,
+    port: c.PORT,
+    adminToken: c.RATEPROOF_ADMIN_TOKEN,
+    bodyLimitBytes: Math.round(c.RATEPROOF_BODY_LIMIT_MB * 1024 * 1024),
+    logLevel: c.LOG_LEVEL,
+  };
+}

@@ -1,0 +1,42 @@
+/**
+ * Every error the API returns: a code, an HTTP status and a message; `details` name each field and
+ * the reason. The HTTP layer maps these to responses; anything else is a 500 with no internals.
+ */
+export const apiErrors = {
+  'unauthenticated': { status: 401, message: 'a valid API token is required' },
+  'forbidden': { status: 403, message: 'your role does not allow this' },
+  'not-found': { status: 404, message: 'not found' },
+  'invalid-input': { status: 400, message: 'the request is not valid' },
+  'invalid-encoding': { status: 400, message: 'the body is not valid UTF-8' },
+  'conflict': { status: 409, message: 'the request conflicts with stored data' },
+  'payload-too-large': { status: 413, message: 'the body is larger than allowed' },
+  'unsupported-media-type': { status: 415, message: 'send application/json, text/csv or multipart/form-data' },
+  'idempotency-mismatch': { status: 422, message: 'this Idempotency-Key was used with a different request' },
+  'nothing-stored': { status: 422, message: 'no submission in the request is valid; nothing was stored' },
+  'internal': { status: 500, message: 'internal error' },
+} as const;
+
+export type ApiErrorCode = keyof typeof apiErrors;
+
+export interface ErrorDetail {
+  path: string;
+  message: string;
+}
+
+export class ApiError extends Error {
+  override readonly name = 'ApiError';
+  readonly status: number;
+  constructor(
+    readonly code: ApiErrorCode,
+    message?: string,
+    readonly details?: ErrorDetail[],
+  ) {
+    super(message ?? apiErrors[code].message);
+    this.status = apiErrors[code].status;
+  }
+}
+
+/** The body of every error response. */
+export function errorBody(error: ApiError): { error: { code: ApiErrorCode; message: string; details?: ErrorDetail[] } } {
+  return { error: { code: error.code, message: error.message, ...(error.details ? { details: error.details } : {}) } };
+}

@@ -1,0 +1,50 @@
+import type { Finding } from '../../schemas/result.ts';
+import type { OverrideRow, ResultRow } from '../store/submissions.ts';
+
+/**
+ * A stored result with the TAs' overrides applied: each finding's points are the latest override's,
+ * the score is recomputed, and every override stays listed (the audit trail). Overrides are keyed by
+ * submission and finding id, so they carry over to a regrade that finds the same thing.
+ */
+export interface EffectiveFinding extends Finding {
+  override?: { pointsLost: number; reason: string; by: string; at: Date; originalPointsLost: number };
+}
+
+export interface EffectiveResult {
+  resultId: number;
+  status: string;
+  score: number | null;
+  maxScore: number;
+  engineVersion: string;
+  settingsVersion: number;
+  gradedAt: Date;
+  releasedAt: Date | null;
+  refit: unknown;
+  findings: EffectiveFinding[];
+  rejected: Array<{ path: string; message: string }>;
+}
+
+export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): EffectiveResult {
+  const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }> };
+  const latest = new Map<string, OverrideRow>();
+  for (const o of overrides) if (o.submissionId === row.submissionId) latest.set(o.findingId, o);
+  const findings: EffectiveFinding[] = stored.findings.map((f) => {
+    const o = latest.get(f.id);
+    if (!o) return f;
+    return { ...f, pointsLost: o.pointsAfter, override: { pointsLost: o.pointsAfter, reason: o.reason, by: o.by, at: o.at, originalPointsLost: f.pointsLost } };
+  });
+  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
+  return {
+    resultId: row.resultId,
+    status: row.status,
+    score: row.score === null ? null : Math.max(0, row.maxScore - lost),
+    maxScore: row.maxScore,
+    engineVersion: row.engineVersion,
+    settingsVersion: row.settingsVersion,
+    gradedAt: row.gradedAt,
+    releasedAt: row.releasedAt,
+    refit: row.refit,
+    findings,
+    rejected: stored.rejected,
+  };
+}

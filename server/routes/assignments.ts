@@ -1,0 +1,82 @@
+import { z } from 'zod';
+import { ApiError } from '../errors.ts';
+import { assignmentOf } from '../grading/assignment-of.ts';
+import { regrade } from '../grading/regrade.ts';
+import { createAssignment, getAssignment, replaceSettings } from '../store/assignments.ts';
+import { getSection } from '../store/courses.ts';
+import type { RouteSpec } from './route-spec.ts';
+import { IdParam, Name } from './schemas.ts';
+
+const Assignment = z.object({
+  id: z.number(),
+  courseId: z.number(),
+  title: z.string(),
+  kind: z.string(),
+  settings: z.unknown(),
+  settingsVersion: z.number(),
+  createdAt: z.date(),
+});
+const Settings = z.record(z.string(), z.unknown());
+
+export const assignmentRoutes: RouteSpec[] = [
+  {
+    method: 'POST',
+    url: '/v1/courses/:courseId/assignments',
+    access: 'instructor',
+    summary: 'Create an assignment: a kind and its settings, validated for that kind',
+    schema: { params: z.object({ courseId: IdParam }), body: z.object({ title: Name, settings: Settings }), response: { 201: Assignment } },
+    transactional: true,
+    async handler({ db, scope, body }) {
+      const { title, settings } = body as { title: string; settings: unknown };
+      const checker = assignmentOf(settings);
+      return { status: 201, body: await createAssignment(db, scope.courseId!, title, checker.kind.kind, checker.settings) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/assignments/:assignmentId',
+    access: 'course',
+    summary: 'An assignment with its settings',
+    schema: { params: z.object({ assignmentId: IdParam }), response: { 200: Assignment } },
+    async handler({ db, params }) {
+      return { status: 200, body: await getAssignment(db, Number(params.assignmentId)) };
+    },
+  },
+  {
+    method: 'PUT',
+    url: '/v1/assignments/:assignmentId/settings',
+    access: 'instructor',
+    summary: 'Replace the settings (stored results keep the settings they used; regrade to apply)',
+    schema: { params: z.object({ assignmentId: IdParam }), body: z.object({ settings: Settings }), response: { 200: Assignment } },
+    transactional: true,
+    async handler({ db, params, body }) {
+      const id = Number(params.assignmentId);
+      const current = (await getAssignment(db, id))!;
+      const checker = assignmentOf((body as { settings: unknown }).settings);
+      if (checker.kind.kind !== current.kind) {
+        throw new ApiError('invalid-input', undefined, [{ path: 'body.settings.kind', message: `the assignment's kind is ${current.kind}` }]);
+      }
+      return { status: 200, body: await replaceSettings(db, id, checker.settings) };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/assignments/:assignmentId/regrade',
+    access: 'instructor',
+    summary: "Regrade the latest submissions under the current settings (one section or all); earlier results stay",
+    schema: {
+      params: z.object({ assignmentId: IdParam }),
+      body: z.object({ sectionId: z.number().int().positive().optional() }).optional(),
+      response: { 200: z.object({ regraded: z.number() }) },
+    },
+    transactional: true,
+    async handler({ db, params, body, scope }) {
+      const sectionId = (body as { sectionId?: number } | undefined)?.sectionId;
+      if (sectionId !== undefined && (await getSection(db, sectionId))?.courseId !== scope.courseId) {
+        throw new ApiError('invalid-input', undefined, [{ path: 'body.sectionId', message: 'no such section in this course' }]);
+      }
+      const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
+      return { status: 200, body: { regraded: await regrade(db, assignment, sectionId) } };
+    },
+  },
+];

@@ -1,0 +1,91 @@
+import { z } from 'zod';
+import { ApiError } from '../errors.ts';
+import { createCourse, createSection, createStaff, getCourse, listSections } from '../store/courses.ts';
+import { createToken } from '../store/tokens.ts';
+import type { RouteSpec } from './route-spec.ts';
+import { IdParam, Name } from './schemas.ts';
+
+const Course = z.object({ id: z.number(), name: z.string(), createdAt: z.date() });
+const Section = z.object({ id: z.number(), courseId: z.number(), name: z.string() });
+const Staff = z.object({ id: z.number(), courseId: z.number(), handle: z.string(), role: z.enum(['instructor', 'ta']), sectionIds: z.array(z.number()) });
+
+export const courseRoutes: RouteSpec[] = [
+  {
+    method: 'POST',
+    url: '/v1/courses',
+    access: 'admin',
+    summary: 'Create a course',
+    schema: { body: z.object({ name: Name }), response: { 201: Course } },
+    transactional: true,
+    async handler({ db, body }) {
+      return { status: 201, body: await createCourse(db, (body as { name: string }).name) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/courses/:courseId',
+    access: 'course',
+    summary: 'A course',
+    schema: { params: z.object({ courseId: IdParam }), response: { 200: Course } },
+    async handler({ db, scope }) {
+      return { status: 200, body: await getCourse(db, scope.courseId!) };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/courses/:courseId/sections',
+    access: 'instructor',
+    summary: 'Create a section',
+    schema: { params: z.object({ courseId: IdParam }), body: z.object({ name: Name }), response: { 201: Section } },
+    transactional: true,
+    async handler({ db, scope, body }) {
+      return { status: 201, body: await createSection(db, scope.courseId!, (body as { name: string }).name) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/courses/:courseId/sections',
+    access: 'course',
+    summary: "The course's sections (a TA sees the sections assigned to them)",
+    schema: { params: z.object({ courseId: IdParam }), response: { 200: z.array(Section) } },
+    async handler({ db, scope, caller }) {
+      const sections = await listSections(db, scope.courseId!);
+      const visible = caller.kind === 'staff' && caller.role === 'ta' ? sections.filter((s) => caller.sectionIds.includes(s.id)) : sections;
+      return { status: 200, body: visible };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/courses/:courseId/staff',
+    access: 'instructor',
+    summary: 'Add an instructor or a TA (with the sections they teach)',
+    schema: {
+      params: z.object({ courseId: IdParam }),
+      body: z.object({
+        handle: z.string().trim().regex(/^[A-Za-z0-9._-]{1,64}$/, 'letters, digits, dot, underscore or hyphen, at most 64'),
+        role: z.enum(['instructor', 'ta']),
+        sectionIds: z.array(z.number().int().positive()).max(100).default([]),
+      }),
+      response: { 201: Staff },
+    },
+    transactional: true,
+    async handler({ db, scope, body }) {
+      const { handle, role, sectionIds } = body as { handle: string; role: 'instructor' | 'ta'; sectionIds: number[] };
+      const own = new Set((await listSections(db, scope.courseId!)).map((s) => s.id));
+      const foreign = sectionIds.findIndex((id) => !own.has(id));
+      if (foreign >= 0) throw new ApiError('invalid-input', undefined, [{ path: `body.sectionIds[${foreign}]`, message: 'no such section in this course' }]);
+      return { status: 201, body: await createStaff(db, scope.courseId!, handle, role, role === 'ta' ? sectionIds : []) };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/staff/:staffId/tokens',
+    access: 'instructor',
+    summary: 'Issue an API token for a staff member; it is shown once and stored only as a hash',
+    schema: { params: z.object({ staffId: IdParam }), response: { 201: z.object({ token: z.string() }) } },
+    transactional: true,
+    async handler({ db, params }) {
+      return { status: 201, body: { token: await createToken(db, Number(params.staffId)) } };
+    },
+  },
+];

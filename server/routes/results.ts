@@ -1,0 +1,78 @@
+import { z } from 'zod';
+import { effectiveResult } from '../grading/effective-result.ts';
+import { latestResults, latestSubmissions, overridesOf, releaseResults } from '../store/submissions.ts';
+import type { RouteSpec } from './route-spec.ts';
+import { IdParam } from './schemas.ts';
+
+const Row = z.object({
+  studentId: z.string(),
+  submissionId: z.number(),
+  version: z.number(),
+  status: z.string().nullable(),
+  score: z.number().nullable(),
+  maxScore: z.number().nullable(),
+  errors: z.number(),
+  warnings: z.number(),
+  infos: z.number(),
+  codes: z.array(z.string()),
+  released: z.boolean(),
+});
+
+const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
+
+/** The latest submission of each student in a section, with its latest result, overrides applied. */
+async function sectionResults(db: Parameters<RouteSpec['handler']>[0]['db'], sectionId: number, assignmentId: number) {
+  const latest = await latestSubmissions(db, assignmentId, sectionId);
+  const ids = latest.map((s) => s.submissionId);
+  const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
+  const overrides = await overridesOf(db, ids);
+  return latest.map((s) => {
+    const row = results.get(s.submissionId);
+    return { submission: s, result: row ? effectiveResult(row, overrides) : undefined };
+  });
+}
+
+export const resultRoutes: RouteSpec[] = [
+  {
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/results',
+    access: 'section',
+    summary: "A section's results: one row per student (latest version), with counts by severity and the codes found",
+    schema: { params, response: { 200: z.array(Row) } },
+    async handler({ db, scope, params: p }) {
+      const rows = await sectionResults(db, scope.sectionId!, Number(p.assignmentId));
+      return {
+        status: 200,
+        body: rows.map(({ submission, result }) => {
+          const count = (severity: string) => result?.findings.filter((f) => f.severity === severity).length ?? 0;
+          return {
+            studentId: submission.studentId,
+            submissionId: submission.submissionId,
+            version: submission.version,
+            status: result?.status ?? null,
+            score: result?.score ?? null,
+            maxScore: result?.maxScore ?? null,
+            errors: count('error'),
+            warnings: count('warning'),
+            infos: count('info'),
+            codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
+            released: result?.releasedAt != null,
+          };
+        }),
+      };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
+    access: 'section',
+    summary: "Release the section's latest results to students: nothing is released without this TA action",
+    schema: { params, response: { 200: z.object({ released: z.number() }) } },
+    transactional: true,
+    async handler({ db, scope, params: p, caller }) {
+      const rows = await sectionResults(db, scope.sectionId!, Number(p.assignmentId));
+      const ids = rows.flatMap((r) => (r.result ? [r.result.resultId] : []));
+      return { status: 200, body: { released: await releaseResults(db, ids, caller.kind === 'staff' ? caller.staffId : 0) } };
+    },
+  },
+];

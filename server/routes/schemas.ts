@@ -1,0 +1,12 @@
+import { z } from 'zod';
+
+/** Shapes shared by several routes' schemas. */
+export const IdParam = z.coerce.number().int().positive();
+export const ErrorResponse = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    details: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+  }),
+});
+export const Name = z.string().trim().min(1).max(200);

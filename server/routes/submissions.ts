@@ -1,0 +1,143 @@
+import { z } from 'zod';
+import { ApiError } from '../errors.ts';
+import { assignmentOf } from '../grading/assignment-of.ts';
+import { effectiveResult } from '../grading/effective-result.ts';
+import { submitBatch } from '../grading/submit-batch.ts';
+import { getAssignment } from '../store/assignments.ts';
+import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
+import { submissionsFromMultipart } from './multipart-csv.ts';
+import type { RouteSpec } from './route-spec.ts';
+import { IdParam } from './schemas.ts';
+
+const Stored = z.object({
+  studentId: z.string(),
+  submissionId: z.number(),
+  version: z.number(),
+  status: z.string(),
+  score: z.number().nullable(),
+  maxScore: z.number(),
+});
+const Rejected = z.object({ at: z.string(), studentId: z.string().nullable(), path: z.string(), message: z.string() });
+const Result = z.looseObject({ resultId: z.number(), score: z.number().nullable(), maxScore: z.number(), findings: z.array(z.unknown()) });
+const Override = z.object({
+  id: z.number(),
+  submissionId: z.number(),
+  findingId: z.string(),
+  pointsBefore: z.number(),
+  pointsAfter: z.number(),
+  reason: z.string(),
+  by: z.string(),
+  at: z.date(),
+});
+const SubmissionView = z.object({
+  submissionId: z.number(),
+  assignmentId: z.number(),
+  studentId: z.string(),
+  sectionId: z.number(),
+  version: z.number(),
+  submittedAt: z.date(),
+  payload: z.unknown(),
+  result: Result.nullable(),
+  overrides: z.array(Override),
+});
+
+async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {
+  const s = (await getSubmission(db, submissionId))!;
+  const [row] = await latestResults(db, [submissionId]);
+  const overrides = await overridesOf(db, [submissionId]);
+  const { courseId: _, ...rest } = s;
+  return { ...rest, result: row ? effectiveResult(row, overrides) : null, overrides };
+}
+
+export const submissionRoutes: RouteSpec[] = [
+  {
+    method: 'POST',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/submissions',
+    access: 'section',
+    summary:
+      'Submit a batch (a JSON array, or multipart CSV files `readings` and `reported`): every valid submission is stored as a new version and graded; each invalid one is listed and stored nowhere',
+    schema: {
+      params: z.object({ sectionId: IdParam, assignmentId: IdParam }),
+      // Empty for a multipart upload, which the handler reads itself.
+      body: z.array(z.unknown()).min(1, 'at least one submission').max(5000).nullish(),
+      response: { 201: z.object({ stored: z.array(Stored), rejected: z.array(Rejected) }) },
+    },
+    idempotent: true,
+    transactional: true,
+    async handler({ db, scope, params, body, request, caller }) {
+      const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
+      const submissions = request.isMultipart() ? await submissionsFromMultipart(request) : body;
+      if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
+      const outcome = await submitBatch(db, {
+        assignment: assignmentOf(assignment.settings, 'settings'),
+        assignmentId: assignment.id,
+        settingsVersion: assignment.settingsVersion,
+        settings: assignment.settings,
+        sectionId: scope.sectionId!,
+        staffId: caller.kind === 'staff' ? caller.staffId : 0,
+        items: submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })),
+      });
+      if (outcome.stored.length === 0) {
+        throw new ApiError('nothing-stored', undefined, outcome.rejected.map((r) => ({ path: `${r.at}.${r.path}`, message: r.message })));
+      }
+      return { status: 201, body: outcome };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/submissions/:submissionId',
+    access: 'section',
+    summary: 'A submission version with its latest result (overrides applied) and the override trail',
+    schema: { params: z.object({ submissionId: IdParam }), response: { 200: SubmissionView } },
+    async handler({ db, params }) {
+      return { status: 200, body: await submissionView(db, Number(params.submissionId)) };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/submissions/:submissionId/overrides',
+    access: 'section',
+    summary: "Override a finding's points with a written reason; kept as an audit trail and carried over to regrades",
+    schema: {
+      params: z.object({ submissionId: IdParam }),
+      body: z.object({ findingId: z.string().min(1).max(300), pointsLost: z.number().min(0).max(1000), reason: z.string().trim().min(3, 'say why, in a few words').max(2000) }),
+      response: { 201: SubmissionView },
+    },
+    transactional: true,
+    async handler({ db, params, body, caller }) {
+      const submissionId = Number(params.submissionId);
+      const { findingId, pointsLost, reason } = body as { findingId: string; pointsLost: number; reason: string };
+      const [row] = await latestResults(db, [submissionId]);
+      const current = row && effectiveResult(row, await overridesOf(db, [submissionId])).findings.find((f) => f.id === findingId);
+      if (!current) throw new ApiError('invalid-input', undefined, [{ path: 'body.findingId', message: 'no such finding in the latest result' }]);
+      if (pointsLost > row.maxScore) throw new ApiError('invalid-input', undefined, [{ path: 'body.pointsLost', message: `at most ${row.maxScore}` }]);
+      await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: caller.kind === 'staff' ? caller.staffId : 0 });
+      return { status: 201, body: await submissionView(db, submissionId) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/sections/:sectionId/students/:studentId/history',
+    access: 'section',
+    summary: "A student's submissions (every version) with each one's latest result",
+    schema: {
+      params: z.object({ sectionId: IdParam, studentId: z.string().min(1).max(64) }),
+      querystring: z.object({ assignmentId: IdParam.optional() }),
+      response: { 200: z.array(z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: Result.nullable() })) },
+    },
+    async handler({ db, scope, params, query }) {
+      const rows = await studentSubmissions(db, scope.sectionId!, params.studentId, query.assignmentId as number | undefined);
+      if (rows.length === 0) throw new ApiError('not-found', 'no submissions for this student in this section');
+      const ids = rows.map((r) => r.submissionId);
+      const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
+      const overrides = await overridesOf(db, ids);
+      return {
+        status: 200,
+        body: rows.map((r) => {
+          const result = results.get(r.submissionId);
+          return { submissionId: r.submissionId, assignmentId: r.assignmentId, version: r.version, submittedAt: r.submittedAt, result: result ? effectiveResult(result, overrides) : null };
+        }),
+      };
+    },
+  },
+];

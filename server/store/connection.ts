@@ -1,0 +1,24 @@
+import { mkdirSync } from 'node:fs';
+import { PGlite } from '@electric-sql/pglite';
+import { Kysely, PostgresDialect } from 'kysely';
+import { PGliteDialect } from 'kysely-pglite-dialect';
+import pg from 'pg';
+import type { Database } from './database.ts';
+
+export interface Store {
+  db: Kysely<Database>;
+  /** Which server holds the data: a PostgreSQL server, or the embedded one in a data folder. */
+  engine: 'postgres' | 'pglite';
+}
+
+/** A PostgreSQL server when a URL is given; else embedded PostgreSQL (PGlite) in `dataDir`. */
+export function openStore(options: { databaseUrl?: string; dataDir?: string }): Store {
+  if (options.databaseUrl) {
+    const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
+    return { db: new Kysely<Database>({ dialect: new PostgresDialect({ pool }) }), engine: 'postgres' };
+  }
+  const dir = options.dataDir ?? './data';
+  // memory:// keeps the embedded database in memory (tests); anything else is a folder.
+  if (!dir.startsWith('memory://')) mkdirSync(dir, { recursive: true });
+  return { db: new Kysely<Database>({ dialect: new PGliteDialect(new PGlite(dir)) }), engine: 'pglite' };
+}

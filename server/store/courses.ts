@@ -1,0 +1,38 @@
+import type { Kysely } from 'kysely';
+import type { Database } from './database.ts';
+
+export async function createCourse(db: Kysely<Database>, name: string) {
+  return db.insertInto('courses').values({ name }).returning(['id', 'name', 'created_at as createdAt']).executeTakeFirstOrThrow();
+}
+
+export async function getCourse(db: Kysely<Database>, id: number) {
+  return db.selectFrom('courses').select(['id', 'name', 'created_at as createdAt']).where('id', '=', id).executeTakeFirst();
+}
+
+export async function createSection(db: Kysely<Database>, courseId: number, name: string) {
+  return db.insertInto('sections').values({ course_id: courseId, name }).returning(['id', 'course_id as courseId', 'name']).executeTakeFirstOrThrow();
+}
+
+export async function getSection(db: Kysely<Database>, id: number) {
+  return db.selectFrom('sections').select(['id', 'course_id as courseId', 'name']).where('id', '=', id).executeTakeFirst();
+}
+
+export async function listSections(db: Kysely<Database>, courseId: number) {
+  return db.selectFrom('sections').select(['id', 'course_id as courseId', 'name']).where('course_id', '=', courseId).orderBy('id').execute();
+}
+
+export async function createStaff(db: Kysely<Database>, courseId: number, handle: string, role: 'instructor' | 'ta', sectionIds: number[]) {
+  const staff = await db
+    .insertInto('staff')
+    .values({ course_id: courseId, handle, role })
+    .returning(['id', 'course_id as courseId', 'handle', 'role'])
+    .executeTakeFirstOrThrow();
+  if (sectionIds.length > 0) {
+    await db.insertInto('ta_sections').values(sectionIds.map((s) => ({ staff_id: staff.id, section_id: s }))).execute();
+  }
+  return { ...staff, sectionIds };
+}
+
+export async function getStaff(db: Kysely<Database>, id: number) {
+  return db.selectFrom('staff').select(['id', 'course_id as courseId', 'handle', 'role']).where('id', '=', id).executeTakeFirst();
+}

@@ -1,0 +1,66 @@
+import type { ColumnType, Generated } from 'kysely';
+
+/** Table types for kysely: one interface per table, columns as the database returns them. */
+type Ref = number;
+/** JSON goes in as text (pg would turn a JS array into a SQL array) and comes out parsed. */
+type Json<T> = ColumnType<T, string, string>;
+
+export interface Database {
+  courses: { id: Generated<number>; name: string; created_at: Generated<Date> };
+  sections: { id: Generated<number>; course_id: Ref; name: string };
+  staff: { id: Generated<number>; course_id: Ref; handle: string; role: 'instructor' | 'ta' };
+  ta_sections: { staff_id: Ref; section_id: Ref };
+  api_tokens: { id: Generated<number>; staff_id: Ref; token_hash: string; created_at: Generated<Date>; revoked_at: Date | null };
+  students: { id: Generated<number>; course_id: Ref; section_id: Ref; student_id: string; display_name: string | null };
+  assignments: {
+    id: Generated<number>;
+    course_id: Ref;
+    title: string;
+    kind: string;
+    settings: Json<unknown>;
+    settings_version: Generated<number>;
+    created_at: Generated<Date>;
+  };
+  submissions: {
+    id: Generated<number>;
+    assignment_id: Ref;
+    student_row_id: Ref;
+    version: number;
+    payload: Json<unknown>;
+    submitted_by: Ref | null;
+    created_at: Generated<Date>;
+  };
+  results: {
+    id: Generated<number>;
+    submission_id: Ref;
+    engine_version: string;
+    settings_version: number;
+    settings: Json<unknown>;
+    status: string;
+    score: number | null;
+    max_score: number;
+    refit: Json<unknown> | null;
+    findings: Json<unknown>;
+    released_at: Date | null;
+    released_by: Ref | null;
+    created_at: Generated<Date>;
+  };
+  overrides: {
+    id: Generated<number>;
+    submission_id: Ref;
+    finding_id: string;
+    points_before: number;
+    points_after: number;
+    reason: string;
+    staff_id: Ref;
+    created_at: Generated<Date>;
+  };
+  idempotency_keys: {
+    staff_id: Ref;
+    key: string;
+    request_hash: string;
+    status_code: number;
+    body: Json<unknown>;
+    created_at: Generated<Date>;
+  };
+}

@@ -1,0 +1,110 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openApi, call, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
+
+// The same flow on a PostgreSQL server and once on the embedded engine (PGlite).
+describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
+  let api: Api;
+  let s: Seed;
+  const url = () => `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}`;
+
+  beforeAll(async () => {
+    api = await openApi(engine);
+    s = await seedCourse(api.app);
+  }, 60_000);
+  afterAll(async () => api?.close());
+
+  it('stores and grades a batch; an invalid submission and an unknown student are listed and stored nowhere', async () => {
+    const [good1, good2, bad] = submissionsFor(['S-001', 'S-002', 'S-003']);
+    (bad.runs[0].readings[2] as unknown[])[1] = 'NaN';
+    const stranger = submissionsFor(['S-999'], 2)[0];
+    const res = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [good1, good2, bad, stranger], 201);
+    expect(res.body.stored.map((x: { studentId: string; version: number }) => [x.studentId, x.version])).toEqual([['S-001', 1], ['S-002', 1]]);
+    expect(res.body.rejected).toEqual([
+      { at: '[2]', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
+      { at: '[3]', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" },
+    ]);
+    const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
+    expect(table.body.map((r: { studentId: string }) => r.studentId)).toEqual(['S-001', 'S-002']);
+    expect(table.body[0]).toMatchObject({ version: 1, status: 'checked', score: 22, maxScore: 22, released: false });
+  });
+
+  it('a resubmission is a new version; the old one stays readable', async () => {
+    const [again] = submissionsFor(['S-001'], 7);
+    const res = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [again], 201);
+    expect(res.body.stored[0]).toMatchObject({ studentId: 'S-001', version: 2 });
+    const history = await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/students/S-001/history`, s.taAToken, undefined, 200);
+    expect(history.body.map((h: { version: number }) => h.version)).toEqual([1, 2]);
+    const first = await call(api.app, 'GET', `/v1/submissions/${history.body[0].submissionId}`, s.taAToken, undefined, 200);
+    expect(first.body).toMatchObject({ version: 1, studentId: 'S-001' });
+    expect(first.body.result.score).toBe(22);
+  });
+
+  it('an Idempotency-Key returns the first response instead of storing a second version', async () => {
+    const [sub] = submissionsFor(['S-004'], 3);
+    const send = () => api.app.inject({ method: 'POST', url: `${url()}/submissions`, headers: { authorization: `Bearer ${s.taAToken}`, 'idempotency-key': 'batch-0001' }, payload: [sub] });
+    const first = await send();
+    const second = await send();
+    expect(first.statusCode).toBe(201);
+    expect(second.statusCode).toBe(201);
+    expect(second.json()).toEqual(first.json());
+    expect(second.headers['idempotent-replayed']).toBe('true');
+    const history = await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/students/S-004/history`, s.taAToken, undefined, 200);
+    expect(history.body).toHaveLength(1);
+    const changed = await api.app.inject({ method: 'POST', url: `${url()}/submissions`, headers: { authorization: `Bearer ${s.taAToken}`, 'idempotency-key': 'batch-0001' }, payload: [sub, sub] });
+    expect(changed.statusCode).toBe(422);
+  });
+
+  it('an override is kept with who, when, before and after, and survives a regrade under new settings', async () => {
+    const [slipped] = submissionsFor(['S-005'], 4);
+    slipped.runs[1].reported!.k!.value = -Number(slipped.runs[1].reported!.k!.value);
+    const stored = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [slipped], 201);
+    const id = stored.body.stored[0].submissionId;
+    const view = await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200);
+    const finding = view.body.result.findings.find((f: { code: string }) => f.code === 'sign-flipped');
+    expect(finding).toMatchObject({ id: 'sign-flipped@runs[1].reported.k', pointsLost: 2 });
+    const before = view.body.result.score;
+
+    const overridden = await call(api.app, 'POST', `/v1/submissions/${id}/overrides`, s.taAToken, { findingId: finding.id, pointsLost: 1, reason: 'sign slip only in the summary table' }, 201);
+    expect(overridden.body.result.score).toBe(before + 1);
+    expect(overridden.body.overrides).toEqual([
+      expect.objectContaining({ findingId: finding.id, pointsBefore: 2, pointsAfter: 1, by: 'ta-a', reason: 'sign slip only in the summary table' }),
+    ]);
+
+    const settings = { ...s.settings, rubric: { k: 3 } };
+    await call(api.app, 'PUT', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings }, 200);
+    const regraded = await call(api.app, 'POST', `/v1/assignments/${s.assignment.id}/regrade`, s.instructorToken, { sectionId: s.sectionA.id }, 200);
+    expect(regraded.body.regraded).toBeGreaterThanOrEqual(1);
+    const after = await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200);
+    expect(after.body.result.settingsVersion).toBe(2);
+    const again = after.body.result.findings.find((f: { id: string }) => f.id === finding.id);
+    expect(again).toMatchObject({ pointsLost: 1, override: { originalPointsLost: 3, reason: 'sign slip only in the summary table', by: 'ta-a' } });
+  });
+
+  it('results are released only by a TA action', async () => {
+    const released = await call(api.app, 'POST', `${url()}/release`, s.taAToken, undefined, 200);
+    expect(released.body.released).toBeGreaterThan(0);
+    const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
+    expect(table.body.every((r: { released: boolean }) => r.released)).toBe(true);
+  });
+
+  it('accepts the CSV layout as a multipart upload', async () => {
+    const boundary = 'rateproof-test-boundary';
+    const readings = ['student_id,run,catalyst,catalyst_unit,time_unit,t,x,infinity', ...[0, 1, 2, 3, 4, 5].map((t) => `S-006,A,0.1,M,min,${t},${(10 + 12 * Math.exp(-0.05 * t)).toFixed(3)},10.000`)].join('\n');
+    const reported = 'student_id,run,quantity,value,uncertainty,unit\nS-006,A,k,0.0500,0.0001,min^-1\n';
+    const part = (name: string, text: string) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${text}\r\n`;
+    const res = await api.app.inject({
+      method: 'POST',
+      url: `${url()}/submissions`,
+      headers: { authorization: `Bearer ${s.taAToken}`, 'content-type': `multipart/form-data; boundary=${boundary}` },
+      payload: `${part('readings', readings)}${part('reported', reported)}--${boundary}--\r\n`,
+    });
+    expect(res.statusCode, res.body).toBe(201);
+    expect(res.json().stored[0]).toMatchObject({ studentId: 'S-006', version: 1, status: 'checked' });
+  });
+
+  it('serves its OpenAPI document', async () => {
+    const res = await api.app.inject({ method: 'GET', url: '/openapi.json' });
+    expect(res.statusCode).toBe(200);
+    expect(Object.keys(res.json().paths)).toContain('/v1/sections/{sectionId}/assignments/{assignmentId}/submissions');
+  });
+});
