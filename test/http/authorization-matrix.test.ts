@@ -1,0 +1,89 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Access } from '../../server/routes/access.ts';
+import { routes } from '../../server/routes/index.ts';
+import { ADMIN_TOKEN, call, openApi, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
+
+/**
+ * Every route x every kind of caller, generated from the route table: a route without an example
+ * request below fails the first test, so a new route cannot escape the matrix.
+ */
+type Role = 'admin' | 'instructor' | 'ta-of-section' | 'ta-of-other-section' | 'no-token' | 'bad-token';
+const roles: Role[] = ['admin', 'instructor', 'ta-of-section', 'ta-of-other-section', 'no-token', 'bad-token'];
+
+// Expected outcome by access rule: 'ok' is any 2xx.
+const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
+  admin: { admin: 'ok', instructor: 403, 'ta-of-section': 403, 'ta-of-other-section': 403, 'no-token': 401, 'bad-token': 401 },
+  instructor: { admin: 'ok', instructor: 'ok', 'ta-of-section': 403, 'ta-of-other-section': 403, 'no-token': 401, 'bad-token': 401 },
+  course: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
+  section: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 404, 'no-token': 401, 'bad-token': 401 },
+};
+
+interface Fixture extends Seed {
+  submissionId: number;
+  findingId: string;
+}
+
+let n = 0;
+const unique = () => ++n;
+
+/** A valid request for each route, pointing into section A of the seeded course. */
+const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> = {
+  'POST /v1/courses': () => ({ url: '/v1/courses', body: { name: `Course ${unique()}` } }),
+  'GET /v1/courses/:courseId': (f) => ({ url: `/v1/courses/${f.course.id}` }),
+  'POST /v1/courses/:courseId/sections': (f) => ({ url: `/v1/courses/${f.course.id}/sections`, body: { name: `Section ${unique()}` } }),
+  'GET /v1/courses/:courseId/sections': (f) => ({ url: `/v1/courses/${f.course.id}/sections` }),
+  'POST /v1/courses/:courseId/staff': (f) => ({ url: `/v1/courses/${f.course.id}/staff`, body: { handle: `ta-${unique()}`, role: 'ta', sectionIds: [f.sectionA.id] } }),
+  'POST /v1/staff/:staffId/tokens': (f) => ({ url: `/v1/staff/${f.taA.id}/tokens` }),
+  'POST /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster`, body: { students: [{ studentId: 'S-001' }] } }),
+  'GET /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster` }),
+  'POST /v1/courses/:courseId/assignments': (f) => ({ url: `/v1/courses/${f.course.id}/assignments`, body: { title: `Assignment ${unique()}`, settings: f.settings } }),
+  'GET /v1/assignments/:assignmentId': (f) => ({ url: `/v1/assignments/${f.assignment.id}` }),
+  'PUT /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: f.settings } }),
+  'POST /v1/assignments/:assignmentId/regrade': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrade`, body: {} }),
+  'POST /v1/sections/:sectionId/assignments/:assignmentId/submissions': (f) => ({
+    url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/submissions`,
+    body: submissionsFor(['S-002'], unique()),
+  }),
+  'GET /v1/submissions/:submissionId': (f) => ({ url: `/v1/submissions/${f.submissionId}` }),
+  'POST /v1/submissions/:submissionId/overrides': (f) => ({ url: `/v1/submissions/${f.submissionId}/overrides`, body: { findingId: f.findingId, pointsLost: 1, reason: 'checked by hand' } }),
+  'GET /v1/sections/:sectionId/students/:studentId/history': (f) => ({ url: `/v1/sections/${f.sectionA.id}/students/S-001/history` }),
+  'GET /v1/sections/:sectionId/assignments/:assignmentId/results': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/results` }),
+  'POST /v1/sections/:sectionId/assignments/:assignmentId/release': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/release` }),
+};
+
+describe('authorisation matrix: every route x every caller', () => {
+  let api: Api;
+  let f: Fixture;
+  const tokenOf = (role: Role): string | undefined =>
+    ({ admin: ADMIN_TOKEN, instructor: f.instructorToken, 'ta-of-section': f.taAToken, 'ta-of-other-section': f.taBToken, 'no-token': undefined, 'bad-token': 'rp_not-a-real-token' })[role];
+
+  beforeAll(async () => {
+    api = await openApi();
+    const seed = await seedCourse(api.app);
+    const [slipped] = submissionsFor(['S-001'], 99);
+    slipped.runs[0].reported!.k!.value = -Number(slipped.runs[0].reported!.k!.value);
+    const stored = await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/submissions`, seed.taAToken, [slipped], 201);
+    f = { ...seed, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k' };
+  }, 60_000);
+  afterAll(async () => api?.close());
+
+  it('has an example request for every route in the table', () => {
+    expect(routes.map((r) => `${r.method} ${r.url}`).filter((key) => !examples[key])).toEqual([]);
+  });
+
+  const cases = routes.flatMap((r) => roles.map((role) => ({ route: `${r.method} ${r.url}`, access: r.access, method: r.method, role })));
+  it.each(cases)('$route as $role', async ({ route, access, method, role }) => {
+    const { url, body } = examples[route](f);
+    const res = await call(api.app, method, url, tokenOf(role), body);
+    const want = expected[access][role];
+    if (want === 'ok') expect(res.status, JSON.stringify(res.body)).toBeGreaterThanOrEqual(200);
+    if (want === 'ok') expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+    else expect(res.status, JSON.stringify(res.body)).toBe(want);
+  });
+
+  it('a TA asking for another section gets the same answer as for a missing one', async () => {
+    const other = await call(api.app, 'GET', `/v1/sections/${f.sectionA.id}/roster`, f.taBToken);
+    const missing = await call(api.app, 'GET', '/v1/sections/999999/roster', f.taBToken);
+    expect([other.status, other.body]).toEqual([missing.status, missing.body]);
+  });
+});
