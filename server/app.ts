@@ -85,8 +85,16 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions): v
 }
 
 /** Builds the app: content parsers, error mapping, OpenAPI, and every route. Never listens. */
+/** Request lines for the log: method and URL with student ids taken out; no headers, no body. */
+function logRequest(request: { method: string; url: string; id: string }) {
+  return { id: request.id, method: request.method, url: request.url.replace(/\/students\/[^/?]+/, '/students/:studentId') };
+}
+
 export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
-  const app = Fastify({ logger: options.logger ? { level: options.config.logLevel } : false, bodyLimit: options.config.bodyLimitBytes });
+  const app = Fastify({
+    logger: options.logger ? { level: options.config.logLevel, serializers: { req: logRequest } } : false,
+    bodyLimit: options.config.bodyLimitBytes,
+  });
   app.setValidatorCompiler(validatorCompiler);
   app.setSerializerCompiler(serializerCompiler);
 
