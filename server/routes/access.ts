@@ -33,43 +33,39 @@ function merge(scope: Scope, courseId: number, sectionId?: number): void {
   if (sectionId !== undefined) scope.sectionId = sectionId;
 }
 
+type Place = { courseId: number; sectionId?: number } | undefined;
+
+/** For each id a URL may carry: where the thing it names lives. */
+const lookups: Array<[string, (db: Kysely<Database>, id: number) => Promise<Place>]> = [
+  ['courseId', async (db, id) => ((await getCourse(db, id)) ? { courseId: id } : undefined)],
+  ['sectionId', async (db, id) => {
+    const s = await getSection(db, id);
+    return s && { courseId: s.courseId, sectionId: s.id };
+  }],
+  ['assignmentId', async (db, id) => {
+    const a = await getAssignment(db, id);
+    return a && { courseId: a.courseId };
+  }],
+  ['submissionId', async (db, id) => {
+    const s = await getSubmission(db, id);
+    return s && { courseId: s.courseId, sectionId: s.sectionId };
+  }],
+  ['staffId', async (db, id) => {
+    const s = await getStaff(db, id);
+    return s && { courseId: s.courseId };
+  }],
+];
+
 export async function resolveScope(db: Kysely<Database>, params: Record<string, unknown>): Promise<Scope> {
   const scope: Scope = {};
-  const id = (name: string) => {
-    if (params[name] === undefined) return undefined;
-    const n = Number(params[name]);
+  for (const [name, lookup] of lookups) {
+    if (params[name] === undefined) continue;
+    const id = Number(params[name]);
     // Not an id at all: as missing as any other.
-    if (!Number.isSafeInteger(n) || n <= 0 || n > 2147483647) throw notFound();
-    return n;
-  };
-  const courseId = id('courseId');
-  if (courseId !== undefined) {
-    if (!(await getCourse(db, courseId))) throw notFound();
-    merge(scope, courseId);
-  }
-  const sectionId = id('sectionId');
-  if (sectionId !== undefined) {
-    const section = await getSection(db, sectionId);
-    if (!section) throw notFound();
-    merge(scope, section.courseId, section.id);
-  }
-  const assignmentId = id('assignmentId');
-  if (assignmentId !== undefined) {
-    const assignment = await getAssignment(db, assignmentId);
-    if (!assignment) throw notFound();
-    merge(scope, assignment.courseId);
-  }
-  const submissionId = id('submissionId');
-  if (submissionId !== undefined) {
-    const submission = await getSubmission(db, submissionId);
-    if (!submission) throw notFound();
-    merge(scope, submission.courseId, submission.sectionId);
-  }
-  const staffId = id('staffId');
-  if (staffId !== undefined) {
-    const staff = await getStaff(db, staffId);
-    if (!staff) throw notFound();
-    merge(scope, staff.courseId);
+    if (!Number.isSafeInteger(id) || id <= 0 || id > 2147483647) throw notFound();
+    const place = await lookup(db, id);
+    if (!place) throw notFound();
+    merge(scope, place.courseId, place.sectionId);
   }
   return scope;
 }
