@@ -122,8 +122,13 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     if (error instanceof ApiError) return reply.code(error.status).send(errorBody(error));
     if (hasZodFastifySchemaValidationErrors(error)) {
       const where = (error as { validationContext?: string }).validationContext ?? 'body';
-      const details = error.validation.map((v) => ({ path: `${where}${v.instancePath.replace(/\//g, '.')}`, message: v.message ?? 'invalid' }));
+      const details = error.validation.map((v) => ({ path: `${where}${v.instancePath.replace(/\//g, '.')}`.replace(/\.$/, ''), message: v.message ?? 'invalid' }));
       return reply.code(400).send(errorBody(new ApiError('invalid-input', undefined, details)));
+    }
+    // A unique constraint (a handle, a section name already used in the course): the request conflicts.
+    if ((error as { code?: string }).code === '23505') {
+      const constraint = (error as { constraint?: string }).constraint;
+      return reply.code(409).send(errorBody(new ApiError('conflict', `already exists${constraint ? ` (${constraint.replace(/_/g, ' ')})` : ''}`)));
     }
     const status = (error as { statusCode?: number }).statusCode;
     if (status === 413) return reply.code(413).send(errorBody(new ApiError('payload-too-large')));

@@ -8,10 +8,10 @@ const ConfigSchema = z.object({
     .optional(),
   RATEPROOF_DATA_DIR: z.string().min(1).default('./data'),
   HOST: z.string().min(1).default('127.0.0.1'),
-  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  PORT: z.string().trim().regex(/^\d+$/, 'a port number').transform(Number).pipe(z.number().max(65535)).default(3000),
   /** Creates courses and their first instructors; at least 24 characters when set. */
   RATEPROOF_ADMIN_TOKEN: z.string().min(24, 'at least 24 characters').optional(),
-  RATEPROOF_BODY_LIMIT_MB: z.coerce.number().positive().max(100).default(5),
+  RATEPROOF_BODY_LIMIT_MB: z.string().trim().regex(/^\d+(\.\d+)?$/, 'a number of megabytes').transform(Number).pipe(z.number().positive().max(100)).default(5),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 

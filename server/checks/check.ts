@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import type { CheckResult, Rejection } from '../../schemas/result.ts';
 import type { ExperimentKind } from './experiment-kind.ts';
 import { InputRejected } from './input-rejected.ts';
+import { EngineError } from '../engine/engine-error.ts';
 import { kindFor } from './kinds.ts';
 import { ENGINE_VERSION } from './version.ts';
 
@@ -36,6 +37,8 @@ export function parseAssignment(input: unknown): Assignment {
   }
   const parsed = kind.settingsSchema.safeParse(input);
   if (!parsed.success) throw new SettingsError(issuesOf(parsed.error));
+  const issues = kind.settingsIssues(parsed.data);
+  if (issues.length > 0) throw new SettingsError(issues);
   return { kind, settings: parsed.data };
 }
 
@@ -70,6 +73,10 @@ export function checkSubmission(assignment: Assignment, submission: unknown): Ch
   } catch (error) {
     if (error instanceof InputRejected) {
       return rejected(idOf(submission), kind.maxScore(settings, parsed.data), error.rejections);
+    }
+    // Data that pass every check above but still defeat a fit are the submission's problem, not a crash.
+    if (error instanceof EngineError) {
+      return rejected(idOf(submission), kind.maxScore(settings, parsed.data), [{ path: error.field ?? '(data)', message: error.message }]);
     }
     throw error;
   }

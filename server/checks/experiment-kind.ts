@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { CheckResult } from '../../schemas/result.ts';
+import type { CheckResult, Rejection } from '../../schemas/result.ts';
 
 /**
  * One kind of experiment the checker understands. A new kind is a new module that implements this
@@ -9,6 +9,8 @@ export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   kind: string;
   settingsSchema: z.ZodType<Settings>;
   submissionSchema: z.ZodType<Submission>;
+  /** What the schema cannot say about valid-looking settings (a unit of the wrong kind, say). */
+  settingsIssues(settings: Settings): Rejection[];
   /** Refits, compares, diagnoses and scores one valid submission. Pure. */
   check(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'>;
   /** The points available under these settings for this submission's shape. */

@@ -37,6 +37,10 @@ export const rosterRoutes: RouteSpec[] = [
     transactional: true,
     async handler({ db, scope, body }) {
       const entries = typeof body === 'string' ? rosterFromCsv(body) : (body as { students: RosterEntry[] }).students;
+      const firstAt = new Map<string, number>();
+      entries.forEach((e, i) => firstAt.set(e.studentId, firstAt.get(e.studentId) ?? i));
+      const repeated = entries.findIndex((e, i) => firstAt.get(e.studentId) !== i);
+      if (repeated >= 0) throw new ApiError('invalid-input', undefined, [{ path: `body.students[${repeated}].studentId`, message: `${entries[repeated].studentId} is listed twice` }]);
       const elsewhere = await studentsElsewhere(db, scope.courseId!, scope.sectionId!, entries.map((e) => e.studentId));
       if (elsewhere.length > 0) {
         throw new ApiError('conflict', 'a student may be in one section per course', elsewhere.map((s) => ({ path: s.studentId, message: `already on the roster of section ${s.sectionId}` })));

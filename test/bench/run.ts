@@ -1,5 +1,6 @@
 import { benchChecks } from './check-throughput.ts';
 import { benchEngineRefit } from './engine-refit.ts';
+import { benchBulkSubmit } from './bulk-submit.ts';
 
 // `npm run bench`: prints figures; targets are compared by a reader, never asserted.
 const engine = benchEngineRefit();
@@ -13,3 +14,5 @@ console.log(
   `checker: ${Math.round(checks.checksPerSecond).toLocaleString('en-US')} checked submissions/s ` +
     `(${checks.microsecondsPerCheck.toFixed(1)} µs each; clean, 4 runs x 16 readings, default assignment, checkBatch over 2,000; one core)`,
 );
+
+await benchBulkSubmit();

@@ -2,11 +2,13 @@ import { KIND, Settings, Submission } from '../../../schemas/kinds/first-order-c
 import type { ExperimentKind } from '../experiment-kind.ts';
 import { checkFirstOrderCatalysis } from './check-submission.ts';
 import { maxScore } from './scoring.ts';
+import { settingsIssues } from './settings-issues.ts';
 
 export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   kind: KIND,
   settingsSchema: Settings,
   submissionSchema: Submission,
+  settingsIssues,
   check: checkFirstOrderCatalysis,
   maxScore,
 };

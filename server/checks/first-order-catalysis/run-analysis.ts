@@ -90,6 +90,9 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
   const times = run.readings.map((r) => r[0]);
   const readings = run.readings.map((r) => r[1]);
   const data = { times, readings, timeUnit: run.timeUnit, infinity: run.infinity };
+  if (readings.every((x) => x === readings[0])) {
+    throw new InputRejected([{ path: `${path}.readings`, message: 'the readings do not change, so no rate can be fitted' }]);
+  }
   try {
     if (run.infinity === undefined) {
       const exponential = fitFirstOrderNonlinear(data, { infinity: 'fitted' });
