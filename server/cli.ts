@@ -1,9 +1,16 @@
+import { mkdir, writeFile } from 'node:fs/promises';
+import { basename, dirname, extname, join } from 'node:path';
 import { parseArgs } from 'node:util';
 import type { ParseArgsConfig } from 'node:util';
 import type { CheckResult } from '../schemas/result.ts';
 import type { Assignment } from './checks/check.ts';
 import { checkBatch, parseAssignment, SettingsError } from './checks/check.ts';
 import { parseSubmissionsCsv } from './input/csv-submissions.ts';
+import type { Settings, Submission } from '../schemas/kinds/first-order-catalysis.ts';
+import { renderFeedbackSheet } from '../reports/feedback-sheet.ts';
+import { UniqueNames } from '../reports/file-names.ts';
+import { gradebookCsv } from '../reports/gradebook-csv.ts';
+import { renderSectionSummary } from '../reports/section-summary.ts';
 
 /**
  * The `rateproof` command. Process wiring (argv, streams, exit code) lives in bin/rateproof.js, so
@@ -15,18 +22,21 @@ export interface CliIo {
   stdout(text: string): void;
   stderr(text: string): void;
   readFile(path: string): Promise<string>;
+  /** Writes a file, making its folder; the file system when absent. */
+  writeFile?(path: string, data: string | Buffer): Promise<void>;
 }
 
 /** One subcommand: its arguments (after the subcommand's name) in, exit code out. */
 type Command = (args: string[], io: CliIo) => Promise<number>;
 
-const USAGE = `usage: rateproof check --assignment A.json SUBMISSIONS.(json|csv) [--reported R.csv] [--json]
+const USAGE = `usage: rateproof check --assignment A.json SUBMISSIONS.(json|csv) [--reported R.csv] [--json] [--out DIR]
        rateproof serve
 
   check   grade submissions offline against an assignment's settings
           SUBMISSIONS.json holds one submission or an array of them;
           SUBMISSIONS.csv holds one row per reading, --reported the reported values
           --json prints the results as JSON instead of a table
+          --out DIR writes DIR/<studentId>.pdf per checked result, DIR/gradebook.csv, DIR/summary.pdf
 `;
 
 /** Wrong arguments: the usage follows the message. */
@@ -74,6 +84,7 @@ async function check(args: string[], io: CliIo): Promise<number> {
     assignment: { type: 'string' },
     reported: { type: 'string' },
     json: { type: 'boolean' },
+    out: { type: 'string' },
   });
   const { assignment: assignmentPath, reported: reportedPath } = values;
   if (assignmentPath === undefined || positionals.length !== 1) {
@@ -89,7 +100,39 @@ async function check(args: string[], io: CliIo): Promise<number> {
     : [await readJson(submissionsPath, io)].flat();
   const results = checkBatch(assignment, submissions);
   io.stdout(values.json ? `${JSON.stringify(results, null, 2)}\n` : renderResults(results));
+  if (values.out !== undefined) {
+    const count = await writeReports(values.out, { assignmentPath, submissionsPath }, assignment, submissions, results, io);
+    if (!values.json) io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${values.out}\n`);
+  }
   return 0;
+}
+
+/** --out: a feedback sheet per checked result, the gradebook and the section summary. Returns the sheet count. */
+async function writeReports(dir: string, paths: { assignmentPath: string; submissionsPath: string }, assignment: Assignment, submissions: unknown[], results: CheckResult[], io: CliIo): Promise<number> {
+  const save = async (name: string, data: string | Buffer) => {
+    const path = join(dir, name);
+    try {
+      await (io.writeFile ?? ((p, d) => mkdir(dirname(p), { recursive: true }).then(() => writeFile(p, d))))(path, data);
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      throw new InputError(`cannot write ${path}: ${(code && fileErrors[code]) ?? (error as Error).message}`);
+    }
+  };
+  const stem = (path: string) => basename(path, extname(path));
+  const header = { course: 'Offline check', section: stem(paths.submissionsPath), assignment: stem(paths.assignmentPath), gradedAt: new Date() };
+  const settings = assignment.settings as Settings;
+  const names = new UniqueNames();
+  const checked: Submission[] = [];
+  for (const [i, result] of results.entries()) {
+    const parsed = assignment.kind.submissionSchema.safeParse(submissions[i]);
+    if (result.status !== 'checked' || result.studentId === null || !parsed.success) continue;
+    const submission = parsed.data as Submission;
+    checked.push(submission);
+    await save(names.take(result.studentId), await renderFeedbackSheet({ header: { ...header, studentId: result.studentId, version: 1 }, settings, submission, result }));
+  }
+  await save('gradebook.csv', gradebookCsv(results, { bom: true }));
+  await save('summary.pdf', await renderSectionSummary({ header, settings, results, submissions: checked }));
+  return checked.length;
 }
 
 function parseOptions<const Options extends NonNullable<ParseArgsConfig['options']>>(args: string[], options: Options) {

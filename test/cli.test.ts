@@ -1,5 +1,5 @@
 import { execFile } from 'node:child_process';
-import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -159,5 +159,31 @@ describe('bin/rateproof.js', () => {
     const bin = fileURLToPath(new URL('../bin/rateproof.js', import.meta.url));
     const failure = await promisify(execFile)(process.execPath, [bin, 'check', '--assignment', file('absent.json'), file('one.json')]).catch((e: unknown) => e);
     expect(failure).toMatchObject({ code: 2, stderr: `rateproof: cannot read ${file('absent.json')}: no such file\n` });
+  });
+});
+
+describe('rateproof check --out DIR', () => {
+  it('writes a feedback PDF per checked result, gradebook.csv and summary.pdf', async () => {
+    const out = file('out');
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('batch.json'), '--out', out);
+    expect(result.code).toBe(0);
+    expect(result.stdout.trimEnd().split('\n').at(-1)).toBe(`wrote 2 feedback sheets, gradebook.csv and summary.pdf to ${out}`);
+    expect((await readdir(out)).sort()).toEqual(['gradebook.csv', 's-01.pdf', 's-03.pdf', 'summary.pdf']);
+    for (const pdf of ['s-01.pdf', 's-03.pdf', 'summary.pdf']) expect((await readFile(join(out, pdf))).subarray(0, 5).toString()).toBe('%PDF-');
+    const gradebook = await readFile(join(out, 'gradebook.csv'), 'utf8');
+    expect(gradebook.split('\r\n').slice(0, 4)).toEqual([
+      '\uFEFFstudent_id,score,max_score,status,errors,warnings,infos,main_codes',
+      expect.stringMatching(/^s-01,[\d.]+,[\d.]+,checked,/),
+      's-02,,0,rejected,0,0,0,',
+      expect.stringMatching(/^s-03,[\d.]+,[\d.]+,checked,/),
+    ]);
+  });
+
+  it('a folder it cannot write to: exit 2 and one line naming the file', async () => {
+    await writeFile(file('not-a-folder'), '');
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), '--out', file('not-a-folder'), '--json');
+    expect(result.code).toBe(2);
+    expect(result.stderrLines).toHaveLength(1);
+    expect(result.stderr).toMatch(`rateproof: cannot write ${join(file('not-a-folder'), 's-01.pdf')}: `);
   });
 });

@@ -1,5 +1,6 @@
 import { benchChecks } from './check-throughput.ts';
 import { benchEngineRefit } from './engine-refit.ts';
+import { benchPdfs } from './pdf-throughput.ts';
 import { benchBulkSubmit } from './bulk-submit.ts';
 
 // `npm run bench`: prints figures; targets are compared by a reader, never asserted.
@@ -16,3 +17,9 @@ console.log(
 );
 
 await benchBulkSubmit();
+
+const pdfs = await benchPdfs();
+console.log(
+  `feedback sheets: ${pdfs.pdfsPerSecond.toFixed(0)} PDFs/s (${pdfs.millisecondsPerPdf.toFixed(1)} ms each, ` +
+    `${pdfs.meanKilobytes.toFixed(0)} kB on average; ${pdfs.pagesNote}; one core; target >= 100/s)`,
+);

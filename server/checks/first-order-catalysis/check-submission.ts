@@ -31,7 +31,8 @@ function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Se
     k: { instructor: convertEstimate(a.expected, settings.units.k), ...(declared ? { declared } : {}) },
     kOtherModel: a.other ? convertEstimate(a.other.k, settings.units.k) : undefined,
     kExponential: a.exponential ? convertEstimate(a.exponential.k, settings.units.k) : undefined,
-    halfLife: a.asked?.halfLife ?? a.exponential?.halfLife,
+    // A rate interval reaching zero leaves the half-life unbounded, which JSON cannot carry.
+    halfLife: [a.asked?.halfLife ?? a.exponential?.halfLife].find((h) => h !== undefined && Number.isFinite(h.ci95[1])),
     // NaN (a reading past x_inf) travels as null in JSON.
     lnF: a.transform?.lnF.map((v) => (Number.isFinite(v) ? v : null)),
     residualSD: a.asked?.line.residualSD,

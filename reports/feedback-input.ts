@@ -1,0 +1,49 @@
+import type { Settings, Submission } from '../schemas/kinds/first-order-catalysis.ts';
+import type { CheckResult } from '../schemas/result.ts';
+
+/** What a feedback sheet is made from: plain data, no schema objects, no I/O. */
+export interface FeedbackHeader {
+  course: string;
+  section: string;
+  assignment: string;
+  /** Pseudonymous id only; names never reach a sheet. */
+  studentId: string;
+  /** Grading version: 1 for the first grading, +1 for each regrade. */
+  version: number;
+  gradedAt: Date | string;
+}
+
+export interface FeedbackInput {
+  header: FeedbackHeader;
+  /** Parsed settings (defaults filled), as `parseAssignment` returns them. */
+  settings: Settings;
+  /** The submission the result was checked from (parsed). */
+  submission: Submission;
+  result: CheckResult;
+  /** The data are invented (demo or test): says so in every page's footer. */
+  invented?: boolean;
+}
+
+export interface SummaryHeader {
+  course: string;
+  section: string;
+  assignment: string;
+  gradedAt: Date | string;
+}
+
+export interface SectionSummaryInput {
+  header: SummaryHeader;
+  settings: Settings;
+  results: CheckResult[];
+  /** The submissions, matched to results by student id: their reported k_N and k_A are summarised too. */
+  submissions?: Submission[];
+  invented?: boolean;
+}
+
+/** Footer text for invented data, the same on both documents. */
+export const INVENTED_NOTE = 'Invented demonstration data: generated, not measured, and not any real student’s work.';
+
+/** The sentence every feedback sheet carries about what a diagnosis is. */
+export const LIKELY_CAUSES_NOTE =
+  'Each diagnosis below names a likely cause of a difference, read from the numbers; it is not a verdict. ' +
+  'A teaching assistant reviews these findings and can override any of them.';

@@ -1,0 +1,81 @@
+import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { CheckResult, Finding } from '../../schemas/result.ts';
+import { formatPoints } from '../format.ts';
+import { SEVERITY_WORD, STAGE_ORDER, STAGE_TITLES } from '../labels.ts';
+import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
+import { marker, type MarkerShape } from '../pdf/marks.ts';
+import { drawRich, richWidth } from '../pdf/rich-text.ts';
+import { COLOR, SIZE } from '../pdf/theme.ts';
+import { describePath } from './paths.ts';
+
+/** Severity in words and in shape, never by colour alone. */
+export const SEVERITY_STYLE: Record<Finding['severity'], { shape: MarkerShape; color: string }> = {
+  error: { shape: 'square', color: COLOR.error },
+  warning: { shape: 'triangle', color: COLOR.warning },
+  info: { shape: 'ring', color: COLOR.info },
+};
+
+const INDENT = 16;
+
+function pointsText(f: Finding): string {
+  if (f.pointsLost > 0) return `−${formatPoints(f.pointsLost)} ${f.pointsLost === 1 ? 'point' : 'points'}`;
+  return 'no points lost';
+}
+
+function drawFinding(doc: Doc, f: Finding, submission: Submission | undefined): void {
+  const left = contentLeft(doc);
+  const width = contentWidth(doc);
+  // The headline and at least three lines of its message stay together.
+  ensureSpace(doc, 16 + 3 * 12);
+  const y = doc.y;
+  const style = SEVERITY_STYLE[f.severity];
+  marker(doc, style.shape, left + 5, y + 5.5, 6.5, style.color);
+  const word = SEVERITY_WORD[f.severity];
+  let x = left + INDENT;
+  x += drawRich(doc, word, x, y, { size: SIZE.body, bold: true, color: style.color });
+  x += drawRich(doc, `  ·  ${describePath(f.path, submission)}`, x, y, { size: SIZE.body, bold: true, color: COLOR.ink });
+  const codes = [f.code, ...(f.alsoCodes ?? [])].join(' + ') + (f.detail ? ` (${f.detail})` : '');
+  const right = pointsText(f);
+  const rightWidth = richWidth(doc, right, SIZE.small, f.pointsLost > 0);
+  drawRich(doc, right, left + width, y + 1, { size: SIZE.small, bold: f.pointsLost > 0, color: f.pointsLost > 0 ? COLOR.error : COLOR.muted, align: 'right' });
+  const codeRoom = left + width - rightWidth - 10 - (x + 8);
+  if (richWidth(doc, codes, SIZE.tiny) <= codeRoom) drawRich(doc, codes, x + 8, y + 2, { size: SIZE.tiny, color: COLOR.muted });
+  moveTo(doc, y + 13);
+  if (richWidth(doc, codes, SIZE.tiny) > codeRoom) paragraph(doc, codes, { size: SIZE.tiny, color: COLOR.muted, indent: INDENT, gap: 1 });
+  paragraph(doc, f.message, { indent: INDENT, gap: 7 });
+}
+
+/** The findings under each stage's heading, in the checker's order and words. */
+export function drawFindings(doc: Doc, result: CheckResult, submission: Submission | undefined): void {
+  sectionHeading(doc, 'Findings', 50);
+  if (result.findings.length === 0) {
+    paragraph(doc, 'No findings: every value checked agrees with the refit from your data within the tolerances.');
+    return;
+  }
+  for (const stage of STAGE_ORDER) {
+    const findings = result.findings.filter((f) => f.stage === stage);
+    if (findings.length === 0) continue;
+    ensureSpace(doc, 60);
+    const y = doc.y + 2;
+    drawRich(doc, STAGE_TITLES[stage], contentLeft(doc), y, { size: SIZE.subheading, bold: true, color: COLOR.accent });
+    const count = `${findings.length} ${findings.length === 1 ? 'finding' : 'findings'}`;
+    drawRich(doc, count, contentLeft(doc) + contentWidth(doc), y + 1.5, { size: SIZE.small, color: COLOR.muted, align: 'right' });
+    doc.save().moveTo(contentLeft(doc), y + 15).lineTo(contentLeft(doc) + contentWidth(doc), y + 15).lineWidth(0.4).strokeColor(COLOR.rule).stroke().restore();
+    moveTo(doc, y + 20);
+    for (const f of findings) drawFinding(doc, f, submission);
+  }
+}
+
+/** For a rejected submission: what could not be used, and why. */
+export function drawRejections(doc: Doc, result: CheckResult, submission: Submission | undefined): void {
+  sectionHeading(doc, 'Not checked', 50);
+  paragraph(doc, 'This submission could not be analysed, so it has not been scored. Each problem below names the field and the reason; once it is corrected the submission can be checked.');
+  for (const r of result.rejected ?? []) {
+    ensureSpace(doc, 30);
+    const y = doc.y;
+    marker(doc, 'square', contentLeft(doc) + 5, y + 5.5, 6.5, COLOR.error);
+    drawRich(doc, `Error  ·  ${describePath(r.path, submission)}`, contentLeft(doc) + INDENT, y, { size: SIZE.body, bold: true, color: COLOR.ink });
+    moveTo(doc, y + 13);
+    paragraph(doc, r.message, { indent: INDENT, gap: 7 });
+  }
+}

@@ -1,0 +1,57 @@
+import { formatDate } from '../format.ts';
+import { contentLeft, contentWidth, moveTo, type Doc } from '../pdf/document.ts';
+import { FONT } from '../pdf/fonts.ts';
+import { COLOR, SIZE } from '../pdf/theme.ts';
+import type { FeedbackHeader } from '../feedback-input.ts';
+import { LIKELY_CAUSES_NOTE } from '../feedback-input.ts';
+
+/** Title, the student's id, the grading's facts in a grid, and the note on what a diagnosis is. */
+export function drawHeader(doc: Doc, header: FeedbackHeader, engineVersion: string): void {
+  const left = contentLeft(doc);
+  const width = contentWidth(doc);
+  const top = doc.page.margins.top;
+  doc.save().rect(left, top, width, 3).fill(COLOR.accent).restore();
+
+  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.muted);
+  doc.text('RATEPROOF · KINETICS ANALYSIS', left, top + 10, { lineBreak: false, characterSpacing: 0.8 });
+  doc.font(FONT.bold).fontSize(SIZE.title).fillColor(COLOR.ink);
+  doc.text('Feedback sheet', left, top + 22, { lineBreak: false });
+
+  // The id in a box at the right: the one thing a student looks for first.
+  const idText = header.studentId;
+  doc.font(FONT.bold).fontSize(14);
+  const idWidth = Math.max(110, doc.widthOfString(idText) + 24);
+  const boxX = left + width - idWidth;
+  doc.save().roundedRect(boxX, top + 10, idWidth, 36, 3).fill(COLOR.accentLight).restore();
+  doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.accent);
+  doc.text('STUDENT ID', boxX + 12, top + 15, { lineBreak: false, characterSpacing: 0.6 });
+  doc.font(FONT.bold).fontSize(14).fillColor(COLOR.ink);
+  doc.text(idText, boxX + 12, top + 25, { lineBreak: false });
+
+  const facts: Array<[string, string]> = [
+    ['Course', header.course],
+    ['Section', header.section],
+    ['Assignment', header.assignment],
+    ['Graded', formatDate(header.gradedAt)],
+    ['Version', header.version === 1 ? '1 (first grading)' : `${header.version} (regraded)`],
+    ['Checker version', engineVersion],
+  ];
+  const gridTop = top + 58;
+  const columnWidth = width / 3;
+  // Values may take two lines (a long course name); a third is cut with an ellipsis.
+  const rowHeight = 9 + 2 * (SIZE.body + 2.5) + 4;
+  facts.forEach(([label, value], i) => {
+    const x = left + (i % 3) * columnWidth;
+    const y = gridTop + Math.floor(i / 3) * rowHeight;
+    doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(label.toUpperCase(), x, y, { lineBreak: false, characterSpacing: 0.5 });
+    doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOR.ink).text(value, x, y + 9, { width: columnWidth - 12, height: 2 * (SIZE.body + 2.5), ellipsis: true });
+  });
+
+  const noteTop = gridTop + 2 * rowHeight + 2;
+  doc.font(FONT.regular).fontSize(SIZE.small);
+  const noteHeight = doc.heightOfString(LIKELY_CAUSES_NOTE, { width: width - 24 }) + 12;
+  doc.save().rect(left, noteTop, width, noteHeight).fill(COLOR.panel).restore();
+  doc.save().rect(left, noteTop, 3, noteHeight).fill(COLOR.accent).restore();
+  doc.fillColor(COLOR.ink).text(LIKELY_CAUSES_NOTE, left + 12, noteTop + 6, { width: width - 24 });
+  moveTo(doc, noteTop + noteHeight + 6);
+}

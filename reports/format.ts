@@ -1,0 +1,87 @@
+import type { NumberLike } from '../schemas/common.ts';
+import type { Tolerance } from '../schemas/common.ts';
+
+/**
+ * Number and unit text as printed on the sheets: the true minus sign (U+2212), powers of ten and unit
+ * exponents as superscripts. Tests format with the same functions to find the printed figures.
+ */
+
+export const MINUS = '\u2212';
+
+const SUPERSCRIPTS: Record<string, string> = {
+  '-': '⁻', '+': '⁺', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹',
+};
+
+export function superscript(text: string): string {
+  return [...text].map((c) => SUPERSCRIPTS[c] ?? c).join('');
+}
+
+/** Hyphen-minus before a digit or a point becomes the minus sign. */
+export function withMinusSign(text: string): string {
+  return text.replace(/-(?=[\d.])/g, MINUS);
+}
+
+/**
+ * `figures` significant figures; plain between 0.001 and 100,000, else `2.003 × 10⁻⁴`.
+ * The same rule everywhere, so a test can compute what a sheet prints.
+ */
+export function formatNumber(value: number, figures = 4): string {
+  if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? `${MINUS}∞` : '—';
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  // toPrecision keeps trailing zeros that carry figures (0.02810); Number() would drop them.
+  const plain = value.toPrecision(figures);
+  if (magnitude >= 1e-3 && magnitude < 1e5 && !plain.includes('e')) return withMinusSign(plain);
+  const [mantissa, exponent] = value.toExponential(figures - 1).split('e');
+  return `${withMinusSign(mantissa)} × 10${superscript(String(Number(exponent)))}`;
+}
+
+/** A value as the student wrote it: a string keeps its digits, a number prints as JSON would. */
+export function formatReported(value: NumberLike | undefined | null): string {
+  if (value === undefined || value === null) return '—';
+  const text = typeof value === 'string' ? value.trim() : String(value);
+  return withMinusSign(text.replace(/e([-+]?\d+)$/i, (_, e: string) => ` × 10${superscript(String(Number(e)))}`));
+}
+
+/** value ± uncertainty; the uncertainty to 2 significant figures. */
+export function formatEstimate(value: number, uncertainty: number | undefined, figures = 4): string {
+  return uncertainty === undefined ? formatNumber(value, figures) : `${formatNumber(value, figures)} ± ${formatNumber(uncertainty, 2)}`;
+}
+
+/** Points as the checker counts them: at most 2 decimals, no trailing zeros. */
+export function formatPoints(points: number): string {
+  return withMinusSign(String(Number(points.toFixed(2))));
+}
+
+/** `min^-1` → `min⁻¹`, `dm^3` → `dm³`; other text unchanged. */
+export function prettyUnit(unit: string): string {
+  return unit.replace(/\^\(?([-+]?\d+)\)?/g, (_, e: string) => superscript(e)).replace(/\s+/g, ' ').trim();
+}
+
+/** `±1 %`, `±0.002`, or both (the larger applies, as the checker reads a tolerance). */
+export function formatTolerance(tolerance: Tolerance | undefined): string {
+  if (!tolerance) return '—';
+  const parts: string[] = [];
+  if (tolerance.relative !== undefined) parts.push(`±${formatNumber(tolerance.relative * 100, 3).replace(/\.?0+$/, '')} %`);
+  if (tolerance.absolute !== undefined) parts.push(`±${withMinusSign(String(tolerance.absolute))}`);
+  return parts.length === 2 ? `${parts[0]} or ${parts[1]}, the larger` : parts[0];
+}
+
+/** Relative difference of `value` from `reference` in per cent, signed; undefined when the reference is 0. */
+export function relativeDifference(value: number, reference: number): number | undefined {
+  return reference === 0 ? undefined : ((value - reference) / Math.abs(reference)) * 100;
+}
+
+export function formatPercent(percent: number | undefined): string {
+  if (percent === undefined || !Number.isFinite(percent)) return '—';
+  if (Math.abs(percent) < 0.005) return '0.00 %';
+  const text = Math.abs(percent) >= 100 ? percent.toFixed(0) : Math.abs(percent) >= 10 ? percent.toFixed(1) : percent.toFixed(2);
+  return `${percent > 0 ? '+' : ''}${withMinusSign(text)} %`;
+}
+
+/** `2024-03-05 14:07 UTC`: dates on the sheets are in UTC, so every reader sees the same time. */
+export function formatDate(date: Date | string): string {
+  const d = typeof date === 'string' ? new Date(date) : date;
+  if (Number.isNaN(d.getTime())) return String(date);
+  return `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}

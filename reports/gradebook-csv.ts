@@ -1,0 +1,61 @@
+import type { CheckResult } from '../schemas/result.ts';
+import { mainErrorCodes, severityCounts } from './result-summary.ts';
+
+/**
+ * The section's gradebook as CSV: one row per result.
+ *
+ * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the error
+ * findings' codes, most costly first, `;`-joined). A rejected result has an empty score.
+ *
+ * - RFC 4180: fields with a comma, a double quote, CR or LF are quoted, quotes doubled; lines end CRLF.
+ * - UTF-8; with `bom: true` a byte-order mark first, which Excel needs to read UTF-8.
+ * - Formula injection: a spreadsheet runs a cell that starts with `=`, `+`, `-`, `@`, tab or CR as a
+ *   formula. Every text cell (student_id, status, main_codes) that starts with one of them gets a
+ *   leading `'`, which spreadsheets show as text. Number cells are written by us from numbers and are
+ *   never prefixed: a negative number stays a number (-2 is data, not a formula). No cell of ours is
+ *   negative today, but a prefixed number would stop being one in every spreadsheet.
+ */
+export interface GradebookOptions {
+  bom?: boolean;
+}
+
+export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes'] as const;
+
+const FORMULA_START = /^[=+\-@\t\r]/;
+
+/** A text cell made safe to open in a spreadsheet. */
+export function neutraliseText(text: string): string {
+  return FORMULA_START.test(text) ? `'${text}` : text;
+}
+
+/** RFC 4180 quoting. */
+function quote(field: string): string {
+  return /[",\r\n]/.test(field) ? `"${field.replace(/"/g, '""')}"` : field;
+}
+
+type Cell = { text: string } | { number: number | null };
+
+function cellText(cell: Cell): string {
+  if ('text' in cell) return quote(neutraliseText(cell.text));
+  // Numbers as the shortest round-trip text, at most 2 decimals for points.
+  return cell.number === null ? '' : String(Number(cell.number.toFixed(2)));
+}
+
+function row(result: CheckResult): Cell[] {
+  const counts = severityCounts(result.findings);
+  return [
+    { text: result.studentId ?? '' },
+    { number: result.status === 'checked' ? result.score : null },
+    { number: result.maxScore },
+    { text: result.status },
+    { number: counts.errors },
+    { number: counts.warnings },
+    { number: counts.infos },
+    { text: mainErrorCodes(result.findings).join(';') },
+  ];
+}
+
+export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions = {}): string {
+  const lines = [GRADEBOOK_COLUMNS.join(','), ...results.map((r) => row(r).map(cellText).join(','))];
+  return `${options.bom ? '\uFEFF' : ''}${lines.join('\r\n')}\r\n`;
+}

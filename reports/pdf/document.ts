@@ -1,0 +1,115 @@
+import PDFDocument from 'pdfkit';
+import { registerFonts, FONT } from './fonts.ts';
+import { drawRich } from './rich-text.ts';
+import { COLOR, PAGE, SIZE } from './theme.ts';
+
+export type Doc = PDFKit.PDFDocument;
+
+export interface DocumentOptions {
+  title: string;
+  /** For the PDF's dates, so that the same input gives the same file. */
+  date: Date;
+}
+
+/** An A4 document with the sheet fonts, buffering pages so that footers can count them at the end. */
+export function createDocument(options: DocumentOptions): Doc {
+  const doc = new PDFDocument({
+    size: PAGE.size,
+    margins: { top: PAGE.margin, left: PAGE.margin, right: PAGE.margin, bottom: PAGE.margin + PAGE.footer },
+    bufferPages: true,
+    autoFirstPage: true,
+    // No default font: pdfkit would parse Helvetica's metrics for every document, and it is never used.
+    font: null as unknown as string,
+    info: { Title: options.title, Creator: 'Rateproof', Producer: 'Rateproof', CreationDate: options.date, ModDate: options.date },
+    lang: 'en',
+  });
+  registerFonts(doc);
+  doc.fillColor(COLOR.ink).fontSize(SIZE.body);
+  return doc;
+}
+
+/** The bytes of `doc` once ended. Call before `finish`. */
+export function collect(doc: Doc): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  return new Promise((resolve, reject) => {
+    doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+}
+
+export const contentLeft = (doc: Doc): number => doc.page.margins.left;
+export const contentWidth = (doc: Doc): number => doc.page.width - doc.page.margins.left - doc.page.margins.right;
+export const contentBottom = (doc: Doc): number => doc.page.height - doc.page.margins.bottom;
+
+/** Starts a new page when fewer than `height` points are left; returns the top to draw at. */
+export function ensureSpace(doc: Doc, height: number): number {
+  if (doc.y + height > contentBottom(doc)) {
+    doc.addPage();
+  }
+  return doc.y;
+}
+
+/** Moves the cursor to the left margin at `y`. */
+export function moveTo(doc: Doc, y: number): void {
+  doc.x = contentLeft(doc);
+  doc.y = y;
+}
+
+/** A section title (sub/superscript markup allowed) with a short rule under it; keeps `keepWith` points of what follows on the same page. */
+export function sectionHeading(doc: Doc, title: string, keepWith = 60): void {
+  const top = ensureSpace(doc, 28 + keepWith);
+  const y = top + (top > doc.page.margins.top + 1 ? 10 : 0);
+  drawRich(doc, title, contentLeft(doc), y, { size: SIZE.heading, bold: true, color: COLOR.ink });
+  const ruleY = y + SIZE.heading + 4;
+  doc.save().moveTo(contentLeft(doc), ruleY).lineTo(contentLeft(doc) + 36, ruleY).lineWidth(2).strokeColor(COLOR.accent).stroke().restore();
+  doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOR.ink);
+  moveTo(doc, ruleY + 8);
+}
+
+/**
+ * Plain wrapped text over the content width (less `indent`), advancing the cursor. At least three
+ * lines stay with what comes before; the rest flows onto the next page as pdfkit wraps it.
+ */
+export function paragraph(doc: Doc, text: string, options: { size?: number; color?: string; bold?: boolean; indent?: number; gap?: number } = {}): void {
+  const indent = options.indent ?? 0;
+  const size = options.size ?? SIZE.body;
+  doc.font(options.bold ? FONT.bold : FONT.regular).fontSize(size).fillColor(options.color ?? COLOR.ink);
+  // Measuring the paragraph first would wrap it twice; three lines' room is all that is needed.
+  ensureSpace(doc, 3 * (size * 1.17 + 1.5));
+  doc.text(text, contentLeft(doc) + indent, doc.y, { width: contentWidth(doc) - indent, lineGap: 1.5 });
+  doc.fillColor(COLOR.ink).font(FONT.regular).fontSize(SIZE.body);
+  doc.x = contentLeft(doc);
+  doc.y += options.gap ?? 4;
+}
+
+export interface FooterLines {
+  left: string;
+  /** Printed on every page when set: the data are invented, not students' work. */
+  invented?: string;
+}
+
+/** Writes each page's footer (with "page i of n") and ends the document. */
+export function finish(doc: Doc, footer: FooterLines): void {
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    const bottom = doc.page.margins.bottom;
+    // Text below the bottom margin would start a new page: lift the margin while writing the footer.
+    doc.page.margins.bottom = 0;
+    const left = contentLeft(doc);
+    const width = contentWidth(doc);
+    const y = doc.page.height - PAGE.margin - PAGE.footer + 10;
+    doc.save().moveTo(left, y - 5).lineTo(left + width, y - 5).lineWidth(0.5).strokeColor(COLOR.rule).stroke().restore();
+    doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.muted);
+    doc.text(footer.left, left, y, { lineBreak: false, width: width - 80 });
+    const pageText = `page ${i - range.start + 1} of ${range.count}`;
+    doc.text(pageText, left + width - doc.widthOfString(pageText), y, { lineBreak: false });
+    if (footer.invented) {
+      doc.font(FONT.bold).fillColor(COLOR.student);
+      doc.text(footer.invented, left, y + SIZE.small + 4, { lineBreak: false });
+    }
+    doc.page.margins.bottom = bottom;
+  }
+  doc.end();
+}

@@ -1,0 +1,137 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { INVENTED_NOTE, LIKELY_CAUSES_NOTE } from '../../reports/feedback-input.ts';
+import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { formatNumber, formatPoints } from '../../reports/format.ts';
+import { readRefit } from '../../reports/refit.ts';
+import { feedbackInput, section, type Section, type Student } from './fixtures.ts';
+import { folded, pageCount, pagePng, pdfFonts, pdfText, PNG_SIGNATURE, pngSize } from './poppler.ts';
+
+// Invented data: the seeded generator's section, one clean student and one slip each.
+let s: Section;
+const student = (id: string): Student => s.students.find((x) => x.submission.studentId === id)!;
+
+beforeAll(() => {
+  s = section(7, [undefined, 'log-base', 'suspect-reading', 'concentration-unit'], { reference: true });
+});
+
+async function render(id: string, invented = true) {
+  const pdf = await renderFeedbackSheet(feedbackInput(s.settings, student(id), invented));
+  const text = await pdfText(pdf);
+  return { pdf, text, flat: folded(text) };
+}
+
+describe('renderFeedbackSheet', () => {
+  it('prints the id, the score, the refit values as formatted, and the likely-cause note', async () => {
+    const { result } = student('S-002');
+    const { pdf, text, flat } = await render('S-002');
+    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    expect(text).toContain('S-002');
+    expect(flat).toContain(`${formatPoints(result.score!)} / ${formatPoints(result.maxScore)}`);
+    const refit = readRefit(result)!;
+    expect(text).toContain(formatNumber(refit.runs[0].k.instructor.value));
+    expect(text).toContain(formatNumber(refit.kA!.value));
+    expect(flat).toContain(folded(LIKELY_CAUSES_NOTE));
+  });
+
+  it('prints every finding in the checker’s words, with its severity in text', async () => {
+    const { result } = student('S-002');
+    const { flat } = await render('S-002');
+    for (const f of result.findings) expect(flat).toContain(folded(f.message.slice(0, 60)));
+    expect(flat).toContain('log10');
+    for (const word of ['Error', 'Warning', 'Info']) expect(flat).toContain(`${word} · `);
+    expect(flat).toMatch(/−1 point/);
+  });
+
+  it('groups findings by stage and names the rubric items the score is made of', async () => {
+    const { flat } = await render('S-004');
+    expect(flat).toMatch(/Rate law: k ?N and k ?A/);
+    expect(flat).toContain('mM');
+    expect(flat).toMatch(/Standard error of k ?A/);
+    expect(flat).toMatch(/Rubric item Worth Available Lost Earned/);
+  });
+
+  it('renders Greek letters, superscripts, subscripts, the minus and degree signs in an embedded DejaVu font', async () => {
+    const { pdf, text } = await render('S-002');
+    for (const symbol of ['α', '∞', '⁻¹', '±', '°C', '\u2212']) expect(text).toContain(symbol);
+    expect(text).toMatch(/k\s?obs/);
+    const fonts = await pdfFonts(pdf);
+    expect(fonts).toMatch(/DejaVuSans/);
+    expect(fonts).not.toMatch(/Helvetica|Times|Courier/);
+    // Every font is embedded (the "emb" column).
+    for (const line of fonts.split('\n').slice(2).filter((l) => l.trim())) expect(line).toMatch(/\byes\b/);
+  });
+
+  it('draws residuals where a reading looks suspect, and only there', async () => {
+    const suspect = await render('S-003');
+    expect(suspect.flat).toContain('Residuals where a reading looks suspect');
+    expect(suspect.flat).toMatch(/reading \d+: /);
+    expect((await render('S-001')).flat).not.toContain('Residuals where');
+  });
+
+  it('labels invented data in the footer of every page, and only when told', async () => {
+    const invented = await render('S-002');
+    const pages = await pageCount(invented.pdf);
+    expect(pages).toBeGreaterThan(1);
+    expect(invented.flat.split(INVENTED_NOTE).length - 1).toBe(pages);
+    expect(invented.flat).toContain(`page ${pages} of ${pages}`);
+    expect((await render('S-002', false)).flat).not.toContain(INVENTED_NOTE);
+  });
+
+  it('is a valid document: page 1 renders to PNG at 50 dpi', async () => {
+    const { pdf } = await render('S-001');
+    const png = await pagePng(pdf, 1, 50);
+    expect(png.subarray(0, 8).equals(PNG_SIGNATURE)).toBe(true);
+    // A4 at 50 dpi: 8.27 x 11.69 in.
+    const { width, height } = pngSize(png);
+    expect(Math.abs(width - 413)).toBeLessThanOrEqual(1);
+    expect(Math.abs(height - 585)).toBeLessThanOrEqual(1);
+  });
+
+  it('reads a result that went through JSON (non-finite numbers became null)', async () => {
+    const { submission, result } = student('S-002');
+    const refit = structuredClone(result.refit) as { runs: Array<Record<string, unknown>> };
+    refit.runs[0].halfLife = { value: 20, standardError: 1, ci95: [18, Infinity], unit: 'min' };
+    const roundTripped = JSON.parse(JSON.stringify({ ...result, refit }));
+    const text = await pdfText(await renderFeedbackSheet(feedbackInput(s.settings, { submission, result: roundTripped })));
+    expect(text).toContain(formatNumber(readRefit(result)!.runs[0].k.instructor.value));
+    expect(folded(text)).toContain('ln F against t, run by run');
+  });
+
+  it('gives the same bytes for the same input', async () => {
+    const input = feedbackInput(s.settings, student('S-003'));
+    expect((await renderFeedbackSheet(input)).equals(await renderFeedbackSheet(structuredClone(input)))).toBe(true);
+  });
+
+  it('renders sheets concurrently with the same bytes as one at a time (fonts and caches are shared)', async () => {
+    const inputs = s.students.map((x) => feedbackInput(s.settings, x));
+    const together = await Promise.all(inputs.map((input) => renderFeedbackSheet(input)));
+    for (const [i, input] of inputs.entries()) expect(together[i].equals(await renderFeedbackSheet(input))).toBe(true);
+  });
+
+  it('explains a rejected submission instead of scoring it', async () => {
+    const broken = { ...structuredClone(student('S-001').submission), studentId: 'S-099' };
+    broken.runs[0].readings = broken.runs[0].readings.slice(0, 2);
+    const result = checkSubmission(parseAssignment(s.settings), broken);
+    expect(result.status).toBe('rejected');
+    const pdf = await renderFeedbackSheet({ ...feedbackInput(s.settings, { submission: broken, result }), invented: true });
+    const flat = folded(await pdfText(pdf));
+    expect(flat).toContain('S-099');
+    expect(flat).toContain('Not checked');
+    expect(result.rejected![0].path).toBe('runs[0].readings');
+    expect(flat).toContain(`Run “${broken.runs[0].label}”, readings`);
+    expect(flat).toContain(result.rejected![0].message);
+    expect(flat).toContain(folded(LIKELY_CAUSES_NOTE));
+  });
+
+  it('renders a class-dataset assignment with the intercept model and a transcription slip', async () => {
+    const other = section(11, ['transcription'], { classDataset: true, fitModel: 'intercept' });
+    const { settings, students } = other;
+    const pdf = await renderFeedbackSheet(feedbackInput(settings, students[0]));
+    const flat = folded(await pdfText(pdf));
+    expect(students[0].result.findings.map((f) => f.code)).toContain('transcription');
+    expect(flat).toContain('Readings match the class data');
+    expect(flat).toContain('with an intercept');
+    for (const f of students[0].result.findings) expect(flat).toContain(folded(f.message.slice(0, 60)));
+  });
+});

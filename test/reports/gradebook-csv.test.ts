@@ -1,0 +1,75 @@
+import { parse } from 'csv-parse/sync';
+import { describe, expect, it } from 'vitest';
+import type { CheckResult, Finding, FindingCode } from '../../schemas/result.ts';
+import { GRADEBOOK_COLUMNS, gradebookCsv, neutraliseText } from '../../reports/gradebook-csv.ts';
+
+function finding(code: string, severity: Finding['severity'], pointsLost: number): Finding {
+  return { id: `${code}@x`, code: code as FindingCode, stage: 'run', path: 'x', severity, pointsLost, message: 'm' };
+}
+
+function result(studentId: string | null, findings: Finding[] = [], score: number | null = 20): CheckResult {
+  return { studentId, status: score === null ? 'rejected' : 'checked', score, maxScore: 22, refit: null, findings, engineVersion: 'test' };
+}
+
+const rows = (csv: string): string[][] => parse(csv, { bom: true, relax_column_count: false }) as string[][];
+
+describe('gradebookCsv', () => {
+  it('one row per student with the counts and the error codes, most costly first', () => {
+    const csv = gradebookCsv([
+      result('S-001', [
+        finding('sig-figs', 'error', 0.5),
+        finding('log-base', 'error', 1),
+        finding('carried-forward', 'info', 0),
+        finding('implausible', 'warning', 0),
+        finding('time-unit', 'error', 2),
+        finding('log-base', 'error', 1.5),
+      ], 17.5),
+      result('S-002', [], null),
+    ]);
+    expect(rows(csv)).toEqual([
+      [...GRADEBOOK_COLUMNS],
+      ['S-001', '17.5', '22', 'checked', '4', '1', '1', 'log-base;time-unit;sig-figs'],
+      ['S-002', '', '22', 'rejected', '0', '0', '0', ''],
+    ]);
+  });
+
+  it('ends every line with CRLF and adds a BOM only when asked', () => {
+    const plain = gradebookCsv([result('S-001')]);
+    expect(plain.startsWith('student_id,')).toBe(true);
+    expect(plain.endsWith('\r\n')).toBe(true);
+    expect(plain.split('\r\n')).toHaveLength(3);
+    expect(gradebookCsv([result('S-001')], { bom: true }).startsWith('\uFEFFstudent_id,')).toBe(true);
+  });
+
+  it.each([
+    ['=HYPERLINK("http://example.invalid","x")', `'=HYPERLINK("http://example.invalid","x")`],
+    ['+1', `'+1`],
+    ['-2', `'-2`],
+    ['@x', `'@x`],
+    ['\tA', `'\tA`],
+    ['\rA', `'\rA`],
+    ['S-001', 'S-001'],
+    ["'already", "'already"],
+  ])('a hostile id %j is read back as text %j', (id, expected) => {
+    const [, row] = rows(gradebookCsv([result(id)]));
+    expect(row[0]).toBe(expected);
+  });
+
+  it('quotes fields with commas, quotes and line breaks (RFC 4180)', () => {
+    const csv = gradebookCsv([result('a,b'), result('say "hi"'), result('two\nlines')]);
+    expect(csv).toContain('"a,b",');
+    expect(csv).toContain('"say ""hi""",');
+    expect(rows(csv).slice(1).map((r) => r[0])).toEqual(['a,b', 'say "hi"', 'two\nlines']);
+  });
+
+  it('neutralises a hostile code list as one text cell', () => {
+    const [, row] = rows(gradebookCsv([result('S-001', [finding('-cmd|calc', 'error', 2), finding('=1+1', 'error', 1)])]));
+    expect(row[7]).toBe(`'-cmd|calc;=1+1`);
+  });
+
+  it('leaves number cells as numbers: a negative score is not prefixed', () => {
+    const [, row] = rows(gradebookCsv([result('S-001', [], -2)]));
+    expect(row[1]).toBe('-2');
+    expect(neutraliseText('-2')).toBe(`'-2`);
+  });
+});

@@ -1,0 +1,73 @@
+import { describe, expect, it } from 'vitest';
+import type { CheckResult } from '../../schemas/result.ts';
+import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
+import { formatNumber } from '../../reports/format.ts';
+import { renderSectionSummary } from '../../reports/section-summary.ts';
+import { needAttention } from '../../reports/summary/attention.ts';
+import { classValues } from '../../reports/summary/class-values.ts';
+import { codeCounts } from '../../reports/summary/code-counts.ts';
+import { percentBins, spread } from '../../reports/summary/stats.ts';
+import { GRADED_AT, section } from './fixtures.ts';
+import { folded, pagePng, pdfText, PNG_SIGNATURE } from './poppler.ts';
+
+// An invented section: clean students and one slip each.
+const slips = [undefined, undefined, 'log-base', 'concentration-unit', 'sign-flipped', 'suspect-reading', 'missing-value', undefined] as const;
+const s = section(21, [...slips], { reference: true });
+const results = s.students.map((x) => x.result);
+const submissions = s.students.map((x) => x.submission);
+const header = { course: 'Kinetics laboratory (invented)', section: 'Thursday B', assignment: 'Mutarotation kinetics', gradedAt: GRADED_AT };
+
+describe('section summary figures', () => {
+  it('spread: mean, sample SD, median', () => {
+    expect(spread([1, 2, 3, 4])).toEqual({ n: 4, mean: 2.5, sd: Math.sqrt(5 / 3), median: 2.5, min: 1, max: 4 });
+    expect(spread([])).toBeUndefined();
+  });
+
+  it('percent bins: ten bands, 100 % in the last', () => {
+    expect(percentBins([0, 0.05, 0.1, 0.95, 1])).toEqual([2, 1, 0, 0, 0, 0, 0, 0, 0, 2]);
+  });
+
+  it('counts students per finding code, and lists who needs attention first', () => {
+    const counts = codeCounts(results);
+    expect(counts.find((c) => c.code === 'log-base')).toMatchObject({ students: 1, asError: 1 });
+    const rejected: CheckResult = { ...results[0], studentId: 'S-900', status: 'rejected', score: null, findings: [], refit: null };
+    const list = needAttention([...results, rejected]);
+    expect(list[0].studentId).toBe('S-900');
+    expect(list.map((r) => r.studentId)).not.toContain('S-001');
+  });
+
+  it('takes k_N and k_A from the refit and, given the submissions, as reported', () => {
+    const [kN, kA] = classValues(s.settings, results, submissions);
+    expect(kN.refit).toHaveLength(results.length);
+    expect(kA.reported).toHaveLength(results.length - 1); // one left k_A out
+    expect(kA.band).toEqual({ min: 0.1, max: 0.4 });
+    expect(classValues(s.settings, results, undefined)[0].reported).toEqual([]);
+  });
+});
+
+describe('renderSectionSummary', () => {
+  it('prints the section, the spread of k_A, the codes and the ids needing attention', async () => {
+    const pdf = await renderSectionSummary({ header, settings: s.settings, results, submissions, invented: true });
+    const text = folded(await pdfText(pdf));
+    expect(text).toContain('Thursday B');
+    expect(text).toContain('Score distribution');
+    const kA = spread(classValues(s.settings, results, submissions)[1].refit)!;
+    expect(text).toContain(formatNumber(kA.mean));
+    expect(text).toContain(formatNumber(kA.median));
+    expect(text).toContain('0.100 to 0.400');
+    for (const code of ['log-base', 'concentration-unit', 'sign-flipped', 'missing-value']) expect(text).toContain(code);
+    for (const r of needAttention(results)) expect(text).toContain(r.studentId!);
+    expect(text).toMatch(/⁻¹/);
+    expect(text).toContain(INVENTED_NOTE);
+    const png = await pagePng(pdf, 1, 50);
+    expect(png.subarray(0, 8).equals(PNG_SIGNATURE)).toBe(true);
+  });
+
+  it('works without submissions, and with nothing checked', async () => {
+    const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results })));
+    expect(text).toContain('not given for this summary');
+    expect(text).not.toContain(INVENTED_NOTE);
+    const none = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results: [] })));
+    expect(none).toContain('No submission could be checked.');
+  });
+});
