@@ -2,8 +2,8 @@ import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../server/app.ts';
 import { checkBatch, parseAssignment } from '../../server/checks/check.ts';
 import { ADMIN_TOKEN, call, testConfig } from '../support/api-fixture.ts';
-import { seededRandom } from '../support/seeded-random.ts';
-import { assignmentSettings, generateAssignment, generateSubmission } from '../support/submission-generator.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { assignmentSettings, generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
 import { openTestDatabase } from '../support/test-database.ts';
 
 /**

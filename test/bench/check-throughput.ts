@@ -1,6 +1,6 @@
 import { findingCodes, type FindingCode } from '../../schemas/result.ts';
 import { checkBatch, checkSubmission, parseAssignment } from '../../server/checks/check.ts';
-import { seededRandom } from '../support/seeded-random.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 import {
   atExpectedPath,
   generateAssignment,
@@ -8,7 +8,7 @@ import {
   slipCase,
   slipCodes,
   type SlipCode,
-} from '../support/submission-generator.ts';
+} from '../../server/demo/submission-generator.ts';
 
 /**
  * The checker on generated submissions (an invented scenario, see the generator): (a) which codes it

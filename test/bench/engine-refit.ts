@@ -2,8 +2,8 @@ import { fitCatalysisLaw } from '../../server/engine/catalysis-law.ts';
 import { fitTransformed } from '../../server/engine/first-order-linear.ts';
 import { fitFirstOrderNonlinear } from '../../server/engine/first-order-nonlinear.ts';
 import { firstOrderTransform } from '../../server/engine/first-order-run.ts';
-import { minutes, syntheticReadings } from '../support/first-order-data.ts';
-import { seededRandom } from '../support/seeded-random.ts';
+import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 
 /**
  * Engine throughput: full refits per second of a standard submission (4 runs x 16 readings plus

@@ -1,5 +1,5 @@
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
-import { slipCodes } from '../support/submission-generator.ts';
+import { slipCodes } from '../../server/demo/submission-generator.ts';
 import { feedbackInput, section } from '../reports/fixtures.ts';
 
 /**

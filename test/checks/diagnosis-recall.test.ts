@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
-import { cleanCase, isFound, slipCase, slipCodes, type ExpectedFinding } from '../support/submission-generator.ts';
+import { cleanCase, isFound, slipCase, slipCodes, type ExpectedFinding } from '../../server/demo/submission-generator.ts';
 
 /**
  * Recall of the checker's diagnoses on generated submissions (invented data, see the generator): for

@@ -3,7 +3,7 @@ import { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.
 import { fitFirstOrderLinear } from '../../server/engine/first-order-linear.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
 import { parseUnit } from '../../server/engine/units.ts';
-import { seededRandom } from '../support/seeded-random.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 import {
   assignmentSettings,
   assignmentVariants,
@@ -15,7 +15,7 @@ import {
   slipCodes,
   toFigures,
   type SlipCode,
-} from '../support/submission-generator.ts';
+} from '../../server/demo/submission-generator.ts';
 
 /** The clean submission a slip case started from: same seed stream, drawn the same way. */
 function cleanAndSlipped(code: SlipCode, seed: number, options = {}) {
@@ -56,17 +56,20 @@ describe('submission generator: clean submissions', () => {
     }
   });
 
-  it('reports k as the engine refit (4 s.f., SE 2 s.f.) and k_N, k_A from the reported k', () => {
+  it('reports k as the engine refit (SE to 2 s.f., the value to the same place) and k_N, k_A from the reported k', () => {
     for (const seed of [0, 1, 2, 3, 4, 5, 6, 7]) {
       const { settings, submission } = cleanCase(seed);
       for (const run of submission.runs) {
         const times = run.readings.map(([t]) => t);
         const fit = fitFirstOrderLinear({ times, readings: run.readings.map(([, x]) => x), timeUnit: 'min', infinity: run.infinity! }, settings.fitModel);
-        expect(run.reported!.k).toEqual({ value: toFigures(fit.k.value, 4), uncertainty: toFigures(fit.k.standardError, 2), unit: 'min^-1' });
+        const se = toFigures(fit.k.standardError, 2);
+        // The value rounded to the uncertainty's last place: 2 figures of the SE.
+        const places = 1 - Math.floor(Math.log10(se));
+        expect(run.reported!.k).toEqual({ value: Number(fit.k.value.toFixed(places)), uncertainty: se, unit: 'min^-1' });
         expect(run.reported!.lnF).toEqual(fit.transform.lnF.map((v) => Math.round(v * 1e4) / 1e4));
       }
       const line = fitLine(submission.runs.map((r) => r.catalyst.value), kValues(submission));
-      expect(submission.reported!.kA!.value).toBe(toFigures(line.slope, 4));
+      expect(submission.reported!.kA!.value).toBe(Number(line.slope.toFixed(1 - Math.floor(Math.log10(toFigures(line.seSlope, 2))))));
       expect(submission.reported!.kN!.uncertainty).toBe(toFigures(line.seIntercept, 2));
     }
   });

@@ -3,8 +3,8 @@ import type { Estimate } from '../../server/engine/estimate.ts';
 import { fitFirstOrderLinear } from '../../server/engine/first-order-linear.ts';
 import { fitFirstOrderNonlinear } from '../../server/engine/first-order-nonlinear.ts';
 import { fitGuggenheim } from '../../server/engine/guggenheim.ts';
-import { minutes, syntheticReadings } from '../support/first-order-data.ts';
-import { seededRandom } from '../support/seeded-random.ts';
+import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 
 /**
  * Coverage of the reported 95 % intervals: on 1,000 seeded runs of known k, the share whose interval

@@ -4,7 +4,7 @@ import { fitFirstOrderNonlinear } from '../../server/engine/first-order-nonlinea
 import { firstOrderTransform } from '../../server/engine/first-order-run.ts';
 import { fitGuggenheim } from '../../server/engine/guggenheim.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
-import { minutes, syntheticReadings } from '../support/first-order-data.ts';
+import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
 import { thrown } from '../support/thrown.ts';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);

@@ -2,7 +2,7 @@ import MLR from 'ml-regression-multivariate-linear';
 import { describe, expect, it } from 'vitest';
 import { fitLine, fitThroughOrigin } from '../../server/engine/linear-fit.ts';
 import { tCritical95 } from '../../server/engine/student-t.ts';
-import { seededRandom } from '../support/seeded-random.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { thrown } from '../support/thrown.ts';
 
 const codeOf = (f: () => unknown) => {

@@ -3,7 +3,7 @@ import { Settings } from '../../schemas/kinds/first-order-catalysis.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { rubricBreakdown } from '../../reports/feedback/rubric-breakdown.ts';
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
-import { slipCase, slipCodes } from '../support/submission-generator.ts';
+import { slipCase, slipCodes } from '../../server/demo/submission-generator.ts';
 import { feedbackInput } from './fixtures.ts';
 import { folded, pdfText } from './poppler.ts';
 

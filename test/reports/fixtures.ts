@@ -2,8 +2,8 @@ import type { Settings, Submission } from '../../schemas/kinds/first-order-catal
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import type { FeedbackInput } from '../../reports/feedback-input.ts';
-import { seededRandom } from '../support/seeded-random.ts';
-import { generateAssignment, generateSubmission, inject, type AssignmentOptions, type SlipCode } from '../support/submission-generator.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { generateAssignment, generateSubmission, inject, type AssignmentOptions, type SlipCode } from '../../server/demo/submission-generator.ts';
 
 /**
  * Feedback inputs from the seeded generator (invented data, pseudonymous ids): a section of one

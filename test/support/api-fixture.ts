@@ -1,8 +1,8 @@
 import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../server/app.ts';
 import type { Config } from '../../server/config.ts';
-import { assignmentSettings, generateAssignment, generateSubmission } from './submission-generator.ts';
-import { seededRandom } from './seeded-random.ts';
+import { assignmentSettings, generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { openTestDatabase, type TestDatabase } from './test-database.ts';
 
 export const ADMIN_TOKEN = 'admin-token-for-tests-only-0123456789';

@@ -1,10 +1,10 @@
 import { KIND, Settings, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { ReportedValue } from '../../schemas/common.ts';
 import { findingCodes, type Finding, type FindingCode } from '../../schemas/result.ts';
-import { EngineError } from '../../server/engine/engine-error.ts';
-import { fitLine, fitLineModel, type LineFit, type LineModel } from '../../server/engine/linear-fit.ts';
-import { tCritical95 } from '../../server/engine/student-t.ts';
-import { minutes, syntheticReadings } from './first-order-data.ts';
+import { EngineError } from '../engine/engine-error.ts';
+import { fitLine, fitLineModel, type LineFit, type LineModel } from '../engine/linear-fit.ts';
+import { tCritical95 } from '../engine/student-t.ts';
+import { minutes, syntheticReadings } from './synthetic-run.ts';
 import { gaussian, seededRandom } from './seeded-random.ts';
 
 /**
@@ -172,8 +172,9 @@ function setColumn(run: SubmittedRun, column: Array<number | null>): void {
   run.reported = { ...run.reported, lnF: column.map((v) => (v === null ? null : toPlaces(v, 4))) };
 }
 
+/** A careful student's rounding: the uncertainty to 2 significant figures, the value to its last place. */
 function reportedValue(value: number, uncertainty: number, unit: string): ReportedValue {
-  return { value: toFigures(value, 4), uncertainty: toFigures(uncertainty, 2), unit };
+  return { value: toPlaces(value, placesFor(uncertainty, 2)), uncertainty: toFigures(uncertainty, 2), unit };
 }
 
 function setK(run: SubmittedRun, value: number, uncertainty: number, unit: string): void {
