@@ -8,7 +8,7 @@ export interface FeedbackHeader {
   assignment: string;
   /** Pseudonymous id only; names never reach a sheet. */
   studentId: string;
-  /** Grading version: 1 for the first grading, +1 for each regrade. */
+  /** The submission's version: 1 for the first, +1 for each resubmission. */
   version: number;
   gradedAt: Date | string;
 }

@@ -33,7 +33,7 @@ export function drawHeader(doc: Doc, header: FeedbackHeader, engineVersion: stri
     ['Section', header.section],
     ['Assignment', header.assignment],
     ['Graded', formatDate(header.gradedAt)],
-    ['Version', header.version === 1 ? '1 (first grading)' : `${header.version} (regraded)`],
+    ['Submission version', header.version === 1 ? '1 (first submission)' : `${header.version} (resubmitted)`],
     ['Checker version', engineVersion],
   ];
   const gridTop = top + 58;

@@ -1,9 +1,10 @@
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
+import { reportRoutes } from './reports.ts';
 import { resultRoutes } from './results.ts';
 import { rosterRoutes } from './rosters.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { submissionRoutes } from './submissions.ts';
 
 /** Every route of the API, registered explicitly in this order. */
-export const routes: RouteSpec[] = [...courseRoutes, ...rosterRoutes, ...assignmentRoutes, ...submissionRoutes, ...resultRoutes];
+export const routes: RouteSpec[] = [...courseRoutes, ...rosterRoutes, ...assignmentRoutes, ...submissionRoutes, ...resultRoutes, ...reportRoutes];

@@ -95,6 +95,7 @@ const resultColumns = [
   'results.submission_id as submissionId',
   'results.engine_version as engineVersion',
   'results.settings_version as settingsVersion',
+  'results.settings as settings',
   'results.status as status',
   'results.score as score',
   'results.max_score as maxScore',

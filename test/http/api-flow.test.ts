@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApi, call, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
+import { zipEntryNames } from '../support/zip-entries.ts';
 
 // The same flow on a PostgreSQL server and once on the embedded engine (PGlite).
 describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
@@ -100,6 +101,20 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     });
     expect(res.statusCode, res.body).toBe(201);
     expect(res.json().stored[0]).toMatchObject({ studentId: 'S-006', version: 1, status: 'checked' });
+  });
+
+  it('serves feedback sheets, the section ZIP, the summary and the gradebook', async () => {
+    const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
+    const pdf = await api.app.inject({ method: 'GET', url: `/v1/submissions/${table.body[0].submissionId}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect([pdf.statusCode, pdf.headers['content-type'], pdf.rawPayload.subarray(0, 5).toString()]).toEqual([200, 'application/pdf', '%PDF-']);
+    const zip = await api.app.inject({ method: 'GET', url: `${url()}/feedback.zip`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect(zip.statusCode).toBe(200);
+    expect(await zipEntryNames(zip.rawPayload)).toEqual(table.body.filter((r: { status: string }) => r.status === 'checked').map((r: { studentId: string }) => `${r.studentId}.pdf`));
+    const summary = await api.app.inject({ method: 'GET', url: `${url()}/summary.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect(summary.rawPayload.subarray(0, 5).toString()).toBe('%PDF-');
+    const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv?bom=true`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect(csv.body.startsWith('\uFEFFstudent_id,score,max_score')).toBe(true);
+    expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
   });
 
   it('serves its OpenAPI document', async () => {

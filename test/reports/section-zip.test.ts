@@ -1,31 +1,9 @@
 import { buffer } from 'node:stream/consumers';
 import { describe, expect, it } from 'vitest';
-import yauzl from 'yauzl';
 import { sectionZip, type ZipEntry } from '../../reports/section-zip.ts';
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
 import { feedbackInput, section } from './fixtures.ts';
-
-/** Name and bytes of every entry of a ZIP held in memory. */
-function unzip(zip: Buffer): Promise<Array<{ name: string; data: Buffer }>> {
-  return new Promise((resolve, reject) => {
-    yauzl.fromBuffer(zip, { lazyEntries: true }, (error, file) => {
-      if (error || !file) return reject(error);
-      const entries: Array<{ name: string; data: Buffer }> = [];
-      file.on('entry', (entry: yauzl.Entry) => {
-        file.openReadStream(entry, (err, stream) => {
-          if (err || !stream) return reject(err);
-          buffer(stream).then((data) => {
-            entries.push({ name: entry.fileName, data });
-            file.readEntry();
-          }, reject);
-        });
-      });
-      file.on('end', () => resolve(entries));
-      file.on('error', reject);
-      file.readEntry();
-    });
-  });
-}
+import { unzip } from '../support/zip-entries.ts';
 
 describe('sectionZip', () => {
   it('holds one feedback PDF per student, named by id, from an async source', async () => {

@@ -1,0 +1,65 @@
+import type { Kysely } from 'kysely';
+import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { CheckResult } from '../../schemas/result.ts';
+import type { FeedbackInput } from '../../reports/feedback-input.ts';
+import type { Database } from '../store/database.ts';
+import { reportNames } from '../store/names.ts';
+import { getSubmission, latestResults, latestSubmissions, overridesOf, type SubmissionRow } from '../store/submissions.ts';
+import { assignmentOf } from './assignment-of.ts';
+import { effectiveResult, type EffectiveResult } from './effective-result.ts';
+
+/**
+ * What the reports are made from, read from the store: each submission's latest result with the
+ * TAs' overrides applied, the settings that result used, and the names for the header.
+ */
+function asCheckResult(studentId: string, r: EffectiveResult): CheckResult {
+  return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, refit: r.refit as CheckResult['refit'], findings: r.findings, rejected: r.rejected, engineVersion: r.engineVersion };
+}
+
+async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], sectionId: number, assignmentId: number): Promise<FeedbackInput[]> {
+  if (rows.length === 0) return [];
+  const names = await reportNames(db, sectionId, assignmentId);
+  const ids = rows.map((r) => r.submissionId);
+  const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
+  const overrides = await overridesOf(db, ids);
+  // Results of one settings version share their parsed settings.
+  const checkers = new Map<number, ReturnType<typeof assignmentOf>>();
+  const out: FeedbackInput[] = [];
+  for (const row of rows) {
+    const stored = results.get(row.submissionId);
+    if (!stored || stored.status !== 'checked') continue;
+    const checker = checkers.get(stored.settingsVersion) ?? assignmentOf(stored.settings, 'settings');
+    checkers.set(stored.settingsVersion, checker);
+    const result = asCheckResult(row.studentId, effectiveResult(stored, overrides));
+    out.push({
+      header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt },
+      settings: checker.settings as Settings,
+      submission: checker.kind.submissionSchema.parse(row.payload) as Submission,
+      result,
+    });
+  }
+  return out;
+}
+
+export async function submissionFeedback(db: Kysely<Database>, submissionId: number): Promise<FeedbackInput | undefined> {
+  const row = await getSubmission(db, submissionId);
+  if (!row) return undefined;
+  return (await feedbackInputs(db, [row], row.sectionId, row.assignmentId))[0];
+}
+
+/** Every checked student of a section (latest version each), in student-id order. */
+export async function sectionFeedback(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<FeedbackInput[]> {
+  return feedbackInputs(db, await latestSubmissions(db, assignmentId, sectionId), sectionId, assignmentId);
+}
+
+/** Gradebook rows: every student's latest result, rejected ones included. */
+export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
+  const rows = await latestSubmissions(db, assignmentId, sectionId);
+  const ids = rows.map((r) => r.submissionId);
+  const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
+  const overrides = await overridesOf(db, ids);
+  return rows.flatMap((row) => {
+    const r = results.get(row.submissionId);
+    return r ? [asCheckResult(row.studentId, effectiveResult(r, overrides))] : [];
+  });
+}

@@ -1,0 +1,73 @@
+import { z } from 'zod';
+import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { gradebookCsv } from '../../reports/gradebook-csv.ts';
+import { sectionZip } from '../../reports/section-zip.ts';
+import { renderSectionSummary } from '../../reports/section-summary.ts';
+import { ApiError } from '../errors.ts';
+import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
+import type { RouteSpec } from './route-spec.ts';
+import { IdParam } from './schemas.ts';
+
+const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
+const file = z.any().describe('a file');
+
+/** `attachment` with a plain ASCII name: ids are already letters, digits and . _ - */
+const download = (name: string) => ({ 'content-disposition': `attachment; filename="${name}"` });
+
+export const reportRoutes: RouteSpec[] = [
+  {
+    method: 'GET',
+    url: '/v1/submissions/:submissionId/feedback.pdf',
+    access: 'section',
+    summary: "A student's feedback sheet (PDF) for this submission's latest result, overrides applied",
+    schema: { params: z.object({ submissionId: IdParam }), response: { 200: file } },
+    async handler({ db, params: p }) {
+      const input = await submissionFeedback(db, Number(p.submissionId));
+      if (!input) throw new ApiError('not-found', 'this submission has no checked result to report');
+      return { status: 200, body: await renderFeedbackSheet(input), contentType: 'application/pdf', headers: download(`${input.header.studentId}-v${input.header.version}.pdf`) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/feedback.zip',
+    access: 'section',
+    summary: "Every student's feedback sheet in one ZIP, streamed",
+    schema: { params, response: { 200: file } },
+    async handler({ db, scope, params: p }) {
+      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
+      async function* sheets() {
+        for (const input of inputs) yield { name: input.header.studentId, pdf: await renderFeedbackSheet(input) };
+      }
+      return { status: 200, body: sectionZip(sheets()), contentType: 'application/zip', headers: download(`feedback-section-${scope.sectionId}.zip`) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/summary.pdf',
+    access: 'section',
+    summary: "The section summary (PDF): score distribution, the class's k_N and k_A, how often each finding occurred, who needs attention",
+    schema: { params, response: { 200: file } },
+    async handler({ db, scope, params: p }) {
+      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
+      if (inputs.length === 0) throw new ApiError('not-found', 'no checked submissions in this section yet');
+      const pdf = await renderSectionSummary({
+        header: { course: inputs[0].header.course, section: inputs[0].header.section, assignment: inputs[0].header.assignment, gradedAt: new Date() },
+        settings: inputs[0].settings,
+        results: inputs.map((i) => i.result),
+        submissions: inputs.map((i) => i.submission),
+      });
+      return { status: 200, body: pdf, contentType: 'application/pdf', headers: download(`summary-section-${scope.sectionId}.pdf`) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/gradebook.csv',
+    access: 'section',
+    summary: 'The gradebook (CSV, one row per student; cells that a spreadsheet would run as formulas are neutralised)',
+    schema: { params, querystring: z.object({ bom: z.enum(['true', 'false']).default('false') }), response: { 200: file } },
+    async handler({ db, scope, params: p, query }) {
+      const csv = gradebookCsv(await sectionResults(db, scope.sectionId!, Number(p.assignmentId)), { bom: query.bom === 'true' });
+      return { status: 200, body: csv, contentType: 'text/csv; charset=utf-8', headers: download(`gradebook-section-${scope.sectionId}.csv`) };
+    },
+  },
+];
