@@ -31,6 +31,7 @@ type Command = (args: string[], io: CliIo) => Promise<number>;
 
 const USAGE = `usage: rateproof check --assignment A.json SUBMISSIONS.(json|csv) [--reported R.csv] [--json] [--out DIR]
        rateproof serve
+       rateproof demo
 
   check   grade submissions offline against an assignment's settings
           SUBMISSIONS.json holds one submission or an array of them;
@@ -48,7 +49,15 @@ class InputError extends Error {}
 const commands = new Map<string, Command>([
   ['check', check],
   ['serve', serve],
+  ['demo', demo],
 ]);
+
+/** The invented demo section, graded on the embedded database, written to ./demo-output. */
+async function demo(): Promise<number> {
+  const { runDemo } = await import('./demo/run-demo.ts');
+  await runDemo();
+  return 0;
+}
 
 /** Serves the API until stopped; configuration comes from the environment (README). */
 async function serve(): Promise<number> {

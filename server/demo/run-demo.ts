@@ -1,0 +1,98 @@
+import { randomBytes } from 'node:crypto';
+import { mkdir, rm, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
+import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { gradebookCsv } from '../../reports/gradebook-csv.ts';
+import { renderSectionSummary } from '../../reports/section-summary.ts';
+import { buildApp } from '../app.ts';
+import type { Config } from '../config.ts';
+import { sectionFeedback, sectionResults } from '../grading/report-inputs.ts';
+import { openStore } from '../store/connection.ts';
+import { migrateToLatest } from '../store/migrate.ts';
+import { seededRandom } from './seeded-random.ts';
+import { assignmentSettings, generateAssignment, generateSubmission, inject, type SlipCode } from './submission-generator.ts';
+
+/**
+ * `npm run demo`: an invented course with one section of 24 pseudonymous students, graded through the
+ * API on the embedded database, with every feedback sheet, the summary and the gradebook written to
+ * ./demo-output. Everything here is generated: no measurement, no real student.
+ */
+const STUDENTS = 24;
+// The slips a third of the section makes, one or two each.
+const COMMON_SLIPS: SlipCode[] = ['log-base', 'sign-flipped', 'time-unit', 'concentration-unit', 'decimal-shift', 'swapped-axes', 'wrong-infinity', 'fit-model', 'half-life-for-rate', 'uncertainty-kind', 'suspect-reading'];
+
+export async function runDemo(outDir = 'demo-output', write: (line: string) => void = (l) => process.stdout.write(`${l}\n`)): Promise<void> {
+  await rm(outDir, { recursive: true, force: true });
+  await mkdir(outDir, { recursive: true });
+  const dataDir = join(outDir, 'database');
+  const store = openStore({ dataDir });
+  await migrateToLatest(store.db);
+  const admin = randomBytes(24).toString('base64url');
+  const config: Config = { dataDir, host: '127.0.0.1', port: 0, adminToken: admin, bodyLimitBytes: 20 * 1024 * 1024, logLevel: 'silent' };
+  const app = await buildApp({ config, store });
+  const api = async (method: 'GET' | 'POST', url: string, token: string, payload?: unknown) => {
+    const res = await app.inject({ method, url, headers: { authorization: `Bearer ${token}` }, ...(payload === undefined ? {} : { payload: payload as object }) });
+    if (res.statusCode >= 300) throw new Error(`${method} ${url}: ${res.statusCode} ${res.body}`);
+    return res.json();
+  };
+  try {
+    const random = seededRandom(20261202);
+    const options = { fitModel: 'origin' as const, reference: true };
+    const course = await api('POST', '/v1/courses', admin, { name: 'Kinetics laboratory (invented)' });
+    const instructor = await api('POST', `/v1/courses/${course.id}/staff`, admin, { handle: 'demo-instructor', role: 'instructor' });
+    const instructorToken = (await api('POST', `/v1/staff/${instructor.id}/tokens`, admin)).token as string;
+    const section = await api('POST', `/v1/courses/${course.id}/sections`, instructorToken, { name: 'Demo section' });
+    const ta = await api('POST', `/v1/courses/${course.id}/staff`, instructorToken, { handle: 'demo-ta', role: 'ta', sectionIds: [section.id] });
+    const taToken = (await api('POST', `/v1/staff/${ta.id}/tokens`, instructorToken)).token as string;
+    const ids = Array.from({ length: STUDENTS }, (_, i) => `B-${String(i + 1).padStart(2, '0')}`);
+    await api('POST', `/v1/sections/${section.id}/roster`, instructorToken, { students: ids.map((studentId) => ({ studentId })) });
+    const assignment = await api('POST', `/v1/courses/${course.id}/assignments`, instructorToken, {
+      title: 'Acid-catalysed first-order kinetics (invented scenario: HCl 0.05 to 0.40 M)',
+      settings: assignmentSettings(options),
+    });
+
+    const settings = generateAssignment(random, options);
+    const slipped = new Map<string, SlipCode[]>();
+    const submissions = ids.map((studentId, i) => {
+      let submission = { ...generateSubmission(random, settings, i + 1), studentId };
+      // Every third student makes one slip, every sixth a second one too.
+      if (i % 3 === 1) {
+        const codes = [COMMON_SLIPS[(i * 7) % COMMON_SLIPS.length], ...(i % 6 === 4 ? [COMMON_SLIPS[(i * 5 + 3) % COMMON_SLIPS.length]] : [])];
+        for (const code of [...new Set(codes)]) submission = inject(code, submission, random, settings).submission;
+        slipped.set(studentId, [...new Set(codes)]);
+      }
+      return submission;
+    });
+    await api('POST', `/v1/sections/${section.id}/assignments/${assignment.id}/submissions`, taToken, submissions);
+
+    const inputs = await sectionFeedback(store.db, section.id, assignment.id);
+    for (const input of inputs) await writeFile(join(outDir, `${input.header.studentId}.pdf`), await renderFeedbackSheet({ ...input, invented: true }));
+    await writeFile(
+      join(outDir, 'summary.pdf'),
+      await renderSectionSummary({
+        header: { course: course.name, section: section.name, assignment: assignment.title, gradedAt: new Date() },
+        settings: inputs[0].settings,
+        results: inputs.map((i) => i.result),
+        submissions: inputs.map((i) => i.submission),
+        invented: true,
+      }),
+    );
+    await writeFile(join(outDir, 'gradebook.csv'), gradebookCsv(await sectionResults(store.db, section.id, assignment.id), { bom: true }));
+
+    write(`${INVENTED_NOTE}`);
+    write('student  score   slips made (generated)        codes found');
+    for (const input of inputs) {
+      const r = input.result;
+      const codes = [...new Set(r.findings.filter((f) => f.severity !== 'info').map((f) => f.code))].join(', ') || '-';
+      const made = (slipped.get(r.studentId!) ?? []).join(', ') || '-';
+      write(`${r.studentId!.padEnd(8)} ${`${r.score}/${r.maxScore}`.padEnd(7)} ${made.padEnd(29)} ${codes}`);
+    }
+    write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/`);
+    write(`the demo database stays in ${dataDir}: RATEPROOF_DATA_DIR=${dataDir} npm start, then use the TA token below`);
+    write(`TA token (section ${section.id}, assignment ${assignment.id}): ${taToken}`);
+  } finally {
+    await app.close();
+    await store.db.destroy();
+  }
+}

@@ -1,0 +1,44 @@
+import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runDemo } from '../../server/demo/run-demo.ts';
+import { folded, pdfText } from '../reports/poppler.ts';
+
+describe('npm run demo', () => {
+  let dir: string;
+  const lines: string[] = [];
+
+  beforeAll(async () => {
+    dir = await mkdtemp(join(tmpdir(), 'rateproof-demo-'));
+    await runDemo(join(dir, 'out'), (l) => lines.push(l));
+  }, 120_000);
+  afterAll(async () => rm(dir, { recursive: true, force: true }));
+
+  it('writes a feedback sheet for each of 24 pseudonymous students, the summary and the gradebook', async () => {
+    const files = await readdir(join(dir, 'out'));
+    const sheets = files.filter((f) => /^B-\d\d\.pdf$/.test(f));
+    expect(sheets).toHaveLength(24);
+    expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv', 'database']));
+    const gradebook = await readFile(join(dir, 'out', 'gradebook.csv'), 'utf8');
+    expect(gradebook.split('\r\n').filter((l) => l !== '')).toHaveLength(25);
+  });
+
+  it('labels the invented data in the PDF footer', async () => {
+    const text = folded(await pdfText(await readFile(join(dir, 'out', 'B-05.pdf'))));
+    expect(text).toContain('demonstration data: generated, not measured');
+    expect(text).toContain('B-05');
+  });
+
+  it('gives about a third of the section one or two slips, and finds them', () => {
+    const rows = lines.filter((l) => /^B-\d\d /.test(l));
+    expect(rows).toHaveLength(24);
+    const withSlips = rows.filter((l) => !/ - +-$/.test(l) && !/^B-\d\d +\S+ +- /.test(l));
+    expect(withSlips.length).toBe(8);
+    // The first code made is among the codes found, for every student who made slips.
+    for (const row of withSlips) {
+      const [, made, found] = /^B-\d\d +\S+ +(\S+?),? .*?((?:[a-z-]+(?:, )?)+)$/.exec(row) ?? [];
+      expect(found, row).toContain(made.replace(/,$/, ''));
+    }
+  });
+});
