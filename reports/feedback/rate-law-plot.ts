@@ -32,12 +32,13 @@ export function drawRateLawPlot(doc: Doc, series: RateLawSeries): void {
   const near = (y: number) => y > low - span && y < high + span;
   const theirYs = [...series.theirs.map((p) => p.k), ...(series.theirLine ? [series.theirLine.intercept, series.theirLine.intercept + series.theirLine.slope * cMax] : [])];
   ys.push(...theirYs.filter(near));
-  const offScale = series.theirs.filter((p) => !near(p.k)).length;
   const plot = new Plot(doc, { x: contentLeft(doc), y: top, width: contentWidth(doc), height: HEIGHT }, niceAxis([0, cMax], { includeZero: true, pad: 0 }), niceAxis(ys, { pad: 0.05 }), {
     x: '[catalyst] / M',
     y: `k_{obs} / ${prettyUnit(series.kUnit)}`,
   });
   plot.drawFrame();
+  // Counted on the finished axes: a value outside the data's range may still fall inside them.
+  const offScale = series.theirs.filter((p) => !plot.inside(p.c, p.k)).length;
   if (series.ourLine) plot.line(series.ourLine.intercept, series.ourLine.slope, OUR_LINE);
   if (series.theirLine) plot.line(series.theirLine.intercept, series.theirLine.slope, THEIR_LINE);
   // Markers are not clipped, so that a point on the frame shows whole.

@@ -102,7 +102,8 @@ export function finish(doc: Doc, footer: FooterLines): void {
     const y = doc.page.height - PAGE.margin - PAGE.footer + 10;
     doc.save().moveTo(left, y - 5).lineTo(left + width, y - 5).lineWidth(0.5).strokeColor(COLOR.rule).stroke().restore();
     doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.muted);
-    doc.text(footer.left, left, y, { lineBreak: false, width: width - 80 });
+    // One line, cut with an ellipsis: a long assignment title must not run into the line below.
+    doc.text(footer.left, left, y, { width: width - 80, height: SIZE.small * 1.2, ellipsis: true });
     const pageText = `page ${i - range.start + 1} of ${range.count}`;
     doc.text(pageText, left + width - doc.widthOfString(pageText), y, { lineBreak: false });
     if (footer.invented) {
