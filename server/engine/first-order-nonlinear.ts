@@ -173,9 +173,9 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
     if (h === 0 || current.sse === 0) break;
     for (;;) {
       const step = -g / (h * (1 + lambda));
-      // A step of 1e-11 k is far inside any reported precision; near the optimum each step is larger
+      // A step of 1e-9 k is far inside any reported precision; near the optimum each step is larger
       // than the error that remains, and a smaller one only measures rounding in the sum of squares.
-      if (Math.abs(step) <= 1e-11 * Math.abs(k)) {
+      if (Math.abs(step) <= 1e-9 * Math.abs(k)) {
         converged = true;
         break;
       }
