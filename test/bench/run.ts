@@ -16,12 +16,12 @@ console.log(
     `(${checks.microsecondsPerCheck.toFixed(1)} µs each; clean, 4 runs x 16 readings, default assignment, checkBatch over 2,000; one core)`,
 );
 
-const { benchBulkSubmit } = await import('./bulk-submit.ts');
-await benchBulkSubmit();
-
 const { benchPdfs } = await import('./pdf-throughput.ts');
 const pdfs = await benchPdfs();
 console.log(
   `feedback sheets: ${pdfs.pdfsPerSecond.toFixed(0)} PDFs/s (${pdfs.millisecondsPerPdf.toFixed(1)} ms each, ` +
     `${pdfs.meanKilobytes.toFixed(0)} kB on average; ${pdfs.pagesNote}; one core; target >= 100/s)`,
 );
+
+const { benchBulkSubmit } = await import('./bulk-submit.ts');
+await benchBulkSubmit();
