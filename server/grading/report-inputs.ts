@@ -52,14 +52,19 @@ export async function sectionFeedback(db: Kysely<Database>, sectionId: number, a
   return feedbackInputs(db, await latestSubmissions(db, assignmentId, sectionId), sectionId, assignmentId);
 }
 
-/** Gradebook rows: every student's latest result, rejected ones included. */
-export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
+/** The latest submission of each student in a section, with its latest result, overrides applied. */
+export async function latestWithResults(db: Kysely<Database>, sectionId: number, assignmentId: number) {
   const rows = await latestSubmissions(db, assignmentId, sectionId);
   const ids = rows.map((r) => r.submissionId);
   const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
   const overrides = await overridesOf(db, ids);
-  return rows.flatMap((row) => {
-    const r = results.get(row.submissionId);
-    return r ? [asCheckResult(row.studentId, effectiveResult(r, overrides))] : [];
+  return rows.map((submission) => {
+    const row = results.get(submission.submissionId);
+    return { submission, result: row ? effectiveResult(row, overrides) : undefined };
   });
+}
+
+/** Gradebook rows: every student's latest result, rejected ones included. */
+export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
+  return (await latestWithResults(db, sectionId, assignmentId)).flatMap(({ submission, result }) => (result ? [asCheckResult(submission.studentId, result)] : []));
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { effectiveResult } from '../grading/effective-result.ts';
-import { latestResults, latestSubmissions, overridesOf, releaseResults } from '../store/submissions.ts';
+import { latestWithResults } from '../grading/report-inputs.ts';
+import { releaseResults } from '../store/submissions.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
@@ -20,18 +20,6 @@ const Row = z.object({
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 
-/** The latest submission of each student in a section, with its latest result, overrides applied. */
-async function sectionResults(db: Parameters<RouteSpec['handler']>[0]['db'], sectionId: number, assignmentId: number) {
-  const latest = await latestSubmissions(db, assignmentId, sectionId);
-  const ids = latest.map((s) => s.submissionId);
-  const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
-  const overrides = await overridesOf(db, ids);
-  return latest.map((s) => {
-    const row = results.get(s.submissionId);
-    return { submission: s, result: row ? effectiveResult(row, overrides) : undefined };
-  });
-}
-
 export const resultRoutes: RouteSpec[] = [
   {
     method: 'GET',
@@ -40,7 +28,7 @@ export const resultRoutes: RouteSpec[] = [
     summary: "A section's results: one row per student (latest version), with counts by severity and the codes found",
     schema: { params, response: { 200: z.array(Row) } },
     async handler({ db, scope, params: p }) {
-      const rows = await sectionResults(db, scope.sectionId!, Number(p.assignmentId));
+      const rows = await latestWithResults(db, scope.sectionId!, Number(p.assignmentId));
       return {
         status: 200,
         body: rows.map(({ submission, result }) => {
@@ -70,7 +58,7 @@ export const resultRoutes: RouteSpec[] = [
     schema: { params, response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, scope, params: p, caller }) {
-      const rows = await sectionResults(db, scope.sectionId!, Number(p.assignmentId));
+      const rows = await latestWithResults(db, scope.sectionId!, Number(p.assignmentId));
       const ids = rows.flatMap((r) => (r.result ? [r.result.resultId] : []));
       return { status: 200, body: { released: await releaseResults(db, ids, caller.kind === 'staff' ? caller.staffId : 0) } };
     },
