@@ -58,6 +58,17 @@ export function prettyUnit(unit: string): string {
   return unit.replace(/\^\(?([-+]?\d+)\)?/g, (_, e: string) => superscript(e)).replace(/\s+/g, ' ').trim();
 }
 
+/**
+ * A checker message as printed: unit exponents as superscripts (`min^-1` → `min⁻¹`), numbers in
+ * e-notation as powers of ten, and the minus sign before a negative number. Words stay as written.
+ */
+export function printableMessage(text: string): string {
+  return text
+    .replace(/(\d)e([-+]?\d+)\b/g, (_, d: string, e: string) => `${d} × 10${superscript(String(Number(e)))}`)
+    .replace(/\^\(?([-+]?\d+)\)?/g, (_, e: string) => superscript(e))
+    .replace(/(^|[\s(=])-(?=[\d.])/g, `$1${MINUS}`);
+}
+
 /** `±1 %`, `±0.002`, or both (the larger applies, as the checker reads a tolerance). */
 export function formatTolerance(tolerance: Tolerance | undefined): string {
   if (!tolerance) return '—';

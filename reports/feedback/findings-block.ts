@@ -1,6 +1,6 @@
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult, Finding } from '../../schemas/result.ts';
-import { formatPoints } from '../format.ts';
+import { formatPoints, printableMessage } from '../format.ts';
 import { SEVERITY_WORD, STAGE_ORDER, STAGE_TITLES } from '../labels.ts';
 import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { marker, type MarkerShape } from '../pdf/marks.ts';
@@ -42,7 +42,7 @@ function drawFinding(doc: Doc, f: Finding, submission: Submission | undefined): 
   if (richWidth(doc, codes, SIZE.tiny) <= codeRoom) drawRich(doc, codes, x + 8, y + 2, { size: SIZE.tiny, color: COLOR.muted });
   moveTo(doc, y + 13);
   if (richWidth(doc, codes, SIZE.tiny) > codeRoom) paragraph(doc, codes, { size: SIZE.tiny, color: COLOR.muted, indent: INDENT, gap: 1 });
-  paragraph(doc, f.message, { indent: INDENT, gap: 7 });
+  paragraph(doc, printableMessage(f.message), { indent: INDENT, gap: 7 });
 }
 
 /** The findings under each stage's heading, in the checker's order and words. */
@@ -76,6 +76,6 @@ export function drawRejections(doc: Doc, result: CheckResult, submission: Submis
     marker(doc, 'square', contentLeft(doc) + 5, y + 5.5, 6.5, COLOR.error);
     drawRich(doc, `Error  ·  ${describePath(r.path, submission)}`, contentLeft(doc) + INDENT, y, { size: SIZE.body, bold: true, color: COLOR.ink });
     moveTo(doc, y + 13);
-    paragraph(doc, r.message, { indent: INDENT, gap: 7 });
+    paragraph(doc, printableMessage(r.message), { indent: INDENT, gap: 7 });
   }
 }

@@ -3,6 +3,7 @@ import { Settings } from '../../schemas/kinds/first-order-catalysis.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { rubricBreakdown } from '../../reports/feedback/rubric-breakdown.ts';
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { printableMessage } from '../../reports/format.ts';
 import { slipCase, slipCodes } from '../../server/demo/submission-generator.ts';
 import { feedbackInput } from './fixtures.ts';
 import { folded, pdfText } from './poppler.ts';
@@ -23,6 +24,6 @@ describe('feedback sheets for every kind of slip', () => {
     const pdf = await renderFeedbackSheet(feedbackInput(settings, { submission, result }));
     const text = folded(await pdfText(pdf));
     expect(text).toContain(submission.studentId);
-    for (const f of result.findings) expect(text).toContain(folded(f.message.slice(0, 50)));
+    for (const f of result.findings) expect(text).toContain(folded(printableMessage(f.message).slice(0, 50)));
   });
 });

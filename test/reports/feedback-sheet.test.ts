@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { INVENTED_NOTE, LIKELY_CAUSES_NOTE } from '../../reports/feedback-input.ts';
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
-import { formatNumber, formatPoints } from '../../reports/format.ts';
+import { formatNumber, formatPoints, printableMessage } from '../../reports/format.ts';
 import { readRefit } from '../../reports/refit.ts';
 import { feedbackInput, section, type Section, type Student } from './fixtures.ts';
 import { folded, pageCount, pagePng, pdfFonts, pdfText, PNG_SIGNATURE, pngSize } from './poppler.ts';
@@ -37,7 +37,7 @@ describe('renderFeedbackSheet', () => {
   it('prints every finding in the checker’s words, with its severity in text', async () => {
     const { result } = student('S-002');
     const { flat } = await render('S-002');
-    for (const f of result.findings) expect(flat).toContain(folded(f.message.slice(0, 60)));
+    for (const f of result.findings) expect(flat).toContain(folded(printableMessage(f.message).slice(0, 60)));
     expect(flat).toContain('log10');
     for (const word of ['Error', 'Warning', 'Info']) expect(flat).toContain(`${word} · `);
     expect(flat).toMatch(/−1 point/);
@@ -120,7 +120,7 @@ describe('renderFeedbackSheet', () => {
     expect(flat).toContain('Not checked');
     expect(result.rejected![0].path).toBe('runs[0].readings');
     expect(flat).toContain(`Run “${broken.runs[0].label}”, readings`);
-    expect(flat).toContain(result.rejected![0].message);
+    expect(flat).toContain(printableMessage(result.rejected![0].message));
     expect(flat).toContain(folded(LIKELY_CAUSES_NOTE));
   });
 
@@ -132,6 +132,6 @@ describe('renderFeedbackSheet', () => {
     expect(students[0].result.findings.map((f) => f.code)).toContain('transcription');
     expect(flat).toContain('Readings match the class data');
     expect(flat).toContain('with an intercept');
-    for (const f of students[0].result.findings) expect(flat).toContain(folded(f.message.slice(0, 60)));
+    for (const f of students[0].result.findings) expect(flat).toContain(folded(printableMessage(f.message).slice(0, 60)));
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatNumber, formatPercent, formatReported, formatTolerance, prettyUnit } from '../../reports/format.ts';
+import { formatNumber, formatPercent, formatReported, formatTolerance, prettyUnit, printableMessage } from '../../reports/format.ts';
 import { convertUnit } from '../../reports/units.ts';
 import { niceAxis, tickLabel } from '../../reports/pdf/scale.ts';
 import { parseRich, plainRich } from '../../reports/pdf/rich-text.ts';
@@ -65,5 +65,16 @@ describe('plot scales and labels', () => {
       { text: ' / min⁻¹', shift: 'base' },
     ]);
     expect(plainRich('α_{∞} x^{2}')).toBe('α∞ x2');
+  });
+});
+
+describe('printableMessage', () => {
+  it('prints unit exponents as superscripts, e-notation as powers of ten and the minus sign', () => {
+    expect(printableMessage('k_obs is -0.154 min^-1; the refit gives 1.044e-5 M^-1 min^-1 (x = -2)')).toBe(
+      'k_obs is \u22120.154 min⁻¹; the refit gives 1.044 × 10⁻⁵ M⁻¹ min⁻¹ (x = \u22122)',
+    );
+  });
+  it('leaves hyphenated words alone', () => {
+    expect(printableMessage('a log-base slip in run A-2')).toBe('a log-base slip in run A-2');
   });
 });
