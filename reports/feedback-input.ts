@@ -11,6 +11,8 @@ export interface FeedbackHeader {
   /** The submission's version: 1 for the first, +1 for each resubmission. */
   version: number;
   gradedAt: Date | string;
+  /** false: the result is not yet released to the student, and the sheet says it is a draft. */
+  released?: boolean;
 }
 
 export interface FeedbackInput {
@@ -47,3 +49,6 @@ export const INVENTED_NOTE = 'Invented demonstration data: generated, not measur
 export const LIKELY_CAUSES_NOTE =
   'Each diagnosis below names a likely cause of a difference, read from the numbers; it is not a verdict. ' +
   'A teaching assistant reviews these findings and can override any of them.';
+
+/** Added to the note on a sheet whose result a TA has not yet released. */
+export const DRAFT_NOTE = 'Draft for the teaching assistant: this result has not been released to the student.';

@@ -3,7 +3,7 @@ import { contentLeft, contentWidth, moveTo, type Doc } from '../pdf/document.ts'
 import { FONT } from '../pdf/fonts.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 import type { FeedbackHeader } from '../feedback-input.ts';
-import { LIKELY_CAUSES_NOTE } from '../feedback-input.ts';
+import { DRAFT_NOTE, LIKELY_CAUSES_NOTE } from '../feedback-input.ts';
 
 /** Title, the student's id, the grading's facts in a grid, and the note on what a diagnosis is. */
 export function drawHeader(doc: Doc, header: FeedbackHeader, engineVersion: string): void {
@@ -48,10 +48,11 @@ export function drawHeader(doc: Doc, header: FeedbackHeader, engineVersion: stri
   });
 
   const noteTop = gridTop + 2 * rowHeight + 2;
+  const note = header.released === false ? `${LIKELY_CAUSES_NOTE} ${DRAFT_NOTE}` : LIKELY_CAUSES_NOTE;
   doc.font(FONT.regular).fontSize(SIZE.small);
-  const noteHeight = doc.heightOfString(LIKELY_CAUSES_NOTE, { width: width - 24 }) + 12;
+  const noteHeight = doc.heightOfString(note, { width: width - 24 }) + 12;
   doc.save().rect(left, noteTop, width, noteHeight).fill(COLOR.panel).restore();
   doc.save().rect(left, noteTop, 3, noteHeight).fill(COLOR.accent).restore();
-  doc.fillColor(COLOR.ink).text(LIKELY_CAUSES_NOTE, left + 12, noteTop + 6, { width: width - 24 });
+  doc.fillColor(COLOR.ink).text(note, left + 12, noteTop + 6, { width: width - 24 });
   moveTo(doc, noteTop + noteHeight + 6);
 }

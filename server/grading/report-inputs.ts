@@ -32,7 +32,7 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
     checkers.set(stored.settingsVersion, checker);
     const result = asCheckResult(row.studentId, effectiveResult(stored, overrides));
     out.push({
-      header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt },
+      header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt, released: stored.releasedAt !== null },
       settings: checker.settings as Settings,
       submission: checker.kind.submissionSchema.parse(row.payload) as Submission,
       result,

@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApi, call, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 import { zipEntryNames } from '../support/zip-entries.ts';
+import { folded, pdfText } from '../reports/poppler.ts';
+import { DRAFT_NOTE } from '../../reports/feedback-input.ts';
 
 // The same flow on a PostgreSQL server and once on the embedded engine (PGlite).
 describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
@@ -81,11 +83,16 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(again).toMatchObject({ pointsLost: 1, override: { originalPointsLost: 3, reason: 'sign slip only in the summary table', by: 'ta-a' } });
   });
 
-  it('results are released only by a TA action', async () => {
+  it('results are released only by a TA action; a sheet before release says it is a draft', async () => {
+    const table0 = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
+    const draft = await api.app.inject({ method: 'GET', url: `/v1/submissions/${table0.body[0].submissionId}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect(folded(await pdfText(draft.rawPayload))).toContain(DRAFT_NOTE);
     const released = await call(api.app, 'POST', `${url()}/release`, s.taAToken, undefined, 200);
     expect(released.body.released).toBeGreaterThan(0);
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     expect(table.body.every((r: { released: boolean }) => r.released)).toBe(true);
+    const after = await api.app.inject({ method: 'GET', url: `/v1/submissions/${table0.body[0].submissionId}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect(folded(await pdfText(after.rawPayload))).not.toContain('Draft for the teaching assistant');
   });
 
   it('accepts the CSV layout as a multipart upload', async () => {
@@ -117,9 +124,11 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
   });
 
-  it('serves its OpenAPI document', async () => {
+  it('serves its OpenAPI document and a browsable docs page', async () => {
     const res = await api.app.inject({ method: 'GET', url: '/openapi.json' });
     expect(res.statusCode).toBe(200);
+    const docs = await api.app.inject({ method: 'GET', url: '/docs/' });
+    expect([docs.statusCode, docs.headers['content-type']]).toEqual([200, expect.stringContaining('text/html')]);
     expect(Object.keys(res.json().paths)).toContain('/v1/sections/{sectionId}/assignments/{assignmentId}/submissions');
   });
 });
