@@ -37,9 +37,10 @@ async function callerOf(request: FastifyRequest, options: AppOptions): Promise<C
   return caller;
 }
 
-function requestHash(request: FastifyRequest): string {
-  const body = typeof request.body === 'string' ? request.body : JSON.stringify(request.body ?? null);
-  return createHash('sha256').update(`${request.method} ${request.url}\n${body}`).digest('hex');
+/** What makes two requests the same for an Idempotency-Key: method, URL and the body as read. */
+function requestHash(request: FastifyRequest, body: unknown): string {
+  const text = typeof body === 'string' ? body : JSON.stringify(body ?? null);
+  return createHash('sha256').update(`${request.method} ${request.url}\n${text}`).digest('hex');
 }
 
 /** Who called and what the URL points to, settled before the body is validated. */
@@ -63,16 +64,19 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions): v
       const params = request.params as Record<string, string>;
       const key = spec.idempotent ? request.headers['idempotency-key'] : undefined;
       const keyText = typeof key === 'string' && caller.kind === 'staff' ? key.slice(0, 200) : undefined;
+      // A multipart upload is read here, so that a repeat is recognised by its content.
+      const body = spec.readBody ? await spec.readBody(request) : request.body;
       const run = async (trx: typeof db) => {
+        const hash = keyText === undefined ? '' : requestHash(request, body);
         if (keyText !== undefined && caller.kind === 'staff') {
           const seen = await findIdempotent(trx, caller.staffId, keyText);
           if (seen) {
-            if (seen.requestHash !== requestHash(request)) throw new ApiError('idempotency-mismatch');
+            if (seen.requestHash !== hash) throw new ApiError('idempotency-mismatch');
             return { status: seen.statusCode, body: seen.body, replayed: true };
           }
         }
-        const answer = await spec.handler({ db: trx, config: options.config, caller, scope, params, query: request.query as Record<string, unknown>, body: request.body, request, reply });
-        if (keyText !== undefined && caller.kind === 'staff') await saveIdempotent(trx, caller.staffId, keyText, requestHash(request), answer.status, answer.body);
+        const answer = await spec.handler({ db: trx, config: options.config, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply });
+        if (keyText !== undefined && caller.kind === 'staff') await saveIdempotent(trx, caller.staffId, keyText, hash, answer.status, answer.body);
         return { ...answer, replayed: false };
       };
       const answer = spec.transactional ? await db.transaction().execute(run) : await run(db);

@@ -41,6 +41,8 @@ export interface RouteSpec {
     body?: z.ZodType;
     response: Record<number, z.ZodType>;
   };
+  /** Reads a body the content-type parsers leave alone (a multipart upload); its result is `body`. */
+  readBody?(request: FastifyRequest): Promise<unknown>;
   /** Honours an Idempotency-Key header: a repeat returns the first response. */
   idempotent?: boolean;
   /** Runs inside one database transaction: nothing is half-stored. */

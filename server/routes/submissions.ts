@@ -62,11 +62,11 @@ export const submissionRoutes: RouteSpec[] = [
       body: z.array(z.unknown()).min(1, 'at least one submission').max(5000).nullish(),
       response: { 201: z.object({ stored: z.array(Stored), rejected: z.array(Rejected) }) },
     },
+    readBody: async (request) => (request.isMultipart() ? submissionsFromMultipart(request) : request.body),
     idempotent: true,
     transactional: true,
-    async handler({ db, scope, params, body, request, caller }) {
+    async handler({ db, scope, params, body: submissions, request, caller }) {
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
-      const submissions = request.isMultipart() ? await submissionsFromMultipart(request) : body;
       if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
       const outcome = await submitBatch(db, {
         assignment: assignmentOf(assignment.settings, 'settings'),

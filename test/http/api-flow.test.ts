@@ -95,19 +95,25 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(folded(await pdfText(after.rawPayload))).not.toContain('Draft for the teaching assistant');
   });
 
-  it('accepts the CSV layout as a multipart upload', async () => {
-    const boundary = 'rateproof-test-boundary';
+  it('accepts the CSV layout as a multipart upload; a repeat with the same Idempotency-Key is recognised by its content', async () => {
     const readings = ['student_id,run,catalyst,catalyst_unit,time_unit,t,x,infinity', ...[0, 1, 2, 3, 4, 5].map((t) => `S-006,A,0.1,M,min,${t},${(10 + 12 * Math.exp(-0.05 * t)).toFixed(3)},10.000`)].join('\n');
     const reported = 'student_id,run,quantity,value,uncertainty,unit\nS-006,A,k,0.0500,0.0001,min^-1\n';
-    const part = (name: string, text: string) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${text}\r\n`;
-    const res = await api.app.inject({
-      method: 'POST',
-      url: `${url()}/submissions`,
-      headers: { authorization: `Bearer ${s.taAToken}`, 'content-type': `multipart/form-data; boundary=${boundary}` },
-      payload: `${part('readings', readings)}${part('reported', reported)}--${boundary}--\r\n`,
-    });
+    // Two uploads of the same files, as two tools would send them: different part boundaries.
+    const upload = (boundary: string) => {
+      const part = (name: string, text: string) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${text}\r\n`;
+      return api.app.inject({
+        method: 'POST',
+        url: `${url()}/submissions`,
+        headers: { authorization: `Bearer ${s.taAToken}`, 'content-type': `multipart/form-data; boundary=${boundary}`, 'idempotency-key': 'csv-upload-1' },
+        payload: `${part('readings', readings)}${part('reported', reported)}--${boundary}--\r\n`,
+      });
+    };
+    const res = await upload('rateproof-test-boundary');
     expect(res.statusCode, res.body).toBe(201);
     expect(res.json().stored[0]).toMatchObject({ studentId: 'S-006', version: 1, status: 'checked' });
+    const again = await upload('another-boundary-0123');
+    expect([again.statusCode, again.headers['idempotent-replayed']]).toEqual([201, 'true']);
+    expect(again.json()).toEqual(res.json());
   });
 
   it('serves feedback sheets, the section ZIP, the summary and the gradebook', async () => {
