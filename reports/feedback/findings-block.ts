@@ -42,7 +42,17 @@ function drawFinding(doc: Doc, f: Finding, submission: Submission | undefined): 
   if (richWidth(doc, codes, SIZE.tiny) <= codeRoom) drawRich(doc, codes, x + 8, y + 2, { size: SIZE.tiny, color: COLOR.muted });
   moveTo(doc, y + 13);
   if (richWidth(doc, codes, SIZE.tiny) > codeRoom) paragraph(doc, codes, { size: SIZE.tiny, color: COLOR.muted, indent: INDENT, gap: 1 });
-  paragraph(doc, printableMessage(f.message), { indent: INDENT, gap: 7 });
+  const override = (f as OverriddenFinding).override;
+  paragraph(doc, printableMessage(f.message), { indent: INDENT, gap: override ? 2 : 7 });
+  if (override) {
+    const was = `${formatPoints(override.originalPointsLost)} ${override.originalPointsLost === 1 ? 'point' : 'points'}`;
+    paragraph(doc, `Reviewed by a teaching assistant: the points were changed from ${was} lost. Reason: ${override.reason}`, { indent: INDENT, gap: 7, bold: true });
+  }
+}
+
+/** A finding whose points a TA changed, as the service passes it on (reports need not know the service). */
+interface OverriddenFinding extends Finding {
+  override?: { originalPointsLost: number; reason: string };
 }
 
 /** The findings under each stage's heading, in the checker's order and words. */

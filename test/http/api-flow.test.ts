@@ -81,6 +81,11 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(after.body.result.settingsVersion).toBe(2);
     const again = after.body.result.findings.find((f: { id: string }) => f.id === finding.id);
     expect(again).toMatchObject({ pointsLost: 1, override: { originalPointsLost: 3, reason: 'sign slip only in the summary table', by: 'ta-a' } });
+    // The student's sheet shows the changed points and the reason, not who changed them.
+    const sheet = await api.app.inject({ method: 'GET', url: `/v1/submissions/${id}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    const text = folded(await pdfText(sheet.rawPayload));
+    expect(text).toContain('Reviewed by a teaching assistant: the points were changed from 3 points lost. Reason: sign slip only in the summary table');
+    expect(text).not.toContain('ta-a');
   });
 
   it('results are released only by a TA action; a sheet before release says it is a draft', async () => {
