@@ -13,8 +13,9 @@ const codeOf = (f: () => unknown) => {
 const relErr = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
 describe('Student t critical values', () => {
-  // Two-sided 95 % points t(0.975, v), as printed in standard statistical tables (e.g. NIST/SEMATECH
-  // e-Handbook of Statistical Methods, section 1.4.2.7.2, upper critical values of the t distribution).
+  // Two-sided 95 % points t(0.975, v) to three decimals, as printed in the t tables of statistics
+  // texts (the NIST/SEMATECH e-Handbook of Statistical Methods has one); the values are from memory,
+  // so they are held to the table's precision only.
   it.each([
     [1, 12.706],
     [2, 4.303],
