@@ -124,8 +124,12 @@ export type RunRefit = z.infer<typeof RunRefit>;
 
 export const Refit = z.object({
   runs: z.array(RunRefit),
+  /** In the instructor's units. */
   kN: Estimate.optional(),
   kA: Estimate.optional(),
+  /** The same in the units the student declared, where those differ and can be read. */
+  kNDeclared: Estimate.optional(),
+  kADeclared: Estimate.optional(),
   /** k_N and k_A fitted to the student's own reported k_obs values. */
   fromReportedK: z.object({ kN: Estimate, kA: Estimate }).optional(),
 });

@@ -182,6 +182,25 @@ describe('each diagnosis, fed data that has exactly that slip', () => {
   });
 });
 
+describe('the refit, in the units the instructor asks for and in those the student declared', () => {
+  it('a student reporting per second is right, and sees our values per second too (1 min = 60 s, a definition)', () => {
+    const r = check((s) => {
+      for (const run of s.runs) {
+        const k = run.reported!.k!;
+        run.reported!.k = { value: Number(k.value) / 60, uncertainty: Number(k.uncertainty) / 60, unit: 's^-1' };
+      }
+      const kA = s.reported!.kA!;
+      s.reported!.kA = { value: Number(kA.value) / 60, uncertainty: Number(kA.uncertainty) / 60, unit: 'M^-1 s^-1' };
+    });
+    expect(r.findings.filter((f) => f.code !== 'sig-figs')).toEqual([]);
+    const refit = r.refit as Refit;
+    expect(refit.runs[1].k.instructor.unit).toBe('min^-1');
+    expect(refit.runs[1].k.declared).toMatchObject({ unit: 's^-1', value: expect.closeTo(refit.runs[1].k.instructor.value / 60, 12) });
+    expect(refit.kADeclared).toMatchObject({ unit: 'M^-1 s^-1', value: expect.closeTo(refit.kA!.value / 60, 12) });
+    expect(refit.kNDeclared).toBeUndefined();
+  });
+});
+
 describe('scoring', () => {
   it('carried-forward: a wrong k in run 4 (decimal shift) costs 2 points once; k_N and k_A from it earn full points', () => {
     const r = check((s) => {

@@ -13,18 +13,21 @@ import { analyseRun, type RunAnalysis } from './run-analysis.ts';
 import { itemPoints, maxScore } from './scoring.ts';
 
 /** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
+/** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
+function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
+  if (!e || !declared || declared === instructor) return undefined;
+  try {
+    return convertEstimate(e, declared);
+  } catch (error) {
+    // A declared unit that cannot be read is reported as a finding; the refit just omits it.
+    if (error instanceof EngineError) return undefined;
+    throw error;
+  }
+}
+
+/** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
 function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Settings): RunRefit {
-  const inUnit = (e: Estimate | undefined, unit: string) => {
-    if (!e) return undefined;
-    try {
-      return convertEstimate(e, unit);
-    } catch (error) {
-      // A declared unit that cannot be read is reported as a finding; the refit just omits it.
-      if (error instanceof EngineError) return undefined;
-      throw error;
-    }
-  };
-  const declared = declaredUnit && declaredUnit !== settings.units.k ? inUnit(a.expected, declaredUnit) : undefined;
+  const declared = inDeclared(a.expected, declaredUnit, settings.units.k);
   return {
     label: a.label,
     model: a.asked ? a.asked.model : 'exponential',
@@ -58,6 +61,8 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
     kN: rateLaw?.kN,
     kA: rateLaw?.kA,
+    kNDeclared: inDeclared(rateLaw?.kN, submission.reported?.kN?.unit, settings.units.kN),
+    kADeclared: inDeclared(rateLaw?.kA, submission.reported?.kA?.unit, settings.units.kA),
     fromReportedK: rateLaw?.fromReportedK,
   };
   return {
