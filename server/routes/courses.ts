@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { createCourse, createSection, createStaff, getCourse, listSections } from '../store/courses.ts';
-import { createToken } from '../store/tokens.ts';
+import { createToken, revokeTokens } from '../store/tokens.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam, Name } from './schemas.ts';
 
@@ -86,6 +86,17 @@ export const courseRoutes: RouteSpec[] = [
     transactional: true,
     async handler({ db, params }) {
       return { status: 201, body: { token: await createToken(db, Number(params.staffId)) } };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/staff/:staffId/tokens/revoke',
+    access: 'instructor',
+    summary: "Revoke every token of a staff member; their requests answer 401 from then on",
+    schema: { params: z.object({ staffId: IdParam }), response: { 200: z.object({ revoked: z.number() }) } },
+    transactional: true,
+    async handler({ db, params }) {
+      return { status: 200, body: { revoked: await revokeTokens(db, Number(params.staffId)) } };
     },
   },
 ];

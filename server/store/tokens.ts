@@ -13,6 +13,18 @@ export async function createToken(db: Kysely<Database>, staffId: number): Promis
   return token;
 }
 
+/** Revokes every live token of a staff member (someone leaves the course, a token leaks). */
+export async function revokeTokens(db: Kysely<Database>, staffId: number): Promise<number> {
+  const rows = await db
+    .updateTable('api_tokens')
+    .set({ revoked_at: new Date() })
+    .where('staff_id', '=', staffId)
+    .where('revoked_at', 'is', null)
+    .returning('id')
+    .execute();
+  return rows.length;
+}
+
 export interface StaffCaller {
   kind: 'staff';
   staffId: number;

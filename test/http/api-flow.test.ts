@@ -135,6 +135,15 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
   });
 
+  it('a revoked token answers 401 from then on', async () => {
+    const staff = (await call(api.app, 'POST', `/v1/courses/${s.course.id}/staff`, s.instructorToken, { handle: 'ta-leaving', role: 'ta', sectionIds: [s.sectionA.id] }, 201)).body;
+    const token = (await call(api.app, 'POST', `/v1/staff/${staff.id}/tokens`, s.instructorToken, undefined, 201)).body.token;
+    await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/roster`, token, undefined, 200);
+    const revoked = await call(api.app, 'POST', `/v1/staff/${staff.id}/tokens/revoke`, s.instructorToken, undefined, 200);
+    expect(revoked.body.revoked).toBe(1);
+    expect((await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/roster`, token)).status).toBe(401);
+  });
+
   it('serves its OpenAPI document and a browsable docs page', async () => {
     const res = await api.app.inject({ method: 'GET', url: '/openapi.json' });
     expect(res.statusCode).toBe(200);

@@ -21,6 +21,7 @@ const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
 interface Fixture extends Seed {
   submissionId: number;
   findingId: string;
+  spare: { id: number };
 }
 
 let n = 0;
@@ -34,6 +35,8 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/courses/:courseId/sections': (f) => ({ url: `/v1/courses/${f.course.id}/sections` }),
   'POST /v1/courses/:courseId/staff': (f) => ({ url: `/v1/courses/${f.course.id}/staff`, body: { handle: `ta-${unique()}`, role: 'ta', sectionIds: [f.sectionA.id] } }),
   'POST /v1/staff/:staffId/tokens': (f) => ({ url: `/v1/staff/${f.taA.id}/tokens` }),
+  // A spare TA's tokens: revoking those of the callers in the matrix would change the answers after it.
+  'POST /v1/staff/:staffId/tokens/revoke': (f) => ({ url: `/v1/staff/${f.spare.id}/tokens/revoke` }),
   'POST /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster`, body: { students: [{ studentId: 'S-001' }] } }),
   'GET /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster` }),
   'POST /v1/courses/:courseId/assignments': (f) => ({ url: `/v1/courses/${f.course.id}/assignments`, body: { title: `Assignment ${unique()}`, settings: f.settings } }),
@@ -67,7 +70,8 @@ describe('authorisation matrix: every route x every caller', () => {
     const [slipped] = submissionsFor(['S-001'], 99);
     slipped.runs[0].reported!.k!.value = -Number(slipped.runs[0].reported!.k!.value);
     const stored = await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/submissions`, seed.taAToken, [slipped], 201);
-    f = { ...seed, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k' };
+    const spare = (await call(api.app, 'POST', `/v1/courses/${seed.course.id}/staff`, seed.instructorToken, { handle: 'ta-spare', role: 'ta', sectionIds: [seed.sectionA.id] }, 201)).body;
+    f = { ...seed, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare };
   }, 60_000);
   afterAll(async () => api?.close());
 
