@@ -10,6 +10,7 @@ import type { Settings, Submission } from '../schemas/kinds/first-order-catalysi
 import { renderFeedbackSheet } from '../reports/feedback-sheet.ts';
 import { UniqueNames } from '../reports/file-names.ts';
 import { gradebookCsv } from '../reports/gradebook-csv.ts';
+import { severityCounts } from '../reports/result-summary.ts';
 import { renderSectionSummary } from '../reports/section-summary.ts';
 
 /**
@@ -211,13 +212,13 @@ async function readCsvSubmissions(path: string, reportedPath: string | undefined
 /** One row per submission, then each submission's findings (or reasons for rejection), one per line. */
 function renderResults(results: CheckResult[]): string {
   const rows = results.map((r) => {
-    const count = (severity: string) => String(r.findings.filter((f) => f.severity === severity).length);
+    const counts = severityCounts(r.findings);
     return [
       r.studentId ?? '(no id)',
       r.status === 'rejected' ? 'rejected' : `${points(r.score ?? 0)}/${points(r.maxScore)}`,
-      count('error'),
-      count('warning'),
-      count('info'),
+      String(counts.errors),
+      String(counts.warnings),
+      String(counts.infos),
       [...new Set(r.findings.map((f) => f.code))].join(', '),
     ];
   });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults } from '../grading/report-inputs.ts';
 import { releaseResults } from '../store/submissions.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -32,7 +33,6 @@ export const resultRoutes: RouteSpec[] = [
       return {
         status: 200,
         body: rows.map(({ submission, result }) => {
-          const count = (severity: string) => result?.findings.filter((f) => f.severity === severity).length ?? 0;
           return {
             studentId: submission.studentId,
             submissionId: submission.submissionId,
@@ -40,9 +40,7 @@ export const resultRoutes: RouteSpec[] = [
             status: result?.status ?? null,
             score: result?.score ?? null,
             maxScore: result?.maxScore ?? null,
-            errors: count('error'),
-            warnings: count('warning'),
-            infos: count('info'),
+            ...severityCounts(result?.findings ?? []),
             codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
             released: result?.releasedAt != null,
           };
