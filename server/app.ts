@@ -8,6 +8,7 @@ import type { Config } from './config.ts';
 import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
 import { routes } from './routes/index.ts';
+import { ErrorResponse } from './routes/schemas.ts';
 import type { RouteSpec } from './routes/route-spec.ts';
 import { decodeUtf8 } from './routes/utf8.ts';
 import type { Store } from './store/connection.ts';
@@ -43,6 +44,8 @@ function requestHash(request: FastifyRequest, body: unknown): string {
   return createHash('sha256').update(`${request.method} ${request.url}\n${text}`).digest('hex');
 }
 
+const errorResponses = Object.fromEntries([400, 401, 403, 404, 409, 413, 415, 422, 500].map((status) => [status, ErrorResponse]));
+
 /** Who called and what the URL points to, settled before the body is validated. */
 const resolved = new WeakMap<FastifyRequest, { caller: Caller; scope: Scope }>();
 
@@ -51,7 +54,8 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions): v
   app.route({
     method: spec.method,
     url: spec.url,
-    schema: { ...spec.schema, summary: spec.summary, security: [{ bearer: [] }] },
+    // Every route may answer with the common error body; the OpenAPI document says so.
+    schema: { ...spec.schema, response: { ...errorResponses, ...spec.schema.response }, summary: spec.summary, security: [{ bearer: [] }] },
     // 401, then 404 or 403, come before any complaint about the body.
     async preValidation(request) {
       const caller = await callerOf(request, options);

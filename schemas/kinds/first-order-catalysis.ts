@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Tolerance, UnitText } from '../common.ts';
-import { Estimate } from '../result.ts';
+import { Estimate, RefitValue } from '../result.ts';
 
 /**
  * Experiment kind `first-order-catalysis`: first-order runs followed by a physical observable (optical
@@ -112,7 +112,7 @@ export const RunRefit = z.object({
   label: z.string(),
   /** The model the expected k comes from: the asked one, or `exponential` for a run without x_inf. */
   model: z.enum(['origin', 'intercept', 'exponential']),
-  k: z.object({ instructor: Estimate, declared: Estimate.optional() }),
+  k: RefitValue,
   kOtherModel: Estimate.optional(),
   kExponential: Estimate.optional(),
   halfLife: Estimate.optional(),

@@ -7,7 +7,3 @@ const kinds = new Map<string, ExperimentKind>([[firstOrderCatalysis.kind, firstO
 export function kindFor(name: string): ExperimentKind | undefined {
   return kinds.get(name);
 }
-
-export function kindNames(): string[] {
-  return [...kinds.keys()];
-}
