@@ -85,3 +85,9 @@ export function authorize(caller: Caller, access: Access, scope: Scope): void {
   if (caller.role === 'instructor') return;
   if (scope.sectionId === undefined || !caller.sectionIds.includes(scope.sectionId)) throw notFound();
 }
+
+/** The staff member behind a request on a section route (the admin token never reaches one). */
+export function staffIdOf(caller: Caller): number {
+  if (caller.kind !== 'staff') throw new ApiError('forbidden', 'this action is recorded against a staff member; use a staff token');
+  return caller.staffId;
+}

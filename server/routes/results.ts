@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults } from '../grading/report-inputs.ts';
 import { releaseResults } from '../store/submissions.ts';
+import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
@@ -58,7 +59,7 @@ export const resultRoutes: RouteSpec[] = [
     async handler({ db, scope, params: p, caller }) {
       const rows = await latestWithResults(db, scope.sectionId!, Number(p.assignmentId));
       const ids = rows.flatMap((r) => (r.result ? [r.result.resultId] : []));
-      return { status: 200, body: { released: await releaseResults(db, ids, caller.kind === 'staff' ? caller.staffId : 0) } };
+      return { status: 200, body: { released: await releaseResults(db, ids, staffIdOf(caller)) } };
     },
   },
 ];

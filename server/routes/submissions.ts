@@ -6,6 +6,7 @@ import { submitBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
 import { submissionsFromMultipart } from './multipart-csv.ts';
+import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
@@ -74,7 +75,7 @@ export const submissionRoutes: RouteSpec[] = [
         settingsVersion: assignment.settingsVersion,
         settings: assignment.settings,
         sectionId: scope.sectionId!,
-        staffId: caller.kind === 'staff' ? caller.staffId : 0,
+        staffId: staffIdOf(caller),
         items: submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })),
       });
       if (outcome.stored.length === 0) {
@@ -111,7 +112,7 @@ export const submissionRoutes: RouteSpec[] = [
       const current = row && effectiveResult(row, await overridesOf(db, [submissionId])).findings.find((f) => f.id === findingId);
       if (!current) throw new ApiError('invalid-input', undefined, [{ path: 'body.findingId', message: 'no such finding in the latest result' }]);
       if (pointsLost > row.maxScore) throw new ApiError('invalid-input', undefined, [{ path: 'body.pointsLost', message: `at most ${row.maxScore}` }]);
-      await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: caller.kind === 'staff' ? caller.staffId : 0 });
+      await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: staffIdOf(caller) });
       return { status: 201, body: await submissionView(db, submissionId) };
     },
   },
