@@ -173,7 +173,7 @@ function setColumn(run: SubmittedRun, column: Array<number | null>): void {
 }
 
 /** A careful student's rounding: the uncertainty to 2 significant figures, the value to its last place. */
-function reportedValue(value: number, uncertainty: number, unit: string): ReportedValue {
+export function reportedValue(value: number, uncertainty: number, unit: string): ReportedValue {
   return { value: toPlaces(value, placesFor(uncertainty, 2)), uncertainty: toFigures(uncertainty, 2), unit };
 }
 

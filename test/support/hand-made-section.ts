@@ -1,6 +1,7 @@
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { fitFirstOrderLinear } from '../../server/engine/first-order-linear.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
+import { reportedValue, toFigures } from '../../server/demo/submission-generator.ts';
 
 /**
  * A hand-made case, invented (not measurements): four runs at [H+] = 0.05, 0.10, 0.20, 0.40 M made
@@ -13,14 +14,6 @@ export const acid = [0.05, 0.1, 0.2, 0.4];
 export const trueK = acid.map((c) => 0.02 + 0.2 * c);
 const times = Array.from({ length: 11 }, (_, i) => i);
 
-export const round = (x: number, figures: number) => Number(x.toPrecision(figures));
-
-/** The uncertainty to 2 significant figures and the value to the same decimal place (common practice, no source). */
-export function reportPair(value: number, se: number, unit: string) {
-  const uncertainty = round(se, 2);
-  const decimals = Math.max(0, 1 - Math.floor(Math.log10(uncertainty)));
-  return { value: Number(value.toFixed(decimals)), uncertainty, unit };
-}
 
 export function readingsFor(k: number): Array<[number, number]> {
   return times.map((t) => [t, Math.round((2 + 10 * Math.exp(-k * t)) * 1000) / 1000]);
@@ -38,8 +31,8 @@ export function handMadeSubmission(): Submission {
       readings,
       infinity: 2,
       reported: {
-        lnF: fit.transform.lnF.map((v) => round(v, 5)),
-        k: reportPair(fit.k.value, fit.k.standardError, 'min^-1'),
+        lnF: fit.transform.lnF.map((v) => toFigures(v, 5)),
+        k: reportedValue(fit.k.value, fit.k.standardError, 'min^-1'),
       },
     };
   });
@@ -52,8 +45,8 @@ export function recomputeRateLaw(submission: Submission): Submission {
   const ks = submission.runs.map((r) => Number(r.reported!.k!.value));
   const line = fitLine(acid, ks);
   submission.reported = {
-    kN: reportPair(line.intercept, line.seIntercept, 'min^-1'),
-    kA: reportPair(line.slope, line.seSlope, 'M^-1 min^-1'),
+    kN: reportedValue(line.intercept, line.seIntercept, 'min^-1'),
+    kA: reportedValue(line.slope, line.seSlope, 'M^-1 min^-1'),
   };
   return submission;
 }
