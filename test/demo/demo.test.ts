@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runDemo } from '../../server/demo/run-demo.ts';
-import { folded, pdfText } from '../reports/poppler.ts';
+import { folded, pdfText } from '../support/pdf-reading.ts';
 
 describe('npm run demo', () => {
   let dir: string;

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { fitLine, fitThroughOrigin, type LineFit } from '../../server/engine/linear-fit.ts';
-import { lre, readStrd } from '../support/nist-strd.ts';
+import { listedSums, lre, readStrd, sha256Of } from '../support/nist-strd.ts';
 
 // Certified values: NIST Statistical Reference Datasets (StRD), Linear Least Squares Regression,
-// datasets Norris (straight line), NoInt1 and NoInt2 (line through the origin). The files are read
-// from ../shared/reference/nist-strd/, kept as NIST publishes them.
+// datasets Norris (straight line), NoInt1 and NoInt2 (line through the origin). The files are kept
+// in test/reference/nist-strd/ as NIST publishes them.
 const MIN_LRE = 12;
 
 function lreTable(fit: LineFit, name: string, withIntercept: boolean): Record<string, number> {
@@ -23,6 +23,12 @@ function lreTable(fit: LineFit, name: string, withIntercept: boolean): Record<st
 }
 
 describe('straight-line fits against NIST StRD certified values', () => {
+  it('reads the datasets byte for byte as published (SHA-256 as listed beside them)', () => {
+    const sums = listedSums();
+    expect(Object.keys(sums).sort()).toEqual(['NoInt1', 'NoInt2', 'Norris']);
+    for (const [name, sum] of Object.entries(sums)) expect(sha256Of(name)).toBe(sum);
+  });
+
   it('Norris (y = B0 + B1 x, 36 observations): LRE >= 12 on every certified value', () => {
     const { x, y } = readStrd('Norris');
     const fit = fitLine(x, y);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApi, call, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 import { zipEntryNames } from '../support/zip-entries.ts';
-import { folded, pdfText } from '../reports/poppler.ts';
+import { folded, pdfText } from '../support/pdf-reading.ts';
 import { DRAFT_NOTE } from '../../reports/feedback-input.ts';
 
 // The same flow on a PostgreSQL server and once on the embedded engine (PGlite).

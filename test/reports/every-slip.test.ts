@@ -6,7 +6,7 @@ import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
 import { printableMessage } from '../../reports/format.ts';
 import { slipCase, slipCodes } from '../../server/demo/submission-generator.ts';
 import { feedbackInput } from './fixtures.ts';
-import { folded, pdfText } from './poppler.ts';
+import { folded, pdfText } from '../support/pdf-reading.ts';
 
 // Every slip the generator makes, on four assignment variants each (invented data).
 const cases = slipCodes.flatMap((code) => [0, 1, 2, 3].map((seed) => ({ code, seed })));

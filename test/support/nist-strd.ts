@@ -1,12 +1,23 @@
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 /**
  * Reads a NIST StRD linear-regression dataset (Statistical Reference Datasets, NIST Information
- * Technology Laboratory) from the shared reference folder beside the repository, where it is kept
- * byte for byte as NIST publishes it.
+ * Technology Laboratory) from test/reference/nist-strd/, where it is kept byte for byte as NIST
+ * publishes it; the folder's README names the source and the files' SHA-256 sums.
  */
-export const nistDir = fileURLToPath(new URL('../../../shared/reference/nist-strd/', import.meta.url));
+export const nistDir = fileURLToPath(new URL('../reference/nist-strd/', import.meta.url));
+
+/** The SHA-256 sums the folder's README lists, one per dataset. */
+export function listedSums(): Record<string, string> {
+  const readme = readFileSync(`${nistDir}README.md`, 'utf8');
+  return Object.fromEntries([...readme.matchAll(/^([0-9a-f]{64}) {2}(\w+)\.dat$/gm)].map((m) => [m[2], m[1]]));
+}
+
+export function sha256Of(name: string): string {
+  return createHash('sha256').update(readFileSync(`${nistDir}${name}.dat`)).digest('hex');
+}
 
 export interface StrdDataset {
   x: number[];

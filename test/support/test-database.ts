@@ -2,12 +2,13 @@ import { randomBytes } from 'node:crypto';
 import pg from 'pg';
 import { openStore, type Store } from '../../server/store/connection.ts';
 import { migrateToLatest } from '../../server/store/migrate.ts';
+import { databaseTarget } from './database-target.ts';
 
 /**
- * A fresh, migrated database for one test file, on a real PostgreSQL server: DATABASE_URL where it is
- * set (a new database is created on that server and dropped afterwards), else a testcontainers
- * PostgreSQL where a Docker engine answers; otherwise the tests fail saying no server was found.
- * `pglite` gives the embedded engine instead, in memory.
+ * A fresh, migrated database for one test file. `postgres` asks for a PostgreSQL server where one is
+ * given (database-target.ts): DATABASE_URL (a new database is created on that server and dropped
+ * afterwards), else a testcontainers PostgreSQL where a Docker engine is configured, else the embedded
+ * engine. `pglite` always gives the embedded engine, in memory.
  */
 export interface TestDatabase {
   store: Store;
@@ -43,7 +44,7 @@ async function inContainer(): Promise<TestDatabase> {
     container = await new PostgreSqlContainer('postgres:15').start();
   } catch (error) {
     throw new Error(
-      `no PostgreSQL server found: set DATABASE_URL to a server the tests may create databases on, or start a Docker engine for testcontainers (${(error as Error).message})`,
+      `a Docker engine is configured but no PostgreSQL container started: unset DOCKER_HOST to test on the embedded engine, or set DATABASE_URL (${(error as Error).message})`,
     );
   }
   const db = await onServer(container.getConnectionUri());
@@ -56,12 +57,14 @@ async function inContainer(): Promise<TestDatabase> {
   };
 }
 
+async function embedded(): Promise<TestDatabase> {
+  const store = openStore({ dataDir: 'memory://' });
+  await migrateToLatest(store.db);
+  return { store, close: () => store.db.destroy() };
+}
+
 export async function openTestDatabase(engine: 'postgres' | 'pglite' = 'postgres'): Promise<TestDatabase> {
-  if (engine === 'pglite') {
-    const store = openStore({ dataDir: 'memory://' });
-    await migrateToLatest(store.db);
-    return { store, close: () => store.db.destroy() };
-  }
-  const url = process.env.DATABASE_URL;
-  return url ? onServer(url) : inContainer();
+  const target = engine === 'pglite' ? ({ kind: 'embedded' } as const) : databaseTarget();
+  if (target.kind === 'server') return onServer(target.url);
+  return target.kind === 'container' ? inContainer() : embedded();
 }
