@@ -27,10 +27,11 @@ export async function pdfText(pdf: Buffer): Promise<string> {
       for (const item of content.items) {
         if (!('str' in item)) continue;
         const [, , , , x, y] = item.transform as number[];
-        const apart = end && !/\s$/.test(text) && !/^\s/.test(item.str);
         // A sub- or superscript sits a little off its line; a right-aligned label may be drawn before the text to its left.
-        if (apart && Math.abs(y - end.y) > 0.5 * item.height) text += '\n';
-        else if (apart && Math.abs(x - end.x) > 0.2 * item.height) text += ' ';
+        if (end && !/\s$/.test(text) && !/^\s/.test(item.str)) {
+          if (Math.abs(y - end.y) > 0.5 * item.height) text += '\n';
+          else if (Math.abs(x - end.x) > 0.2 * item.height) text += ' ';
+        }
         text += item.str + (item.hasEOL ? '\n' : '');
         end = item.hasEOL ? undefined : { x: x + item.width, y };
       }
