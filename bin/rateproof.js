@@ -1,12 +1,16 @@
 #!/usr/bin/env node
-// The command is written in TypeScript; tsx compiles it as it loads, so there is no build step.
+// Runs the compiled command in dist/ (npm ci builds it; `npm run build` after a change to the sources).
 import { readFile } from 'node:fs/promises';
-import { register } from 'tsx/esm/api';
 
-register();
-// Imported only after register(): a static import would be resolved before tsx is in place.
-const { run } = await import('../server/cli.ts');
-process.exitCode = await run(process.argv.slice(2), {
+let cli;
+try {
+  cli = await import('../dist/server/cli.js');
+} catch (error) {
+  if (error?.code !== 'ERR_MODULE_NOT_FOUND' || !String(error.message).includes('dist/server/cli.js')) throw error;
+  process.stderr.write('rateproof: the compiled build is missing: run `npm run build` (npm ci runs it)\n');
+  process.exit(1);
+}
+process.exitCode = await cli.run(process.argv.slice(2), {
   stdout: (text) => process.stdout.write(text),
   stderr: (text) => process.stderr.write(text),
   readFile: (path) => readFile(path, 'utf8'),

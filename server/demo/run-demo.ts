@@ -11,7 +11,8 @@ import { sectionFeedback, sectionResults } from '../grading/report-inputs.ts';
 import { openStore } from '../store/connection.ts';
 import { migrateToLatest } from '../store/migrate.ts';
 import { seededRandom } from './seeded-random.ts';
-import { assignmentSettings, generateAssignment, generateSubmission, inject, type SlipCode } from './submission-generator.ts';
+import { generateSection } from './generated-section.ts';
+import { assignmentSettings, generateAssignment } from './submission-generator.ts';
 
 /**
  * `npm run demo`: an invented course with one section of 24 pseudonymous students, graded through the
@@ -19,8 +20,6 @@ import { assignmentSettings, generateAssignment, generateSubmission, inject, typ
  * ./demo-output. Everything here is generated: no measurement, no real student.
  */
 const STUDENTS = 24;
-// The slips a third of the section makes, one or two each.
-const COMMON_SLIPS: SlipCode[] = ['log-base', 'sign-flipped', 'time-unit', 'concentration-unit', 'decimal-shift', 'swapped-axes', 'wrong-infinity', 'fit-model', 'half-life-for-rate', 'uncertainty-kind', 'suspect-reading'];
 
 export async function runDemo(outDir = 'demo-output', write: (line: string) => void = (l) => process.stdout.write(`${l}\n`)): Promise<void> {
   await rm(outDir, { recursive: true, force: true });
@@ -53,17 +52,7 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     });
 
     const settings = generateAssignment(random, options);
-    const slipped = new Map<string, SlipCode[]>();
-    const submissions = ids.map((studentId, i) => {
-      let submission = { ...generateSubmission(random, settings, i + 1), studentId };
-      // Every third student makes one slip, every sixth a second one too.
-      if (i % 3 === 1) {
-        const codes = [COMMON_SLIPS[(i * 7) % COMMON_SLIPS.length], ...(i % 6 === 4 ? [COMMON_SLIPS[(i * 5 + 3) % COMMON_SLIPS.length]] : [])];
-        for (const code of [...new Set(codes)]) submission = inject(code, submission, random, settings).submission;
-        slipped.set(studentId, [...new Set(codes)]);
-      }
-      return submission;
-    });
+    const { submissions, slipped } = generateSection(random, settings, ids);
     await api('POST', `/v1/sections/${section.id}/assignments/${assignment.id}/submissions`, taToken, submissions);
 
     const inputs = await sectionFeedback(store.db, section.id, assignment.id);

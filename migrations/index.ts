@@ -1,0 +1,11 @@
+import type { Migration } from 'kysely';
+import * as initial from './2026-12-02T1000-initial.ts';
+
+/**
+ * Every migration by name, applied in name order (names start with a timestamp). A static list rather
+ * than a folder scan, so that the compiled build finds the same migrations as the sources do; a test
+ * holds the list to the files in this folder.
+ */
+export const migrations: Record<string, Migration> = {
+  '2026-12-02T1000-initial': initial,
+};
