@@ -4,9 +4,14 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
+import { caught } from './support/thrown.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CheckResult } from '../schemas/result.ts';
 import { run } from '../server/cli.ts';
+import { filePosition } from '../server/cli/json-batches.ts';
+import { generateSection } from '../server/demo/generated-section.ts';
+import { seededRandom } from '../server/demo/seeded-random.ts';
+import { generateAssignment } from '../server/demo/submission-generator.ts';
 
 const assignment = { kind: 'first-order-catalysis', fitModel: 'origin' };
 
@@ -159,6 +164,65 @@ describe('bin/rateproof.js', () => {
     const bin = fileURLToPath(new URL('../bin/rateproof.js', import.meta.url));
     const failure = await promisify(execFile)(process.execPath, [bin, 'check', '--assignment', file('absent.json'), file('one.json')]).catch((e: unknown) => e);
     expect(failure).toMatchObject({ code: 2, stderr: `rateproof: cannot read ${file('absent.json')}: no such file\n` });
+  });
+});
+
+describe('rateproof check: large files, worker threads and JSON Lines', () => {
+  // An invented section of 700 generated submissions (about 1.5 MB: two batches of the stream).
+  let big: string;
+  let bigAssignment: string;
+  beforeAll(async () => {
+    const random = seededRandom(31);
+    const settings = generateAssignment(random, { fitModel: 'origin' });
+    const { submissions } = generateSection(random, settings, Array.from({ length: 700 }, (_, i) => `G-${i + 1}`));
+    big = file('big.json');
+    bigAssignment = file('big-assignment.json');
+    await writeFile(big, JSON.stringify(submissions, null, 1));
+    await writeFile(bigAssignment, JSON.stringify(settings));
+    await writeFile(file('big.jsonl'), submissions.map((x) => JSON.stringify(x)).join('\n'));
+  });
+
+  it('prints the same JSON, in the file\'s order, from two worker threads as from this thread', async () => {
+    const pooled = await rateproof('check', '--assignment', bigAssignment, big, '--json', '--workers', '2');
+    const inline = await rateproof('check', '--assignment', bigAssignment, big, '--json', '--workers', '0');
+    expect(pooled.stderr).toBe('');
+    expect(pooled.stdout).toBe(inline.stdout);
+    const results = JSON.parse(pooled.stdout) as CheckResult[];
+    expect(results.map((r) => r.studentId)).toEqual(Array.from({ length: 700 }, (_, i) => `G-${i + 1}`));
+    expect(results.filter((r) => r.findings.some((f) => f.severity === 'error')).length).toBeGreaterThan(100);
+  });
+
+  it('--jsonl prints one compact result per line, without the ln F arrays unless --arrays', async () => {
+    const compact = await rateproof('check', '--assignment', bigAssignment, file('big.jsonl'), '--jsonl', '--workers', '2');
+    const lines = compact.stdout.trimEnd().split('\n');
+    expect(lines).toHaveLength(700);
+    const first = JSON.parse(lines[0]) as CheckResult & { refit: { runs: Array<Record<string, unknown>> } };
+    expect(first.studentId).toBe('G-1');
+    expect(first.refit.runs[0]).not.toHaveProperty('lnF');
+    expect(first.refit.runs[0]).toHaveProperty('k');
+    const full = await rateproof('check', '--assignment', bigAssignment, file('big.jsonl'), '--jsonl', '--arrays');
+    expect((JSON.parse(full.stdout.split('\n')[0]) as typeof first).refit.runs[0].lnF).toHaveLength(16);
+  });
+
+  it('names the line and column of a malformed submission in a large file as JSON.parse of the whole file does, in a worker too', async () => {
+    const lines = (await readFile(big, 'utf8')).split('\n');
+    const slip = Math.floor(lines.length * 0.8);
+    lines[slip] = `${lines[slip]} }`;
+    const text = lines.join('\n');
+    await writeFile(file('big-broken.json'), text);
+    const whole = filePosition((caught(() => JSON.parse(text)) as Error).message, text);
+    expect(whole).toMatch(new RegExp(`at line (${slip + 1}|${slip + 2}) column \\d+$`));
+    for (const workers of ['0', '2']) {
+      const result = await rateproof('check', '--assignment', bigAssignment, file('big-broken.json'), '--json', '--workers', workers);
+      expect(result.code).toBe(2);
+      expect(result.stderr).toBe(`rateproof: cannot read ${file('big-broken.json')}: ${whole}\n`);
+    }
+  });
+
+  it.each([[['--json', '--jsonl']], [['--arrays']], [['--workers', 'many']]])('%j: usage on stderr, exit 2', async (flags) => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), ...flags);
+    expect(result.code).toBe(2);
+    expect(result.stderr).toContain('usage: rateproof check --assignment');
   });
 });
 

@@ -10,3 +10,13 @@ export function thrown(fn: () => unknown): EngineError {
   }
   throw new Error('expected an EngineError, none was thrown');
 }
+
+/** Whatever fn throws (undefined if it returns), for errors of any class. */
+export function caught(fn: () => unknown): unknown {
+  try {
+    fn();
+  } catch (error) {
+    return error;
+  }
+  return undefined;
+}

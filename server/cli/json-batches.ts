@@ -1,0 +1,201 @@
+/**
+ * Splits a large JSON document of submissions into batches of whole elements as it streams in, so that
+ * each batch can be parsed and checked on its own (in a worker) while the file is still being read.
+ * Reads a top-level array, a single object, or JSON Lines. Only the top level is read here; a malformed
+ * element is found when its batch is parsed, and parseBatch names its line and column in the file.
+ */
+
+import { jsonErrorPosition } from './json-error-position.ts';
+
+export interface JsonBatch {
+  /** Whole elements: for an array with the commas between them, for JSON Lines one per line. */
+  text: string;
+  /** Line and column (1-based) where `text` starts in the file. */
+  line: number;
+  column: number;
+}
+
+/** A document that cannot be read: the reason, at a line and column of the file. */
+export class JsonLayoutError extends Error {}
+
+const at = (line: number, column: number) => `at line ${line} column ${column}`;
+
+const OPEN_BRACKET = 0x5b;
+const CLOSE_BRACKET = 0x5d;
+const OPEN_BRACE = 0x7b;
+const CLOSE_BRACE = 0x7d;
+const QUOTE = 0x22;
+const BACKSLASH = 0x5c;
+const COMMA = 0x2c;
+const NEWLINE = 0x0a;
+
+const isSpace = (b: number) => b === 0x20 || b === NEWLINE || b === 0x0d || b === 0x09;
+
+/** The batch's elements, parsed; a syntax error names the file's line and column. */
+export function parseBatch(batch: JsonBatch, jsonLines: boolean): unknown[] {
+  if (jsonLines) {
+    return batch.text.split('\n').flatMap((line, i) => {
+      if (line.trim() === '') return [];
+      try {
+        return [JSON.parse(line) as unknown];
+      } catch (error) {
+        throw new JsonLayoutError(filePosition((error as Error).message, line, batch.line + i));
+      }
+    });
+  }
+  // The opening bracket stands on a line of its own before the batch's first line, and spaces pad that
+  // line to the batch's column, so that positions in this text fall on the file's lines and columns.
+  const text = `[\n${' '.repeat(batch.column - 1)}${batch.text}]`;
+  try {
+    return JSON.parse(text) as unknown[];
+  } catch (error) {
+    throw new JsonLayoutError(filePosition((error as Error).message, text, batch.line - 1));
+  }
+}
+
+/**
+ * JSON.parse says `at position 57`, or for an unexpected token quotes the text around it; a person
+ * editing the file wants the reason, the line and the column.
+ */
+export function filePosition(message: string, text: string, firstLine = 1): string {
+  const stated = /^(.*?) in JSON at position (\d+)/.exec(message);
+  const reason = stated ? stated[1] : message.replace(/, (".*"|\.\.\.".*") is not valid JSON$/s, '');
+  const position = stated ? Number(stated[2]) : jsonErrorPosition(text);
+  if (position < 0) return reason;
+  const before = text.slice(0, position).split('\n');
+  return `${reason} ${at(firstLine + before.length - 1, before[before.length - 1].length + 1)}`;
+}
+
+export class JsonBatcher {
+  private shape: 'unknown' | 'array' | 'object' | 'lines' | 'done';
+  private depth = 0;
+  private inString = false;
+  private escaped = false;
+  private line = 1;
+  private column = 1;
+  /** The batch being gathered: its bytes from earlier pieces, their size, where it starts. */
+  private parts: Buffer[] = [];
+  private size = 0;
+  private start: { line: number; column: number } | undefined;
+  private ready: JsonBatch[] = [];
+  /** The batch that ended the document, kept to explain text found after it. */
+  private lastBatch: JsonBatch | undefined;
+
+  constructor(private readonly options: { jsonLines: boolean; batchBytes: number }) {
+    this.shape = options.jsonLines ? 'lines' : 'unknown';
+  }
+
+  /** Feeds the next piece of the file; returns the batches it completed. */
+  push(piece: Buffer): JsonBatch[] {
+    if (this.shape === 'lines') this.scanLines(piece);
+    else this.scan(piece);
+    const ready = this.ready;
+    this.ready = [];
+    return ready;
+  }
+
+  /** The end of the file: the last batch, or an error if the document is unfinished. */
+  end(): JsonBatch[] {
+    if (this.shape === 'lines') this.close(Buffer.alloc(0));
+    else if (this.shape !== 'done') throw new JsonLayoutError(`${this.shape === 'unknown' ? 'no JSON value' : 'the file ends inside the document'} ${at(this.line, this.column)}`);
+    return this.ready;
+  }
+
+  private scanLines(piece: Buffer): void {
+    let from = 0;
+    for (let nl = piece.indexOf(NEWLINE); nl >= 0; nl = piece.indexOf(NEWLINE, nl + 1)) {
+      this.start ??= { line: this.line, column: 1 };
+      this.line++;
+      if (this.size + nl + 1 - from >= this.options.batchBytes) {
+        this.close(piece.subarray(from, nl + 1));
+        from = nl + 1;
+      }
+    }
+    if (from < piece.length) {
+      this.start ??= { line: this.line, column: 1 };
+      this.keep(piece.subarray(from));
+    }
+  }
+
+  private scan(piece: Buffer): void {
+    // Where the open batch's bytes begin in this piece (-1: no batch is open).
+    let from = this.start ? 0 : -1;
+    const open = (i: number) => {
+      if (from < 0) {
+        this.start = { line: this.line, column: this.column };
+        from = i;
+      }
+    };
+    for (let i = 0; i < piece.length; i++) {
+      const b = piece[i];
+      if (this.inString) {
+        if (this.escaped) this.escaped = false;
+        else if (b === BACKSLASH) this.escaped = true;
+        else if (b === QUOTE) this.inString = false;
+      } else if (isSpace(b)) {
+        // between values
+      } else if (this.shape === 'unknown') {
+        if (b === OPEN_BRACKET) this.shape = 'array';
+        else if (b === OPEN_BRACE) {
+          this.shape = 'object';
+          open(i);
+        } else this.fail(b);
+        this.depth = 1;
+      } else if (this.shape === 'done') {
+        this.fail(b);
+      } else if (b === OPEN_BRACE || b === OPEN_BRACKET) {
+        open(i);
+        this.depth++;
+      } else if (b === CLOSE_BRACE || b === CLOSE_BRACKET) {
+        if (--this.depth === 0) {
+          // The array's closing bracket is not part of its last element; the single object's brace is.
+          if (from >= 0) this.close(piece.subarray(from, this.shape === 'object' ? i + 1 : i), true);
+          from = -1;
+          this.shape = 'done';
+        }
+      } else if (b === COMMA && this.depth === 1 && this.shape === 'array') {
+        if (from < 0) this.fail(b);
+        if (this.size + i - from >= this.options.batchBytes) {
+          this.close(piece.subarray(from, i));
+          from = -1;
+        }
+      } else {
+        if (b === QUOTE) this.inString = true;
+        open(i);
+      }
+      if (b === NEWLINE) {
+        this.line++;
+        this.column = 1;
+      } else if ((b & 0xc0) !== 0x80) {
+        // Columns count characters: UTF-8 continuation bytes do not start one.
+        this.column++;
+      }
+    }
+    if (from >= 0) this.keep(piece.subarray(from));
+  }
+
+  /**
+   * A character that does not belong at the top level. A slip inside an element (a brace too many)
+   * can end the document early and show only here, later: parsing the last batch names the slip's own
+   * place when it can.
+   */
+  private fail(b: number): never {
+    if (this.lastBatch) parseBatch(this.lastBatch, false);
+    throw new JsonLayoutError(`unexpected "${String.fromCharCode(b)}" ${at(this.line, this.column)}`);
+  }
+
+  private keep(bytes: Buffer): void {
+    this.parts.push(bytes);
+    this.size += bytes.length;
+  }
+
+  private close(last: Buffer, final = false): void {
+    this.keep(last);
+    const text = Buffer.concat(this.parts).toString('utf8');
+    if (this.start && text.trim() !== '') this.ready.push({ text, ...this.start });
+    if (final && this.start) this.lastBatch = { text, ...this.start };
+    this.parts = [];
+    this.size = 0;
+    this.start = undefined;
+  }
+}

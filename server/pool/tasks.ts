@@ -1,0 +1,14 @@
+/**
+ * The work a pool worker does, by name. Each task's module loads in a worker on its first use, so a
+ * worker that only checks never loads the PDF code. Inputs and outputs cross threads by structured clone.
+ */
+export const tasks = {
+  'check-json-batch': () => import('../cli/check-json-batch.ts').then((m) => m.checkJsonBatch),
+  check: () => import('../checks/check-settings-batch.ts').then((m) => m.checkSettingsBatch),
+  'render-sheet': () => import('../../reports/feedback-sheet.ts').then((m) => m.renderFeedbackSheet),
+};
+
+export type TaskName = keyof typeof tasks;
+type TaskFunction<N extends TaskName> = Awaited<ReturnType<(typeof tasks)[N]>>;
+export type TaskInput<N extends TaskName> = Parameters<TaskFunction<N>>[0];
+export type TaskOutput<N extends TaskName> = Awaited<ReturnType<TaskFunction<N>>>;

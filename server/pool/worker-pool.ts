@@ -1,0 +1,107 @@
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
+import type { TaskName, TaskInput, TaskOutput } from './tasks.ts';
+
+/**
+ * A fixed set of worker threads for the CPU-bound work (checking, rendering sheets), so that the
+ * command uses every core and the service's event loop never waits on a batch. Workers start on the
+ * first task and stay until `close`; each keeps its loaded modules, fonts and parsed settings.
+ */
+export interface WorkerPool {
+  run<N extends TaskName>(name: N, input: TaskInput<N>, transfer?: ArrayBuffer[]): Promise<TaskOutput<N>>;
+  readonly size: number;
+  close(): Promise<void>;
+}
+
+interface Job {
+  id: number;
+  name: TaskName;
+  input: unknown;
+  transfer: ArrayBuffer[];
+  resolve(value: unknown): void;
+  reject(error: Error): void;
+}
+
+interface Slot {
+  worker: Worker;
+  job?: Job;
+}
+
+type Reply = { id: number; output: unknown } | { id: number; error: { message: string; name: string } };
+
+// The build runs as JavaScript. Sources run under tsx (tests, development): a worker registers tsx's
+// loader before it imports the TypeScript worker module.
+const fromSource = import.meta.url.endsWith('.ts');
+const workerModule = new URL(fromSource ? './pool-worker.ts' : './pool-worker.js', import.meta.url);
+
+function newWorker(): Worker {
+  if (!fromSource) return new Worker(workerModule);
+  const boot = `import('tsx/esm/api').then((tsx) => { tsx.register(); return import(${JSON.stringify(workerModule.href)}); });`;
+  return new Worker(boot, { eval: true });
+}
+
+/** A task that failed in a worker: the worker's error name and message. */
+export class WorkerTaskError extends Error {
+  constructor(message: string, readonly taskErrorName: string) {
+    super(message);
+  }
+}
+
+export function createWorkerPool(size = availableParallelism()): WorkerPool {
+  const slots: Slot[] = [];
+  const queue: Job[] = [];
+  let nextId = 1;
+  let closed = false;
+
+  const start = (): Slot => {
+    const worker = newWorker();
+    const slot: Slot = { worker };
+    worker.on('message', (reply: Reply) => {
+      const job = slot.job;
+      slot.job = undefined;
+      if (job) {
+        if ('error' in reply) job.reject(new WorkerTaskError(reply.error.message, reply.error.name));
+        else job.resolve(reply.output);
+      }
+      dispatch();
+    });
+    worker.on('error', (error) => {
+      // A worker that dies takes its task with it; a new one takes its place for the rest.
+      slot.job?.reject(error);
+      slots.splice(slots.indexOf(slot), 1);
+      dispatch();
+    });
+    worker.unref();
+    slots.push(slot);
+    return slot;
+  };
+
+  const dispatch = () => {
+    while (queue.length > 0) {
+      const slot = slots.find((s) => !s.job) ?? (slots.length < size ? start() : undefined);
+      if (!slot) return;
+      const job = queue.shift()!;
+      slot.job = job;
+      slot.worker.ref();
+      slot.worker.postMessage({ id: job.id, name: job.name, input: job.input }, job.transfer);
+    }
+    // Idle workers must not keep a finished command alive.
+    for (const slot of slots) if (!slot.job) slot.worker.unref();
+  };
+
+  return {
+    size,
+    run(name, input, transfer = []) {
+      if (closed) return Promise.reject(new Error('the worker pool is closed'));
+      return new Promise((resolve, reject) => {
+        queue.push({ id: nextId++, name, input, transfer, resolve: resolve as (v: unknown) => void, reject });
+        dispatch();
+      });
+    },
+    async close() {
+      closed = true;
+      for (const job of queue.splice(0)) job.reject(new Error('the worker pool is closed'));
+      await Promise.all(slots.splice(0).map((s) => s.worker.terminate()));
+    },
+  };
+}
