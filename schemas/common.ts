@@ -10,7 +10,8 @@ export const NumberLike = z
   .refine((v) => Number.isFinite(Number(v)), 'a finite number');
 export type NumberLike = z.infer<typeof NumberLike>;
 
-export const FiniteNumber = z.number().refine(Number.isFinite, 'a finite number');
+// zod's number refuses Infinity and NaN itself (JSON cannot carry them anyway).
+export const FiniteNumber = z.number();
 
 export const UnitText = z.string().trim().min(1, 'a unit such as min^-1 or M').max(40);
 

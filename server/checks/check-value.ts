@@ -2,7 +2,7 @@ import type { Tolerance } from '../../schemas/common.ts';
 import type { Finding } from '../../schemas/result.ts';
 import { likelyCause } from './cause-text.ts';
 import type { DraftFinding } from './draft-finding.ts';
-import { expandCandidates, explain, type Candidate, type Expanded, type Factor } from './explain.ts';
+import { explain, type Candidate, type Expanded, type Factor } from './explain.ts';
 import { withUnit } from './format.ts';
 import { withinTolerance } from './tolerance.ts';
 
@@ -67,7 +67,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips ?? [])];
   if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
-  const by = explain(reported, expandCandidates(roots, c.factors), tolerance);
+  const by = explain(reported, roots, c.factors, tolerance);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;
     const how = by.says.length ? ` ${by.says.join(' and ')}` : '';

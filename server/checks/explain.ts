@@ -72,25 +72,6 @@ export type Expanded = Candidate & { root: number; says: string[] };
 // method joins only the common unit slips. Wider pairings would "explain" almost any number.
 const JOINS_A_METHOD_SLIP = new Set<FindingCode>(['sign-flipped', 'log-base', 'time-unit']);
 
-/** Every base value alone, with one scaling, and with one scaling and the sign; at most two causes. */
-export function expandCandidates(bases: Candidate[], factors: Factor[]): Expanded[] {
-  const out: Expanded[] = [];
-  const sign = factors.find((f) => f.cause === 'sign-flipped');
-  for (const b of bases) {
-    const base: Expanded = { ...b, root: b.value, says: [] };
-    out.push(base);
-    for (const f of factors) {
-      if (base.causes.length > 0 && !JOINS_A_METHOD_SLIP.has(f.cause)) continue;
-      const one: Expanded = { ...base, value: base.value * f.factor, causes: [...base.causes, f.cause], says: [f.says] };
-      out.push(one);
-      if (sign && f !== sign && base.causes.length === 0) {
-        out.push({ ...one, value: -one.value, causes: [sign.cause, f.cause], says: [sign.says, f.says] });
-      }
-    }
-  }
-  return out;
-}
-
 function better(c: Candidate, best: Candidate, reported: number): boolean {
   if (c.causes.length !== best.causes.length) return c.causes.length < best.causes.length;
   const closer = Math.abs(reported - c.value) < Math.abs(reported - best.value);
@@ -98,13 +79,28 @@ function better(c: Candidate, best: Candidate, reported: number): boolean {
   return rank(c) < rank(best);
 }
 
-/** The best explanation of `reported`, or undefined when no candidate matches. */
-export function explain<C extends Candidate>(reported: number, candidates: C[], tolerance: Tolerance): C | undefined {
-  let best: C | undefined;
-  for (const c of candidates) {
-    if (!Number.isFinite(c.value) || !withinTolerance(reported, c.value, tolerance)) continue;
-    if (!best || better(c, best, reported)) {
-      best = c;
+/**
+ * The best explanation of `reported`, or undefined when none matches. The candidates are every base
+ * value alone, with one scaling, and with one scaling and the sign: at most two causes. A candidate is
+ * built only when its value matches, since almost none do.
+ */
+export function explain(reported: number, bases: Candidate[], factors: Factor[], tolerance: Tolerance): Expanded | undefined {
+  let best: Expanded | undefined;
+  const consider = (value: number, make: () => Expanded) => {
+    if (!Number.isFinite(value) || !withinTolerance(reported, value, tolerance)) return;
+    const c = make();
+    if (!best || better(c, best, reported)) best = c;
+  };
+  const sign = factors.find((f) => f.cause === 'sign-flipped');
+  for (const b of bases) {
+    consider(b.value, () => ({ ...b, root: b.value, says: [] }));
+    for (const f of factors) {
+      if (b.causes.length > 0 && !JOINS_A_METHOD_SLIP.has(f.cause)) continue;
+      const scaled = b.value * f.factor;
+      consider(scaled, () => ({ ...b, root: b.value, value: scaled, causes: [...b.causes, f.cause], says: [f.says] }));
+      if (sign && f !== sign && b.causes.length === 0) {
+        consider(-scaled, () => ({ ...b, root: b.value, value: -scaled, causes: [sign.cause, f.cause], says: [sign.says, f.says] }));
+      }
     }
   }
   return best;

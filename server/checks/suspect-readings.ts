@@ -36,10 +36,11 @@ interface Curve {
   timeUnit: string;
 }
 
-function fitWithout(curve: Curve, skip: number) {
+/** The curve without reading `skip`, started from the rate of the fit of all where there is one. */
+function fitWithout(curve: Curve, skip: number, initialK?: number) {
   const times = curve.times.filter((_, i) => i !== skip);
   const readings = curve.readings.filter((_, i) => i !== skip);
-  return fitFirstOrderNonlinear({ times, readings, timeUnit: curve.timeUnit }, { infinity: 'fitted' });
+  return fitFirstOrderNonlinear({ times, readings, timeUnit: curve.timeUnit }, { infinity: 'fitted', initialK });
 }
 
 /**
@@ -48,16 +49,18 @@ function fitWithout(curve: Curve, skip: number) {
  */
 function mostSuspect(curve: Curve) {
   let tried = curve.readings.map((_, i) => i);
+  let initialK: number | undefined;
   try {
     const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted' });
     tried = tried.sort((a, b) => Math.abs(all.residuals[b]) - Math.abs(all.residuals[a])).slice(0, 3);
+    initialK = all.k.value;
   } catch (error) {
     if (!(error instanceof EngineError)) throw error;
   }
   let best: { index: number; fit: ReturnType<typeof fitWithout> } | undefined;
   for (const i of tried) {
     try {
-      const fit = fitWithout(curve, i);
+      const fit = fitWithout(curve, i, initialK);
       if (!best || fit.residualSD < best.fit.residualSD) best = { index: i, fit };
     } catch (error) {
       if (!(error instanceof EngineError)) throw error;
@@ -76,10 +79,12 @@ export function findSuspectReading(curve: Curve): SuspectReading | undefined {
   const origin = index === 0 ? curve.times[1] : curve.times[0];
   const predicted = fit.infinity.value + (fit.x0.value - fit.infinity.value) * Math.exp(-fit.k.value * (curve.times[index] - origin));
   const reading = curve.readings[index];
+  const offset = Math.abs(reading - predicted);
+  // The cheap test first: the display step is needed only for a reading far off by the scatter.
+  if (offset <= SUSPECT_SDS * fit.residualSD) return undefined;
   const decimals = curve.readings.reduce((d, x) => Math.max(d, decimalsOf(x)), 0);
   const step = 10 ** -decimals;
-  const offset = Math.abs(reading - predicted);
-  if (offset <= SUSPECT_SDS * fit.residualSD || offset <= MIN_OFFSET_STEPS * step) return undefined;
+  if (offset <= MIN_OFFSET_STEPS * step) return undefined;
   // The intended value was written to the run's precision; a slip that added a digit is undone by
   // dropping one, and the reverse.
   const nearest = oneSlipCopies(reading, decimals)
