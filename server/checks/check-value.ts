@@ -26,8 +26,8 @@ export interface ValueCheck {
    * `quiet` when the value it goes with has already said so (an uncertainty beside its value).
    */
   carriedForward?: { value: number; from: string; quiet?: boolean };
-  /** Values produced by known slips of method (each with its cause). */
-  slips?: Candidate[];
+  /** Values produced by known slips of method (each with its cause); asked for only when the value is not right. */
+  slips?: () => Candidate[];
   /** Scalings that known slips of units or copying produce. */
   factors: Factor[];
   tolerance: Tolerance;
@@ -65,7 +65,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
     });
     return { kind: 'carried-forward' };
   }
-  const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips ?? [])];
+  const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
   if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
   const by = explain(reported, roots, c.factors, tolerance);
   if (by && by.causes.length > 0) {

@@ -1,5 +1,5 @@
 import { EngineError } from '../engine/engine-error.ts';
-import { fitFirstOrderNonlinear } from '../engine/first-order-nonlinear.ts';
+import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../engine/first-order-nonlinear.ts';
 import { decimalsOf, oneSlipCopies, type SlipKind } from './digit-slips.ts';
 
 /**
@@ -10,6 +10,7 @@ import { decimalsOf, oneSlipCopies, type SlipKind } from './digit-slips.ts';
  */
 const SUSPECT_SDS = 6;
 const MIN_OFFSET_STEPS = 10;
+const SCREEN_MARGIN = 1.5;
 
 export interface SuspectReading {
   index: number;
@@ -44,6 +45,23 @@ function fitWithout(curve: Curve, skip: number, initialK?: number) {
 }
 
 /**
+ * Whether reading i could lie SUSPECT_SDS residual SDs off the curve fitted without it, judged from
+ * the fit of all readings alone. For a model linear in its parameters the curve without reading i
+ * misses it by r_i / (1 - h_i) exactly, and the others' sum of squares is SSE - r_i^2 / (1 - h_i)
+ * (h_i the reading's leverage). Near its optimum the exponential fit is close to linear (these estimates
+ * agree with the refits to a few per cent), so a margin of 1.5 leaves the refits without a reading to the
+ * runs where one might be suspect.
+ */
+function mightBeSuspect(all: FirstOrderNonlinearFit, i: number): boolean {
+  const r = all.residuals[i];
+  const free = 1 - all.leverages[i];
+  if (!(free > 1e-6)) return true;
+  const sse = all.residualSD ** 2 * all.dof;
+  const sdWithout = Math.sqrt(Math.max(0, sse - (r * r) / free) / (all.dof - 1));
+  return Math.abs(r) / free > (SUSPECT_SDS / SCREEN_MARGIN) * sdWithout;
+}
+
+/**
  * The reading whose removal leaves the tightest curve. Only the three worst-fitting readings of a fit
  * of all are tried; when one reading is so far off that no fit of all converges, every reading is.
  */
@@ -53,6 +71,7 @@ function mostSuspect(curve: Curve) {
   try {
     const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted' });
     tried = tried.sort((a, b) => Math.abs(all.residuals[b]) - Math.abs(all.residuals[a])).slice(0, 3);
+    if (!tried.some((i) => mightBeSuspect(all, i))) return undefined;
     initialK = all.k.value;
   } catch (error) {
     if (!(error instanceof EngineError)) throw error;

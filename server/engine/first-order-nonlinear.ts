@@ -26,6 +26,8 @@ export interface FirstOrderNonlinearFit {
   residualSD: number;
   dof: number;
   residuals: number[];
+  /** Leverage of each reading: the diagonal of J (J'J)^-1 J' at the optimum. */
+  leverages: number[];
   iterations: number;
 }
 
@@ -207,6 +209,12 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
   const columns: ArrayLike<number>[] = fitted ? [dk, current.u, new Array<number>(n).fill(1)] : [dk, current.u];
   // Row-major (J'J)^-1: var k at [0]; var A at [4] (3 x 3) or [3] (2 x 2); var x_inf at [8], cov(A, x_inf) at [5].
   const inv = inverseNormalMatrix(columns);
+  const leverages = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    let h = 0;
+    for (let r = 0; r < parameters; r++) for (let c = 0; c < parameters; c++) h += columns[r][i] * inv[r * parameters + c] * columns[c][i];
+    leverages[i] = h;
+  }
   const dof = n - parameters;
   const s2 = current.sse / dof;
   const tc = tCritical95(dof);
@@ -222,6 +230,7 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
     residualSD: Math.sqrt(s2),
     dof,
     residuals: current.residuals,
+    leverages,
     iterations,
   };
 }

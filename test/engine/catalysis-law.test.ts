@@ -4,7 +4,7 @@ import { fitLine } from '../../server/engine/linear-fit.ts';
 import { thrown } from '../support/thrown.ts';
 
 // Plausibility scale only: glucose mutarotation at 25 C, k_N = 0.0221 min^-1 and
-// k_H = 0.594 M^-1 min^-1 in natural-log units (from memory, in ../shared/reference/
+// k_H = 0.594 M^-1 min^-1 in natural-log units (from memory, in test/reference/
 // kinetics-check-values.md). The checks below are of the fit, not of these values.
 const kN = 0.0221;
 const kA = 0.594;

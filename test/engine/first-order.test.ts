@@ -11,7 +11,7 @@ const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
 describe('a published worked example: sucrose inversion in 0.5 M HCl at 35 C', () => {
   // Source: a textbook-style worked problem on a public chemistry question-and-answer site, as
-  // recorded in ../shared/reference/kinetics-check-values.md. t/min = 0..40, rotation/deg below,
+  // recorded in test/reference/kinetics-check-values.md. t/min = 0..40, rotation/deg below,
   // r_inf = -11.1 deg. The least-squares slope of ln(r_t - r_inf) against t is -8.718e-3 per min
   // [derived there]; the source's own one-interval answer is 8.625e-3 min^-1.
   const run = { times: [0, 10, 20, 30, 40], readings: [32.4, 28.8, 25.5, 22.4, 19.6], infinity: -11.1, timeUnit: 'min' };
@@ -64,6 +64,18 @@ describe('noise-free runs: every method returns the rate constant it was made wi
     expect(rel(fit.x0.value, 22.44)).toBeLessThan(1e-9);
     expect(rel(fit.infinity.value, 10.54)).toBeLessThan(1e-9);
     expect(fit.x0.unit).toBe('deg');
+  });
+
+  it('gives each reading its leverage: between 0 and 1, summing to the number of parameters', () => {
+    // The hat matrix J (J'J)^-1 J' is a projection onto the parameters' columns, so its trace is their
+    // number (a property of least squares, common practice, no source).
+    const sum = (v: number[]) => v.reduce((a, b) => a + b, 0);
+    const fitted = fitFirstOrderNonlinear({ ...run, infinity: undefined }, { infinity: 'fitted' });
+    expect(sum(fitted.leverages)).toBeCloseTo(3, 9);
+    const fixed = fitFirstOrderNonlinear(run, { infinity: 'fixed' });
+    expect(sum(fixed.leverages)).toBeCloseTo(2, 9);
+    for (const h of fitted.leverages) expect(h).toBeGreaterThan(0);
+    for (const h of fitted.leverages) expect(h).toBeLessThan(1);
   });
 
   it('works for a rise toward x_inf and with times in seconds not starting at zero', () => {

@@ -30,7 +30,7 @@ describe('conversion between units of one kind', () => {
   });
 
   it('converts a second-order rate constant per minute to per second', () => {
-    // Worked value in ../shared/reference/kinetics-check-values.md, derived there.
+    // Worked value in test/reference/kinetics-check-values.md, derived there.
     expect(convert(0.594, 'M^-1 min^-1', 'M^-1 s^-1').toExponential(2)).toBe('9.90e-3');
   });
 

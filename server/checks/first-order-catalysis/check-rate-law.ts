@@ -119,7 +119,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         unit,
         expected: ours.standardError,
         carriedForward: theirs && { value: theirs.standardError, from, quiet: outcome.kind === 'carried-forward' },
-        slips: spread,
+        slips: () => spread,
         factors: factors.filter((f) => f !== SIGN),
         tolerance: tolerances.rateLawUncertainty,
       },

@@ -8,7 +8,7 @@ import { decimalsOf } from '../digit-slips.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
 import type { RunAnalysis } from './run-analysis.ts';
-import { fitDefined, slipFits } from './slip-values.ts';
+import { fitDefined, slipFits, type SlipFit } from './slip-values.ts';
 
 /** The student's k for one run, in the run's rate unit, as the second stage will use it. */
 export interface StudentK {
@@ -41,7 +41,9 @@ export function checkRunK(
   }
   const unit = rateUnitOf(a.timeUnit);
   const read = readReported(reported, 'first-order-rate', unit, settings.units.k, { path, what, stage: 'run' }, drafts);
-  const slips = slipFits(a, all, settings.fitModel);
+  // The values of known slips are needed only for a value that is not right: most are right.
+  let slips: SlipFit[] | undefined;
+  const slipValues = () => (slips ??= slipFits(a, all, settings.fitModel));
   // k from the student's own ln F column, when that column carries a slip of its own.
   let own: Estimate | undefined;
   if (ownColumn?.wrong && a.transform) {
@@ -61,13 +63,13 @@ export function checkRunK(
       expected: a.expected.value,
       alsoRight: a.alsoRight.map((e) => e.value),
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
-      slips: slips.map((s) => s.k),
+      slips: () => slipValues().map((s) => s.k),
       factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       tolerance: tolerances.k,
     },
     drafts,
   );
-  const slipSEs = uncertaintySlips(read.value, Number(reported.value), a, slips.map((s) => s.se));
+  const slipSEs = () => uncertaintySlips(read.value, Number(reported.value), a, slipValues().map((s) => s.se));
   checkUncertainty(read.uncertainty, a, own, outcome, slipSEs, settings, drafts);
   return { value: read.value, uncertainty: read.uncertainty };
 }
@@ -95,7 +97,7 @@ function checkUncertainty(
   a: RunAnalysis,
   own: Estimate | undefined,
   kOutcome: ValueOutcome,
-  slipSEs: Candidate[],
+  slipSEs: () => Candidate[],
   settings: Settings,
   drafts: DraftFinding[],
 ): void {
@@ -108,7 +110,7 @@ function checkUncertainty(
   }
   // Judge the uncertainty against the fit the value came from, so one slip is not named twice.
   const by = kOutcome.kind === 'explained' ? kOutcome.by : undefined;
-  const byK = by && slipSEs.find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
+  const byK = by && slipSEs().find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
   const expected = a.expected.standardError;
   const line = a.asked;
   const spread: Candidate[] = line
@@ -130,7 +132,7 @@ function checkUncertainty(
       expected,
       alsoRight: byK ? [byK.value] : [],
       carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
-      slips: [...spread, ...slipSEs],
+      slips: () => [...spread, ...slipSEs()],
       factors: [LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       tolerance: settings.tolerances.kUncertainty,
     },
