@@ -5,6 +5,8 @@ import fastifySwaggerUi from '@fastify/swagger-ui';
 import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
 import { hasZodFastifySchemaValidationErrors, jsonSchemaTransform, serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
 import type { Config } from './config.ts';
+import { poolGrader, type Grader } from './grading/grader.ts';
+import { createWorkerPool } from './pool/worker-pool.ts';
 import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
 import { routes } from './routes/index.ts';
@@ -18,6 +20,8 @@ import { findCaller } from './store/tokens.ts';
 export interface AppOptions {
   config: Config;
   store: Store;
+  /** Where checking and drawing run; by default a worker pool of the app's own, closed with it. */
+  grader?: Grader;
   /** Off in tests; pino otherwise. Logs carry request ids and URLs only, never bodies or tokens. */
   logger?: boolean;
 }
@@ -49,7 +53,7 @@ const errorResponses = Object.fromEntries([400, 401, 403, 404, 409, 413, 415, 42
 /** Who called and what the URL points to, settled before the body is validated. */
 const resolved = new WeakMap<FastifyRequest, { caller: Caller; scope: Scope }>();
 
-function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions): void {
+function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, grader: Grader): void {
   const { db } = options.store;
   app.route({
     method: spec.method,
@@ -79,7 +83,7 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions): v
             return { status: seen.statusCode, body: seen.body, replayed: true };
           }
         }
-        const answer = await spec.handler({ db: trx, config: options.config, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply });
+        const answer = await spec.handler({ db: trx, config: options.config, grader, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply });
         if (keyText !== undefined && caller.kind === 'staff') await saveIdempotent(trx, caller.staffId, keyText, hash, answer.status, answer.body);
         return { ...answer, replayed: false };
       };
@@ -160,6 +164,12 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
   app.get('/health', { schema: { hide: true } }, async () => ({ ok: true, database: options.store.engine }));
 
-  for (const spec of routes) register(app, spec, options);
+  let grader = options.grader;
+  if (!grader) {
+    const pool = createWorkerPool();
+    app.addHook('onClose', () => pool.close());
+    grader = poolGrader(pool);
+  }
+  for (const spec of routes) register(app, spec, options, grader);
   return app;
 }

@@ -1,7 +1,7 @@
 import type { Kysely } from 'kysely';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkSubmission, type Assignment } from '../checks/check.ts';
 import type { Database } from '../store/database.ts';
+import type { Grader } from './grader.ts';
 import { rosterRows } from '../store/students.ts';
 import { storeGraded } from '../store/submissions.ts';
 
@@ -23,9 +23,11 @@ export interface BatchOutcome {
  */
 export async function submitBatch(
   db: Kysely<Database>,
-  args: { assignment: Assignment; assignmentId: number; settingsVersion: number; settings: unknown; sectionId: number; staffId: number; items: BatchItem[] },
+  grader: Grader,
+  args: { assignmentId: number; settingsVersion: number; settings: unknown; sectionId: number; staffId: number; items: BatchItem[] },
 ): Promise<BatchOutcome> {
-  const graded = args.items.map((item) => ({ item, result: checkSubmission(args.assignment, item.submission) }));
+  const results = await grader.check(args.settings, args.items.map((item) => item.submission));
+  const graded = args.items.map((item, i) => ({ item, result: results[i] }));
   const ids = graded.map((g) => g.result.studentId).filter((id): id is string => id !== null);
   const roster = await rosterRows(db, args.sectionId, [...new Set(ids)]);
   const outcome: BatchOutcome = { stored: [], rejected: [] };

@@ -70,13 +70,13 @@ export const assignmentRoutes: RouteSpec[] = [
       response: { 200: z.object({ regraded: z.number() }) },
     },
     transactional: true,
-    async handler({ db, params, body, scope }) {
+    async handler({ db, grader, params, body, scope }) {
       const sectionId = (body as { sectionId?: number } | undefined)?.sectionId;
       if (sectionId !== undefined && (await getSection(db, sectionId))?.courseId !== scope.courseId) {
         throw new ApiError('invalid-input', undefined, [{ path: 'body.sectionId', message: 'no such section in this course' }]);
       }
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
-      return { status: 200, body: { regraded: await regrade(db, assignment, sectionId) } };
+      return { status: 200, body: { regraded: await regrade(db, grader, assignment, sectionId) } };
     },
   },
 ];

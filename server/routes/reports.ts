@@ -1,8 +1,6 @@
 import { z } from 'zod';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
 import { gradebookCsv } from '../../reports/gradebook-csv.ts';
 import { sectionZip } from '../../reports/section-zip.ts';
-import { renderSectionSummary } from '../../reports/section-summary.ts';
 import { ApiError } from '../errors.ts';
 import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -21,10 +19,10 @@ export const reportRoutes: RouteSpec[] = [
     access: 'section',
     summary: "A student's feedback sheet (PDF) for this submission's latest result, overrides applied",
     schema: { params: z.object({ submissionId: IdParam }), response: { 200: file } },
-    async handler({ db, params: p }) {
+    async handler({ db, grader, params: p }) {
       const input = await submissionFeedback(db, Number(p.submissionId));
       if (!input) throw new ApiError('not-found', 'this submission has no checked result to report');
-      return { status: 200, body: await renderFeedbackSheet(input), contentType: 'application/pdf', headers: download(`${input.header.studentId}-v${input.header.version}.pdf`) };
+      return { status: 200, body: await grader.renderSheet(input), contentType: 'application/pdf', headers: download(`${input.header.studentId}-v${input.header.version}.pdf`) };
     },
   },
   {
@@ -33,12 +31,10 @@ export const reportRoutes: RouteSpec[] = [
     access: 'section',
     summary: "Every student's feedback sheet in one ZIP, streamed",
     schema: { params, response: { 200: file } },
-    async handler({ db, scope, params: p }) {
+    async handler({ db, grader, scope, params: p }) {
       const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
-      async function* sheets() {
-        for (const input of inputs) yield { name: input.header.studentId, pdf: await renderFeedbackSheet(input) };
-      }
-      return { status: 200, body: sectionZip(sheets()), contentType: 'application/zip', headers: download(`feedback-section-${scope.sectionId}.zip`) };
+      const sheets = grader.renderSheets(inputs.map((input) => ({ name: input.header.studentId, input })));
+      return { status: 200, body: sectionZip(sheets), contentType: 'application/zip', headers: download(`feedback-section-${scope.sectionId}.zip`) };
     },
   },
   {
@@ -47,10 +43,10 @@ export const reportRoutes: RouteSpec[] = [
     access: 'section',
     summary: "The section summary (PDF): score distribution, the class's k_N and k_A, how often each finding occurred, who needs attention",
     schema: { params, response: { 200: file } },
-    async handler({ db, scope, params: p }) {
+    async handler({ db, grader, scope, params: p }) {
       const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
       if (inputs.length === 0) throw new ApiError('not-found', 'no checked submissions in this section yet');
-      const pdf = await renderSectionSummary({
+      const pdf = await grader.renderSummary({
         header: { course: inputs[0].header.course, section: inputs[0].header.section, assignment: inputs[0].header.assignment, gradedAt: new Date() },
         settings: inputs[0].settings,
         results: inputs.map((i) => i.result),

@@ -2,6 +2,7 @@ import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { Kysely } from 'kysely';
 import type { z } from 'zod';
 import type { Config } from '../config.ts';
+import type { Grader } from '../grading/grader.ts';
 import type { Database } from '../store/database.ts';
 import type { Access, Caller, Scope } from './access.ts';
 
@@ -9,6 +10,8 @@ import type { Access, Caller, Scope } from './access.ts';
 export interface RouteContext {
   db: Kysely<Database>;
   config: Config;
+  /** Checking and drawing, done off the event loop. */
+  grader: Grader;
   caller: Caller;
   scope: Scope;
   params: Record<string, string>;

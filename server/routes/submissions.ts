@@ -66,11 +66,12 @@ export const submissionRoutes: RouteSpec[] = [
     readBody: async (request) => (request.isMultipart() ? submissionsFromMultipart(request) : request.body),
     idempotent: true,
     transactional: true,
-    async handler({ db, scope, params, body: submissions, request, caller }) {
+    async handler({ db, grader, scope, params, body: submissions, request, caller }) {
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
       if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
-      const outcome = await submitBatch(db, {
-        assignment: assignmentOf(assignment.settings, 'settings'),
+      // Stored settings that no longer validate are the server's problem, named before any checking.
+      assignmentOf(assignment.settings, 'settings');
+      const outcome = await submitBatch(db, grader, {
         assignmentId: assignment.id,
         settingsVersion: assignment.settingsVersion,
         settings: assignment.settings,

@@ -1,0 +1,47 @@
+import type { FeedbackInput, SectionSummaryInput } from '../../reports/feedback-input.ts';
+import type { CheckResult } from '../../schemas/result.ts';
+import type { WorkerPool } from '../pool/worker-pool.ts';
+
+/**
+ * The service's CPU-bound work, done in the worker pool so that the event loop keeps answering other
+ * requests while a batch is checked or a section's sheets are drawn.
+ */
+export interface Grader {
+  /** Checks submissions against stored (already validated) assignment settings. */
+  check(settings: unknown, submissions: unknown[]): Promise<CheckResult[]>;
+  renderSheet(input: FeedbackInput): Promise<Buffer>;
+  renderSummary(input: SectionSummaryInput): Promise<Buffer>;
+  /** Sheets for many inputs, yielded in their order while the next few are drawn. */
+  renderSheets<T extends { input: FeedbackInput }>(items: T[]): AsyncIterable<T & { pdf: Buffer }>;
+}
+
+// A PDF comes back from a worker as a Uint8Array; the ZIP writer and fastify want a Buffer.
+const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+
+export function poolGrader(pool: WorkerPool): Grader {
+  const renderSheet = async (input: FeedbackInput) => asBuffer(await pool.run('render-sheet', input));
+  return {
+    check: (settings, submissions) => pool.run('check', { settingsJson: JSON.stringify(settings), submissions }),
+    renderSheet,
+    renderSummary: async (input) => asBuffer(await pool.run('render-summary', input)),
+    async *renderSheets(items) {
+      // Two sheets per worker in flight: every core draws while the reader takes the finished ones.
+      const ahead = 2 * pool.size;
+      const pending: Array<Promise<Buffer>> = [];
+      let next = 0;
+      const fill = () => {
+        while (next < items.length && pending.length < ahead) {
+          const sheet = renderSheet(items[next++].input);
+          // A sheet whose turn has not come may fail: its error is raised when its turn comes.
+          sheet.catch(() => {});
+          pending.push(sheet);
+        }
+      };
+      for (let i = 0; i < items.length; i++) {
+        fill();
+        const pdf = await pending.shift()!;
+        yield { ...items[i], pdf };
+      }
+    },
+  };
+}
