@@ -1,8 +1,12 @@
-import { benchEngineRefit } from './engine-refit.ts';
 
-// `npm run bench`: prints figures; targets are compared by a reader, never asserted. The other
-// benches are loaded after the engine's: their modules (the database, fonts) would otherwise share
-// its heap and slow its hot loop by a third.
+// `npm run bench`: prints figures; targets are compared by a reader, never asserted. The whole-process
+// comparison with the baseline script runs first, on an idle machine; the in-process benches after it,
+// the engine's first: the others' modules (the database, fonts) would otherwise share its heap and slow
+// its hot loop by a third.
+const { benchWholeProcess } = await import('./whole-process.ts');
+await benchWholeProcess();
+
+const { benchEngineRefit } = await import('./engine-refit.ts');
 const engine = benchEngineRefit();
 console.log(
   `engine: ${Math.round(engine.refitsPerSecond).toLocaleString('en-US')} full refits/s ` +

@@ -1,0 +1,78 @@
+import { execFileSync, spawn } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { corpus } from './corpus.ts';
+
+/**
+ * Whole processes, timed from start to exit as a TA would wait for them: `rateproof check` (the
+ * compiled command) against the script a TA would write instead (numpy/scipy refit, matplotlib sheets;
+ * `../shared/bench/baseline.py`, run with Debian's python3-numpy, python3-scipy, python3-matplotlib),
+ * on the same generated corpus. Goals: checking at least 5 times faster than the baseline, sheets at
+ * least 20 times, and `check` on an empty batch within 8 times a bare `node -e 0`. Printed, not asserted.
+ */
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const bin = join(root, 'bin/rateproof.js');
+const baseline = join(root, '../shared/bench/baseline.py');
+const PYTHON = '/usr/bin/python3';
+const CHECKED = 20_000;
+const SHEETS = 40;
+
+/** Median wall time of `runs` runs of a command, its output sent to /dev/null as a shell's `> /dev/null` would. */
+async function seconds(command: string, args: string[], runs: number): Promise<number> {
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const start = process.hrtime.bigint();
+    await new Promise<void>((resolve, reject) => {
+      const child = spawn(command, args, { stdio: ['ignore', 'ignore', 'inherit'] });
+      child.on('error', reject);
+      child.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`${command} ${args.join(' ')}: exit ${code}`))));
+    });
+    times.push(Number(process.hrtime.bigint() - start) / 1e9);
+  }
+  return times.sort((a, b) => a - b)[Math.floor(times.length / 2)];
+}
+
+/** Why the baseline cannot run here, or undefined when it can. */
+function baselineMissing(): string | undefined {
+  if (!existsSync(baseline)) return `${baseline} is not there`;
+  try {
+    execFileSync(PYTHON, ['-c', 'import numpy, scipy, matplotlib'], { stdio: 'ignore' });
+    return undefined;
+  } catch {
+    return 'it needs apt-get install python3-numpy python3-scipy python3-matplotlib';
+  }
+}
+
+const ratio = (theirs: number | undefined, ours: number) => (theirs === undefined ? 'baseline not run' : `${(theirs / ours).toFixed(1)} times faster than the baseline`);
+const secs = (s: number | undefined) => (s === undefined ? '-' : `${s.toFixed(2)} s`);
+
+export async function benchWholeProcess(): Promise<void> {
+  const missing = baselineMissing();
+  if (missing) console.log(`whole process: the baseline script is not run: ${missing}`);
+  const data = await corpus(CHECKED);
+  const dir = await mkdtemp(join(tmpdir(), 'rateproof-bench-'));
+  try {
+    const empty = join(dir, 'empty.json');
+    await writeFile(empty, '[]');
+    const nodeBare = await seconds(process.execPath, ['-e', '0'], 7);
+    const emptyCheck = await seconds(process.execPath, [bin, 'check', '--assignment', data.assignment, empty], 7);
+    console.log(`start-up: check on an empty batch ${secs(emptyCheck)}, node -e 0 ${secs(nodeBare)}: ${(emptyCheck / nodeBare).toFixed(1)} times (goal <= 8)`);
+
+    const ours = await seconds(process.execPath, [bin, 'check', '--assignment', data.assignment, data.submissions], 3);
+    const theirs = missing ? undefined : await seconds(PYTHON, [baseline, '--once', data.submissions], 3);
+    console.log(`check ${CHECKED.toLocaleString('en-US')} submissions (whole process, table output): rateproof ${secs(ours)}, baseline ${secs(theirs)}: ${ratio(theirs, ours)} (goal >= 5)`);
+
+    const few = join(dir, `first-${SHEETS}.json`);
+    await writeFile(few, JSON.stringify((JSON.parse(await readFile(data.submissions, 'utf8')) as unknown[]).slice(0, SHEETS)));
+    const sheetsOurs = await seconds(process.execPath, [bin, 'check', '--assignment', data.assignment, few, '--out', join(dir, 'ours')], 3);
+    const sheetsTheirs = missing ? undefined : await seconds(PYTHON, [baseline, '--pdfs', String(SHEETS), few, dir], 3);
+    console.log(
+      `${SHEETS} feedback sheets (whole process; ours also writes the summary and gradebook): rateproof ${secs(sheetsOurs)}, baseline ${secs(sheetsTheirs)}: ${ratio(sheetsTheirs, sheetsOurs)} (goal >= 20)`,
+    );
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}
