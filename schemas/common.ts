@@ -5,9 +5,14 @@ import { z } from 'zod';
  * A reported number may be sent as a JSON number or as a numeric string: the string keeps the
  * digits the student wrote (0.0520 keeps its last zero), which the significant-figure check reads.
  */
-export const NumberLike = z
-  .union([z.number(), z.string().regex(/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/, 'a number such as 0.0521 or 5.21e-2')])
-  .refine((v) => Number.isFinite(Number(v)), 'a finite number');
+export const NumberLike = z.union([
+  z.number(),
+  // Only a string can hold a number too large for a double ("1e999"); zod's number refuses Infinity itself.
+  z
+    .string()
+    .regex(/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/, 'a number such as 0.0521 or 5.21e-2')
+    .refine((v) => Number.isFinite(Number(v)), 'a finite number'),
+]);
 export type NumberLike = z.infer<typeof NumberLike>;
 
 // zod's number refuses Infinity and NaN itself (JSON cannot carry them anyway).
