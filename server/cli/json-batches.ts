@@ -31,6 +31,10 @@ const NEWLINE = 0x0a;
 
 const isSpace = (b: number) => b === 0x20 || b === NEWLINE || b === 0x0d || b === 0x09;
 
+/** The bytes that can change depth or begin a string. */
+const STRUCTURAL = new Uint8Array(256);
+for (const b of [OPEN_BRACKET, CLOSE_BRACKET, OPEN_BRACE, CLOSE_BRACE, QUOTE]) STRUCTURAL[b] = 1;
+
 /** The batch's elements, parsed; a syntax error names the file's line and column. */
 export function parseBatch(batch: JsonBatch, jsonLines: boolean): unknown[] {
   if (jsonLines) {
@@ -71,6 +75,7 @@ export class JsonBatcher {
   private depth = 0;
   private inString = false;
   private escaped = false;
+  /** Where the next piece starts in the file. */
   private line = 1;
   private column = 1;
   /** The batch being gathered: its bytes from earlier pieces, their size, where it starts. */
@@ -122,12 +127,15 @@ export class JsonBatcher {
     let from = this.start ? 0 : -1;
     const open = (i: number) => {
       if (from < 0) {
-        this.start = { line: this.line, column: this.column };
+        this.start = this.positionAt(piece, i);
         from = i;
       }
     };
+    let depth = this.depth;
     for (let i = 0; i < piece.length; i++) {
       const b = piece[i];
+      // Inside an element only brackets and strings matter: most bytes are digits, commas and spaces.
+      if (depth >= 2 && !this.inString && STRUCTURAL[b] === 0) continue;
       if (this.inString) {
         if (this.escaped) this.escaped = false;
         else if (b === BACKSLASH) this.escaped = true;
@@ -139,22 +147,22 @@ export class JsonBatcher {
         else if (b === OPEN_BRACE) {
           this.shape = 'object';
           open(i);
-        } else this.fail(b);
-        this.depth = 1;
+        } else this.fail(b, piece, i);
+        depth = 1;
       } else if (this.shape === 'done') {
-        this.fail(b);
+        this.fail(b, piece, i);
       } else if (b === OPEN_BRACE || b === OPEN_BRACKET) {
         open(i);
-        this.depth++;
+        depth++;
       } else if (b === CLOSE_BRACE || b === CLOSE_BRACKET) {
-        if (--this.depth === 0) {
+        if (--depth === 0) {
           // The array's closing bracket is not part of its last element; the single object's brace is.
           if (from >= 0) this.close(piece.subarray(from, this.shape === 'object' ? i + 1 : i), true);
           from = -1;
           this.shape = 'done';
         }
-      } else if (b === COMMA && this.depth === 1 && this.shape === 'array') {
-        if (from < 0) this.fail(b);
+      } else if (b === COMMA && depth === 1 && this.shape === 'array') {
+        if (from < 0) this.fail(b, piece, i);
         if (this.size + i - from >= this.options.batchBytes) {
           this.close(piece.subarray(from, i));
           from = -1;
@@ -163,15 +171,28 @@ export class JsonBatcher {
         if (b === QUOTE) this.inString = true;
         open(i);
       }
-      if (b === NEWLINE) {
-        this.line++;
-        this.column = 1;
-      } else if ((b & 0xc0) !== 0x80) {
-        // Columns count characters: UTF-8 continuation bytes do not start one.
-        this.column++;
-      }
     }
+    this.depth = depth;
     if (from >= 0) this.keep(piece.subarray(from));
+    const next = this.positionAt(piece, piece.length);
+    this.line = next.line;
+    this.column = next.column;
+  }
+
+  /**
+   * Line and column (1-based) of byte `i` of `piece`, counted from where the piece starts; asked only
+   * where a batch starts or something is wrong, so the scan itself does not count lines.
+   */
+  private positionAt(piece: Buffer, i: number): { line: number; column: number } {
+    let line = this.line;
+    let lineStart = -1;
+    for (let nl = piece.indexOf(NEWLINE); nl >= 0 && nl < i; nl = piece.indexOf(NEWLINE, nl + 1)) {
+      line++;
+      lineStart = nl;
+    }
+    // Columns count characters, not UTF-8 bytes.
+    const characters = piece.toString('utf8', lineStart + 1, i).length;
+    return { line, column: lineStart < 0 ? this.column + characters : 1 + characters };
   }
 
   /**
@@ -179,9 +200,10 @@ export class JsonBatcher {
    * can end the document early and show only here, later: parsing the last batch names the slip's own
    * place when it can.
    */
-  private fail(b: number): never {
+  private fail(b: number, piece: Buffer, i: number): never {
     if (this.lastBatch) parseBatch(this.lastBatch, false);
-    throw new JsonLayoutError(`unexpected "${String.fromCharCode(b)}" ${at(this.line, this.column)}`);
+    const { line, column } = this.positionAt(piece, i);
+    throw new JsonLayoutError(`unexpected "${String.fromCharCode(b)}" ${at(line, column)}`);
   }
 
   private keep(bytes: Buffer): void {
