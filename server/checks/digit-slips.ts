@@ -32,7 +32,8 @@ export function oneSlipCopies(value: number, decimals: number): Slip[] {
     }
   };
   if (value !== 0) out.push({ kind: 'sign-lost', value: -value });
-  for (const p of [-2, -1, 1, 2]) out.push({ kind: 'decimal-point', value: value * 10 ** p });
+  // 185.19 x 0.1 is 18.519000000000002 in binary: fifteen significant digits give back the number as written.
+  for (const p of [-2, -1, 1, 2]) out.push({ kind: 'decimal-point', value: Number((value * 10 ** p).toPrecision(15)) });
   for (let i = 0; i + 1 < text.length; i++) {
     const a = text[i];
     const b = text[i + 1];

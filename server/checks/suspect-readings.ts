@@ -35,6 +35,8 @@ interface Curve {
   times: number[];
   readings: number[];
   timeUnit: string;
+  /** A rate constant to start the fit of all readings from (the run's own); else one is estimated. */
+  startK?: number;
 }
 
 /** The curve without reading `skip`, started from the rate of the fit of all where there is one. */
@@ -69,7 +71,7 @@ function mostSuspect(curve: Curve) {
   let tried = curve.readings.map((_, i) => i);
   let initialK: number | undefined;
   try {
-    const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted' });
+    const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted', initialK: curve.startK });
     tried = tried.sort((a, b) => Math.abs(all.residuals[b]) - Math.abs(all.residuals[a])).slice(0, 3);
     if (!tried.some((i) => mightBeSuspect(all, i))) return undefined;
     initialK = all.k.value;

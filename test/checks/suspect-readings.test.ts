@@ -1,0 +1,28 @@
+import { describe, expect, it } from 'vitest';
+import { findSuspectReading } from '../../server/checks/suspect-readings.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
+
+// Invented runs: x_0 = 22.44 deg, x_inf = 10.54 deg, k = 0.05 per min, a reading a minute for 15 min,
+// noise 0.002 deg, shown to 0.001 deg as a polarimeter displays it.
+function run(seed: number) {
+  const times = minutes(16);
+  const readings = syntheticReadings({ k: 0.05, x0: 22.44, xInf: 10.54, times, noise: 0.002, resolution: 0.001, random: seededRandom(seed) }).map((x) => Number(x.toFixed(3)));
+  return { times, readings, timeUnit: 'min' };
+}
+
+describe('findSuspectReading', () => {
+  it.each([3, 8, 12])('a reading written with the decimal point one place right (reading %i) is named, with the value meant', (index) => {
+    const curve = run(40 + index);
+    const meant = curve.readings[index];
+    // The slip: 15.994 written as 159.94.
+    curve.readings[index] = Number((meant * 10).toFixed(2));
+    const suspect = findSuspectReading({ ...curve, startK: 0.05 });
+    expect(suspect).toMatchObject({ index, reading: curve.readings[index], decimals: 3, intended: { value: meant, slip: 'decimal-point' } });
+    expect(Math.abs(suspect!.predicted - meant)).toBeLessThan(0.01);
+  });
+
+  it('names nothing in a run with honest scatter', () => {
+    for (let seed = 0; seed < 40; seed++) expect(findSuspectReading({ ...run(seed), startK: 0.05 })).toBeUndefined();
+  });
+});
