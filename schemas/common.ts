@@ -18,7 +18,18 @@ export type NumberLike = z.infer<typeof NumberLike>;
 // zod's number refuses Infinity and NaN itself (JSON cannot carry them anyway).
 export const FiniteNumber = z.number();
 
-export const UnitText = z.string().trim().min(1, 'a unit such as min^-1 or M').max(40);
+/**
+ * Text that PostgreSQL can store: it refuses the NUL character in text and in JSON, and an unpaired
+ * UTF-16 surrogate (which JSON can carry as an escape such as "\ud800") is not Unicode text at all.
+ */
+const UNPAIRED_SURROGATE = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
+export const isStorableText = (text: string): boolean => !text.includes('\u0000') && !UNPAIRED_SURROGATE.test(text);
+export const UNSTORABLE_TEXT = 'contains a NUL character or an unpaired surrogate, which cannot be stored';
+
+/** Free text of at most `max` characters, trimmed, never empty, storable. */
+export const Text = (max: number, emptyMessage?: string) => z.string().trim().min(1, emptyMessage).max(max).refine(isStorableText, UNSTORABLE_TEXT);
+
+export const UnitText = Text(40, 'a unit such as min^-1 or M');
 
 /** A value with the unit it is in, e.g. a catalyst concentration. */
 export const Quantity = z.object({ value: FiniteNumber, unit: UnitText });
@@ -29,7 +40,7 @@ export const ReportedValue = z.object({
   value: NumberLike,
   uncertainty: NumberLike.optional(),
   // Checked by the grader, not here: an unknown unit is a finding, not a rejected submission.
-  unit: z.string().max(40),
+  unit: z.string().max(40).refine(isStorableText, UNSTORABLE_TEXT),
 });
 export type ReportedValue = z.infer<typeof ReportedValue>;
 

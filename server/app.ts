@@ -12,6 +12,7 @@ import { authorize, resolveScope, type Caller, type Scope } from './routes/acces
 import { routes } from './routes/index.ts';
 import { ErrorResponse } from './routes/schemas.ts';
 import type { RouteSpec } from './routes/route-spec.ts';
+import { jsonDepth, MAX_JSON_DEPTH } from './routes/json-depth.ts';
 import { decodeUtf8 } from './routes/utf8.ts';
 import type { Store } from './store/connection.ts';
 import { findIdempotent, saveIdempotent } from './store/idempotency.ts';
@@ -115,6 +116,9 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   app.addContentTypeParser('application/json', { parseAs: 'buffer' }, (_req, body, done) => {
     try {
       const text = decodeUtf8(body as Buffer, 'body');
+      if (jsonDepth(text) > MAX_JSON_DEPTH) {
+        return done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `nested more than ${MAX_JSON_DEPTH} levels deep` }]), undefined);
+      }
       done(null, text.trim() === '' ? undefined : JSON.parse(text));
     } catch (error) {
       if (error instanceof ApiError) return done(error, undefined);

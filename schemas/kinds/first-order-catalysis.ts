@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Tolerance, UnitText } from '../common.ts';
+import { FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
 import { Estimate, RefitValue } from '../result.ts';
 
 /**
@@ -22,7 +22,7 @@ function timesInOrder(rows: Array<[number, number]>, ctx: z.RefinementCtx): void
 
 /** A run's raw data as measured (or as handed out in a class dataset). */
 export const RunData = z.object({
-  label: z.string().trim().min(1).max(40),
+  label: Text(40),
   catalyst: Quantity,
   /** Unit of the times in `readings`. */
   timeUnit: UnitText,

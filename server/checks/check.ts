@@ -60,26 +60,37 @@ function idOf(submission: unknown): string | null {
   return typeof id === 'string' ? id : null;
 }
 
+/** A submission's result, and the submission as its schema reads it (unknown fields left out), when it could be read. */
+export interface CheckedSubmission {
+  result: CheckResult;
+  read?: unknown;
+}
+
 /**
  * Checks one submission. Invalid input never throws: it comes back as a rejected result naming
  * each field and the reason, so one bad submission never stops a batch.
  */
-export function checkSubmission(assignment: Assignment, submission: unknown): CheckResult {
+export function checkAndRead(assignment: Assignment, submission: unknown): CheckedSubmission {
   const { kind, settings } = assignment;
   const parsed = kind.submissionSchema.safeParse(submission);
-  if (!parsed.success) return rejected(idOf(submission), 0, issuesOf(parsed.error));
+  if (!parsed.success) return { result: rejected(idOf(submission), 0, issuesOf(parsed.error)) };
+  const read = parsed.data;
   try {
-    return { ...kind.check(settings, parsed.data), engineVersion: ENGINE_VERSION };
+    return { result: { ...kind.check(settings, read), engineVersion: ENGINE_VERSION }, read };
   } catch (error) {
     if (error instanceof InputRejected) {
-      return rejected(idOf(submission), kind.maxScore(settings, parsed.data), error.rejections);
+      return { result: rejected(idOf(submission), kind.maxScore(settings, read), error.rejections), read };
     }
     // Data that pass every check above but still defeat a fit are the submission's problem, not a crash.
     if (error instanceof EngineError) {
-      return rejected(idOf(submission), kind.maxScore(settings, parsed.data), [{ path: error.field ?? '(data)', message: error.message }]);
+      return { result: rejected(idOf(submission), kind.maxScore(settings, read), [{ path: error.field ?? '(data)', message: error.message }]), read };
     }
     throw error;
   }
+}
+
+export function checkSubmission(assignment: Assignment, submission: unknown): CheckResult {
+  return checkAndRead(assignment, submission).result;
 }
 
 export function checkBatch(assignment: Assignment, submissions: unknown[]): CheckResult[] {

@@ -34,7 +34,8 @@ function withoutArrays(result: CheckResult): CheckResult {
 /** Parses one batch of a submissions file, checks it, and formats the results for output. */
 export function checkJsonBatch(input: CheckJsonBatchInput): CheckedBatch {
   const submissions = parseBatch(input.batch, input.jsonLines);
-  return formatResults(checkSettingsBatch({ settingsJson: input.settingsJson, submissions }), submissions, input);
+  const checked = checkSettingsBatch({ settingsJson: input.settingsJson, submissions });
+  return formatResults(checked.map((c) => c.result), submissions, input);
 }
 
 /** Results as the command prints them (or keeps them, for --out). */

@@ -1,5 +1,5 @@
 import type { FeedbackInput, SectionSummaryInput } from '../../reports/feedback-input.ts';
-import type { CheckResult } from '../../schemas/result.ts';
+import type { CheckedSubmission } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 
 /**
@@ -7,8 +7,8 @@ import type { WorkerPool } from '../pool/worker-pool.ts';
  * requests while a batch is checked or a section's sheets are drawn.
  */
 export interface Grader {
-  /** Checks submissions against stored (already validated) assignment settings. */
-  check(settings: unknown, submissions: unknown[]): Promise<CheckResult[]>;
+  /** Checks submissions against stored (already validated) assignment settings; each comes back as read. */
+  check(settings: unknown, submissions: unknown[]): Promise<CheckedSubmission[]>;
   renderSheet(input: FeedbackInput): Promise<Buffer>;
   renderSummary(input: SectionSummaryInput): Promise<Buffer>;
   /** Sheets for many inputs, yielded in their order while the next few are drawn. */

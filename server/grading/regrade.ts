@@ -9,12 +9,12 @@ import type { Grader } from './grader.ts';
 export async function regrade(db: Kysely<Database>, grader: Grader, assignment: AssignmentRow, sectionId?: number): Promise<number> {
   assignmentOf(assignment.settings, 'settings');
   const latest = await latestSubmissions(db, assignment.id, sectionId);
-  const results = await grader.check(assignment.settings, latest.map((s) => s.payload));
+  const checked = await grader.check(assignment.settings, latest.map((s) => s.payload));
   await insertResults(
     db,
     latest.map((s, i) => ({
       submissionId: s.submissionId,
-      result: results[i],
+      result: checked[i].result,
       settings: assignment.settings,
       settingsVersion: assignment.settingsVersion,
     })),

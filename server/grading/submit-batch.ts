@@ -26,13 +26,13 @@ export async function submitBatch(
   grader: Grader,
   args: { assignmentId: number; settingsVersion: number; settings: unknown; sectionId: number; staffId: number; items: BatchItem[] },
 ): Promise<BatchOutcome> {
-  const results = await grader.check(args.settings, args.items.map((item) => item.submission));
-  const graded = args.items.map((item, i) => ({ item, result: results[i] }));
+  const checked = await grader.check(args.settings, args.items.map((item) => item.submission));
+  const graded = args.items.map((item, i) => ({ item, ...checked[i] }));
   const ids = graded.map((g) => g.result.studentId).filter((id): id is string => id !== null);
   const roster = await rosterRows(db, args.sectionId, [...new Set(ids)]);
   const outcome: BatchOutcome = { stored: [], rejected: [] };
   const toStore: Array<{ studentId: string; studentRowId: number; payload: unknown; result: CheckResult }> = [];
-  for (const { item, result } of graded) {
+  for (const { item, result, read } of graded) {
     if (result.status === 'rejected') {
       for (const r of result.rejected ?? []) outcome.rejected.push({ at: item.at, studentId: result.studentId, path: r.path, message: r.message });
       continue;
@@ -42,7 +42,8 @@ export async function submitBatch(
       outcome.rejected.push({ at: item.at, studentId: result.studentId, path: 'studentId', message: "not on this section's roster" });
       continue;
     }
-    toStore.push({ studentId: result.studentId!, studentRowId: row, payload: item.submission, result });
+    // Stored as the schema reads it: fields it does not know are left out, whatever they hold.
+    toStore.push({ studentId: result.studentId!, studentRowId: row, payload: read, result });
   }
   const stored = await storeGraded(
     db,

@@ -1,12 +1,12 @@
 import { parse } from 'csv-parse/sync';
 import { z } from 'zod';
-import { StudentId } from '../../schemas/common.ts';
+import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { addToRoster, listRoster, studentsElsewhere, type RosterEntry } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
-const Entry = z.object({ studentId: StudentId, displayName: z.string().trim().min(1).max(200).optional() });
+const Entry = z.object({ studentId: StudentId, displayName: Text(200).optional() });
 const RosterBody = z.union([z.object({ students: z.array(Entry).min(1).max(5000) }), z.string()]);
 
 /** A roster CSV: a header with `student_id` and optionally `display_name`. */

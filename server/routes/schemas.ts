@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { Text } from '../../schemas/common.ts';
 
 /** Shapes shared by several routes' schemas. */
 export const IdParam = z.coerce.number().int().positive();
@@ -9,4 +10,4 @@ export const ErrorResponse = z.object({
     details: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
   }),
 });
-export const Name = z.string().trim().min(1).max(200);
+export const Name = Text(200);

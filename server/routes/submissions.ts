@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isStorableText, UNSTORABLE_TEXT } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
@@ -102,7 +103,7 @@ export const submissionRoutes: RouteSpec[] = [
     summary: "Override a finding's points with a written reason; kept as an audit trail and carried over to regrades",
     schema: {
       params: z.object({ submissionId: IdParam }),
-      body: z.object({ findingId: z.string().min(1).max(300), pointsLost: z.number().min(0).max(1000), reason: z.string().trim().min(3, 'say why, in a few words').max(2000) }),
+      body: z.object({ findingId: z.string().min(1).max(300).refine(isStorableText, UNSTORABLE_TEXT), pointsLost: z.number().min(0).max(1000), reason: z.string().trim().min(3, 'say why, in a few words').max(2000).refine(isStorableText, UNSTORABLE_TEXT) }),
       response: { 201: SubmissionView },
     },
     transactional: true,

@@ -223,6 +223,39 @@ const cases: Case[] = [
     code: 'payload-too-large',
   },
   {
+    name: 'a NUL character in a run label',
+    request: submit(() => [broken('S-001', (s) => (s.runs[1].label = 'run\u0000B'))]),
+    ...perSubmission('[0].runs[1].label', /NUL character or an unpaired surrogate/),
+  },
+  {
+    name: 'an unpaired surrogate in a reported unit',
+    request: submit(() => [broken('S-001', (s) => (s.reported.kA.unit = 'M^-1 \ud800min^-1'))]),
+    ...perSubmission('[0].reported.kA.unit', /NUL character or an unpaired surrogate/),
+  },
+  {
+    name: 'an unpaired surrogate in a section name',
+    request: (s) => ({ method: 'POST', url: `/v1/courses/${s.course.id}/sections`, headers: auth(s.instructorToken), payload: { name: 'Tuesday \udc00' } }),
+    status: 400,
+    code: 'invalid-input',
+    paths: ['body.name'],
+    detail: /NUL character or an unpaired surrogate/,
+  },
+  {
+    name: 'a NUL character in a roster display name',
+    request: (s) => ({ method: 'POST', url: `/v1/sections/${s.sectionA.id}/roster`, headers: auth(s.instructorToken), payload: { students: [{ studentId: 'S-070', displayName: 'A\u0000B' }] } }),
+    status: 400,
+    code: 'invalid-input',
+    paths: [/^body\.students\.0\.displayName$|^body$/],
+  },
+  {
+    name: 'an unknown field nested 5,000 levels deep',
+    request: submitRaw(() => JSON.stringify([{ ...submissionsFor(['S-001'])[0], notes: 0 }]).replace('"notes":0', `"notes":${'{"a":'.repeat(5000)}0${'}'.repeat(5000)}`), 'application/json'),
+    status: 400,
+    code: 'invalid-input',
+    paths: ['body'],
+    detail: /nested more than 64 levels deep/,
+  },
+  {
     name: 'a body of a type the API does not read',
     request: submitRaw(() => '<submissions/>', 'application/xml'),
     status: 415,
@@ -484,6 +517,21 @@ describe('malformed requests on PostgreSQL', () => {
       { at: '[3]', studentId: 'S-101', path: 'studentId', message: "not on this section's roster" },
     ]);
     // Exactly one submission and its result were added; nothing else changed.
+    expect(await counts()).toEqual({ ...before, submissions: before.submissions + 1, results: before.results + 1 });
+  });
+
+  it('a batch where one submission has text that cannot be stored stores the others, and unknown fields are left out', async () => {
+    const before = await counts();
+    const withNul = broken('S-002', (x) => (x.runs[0].timeUnit = 'min\u0000'));
+    const [clean] = submissionsFor(['S-001'], 7);
+    const extra = { ...clean, comment: 'a field the contract does not have \u0000', runs: clean.runs.map((r, i) => (i === 0 ? { ...r, colour: 'blue' } : r)) };
+    const res = await call(api.app, 'POST', submissionsUrl(s), s.taAToken, [withNul, extra], 201);
+    expect(res.body.rejected).toEqual([{ at: '[0]', studentId: 'S-002', path: 'runs[0].timeUnit', message: expect.stringContaining('NUL character') }]);
+    expect(res.body.stored).toEqual([expect.objectContaining({ studentId: 'S-001', status: 'checked' })]);
+    const view = await call(api.app, 'GET', `/v1/submissions/${res.body.stored[0].submissionId}`, s.taAToken, undefined, 200);
+    expect(view.body.payload).not.toHaveProperty('comment');
+    expect(view.body.payload.runs[0]).not.toHaveProperty('colour');
+    expect(view.body.payload.runs[0].readings).toEqual(clean.runs[0].readings);
     expect(await counts()).toEqual({ ...before, submissions: before.submissions + 1, results: before.results + 1 });
   });
 
