@@ -1,7 +1,6 @@
 import { buildApp } from './app.ts';
 import { ConfigError, readConfig } from './config.ts';
-import { openStore } from './store/connection.ts';
-import { migrateToLatest } from './store/migrate.ts';
+import { openMigratedStore, StartupError } from './store/open-database.ts';
 
 /** Reads the configuration, opens and migrates the database, serves until a signal, then closes. */
 export async function serve(): Promise<void> {
@@ -15,12 +14,18 @@ export async function serve(): Promise<void> {
     }
     throw error;
   }
-  const store = openStore(config);
-  await migrateToLatest(store.db);
+  let store;
+  try {
+    ({ store } = await openMigratedStore(config));
+  } catch (error) {
+    if (!(error instanceof StartupError)) throw error;
+    process.stderr.write(`rateproof: ${error.message}\n`);
+    process.exit(1);
+  }
   const app = await buildApp({ config, store, logger: true });
   const close = async () => {
     await app.close();
-    await store.db.destroy();
+    await store.close();
     process.exit(0);
   };
   process.once('SIGINT', close);

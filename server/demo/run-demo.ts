@@ -82,6 +82,6 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     write(`TA token (section ${section.id}, assignment ${assignment.id}): ${taToken}`);
   } finally {
     await app.close();
-    await store.db.destroy();
+    await store.close();
   }
 }

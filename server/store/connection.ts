@@ -3,22 +3,41 @@ import { PGlite } from '@electric-sql/pglite';
 import { Kysely, PostgresDialect } from 'kysely';
 import { PGliteDialect } from 'kysely-pglite-dialect';
 import pg from 'pg';
+import { lockDataFolder } from './data-folder-lock.ts';
 import type { Database } from './database.ts';
 
 export interface Store {
   db: Kysely<Database>;
   /** Which server holds the data: a PostgreSQL server, or the embedded one in a data folder. */
   engine: 'postgres' | 'pglite';
+  /** Closes the connections and gives back the data folder's lock. */
+  close(): Promise<void>;
 }
 
 /** A PostgreSQL server when a URL is given; else embedded PostgreSQL (PGlite) in `dataDir`. */
 export function openStore(options: { databaseUrl?: string; dataDir?: string }): Store {
   if (options.databaseUrl) {
     const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
-    return { db: new Kysely<Database>({ dialect: new PostgresDialect({ pool }) }), engine: 'postgres' };
+    const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+    return { db, engine: 'postgres', close: () => db.destroy() };
   }
   const dir = options.dataDir ?? './data';
-  // memory:// keeps the embedded database in memory (tests); anything else is a folder.
-  if (!dir.startsWith('memory://')) mkdirSync(dir, { recursive: true });
-  return { db: new Kysely<Database>({ dialect: new PGliteDialect(new PGlite(dir)) }), engine: 'pglite' };
+  // memory:// keeps the embedded database in memory (tests); anything else is a folder, one process at a time.
+  let release = () => {};
+  if (!dir.startsWith('memory://')) {
+    mkdirSync(dir, { recursive: true });
+    release = lockDataFolder(dir);
+  }
+  const db = new Kysely<Database>({ dialect: new PGliteDialect(new PGlite(dir)) });
+  return {
+    db,
+    engine: 'pglite',
+    async close() {
+      try {
+        await db.destroy();
+      } finally {
+        release();
+      }
+    },
+  };
 }

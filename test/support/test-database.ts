@@ -28,7 +28,7 @@ async function onServer(url: string): Promise<TestDatabase> {
   return {
     store,
     async close() {
-      await store.db.destroy();
+      await store.close();
       const c = new pg.Client({ connectionString: url });
       await c.connect();
       await c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
@@ -60,7 +60,7 @@ async function inContainer(): Promise<TestDatabase> {
 async function embedded(): Promise<TestDatabase> {
   const store = openStore({ dataDir: 'memory://' });
   await migrateToLatest(store.db);
-  return { store, close: () => store.db.destroy() };
+  return { store, close: () => store.close() };
 }
 
 export async function openTestDatabase(engine: 'postgres' | 'pglite' = 'postgres'): Promise<TestDatabase> {
