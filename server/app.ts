@@ -3,6 +3,7 @@ import fastifyMultipart from '@fastify/multipart';
 import fastifySwagger from '@fastify/swagger';
 import fastifySwaggerUi from '@fastify/swagger-ui';
 import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
+import { sql } from 'kysely';
 import { hasZodFastifySchemaValidationErrors, jsonSchemaTransform, serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
 import type { Config } from './config.ts';
 import { poolGrader, type Grader } from './grading/grader.ts';
@@ -17,6 +18,10 @@ import { decodeUtf8 } from './routes/utf8.ts';
 import type { Store } from './store/connection.ts';
 import { findIdempotent, saveIdempotent } from './store/idempotency.ts';
 import { findCaller } from './store/tokens.ts';
+import { isDatabaseUnavailable } from './store/unavailable.ts';
+
+/** How long a client is asked to wait before sending a request again while the database is away. */
+const RETRY_AFTER_SECONDS = '5';
 
 export interface AppOptions {
   config: Config;
@@ -49,7 +54,7 @@ function requestHash(request: FastifyRequest, body: unknown): string {
   return createHash('sha256').update(`${request.method} ${request.url}\n${text}`).digest('hex');
 }
 
-const errorResponses = Object.fromEntries([400, 401, 403, 404, 409, 413, 415, 422, 500].map((status) => [status, ErrorResponse]));
+const errorResponses = Object.fromEntries([400, 401, 403, 404, 409, 413, 415, 422, 500, 503].map((status) => [status, ErrorResponse]));
 
 /** Who called and what the URL points to, settled before the body is validated. */
 const resolved = new WeakMap<FastifyRequest, { caller: Caller; scope: Scope }>();
@@ -141,6 +146,9 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
       const details = error.validation.map((v) => ({ path: `${where}${v.instancePath.replace(/\//g, '.')}`.replace(/\.$/, ''), message: v.message ?? 'invalid' }));
       return reply.code(400).send(errorBody(new ApiError('invalid-input', undefined, details)));
     }
+    if (isDatabaseUnavailable(error)) {
+      return reply.code(503).header('retry-after', RETRY_AFTER_SECONDS).send(errorBody(new ApiError('database-unavailable')));
+    }
     // A unique constraint (a handle, a section name already used in the course): the request conflicts.
     if ((error as { code?: string }).code === '23505') {
       const constraint = (error as { constraint?: string }).constraint;
@@ -166,7 +174,16 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   });
   await app.register(fastifySwaggerUi, { routePrefix: '/docs' });
   app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
-  app.get('/health', { schema: { hide: true } }, async () => ({ ok: true, database: options.store.engine }));
+  // Ready when the database answers; 503 while it is away, so that a load balancer sends no traffic.
+  app.get('/health', { schema: { hide: true } }, async (_request, reply) => {
+    try {
+      await sql`select 1`.execute(options.store.db);
+      return { ok: true, database: options.store.engine };
+    } catch (error) {
+      if (!isDatabaseUnavailable(error)) throw error;
+      return reply.code(503).header('retry-after', RETRY_AFTER_SECONDS).send({ ok: false, database: options.store.engine, reason: 'the database cannot be reached' });
+    }
+  });
 
   let grader = options.grader;
   if (!grader) {

@@ -17,7 +17,13 @@ export interface Store {
 /** A PostgreSQL server when a URL is given; else embedded PostgreSQL (PGlite) in `dataDir`. */
 export function openStore(options: { databaseUrl?: string; dataDir?: string }): Store {
   if (options.databaseUrl) {
-    const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
+    // A request waits at most 5 s for a connection, so that one made while the database is away is
+    // answered (503) rather than left hanging.
+    const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10, connectionTimeoutMillis: 5000 });
+    // A connection lost to a database restart: the pool drops an idle one, and a query on one in use
+    // fails (answered 503). Without these listeners the lost connection's event would end the process.
+    pool.on('error', () => {});
+    pool.on('connect', (client) => client.on('error', () => {}));
     const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
     return { db, engine: 'postgres', close: () => db.destroy() };
   }

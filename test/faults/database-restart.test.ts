@@ -1,0 +1,80 @@
+import type { FastifyInstance } from 'fastify';
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildApp } from '../../server/app.ts';
+import { openStore, type Store } from '../../server/store/connection.ts';
+import { migrateToLatest } from '../../server/store/migrate.ts';
+import { bearer, seedCourse, submissionsFor, testConfig, type Seed } from '../support/api-fixture.ts';
+import { ownPostgresMissing, startOwnPostgres, type OwnPostgres } from '../support/own-postgres.ts';
+
+if (ownPostgresMissing) console.warn(`database restart test skipped: ${ownPostgresMissing}`);
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+describe.skipIf(ownPostgresMissing)('the service through a restart of its PostgreSQL server', () => {
+  let postgres: OwnPostgres;
+  let store: Store;
+  let app: FastifyInstance;
+  let s: Seed;
+
+  beforeAll(async () => {
+    postgres = await startOwnPostgres();
+    store = openStore({ databaseUrl: postgres.url });
+    await migrateToLatest(store.db);
+    app = await buildApp({ config: testConfig, store });
+    s = await seedCourse(app);
+  }, 60_000);
+  afterAll(async () => {
+    await app?.close();
+    await store?.close();
+    await postgres?.destroy();
+  });
+
+  it('answers 503 with Retry-After while it is away (never 500), says so at /health, recovers by itself, and loses no confirmed grade', async () => {
+    const url = `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`;
+    const statuses: number[] = [];
+    const confirmed: number[] = [];
+    let loading = true;
+    // Three TAs' tools submitting in a loop, each for students of its own.
+    const loaders = [['S-001', 'S-002'], ['S-003', 'S-004'], ['S-005', 'S-006']].map(async (ids, n) => {
+      for (let round = 0; loading; round++) {
+        const res = await app.inject({ method: 'POST', url, headers: bearer(s.taAToken), payload: submissionsFor(ids, 100 * n + round) });
+        statuses.push(res.statusCode);
+        if (res.statusCode === 201) confirmed.push(...res.json().stored.map((x: { submissionId: number }) => x.submissionId));
+        if (res.statusCode === 503) {
+          expect(res.headers['retry-after']).toBe('5');
+          expect(res.json().error.code).toBe('database-unavailable');
+          await sleep(100);
+        }
+      }
+    });
+
+    await sleep(500);
+    await postgres.stop();
+    await sleep(1000);
+    const away = await app.inject({ method: 'GET', url: '/health' });
+    expect(away.statusCode).toBe(503);
+    expect(away.json()).toMatchObject({ ok: false });
+    const during = await app.inject({ method: 'GET', url: `${url.replace('/submissions', '/results')}`, headers: bearer(s.taAToken) });
+    expect(during.statusCode).toBe(503);
+
+    await postgres.start();
+    let healthy = false;
+    for (let i = 0; i < 50 && !healthy; i++) {
+      healthy = (await app.inject({ method: 'GET', url: '/health' })).statusCode === 200;
+      if (!healthy) await sleep(200);
+    }
+    expect(healthy).toBe(true);
+    const after = statuses.length;
+    await sleep(1000);
+    loading = false;
+    await Promise.all(loaders);
+
+    expect(statuses.filter((code) => code !== 201 && code !== 503)).toEqual([]);
+    expect(statuses).toContain(503);
+    expect(statuses.slice(after)).toContain(201);
+    // Every submission the service confirmed is stored, with its result.
+    const { rows } = await sql<{ n: number }>`select count(distinct s.id)::int as n from submissions s join results r on r.submission_id = s.id where s.id = any(${confirmed})`.execute(store.db);
+    expect(rows[0].n).toBe(new Set(confirmed).size);
+  }, 60_000);
+});
