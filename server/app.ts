@@ -16,7 +16,7 @@ import type { RouteSpec } from './routes/route-spec.ts';
 import { jsonDepth, MAX_JSON_DEPTH } from './routes/json-depth.ts';
 import { decodeUtf8 } from './routes/utf8.ts';
 import type { Store } from './store/connection.ts';
-import { findIdempotent, saveIdempotent } from './store/idempotency.ts';
+import { findIdempotent, holdIdempotencyKey, MAX_IDEMPOTENCY_KEY, saveIdempotent } from './store/idempotency.ts';
 import { findCaller } from './store/tokens.ts';
 import { isDatabaseUnavailable } from './store/unavailable.ts';
 
@@ -77,12 +77,16 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, gr
       const { caller, scope } = resolved.get(request)!;
       const params = request.params as Record<string, string>;
       const key = spec.idempotent ? request.headers['idempotency-key'] : undefined;
-      const keyText = typeof key === 'string' && caller.kind === 'staff' ? key.slice(0, 200) : undefined;
+      const keyText = typeof key === 'string' && caller.kind === 'staff' ? key : undefined;
+      if (keyText !== undefined && keyText.length > MAX_IDEMPOTENCY_KEY) {
+        throw new ApiError('invalid-input', undefined, [{ path: 'headers.idempotency-key', message: `at most ${MAX_IDEMPOTENCY_KEY} characters` }]);
+      }
       // A multipart upload is read here, so that a repeat is recognised by its content.
       const body = spec.readBody ? await spec.readBody(request) : request.body;
       const run = async (trx: typeof db) => {
         const hash = keyText === undefined ? '' : requestHash(request, body);
         if (keyText !== undefined && caller.kind === 'staff') {
+          if (spec.transactional) await holdIdempotencyKey(trx, caller.staffId, keyText);
           const seen = await findIdempotent(trx, caller.staffId, keyText);
           if (seen) {
             if (seen.requestHash !== hash) throw new ApiError('idempotency-mismatch');

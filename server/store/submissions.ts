@@ -36,7 +36,12 @@ export async function storeGraded(
   items: Array<NewSubmission & ResultRecord>,
 ): Promise<Array<{ submissionId: number; version: number }>> {
   if (items.length === 0) return [];
-  const versions = await nextVersions(db, assignmentId, [...new Set(items.map((i) => i.studentRowId))]);
+  const students = [...new Set(items.map((i) => i.studentRowId))].sort((a, b) => a - b);
+  // Two batches for the same students at once (two TAs, or a retry from another tool): each waits for
+  // the other's students to be free, in id order so that neither waits for the other forever, and then
+  // counts versions that include the other's. Needs the caller's transaction.
+  await db.selectFrom('students').select('id').where('id', 'in', students).orderBy('id').forUpdate().execute();
+  const versions = await nextVersions(db, assignmentId, students);
   // Two submissions for one student in one request become consecutive versions.
   const values = items.map((item) => {
     const version = versions.get(item.studentRowId)!;
