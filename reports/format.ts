@@ -39,7 +39,8 @@ export function formatNumber(value: number, figures = 4): string {
 /** A value as the student wrote it: a string keeps its digits, a number prints as JSON would. */
 export function formatReported(value: NumberLike | undefined | null): string {
   if (value === undefined || value === null) return '—';
-  const text = typeof value === 'string' ? value.trim() : String(value);
+  // JavaScript writes a number up to 10^21 in full; past a double's 15 or so digits, as a power of ten.
+  const text = typeof value === 'string' ? value.trim() : Math.abs(value) >= 1e15 ? value.toExponential() : String(value);
   return withMinusSign(text.replace(/e([-+]?\d+)$/i, (_, e: string) => ` × 10${superscript(String(Number(e)))}`));
 }
 
@@ -86,6 +87,7 @@ export function relativeDifference(value: number, reference: number): number | u
 export function formatPercent(percent: number | undefined): string {
   if (percent === undefined || !Number.isFinite(percent)) return '—';
   if (Math.abs(percent) < 0.005) return '0.00 %';
+  if (Math.abs(percent) >= 1e5) return `${percent > 0 ? '+' : ''}${formatNumber(percent, 2)} %`;
   const text = Math.abs(percent) >= 100 ? percent.toFixed(0) : Math.abs(percent) >= 10 ? percent.toFixed(1) : percent.toFixed(2);
   return `${percent > 0 ? '+' : ''}${withMinusSign(text)} %`;
 }

@@ -110,10 +110,20 @@ export class Plot {
     doc.restore();
   }
 
-  /** The straight line y = intercept + slope x across the whole x range, clipped to the frame. */
+  /**
+   * The straight line y = intercept + slope x, cut to the part inside the frame in data units first: a
+   * line far off the axes (a k a million times too large) would otherwise need coordinates no PDF holds.
+   */
   line(intercept: number, slope: number, style: LineStyle): void {
-    const { min, max } = this.xAxis;
-    this.clipped(() => strokeLine(this.doc, this.sx(min), this.sy(intercept + slope * min), this.sx(max), this.sy(intercept + slope * max), style));
+    let [from, to] = [this.xAxis.min, this.xAxis.max];
+    if (slope !== 0) {
+      const atMin = (this.yAxis.min - intercept) / slope;
+      const atMax = (this.yAxis.max - intercept) / slope;
+      from = Math.max(from, Math.min(atMin, atMax));
+      to = Math.min(to, Math.max(atMin, atMax));
+    } else if (!(intercept >= this.yAxis.min && intercept <= this.yAxis.max)) return;
+    if (!(from <= to)) return;
+    this.clipped(() => strokeLine(this.doc, this.sx(from), this.sy(intercept + slope * from), this.sx(to), this.sy(intercept + slope * to), style));
   }
 }
 

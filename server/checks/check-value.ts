@@ -39,6 +39,18 @@ export type ValueOutcome =
   | { kind: 'explained'; by: Expanded }
   | { kind: 'unexplained' };
 
+// A million times off (or a millionth) is past every scaling a slip of units or method makes (the
+// largest, per second for per hour, is 3600): no longer a slip of the analysis.
+const ABSURD_ORDERS = 6;
+
+/** How many powers of ten `reported` is from `expected`, signed, when that is absurdly many. */
+function absurdOrders(reported: number, expected: number): number | undefined {
+  if (reported === 0 || expected === 0) return undefined;
+  // As a difference of logarithms: 1e308 over 0.05 overflows as a quotient.
+  const orders = Math.round(Math.log10(Math.abs(reported)) - Math.log10(Math.abs(expected)));
+  return Math.abs(orders) >= ABSURD_ORDERS ? orders : undefined;
+}
+
 export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome {
   const { reported, expected, tolerance } = c;
   if (withinTolerance(reported, expected, tolerance) || (c.alsoRight ?? []).some((v) => withinTolerance(reported, v, tolerance))) {
@@ -81,6 +93,17 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
       message: `${intro} Your value matches ${by.basis} (${withUnit(by.root, c.unit)})${how}. ${likelyCause(by.causes, by.detail ? [by.detail] : [])}`,
     });
     return { kind: 'explained', by };
+  }
+  const orders = absurdOrders(reported, expected);
+  if (orders !== undefined) {
+    drafts.push({
+      ...base,
+      code: 'implausible',
+      severity: 'error',
+      charge: c.charge,
+      message: `${intro} That is about 10^${orders} times the refit, a magnitude no analysis of these data could give; the likely cause is a typing slip (a wrong exponent or extra digits). Please check the value as entered.`,
+    });
+    return { kind: 'unexplained' };
   }
   drafts.push({
     ...base,

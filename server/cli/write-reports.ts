@@ -45,8 +45,8 @@ export async function writeReports(
   if (pool) {
     await Promise.all(sheets.map(async ({ name, input }) => save(name, await pool.run('render-sheet', input))));
   } else {
-    const { renderFeedbackSheet } = await import('../../reports/feedback-sheet.ts');
-    for (const { name, input } of sheets) await save(name, await renderFeedbackSheet(input));
+    const { renderSheetOrReason } = await import('../../reports/sheet-or-reason.ts');
+    for (const { name, input } of sheets) await save(name, await renderSheetOrReason(input));
   }
   await save('gradebook.csv', gradebookCsv(results, { bom: true }));
   const { renderSectionSummary } = await import('../../reports/section-summary.ts');

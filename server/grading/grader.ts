@@ -19,7 +19,15 @@ export interface Grader {
 const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 
 export function poolGrader(pool: WorkerPool): Grader {
-  const renderSheet = async (input: FeedbackInput) => asBuffer(await pool.run('render-sheet', input));
+  const renderSheet = async (input: FeedbackInput) => {
+    try {
+      return asBuffer(await pool.run('render-sheet', input));
+    } catch {
+      // The worker itself stopped (a drawing error is answered inside it with a page saying why).
+      const { renderUndrawableSheet } = await import('../../reports/undrawable-sheet.ts');
+      return renderUndrawableSheet(input, 'the process drawing it stopped');
+    }
+  };
   return {
     check: (settings, submissions) => pool.run('check', { settingsJson: JSON.stringify(settings), submissions }),
     renderSheet,

@@ -5,7 +5,7 @@
 export const tasks = {
   'check-json-batch': () => import('../cli/check-json-batch.ts').then((m) => m.checkJsonBatch),
   check: () => import('../checks/check-settings-batch.ts').then((m) => m.checkSettingsBatch),
-  'render-sheet': () => import('../../reports/feedback-sheet.ts').then((m) => m.renderFeedbackSheet),
+  'render-sheet': () => import('../../reports/sheet-or-reason.ts').then((m) => m.renderSheetOrReason),
   'render-summary': () => import('../../reports/section-summary.ts').then((m) => m.renderSectionSummary),
 };
 

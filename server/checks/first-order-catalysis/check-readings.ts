@@ -46,7 +46,22 @@ function transcriptionDraft(slip: TableSlip, a: RunAnalysis, charge: number): Dr
   }
 }
 
+// No solution is more concentrated than pure water, about 55 M (common practice, no source): a catalyst
+// beyond 100 M, or below zero, is a slip in the value or its unit.
+const MAX_CONCENTRATION_M = 100;
+
 export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+  if (!(a.concentrationM >= 0 && a.concentrationM <= MAX_CONCENTRATION_M)) {
+    drafts.push({
+      code: 'implausible',
+      stage: 'readings',
+      path: `${a.path}.catalyst.value`,
+      reported: run.catalyst.value,
+      severity: 'error',
+      charge: 0,
+      message: `The catalyst concentration of run "${a.label}" is ${fmt(run.catalyst.value)} ${run.catalyst.unit}, which no solution can have (none is more concentrated than about 55 M); the rate law fitted from it means nothing. Please check the value and its unit.`,
+    });
+  }
   const before = drafts.length;
   compareReadings(run, a, settings, drafts);
   const named = new Set(drafts.slice(before).map((d) => d.path));
