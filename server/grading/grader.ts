@@ -15,6 +15,8 @@ export interface Grader {
   renderSheets<T extends { input: FeedbackInput }>(items: T[]): AsyncIterable<T & { pdf: Buffer }>;
 }
 
+const CHECK_CHUNK = 250;
+
 // A PDF comes back from a worker as a Uint8Array; the ZIP writer and fastify want a Buffer.
 const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 
@@ -29,7 +31,12 @@ export function poolGrader(pool: WorkerPool): Grader {
     }
   };
   return {
-    check: (settings, submissions) => pool.run('check', { settingsJson: JSON.stringify(settings), submissions }),
+    async check(settings, submissions) {
+      // A large batch or regrade is spread over every worker, a few hundred submissions at a time.
+      const settingsJson = JSON.stringify(settings);
+      const parts = Array.from({ length: Math.ceil(submissions.length / CHECK_CHUNK) }, (_, i) => submissions.slice(i * CHECK_CHUNK, (i + 1) * CHECK_CHUNK));
+      return (await Promise.all(parts.map((part) => pool.run('check', { settingsJson, submissions: part })))).flat();
+    },
     renderSheet,
     renderSummary: async (input) => asBuffer(await pool.run('render-summary', input)),
     async *renderSheets(items) {

@@ -48,13 +48,24 @@ export async function storeGraded(
     versions.set(item.studentRowId, version + 1);
     return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: JSON.stringify(item.payload), submitted_by: submittedBy };
   });
-  const stored = await db.insertInto('submissions').values(values).returning(['id', 'version']).execute();
+  const stored: Array<{ id: number; version: number }> = [];
+  for (const chunk of chunks(values)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version']).execute()));
   await insertResults(db, items.map((item, i) => ({ ...item, submissionId: stored[i].id })));
   return stored.map((s) => ({ submissionId: s.id, version: s.version }));
 }
 
+// PostgreSQL takes at most 65,535 parameters in one statement: rows go in 1,000 at a time (9 columns each).
+const ROWS_PER_INSERT = 1000;
+
+function chunks<T>(items: T[]): T[][] {
+  return Array.from({ length: Math.ceil(items.length / ROWS_PER_INSERT) }, (_, i) => items.slice(i * ROWS_PER_INSERT, (i + 1) * ROWS_PER_INSERT));
+}
+
 export async function insertResults(db: Kysely<Database>, items: Array<ResultRecord & { submissionId: number }>): Promise<void> {
-  if (items.length === 0) return;
+  for (const chunk of chunks(items)) await insertResultRows(db, chunk);
+}
+
+async function insertResultRows(db: Kysely<Database>, items: Array<ResultRecord & { submissionId: number }>): Promise<void> {
   await db
     .insertInto('results')
     .values(
