@@ -91,3 +91,11 @@ export function staffIdOf(caller: Caller): number {
   if (caller.kind !== 'staff') throw new ApiError('forbidden', 'this action is recorded against a staff member; use a staff token');
   return caller.staffId;
 }
+
+/**
+ * Instructors are managed by the admin alone (adding one, issuing or revoking their tokens): an
+ * instructor manages the TAs of the course, never a fellow instructor.
+ */
+export function mayManage(caller: Caller, role: 'instructor' | 'ta'): void {
+  if (role === 'instructor' && caller.kind !== 'admin') throw new ApiError('forbidden', 'only the admin adds instructors or manages their tokens');
+}

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
-import { createCourse, createSection, createStaff, getCourse, listSections } from '../store/courses.ts';
+import { createCourse, createSection, createStaff, getCourse, getStaff, listSections } from '../store/courses.ts';
 import { createToken, revokeTokens } from '../store/tokens.ts';
+import { mayManage } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam, Name } from './schemas.ts';
 
@@ -58,7 +59,7 @@ export const courseRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/courses/:courseId/staff',
     access: 'instructor',
-    summary: 'Add an instructor or a TA (with the sections they teach)',
+    summary: 'Add a TA (with the sections they teach), or, as the admin, an instructor',
     schema: {
       params: z.object({ courseId: IdParam }),
       body: z.object({
@@ -69,8 +70,9 @@ export const courseRoutes: RouteSpec[] = [
       response: { 201: Staff },
     },
     transactional: true,
-    async handler({ db, scope, body }) {
+    async handler({ db, scope, body, caller }) {
       const { handle, role, sectionIds } = body as { handle: string; role: 'instructor' | 'ta'; sectionIds: number[] };
+      mayManage(caller, role);
       const own = new Set((await listSections(db, scope.courseId!)).map((s) => s.id));
       const foreign = sectionIds.findIndex((id) => !own.has(id));
       if (foreign >= 0) throw new ApiError('invalid-input', undefined, [{ path: `body.sectionIds[${foreign}]`, message: 'no such section in this course' }]);
@@ -81,10 +83,11 @@ export const courseRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/staff/:staffId/tokens',
     access: 'instructor',
-    summary: 'Issue an API token for a staff member; it is shown once and stored only as a hash',
+    summary: "Issue an API token for a staff member (an instructor's only as the admin); it is shown once and stored only as a hash",
     schema: { params: z.object({ staffId: IdParam }), response: { 201: z.object({ token: z.string() }) } },
     transactional: true,
-    async handler({ db, params }) {
+    async handler({ db, params, caller }) {
+      mayManage(caller, (await getStaff(db, Number(params.staffId)))!.role);
       return { status: 201, body: { token: await createToken(db, Number(params.staffId)) } };
     },
   },
@@ -92,10 +95,11 @@ export const courseRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/staff/:staffId/tokens/revoke',
     access: 'instructor',
-    summary: "Revoke every token of a staff member; their requests answer 401 from then on",
+    summary: "Revoke every token of a staff member (an instructor's only as the admin); their requests answer 401 from then on",
     schema: { params: z.object({ staffId: IdParam }), response: { 200: z.object({ revoked: z.number() }) } },
     transactional: true,
-    async handler({ db, params }) {
+    async handler({ db, params, caller }) {
+      mayManage(caller, (await getStaff(db, Number(params.staffId)))!.role);
       return { status: 200, body: { revoked: await revokeTokens(db, Number(params.staffId)) } };
     },
   },

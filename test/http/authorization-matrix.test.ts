@@ -89,6 +89,19 @@ describe('authorisation matrix: every route x every caller', () => {
     else expect(res.status, JSON.stringify(res.body)).toBe(want);
   });
 
+  it('instructors are managed by the admin alone: an instructor may not add one, nor issue or revoke a fellow instructor\'s tokens', async () => {
+    const fellow = (await call(api.app, 'POST', `/v1/courses/${f.course.id}/staff`, ADMIN_TOKEN, { handle: 'instructor-2', role: 'instructor' }, 201)).body;
+    const refused = [
+      await call(api.app, 'POST', `/v1/courses/${f.course.id}/staff`, f.instructorToken, { handle: 'instructor-3', role: 'instructor' }),
+      await call(api.app, 'POST', `/v1/staff/${fellow.id}/tokens`, f.instructorToken),
+      await call(api.app, 'POST', `/v1/staff/${fellow.id}/tokens/revoke`, f.instructorToken),
+      await call(api.app, 'POST', `/v1/staff/${f.instructor.id}/tokens`, f.instructorToken),
+    ];
+    for (const res of refused) expect([res.status, res.body.error.message]).toEqual([403, 'only the admin adds instructors or manages their tokens']);
+    await call(api.app, 'POST', `/v1/staff/${fellow.id}/tokens`, ADMIN_TOKEN, undefined, 201);
+    await call(api.app, 'POST', `/v1/staff/${fellow.id}/tokens/revoke`, ADMIN_TOKEN, undefined, 200);
+  });
+
   it('a TA asking for another section gets the same answer as for a missing one', async () => {
     const other = await call(api.app, 'GET', `/v1/sections/${f.sectionA.id}/roster`, f.taBToken);
     const missing = await call(api.app, 'GET', '/v1/sections/999999/roster', f.taBToken);
