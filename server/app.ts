@@ -29,7 +29,7 @@ export interface AppOptions {
   /** Where checking and drawing run; by default a worker pool of the app's own, closed with it. */
   grader?: Grader;
   /** Off in tests; pino otherwise. Logs carry request ids and URLs only, never bodies or tokens. */
-  logger?: boolean;
+  logger?: boolean | { stream: NodeJS.WritableStream };
 }
 
 function sameSecret(a: string, b: string): boolean {
@@ -106,15 +106,28 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, gr
   });
 }
 
-/** Builds the app: content parsers, error mapping, OpenAPI, and every route. Never listens. */
+/**
+ * What the log keeps of an unexpected error: its class, its code (a SQLSTATE, an errno) and where it
+ * was thrown. Not its message or a database's detail, which can quote a request's text or student ids.
+ */
+function loggable(error: unknown): { name: string; code?: string; at: string[] } {
+  const e = error instanceof Error ? error : new Error('not an Error');
+  const code = (error as { code?: unknown }).code;
+  const at = (e.stack ?? '').split('\n').filter((line) => line.trimStart().startsWith('at ')).map((line) => line.trim()).slice(0, 8);
+  return { name: e.name, ...(typeof code === 'string' ? { code } : {}), at };
+}
+
 /** Request lines for the log: method and URL with student ids taken out; no headers, no body. */
 function logRequest(request: { method: string; url: string; id: string }) {
   return { id: request.id, method: request.method, url: request.url.replace(/\/students\/[^/?]+/, '/students/:studentId') };
 }
 
+/** Builds the app: content parsers, error mapping, OpenAPI, and every route. Never listens. */
 export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   const app = Fastify({
-    logger: options.logger ? { level: options.config.logLevel, serializers: { req: logRequest } } : false,
+    logger: options.logger
+      ? { level: options.config.logLevel, serializers: { req: logRequest }, ...(typeof options.logger === 'object' ? { stream: options.logger.stream } : {}) }
+      : false,
     bodyLimit: options.config.bodyLimitBytes,
   });
   app.setValidatorCompiler(validatorCompiler);
@@ -164,7 +177,7 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     if (status !== undefined && status >= 400 && status < 500) {
       return reply.code(status).send(errorBody(new ApiError('invalid-input', (error as Error).message)));
     }
-    request.log.error({ err: error }, 'unhandled error');
+    request.log.error({ error: loggable(error) }, 'unhandled error');
     return reply.code(500).send(errorBody(new ApiError('internal')));
   });
   app.setNotFoundHandler((_request, reply) => reply.code(404).send(errorBody(new ApiError('not-found'))));
