@@ -15,6 +15,7 @@ import { ErrorResponse } from './routes/schemas.ts';
 import type { RouteSpec } from './routes/route-spec.ts';
 import { jsonDepth, MAX_JSON_DEPTH } from './routes/json-depth.ts';
 import { decodeUtf8 } from './routes/utf8.ts';
+import { validationDetails } from './routes/validation-details.ts';
 import type { Store } from './store/connection.ts';
 import { findIdempotent, holdIdempotencyKey, MAX_IDEMPOTENCY_KEY, saveIdempotent } from './store/idempotency.ts';
 import { findCaller } from './store/tokens.ts';
@@ -160,8 +161,7 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     if (error instanceof ApiError) return reply.code(error.status).send(errorBody(error));
     if (hasZodFastifySchemaValidationErrors(error)) {
       const where = (error as { validationContext?: string }).validationContext ?? 'body';
-      const details = error.validation.map((v) => ({ path: `${where}${v.instancePath.replace(/\//g, '.')}`.replace(/\.$/, ''), message: v.message ?? 'invalid' }));
-      return reply.code(400).send(errorBody(new ApiError('invalid-input', undefined, details)));
+      return reply.code(400).send(errorBody(new ApiError('invalid-input', undefined, validationDetails(where, error.validation))));
     }
     if (isDatabaseUnavailable(error)) {
       return reply.code(503).header('retry-after', RETRY_AFTER_SECONDS).send(errorBody(new ApiError('database-unavailable')));
@@ -170,6 +170,10 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     if ((error as { code?: string }).code === '23505') {
       const constraint = (error as { constraint?: string }).constraint;
       return reply.code(409).send(errorBody(new ApiError('conflict', `already exists${constraint ? ` (${constraint.replace(/_/g, ' ')})` : ''}`)));
+    }
+    // An upload of more files than the two it reads is a wrong request, not a large one.
+    if ((error as { code?: string }).code === 'FST_FILES_LIMIT') {
+      return reply.code(400).send(errorBody(new ApiError('invalid-input', undefined, [{ path: 'body', message: 'at most two files: readings and, optionally, reported' }])));
     }
     const status = (error as { statusCode?: number }).statusCode;
     if (status === 413) return reply.code(413).send(errorBody(new ApiError('payload-too-large')));

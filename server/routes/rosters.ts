@@ -7,7 +7,7 @@ import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
 const Entry = z.object({ studentId: StudentId, displayName: Text(200).optional() });
-const RosterBody = z.union([z.object({ students: z.array(Entry).min(1).max(5000) }), z.string()]);
+const RosterBody = z.union([z.object({ students: z.array(Entry).min(1, 'at least one student').max(5000, 'at most 5,000 students in one request') }), z.string()]);
 
 /** A roster CSV: a header with `student_id` and optionally `display_name`. */
 function rosterFromCsv(text: string): RosterEntry[] {

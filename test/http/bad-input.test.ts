@@ -256,6 +256,22 @@ const cases: Case[] = [
     detail: /nested more than 64 levels deep/,
   },
   {
+    name: 'a roster of 5,001 students in one request',
+    request: (s) => ({ method: 'POST', url: `/v1/sections/${s.sectionA.id}/roster`, headers: auth(s.instructorToken), payload: { students: Array.from({ length: 5001 }, (_, i) => ({ studentId: `X-${i}` })) } }),
+    status: 400,
+    code: 'invalid-input',
+    paths: ['body.students'],
+    detail: /^at most 5,000 students in one request$/,
+  },
+  {
+    name: 'an upload of three files',
+    request: submitMultipart(() => ({ readings: readingsCsv('S-001'), reported: 'student_id,run,quantity,value,unit\n', notes: 'x\n' })),
+    status: 400,
+    code: 'invalid-input',
+    paths: ['body'],
+    detail: /^at most two files: readings and, optionally, reported$/,
+  },
+  {
     name: 'a body of a type the API does not read',
     request: submitRaw(() => '<submissions/>', 'application/xml'),
     status: 415,
@@ -556,6 +572,16 @@ describe('malformed requests on PostgreSQL', () => {
       expect(res.statusCode, res.body).toBe(422);
       expect(res.json().error.details[0].path).toMatch(/^\[0\]\.runs\[0\]/);
       expect(await counts()).toEqual(before);
+    });
+
+    it('an ln F column longer than the readings is a finding on that column, and k is still checked', async () => {
+      const long = broken('S-002', (x) => x.runs[0].reported.lnF.push(-1));
+      const res = await call(api.app, 'POST', submissionsUrl(s), s.taAToken, [long], 201);
+      const view = await call(api.app, 'GET', `/v1/submissions/${res.body.stored[0].submissionId}`, s.taAToken, undefined, 200);
+      const findings = view.body.result.findings as Array<{ code: string; path: string; message: string }>;
+      expect(findings.filter((f) => f.path.startsWith('runs[0]'))).toEqual([
+        expect.objectContaining({ code: 'unexplained', path: 'runs[0].reported.lnF', message: expect.stringContaining('has 17 entries for 16 readings') }),
+      ]);
     });
 
     it('a staff handle already used in the course is a 409, not a 500', async () => {

@@ -46,7 +46,8 @@ export function checkRunK(
   const slipValues = () => (slips ??= slipFits(a, all, settings.fitModel));
   // k from the student's own ln F column, when that column carries a slip of its own.
   let own: Estimate | undefined;
-  if (ownColumn?.wrong && a.transform) {
+  // A column of another length was named as such; k is then judged against the refit alone.
+  if (ownColumn?.wrong && a.transform && ownColumn.values.length === a.transform.t.length) {
     const fit = fitDefined(settings.fitModel, a.transform.t, ownColumn.values);
     own = { value: -fit.slope, standardError: fit.seSlope, ci95: [0, 0], unit };
   }
