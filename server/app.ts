@@ -84,6 +84,10 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, gr
       }
       // A multipart upload is read here, so that a repeat is recognised by its content.
       const body = spec.readBody ? await spec.readBody(request) : request.body;
+      const context = { config: options.config, grader, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply };
+      // Slow work that needs no transaction (checking a batch) is done before one is opened, so that a
+      // database connection is not held while the workers check.
+      const prepared = spec.prepare ? await spec.prepare({ ...context, db }) : undefined;
       const run = async (trx: typeof db) => {
         const hash = keyText === undefined ? '' : requestHash(request, body);
         if (keyText !== undefined && caller.kind === 'staff') {
@@ -94,7 +98,7 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, gr
             return { status: seen.statusCode, body: seen.body, replayed: true };
           }
         }
-        const answer = await spec.handler({ db: trx, config: options.config, grader, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply });
+        const answer = await spec.handler({ ...context, db: trx, prepared });
         if (keyText !== undefined && caller.kind === 'staff') await saveIdempotent(trx, caller.staffId, keyText, hash, answer.status, answer.body);
         return { ...answer, replayed: false };
       };

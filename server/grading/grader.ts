@@ -1,5 +1,5 @@
 import type { FeedbackInput, SectionSummaryInput } from '../../reports/feedback-input.ts';
-import type { CheckedSubmission } from '../checks/check.ts';
+import type { GradedForStore } from './graded-for-store.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 
 /**
@@ -7,8 +7,8 @@ import type { WorkerPool } from '../pool/worker-pool.ts';
  * requests while a batch is checked or a section's sheets are drawn.
  */
 export interface Grader {
-  /** Checks submissions against stored (already validated) assignment settings; each comes back as read. */
-  check(settings: unknown, submissions: unknown[]): Promise<CheckedSubmission[]>;
+  /** Checks submissions against stored (already validated) assignment settings, in the form the store keeps. */
+  check(settings: unknown, submissions: unknown[]): Promise<GradedForStore[]>;
   renderSheet(input: FeedbackInput): Promise<Buffer>;
   renderSummary(input: SectionSummaryInput): Promise<Buffer>;
   /** Sheets for many inputs, yielded in their order while the next few are drawn. */
@@ -35,7 +35,7 @@ export function poolGrader(pool: WorkerPool): Grader {
       // A large batch or regrade is spread over every worker, a few hundred submissions at a time.
       const settingsJson = JSON.stringify(settings);
       const parts = Array.from({ length: Math.ceil(submissions.length / CHECK_CHUNK) }, (_, i) => submissions.slice(i * CHECK_CHUNK, (i + 1) * CHECK_CHUNK));
-      return (await Promise.all(parts.map((part) => pool.run('check', { settingsJson, submissions: part })))).flat();
+      return (await Promise.all(parts.map((part) => pool.run('grade-for-store', { settingsJson, submissions: part })))).flat();
     },
     renderSheet,
     renderSummary: async (input) => asBuffer(await pool.run('render-summary', input)),

@@ -9,15 +9,11 @@ import type { Grader } from './grader.ts';
 export async function regrade(db: Kysely<Database>, grader: Grader, assignment: AssignmentRow, sectionId?: number): Promise<number> {
   assignmentOf(assignment.settings, 'settings');
   const latest = await latestSubmissions(db, assignment.id, sectionId);
-  const checked = await grader.check(assignment.settings, latest.map((s) => s.payload));
+  const graded = await grader.check(assignment.settings, latest.map((s) => s.payload));
   await insertResults(
     db,
-    latest.map((s, i) => ({
-      submissionId: s.submissionId,
-      result: checked[i].result,
-      settings: assignment.settings,
-      settingsVersion: assignment.settingsVersion,
-    })),
+    { settings: assignment.settings, settingsVersion: assignment.settingsVersion },
+    latest.map((s, i) => ({ submissionId: s.submissionId, result: graded[i] })),
   );
   return latest.length;
 }

@@ -4,7 +4,7 @@ import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput } from '../../reports/feedback-input.ts';
 import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
-import { getSubmission, latestResults, latestSubmissions, overridesOf, type SubmissionRow } from '../store/submissions.ts';
+import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
 import { effectiveResult, type EffectiveResult } from './effective-result.ts';
 
@@ -54,9 +54,10 @@ export async function sectionFeedback(db: Kysely<Database>, sectionId: number, a
 
 /** The latest submission of each student in a section, with its latest result, overrides applied. */
 export async function latestWithResults(db: Kysely<Database>, sectionId: number, assignmentId: number) {
-  const rows = await latestSubmissions(db, assignmentId, sectionId);
+  // Without payloads, refits and settings: a table of the section needs none of them.
+  const rows = await latestSubmissionHeads(db, assignmentId, sectionId);
   const ids = rows.map((r) => r.submissionId);
-  const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
+  const results = new Map((await latestResultSummaries(db, ids)).map((r) => [r.submissionId, r]));
   const overrides = await overridesOf(db, ids);
   return rows.map((submission) => {
     const row = results.get(submission.submissionId);

@@ -1,6 +1,7 @@
 import type { Kysely } from 'kysely';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { Database } from '../store/database.ts';
+import type { GradedForStore } from './graded-for-store.ts';
 import type { Grader } from './grader.ts';
 import { rosterRows } from '../store/students.ts';
 import { storeGraded } from '../store/submissions.ts';
@@ -16,41 +17,47 @@ export interface BatchOutcome {
   rejected: Array<{ at: string; studentId: string | null; path: string; message: string }>;
 }
 
+/** A batch checked against an assignment's settings, before anything is stored. */
+export interface GradedBatch {
+  assignmentId: number;
+  settings: unknown;
+  settingsVersion: number;
+  items: BatchItem[];
+  graded: GradedForStore[];
+}
+
+/** Checks every submission of a batch (in the worker pool); no transaction is needed for this. */
+export async function gradeBatch(grader: Grader, assignment: { id: number; settings: unknown; settingsVersion: number }, items: BatchItem[]): Promise<GradedBatch> {
+  const graded = await grader.check(assignment.settings, items.map((item) => item.submission));
+  return { assignmentId: assignment.id, settings: assignment.settings, settingsVersion: assignment.settingsVersion, items, graded };
+}
+
 /**
- * Grades every submission of a batch and stores the valid ones (a new version each, with its result)
- * in the caller's transaction. An invalid submission, or one for a student not on the section's
- * roster, is listed with the reason and stored nowhere.
+ * Stores the valid submissions of a checked batch (a new version each, with its result) in the
+ * caller's transaction. An invalid submission, or one for a student not on the section's roster, is
+ * listed with the reason and stored nowhere.
  */
-export async function submitBatch(
-  db: Kysely<Database>,
-  grader: Grader,
-  args: { assignmentId: number; settingsVersion: number; settings: unknown; sectionId: number; staffId: number; items: BatchItem[] },
-): Promise<BatchOutcome> {
-  const checked = await grader.check(args.settings, args.items.map((item) => item.submission));
-  const graded = args.items.map((item, i) => ({ item, ...checked[i] }));
-  const ids = graded.map((g) => g.result.studentId).filter((id): id is string => id !== null);
+export async function storeBatch(db: Kysely<Database>, batch: GradedBatch, args: { sectionId: number; staffId: number }): Promise<BatchOutcome> {
+  const { graded } = batch;
+  const ids = graded.map((g) => g.studentId).filter((id): id is string => id !== null);
   const roster = await rosterRows(db, args.sectionId, [...new Set(ids)]);
   const outcome: BatchOutcome = { stored: [], rejected: [] };
-  const toStore: Array<{ studentId: string; studentRowId: number; payload: unknown; result: CheckResult }> = [];
-  for (const { item, result, read } of graded) {
+  const toStore: Array<{ studentId: string; studentRowId: number; payloadJson: string; result: GradedForStore }> = [];
+  batch.items.forEach((item, i) => {
+    const result = graded[i];
     if (result.status === 'rejected') {
-      for (const r of result.rejected ?? []) outcome.rejected.push({ at: item.at, studentId: result.studentId, path: r.path, message: r.message });
-      continue;
+      for (const r of result.rejected) outcome.rejected.push({ at: item.at, studentId: result.studentId, path: r.path, message: r.message });
+      return;
     }
     const row = roster.get(result.studentId!);
     if (row === undefined) {
       outcome.rejected.push({ at: item.at, studentId: result.studentId, path: 'studentId', message: "not on this section's roster" });
-      continue;
+      return;
     }
     // Stored as the schema reads it: fields it does not know are left out, whatever they hold.
-    toStore.push({ studentId: result.studentId!, studentRowId: row, payload: read, result });
-  }
-  const stored = await storeGraded(
-    db,
-    args.assignmentId,
-    args.staffId,
-    toStore.map((s) => ({ studentRowId: s.studentRowId, payload: s.payload, result: s.result, settings: args.settings, settingsVersion: args.settingsVersion })),
-  );
+    toStore.push({ studentId: result.studentId!, studentRowId: row, payloadJson: result.payloadJson!, result });
+  });
+  const stored = await storeGraded(db, batch.assignmentId, args.staffId, { settings: batch.settings, settingsVersion: batch.settingsVersion }, toStore);
   stored.forEach((s, i) => {
     const { studentId, result } = toStore[i];
     outcome.stored.push({ studentId, submissionId: s.submissionId, version: s.version, status: result.status, score: result.score, maxScore: result.maxScore });

@@ -4,7 +4,7 @@
  */
 export const tasks = {
   'check-json-batch': () => import('../cli/check-json-batch.ts').then((m) => m.checkJsonBatch),
-  check: () => import('../checks/check-settings-batch.ts').then((m) => m.checkSettingsBatch),
+  'grade-for-store': () => import('../grading/graded-for-store.ts').then((m) => m.gradeForStore),
   'render-sheet': () => import('../../reports/sheet-or-reason.ts').then((m) => m.renderSheetOrReason),
   'render-summary': () => import('../../reports/section-summary.ts').then((m) => m.renderSectionSummary),
 };

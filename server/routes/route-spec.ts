@@ -19,6 +19,8 @@ export interface RouteContext {
   body: unknown;
   request: FastifyRequest;
   reply: FastifyReply;
+  /** What `prepare` made, if the route has one. */
+  prepared?: unknown;
 }
 
 export interface RouteAnswer {
@@ -50,5 +52,7 @@ export interface RouteSpec {
   idempotent?: boolean;
   /** Runs inside one database transaction: nothing is half-stored. */
   transactional?: boolean;
+  /** Work done before the transaction opens, outside it (checking a batch); its result reaches the handler. */
+  prepare?(ctx: RouteContext): Promise<unknown>;
   handler(ctx: RouteContext): Promise<RouteAnswer>;
 }

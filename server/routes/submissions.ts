@@ -3,7 +3,7 @@ import { isStorableText, UNSTORABLE_TEXT } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
-import { submitBatch } from '../grading/submit-batch.ts';
+import { gradeBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
 import { submissionsFromMultipart } from './multipart-csv.ts';
@@ -67,19 +67,15 @@ export const submissionRoutes: RouteSpec[] = [
     readBody: async (request) => (request.isMultipart() ? submissionsFromMultipart(request) : request.body),
     idempotent: true,
     transactional: true,
-    async handler({ db, grader, scope, params, body: submissions, request, caller }) {
+    async prepare({ db, grader, params, body: submissions, request }) {
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
       if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
       // Stored settings that no longer validate are the server's problem, named before any checking.
       assignmentOf(assignment.settings, 'settings');
-      const outcome = await submitBatch(db, grader, {
-        assignmentId: assignment.id,
-        settingsVersion: assignment.settingsVersion,
-        settings: assignment.settings,
-        sectionId: scope.sectionId!,
-        staffId: staffIdOf(caller),
-        items: submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })),
-      });
+      return gradeBatch(grader, assignment, submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })));
+    },
+    async handler({ db, scope, caller, prepared }) {
+      const outcome = await storeBatch(db, prepared as GradedBatch, { sectionId: scope.sectionId!, staffId: staffIdOf(caller) });
       if (outcome.stored.length === 0) {
         throw new ApiError('nothing-stored', undefined, outcome.rejected.map((r) => ({ path: `${r.at}.${r.path}`, message: r.message })));
       }

@@ -1,16 +1,26 @@
 import { sql, type Kysely } from 'kysely';
-import type { CheckResult } from '../../schemas/result.ts';
 import type { Database } from './database.ts';
 
 /** Submissions are immutable versions; results are appended (a regrade adds one); overrides are an audit trail. */
 
 export interface NewSubmission {
   studentRowId: number;
-  payload: unknown;
+  /** The submission as JSON text. */
+  payloadJson: string;
 }
 
-export interface ResultRecord {
-  result: CheckResult;
+/** A result as stored: its figures, and its refit and findings as JSON text. */
+export interface StoredResult {
+  engineVersion: string;
+  status: string;
+  score: number | null;
+  maxScore: number;
+  refitJson: string | null;
+  findingsJson: string;
+}
+
+/** The settings every result of one grading used (stored beside each, so a later change leaves it as graded). */
+export interface GradedWith {
   settings: unknown;
   settingsVersion: number;
 }
@@ -33,7 +43,8 @@ export async function storeGraded(
   db: Kysely<Database>,
   assignmentId: number,
   submittedBy: number,
-  items: Array<NewSubmission & ResultRecord>,
+  gradedWith: GradedWith,
+  items: Array<NewSubmission & { result: StoredResult }>,
 ): Promise<Array<{ submissionId: number; version: number }>> {
   if (items.length === 0) return [];
   const students = [...new Set(items.map((i) => i.studentRowId))].sort((a, b) => a - b);
@@ -46,11 +57,11 @@ export async function storeGraded(
   const values = items.map((item) => {
     const version = versions.get(item.studentRowId)!;
     versions.set(item.studentRowId, version + 1);
-    return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: JSON.stringify(item.payload), submitted_by: submittedBy };
+    return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: item.payloadJson, submitted_by: submittedBy };
   });
   const stored: Array<{ id: number; version: number }> = [];
   for (const chunk of chunks(values)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version']).execute()));
-  await insertResults(db, items.map((item, i) => ({ ...item, submissionId: stored[i].id })));
+  await insertResults(db, gradedWith, items.map((item, i) => ({ result: item.result, submissionId: stored[i].id })));
   return stored.map((s) => ({ submissionId: s.id, version: s.version }));
 }
 
@@ -61,39 +72,40 @@ function chunks<T>(items: T[]): T[][] {
   return Array.from({ length: Math.ceil(items.length / ROWS_PER_INSERT) }, (_, i) => items.slice(i * ROWS_PER_INSERT, (i + 1) * ROWS_PER_INSERT));
 }
 
-export async function insertResults(db: Kysely<Database>, items: Array<ResultRecord & { submissionId: number }>): Promise<void> {
-  for (const chunk of chunks(items)) await insertResultRows(db, chunk);
+export async function insertResults(db: Kysely<Database>, gradedWith: GradedWith, items: Array<{ submissionId: number; result: StoredResult }>): Promise<void> {
+  const settings = JSON.stringify(gradedWith.settings);
+  for (const chunk of chunks(items)) {
+    await db
+      .insertInto('results')
+      .values(
+        chunk.map(({ submissionId, result }) => ({
+          submission_id: submissionId,
+          engine_version: result.engineVersion,
+          settings_version: gradedWith.settingsVersion,
+          settings,
+          status: result.status,
+          score: result.score,
+          max_score: result.maxScore,
+          refit: result.refitJson,
+          findings: result.findingsJson,
+        })),
+      )
+      .execute();
+  }
 }
 
-async function insertResultRows(db: Kysely<Database>, items: Array<ResultRecord & { submissionId: number }>): Promise<void> {
-  await db
-    .insertInto('results')
-    .values(
-      items.map(({ submissionId, result, settings, settingsVersion }) => ({
-        submission_id: submissionId,
-        engine_version: result.engineVersion,
-        settings_version: settingsVersion,
-        settings: JSON.stringify(settings),
-        status: result.status,
-        score: result.score,
-        max_score: result.maxScore,
-        refit: result.refit === null ? null : JSON.stringify(result.refit),
-        findings: JSON.stringify({ findings: result.findings, rejected: result.rejected ?? [] }),
-      })),
-    )
-    .execute();
-}
-
-const submissionColumns = [
+/** A submission version without its payload: what a table of a section's results needs. */
+const submissionHeadColumns = [
   'submissions.id as submissionId',
   'submissions.version as version',
-  'submissions.payload as payload',
   'submissions.created_at as submittedAt',
   'submissions.assignment_id as assignmentId',
   'students.student_id as studentId',
   'students.section_id as sectionId',
   'students.course_id as courseId',
 ] as const;
+
+const submissionColumns = [...submissionHeadColumns, 'submissions.payload as payload'] as const;
 
 export async function getSubmission(db: Kysely<Database>, id: number) {
   return db
@@ -106,41 +118,49 @@ export async function getSubmission(db: Kysely<Database>, id: number) {
 
 export type SubmissionRow = NonNullable<Awaited<ReturnType<typeof getSubmission>>>;
 
-const resultColumns = [
+/** A result without its refit and settings: what a table of a section's results needs. */
+const resultSummaryColumns = [
   'results.id as resultId',
   'results.submission_id as submissionId',
   'results.engine_version as engineVersion',
   'results.settings_version as settingsVersion',
-  'results.settings as settings',
   'results.status as status',
   'results.score as score',
   'results.max_score as maxScore',
-  'results.refit as refit',
   'results.findings as findings',
   'results.released_at as releasedAt',
   'results.created_at as gradedAt',
 ] as const;
 
+const resultColumns = [...resultSummaryColumns, 'results.settings as settings', 'results.refit as refit'] as const;
+
+function latestResultQuery(db: Kysely<Database>, submissionIds: number[]) {
+  return db
+    .selectFrom('results')
+    .where('results.id', 'in', (eb) =>
+      eb.selectFrom('results as r').select((e) => e.fn.max('r.id').as('id')).where('r.submission_id', 'in', submissionIds).groupBy('r.submission_id'),
+    );
+}
+
 /** The latest result of each of the given submissions. */
 export async function latestResults(db: Kysely<Database>, submissionIds: number[]) {
   if (submissionIds.length === 0) return [];
-  return db
-    .selectFrom('results')
-    .select(resultColumns)
-    .where('results.id', 'in', (eb) =>
-      eb.selectFrom('results as r').select((e) => e.fn.max('r.id').as('id')).where('r.submission_id', 'in', submissionIds).groupBy('r.submission_id'),
-    )
-    .execute();
+  return latestResultQuery(db, submissionIds).select(resultColumns).execute();
 }
 
 export type ResultRow = Awaited<ReturnType<typeof latestResults>>[number];
 
-/** The latest version of each student's submission to an assignment, in one section or all. */
-export async function latestSubmissions(db: Kysely<Database>, assignmentId: number, sectionId?: number) {
+/** The same without refit and settings (null), for tables: a section's refits are megabytes. */
+export async function latestResultSummaries(db: Kysely<Database>, submissionIds: number[]): Promise<ResultRow[]> {
+  if (submissionIds.length === 0) return [];
+  const rows = await latestResultQuery(db, submissionIds).select(resultSummaryColumns).execute();
+  return rows.map((r) => ({ ...r, settings: null, refit: null }));
+}
+
+function latestQuery(db: Kysely<Database>, assignmentId: number, sectionId?: number) {
   let query = db
     .selectFrom('submissions')
     .innerJoin('students', 'students.id', 'submissions.student_row_id')
-    .select(submissionColumns)
     .where('submissions.assignment_id', '=', assignmentId)
     .where(({ not, exists, selectFrom }) =>
       not(
@@ -154,7 +174,17 @@ export async function latestSubmissions(db: Kysely<Database>, assignmentId: numb
       ),
     );
   if (sectionId !== undefined) query = query.where('students.section_id', '=', sectionId);
-  return query.orderBy('students.student_id').execute();
+  return query.orderBy('students.student_id');
+}
+
+/** The latest version of each student's submission to an assignment, in one section or all. */
+export async function latestSubmissions(db: Kysely<Database>, assignmentId: number, sectionId?: number) {
+  return latestQuery(db, assignmentId, sectionId).select(submissionColumns).execute();
+}
+
+/** The same without payloads, for tables. */
+export async function latestSubmissionHeads(db: Kysely<Database>, assignmentId: number, sectionId?: number) {
+  return latestQuery(db, assignmentId, sectionId).select(submissionHeadColumns).execute();
 }
 
 /** Every version a student submitted, to any assignment or one. */

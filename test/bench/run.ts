@@ -29,3 +29,6 @@ console.log(
 
 const { benchBulkSubmit } = await import('./bulk-submit.ts');
 await benchBulkSubmit();
+
+const { benchConcurrentLoad } = await import('./concurrent-load.ts');
+await benchConcurrentLoad();
