@@ -7,12 +7,13 @@ import { sql } from 'kysely';
 import { hasZodFastifySchemaValidationErrors, jsonSchemaTransform, serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
 import type { Config } from './config.ts';
 import { poolGrader, type Grader } from './grading/grader.ts';
+import { Regrades } from './grading/regrade.ts';
 import { createWorkerPool } from './pool/worker-pool.ts';
 import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
 import { routes } from './routes/index.ts';
 import { ErrorResponse } from './routes/schemas.ts';
-import type { RouteSpec } from './routes/route-spec.ts';
+import type { RouteContext, RouteSpec } from './routes/route-spec.ts';
 import { jsonDepth, MAX_JSON_DEPTH } from './routes/json-depth.ts';
 import { decodeUtf8 } from './routes/utf8.ts';
 import { validationDetails } from './routes/validation-details.ts';
@@ -60,7 +61,7 @@ const errorResponses = Object.fromEntries([400, 401, 403, 404, 409, 413, 415, 42
 /** Who called and what the URL points to, settled before the body is validated. */
 const resolved = new WeakMap<FastifyRequest, { caller: Caller; scope: Scope }>();
 
-function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, grader: Grader): void {
+function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, services: Pick<RouteContext, 'grader' | 'regrades'>): void {
   const { db } = options.store;
   app.route({
     method: spec.method,
@@ -84,7 +85,7 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, gr
       }
       // A multipart upload is read here, so that a repeat is recognised by its content.
       const body = spec.readBody ? await spec.readBody(request) : request.body;
-      const context = { config: options.config, grader, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply };
+      const context = { config: options.config, ...services, caller, scope, params, query: request.query as Record<string, unknown>, body, request, reply };
       // Slow work that needs no transaction (checking a batch) is done before one is opened, so that a
       // database connection is not held while the workers check.
       const prepared = spec.prepare ? await spec.prepare({ ...context, db }) : undefined;
@@ -210,12 +211,14 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     }
   });
 
-  let grader = options.grader;
-  if (!grader) {
-    const pool = createWorkerPool();
-    app.addHook('onClose', () => pool.close());
-    grader = poolGrader(pool);
-  }
-  for (const spec of routes) register(app, spec, options, grader);
+  const pool = options.grader ? undefined : createWorkerPool();
+  const grader = options.grader ?? poolGrader(pool!);
+  const regrades = new Regrades(grader);
+  app.addHook('onClose', async () => {
+    // Regrades under way finish first: they need the workers and the database.
+    await regrades.idle();
+    await pool?.close();
+  });
+  for (const spec of routes) register(app, spec, options, { grader, regrades });
   return app;
 }

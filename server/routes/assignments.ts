@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
-import { regrade } from '../grading/regrade.ts';
 import { createAssignment, getAssignment, replaceSettings } from '../store/assignments.ts';
 import { getSection } from '../store/courses.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -17,6 +16,17 @@ const Assignment = z.object({
   createdAt: z.date(),
 });
 const Settings = z.record(z.string(), z.unknown());
+const RegradeProgressView = z.object({
+  regradeId: z.string(),
+  assignmentId: z.number(),
+  sectionId: z.number().nullable(),
+  total: z.number(),
+  done: z.number(),
+  status: z.enum(['running', 'finished', 'failed']),
+  error: z.string().optional(),
+  startedAt: z.date(),
+  finishedAt: z.date().optional(),
+});
 
 export const assignmentRoutes: RouteSpec[] = [
   {
@@ -63,20 +73,32 @@ export const assignmentRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/assignments/:assignmentId/regrade',
     access: 'instructor',
-    summary: "Regrade the latest submissions under the current settings (one section or all); earlier results stay",
+    summary: "Start regrading the latest submissions under the current settings (one section or all), in the background; earlier results stay. Follow it at the regrade's URL",
     schema: {
       params: z.object({ assignmentId: IdParam }),
       body: z.object({ sectionId: z.number().int().positive().optional() }).optional(),
-      response: { 200: z.object({ regraded: z.number() }) },
+      response: { 202: RegradeProgressView },
     },
-    transactional: true,
-    async handler({ db, grader, params, body, scope }) {
+    async handler({ db, regrades, params, body, scope }) {
       const sectionId = (body as { sectionId?: number } | undefined)?.sectionId;
       if (sectionId !== undefined && (await getSection(db, sectionId))?.courseId !== scope.courseId) {
         throw new ApiError('invalid-input', undefined, [{ path: 'body.sectionId', message: 'no such section in this course' }]);
       }
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
-      return { status: 200, body: { regraded: await regrade(db, grader, assignment, sectionId) } };
+      const progress = await regrades.start(db, assignment, sectionId);
+      return { status: 202, body: progress, headers: { location: `/v1/assignments/${assignment.id}/regrades/${progress.regradeId}` } };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/assignments/:assignmentId/regrades/:regradeId',
+    access: 'instructor',
+    summary: 'How far a regrade is: submissions done of the total, running, finished or failed',
+    schema: { params: z.object({ assignmentId: IdParam, regradeId: z.string().uuid() }), response: { 200: RegradeProgressView } },
+    async handler({ regrades, params }) {
+      const progress = regrades.get(params.regradeId);
+      if (!progress || progress.assignmentId !== Number(params.assignmentId)) throw new ApiError('not-found', 'no such regrade (a regrade is kept until the service restarts)');
+      return { status: 200, body: progress };
     },
   },
 ];

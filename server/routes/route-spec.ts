@@ -3,6 +3,7 @@ import type { Kysely } from 'kysely';
 import type { z } from 'zod';
 import type { Config } from '../config.ts';
 import type { Grader } from '../grading/grader.ts';
+import type { Regrades } from '../grading/regrade.ts';
 import type { Database } from '../store/database.ts';
 import type { Access, Caller, Scope } from './access.ts';
 
@@ -12,6 +13,8 @@ export interface RouteContext {
   config: Config;
   /** Checking and drawing, done off the event loop. */
   grader: Grader;
+  /** Regrades running in the background, and how far each is. */
+  regrades: Regrades;
   caller: Caller;
   scope: Scope;
   params: Record<string, string>;

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openApi, call, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
+import { openApi, call, regradeAndWait, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 import { zipEntryNames } from '../support/zip-entries.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 import { DRAFT_NOTE } from '../../reports/feedback-input.ts';
@@ -75,8 +75,11 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
 
     const settings = { ...s.settings, rubric: { k: 3 } };
     await call(api.app, 'PUT', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings }, 200);
-    const regraded = await call(api.app, 'POST', `/v1/assignments/${s.assignment.id}/regrade`, s.instructorToken, { sectionId: s.sectionA.id }, 200);
-    expect(regraded.body.regraded).toBeGreaterThanOrEqual(1);
+    const regraded = await regradeAndWait(api.app, s.instructorToken, s.assignment.id, { sectionId: s.sectionA.id });
+    expect(regraded.location).toBe(`/v1/assignments/${s.assignment.id}/regrades/${regraded.started.regradeId}`);
+    expect(regraded.progress).toMatchObject({ status: 'finished', sectionId: s.sectionA.id });
+    expect(regraded.progress.done).toBe(regraded.progress.total);
+    expect(regraded.progress.total).toBeGreaterThanOrEqual(1);
     const after = await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200);
     expect(after.body.result.settingsVersion).toBe(2);
     const again = after.body.result.findings.find((f: { id: string }) => f.id === finding.id);

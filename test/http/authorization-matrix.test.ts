@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Access } from '../../server/routes/access.ts';
 import { routes } from '../../server/routes/index.ts';
-import { ADMIN_TOKEN, call, openApi, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
+import { ADMIN_TOKEN, call, openApi, regradeAndWait, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 
 /**
  * Every route x every kind of caller, generated from the route table: a route without an example
@@ -19,6 +19,7 @@ const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
 };
 
 interface Fixture extends Seed {
+  regradeId: string;
   submissionId: number;
   findingId: string;
   spare: { id: number };
@@ -43,6 +44,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/assignments/:assignmentId': (f) => ({ url: `/v1/assignments/${f.assignment.id}` }),
   'PUT /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: f.settings } }),
   'POST /v1/assignments/:assignmentId/regrade': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrade`, body: {} }),
+  'GET /v1/assignments/:assignmentId/regrades/:regradeId': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrades/${f.regradeId}` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/submissions': (f) => ({
     url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/submissions`,
     body: submissionsFor(['S-002'], unique()),
@@ -71,7 +73,8 @@ describe('authorisation matrix: every route x every caller', () => {
     slipped.runs[0].reported!.k!.value = -Number(slipped.runs[0].reported!.k!.value);
     const stored = await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/submissions`, seed.taAToken, [slipped], 201);
     const spare = (await call(api.app, 'POST', `/v1/courses/${seed.course.id}/staff`, seed.instructorToken, { handle: 'ta-spare', role: 'ta', sectionIds: [seed.sectionA.id] }, 201)).body;
-    f = { ...seed, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare };
+    const { started } = await regradeAndWait(api.app, seed.instructorToken, seed.assignment.id);
+    f = { ...seed, regradeId: started.regradeId, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare };
   }, 60_000);
   afterAll(async () => api?.close());
 

@@ -272,6 +272,19 @@ const cases: Case[] = [
     detail: /^at most two files: readings and, optionally, reported$/,
   },
   {
+    name: 'a regrade id that was never given out',
+    request: (s) => ({ method: 'GET', url: `/v1/assignments/${s.assignment.id}/regrades/2b1c9a3e-0000-4000-8000-000000000000`, headers: auth(s.instructorToken) }),
+    status: 404,
+    code: 'not-found',
+  },
+  {
+    name: 'a regrade id that is not one',
+    request: (s) => ({ method: 'GET', url: `/v1/assignments/${s.assignment.id}/regrades/latest`, headers: auth(s.instructorToken) }),
+    status: 400,
+    code: 'invalid-input',
+    paths: ['params.regradeId'],
+  },
+  {
     name: 'a body of a type the API does not read',
     request: submitRaw(() => '<submissions/>', 'application/xml'),
     status: 415,

@@ -75,3 +75,14 @@ export function submissionsFor(ids: string[], seed = 1) {
   const settings = generateAssignment(random, { fitModel: 'origin' });
   return ids.map((id, i) => ({ ...generateSubmission(random, settings, i + 1), studentId: id }));
 }
+
+/** Starts a regrade and follows it until it stops; returns where it ended. */
+export async function regradeAndWait(app: FastifyInstance, token: string, assignmentId: number, body: unknown = {}) {
+  const started = await call(app, 'POST', `/v1/assignments/${assignmentId}/regrade`, token, body, 202);
+  let progress = started.body as { regradeId: string; status: string; total: number; done: number };
+  while (progress.status === 'running') {
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    progress = (await call(app, 'GET', `/v1/assignments/${assignmentId}/regrades/${progress.regradeId}`, token, undefined, 200)).body;
+  }
+  return { started: started.body as typeof progress, location: started.headers.location, progress };
+}
