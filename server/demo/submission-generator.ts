@@ -365,7 +365,7 @@ function unexplainedValue(run: SubmittedRun, infinities: number[], random: Rando
   throw new Error(`no unexplained factor found for run ${run.label}`);
 }
 
-const UNPARSEABLE_RATE_UNITS = ['per minnit', 'permin', '1/mins', 'mn^-1'];
+const UNPARSEABLE_RATE_UNITS = ['per minnit', 'permin', '1/minz', 'mn^-1'];
 
 /** A k reported as strings with one rounding fault: the value 2 places past its uncertainty's last
  * digit, or the uncertainty to 4 significant figures (the value rounded to its 2-figure place). */

@@ -41,9 +41,12 @@ function define(names: string, dim: Dim, mult: number, pow10 = 0): void {
   for (const name of names.split(' ')) ATOMS.set(name, { dim, mult, pow10 });
 }
 define('1', [0, 0, 0], 1);
-define('s sec second seconds', [1, 0, 0], 1);
-define('min minute minutes', [1, 0, 0], 60);
-define('h hr hour hours', [1, 0, 0], 3600);
+// The spellings students use, each unambiguous here (S and H, which name other units, are not read).
+define('s sec secs second seconds', [1, 0, 0], 1);
+define('ms', [1, 0, 0], 1, -3);
+define('min mins Min Mins minute minutes', [1, 0, 0], 60);
+define('h hr hrs hour hours', [1, 0, 0], 3600);
+define('d day days', [1, 0, 0], 86400);
 define('mol', [0, 1, 0], 1);
 define('mmol', [0, 1, 0], 1, -3);
 define('umol', [0, 1, 0], 1, -6);
@@ -55,6 +58,7 @@ define('cm', [0, 0, 1], 1, -1);
 define('M', [0, 1, -3], 1);
 define('mM', [0, 1, -3], 1, -3);
 define('uM', [0, 1, -3], 1, -6);
+define('nM', [0, 1, -3], 1, -9);
 
 const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
 // Groups: whitespace | / ( ) | explicit product sign | atom | exponent sign, digits. The lone 1 may
@@ -121,11 +125,16 @@ function scaleOf(text: string, fail: (detail?: string) => never): Scale {
 const parsed = new Map<string, Unit>();
 const MAX_PARSED = 1000;
 
+/** Exponents as spreadsheets and typesetting write them: min^{-1}, min^(-1) and min**-1 are min^-1. */
+function plainExponents(text: string): string {
+  return text.replace(/\*\*/g, '^').replace(/\^\{([-−]?\d+)\}/g, '^$1').replace(/\^\(([-−]?\d+)\)/g, '^$1');
+}
+
 function parseNew(text: string, trimmed: string, field: string): Unit {
   function fail(detail?: string): never {
     throw new EngineError('unknown-unit', `unknown unit "${text}"${detail ? `: ${detail}` : ''}`, field);
   }
-  const { dim, mult, pow10 } = scaleOf(trimmed, fail);
+  const { dim, mult, pow10 } = scaleOf(plainExponents(trimmed), fail);
   const kinds = Object.keys(KIND_DIMS) as UnitKind[];
   const kind = kinds.find((k) => KIND_DIMS[k].every((d, i) => d === dim[i]));
   if (!kind) fail(`not a unit of ${kinds.join(', ')}`);

@@ -97,6 +97,28 @@ describe('parsing', () => {
     expect(relErr(unit.factor, factor)).toBeLessThan(1e-15);
   });
 
+  // The spellings students write, each with one meaning here (common practice, no source): a
+  // millisecond and a day are 10^-3 s and 86,400 s by the SI's definitions of the prefix and the day.
+  it.each([
+    ['mins', 'time', 60],
+    ['Min', 'time', 60],
+    ['secs', 'time', 1],
+    ['hrs', 'time', 3600],
+    ['ms', 'time', 1e-3],
+    ['d', 'time', 86400],
+    ['days', 'time', 86400],
+    ['nM', 'concentration', 1e-9],
+    ['min^{-1}', 'first-order-rate', 1 / 60],
+    ['min^(-1)', 'first-order-rate', 1 / 60],
+    ['min**-1', 'first-order-rate', 1 / 60],
+    ['M^{-1} s^{-1}', 'second-order-rate', 1],
+    ['mins^-1', 'first-order-rate', 1 / 60],
+  ] as Array<[string, UnitKind, number]>)('reads the student spelling %j as %s with factor %f', (text, kind, factor) => {
+    const unit = parseUnit(text);
+    expect(unit).toMatchObject({ text, kind });
+    expect(relErr(unit.factor, factor)).toBeLessThan(1e-15);
+  });
+
   it('is case-sensitive: m is the metre and mM millimolar, M molar', () => {
     expect(parseUnit('mol/m3').factor).toBe(1e-3);
     expect(parseUnit('mM').factor).toBe(1e-3);

@@ -272,6 +272,11 @@ const cases: Case[] = [
     detail: /^at most two files: readings and, optionally, reported$/,
   },
   {
+    name: 'x_inf equal to the first reading',
+    request: submit(() => [broken('S-001', (s) => (s.runs[2].infinity = s.runs[2].readings[0][1]))]),
+    ...perSubmission('[0].runs[2].infinity', /equals the first reading x_0, so F is undefined/),
+  },
+  {
     name: 'a regrade id that was never given out',
     request: (s) => ({ method: 'GET', url: `/v1/assignments/${s.assignment.id}/regrades/2b1c9a3e-0000-4000-8000-000000000000`, headers: auth(s.instructorToken) }),
     status: 404,

@@ -67,6 +67,7 @@ function exponentialOrNothing(fit: () => FirstOrderNonlinearFit): FirstOrderNonl
  */
 function transformDefined(run: FirstOrderRun, infinity: number) {
   const span = run.readings[0] - infinity;
+  if (span === 0) throw new EngineError('non-positive-ratio', `x_inf = ${infinity} equals the first reading x_0, so F is undefined`, 'infinity');
   const keep: number[] = [];
   const excluded: number[] = [];
   for (let i = 0; i < run.readings.length; i++) ((run.readings[i] - infinity) / span > 0 ? keep : excluded).push(i);
