@@ -23,6 +23,8 @@ export const findingCodes = [
   'unit-unrecognised',
   'missing-value',
   'unexplained',
+  // Not a slip: how the refit had to depart from the settings (and why), for the TA to see.
+  'refit-note',
 ] as const;
 export const FindingCode = z.enum(findingCodes);
 export type FindingCode = z.infer<typeof FindingCode>;

@@ -25,8 +25,8 @@ import { gaussian, seededRandom } from './seeded-random.ts';
  */
 
 export type Random = () => number;
-export type SlipCode = Exclude<FindingCode, 'carried-forward'>;
-export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => c !== 'carried-forward');
+export type SlipCode = Exclude<FindingCode, 'carried-forward' | 'refit-note'>;
+export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => c !== 'carried-forward' && c !== 'refit-note');
 
 /** A finding the checker must report for an injected slip. */
 export interface ExpectedFinding {

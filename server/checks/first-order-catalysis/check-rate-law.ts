@@ -18,6 +18,8 @@ export interface RateLawRefit {
   kN: Estimate;
   kA: Estimate;
   fromReportedK?: { kN: Estimate; kA: Estimate };
+  /** Why the ordinary fit stands in for the weighted one the settings ask for, when it does. */
+  unweightedBecause?: string;
 }
 
 // The fit runs in base units (M, s^-1) and its results are converted to the instructor's units.
@@ -35,11 +37,12 @@ export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK 
   const weighted = settings.rateLawFit === 'weighted';
   const perSecond = (a: RunAnalysis, k: number) => convert(k, rateUnitOf(a.timeUnit), 's^-1');
   try {
-    const ours = fitInUnits(
-      analyses.map((a) => ({ c: a.concentrationM, k: perSecond(a, a.expected.value), se: perSecond(a, a.expected.standardError) })),
-      weighted,
-      settings,
-    );
+    const points = analyses.map((a) => ({ c: a.concentrationM, k: perSecond(a, a.expected.value), se: perSecond(a, a.expected.standardError) }));
+    // Weights are 1/SE^2: a run fitted exactly (SE 0) would take all the weight. The ordinary fit
+    // stands in, and a finding says so, rather than leave k_N and k_A unchecked.
+    const exact = weighted ? analyses.find((_, i) => !(points[i].se > 0)) : undefined;
+    const unweightedBecause = exact && `the standard error of k_obs of run "${exact.label}" is 0 (its readings lie exactly on the curve), so weights 1/SE² cannot be formed`;
+    const ours = fitInUnits(points, weighted && !exact, settings);
     let fromReportedK: RateLawRefit['fromReportedK'];
     if (studentKs.every((k) => k !== undefined)) {
       const canWeight = weighted && studentKs.every((k) => k!.uncertainty !== undefined && k!.uncertainty > 0);
@@ -50,7 +53,7 @@ export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK 
       );
       fromReportedK = { kN: theirs.kN, kA: theirs.kA };
     }
-    return { kN: ours.kN, kA: ours.kA, fromReportedK };
+    return { kN: ours.kN, kA: ours.kA, fromReportedK, unweightedBecause };
   } catch (error) {
     // Fewer than three runs, or all at one concentration: there is no second stage to grade.
     if (error instanceof EngineError) return undefined;
@@ -151,5 +154,15 @@ function checkPlausible(c: Constant, value: number, uncertainty: number | undefi
 
 export function checkRateLaw(submission: Submission, refit: RateLawRefit | undefined, settings: Settings, drafts: DraftFinding[]): void {
   if (!refit) return;
+  if (refit.unweightedBecause) {
+    drafts.push({
+      code: 'refit-note',
+      path: 'reported',
+      stage: 'rate-law',
+      severity: 'info',
+      charge: 0,
+      message: `The assignment asks for a weighted fit of k_obs against the catalyst concentration, but ${refit.unweightedBecause}. k_N and k_A were checked against the ordinary (unweighted) fit instead.`,
+    });
+  }
   for (const c of CONSTANTS) checkConstant(c, submission.reported?.[c.name], refit, settings, drafts);
 }
