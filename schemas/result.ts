@@ -80,11 +80,17 @@ export const RefitValue = z.object({
 export const Rejection = z.object({ path: z.string(), message: z.string() });
 export type Rejection = z.infer<typeof Rejection>;
 
+/** One rubric item in the maximum: how many times it counts for this submission, and what each is worth. */
+export const RubricCount = z.object({ item: z.string(), count: z.number().int().nonnegative(), each: z.number().nonnegative() });
+export type RubricCount = z.infer<typeof RubricCount>;
+
 export const CheckResult = z.object({
   studentId: z.string().nullable(),
   status: z.enum(['checked', 'rejected']),
   score: z.number().nullable(),
   maxScore: z.number(),
+  /** What maxScore is made of; an item that cannot be checked for this submission is not in it. */
+  items: z.array(RubricCount).optional(),
   /** Our own values for every quantity; the shape is the experiment kind's. */
   refit: z.record(z.string(), z.unknown()).nullable(),
   findings: z.array(Finding),

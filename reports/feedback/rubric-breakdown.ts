@@ -31,14 +31,22 @@ export const RUBRIC_LABELS: Record<RubricItem, string> = {
   sigFigs: 'Significant figures',
 };
 
-export function rubricBreakdown(settings: Settings, submission: Pick<Submission, 'runs'> | undefined, result: CheckResult): RubricLine[] {
-  const runs = submission?.runs.length ?? 0;
-  const r = settings.rubric;
+/** The items of a result stored before results said what their maximum was made of. */
+function itemsOfOlderResult(settings: Settings, runs: number): Array<[RubricItem, number]> {
   const items: Array<[RubricItem, number]> = [];
   if (settings.classDataset) items.push(['readings', runs]);
   items.push(['lnF', runs], ['k', runs], ['kUncertainty', runs]);
   if (runs >= 3) items.push(['kN', 1], ['kNUncertainty', 1], ['kA', 1], ['kAUncertainty', 1]);
-  if (r.sigFigs > 0) items.push(['sigFigs', 1]);
+  if (settings.rubric.sigFigs > 0) items.push(['sigFigs', 1]);
+  return items;
+}
+
+export function rubricBreakdown(settings: Settings, submission: Pick<Submission, 'runs'> | undefined, result: CheckResult): RubricLine[] {
+  const r = settings.rubric;
+  // The checker says what the maximum is made of; older results are read by the rule of their time.
+  const items: Array<[RubricItem, number]> = result.items
+    ? result.items.map((c) => [c.item as RubricItem, c.count])
+    : itemsOfOlderResult(settings, submission?.runs.length ?? 0);
 
   const lostBy = new Map<string, number>();
   for (const f of result.findings) {

@@ -1,4 +1,4 @@
-import type { Finding } from '../../schemas/result.ts';
+import type { Finding, RubricCount } from '../../schemas/result.ts';
 import type { OverrideRow, ResultRow } from '../store/submissions.ts';
 
 /**
@@ -22,10 +22,12 @@ export interface EffectiveResult {
   refit: unknown;
   findings: EffectiveFinding[];
   rejected: Array<{ path: string; message: string }>;
+  /** What the maximum is made of (absent in results stored before it was kept). */
+  items?: RubricCount[];
 }
 
 export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): EffectiveResult {
-  const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }> };
+  const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }>; items?: RubricCount[] };
   const latest = new Map<string, OverrideRow>();
   for (const o of overrides) if (o.submissionId === row.submissionId) latest.set(o.findingId, o);
   const findings: EffectiveFinding[] = stored.findings.map((f) => {
@@ -46,5 +48,6 @@ export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): Effec
     refit: row.refit,
     findings,
     rejected: stored.rejected,
+    items: stored.items,
   };
 }

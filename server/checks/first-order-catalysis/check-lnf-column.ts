@@ -48,6 +48,8 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
   const column = run.reported?.lnF;
   const points = settings.rubric.lnF;
   const common = { stage: 'run' as const, rubricItem: 'lnF', itemKey: `lnF@${a.path}` };
+  // Without x_inf there is no ln F to make: no column is asked for, and none is checked.
+  if (a.infinity === undefined) return undefined;
   if (!column) {
     if (points > 0) {
       drafts.push({ ...common, code: 'missing-value', path, severity: 'error', charge: points, message: `The ln F column of run "${a.label}" is missing.` });

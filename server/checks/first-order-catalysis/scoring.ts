@@ -1,6 +1,7 @@
 import { EngineError } from '../../engine/engine-error.ts';
 import { convert } from '../../engine/units.ts';
 import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { RubricCount } from '../../../schemas/result.ts';
 
 /** The points a rubric item instance is worth: `k@runs[2]` is worth rubric.k. */
 export function itemPoints(settings: Settings, itemKey: string): number {
@@ -21,10 +22,38 @@ export function rateLawGradable(submission: Submission): boolean {
   return submission.runs.length >= 3 && new Set(inM).size >= 2;
 }
 
-/** Per run: readings (with a class dataset), ln F, k and its uncertainty; then the rate law and presentation. */
-export function maxScore(settings: Settings, submission: Submission): number {
+/** Items a submission cannot be graded on, found while checking it. */
+export interface Ungradable {
+  /** Runs whose k_obs these data do not determine: their k and its uncertainty are not graded. */
+  kRuns?: number;
+  /** The rate law could not be refitted although the runs would allow it. */
+  rateLaw?: boolean;
+}
+
+/**
+ * What the maximum is made of. Per run: readings (with a class dataset), the ln F column (only for a
+ * run with x_inf: without it there is no column to make), k and its uncertainty; then the rate law (three
+ * runs at two concentrations or more) and presentation. Items that cannot be graded are left out.
+ */
+export function rubricCounts(settings: Settings, submission: Submission, ungradable: Ungradable = {}): RubricCount[] {
   const r = settings.rubric;
-  const perRun = (settings.classDataset ? r.readings : 0) + r.lnF + r.k + r.kUncertainty;
-  const rateLaw = rateLawGradable(submission) ? r.kN + r.kNUncertainty + r.kA + r.kAUncertainty : 0;
-  return perRun * submission.runs.length + rateLaw + r.sigFigs;
+  const runs = submission.runs.length;
+  const kRuns = runs - (ungradable.kRuns ?? 0);
+  const rateLaw = rateLawGradable(submission) && !ungradable.rateLaw ? 1 : 0;
+  const counts: Array<[keyof Settings['rubric'], number]> = [
+    ['readings', settings.classDataset ? runs : 0],
+    ['lnF', submission.runs.filter((run) => run.infinity !== undefined).length],
+    ['k', kRuns],
+    ['kUncertainty', kRuns],
+    ['kN', rateLaw],
+    ['kNUncertainty', rateLaw],
+    ['kA', rateLaw],
+    ['kAUncertainty', rateLaw],
+    ['sigFigs', 1],
+  ];
+  return counts.filter(([item, count]) => count > 0 && r[item] > 0).map(([item, count]) => ({ item, count, each: r[item] }));
+}
+
+export function maxScore(settings: Settings, submission: Submission, ungradable?: Ungradable): number {
+  return rubricCounts(settings, submission, ungradable).reduce((sum, c) => sum + c.count * c.each, 0);
 }
