@@ -34,6 +34,8 @@ function fitInUnits(points: Array<{ c: number; k: number; se?: number }>, weight
 }
 
 export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK | undefined>, settings: Settings): RateLawRefit | undefined {
+  // A run with no rate constant of its own leaves the line through the k_obs values undetermined too.
+  if (analyses.some((a) => a.undetermined)) return undefined;
   const weighted = settings.rateLawFit === 'weighted';
   const perSecond = (a: RunAnalysis, k: number) => convert(k, rateUnitOf(a.timeUnit), 's^-1');
   try {

@@ -62,6 +62,9 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
       message: `The catalyst concentration of run "${a.label}" is ${fmt(run.catalyst.value)} ${run.catalyst.unit}, which no solution can have (none is more concentrated than about 55 M); the rate law fitted from it means nothing. Please check the value and its unit.`,
     });
   }
+  if (a.undetermined) {
+    drafts.push({ code: 'implausible', stage: 'readings', path: a.undetermined.path, severity: 'warning', charge: 0, message: a.undetermined.message });
+  }
   const before = drafts.length;
   compareReadings(run, a, settings, drafts);
   const named = new Set(drafts.slice(before).map((d) => d.path));

@@ -35,6 +35,8 @@ export function checkRunK(
   const what = `k_obs of run "${a.label}"`;
   const reported = run.reported?.k;
   const { rubric, tolerances } = settings;
+  // No rate constant to mark against (a finding on the run says why): k and its uncertainty are not graded.
+  if (a.undetermined) return undefined;
   if (!reported) {
     missing(path, what, 'k', `k@${a.path}`, rubric.k, drafts);
     return undefined;

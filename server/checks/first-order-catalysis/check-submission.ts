@@ -10,7 +10,7 @@ import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
 import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, type RunAnalysis } from './run-analysis.ts';
-import { itemPoints, rubricCounts } from './scoring.ts';
+import { itemPoints, rateLawGradable, rubricCounts } from './scoring.ts';
 
 /** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
@@ -51,11 +51,17 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     return checkRunK(run, analyses[i], analyses, column, settings, drafts);
   });
   const rateLaw = refitRateLaw(analyses, studentKs, settings);
+  const undetermined = analyses.filter((a) => a.undetermined);
+  const rateLawLeftOut = !rateLaw && rateLawGradable(submission);
+  if (rateLawLeftOut) {
+    const why = undetermined.length > 0 ? `run "${undetermined[0].label}" has no rate constant to grade against (see the finding on that run)` : 'the k_obs values could not be fitted';
+    drafts.push({ code: 'refit-note', path: 'reported', stage: 'rate-law', severity: 'info', charge: 0, message: `k_N and k_A are not graded: ${why}, so the line through the k_obs values is not determined. They are left out of the maximum.` });
+  }
   checkRateLaw(submission, rateLaw, settings, drafts);
   checkSigFigs(submission, settings, drafts);
 
   const findings = scoreFindings(drafts, (key) => itemPoints(settings, key));
-  const items = rubricCounts(settings, submission);
+  const items = rubricCounts(settings, submission, { kRuns: undetermined.length, rateLaw: rateLawLeftOut });
   const max = items.reduce((sum, c) => sum + c.count * c.each, 0);
   const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
   const refit: Refit = {

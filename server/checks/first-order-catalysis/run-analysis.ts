@@ -7,6 +7,7 @@ import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../../engin
 import { elapsedTimes, firstOrderTransform, type FirstOrderRun, type FirstOrderTransform } from '../../engine/first-order-run.ts';
 import { fitGuggenheim } from '../../engine/guggenheim.ts';
 import { convert, parseUnit, type Unit } from '../../engine/units.ts';
+import { fmt } from '../format.ts';
 import { InputRejected } from '../input-rejected.ts';
 
 /** Our own analysis of one run, from the student's raw data as submitted. */
@@ -32,6 +33,35 @@ export interface RunAnalysis {
   expected: Estimate;
   /** Other values that are right too (the Guggenheim k for a run without x_inf). */
   alsoRight: Estimate[];
+  /**
+   * Why these data give no rate constant to grade against, when they do not: x_inf on the side the
+   * readings move away from (k comes out negative), or a run whose k is not told apart from zero.
+   */
+  undetermined?: { path: string; message: string };
+}
+
+/** A negative k, or one whose interval reaches zero without x_inf, is no value to mark a student against. */
+function undeterminedK(path: string, readings: number[], infinity: number | undefined, expected: Estimate): RunAnalysis['undetermined'] {
+  const first = readings[0];
+  const last = readings[readings.length - 1];
+  if (infinity !== undefined && !(expected.value > 0)) {
+    return {
+      path: `${path}.infinity`,
+      message:
+        `x_inf = ${fmt(infinity)} lies on the side the readings move away from: they go from ${fmt(first)} towards ${fmt(last)}, ` +
+        `so with it the rate constant comes out as ${fmt(expected.value)}, and a rate constant cannot be negative. ` +
+        'Please check x_inf: its value, its sign, and whether it belongs to this run. k_obs is not graded for this run.',
+    };
+  }
+  if (infinity === undefined && !(expected.ci95[0] > 0)) {
+    return {
+      path: `${path}.readings`,
+      message:
+        `These readings do not determine k_obs: the fit gives ${fmt(expected.value)} ± ${fmt(expected.standardError)}, and its 95 % interval reaches zero. ` +
+        'The run may be too short or too noisy for the change it shows, and without x_inf nothing else fixes k. k_obs is not graded for this run.',
+    };
+  }
+  return undefined;
 }
 
 /** Maps an engine error's field (`readings[3]`, `times[2]`, `infinity`) into the submission. */
@@ -98,7 +128,8 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
     if (run.infinity === undefined) {
       const exponential = fitFirstOrderNonlinear(data, { infinity: 'fitted' });
       const alsoRight = [fitGuggenheim(data).k];
-      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, excluded: [], exponential, expected: exponential.k, alsoRight };
+      const undetermined = undeterminedK(path, readings, undefined, exponential.k);
+      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, excluded: [], exponential, expected: exponential.k, alsoRight, undetermined };
     }
     const { transform, defined, excluded } = transformDefined(data, run.infinity);
     const asked = fitTransformed(defined, run.timeUnit, model);
@@ -121,6 +152,7 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
       exponential,
       expected: asked.k,
       alsoRight: [],
+      undetermined: undeterminedK(path, readings, run.infinity, asked.k),
     };
   } catch (error) {
     if (error instanceof EngineError) rejectAt(path, error);
