@@ -91,6 +91,15 @@ function exponentialOrNothing(fit: () => FirstOrderNonlinearFit): FirstOrderNonl
   }
 }
 
+function guggenheimOrNothing(data: FirstOrderRun): Estimate[] {
+  try {
+    return [fitGuggenheim(data).k];
+  } catch (error) {
+    if (error instanceof EngineError) return [];
+    throw error;
+  }
+}
+
 /**
  * ln F for the readings on x_0's side of x_inf, and the full column with NaN for the others: a
  * mis-copied reading past x_inf is a finding about that reading, not a reason to refuse the run.
@@ -127,7 +136,9 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
   try {
     if (run.infinity === undefined) {
       const exponential = fitFirstOrderNonlinear(data, { infinity: 'fitted' });
-      const alsoRight = [fitGuggenheim(data).k];
+      // Guggenheim's method needs readings at a constant interval apart: where it cannot be applied it is
+      // simply not offered as another right answer; the run is still graded against the fit.
+      const alsoRight = guggenheimOrNothing(data);
       const undetermined = undeterminedK(path, readings, undefined, exponential.k);
       return { index, path, label: run.label, timeUnit, concentrationM, times, readings, excluded: [], exponential, expected: exponential.k, alsoRight, undetermined };
     }
