@@ -9,13 +9,13 @@ import { corpus } from './corpus.ts';
 /**
  * Whole processes, timed from start to exit as a TA would wait for them: `rateproof check` (the
  * compiled command) against the script a TA would write instead (numpy/scipy refit, matplotlib sheets;
- * `../shared/bench/baseline.py`, run with Debian's python3-numpy, python3-scipy, python3-matplotlib),
+ * `test/bench/baseline.py`, run with Debian's python3-numpy, python3-scipy, python3-matplotlib),
  * on the same generated corpus. Goals: checking at least 5 times faster than the baseline, sheets at
  * least 20 times, and `check` on an empty batch within 8 times a bare `node -e 0`. Printed, not asserted.
  */
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const bin = join(root, 'bin/rateproof.js');
-const baseline = join(root, '../shared/bench/baseline.py');
+const baseline = join(root, 'test/bench/baseline.py');
 const PYTHON = '/usr/bin/python3';
 const CHECKED = 20_000;
 const SHEETS = 40;
