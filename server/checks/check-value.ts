@@ -21,6 +21,8 @@ export interface ValueCheck {
   expected: number;
   /** Other values that earn full credit (another accepted method). */
   alsoRight?: number[];
+  /** A range every value in which is right too: what the data allow when they fix the value only loosely. */
+  rightWithin?: [number, number];
   /**
    * The value that follows from the student's own earlier numbers, and where those came from;
    * `quiet` when the value it goes with has already said so (an uncertainty beside its value).
@@ -53,7 +55,8 @@ function absurdOrders(reported: number, expected: number): number | undefined {
 
 export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome {
   const { reported, expected, tolerance } = c;
-  if (withinTolerance(reported, expected, tolerance) || (c.alsoRight ?? []).some((v) => withinTolerance(reported, v, tolerance))) {
+  const inRange = c.rightWithin !== undefined && reported >= c.rightWithin[0] && reported <= c.rightWithin[1];
+  if (inRange || withinTolerance(reported, expected, tolerance) || (c.alsoRight ?? []).some((v) => withinTolerance(reported, v, tolerance))) {
     return { kind: 'right' };
   }
   const base = {

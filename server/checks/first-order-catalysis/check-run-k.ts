@@ -65,6 +65,9 @@ export function checkRunK(
       unit,
       expected: a.expected.value,
       alsoRight: a.alsoRight.map((e) => e.value),
+      // Without x_inf the readings fix k only within our fit's 95 % interval: a method of the trade
+      // (Guggenheim at another interval, Kezdy-Swinbourne) that lands inside it is right too.
+      rightWithin: a.infinity === undefined ? a.expected.ci95 : undefined,
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
       slips: () => slipValues().map((s) => s.k),
       factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
