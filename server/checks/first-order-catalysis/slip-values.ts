@@ -1,6 +1,7 @@
 import { EngineError } from '../../engine/engine-error.ts';
 import { fitLine, fitThroughOrigin, type LineModel } from '../../engine/linear-fit.ts';
 import type { Candidate } from '../explain.ts';
+import { decimalsOf, oneSlipCopies } from '../digit-slips.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -22,14 +23,23 @@ export function lnFWith(a: RunAnalysis, infinity: number): number[] {
   });
 }
 
-/** x_inf values a student might have used by mistake: the last reading, another run's x_inf. */
+/**
+ * x_inf values a student might have used by mistake: the last reading, another run's x_inf, or the
+ * recorded x_inf copied with two neighbouring digits swapped (6.35 read as 6.53). Other copying slips
+ * are not tried: with dozens of one-digit variants almost any k would find one.
+ */
 export function infinityAlternatives(a: RunAnalysis, all: RunAnalysis[]): Array<{ value: number; detail: string }> {
-  if (a.infinity === undefined) return [];
+  const infinity = a.infinity;
+  if (infinity === undefined) return [];
   const out = [{ value: a.readings[a.readings.length - 1], detail: `x_inf taken as the last reading, ${fmt(a.readings[a.readings.length - 1])}` }];
+  const add = (value: number, detail: string) => {
+    if (value !== infinity && !out.some((o) => o.value === value)) out.push({ value, detail });
+  };
   for (const other of all) {
-    if (other.index !== a.index && other.infinity !== undefined && other.infinity !== a.infinity && !out.some((o) => o.value === other.infinity)) {
-      out.push({ value: other.infinity, detail: `x_inf of run "${other.label}", ${fmt(other.infinity)}` });
-    }
+    if (other.index !== a.index && other.infinity !== undefined) add(other.infinity, `x_inf of run "${other.label}", ${fmt(other.infinity)}`);
+  }
+  for (const copy of oneSlipCopies(infinity, decimalsOf(infinity))) {
+    if (copy.kind === 'transposed-digits') add(copy.value, `x_inf taken as ${fmt(copy.value)}, the recorded ${fmt(infinity)} with two neighbouring digits swapped`);
   }
   return out;
 }
