@@ -16,7 +16,6 @@ export interface CheckJsonBatchInput {
 }
 
 export interface CheckedBatch {
-  count: number;
   table?: TableEntry[];
   /** JSON: the results as array elements, indented as in the whole array; JSON Lines: one per line. */
   text?: string;
@@ -40,15 +39,14 @@ export function checkJsonBatch(input: CheckJsonBatchInput): CheckedBatch {
 
 /** Results as the command prints them (or keeps them, for --out). */
 export function formatResults(results: CheckResult[], submissions: unknown[], input: { output: ResultOutput; arrays: boolean }): CheckedBatch {
-  const count = results.length;
   switch (input.output) {
     case 'table':
-      return { count, table: results.map(tableEntry) };
+      return { table: results.map(tableEntry) };
     case 'json':
-      return { count, text: results.map((r) => `  ${JSON.stringify(r, null, 2).replaceAll('\n', '\n  ')}`).join(',\n') };
+      return { text: results.map((r) => `  ${JSON.stringify(r, null, 2).replaceAll('\n', '\n  ')}`).join(',\n') };
     case 'jsonl':
-      return { count, text: results.map((r) => `${JSON.stringify(input.arrays ? r : withoutArrays(r))}\n`).join('') };
+      return { text: results.map((r) => `${JSON.stringify(input.arrays ? r : withoutArrays(r))}\n`).join('') };
     case 'results':
-      return { count, results, submissions };
+      return { results, submissions };
   }
 }

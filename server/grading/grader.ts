@@ -1,5 +1,6 @@
 import type { FeedbackInput, SectionSummaryInput } from '../../reports/feedback-input.ts';
 import type { GradedForStore } from './graded-for-store.ts';
+import { inParts } from '../in-parts.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 
 /**
@@ -34,8 +35,7 @@ export function poolGrader(pool: WorkerPool): Grader {
     async check(settings, submissions) {
       // A large batch or regrade is spread over every worker, a few hundred submissions at a time.
       const settingsJson = JSON.stringify(settings);
-      const parts = Array.from({ length: Math.ceil(submissions.length / CHECK_CHUNK) }, (_, i) => submissions.slice(i * CHECK_CHUNK, (i + 1) * CHECK_CHUNK));
-      return (await Promise.all(parts.map((part) => pool.run('grade-for-store', { settingsJson, submissions: part })))).flat();
+      return (await Promise.all(inParts(submissions, CHECK_CHUNK).map((part) => pool.run('grade-for-store', { settingsJson, submissions: part })))).flat();
     },
     renderSheet,
     renderSummary: async (input) => asBuffer(await pool.run('render-summary', input)),

@@ -3,6 +3,7 @@ import type { Kysely } from 'kysely';
 import type { AssignmentRow } from '../store/assignments.ts';
 import type { Database } from '../store/database.ts';
 import { insertResults, latestSubmissions } from '../store/submissions.ts';
+import { inParts } from '../in-parts.ts';
 import { isDatabaseUnavailable } from '../store/unavailable.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { Grader } from './grader.ts';
@@ -65,8 +66,7 @@ export class Regrades {
   private async run(db: Kysely<Database>, assignment: AssignmentRow, latest: Array<{ submissionId: number; payload: unknown }>, job: RegradeProgress): Promise<void> {
     const gradedWith = { settings: assignment.settings, settingsVersion: assignment.settingsVersion };
     try {
-      for (let i = 0; i < latest.length; i += PART) {
-        const part = latest.slice(i, i + PART);
+      for (const part of inParts(latest, PART)) {
         const graded = await this.grader.check(assignment.settings, part.map((s) => s.payload));
         await db.transaction().execute((trx) => insertResults(trx, gradedWith, part.map((s, j) => ({ submissionId: s.submissionId, result: graded[j] }))));
         job.done += part.length;

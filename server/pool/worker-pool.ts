@@ -8,7 +8,7 @@ import type { TaskName, TaskInput, TaskOutput } from './tasks.ts';
  * first task and stay until `close`; each keeps its loaded modules, fonts and parsed settings.
  */
 export interface WorkerPool {
-  run<N extends TaskName>(name: N, input: TaskInput<N>, transfer?: ArrayBuffer[]): Promise<TaskOutput<N>>;
+  run<N extends TaskName>(name: N, input: TaskInput<N>): Promise<TaskOutput<N>>;
   readonly size: number;
   close(): Promise<void>;
 }
@@ -17,7 +17,6 @@ interface Job {
   id: number;
   name: TaskName;
   input: unknown;
-  transfer: ArrayBuffer[];
   resolve(value: unknown): void;
   reject(error: Error): void;
 }
@@ -87,7 +86,7 @@ export function createWorkerPool(size = availableParallelism()): WorkerPool {
       const job = queue.shift()!;
       slot.job = job;
       slot.worker.ref();
-      slot.worker.postMessage({ id: job.id, name: job.name, input: job.input }, job.transfer);
+      slot.worker.postMessage({ id: job.id, name: job.name, input: job.input });
     }
     // Idle workers must not keep a finished command alive.
     for (const slot of slots) if (!slot.job) slot.worker.unref();
@@ -95,10 +94,10 @@ export function createWorkerPool(size = availableParallelism()): WorkerPool {
 
   return {
     size,
-    run(name, input, transfer = []) {
+    run(name, input) {
       if (closed) return Promise.reject(new Error('the worker pool is closed'));
       return new Promise((resolve, reject) => {
-        queue.push({ id: nextId++, name, input, transfer, resolve: resolve as (v: unknown) => void, reject });
+        queue.push({ id: nextId++, name, input, resolve: resolve as (v: unknown) => void, reject });
         dispatch();
       });
     },

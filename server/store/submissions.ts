@@ -1,4 +1,5 @@
 import { sql, type Kysely } from 'kysely';
+import { inParts } from '../in-parts.ts';
 import type { Database } from './database.ts';
 
 /** Submissions are immutable versions; results are appended (a regrade adds one); overrides are an audit trail. */
@@ -60,7 +61,7 @@ export async function storeGraded(
     return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: item.payloadJson, submitted_by: submittedBy };
   });
   const stored: Array<{ id: number; version: number }> = [];
-  for (const chunk of chunks(values)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version']).execute()));
+  for (const chunk of inParts(values, ROWS_PER_INSERT)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version']).execute()));
   await insertResults(db, gradedWith, items.map((item, i) => ({ result: item.result, submissionId: stored[i].id })));
   return stored.map((s) => ({ submissionId: s.id, version: s.version }));
 }
@@ -68,13 +69,9 @@ export async function storeGraded(
 // PostgreSQL takes at most 65,535 parameters in one statement: rows go in 1,000 at a time (9 columns each).
 const ROWS_PER_INSERT = 1000;
 
-function chunks<T>(items: T[]): T[][] {
-  return Array.from({ length: Math.ceil(items.length / ROWS_PER_INSERT) }, (_, i) => items.slice(i * ROWS_PER_INSERT, (i + 1) * ROWS_PER_INSERT));
-}
-
 export async function insertResults(db: Kysely<Database>, gradedWith: GradedWith, items: Array<{ submissionId: number; result: StoredResult }>): Promise<void> {
   const settings = JSON.stringify(gradedWith.settings);
-  for (const chunk of chunks(items)) {
+  for (const chunk of inParts(items, ROWS_PER_INSERT)) {
     await db
       .insertInto('results')
       .values(

@@ -10,7 +10,7 @@ import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
 import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, type RunAnalysis } from './run-analysis.ts';
-import { itemPoints, rateLawGradable, rubricCounts } from './scoring.ts';
+import { itemPoints, pointsOf, rateLawGradable, rubricCounts } from './scoring.ts';
 
 /** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
@@ -62,7 +62,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
 
   const findings = scoreFindings(drafts, (key) => itemPoints(settings, key));
   const items = rubricCounts(settings, submission, { kRuns: undetermined.length, rateLaw: rateLawLeftOut });
-  const max = items.reduce((sum, c) => sum + c.count * c.each, 0);
+  const max = pointsOf(items);
   const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
   const refit: Refit = {
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),

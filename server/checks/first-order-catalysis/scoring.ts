@@ -54,6 +54,11 @@ export function rubricCounts(settings: Settings, submission: Submission, ungrada
   return counts.filter(([item, count]) => count > 0 && r[item] > 0).map(([item, count]) => ({ item, count, each: r[item] }));
 }
 
+/** The points the items are worth together. */
+export function pointsOf(items: readonly RubricCount[]): number {
+  return items.reduce((sum, c) => sum + c.count * c.each, 0);
+}
+
 export function maxScore(settings: Settings, submission: Submission, ungradable?: Ungradable): number {
-  return rubricCounts(settings, submission, ungradable).reduce((sum, c) => sum + c.count * c.each, 0);
+  return pointsOf(rubricCounts(settings, submission, ungradable));
 }
