@@ -93,6 +93,12 @@ export const Settings = z.object({
   fitModel: FitModel,
   /** How k_obs against [catalyst] is to be fitted. */
   rateLawFit: z.enum(['ordinary', 'weighted']).default('ordinary'),
+  /**
+   * For a weighted fit, which standard errors of k_N and k_A are right: `absolute` takes each SE of
+   * k_obs as known, `scaled` multiplies by the scatter about the line (sqrt of the reduced
+   * chi-square); `either` accepts both, since both conventions are taught.
+   */
+  weightedErrors: z.enum(['either', 'absolute', 'scaled']).default('either'),
   /** Units the instructor expects values reported in. */
   units: z
     .object({ k: UnitText.default('min^-1'), kN: UnitText.default('min^-1'), kA: UnitText.default('M^-1 min^-1') })
@@ -132,5 +138,15 @@ export const Refit = z.object({
   kADeclared: Estimate.optional(),
   /** k_N and k_A fitted to the student's own reported k_obs values. */
   fromReportedK: z.object({ kN: Estimate, kA: Estimate }).optional(),
+  /** A weighted rate law only: how far the k_obs scatter about the line beyond their standard errors. */
+  weightedFit: z
+    .object({
+      reducedChiSquared: z.number(),
+      /** The convention kN's and kA's standard errors above follow. */
+      convention: z.enum(['absolute', 'scaled']),
+      /** The standard errors of k_N and k_A in the other convention, in the instructor's units. */
+      otherConvention: z.object({ kN: z.number(), kA: z.number() }),
+    })
+    .optional(),
 });
 export type Refit = z.infer<typeof Refit>;

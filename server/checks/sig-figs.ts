@@ -20,6 +20,11 @@ function decimalsOfText(text: string): number {
   return places - (exp ? Number(exp) : 0);
 }
 
+/** Decimal places as written: from a string exactly, from a JSON number as it prints. */
+export function writtenDecimals(value: NumberLike): number {
+  return typeof value === 'string' ? decimalsOfText(value) : decimalsOf(value);
+}
+
 function significantFiguresOfText(text: string): number {
   const mantissa = text.trim().toLowerCase().split('e')[0].replace(/^[-+]/, '').replace('.', '');
   return mantissa.replace(/^0+/, '').length;
@@ -28,8 +33,8 @@ function significantFiguresOfText(text: string): number {
 export function sigFigProblem(value: NumberLike, uncertainty: NumberLike): SigFigProblem | undefined {
   const uText = String(uncertainty);
   const exactTexts = typeof value === 'string' && typeof uncertainty === 'string';
-  const uDecimals = typeof uncertainty === 'string' ? decimalsOfText(uncertainty) : decimalsOf(uncertainty);
-  const vDecimals = typeof value === 'string' ? decimalsOfText(value) : decimalsOf(value);
+  const uDecimals = writtenDecimals(uncertainty);
+  const vDecimals = writtenDecimals(value);
   if (Number(uncertainty) === 0) return undefined;
   if (significantFiguresOfText(uText) > 2) {
     return { problem: 'uncertainty-digits', text: `the uncertainty ${uText} has ${significantFiguresOfText(uText)} significant figures; 1 or 2 are meaningful` };

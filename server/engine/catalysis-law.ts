@@ -18,15 +18,28 @@ export interface CatalysisPoint {
 
 export interface CatalysisOptions {
   units: { concentration: string; time: string };
-  /** Weights 1/SE^2 from each k_obs's standard error, taken as absolute. */
+  /** Weights 1/SE^2 from each k_obs's standard error. */
   weighted?: boolean;
 }
 
 export interface CatalysisFit {
+  /** For a weighted fit, standard errors with each SE of k_obs taken as absolute. */
   kN: Estimate;
   kA: Estimate;
   weighted: boolean;
   line: LineFit;
+  /**
+   * A weighted fit's other convention: the SEs of k_obs known only up to a common factor, so the
+   * covariance is scaled by the reduced chi-square. Both are in use; they differ by sqrt(chi2_red).
+   */
+  scaled?: { kN: Estimate; kA: Estimate; reducedChiSquared: number };
+}
+
+function estimates(line: LineFit, units: CatalysisOptions['units']): { kN: Estimate; kA: Estimate } {
+  return {
+    kN: { value: line.intercept, standardError: line.seIntercept, ci95: line.ci95.intercept, unit: rateUnitOf(units.time) },
+    kA: { value: line.slope, standardError: line.seSlope, ci95: line.ci95.slope, unit: secondOrderRateUnitOf(units.concentration, units.time) },
+  };
 }
 
 export function fitCatalysisLaw(points: CatalysisPoint[], options: CatalysisOptions): CatalysisFit {
@@ -40,21 +53,14 @@ export function fitCatalysisLaw(points: CatalysisPoint[], options: CatalysisOpti
       return p.standardError;
     });
   }
-  const line = fitLine(
-    points.map((p) => p.concentration),
-    points.map((p) => p.k),
-    { sigma },
-  );
-  const { concentration, time } = options.units;
+  const x = points.map((p) => p.concentration);
+  const y = points.map((p) => p.k);
+  const line = fitLine(x, y, { sigma });
+  const scaledLine = sigma && fitLine(x, y, { sigma, scaleByResidual: true });
   return {
-    kN: { value: line.intercept, standardError: line.seIntercept, ci95: line.ci95.intercept, unit: rateUnitOf(time) },
-    kA: {
-      value: line.slope,
-      standardError: line.seSlope,
-      ci95: line.ci95.slope,
-      unit: secondOrderRateUnitOf(concentration, time),
-    },
+    ...estimates(line, options.units),
     weighted,
     line,
+    scaled: scaledLine && { ...estimates(scaledLine, options.units), reducedChiSquared: scaledLine.reducedChiSquared },
   };
 }

@@ -47,6 +47,27 @@ describe('k_obs = k_N + k_A [H+]', () => {
     expect(weighted.kA.value).toBeCloseTo(firstThree.slope, 4);
   });
 
+  it('weighted fit: both conventions for the standard errors, against scipy', () => {
+    // Invented k_obs scattering far more than their SEs. Reference: numpy.polyfit 1.24.2 (Debian
+    // python3-numpy), deg 1, w = 1/SE, cov='unscaled' (SE taken as absolute) and cov=True (scaled by
+    // the reduced chi-square); scipy.optimize.curve_fit 1.10.1 with absolute_sigma True/False agrees
+    // to its convergence, 1e-7.
+    const c = [0.05, 0.1, 0.15, 0.2, 0.25];
+    const k = [0.0121, 0.0205, 0.0319, 0.0387, 0.0501];
+    const se = [0.0001, 0.00012, 0.00011, 0.00015, 0.00013];
+    const fit = fitCatalysisLaw(c.map((x, i) => ({ concentration: x, k: k[i], standardError: se[i] })), { units, weighted: true });
+    const near = (value: number, reference: number) => expect(Math.abs(value / reference - 1)).toBeLessThan(1e-8);
+    near(fit.kN.value, 0.0024707048587445128);
+    near(fit.kA.value, 0.18898534531520966);
+    near(fit.kN.standardError, 0.00011383002734567264);
+    near(fit.kA.standardError, 0.0007460844807658717);
+    near(fit.scaled!.kN.standardError, 0.0010804736785845182);
+    near(fit.scaled!.kA.standardError, 0.0070818277238915844);
+    // Reduced chi-square = (scaled SE / absolute SE)^2 by definition of the two conventions.
+    near(fit.scaled!.reducedChiSquared, (0.0070818277238915844 / 0.0007460844807658717) ** 2);
+    expect(fitCatalysisLaw(c.map((x, i) => ({ concentration: x, k: k[i] })), { units }).scaled).toBeUndefined();
+  });
+
   it('converts nothing silently: millimolar concentrations give a per-mM slope', () => {
     const fit = fitCatalysisLaw(acid.map((c) => ({ concentration: c * 1000, k: kN + kA * c })), { units: { concentration: 'mM', time: 'min' } });
     expect(fit.kA.value).toBeCloseTo(kA / 1000, 15);

@@ -1,14 +1,16 @@
 import type { ReportedValue } from '../../../schemas/common.ts';
-import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { Refit, Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
 import { fitCatalysisLaw, type CatalysisFit } from '../../engine/catalysis-law.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { convert, rateUnitOf, type UnitKind } from '../../engine/units.ts';
+import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { CONCENTRATION_UNIT, DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
-import { fmt } from '../format.ts';
+import { fmt, withUnit } from '../format.ts';
+import { withinTolerance } from '../tolerance.ts';
 import { readReported } from '../reported-number.ts';
 import type { StudentK } from './check-run-k.ts';
 import type { RunAnalysis } from './run-analysis.ts';
@@ -20,17 +22,34 @@ export interface RateLawRefit {
   fromReportedK?: { kN: Estimate; kA: Estimate };
   /** Why the ordinary fit stands in for the weighted one the settings ask for, when it does. */
   unweightedBecause?: string;
+  weightedFit?: Refit['weightedFit'];
 }
 
 // The fit runs in base units (M, s^-1) and its results are converted to the instructor's units.
 const BASE = { concentration: 'M', time: 's' };
 
-function fitInUnits(points: Array<{ c: number; k: number; se?: number }>, weighted: boolean, settings: Settings): { kN: Estimate; kA: Estimate; fit: CatalysisFit } {
-  const fit = fitCatalysisLaw(
+interface InUnits {
+  kN: Estimate;
+  kA: Estimate;
+  weightedFit?: Refit['weightedFit'];
+}
+
+/** k_N and k_A in the instructor's units, with standard errors in the convention the settings name first. */
+function fitInUnits(points: Array<{ c: number; k: number; se?: number }>, weighted: boolean, settings: Settings): InUnits {
+  const fit: CatalysisFit = fitCatalysisLaw(
     points.map((p) => ({ concentration: p.c, k: p.k, standardError: p.se })),
     { units: BASE, weighted },
   );
-  return { kN: convertEstimate(fit.kN, settings.units.kN), kA: convertEstimate(fit.kA, settings.units.kA), fit };
+  const inUnits = (f: { kN: Estimate; kA: Estimate }) => ({ kN: convertEstimate(f.kN, settings.units.kN), kA: convertEstimate(f.kA, settings.units.kA) });
+  const absolute = inUnits(fit);
+  if (!fit.scaled) return absolute;
+  const scaled = inUnits(fit.scaled);
+  const convention = settings.weightedErrors === 'scaled' ? 'scaled' : 'absolute';
+  const [used, other] = convention === 'scaled' ? [scaled, absolute] : [absolute, scaled];
+  return {
+    ...used,
+    weightedFit: { reducedChiSquared: fit.scaled.reducedChiSquared, convention, otherConvention: { kN: other.kN.standardError, kA: other.kA.standardError } },
+  };
 }
 
 export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK | undefined>, settings: Settings): RateLawRefit | undefined {
@@ -55,7 +74,7 @@ export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK 
       );
       fromReportedK = { kN: theirs.kN, kA: theirs.kA };
     }
-    return { kN: ours.kN, kA: ours.kA, fromReportedK, unweightedBecause };
+    return { kN: ours.kN, kA: ours.kA, fromReportedK, unweightedBecause, weightedFit: ours.weightedFit };
   } catch (error) {
     // Fewer than three runs, or all at one concentration: there is no second stage to grade.
     if (error instanceof EngineError) return undefined;
@@ -112,6 +131,12 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
     }
   } else {
     const spread: Candidate[] = [{ value: (ours.ci95[1] - ours.ci95[0]) / 2, causes: ['uncertainty-kind'], basis: 'the half-width of the 95 % confidence interval', detail: '95 % confidence half-width' }];
+    const weightedFit = refit.weightedFit;
+    const otherConvention = weightedFit?.otherConvention[c.name];
+    if (weightedFit && otherConvention !== undefined && settings.weightedErrors !== 'either') {
+      const says = weightedFit.convention === 'absolute' ? 'scaled by the scatter about the line' : 'with the SEs of k_obs taken as absolute';
+      spread.push({ value: otherConvention, causes: ['uncertainty-kind'], basis: `the standard error ${says}`, detail: `standard error ${says}` });
+    }
     checkValue(
       {
         what: `The standard error of ${c.label}`,
@@ -123,10 +148,12 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         reported: read.uncertainty,
         unit,
         expected: ours.standardError,
+        alsoRight: settings.weightedErrors === 'either' && otherConvention !== undefined ? [otherConvention] : [],
         carriedForward: theirs && { value: theirs.standardError, from, quiet: outcome.kind === 'carried-forward' },
         slips: () => spread,
         factors: factors.filter((f) => f !== SIGN),
         tolerance: tolerances.rateLawUncertainty,
+        causeTolerance: slipMatch(reported.uncertainty!, read.uncertainty, tolerances.rateLawUncertainty),
       },
       drafts,
     );
@@ -166,5 +193,34 @@ export function checkRateLaw(submission: Submission, refit: RateLawRefit | undef
       message: `The assignment asks for a weighted fit of k_obs against the catalyst concentration, but ${refit.unweightedBecause}. k_N and k_A were checked against the ordinary (unweighted) fit instead.`,
     });
   }
+  if (refit.weightedFit) noteConvention(refit, settings, drafts);
   for (const c of CONSTANTS) checkConstant(c, submission.reported?.[c.name], refit, settings, drafts);
+}
+
+/**
+ * Where the two conventions for a weighted fit's standard errors disagree by more than the
+ * tolerance, the refit says which it used and by how much the k_obs scatter beyond their SEs.
+ */
+function noteConvention(refit: RateLawRefit, settings: Settings, drafts: DraftFinding[]): void {
+  const w = refit.weightedFit!;
+  const ratio = Math.sqrt(w.reducedChiSquared);
+  if (withinTolerance(w.otherConvention.kA, refit.kA.standardError, settings.tolerances.rateLawUncertainty)) return;
+  const ses = (kN: number, kA: number) => `SE(k_N) = ${withUnit(kN, settings.units.kN)}, SE(k_A) = ${withUnit(kA, settings.units.kA)}`;
+  const absolute = w.convention === 'absolute' ? ses(refit.kN.standardError, refit.kA.standardError) : ses(w.otherConvention.kN, w.otherConvention.kA);
+  const scaled = w.convention === 'scaled' ? ses(refit.kN.standardError, refit.kA.standardError) : ses(w.otherConvention.kN, w.otherConvention.kA);
+  const accepted =
+    settings.weightedErrors === 'either'
+      ? 'Either convention is accepted.'
+      : `The assignment asks for the ${settings.weightedErrors === 'absolute' ? 'first' : 'second'}; the standard errors are checked against it.`;
+  drafts.push({
+    code: 'refit-note',
+    path: 'reported',
+    stage: 'rate-law',
+    severity: 'info',
+    charge: 0,
+    message:
+      `The weighted fit of k_obs against the catalyst concentration has a reduced chi-square of ${fmt(w.reducedChiSquared)}: the k_obs scatter about the line ` +
+      `${ratio > 1 ? 'more' : 'less'} than their standard errors imply, so the standard errors of k_N and k_A depend on the convention. ` +
+      `With each SE of k_obs taken as absolute: ${absolute}. Scaled by the scatter about the line (times ${fmt(ratio)}): ${scaled}. ${accepted}`,
+  });
 }

@@ -1,9 +1,11 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { rateUnitOf } from '../../engine/units.ts';
+import type { NumberLike } from '../../../schemas/common.ts';
+import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
-import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
+import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { decimalsOf } from '../digit-slips.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
@@ -75,35 +77,50 @@ export function checkRunK(
     },
     drafts,
   );
-  const slipSEs = () => uncertaintySlips(read.value, Number(reported.value), a, slipValues().map((s) => s.se));
-  checkUncertainty(read.uncertainty, a, own, outcome, slipSEs, settings, drafts);
+  const slipSEs = () => slipValues().map((s) => s.se);
+  const candidates = () => uncertaintySlips(read.value, Number(reported.value), a, slipSEs());
+  const written = reported.uncertainty;
+  const uncertainty = read.uncertainty === undefined || written === undefined ? undefined : { value: read.uncertainty, written };
+  checkUncertainty(uncertainty, a, own, outcome, { slipSEs, candidates }, settings, drafts);
   return { value: read.value, uncertainty: read.uncertainty };
 }
 
 /**
- * The other model's standard error is a candidate only when the value itself does not rule that
- * model out: with 16 readings from t = 0 the intercept model's SE is about 1.9 times the origin
- * model's, close to a 95 % half-width (2.13 SE), so the value decides between the two where it can.
- * Where the two models' k agree to the digits reported, the closer of the two candidates is named.
+ * A slip of method changes k as well as its standard error, so its SE explains a reported SE only
+ * when k shows the same slip (that SE then counts as right, beside its k); otherwise the match is
+ * chance. The fit-model slip is the exception where the two models' k agree: with 16 readings from
+ * t = 0 the intercept model's SE is about 1.9 times the origin model's, close to a 95 % half-width
+ * (2.13 SE), so the value decides between the two where it can, and where the two models' k agree
+ * to the digits reported, the closer of the two candidates is named.
  */
 function uncertaintySlips(value: number, written: number, a: RunAnalysis, slipSEs: Candidate[]): Candidate[] {
-  if (!a.other) return slipSEs;
+  const model = slipSEs.filter((se) => se.causes.includes('fit-model'));
+  if (!a.other) return [];
   const lastPlace = 10 ** -decimalsOf(written) * Math.abs(value / written || 1);
   const toAsked = Math.abs(value - a.expected.value);
   const toOther = Math.abs(value - a.other.k.value);
-  if (Math.abs(toAsked - toOther) > lastPlace / 2) {
-    return toOther < toAsked ? slipSEs : slipSEs.filter((se) => !se.causes.includes('fit-model'));
-  }
-  return slipSEs.map((se) => (se.causes.includes('fit-model') ? { ...se, closestWins: true } : se));
+  if (Math.abs(toAsked - toOther) > lastPlace / 2) return toOther < toAsked ? model : [];
+  return model.map((se) => ({ ...se, closestWins: true }));
+}
+
+/**
+ * Scalings of an SE alone: a misplaced decimal point is a copying slip of its own; a scaling of the
+ * whole fit (logarithm base, time unit) reaches the SE only together with k, so it is tried only
+ * where k shows it.
+ */
+function uncertaintyFactors(kOutcome: ValueOutcome): Factor[] {
+  const withK = kOutcome.kind === 'explained' ? [LOG_BASE, ...TIME_UNIT].filter((f) => kOutcome.by.causes.includes(f.cause)) : [];
+  return [...withK, ...DECIMAL_SHIFT];
 }
 
 /** The standard error of the fit the student's k came from, against the measures of spread often reported instead. */
 function checkUncertainty(
-  reported: number | undefined,
+  reported: { value: number; written: NumberLike } | undefined,
   a: RunAnalysis,
   own: Estimate | undefined,
   kOutcome: ValueOutcome,
-  slipSEs: () => Candidate[],
+  /** Every slip's SE, and those that may explain this SE on their own. */
+  slips: { slipSEs: () => Candidate[]; candidates: () => Candidate[] },
   settings: Settings,
   drafts: DraftFinding[],
 ): void {
@@ -116,7 +133,7 @@ function checkUncertainty(
   }
   // Judge the uncertainty against the fit the value came from, so one slip is not named twice.
   const by = kOutcome.kind === 'explained' ? kOutcome.by : undefined;
-  const byK = by && slipSEs().find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
+  const byK = by && slips.slipSEs().find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
   const expected = a.expected.standardError;
   const line = a.asked;
   const spread: Candidate[] = line
@@ -133,14 +150,15 @@ function checkUncertainty(
       rubricItem: 'kUncertainty',
       itemKey: `kUncertainty@${a.path}`,
       charge,
-      reported,
+      reported: reported.value,
       unit: rateUnitOf(a.timeUnit),
       expected,
       alsoRight: byK ? [byK.value] : [],
       carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
-      slips: () => [...spread, ...slipSEs()],
-      factors: [LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+      slips: () => [...spread, ...slips.candidates()],
+      factors: uncertaintyFactors(kOutcome),
       tolerance: settings.tolerances.kUncertainty,
+      causeTolerance: slipMatch(reported.written, reported.value, settings.tolerances.kUncertainty),
     },
     drafts,
   );

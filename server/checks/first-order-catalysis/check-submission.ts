@@ -12,7 +12,6 @@ import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, type RunAnalysis } from './run-analysis.ts';
 import { itemPoints, pointsOf, rateLawGradable, rubricCounts } from './scoring.ts';
 
-/** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
 function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
   if (!e || !declared || declared === instructor) return undefined;
@@ -71,6 +70,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     kNDeclared: inDeclared(rateLaw?.kN, submission.reported?.kN?.unit, settings.units.kN),
     kADeclared: inDeclared(rateLaw?.kA, submission.reported?.kA?.unit, settings.units.kA),
     fromReportedK: rateLaw?.fromReportedK,
+    weightedFit: rateLaw?.weightedFit,
   };
   return {
     studentId: submission.studentId,
