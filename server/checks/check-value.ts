@@ -35,6 +35,8 @@ export interface ValueCheck {
   tolerance: Tolerance;
   /** How close a slip's value must come for the slip to be named, where narrower than `tolerance`. */
   causeTolerance?: Tolerance;
+  /** The same for a long-shot candidate. */
+  closeTolerance?: Tolerance;
 }
 
 export type ValueOutcome =
@@ -84,7 +86,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
   if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
-  const by = explain(reported, roots, c.factors, c.causeTolerance ?? tolerance);
+  const by = explain(reported, roots, c.factors, c.causeTolerance ?? tolerance, c.closeTolerance);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;
     const how = by.says.length ? ` ${by.says.join(' and ')}` : '';

@@ -16,6 +16,8 @@ export interface Candidate {
   basis: string;
   /** Against another explanation with as many causes, the closer one wins, not the more common. */
   closestWins?: boolean;
+  /** One of many similar guesses (every copying variant of a number): named only on a close match. */
+  longShot?: boolean;
 }
 
 /** Common slips that scale a value; which apply depends on the quantity. */
@@ -84,15 +86,17 @@ function better(c: Candidate, best: Candidate, reported: number): boolean {
  * value alone, with one scaling, and with one scaling and the sign: at most two causes. A candidate is
  * built only when its value matches, since almost none do.
  */
-export function explain(reported: number, bases: Candidate[], factors: Factor[], tolerance: Tolerance): Expanded | undefined {
+export function explain(reported: number, bases: Candidate[], factors: Factor[], tolerance: Tolerance, closeTolerance = tolerance): Expanded | undefined {
   let best: Expanded | undefined;
+  let band = tolerance;
   const consider = (value: number, make: () => Expanded) => {
-    if (!Number.isFinite(value) || !withinTolerance(reported, value, tolerance)) return;
+    if (!Number.isFinite(value) || !withinTolerance(reported, value, band)) return;
     const c = make();
     if (!best || better(c, best, reported)) best = c;
   };
   const sign = factors.find((f) => f.cause === 'sign-flipped');
   for (const b of bases) {
+    band = b.longShot ? closeTolerance : tolerance;
     consider(b.value, () => ({ ...b, root: b.value, says: [] }));
     for (const f of factors) {
       if (b.causes.length > 0 && !JOINS_A_METHOD_SLIP.has(f.cause)) continue;

@@ -43,6 +43,11 @@ function matches(student: number[], variant: number[], settings: Settings): bool
   );
 }
 
+/** Sum of squared differences over the entries both columns have. */
+function distance(student: number[], variant: number[]): number {
+  return student.reduce((sum, s, i) => (Number.isFinite(s) && Number.isFinite(variant[i]) ? sum + (s - variant[i]) ** 2 : sum), 0);
+}
+
 export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): LnFColumn | undefined {
   const path = `${a.path}.reported.lnF`;
   const column = run.reported?.lnF;
@@ -72,9 +77,10 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
   const ours = a.transform.lnF;
   // Most columns are right: the slip variants are made only for one that is not.
   if (matches(values, ours, settings)) return { values, wrong: false };
+  // The fewest causes, then the closest column: x_inf variants a few thousandths apart can both pass.
   const found = variants(a, all)
     .filter((v) => matches(values, v.values, settings))
-    .sort((x, y) => x.causes.length - y.causes.length)[0];
+    .sort((x, y) => x.causes.length - y.causes.length || distance(values, x.values) - distance(values, y.values))[0];
   if (found && found.causes.length === 0) return { values, wrong: false };
   if (found) {
     const [code, ...also] = found.causes;

@@ -2,7 +2,7 @@ import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-
 import type { Estimate } from '../../engine/estimate.ts';
 import { rateUnitOf } from '../../engine/units.ts';
 import type { NumberLike } from '../../../schemas/common.ts';
-import { slipMatch } from '../cause-tolerance.ts';
+import { closeMatch, slipMatch } from '../cause-tolerance.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
@@ -74,6 +74,7 @@ export function checkRunK(
       slips: () => slipValues().map((s) => s.k),
       factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       tolerance: tolerances.k,
+      closeTolerance: closeMatch(reported.value, read.value, tolerances.k),
     },
     drafts,
   );

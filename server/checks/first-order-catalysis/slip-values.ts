@@ -1,7 +1,7 @@
 import { EngineError } from '../../engine/engine-error.ts';
 import { fitLine, fitThroughOrigin, type LineModel } from '../../engine/linear-fit.ts';
 import type { Candidate } from '../explain.ts';
-import { decimalsOf, oneSlipCopies } from '../digit-slips.ts';
+import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -23,23 +23,40 @@ export function lnFWith(a: RunAnalysis, infinity: number): number[] {
   });
 }
 
+const COPY_SLIP_SAYS: Record<SlipKind, string> = {
+  'transposed-digits': 'with two neighbouring digits swapped',
+  'dropped-digit': 'with a digit dropped',
+  'extra-digit': 'with a digit added',
+  'decimal-point': 'with the decimal point moved',
+  'sign-lost': 'with its sign reversed',
+};
+
+export interface InfinityAlternative {
+  value: number;
+  detail: string;
+  /** One of dozens of copying variants: named only on a close match (see `Candidate.longShot`). */
+  longShot: boolean;
+}
+
 /**
  * x_inf values a student might have used by mistake: the last reading, another run's x_inf, or the
- * recorded x_inf copied with two neighbouring digits swapped (6.35 read as 6.53). Other copying slips
- * are not tried: with dozens of one-digit variants almost any k would find one.
+ * recorded x_inf copied with one slip (6.35 read as 6.53, 10.873 as 10.73). The swap of two
+ * neighbouring digits is the common copying slip; the other variants are many, so a k is laid to
+ * them only when it matches one closely (a whole ln F column matches only the right one anyway).
  */
-export function infinityAlternatives(a: RunAnalysis, all: RunAnalysis[]): Array<{ value: number; detail: string }> {
+export function infinityAlternatives(a: RunAnalysis, all: RunAnalysis[]): InfinityAlternative[] {
   const infinity = a.infinity;
   if (infinity === undefined) return [];
-  const out = [{ value: a.readings[a.readings.length - 1], detail: `x_inf taken as the last reading, ${fmt(a.readings[a.readings.length - 1])}` }];
-  const add = (value: number, detail: string) => {
-    if (value !== infinity && !out.some((o) => o.value === value)) out.push({ value, detail });
+  const last = a.readings[a.readings.length - 1];
+  const out: InfinityAlternative[] = [{ value: last, detail: `x_inf taken as the last reading, ${fmt(last)}`, longShot: false }];
+  const add = (value: number, detail: string, longShot: boolean) => {
+    if (value !== infinity && !out.some((o) => o.value === value)) out.push({ value, detail, longShot });
   };
   for (const other of all) {
-    if (other.index !== a.index && other.infinity !== undefined) add(other.infinity, `x_inf of run "${other.label}", ${fmt(other.infinity)}`);
+    if (other.index !== a.index && other.infinity !== undefined) add(other.infinity, `x_inf of run "${other.label}", ${fmt(other.infinity)}`, false);
   }
   for (const copy of oneSlipCopies(infinity, decimalsOf(infinity))) {
-    if (copy.kind === 'transposed-digits') add(copy.value, `x_inf taken as ${fmt(copy.value)}, the recorded ${fmt(infinity)} with two neighbouring digits swapped`);
+    add(copy.value, `x_inf taken as ${fmt(copy.value)}, the recorded ${fmt(infinity)} ${COPY_SLIP_SAYS[copy.kind]}`, copy.kind !== 'transposed-digits');
   }
   return out;
 }
@@ -78,7 +95,7 @@ export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): 
     try {
       const fit = fitDefined(model, t, lnFWith(a, alt.value));
       out.push({
-        k: { value: -fit.slope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the refit with that x_inf' },
+        k: { value: -fit.slope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the refit with that x_inf', longShot: alt.longShot },
         se: { value: fit.seSlope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the standard error of the refit with that x_inf' },
       });
     } catch (error) {
