@@ -31,6 +31,9 @@ const undo: Record<SlipKind, SlipKind> = {
   'extra-digit': 'dropped-digit',
 };
 
+/** Copying slips from the most to the least common (common practice, no source). */
+const SLIP_ORDER: SlipKind[] = ['transposed-digits', 'dropped-digit', 'extra-digit', 'decimal-point', 'sign-lost'];
+
 interface Curve {
   times: number[];
   readings: number[];
@@ -90,6 +93,37 @@ function mostSuspect(curve: Curve) {
   return best;
 }
 
+/**
+ * The leverage a left-out reading would have on the curve fitted without it: g' (J'J)^-1 g, with J the
+ * other readings' gradients of x = x_inf + A e^(-k (t - t0)) in (x_inf, A, k) and g the reading's. A
+ * reading past the others (the last one) is an extrapolation, predicted less surely than the scatter.
+ */
+function leverageAt(times: number[], index: number, origin: number, fit: FirstOrderNonlinearFit): number {
+  const k = fit.k.value;
+  const amplitude = fit.x0.value - fit.infinity.value;
+  const gradient = (t: number) => {
+    const e = Math.exp(-k * (t - origin));
+    return [1, e, -amplitude * (t - origin) * e];
+  };
+  const m = [0, 0, 0, 0, 0, 0, 0, 0, 0];
+  times.forEach((t, j) => {
+    if (j === index) return;
+    const g = gradient(t);
+    for (let r = 0; r < 3; r++) for (let c = 0; c < 3; c++) m[3 * r + c] += g[r] * g[c];
+  });
+  const g = gradient(times[index]);
+  const x = solve3(m, g);
+  return x ? Math.max(0, g[0] * x[0] + g[1] * x[1] + g[2] * x[2]) : 0;
+}
+
+/** The solution of a 3 x 3 system M x = b by Cramer's rule, or undefined when M is singular. */
+function solve3(m: number[], b: number[]): number[] | undefined {
+  const det = (a: number[]) => a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
+  const d = det(m);
+  if (!(Math.abs(d) > 0)) return undefined;
+  return [0, 1, 2].map((col) => det(m.map((v, i) => (i % 3 === col ? b[Math.floor(i / 3)] : v))) / d);
+}
+
 export function findSuspectReading(curve: Curve): SuspectReading | undefined {
   const n = curve.readings.length;
   if (n < 6) return undefined;
@@ -107,11 +141,13 @@ export function findSuspectReading(curve: Curve): SuspectReading | undefined {
   const step = 10 ** -decimals;
   if (offset <= MIN_OFFSET_STEPS * step) return undefined;
   // The intended value was written to the run's precision; a slip that added a digit is undone by
-  // dropping one, and the reverse.
-  const nearest = oneSlipCopies(reading, decimals)
-    .filter((s) => decimalsOf(s.value) <= decimals)
-    .map((s) => ({ ...s, kind: undo[s.kind], off: Math.abs(s.value - predicted) }))
-    .sort((a, b) => a.off - b.off)[0];
-  const onCurve = nearest && nearest.off <= Math.max(4 * fit.residualSD, 3 * step);
-  return { index, reading, predicted, decimals, intended: onCurve ? { value: nearest.value, slip: nearest.kind } : undefined };
+  // dropping one, and the reverse. Among the copies on the curve the commonest slip is named (two
+  // neighbouring digits swapped, then a digit dropped or added): near the plateau a dropped or added
+  // digit can land as close to the curve as the swap that was made.
+  const band = Math.max(4 * fit.residualSD * Math.sqrt(1 + leverageAt(curve.times, index, origin, fit)), 3 * step);
+  const intended = oneSlipCopies(reading, decimals)
+    .filter((s) => decimalsOf(s.value) <= decimals && Math.abs(s.value - predicted) <= band)
+    .map((s) => ({ value: s.value, slip: undo[s.kind] }))
+    .sort((a, b) => SLIP_ORDER.indexOf(a.slip) - SLIP_ORDER.indexOf(b.slip) || Math.abs(a.value - predicted) - Math.abs(b.value - predicted))[0];
+  return { index, reading, predicted, decimals, intended };
 }

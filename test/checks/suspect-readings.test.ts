@@ -26,3 +26,34 @@ describe('findSuspectReading', () => {
     for (let seed = 0; seed < 40; seed++) expect(findSuspectReading({ ...run(seed), startK: 0.05 })).toBeUndefined();
   });
 });
+
+describe('a copying slip late in a run, near x_inf', () => {
+  // Invented runs that reach their plateau: x_inf = 9.4 deg, x_0 = 22 deg, k = 0.3 per min, noise
+  // 0.003 deg, to 0.001 deg. One reading in the last four, within a degree of x_inf, has two
+  // neighbouring digits swapped 0.05 to 0.1 deg off (9.655 written 9.565).
+  const plateau = (seed: number) => {
+    const times = minutes(16);
+    const readings = syntheticReadings({ k: 0.3, x0: 22, xInf: 9.4, times, noise: 0.003, random: seededRandom(seed) }).map((x) => Number(x.toFixed(3)));
+    return { times, readings, timeUnit: 'min' };
+  };
+
+  it('is named suspect with the swap undone, in every one of 60 runs', () => {
+    let tried = 0;
+    for (let seed = 0; seed < 60; seed++) {
+      const curve = plateau(seed);
+      for (const index of [12, 13, 14, 15]) {
+        const meant = curve.readings[index];
+        const text = meant.toFixed(3);
+        // Swap the first and second decimals: 9.655 -> 9.565.
+        const copy = Number(`${text.slice(0, -3)}${text[text.length - 2]}${text[text.length - 3]}${text.slice(-1)}`);
+        if (Math.abs(copy - meant) < 0.05 || Math.abs(copy - meant) > 0.1) continue;
+        const readings = curve.readings.slice();
+        readings[index] = copy;
+        const suspect = findSuspectReading({ ...curve, readings });
+        expect(suspect, `seed ${seed}, reading ${index}: ${meant} written ${copy}`).toMatchObject({ index, intended: { value: meant, slip: 'transposed-digits' } });
+        tried++;
+      }
+    }
+    expect(tried).toBeGreaterThan(40);
+  });
+});
