@@ -21,6 +21,7 @@ export const findingCodes = [
   'implausible',
   'sig-figs',
   'unit-unrecognised',
+  'unit-assumed',
   'missing-value',
   'unexplained',
   // Not a slip: how the refit had to depart from the settings (and why), for the TA to see.

@@ -545,6 +545,14 @@ const slips: Record<SlipCode, Slip> = {
     return [{ code: 'unit-unrecognised', path: kPath(i) }];
   },
 
+  /** One run's catalyst concentration given as a normality (N, or mN with the value in mM). */
+  'unit-assumed': ({ submission, random }) => {
+    const i = indexIn(random, submission.runs.length);
+    const catalyst = submission.runs[i].catalyst;
+    submission.runs[i].catalyst = random() < 0.5 ? { ...catalyst, unit: 'N' } : { value: Number((catalyst.value * 1000).toPrecision(12)), unit: 'mN' };
+    return [{ code: 'unit-assumed', path: `runs[${i}].catalyst.unit` }];
+  },
+
   'missing-value': ({ submission }) => {
     delete submission.reported!.kA;
     return [{ code: 'missing-value', path: 'reported.kA' }];

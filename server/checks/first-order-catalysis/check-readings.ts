@@ -1,6 +1,7 @@
 import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
+import { molarForNormality } from './catalyst-unit.ts';
 import { findSuspectReading } from '../suspect-readings.ts';
 import { compareTables, type TableSlip } from '../transcription.ts';
 import type { RunAnalysis } from './run-analysis.ts';
@@ -60,6 +61,17 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
       severity: 'error',
       charge: 0,
       message: `The catalyst concentration of run "${a.label}" is ${fmt(run.catalyst.value)} ${run.catalyst.unit}, which no solution can have (none is more concentrated than about 55 M); the rate law fitted from it means nothing. Please check the value and its unit.`,
+    });
+  }
+  const molar = molarForNormality(run.catalyst.unit);
+  if (molar) {
+    drafts.push({
+      code: 'unit-assumed',
+      stage: 'readings',
+      path: `${a.path}.catalyst.unit`,
+      severity: 'warning',
+      charge: 0,
+      message: `The catalyst concentration of run "${a.label}" is given in ${run.catalyst.unit.trim()} (normality); it was read as ${molar}, which holds for an acid that gives one H+ per formula unit (HCl, HClO4) but not for H2SO4, where it is twice the molarity. If that is not your acid, please give the concentration in ${molar}.`,
     });
   }
   if (a.undetermined) {

@@ -9,6 +9,7 @@ import { fitGuggenheim } from '../../engine/guggenheim.ts';
 import { convert, parseUnit, type Unit } from '../../engine/units.ts';
 import { fmt } from '../format.ts';
 import { InputRejected } from '../input-rejected.ts';
+import { molarForNormality } from './catalyst-unit.ts';
 
 /** Our own analysis of one run, from the student's raw data as submitted. */
 export interface RunAnalysis {
@@ -126,7 +127,8 @@ function transformDefined(run: FirstOrderRun, infinity: number) {
 export function analyseRun(run: SubmittedRun, index: number, model: LineModel): RunAnalysis {
   const path = `runs[${index}]`;
   const timeUnit = parseAt(`${path}.timeUnit`, () => parseUnit(run.timeUnit, 'time'));
-  const concentrationM = parseAt(`${path}.catalyst.unit`, () => convert(run.catalyst.value, parseUnit(run.catalyst.unit, 'concentration'), 'M'));
+  const catalystUnit = molarForNormality(run.catalyst.unit) ?? run.catalyst.unit;
+  const concentrationM = parseAt(`${path}.catalyst.unit`, () => convert(run.catalyst.value, parseUnit(catalystUnit, 'concentration'), 'M'));
   const times = run.readings.map((r) => r[0]);
   const readings = run.readings.map((r) => r[1]);
   const data = { times, readings, timeUnit: run.timeUnit, infinity: run.infinity };
