@@ -3,8 +3,10 @@ import { checkBatch, checkSubmission, parseAssignment } from '../../server/check
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import {
   atExpectedPath,
+  cleanCase,
   generateAssignment,
   generateSubmission,
+  isFound,
   slipCase,
   slipCodes,
   type SlipCode,
@@ -15,6 +17,9 @@ import {
  * reports at the place of each injected slip, and (b) checked submissions per second on clean ones.
  */
 const CASES_PER_SLIP = 100;
+// Seeds the tests never use: recall measured where nothing was tuned.
+const HELD_OUT_FIRST_SEED = 100_000;
+const HELD_OUT_CASES = 500;
 const BATCH_SIZE = 2000;
 const NOTHING = '(none)';
 
@@ -49,9 +54,32 @@ export function confusionTable(): string {
   return [header, header.replace(/[^|]/g, '-'), ...lines].join('\n');
 }
 
+/** Per slip, the share of held-out cases with every expected finding; and clean work with an error. */
+export function heldOutRecall(): string {
+  const lines = slipCodes.map((code) => {
+    let found = 0;
+    for (let seed = HELD_OUT_FIRST_SEED; seed < HELD_OUT_FIRST_SEED + HELD_OUT_CASES; seed++) {
+      const { settings, submission, expected } = slipCase(code, seed);
+      const result = checkSubmission(parseAssignment(settings), submission);
+      if (expected.every((e) => isFound(e, result.findings))) found++;
+    }
+    return `${code}: ${((100 * found) / HELD_OUT_CASES).toFixed(1)} % (${found}/${HELD_OUT_CASES})`;
+  });
+  let clean = 0;
+  for (let seed = HELD_OUT_FIRST_SEED; seed < HELD_OUT_FIRST_SEED + HELD_OUT_CASES; seed++) {
+    const { settings, submission } = cleanCase(seed);
+    const result = checkSubmission(parseAssignment(settings), submission);
+    if (result.status === 'checked' && !result.findings.some((f) => f.severity === 'error')) clean++;
+  }
+  lines.push(`clean work with no error: ${((100 * clean) / HELD_OUT_CASES).toFixed(1)} % (${clean}/${HELD_OUT_CASES})`);
+  return lines.join('\n');
+}
+
 export function benchChecks(): { checksPerSecond: number; microsecondsPerCheck: number } {
   console.log(`checker diagnoses: codes found at the injected slip's path, ${CASES_PER_SLIP} submissions per slip`);
   console.log(confusionTable());
+  console.log(`held-out recall: seeds ${HELD_OUT_FIRST_SEED} to ${HELD_OUT_FIRST_SEED + HELD_OUT_CASES - 1}, which no test uses`);
+  console.log(heldOutRecall());
 
   const random = seededRandom(2024);
   // The default assignment; every student with their own data.
