@@ -2,7 +2,8 @@ import type { CheckResult } from '../schemas/result.ts';
 import { mainErrorCodes, severityCounts } from './result-summary.ts';
 
 /**
- * The section's gradebook as CSV: one row per result.
+ * The section's gradebook as CSV: one row per result, then one per roster student who has not
+ * submitted (status `not-submitted`, no score), so that no student drops out of a gradebook silently.
  *
  * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the error
  * findings' codes, most costly first, `;`-joined). A rejected result has an empty score.
@@ -17,6 +18,8 @@ import { mainErrorCodes, severityCounts } from './result-summary.ts';
  */
 export interface GradebookOptions {
   bom?: boolean;
+  /** Roster students with no submission. */
+  notSubmitted?: readonly string[];
 }
 
 export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes'] as const;
@@ -55,7 +58,12 @@ function row(result: CheckResult): Cell[] {
   ];
 }
 
+function notSubmittedRow(studentId: string): Cell[] {
+  return [{ text: studentId }, { number: null }, { number: null }, { text: 'not-submitted' }, { number: 0 }, { number: 0 }, { number: 0 }, { text: '' }];
+}
+
 export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions = {}): string {
-  const lines = [GRADEBOOK_COLUMNS.join(','), ...results.map((r) => row(r).map(cellText).join(','))];
+  const rows = [...results.map(row), ...(options.notSubmitted ?? []).map(notSubmittedRow)];
+  const lines = [GRADEBOOK_COLUMNS.join(','), ...rows.map((r) => r.map(cellText).join(','))];
   return `${options.bom ? '\uFEFF' : ''}${lines.join('\r\n')}\r\n`;
 }

@@ -3,6 +3,7 @@ import { gradebookCsv } from '../../reports/gradebook-csv.ts';
 import { sectionZip } from '../../reports/section-zip.ts';
 import { ApiError } from '../errors.ts';
 import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
+import { studentsWithoutSubmission } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
@@ -62,7 +63,9 @@ export const reportRoutes: RouteSpec[] = [
     summary: 'The gradebook (CSV, one row per student; cells that a spreadsheet would run as formulas are neutralised)',
     schema: { params, querystring: z.object({ bom: z.enum(['true', 'false']).default('false') }), response: { 200: file } },
     async handler({ db, scope, params: p, query }) {
-      const csv = gradebookCsv(await sectionResults(db, scope.sectionId!, Number(p.assignmentId)), { bom: query.bom === 'true' });
+      const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
+      const notSubmitted = await studentsWithoutSubmission(db, sectionId, assignmentId);
+      const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { bom: query.bom === 'true', notSubmitted });
       return { status: 200, body: csv, contentType: 'text/csv; charset=utf-8', headers: download(`gradebook-section-${scope.sectionId}.csv`) };
     },
   },

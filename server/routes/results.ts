@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults } from '../grading/report-inputs.ts';
+import { studentsWithoutSubmission } from '../store/students.ts';
 import { releaseResults } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -8,8 +9,10 @@ import { IdParam } from './schemas.ts';
 
 const Row = z.object({
   studentId: z.string(),
-  submissionId: z.number(),
-  version: z.number(),
+  /** Null for a roster student who has not submitted. */
+  submissionId: z.number().nullable(),
+  version: z.number().nullable(),
+  /** `checked`, `rejected`, or `not-submitted`; null while a result is missing. */
   status: z.string().nullable(),
   score: z.number().nullable(),
   maxScore: z.number().nullable(),
@@ -27,26 +30,38 @@ export const resultRoutes: RouteSpec[] = [
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/results',
     access: 'section',
-    summary: "A section's results: one row per student (latest version), with counts by severity and the codes found",
+    summary: "A section's results: one row per roster student (latest version, or not submitted), with counts by severity and the codes found",
     schema: { params, response: { 200: z.array(Row) } },
     async handler({ db, scope, params: p }) {
-      const rows = await latestWithResults(db, scope.sectionId!, Number(p.assignmentId));
-      return {
-        status: 200,
-        body: rows.map(({ submission, result }) => {
-          return {
-            studentId: submission.studentId,
-            submissionId: submission.submissionId,
-            version: submission.version,
-            status: result?.status ?? null,
-            score: result?.score ?? null,
-            maxScore: result?.maxScore ?? null,
-            ...severityCounts(result?.findings ?? []),
-            codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
-            released: result?.releasedAt != null,
-          };
-        }),
-      };
+      const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
+      const rows = await latestWithResults(db, sectionId, assignmentId);
+      const missing = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map((studentId) => ({
+        studentId,
+        submissionId: null,
+        version: null,
+        status: 'not-submitted',
+        score: null,
+        maxScore: null,
+        errors: 0,
+        warnings: 0,
+        infos: 0,
+        codes: [],
+        released: false,
+      }));
+      const submitted = rows.map(({ submission, result }) => ({
+        studentId: submission.studentId,
+        submissionId: submission.submissionId,
+        version: submission.version,
+        status: result?.status ?? null,
+        score: result?.score ?? null,
+        maxScore: result?.maxScore ?? null,
+        ...severityCounts(result?.findings ?? []),
+        codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
+        released: result?.releasedAt != null,
+      }));
+      // One list in student-id order, submitted or not.
+      const body = [...submitted, ...missing].sort((a, b) => (a.studentId < b.studentId ? -1 : a.studentId > b.studentId ? 1 : 0));
+      return { status: 200, body };
     },
   },
   {

@@ -44,3 +44,17 @@ export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: s
   const rows = await db.selectFrom('students').select(['id', 'student_id']).where('section_id', '=', sectionId).where('student_id', 'in', ids).execute();
   return new Map(rows.map((r) => [r.student_id, r.id]));
 }
+
+/** Roster students of a section with no submission to an assignment: a gradebook lists them too. */
+export async function studentsWithoutSubmission(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<string[]> {
+  const rows = await db
+    .selectFrom('students')
+    .select('student_id')
+    .where('section_id', '=', sectionId)
+    .where(({ not, exists, selectFrom }) =>
+      not(exists(selectFrom('submissions').select('submissions.id').whereRef('submissions.student_row_id', '=', 'students.id').where('submissions.assignment_id', '=', assignmentId))),
+    )
+    .orderBy('student_id')
+    .execute();
+  return rows.map((r) => r.student_id);
+}

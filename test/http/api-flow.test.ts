@@ -27,8 +27,19 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       { at: '[3]', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" },
     ]);
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
-    expect(table.body.map((r: { studentId: string }) => r.studentId)).toEqual(['S-001', 'S-002']);
+    // Every roster student has a row: a gradebook drops no one who has not submitted.
+    expect(table.body.map((r: { studentId: string; status: string }) => [r.studentId, r.status])).toEqual([
+      ['S-001', 'checked'],
+      ['S-002', 'checked'],
+      ['S-003', 'not-submitted'],
+      ['S-004', 'not-submitted'],
+      ['S-005', 'not-submitted'],
+      ['S-006', 'not-submitted'],
+    ]);
     expect(table.body[0]).toMatchObject({ version: 1, status: 'checked', score: 22, maxScore: 22, released: false });
+    expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, status: 'not-submitted', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false });
+    const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv`, headers: { authorization: `Bearer ${s.taAToken}` } });
+    expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,');
   });
 
   it('a resubmission is a new version; the old one stays readable', async () => {
@@ -98,7 +109,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     const released = await call(api.app, 'POST', `${url()}/release`, s.taAToken, undefined, 200);
     expect(released.body.released).toBeGreaterThan(0);
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
-    expect(table.body.every((r: { released: boolean }) => r.released)).toBe(true);
+    expect(table.body.every((r: { released: boolean; submissionId: number | null }) => r.released === (r.submissionId !== null))).toBe(true);
     const after = await api.app.inject({ method: 'GET', url: `/v1/submissions/${table0.body[0].submissionId}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(folded(await pdfText(after.rawPayload))).not.toContain('Draft for the teaching assistant');
   });
