@@ -1,5 +1,6 @@
 import type { Migration } from 'kysely';
 import * as initial from './2026-12-02T1000-initial.ts';
+import * as sessions from './2026-12-02T2100-sessions.ts';
 
 /**
  * Every migration by name, applied in name order (names start with a timestamp). A static list rather
@@ -8,4 +9,5 @@ import * as initial from './2026-12-02T1000-initial.ts';
  */
 export const migrations: Record<string, Migration> = {
   '2026-12-02T1000-initial': initial,
+  '2026-12-02T2100-sessions': sessions,
 };

@@ -1,4 +1,4 @@
-import { createHash, timingSafeEqual } from 'node:crypto';
+import { createHash } from 'node:crypto';
 import fastifyMultipart from '@fastify/multipart';
 import fastifySwagger from '@fastify/swagger';
 import fastifySwaggerUi from '@fastify/swagger-ui';
@@ -11,6 +11,8 @@ import { Regrades } from './grading/regrade.ts';
 import { createWorkerPool } from './pool/worker-pool.ts';
 import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
+import { callerOf } from './routes/caller.ts';
+import { registerSessionRoutes } from './routes/session-routes.ts';
 import { routes } from './routes/index.ts';
 import { ErrorResponse } from './routes/schemas.ts';
 import type { RouteContext, RouteSpec } from './routes/route-spec.ts';
@@ -19,7 +21,6 @@ import { decodeUtf8 } from './routes/utf8.ts';
 import { validationDetails } from './routes/validation-details.ts';
 import type { Store } from './store/connection.ts';
 import { findIdempotent, holdIdempotencyKey, MAX_IDEMPOTENCY_KEY, saveIdempotent } from './store/idempotency.ts';
-import { findCaller } from './store/tokens.ts';
 import { isDatabaseUnavailable } from './store/unavailable.ts';
 
 /** How long a client is asked to wait before sending a request again while the database is away. */
@@ -32,22 +33,6 @@ export interface AppOptions {
   grader?: Grader;
   /** Off in tests; pino otherwise. Logs carry request ids and URLs only, never bodies or tokens. */
   logger?: boolean | { stream: NodeJS.WritableStream };
-}
-
-function sameSecret(a: string, b: string): boolean {
-  const ha = createHash('sha256').update(a).digest();
-  const hb = createHash('sha256').update(b).digest();
-  return timingSafeEqual(ha, hb);
-}
-
-async function callerOf(request: FastifyRequest, options: AppOptions): Promise<Caller> {
-  const header = request.headers.authorization;
-  const token = header?.startsWith('Bearer ') ? header.slice(7).trim() : undefined;
-  if (!token) throw new ApiError('unauthenticated');
-  if (options.config.adminToken && sameSecret(token, options.config.adminToken)) return { kind: 'admin' };
-  const caller = await findCaller(options.store.db, token);
-  if (!caller) throw new ApiError('unauthenticated', 'the API token is not valid');
-  return caller;
 }
 
 /** What makes two requests the same for an Idempotency-Key: method, URL and the body as read. */
@@ -70,7 +55,7 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, se
     schema: { ...spec.schema, response: { ...errorResponses, ...spec.schema.response }, summary: spec.summary, security: [{ bearer: [] }] },
     // 401, then 404 or 403, come before any complaint about the body.
     async preValidation(request) {
-      const caller = await callerOf(request, options);
+      const caller = await callerOf(request, options.store, options.config);
       const scope = await resolveScope(db, request.params as Record<string, unknown>);
       authorize(caller, spec.access, scope);
       resolved.set(request, { caller, scope });
@@ -220,5 +205,6 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     await pool?.close();
   });
   for (const spec of routes) register(app, spec, options, { grader, regrades });
+  registerSessionRoutes(app, options.store, options.config);
   return app;
 }

@@ -11,10 +11,11 @@ import type { StaffCaller } from '../store/tokens.ts';
  * - `admin`: the configured admin token (creating courses);
  * - `instructor`: an instructor of the course the URL points into (or the admin);
  * - `course`: any staff of that course;
- * - `section`: an instructor of the course, or a TA assigned to the section the URL points into.
+ * - `section`: an instructor of the course, or a TA assigned to the section the URL points into;
+ * - `signed-in`: anyone with a valid token or session (the route itself shows only what they may see).
  * Anything outside the caller's reach answers 404, exactly as a missing resource does.
  */
-export type Access = 'admin' | 'instructor' | 'course' | 'section';
+export type Access = 'admin' | 'instructor' | 'course' | 'section' | 'signed-in';
 
 export type Caller = StaffCaller | { kind: 'admin' };
 
@@ -71,6 +72,7 @@ export async function resolveScope(db: Kysely<Database>, params: Record<string, 
 }
 
 export function authorize(caller: Caller, access: Access, scope: Scope): void {
+  if (access === 'signed-in') return;
   if (caller.kind === 'admin') {
     if (access === 'admin' || access === 'instructor') return;
     throw new ApiError('forbidden', 'the admin token creates courses and their staff; use a staff token for course work');

@@ -1,5 +1,6 @@
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
+import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
 import { resultRoutes } from './results.ts';
 import { rosterRoutes } from './rosters.ts';
@@ -7,4 +8,4 @@ import type { RouteSpec } from './route-spec.ts';
 import { submissionRoutes } from './submissions.ts';
 
 /** Every route of the API, registered explicitly in this order. */
-export const routes: RouteSpec[] = [...courseRoutes, ...rosterRoutes, ...assignmentRoutes, ...submissionRoutes, ...resultRoutes, ...reportRoutes];
+export const routes: RouteSpec[] = [...meRoutes, ...courseRoutes, ...rosterRoutes, ...assignmentRoutes, ...submissionRoutes, ...resultRoutes, ...reportRoutes];

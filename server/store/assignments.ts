@@ -25,3 +25,8 @@ export async function replaceSettings(db: Kysely<Database>, id: number, settings
 }
 
 export type AssignmentRow = NonNullable<Awaited<ReturnType<typeof getAssignment>>>;
+
+/** A course's assignments, without their settings. */
+export async function listAssignments(db: Kysely<Database>, courseId: number) {
+  return db.selectFrom('assignments').select(['id', 'title', 'kind']).where('course_id', '=', courseId).orderBy('id').execute();
+}

@@ -36,3 +36,13 @@ export async function createStaff(db: Kysely<Database>, courseId: number, handle
 export async function getStaff(db: Kysely<Database>, id: number) {
   return db.selectFrom('staff').select(['id', 'course_id as courseId', 'handle', 'role']).where('id', '=', id).executeTakeFirst();
 }
+
+/** Courses by id, or every course (for the admin). */
+export async function listCourses(db: Kysely<Database>, ids?: number[]) {
+  let query = db.selectFrom('courses').select(['id', 'name', 'created_at as createdAt']).orderBy('id');
+  if (ids) {
+    if (ids.length === 0) return [];
+    query = query.where('id', 'in', ids);
+  }
+  return query.execute();
+}

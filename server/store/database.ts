@@ -11,6 +11,7 @@ export interface Database {
   staff: { id: Generated<number>; course_id: Ref; handle: string; role: 'instructor' | 'ta' };
   ta_sections: { staff_id: Ref; section_id: Ref };
   api_tokens: { id: Generated<number>; staff_id: Ref; token_hash: string; created_at: Generated<Date>; revoked_at: Date | null };
+  sessions: { id: Generated<number>; staff_id: Ref; session_hash: string; created_at: Generated<Date>; expires_at: Date };
   students: { id: Generated<number>; course_id: Ref; section_id: Ref; student_id: string; display_name: string | null };
   assignments: {
     id: Generated<number>;

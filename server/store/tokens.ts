@@ -13,8 +13,9 @@ export async function createToken(db: Kysely<Database>, staffId: number): Promis
   return token;
 }
 
-/** Revokes every live token of a staff member (someone leaves the course, a token leaks). */
+/** Revokes every live token of a staff member (someone leaves the course, a token leaks), and ends their browser sessions. */
 export async function revokeTokens(db: Kysely<Database>, staffId: number): Promise<number> {
+  await db.deleteFrom('sessions').where('staff_id', '=', staffId).execute();
   const rows = await db
     .updateTable('api_tokens')
     .set({ revoked_at: new Date() })
@@ -34,6 +35,12 @@ export interface StaffCaller {
   sectionIds: number[];
 }
 
+/** A staff member as a caller, with the sections a TA is assigned to. */
+export async function staffCaller(db: Kysely<Database>, row: { staffId: number; courseId: number; role: 'instructor' | 'ta' }): Promise<StaffCaller> {
+  const sections = await db.selectFrom('ta_sections').select('section_id').where('staff_id', '=', row.staffId).execute();
+  return { kind: 'staff', staffId: row.staffId, courseId: row.courseId, role: row.role, sectionIds: sections.map((s) => s.section_id) };
+}
+
 export async function findCaller(db: Kysely<Database>, token: string): Promise<StaffCaller | undefined> {
   const row = await db
     .selectFrom('api_tokens')
@@ -42,7 +49,5 @@ export async function findCaller(db: Kysely<Database>, token: string): Promise<S
     .where('api_tokens.token_hash', '=', hashToken(token))
     .where('api_tokens.revoked_at', 'is', null)
     .executeTakeFirst();
-  if (!row) return undefined;
-  const sections = await db.selectFrom('ta_sections').select('section_id').where('staff_id', '=', row.staffId).execute();
-  return { kind: 'staff', staffId: row.staffId, courseId: row.courseId, role: row.role, sectionIds: sections.map((s) => s.section_id) };
+  return row && staffCaller(db, row);
 }

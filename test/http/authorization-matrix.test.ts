@@ -16,6 +16,7 @@ const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
   instructor: { admin: 'ok', instructor: 'ok', 'ta-of-section': 403, 'ta-of-other-section': 403, 'no-token': 401, 'bad-token': 401 },
   course: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
   section: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 404, 'no-token': 401, 'bad-token': 401 },
+  'signed-in': { admin: 'ok', instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
 };
 
 interface Fixture extends Seed {
@@ -30,6 +31,8 @@ const unique = () => ++n;
 
 /** A valid request for each route, pointing into section A of the seeded course. */
 const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> = {
+  'GET /v1/me': () => ({ url: '/v1/me' }),
+  'GET /v1/courses': () => ({ url: '/v1/courses' }),
   'POST /v1/courses': () => ({ url: '/v1/courses', body: { name: `Course ${unique()}` } }),
   'GET /v1/courses/:courseId': (f) => ({ url: `/v1/courses/${f.course.id}` }),
   'POST /v1/courses/:courseId/sections': (f) => ({ url: `/v1/courses/${f.course.id}/sections`, body: { name: `Section ${unique()}` } }),

@@ -1,0 +1,38 @@
+import { createHash, timingSafeEqual } from 'node:crypto';
+import type { FastifyRequest } from 'fastify';
+
+/** The workspace's session cookie: HttpOnly (no script reads it), SameSite=Strict, Secure over TLS. */
+export const SESSION_COOKIE = 'rateproof_session';
+export const SESSION_HOURS = 8;
+
+export function readSessionCookie(request: FastifyRequest): string | undefined {
+  const header = request.headers.cookie;
+  if (!header) return undefined;
+  for (const part of header.split(';')) {
+    const eq = part.indexOf('=');
+    if (eq > 0 && part.slice(0, eq).trim() === SESSION_COOKIE) return decodeURIComponent(part.slice(eq + 1).trim());
+  }
+  return undefined;
+}
+
+/** Set-Cookie for a session; an empty value with Max-Age 0 clears it. */
+export function sessionCookieHeader(request: FastifyRequest, value: string, maxAgeSeconds: number): string {
+  const secure = request.protocol === 'https' ? '; Secure' : '';
+  return `${SESSION_COOKIE}=${encodeURIComponent(value)}; Path=/; HttpOnly; SameSite=Strict; Max-Age=${maxAgeSeconds}${secure}`;
+}
+
+/**
+ * The token a page must send (header `x-csrf-token`) with every change made under a session cookie:
+ * derived from the cookie's secret, so the server stores nothing more, and readable only by a page of
+ * this origin (from `GET /v1/me`), never by another site, which cannot read the cookie or the answer.
+ */
+export function csrfTokenOf(session: string): string {
+  return createHash('sha256').update(`csrf:${session}`).digest('base64url');
+}
+
+export function csrfMatches(session: string, sent: unknown): boolean {
+  if (typeof sent !== 'string') return false;
+  const a = createHash('sha256').update(csrfTokenOf(session)).digest();
+  const b = createHash('sha256').update(sent).digest();
+  return timingSafeEqual(a, b);
+}

@@ -1,0 +1,37 @@
+import type { FastifyInstance } from 'fastify';
+import { z } from 'zod';
+import type { Config } from '../config.ts';
+import { ApiError } from '../errors.ts';
+import type { Store } from '../store/connection.ts';
+import { createSession, endSession } from '../store/sessions.ts';
+import { tokenCaller } from './caller.ts';
+import { csrfMatches, csrfTokenOf, readSessionCookie, SESSION_HOURS, sessionCookieHeader } from './session-cookie.ts';
+
+const SignIn = z.object({ token: z.string().min(1, 'the token is empty').max(500) });
+const Session = z.object({ expiresAt: z.date(), csrfToken: z.string() });
+
+/**
+ * The workspace's sign-in and sign-out: a staff token is exchanged once for an HttpOnly session
+ * cookie, so the page never keeps the token. Outside the route table: signing in needs no caller.
+ */
+export function registerSessionRoutes(app: FastifyInstance, store: Store, config: Config): void {
+  app.post('/v1/session', { schema: { summary: 'Sign in to the workspace with a staff token: sets an HttpOnly session cookie', body: SignIn, response: { 201: Session } } }, async (request, reply) => {
+    const { token } = request.body as z.infer<typeof SignIn>;
+    const caller = await tokenCaller(token.trim(), store, config);
+    if (!caller) throw new ApiError('unauthenticated', 'the token is not valid');
+    if (caller.kind === 'admin') throw new ApiError('forbidden', 'the workspace is for course staff; the admin token works with the API');
+    const { session, expiresAt } = await createSession(store.db, caller.staffId, SESSION_HOURS);
+    reply.header('set-cookie', sessionCookieHeader(request, session, SESSION_HOURS * 3600));
+    return reply.code(201).send({ expiresAt, csrfToken: csrfTokenOf(session) });
+  });
+
+  app.delete('/v1/session', { schema: { summary: 'Sign out: ends the session and clears its cookie' } }, async (request, reply) => {
+    const session = readSessionCookie(request);
+    if (session) {
+      if (!csrfMatches(session, request.headers['x-csrf-token'])) throw new ApiError('forbidden', 'signing out needs the x-csrf-token header of the page');
+      await endSession(store.db, session);
+    }
+    reply.header('set-cookie', sessionCookieHeader(request, '', 0));
+    return reply.code(204).send();
+  });
+}
