@@ -32,31 +32,39 @@ export async function gradeBatch(grader: Grader, assignment: { id: number; setti
   return { assignmentId: assignment.id, settings: assignment.settings, settingsVersion: assignment.settingsVersion, items, graded };
 }
 
+type ToStore = { studentId: string; studentRowId: number; payloadJson: string; result: GradedForStore };
+
 /**
- * Stores the valid submissions of a checked batch (a new version each, with its result) in the
- * caller's transaction. An invalid submission, or one for a student not on the section's roster, is
- * listed with the reason and stored nowhere.
+ * Sorts a checked batch into what would be stored and what is refused: an invalid submission, or one
+ * for a student not on the section's roster, is listed with the reason. Stores nothing.
  */
-export async function storeBatch(db: Kysely<Database>, batch: GradedBatch, args: { sectionId: number; staffId: number }): Promise<BatchOutcome> {
+export async function screenBatch(db: Kysely<Database>, batch: GradedBatch, sectionId: number): Promise<{ toStore: ToStore[]; rejected: BatchOutcome['rejected'] }> {
   const { graded } = batch;
   const ids = graded.map((g) => g.studentId).filter((id): id is string => id !== null);
-  const roster = await rosterRows(db, args.sectionId, [...new Set(ids)]);
-  const outcome: BatchOutcome = { stored: [], rejected: [] };
-  const toStore: Array<{ studentId: string; studentRowId: number; payloadJson: string; result: GradedForStore }> = [];
+  const roster = await rosterRows(db, sectionId, [...new Set(ids)]);
+  const rejected: BatchOutcome['rejected'] = [];
+  const toStore: ToStore[] = [];
   batch.items.forEach((item, i) => {
     const result = graded[i];
     if (result.status === 'rejected') {
-      for (const r of result.rejected) outcome.rejected.push({ at: item.at, studentId: result.studentId, path: r.path, message: r.message });
+      for (const r of result.rejected) rejected.push({ at: item.at, studentId: result.studentId, path: r.path, message: r.message });
       return;
     }
     const row = roster.get(result.studentId!);
     if (row === undefined) {
-      outcome.rejected.push({ at: item.at, studentId: result.studentId, path: 'studentId', message: "not on this section's roster" });
+      rejected.push({ at: item.at, studentId: result.studentId, path: 'studentId', message: "not on this section's roster" });
       return;
     }
     // Stored as the schema reads it: fields it does not know are left out, whatever they hold.
     toStore.push({ studentId: result.studentId!, studentRowId: row, payloadJson: result.payloadJson!, result });
   });
+  return { toStore, rejected };
+}
+
+/** Stores the valid submissions of a checked batch (a new version each, with its result) in the caller's transaction. */
+export async function storeBatch(db: Kysely<Database>, batch: GradedBatch, args: { sectionId: number; staffId: number }): Promise<BatchOutcome> {
+  const { toStore, rejected } = await screenBatch(db, batch, args.sectionId);
+  const outcome: BatchOutcome = { stored: [], rejected };
   const stored = await storeGraded(db, batch.assignmentId, args.staffId, { settings: batch.settings, settingsVersion: batch.settingsVersion }, toStore);
   stored.forEach((s, i) => {
     const { studentId, result } = toStore[i];

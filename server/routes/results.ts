@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults } from '../grading/report-inputs.ts';
 import { studentsWithoutSubmission } from '../store/students.ts';
-import { releaseResults } from '../store/submissions.ts';
+import { latestResults, releaseResults } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
@@ -75,6 +75,18 @@ export const resultRoutes: RouteSpec[] = [
       const rows = await latestWithResults(db, scope.sectionId!, Number(p.assignmentId));
       const ids = rows.flatMap((r) => (r.result ? [r.result.resultId] : []));
       return { status: 200, body: { released: await releaseResults(db, ids, staffIdOf(caller)) } };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/submissions/:submissionId/release',
+    access: 'section',
+    summary: "Release one student's latest result (this version's) to the student",
+    schema: { params: z.object({ submissionId: IdParam }), response: { 200: z.object({ released: z.number() }) } },
+    transactional: true,
+    async handler({ db, params, caller }) {
+      const [row] = await latestResults(db, [Number(params.submissionId)]);
+      return { status: 200, body: { released: row ? await releaseResults(db, [row.resultId], staffIdOf(caller)) : 0 } };
     },
   },
 ];

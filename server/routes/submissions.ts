@@ -3,7 +3,7 @@ import { isStorableText, UNSTORABLE_TEXT } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
-import { gradeBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
+import { gradeBatch, screenBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
 import { submissionsFromMultipart } from './multipart-csv.ts';
@@ -62,7 +62,12 @@ export const submissionRoutes: RouteSpec[] = [
       params: z.object({ sectionId: IdParam, assignmentId: IdParam }),
       // Empty for a multipart upload, which the handler reads itself.
       body: z.array(z.unknown()).min(1, 'at least one submission').max(5000).nullish(),
-      response: { 201: z.object({ stored: z.array(Stored), rejected: z.array(Rejected) }) },
+      // A dry run checks the batch and lists what would be refused, storing nothing.
+      querystring: z.object({ dryRun: z.enum(['true', 'false']).default('false') }),
+      response: {
+        201: z.object({ stored: z.array(Stored), rejected: z.array(Rejected) }),
+        200: z.object({ dryRun: z.literal(true), valid: z.number(), rejected: z.array(Rejected) }),
+      },
     },
     readBody: async (request) => (request.isMultipart() ? submissionsFromMultipart(request) : request.body),
     idempotent: true,
@@ -74,7 +79,11 @@ export const submissionRoutes: RouteSpec[] = [
       assignmentOf(assignment.settings, 'settings');
       return gradeBatch(grader, assignment, submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })));
     },
-    async handler({ db, scope, caller, prepared }) {
+    async handler({ db, scope, caller, prepared, query }) {
+      if (query.dryRun === 'true') {
+        const { toStore, rejected } = await screenBatch(db, prepared as GradedBatch, scope.sectionId!);
+        return { status: 200, body: { dryRun: true, valid: toStore.length, rejected } };
+      }
       const outcome = await storeBatch(db, prepared as GradedBatch, { sectionId: scope.sectionId!, staffId: staffIdOf(caller) });
       if (outcome.stored.length === 0) {
         throw new ApiError('nothing-stored', undefined, outcome.rejected.map((r) => ({ path: `${r.at}.${r.path}`, message: r.message })));

@@ -42,6 +42,15 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,');
   });
 
+  it('a dry run lists what would be refused and stores nothing', async () => {
+    const [good, bad] = submissionsFor(['S-005', 'S-006'], 11);
+    (bad.runs[0].readings[1] as unknown[])[0] = 'soon';
+    const res = await call(api.app, 'POST', `${url()}/submissions?dryRun=true`, s.taAToken, [good, bad], 200);
+    expect(res.body).toEqual({ dryRun: true, valid: 1, rejected: [{ at: '[1]', studentId: 'S-006', path: 'runs[0].readings[1][0]', message: expect.any(String) }] });
+    const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
+    expect(table.body.find((r: { studentId: string }) => r.studentId === 'S-005').status).toBe('not-submitted');
+  });
+
   it('a resubmission is a new version; the old one stays readable', async () => {
     const [again] = submissionsFor(['S-001'], 7);
     const res = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [again], 201);
@@ -106,6 +115,11 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     const table0 = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     const draft = await api.app.inject({ method: 'GET', url: `/v1/submissions/${table0.body[0].submissionId}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(folded(await pdfText(draft.rawPayload))).toContain(DRAFT_NOTE);
+    // One student first: only their latest result is released.
+    const one = await call(api.app, 'POST', `/v1/submissions/${table0.body[0].submissionId}/release`, s.taAToken, undefined, 200);
+    expect(one.body.released).toBe(1);
+    const afterOne = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
+    expect(afterOne.body.filter((r: { released: boolean }) => r.released).map((r: { studentId: string }) => r.studentId)).toEqual([table0.body[0].studentId]);
     const released = await call(api.app, 'POST', `${url()}/release`, s.taAToken, undefined, 200);
     expect(released.body.released).toBeGreaterThan(0);
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);

@@ -57,6 +57,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/sections/:sectionId/students/:studentId/history': (f) => ({ url: `/v1/sections/${f.sectionA.id}/students/S-001/history` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/results': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/results` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/release': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/release` }),
+  'POST /v1/submissions/:submissionId/release': (f) => ({ url: `/v1/submissions/${f.submissionId}/release` }),
   'GET /v1/submissions/:submissionId/feedback.pdf': (f) => ({ url: `/v1/submissions/${f.submissionId}/feedback.pdf` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/feedback.zip': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/feedback.zip` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/summary.pdf': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/summary.pdf` }),
