@@ -13,6 +13,7 @@ import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
 import { callerOf } from './routes/caller.ts';
 import { registerSessionRoutes } from './routes/session-routes.ts';
+import { registerWorkspaceFiles } from './routes/workspace-files.ts';
 import { routes } from './routes/index.ts';
 import { ErrorResponse } from './routes/schemas.ts';
 import type { RouteContext, RouteSpec } from './routes/route-spec.ts';
@@ -206,5 +207,6 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   });
   for (const spec of routes) register(app, spec, options, { grader, regrades });
   registerSessionRoutes(app, options.store, options.config);
+  registerWorkspaceFiles(app);
   return app;
 }

@@ -1,0 +1,125 @@
+import { readFile, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { generateSection } from '../../server/demo/generated-section.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { generateAssignment } from '../../server/demo/submission-generator.ts';
+import { call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
+import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
+
+if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
+
+/**
+ * The workspace in a real headless Chromium against the service on a test database: a TA signs in,
+ * uploads a section (invented data from the generator), opens a student with slips, overrides a
+ * finding with a reason, releases, downloads the gradebook and signs out.
+ */
+describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
+  let api: Api;
+  let s: Seed;
+  let browser: Browser;
+  let origin: string;
+  const ids = ['S-001', 'S-002', 'S-003', 'S-004', 'S-005'];
+  const batchFile = join(tmpdir(), `rateproof-batch-${process.pid}.json`);
+
+  beforeAll(async () => {
+    api = await openApi();
+    s = await seedCourse(api.app);
+    origin = await api.app.listen({ port: 0, host: '127.0.0.1' });
+    // The roster has S-001..S-006; five submit, so one row shows as not submitted.
+    const { submissions } = generateSection(seededRandom(5), generateAssignment(seededRandom(5), { fitModel: 'origin' }), ids);
+    await writeFile(batchFile, JSON.stringify(submissions));
+    browser = await launchChromium();
+  }, 60_000);
+  afterAll(async () => {
+    await browser?.close();
+    await api?.close();
+  });
+
+  async function signIn(page: Page, token: string) {
+    await page.goto(origin);
+    await page.getByLabel('Staff token').fill(token);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText(/^Signed in as/).waitFor();
+  }
+
+  it('takes a TA from sign-in through upload, review, override and release to the gradebook and sign-out', async () => {
+    const context = await browser.newContext({ acceptDownloads: true });
+    const page = await context.newPage();
+    const pageErrors: string[] = [];
+    page.on('pageerror', (e) => pageErrors.push(String(e)));
+    await signIn(page, s.taAToken);
+    // The token is not kept by the page: not in storage, and the cookie is HttpOnly.
+    expect(await page.evaluate(() => JSON.stringify({ ...localStorage }) + JSON.stringify({ ...sessionStorage }) + document.cookie)).toBe('{}{}');
+
+    await page.getByRole('link', { name: s.assignment.title }).click();
+    await page.getByText('Add submissions').click();
+    await page.locator('#upload-files').setInputFiles(batchFile);
+    await page.getByRole('button', { name: 'Check files' }).click();
+    await page.getByText('5 submissions can be stored; 0 problems found. Nothing is stored yet.').waitFor();
+    expect((await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/results`, s.taAToken, undefined, 200)).body.filter((r: { submissionId: number | null }) => r.submissionId !== null)).toHaveLength(0);
+    await page.getByRole('button', { name: 'Store 5 submissions' }).click();
+    await page.getByText('Stored 5 submissions; 0 problems left out.').waitFor();
+    await page.getByText('Showing 6 of 6 students on the roster.').waitFor();
+    await expect.poll(() => page.locator('tr.missing th').allTextContents()).toEqual(['S-006']);
+
+    // A student with slips: the findings say they are likely causes; one is overridden with a reason.
+    await page.locator('tr.has-errors a').first().click();
+    await page.getByText('likely cause read from the numbers, for you to review: not a verdict').waitFor();
+    const finding = page.locator('li.finding.error').first();
+    const code = (await finding.locator('code').first().textContent())!;
+    await finding.getByText('Change the points of this finding').click();
+    await finding.getByLabel('Points lost').fill('0');
+    await finding.getByLabel('Reason (kept in the audit trail)').fill('the slip is only in the summary table');
+    await finding.getByRole('button', { name: 'Save the change' }).click();
+    await page.getByText(/changed [\d.]+ to 0 points lost: “the slip is only in the summary table”/).waitFor();
+    expect(await page.locator('li.finding.error').first().locator('code').first().textContent()).toBe(code);
+
+    // Release the section, after a confirmation that says how many.
+    await page.getByRole('link', { name: /^Section A/ }).click();
+    await page.getByRole('button', { name: 'Release results…' }).click();
+    await page.getByText('Release 5 results of this section to the students?').waitFor();
+    await page.getByRole('button', { name: 'Release 5 results' }).click();
+    await page.getByText('5 results released to students.').waitFor();
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Gradebook (CSV)' }).click()]);
+    const csv = (await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, '');
+    const lines = csv.trim().split('\r\n');
+    expect(lines[0]).toBe('student_id,score,max_score,status,errors,warnings,infos,main_codes');
+    expect(lines.slice(1).map((l) => l.split(',')[0]).sort()).toEqual([...ids, 'S-006']);
+    expect(lines.find((l) => l.startsWith('S-006,'))).toBe('S-006,,,not-submitted,0,0,0,');
+
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByLabel('Staff token').waitFor();
+    expect((await page.request.get(`${origin}/v1/me`)).status()).toBe(401);
+    expect(pageErrors).toEqual([]);
+    await context.close();
+  });
+
+  it('shows a hostile run label as text and runs nothing', async () => {
+    const [submission] = generateSection(seededRandom(9), generateAssignment(seededRandom(9), { fitModel: 'origin' }), ['S-006']).submissions;
+    submission.runs[0].label = '<img src=x onerror="window.__hostile=1">';
+    const stored = await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`, s.taAToken, [submission], 201);
+    const page = await browser.newPage();
+    await signIn(page, s.taAToken);
+    await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}/submission/${stored.body.stored[0].submissionId}`);
+    await page.getByText('k_obs, run <img src=x onerror="window.__hostile=1">').waitFor();
+    expect(await page.evaluate(() => (window as unknown as { __hostile?: number }).__hostile)).toBeUndefined();
+    expect(await page.locator('main img').count()).toBe(0);
+    await page.close();
+  });
+
+  it('shows a TA of another section nothing of this one', async () => {
+    const page = await browser.newPage();
+    await signIn(page, s.taBToken);
+    await page.getByRole('heading', { name: 'Your sections' }).waitFor();
+    expect(await page.getByText('Section A', { exact: true }).count()).toBe(0);
+    // Typing the address of section A's results leads back to their own sections.
+    await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}`);
+    await page.getByRole('heading', { name: 'Your sections' }).waitFor();
+    expect((await page.request.get(`${origin}/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/results`)).status()).toBe(404);
+    await page.close();
+  });
+});

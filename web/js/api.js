@@ -1,0 +1,54 @@
+/** Calls to the service under the session cookie; every change carries the page's x-csrf-token. */
+let csrfToken = null;
+
+export function setCsrfToken(token) {
+  csrfToken = token ?? null;
+}
+
+export class ApiFailure extends Error {
+  constructor(status, body) {
+    const error = body && typeof body === 'object' ? body.error : undefined;
+    super(error?.message ?? `the service answered ${status}`);
+    this.status = status;
+    this.details = error?.details ?? [];
+  }
+}
+
+export async function api(method, url, body) {
+  const headers = {};
+  if (method !== 'GET') headers['x-csrf-token'] = csrfToken ?? '';
+  let payload;
+  if (body instanceof FormData) payload = body;
+  else if (body !== undefined) {
+    headers['content-type'] = 'application/json';
+    payload = typeof body === 'string' ? body : JSON.stringify(body);
+  }
+  const res = await fetch(url, { method, headers, body: payload, credentials: 'same-origin' });
+  const type = res.headers.get('content-type') ?? '';
+  const data = res.status === 204 ? null : type.includes('json') ? await res.json() : await res.text();
+  if (!res.ok) throw new ApiFailure(res.status, data);
+  return data;
+}
+
+/** A POST with upload progress (fetch reports none): `onProgress(fraction)` as the body goes out. */
+export function upload(url, body, contentType, onProgress) {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', url);
+    xhr.setRequestHeader('x-csrf-token', csrfToken ?? '');
+    if (contentType) xhr.setRequestHeader('content-type', contentType);
+    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
+    xhr.onload = () => {
+      let data = null;
+      try {
+        data = JSON.parse(xhr.responseText);
+      } catch {
+        data = xhr.responseText;
+      }
+      if (xhr.status >= 200 && xhr.status < 300) resolve(data);
+      else reject(new ApiFailure(xhr.status, data));
+    };
+    xhr.onerror = () => reject(new ApiFailure(0, null));
+    xhr.send(body);
+  });
+}

@@ -1,0 +1,106 @@
+import { api, ApiFailure, setCsrfToken } from './api.js';
+import { fill, h } from './dom.js';
+import { sectionView } from './section-view.js';
+import { signInView } from './sign-in.js';
+import { studentView } from './student-view.js';
+
+/**
+ * The workspace: one page, its place kept in the address (#/section/1/assignment/2, and
+ * /submission/7 for one student), so the browser's back button and bookmarks work.
+ */
+const main = document.getElementById('main');
+const who = document.getElementById('who');
+let me = null;
+
+function show(...nodes) {
+  fill(main, ...nodes);
+}
+
+function failure(error) {
+  if (error instanceof ApiFailure && error.status === 401) {
+    me = null;
+    return route();
+  }
+  show(h('p', { class: 'form-error', role: 'alert' }, error.message));
+}
+
+async function signOut() {
+  try {
+    await api('DELETE', '/v1/session');
+  } finally {
+    me = null;
+    setCsrfToken(null);
+    location.hash = '#/';
+    route();
+  }
+}
+
+function header() {
+  const role = { ta: 'teaching assistant', instructor: 'instructor', admin: 'administrator' }[me.role];
+  fill(who, h('span', {}, `Signed in as ${me.handle ?? 'admin'} (${role})`), h('button', { type: 'button', class: 'quiet', onclick: signOut }, 'Sign out'));
+}
+
+/** The courses, sections and assignments the caller may open. */
+function home() {
+  const list = me.courses.map((course) =>
+    h(
+      'section',
+      { class: 'panel' },
+      h('h2', {}, course.name),
+      course.sections.length === 0
+        ? h('p', { class: 'hint' }, 'No section of this course is assigned to you.')
+        : h(
+            'ul',
+            { class: 'picker' },
+            course.sections.map((section) =>
+              h(
+                'li',
+                {},
+                h('span', { class: 'picker-section' }, `Section ${section.name}`),
+                course.assignments.length === 0
+                  ? h('span', { class: 'hint' }, ' no assignments yet')
+                  : course.assignments.map((a) => h('a', { class: 'chip', href: `#/section/${section.id}/assignment/${a.id}` }, a.title)),
+              ),
+            ),
+          ),
+    ),
+  );
+  show(h('h1', {}, 'Your sections'), ...list);
+}
+
+function context(sectionId, assignmentId) {
+  for (const course of me.courses) {
+    const section = course.sections.find((s) => s.id === sectionId);
+    const assignment = course.assignments.find((a) => a.id === assignmentId);
+    if (section && assignment) return { course, section, assignment };
+  }
+  return undefined;
+}
+
+async function route() {
+  try {
+    if (!me) {
+      try {
+        me = await api('GET', '/v1/me');
+        setCsrfToken(me.csrfToken);
+      } catch (error) {
+        if (!(error instanceof ApiFailure) || error.status !== 401) throw error;
+        fill(who);
+        show(signInView(route));
+        return;
+      }
+    }
+    header();
+    const m = /^#\/section\/(\d+)\/assignment\/(\d+)(?:\/submission\/(\d+))?$/.exec(location.hash);
+    const place = m && context(Number(m[1]), Number(m[2]));
+    if (!place) return home();
+    if (m[3]) show(await studentView(place, Number(m[3]), failure));
+    else show(await sectionView(place, failure));
+    main.focus();
+  } catch (error) {
+    failure(error);
+  }
+}
+
+window.addEventListener('hashchange', route);
+route();

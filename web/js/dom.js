@@ -1,0 +1,59 @@
+/**
+ * Building the page without HTML strings: every text, student-supplied or not, enters the document
+ * as a text node or an attribute value, so a label like <img src=x onerror=...> is shown, never run.
+ */
+export function h(tag, props = {}, ...children) {
+  const el = document.createElement(tag);
+  setProps(el, props);
+  append(el, children);
+  return el;
+}
+
+const SVG = 'http://www.w3.org/2000/svg';
+
+export function s(tag, props = {}, ...children) {
+  const el = document.createElementNS(SVG, tag);
+  setProps(el, props);
+  append(el, children);
+  return el;
+}
+
+function setProps(el, props) {
+  for (const [key, value] of Object.entries(props)) {
+    if (value === undefined || value === null || value === false) continue;
+    if (key.startsWith('on')) el.addEventListener(key.slice(2), value);
+    else if (key === 'class') el.setAttribute('class', value);
+    else el.setAttribute(key, value === true ? '' : String(value));
+  }
+}
+
+/** Replaces an element's children, skipping null, undefined and false (replaceChildren would print them). */
+export function fill(el, ...children) {
+  el.replaceChildren();
+  append(el, children);
+  return el;
+}
+
+function append(el, children) {
+  for (const child of children.flat(Infinity)) {
+    if (child === null || child === undefined || child === false) continue;
+    el.append(child instanceof Node ? child : String(child));
+  }
+}
+
+/** A number as people read it: up to 4 significant figures, exponent form for the very small or large. */
+export function num(value) {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
+  if (value === 0) return '0';
+  const a = Math.abs(value);
+  if (a >= 1e-3 && a < 1e5) return String(Number(value.toPrecision(4)));
+  const [mantissa, exponent] = value.toExponential(3).split('e');
+  return `${mantissa}×10${[...String(Number(exponent))].map((c) => SUPERSCRIPT[c]).join('')}`;
+}
+
+const SUPERSCRIPT = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
+
+export function when(iso) {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '' : d.toLocaleString();
+}

@@ -1,0 +1,161 @@
+import { api } from './api.js';
+import { fill, h, num } from './dom.js';
+import { uploadPanel } from './upload-panel.js';
+
+const STATUS_FILTERS = {
+  all: ['Every student', () => true],
+  errors: ['With errors', (r) => r.errors > 0],
+  checked: ['Checked', (r) => r.status === 'checked'],
+  rejected: ['Refused by the checker', (r) => r.status === 'rejected'],
+  'not-submitted': ['Not submitted', (r) => r.status === 'not-submitted'],
+  unreleased: ['Not yet released', (r) => r.submissionId !== null && !r.released],
+};
+
+const COLUMNS = [
+  ['studentId', 'Student'],
+  ['version', 'Version'],
+  ['status', 'Status'],
+  ['score', 'Score'],
+  ['errors', 'Errors'],
+  ['warnings', 'Warnings'],
+  ['codes', 'Findings'],
+  ['released', 'Released'],
+];
+
+const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted': 'not submitted' };
+
+/** One section's results for one assignment: every roster student, filters, counts, release, files. */
+export async function sectionView(place, failure) {
+  const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
+  const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
+  let rows = await api('GET', `${base}/results`);
+
+  const body = h('tbody');
+  const shown = h('p', { class: 'hint', 'aria-live': 'polite' });
+  const codeSelect = h('select', { id: 'filter-code', onchange: () => ((state.code = codeSelect.value), draw()) });
+  const counts = h('div', { class: 'code-counts' });
+  const releaseArea = h('div', { class: 'release' });
+  const headRow = h('tr');
+
+  const compare = (a, b) => {
+    const key = state.sort;
+    const x = key === 'codes' ? a.codes.length : a[key];
+    const y = key === 'codes' ? b.codes.length : b[key];
+    const order = x === y ? 0 : x === null ? 1 : y === null ? -1 : x < y ? -1 : 1;
+    return state.descending ? -order : order;
+  };
+
+  function drawCounts() {
+    const byCode = new Map();
+    for (const r of rows) for (const c of r.codes) byCode.set(c, (byCode.get(c) ?? 0) + 1);
+    const codes = [...byCode.entries()].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1));
+    fill(codeSelect, h('option', { value: '' }, 'Any finding'), ...codes.map(([c, n]) => h('option', { value: c, selected: c === state.code }, `${c} (${n})`)));
+    fill(counts,
+      h('h3', {}, 'How many students share each finding'),
+      codes.length === 0
+        ? h('p', { class: 'hint' }, 'No findings yet.')
+        : h('ul', { class: 'chips' }, codes.map(([c, n]) => h('li', {}, h('button', { type: 'button', class: `chip${state.code === c ? ' on' : ''}`, 'aria-pressed': String(state.code === c), onclick: () => ((state.code = state.code === c ? '' : c), draw()) }, `${c} · ${n}`)))),
+    );
+  }
+
+  function drawRelease() {
+    const pending = rows.filter(STATUS_FILTERS.unreleased[1]).length;
+    const ask = h('button', { type: 'button', class: 'primary', disabled: pending === 0, onclick: () => confirmRelease(pending) }, pending === 0 ? 'Every result is released' : `Release results…`);
+    fill(releaseArea, ask);
+  }
+
+  function confirmRelease(pending) {
+    const yes = h('button', { type: 'button', class: 'primary', onclick: async () => {
+      try {
+        const { released } = await api('POST', `${base}/release`);
+        rows = await api('GET', `${base}/results`);
+        draw();
+        releaseArea.append(h('p', { role: 'status' }, `${released} result${released === 1 ? '' : 's'} released to students.`));
+      } catch (error) {
+        failure(error);
+      }
+    } }, `Release ${pending} result${pending === 1 ? '' : 's'}`);
+    const no = h('button', { type: 'button', class: 'quiet', onclick: drawRelease }, 'Cancel');
+    fill(releaseArea, h('p', { role: 'alert' }, `Release ${pending} result${pending === 1 ? '' : 's'} of this section to the students? They will see their feedback sheets; overrides can still be made later and are released the same way.`), yes, no);
+    yes.focus();
+  }
+
+  function drawHead() {
+    fill(headRow,
+      ...COLUMNS.map(([key, label]) => {
+        const sorted = state.sort === key;
+        return h(
+          'th',
+          { scope: 'col', 'aria-sort': sorted ? (state.descending ? 'descending' : 'ascending') : 'none' },
+          h('button', { type: 'button', class: 'sort', onclick: () => ((state.descending = sorted && !state.descending), (state.sort = key), draw()) }, label, sorted ? (state.descending ? ' ▼' : ' ▲') : ''),
+        );
+      }),
+    );
+  }
+
+  function draw() {
+    drawHead();
+    drawCounts();
+    drawRelease();
+    const keep = STATUS_FILTERS[state.status][1];
+    const needle = state.search.trim().toLowerCase();
+    const visible = rows.filter((r) => keep(r) && (!state.code || r.codes.includes(state.code)) && (!needle || r.studentId.toLowerCase().includes(needle))).sort(compare);
+    fill(body,
+      ...visible.map((r) =>
+        h(
+          'tr',
+          { class: r.status === 'not-submitted' ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
+          h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId)),
+          h('td', {}, r.version ?? '–'),
+          h('td', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
+          h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`),
+          h('td', { class: 'number' }, r.errors),
+          h('td', { class: 'number' }, r.warnings),
+          h('td', {}, r.codes.join(', ')),
+          h('td', {}, r.submissionId === null ? '' : r.released ? 'yes' : 'no'),
+        ),
+      ),
+    );
+    shown.textContent = `Showing ${visible.length} of ${rows.length} students on the roster.`;
+  }
+
+  const statusSelect = h('select', { id: 'filter-status', onchange: () => ((state.status = statusSelect.value), draw()) }, Object.entries(STATUS_FILTERS).map(([value, [label]]) => h('option', { value }, label)));
+  const search = h('input', { id: 'filter-student', type: 'search', oninput: () => ((state.search = search.value), draw()) });
+  const refresh = async () => {
+    rows = await api('GET', `${base}/results`);
+    draw();
+  };
+  draw();
+  return h(
+    'div',
+    { class: 'section-view' },
+    h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', place.course.name),
+    h('h1', {}, `Section ${place.section.name} · ${place.assignment.title}`),
+    h(
+      'div',
+      { class: 'toolbar' },
+      releaseArea,
+      h(
+        'nav',
+        { class: 'downloads', 'aria-label': 'Downloads' },
+        h('a', { href: `${base}/gradebook.csv?bom=true`, download: '' }, 'Gradebook (CSV)'),
+        h('a', { href: `${base}/summary.pdf`, download: '' }, 'Section summary (PDF)'),
+        h('a', { href: `${base}/feedback.zip`, download: '' }, 'Every feedback sheet (ZIP)'),
+      ),
+    ),
+    uploadPanel(base, refresh, failure),
+    counts,
+    h(
+      'div',
+      { class: 'filters' },
+      h('label', { for: 'filter-status' }, 'Show'),
+      statusSelect,
+      h('label', { for: 'filter-code' }, 'Finding'),
+      codeSelect,
+      h('label', { for: 'filter-student' }, 'Student id'),
+      search,
+    ),
+    shown,
+    h('div', { class: 'table-wrap' }, h('table', { class: 'results' }, h('caption', {}, 'Latest result of each student'), h('thead', {}, headRow), body)),
+  );
+}

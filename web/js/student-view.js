@@ -1,0 +1,150 @@
+import { api } from './api.js';
+import { fill, h, num, when } from './dom.js';
+import { lnFPlot, ratePlot } from './plots.js';
+
+const STAGES = [
+  ['readings', 'The readings'],
+  ['run', 'Each run: ln F and k_obs'],
+  ['rate-law', 'The rate law: k_N and k_A'],
+  ['reporting', 'Reporting: units and rounding'],
+];
+// Molar factors for the plot's concentration axis; other units leave the plot out rather than guess.
+const TO_MOLAR = { M: 1, N: 1, mM: 1e-3, mN: 1e-3, uM: 1e-6, 'µM': 1e-6 };
+
+function tolerance(tol, unit) {
+  if (!tol) return '–';
+  const parts = [];
+  if (tol.relative !== undefined) parts.push(`${num(tol.relative * 100)} %`);
+  if (tol.absolute !== undefined) parts.push(`${num(tol.absolute)}${unit ? ` ${unit}` : ''}`);
+  return `± ${parts.join(' or ')}`;
+}
+
+const valueText = (v, unit) => (v ? `${v.value}${v.uncertainty !== undefined ? ` ± ${v.uncertainty}` : ''} ${v.unit ?? unit ?? ''}`.trim() : 'not given');
+const estimateText = (e) => (e ? `${num(e.value)} ± ${num(e.standardError)} ${e.unit}` : '–');
+
+/** Reported against refit, with the tolerance each is judged by. */
+function comparisonTable(payload, refit, settings) {
+  const rows = (payload.runs ?? []).map((run, i) => [`k_obs, run ${run.label}`, valueText(run.reported?.k), estimateText(refit?.runs?.[i]?.k?.instructor), tolerance(settings?.tolerances?.k)]);
+  for (const [key, label] of [['kN', 'k_N'], ['kA', 'k_A']]) {
+    if (payload.reported?.[key] || refit?.[key]) rows.push([label, valueText(payload.reported?.[key]), estimateText(refit?.[key]), tolerance(settings?.tolerances?.[key])]);
+  }
+  return h(
+    'table',
+    { class: 'comparison' },
+    h('caption', {}, 'Reported values against the refit from the student’s own readings'),
+    h('thead', {}, h('tr', {}, ['Quantity', 'Reported', 'Refit', 'Tolerance'].map((t) => h('th', { scope: 'col' }, t)))),
+    h('tbody', {}, rows.map(([q, ...cells]) => h('tr', {}, h('th', { scope: 'row' }, q), cells.map((c) => h('td', {}, c))))),
+  );
+}
+
+function plots(payload, refit, settings) {
+  const runs = (payload.runs ?? []).map((run, i) => {
+    const fit = refit?.runs?.[i];
+    const t = run.readings.map((r) => Number(r[0]) - Number(run.readings[0][0]));
+    const lnF = fit?.lnF ?? [];
+    const k = fit?.k?.declared?.value ?? fit?.k?.instructor?.value;
+    // The intercept of the least-squares line with slope -k (0 for the origin model).
+    const pts = t.map((x, j) => [x, lnF[j]]).filter(([, y]) => Number.isFinite(y));
+    const intercept = fit?.model === 'intercept' && pts.length ? pts.reduce((a, [x, y]) => a + y + k * x, 0) / pts.length : 0;
+    return { label: run.label, t, lnF, k, intercept, timeUnit: run.timeUnit };
+  });
+  const out = [];
+  const withLnF = runs.filter((r) => r.lnF.length > 0);
+  // One time unit on one axis: runs in another unit are left out of the plot, never rescaled silently.
+  if (withLnF.length) out.push(lnFPlot(withLnF.filter((r) => r.timeUnit === withLnF[0].timeUnit), withLnF[0].timeUnit));
+  const points = (payload.runs ?? []).map((run, i) => ({ label: run.label, c: Number(run.catalyst.value) * (TO_MOLAR[run.catalyst.unit.trim()] ?? NaN), k: refit?.runs?.[i]?.k?.instructor?.value }));
+  if (refit?.kN && refit?.kA && points.every((p) => Number.isFinite(p.c) && Number.isFinite(p.k))) out.push(ratePlot(points, refit.kN.value, refit.kA.value, settings?.units?.k ?? ''));
+  return out.length ? h('div', { class: 'plots' }, out) : h('p', { class: 'hint' }, 'No refit to plot.');
+}
+
+/** One student's latest result: findings by stage, overrides, the comparison, the plots, the versions. */
+export async function studentView(place, submissionId, failure) {
+  const base = `#/section/${place.section.id}/assignment/${place.assignment.id}`;
+  let view = await api('GET', `/v1/submissions/${submissionId}`);
+  const [history, assignment] = await Promise.all([
+    api('GET', `/v1/sections/${place.section.id}/students/${encodeURIComponent(view.studentId)}/history?assignmentId=${place.assignment.id}`),
+    api('GET', `/v1/assignments/${place.assignment.id}`),
+  ]);
+  const root = h('div', { class: 'student-view' });
+
+  async function override(findingId, pointsLost, reason, message) {
+    try {
+      view = await api('POST', `/v1/submissions/${submissionId}/overrides`, { findingId, pointsLost, reason });
+      draw();
+      root.querySelector('[role=status]')?.focus();
+    } catch (error) {
+      if (error.status === 400) message.textContent = error.details.map((d) => `${d.path.replace('body.', '')}: ${d.message}`).join('; ') || error.message;
+      else failure(error);
+    }
+  }
+
+  function findingCard(f) {
+    const trail = view.overrides.filter((o) => o.findingId === f.id);
+    const message = h('p', { class: 'form-error', role: 'alert' });
+    const key = f.id.replace(/[^A-Za-z0-9]/g, '-');
+    const points = h('input', { id: `points-${key}`, type: 'number', min: '0', step: '0.5', value: String(f.pointsLost), required: true });
+    const reason = h('textarea', { id: `reason-${key}`, rows: '2', required: true, minlength: '3' });
+    const form = h(
+      'form',
+      { class: 'override', onsubmit: (e) => (e.preventDefault(), override(f.id, Number(points.value), reason.value, message)) },
+      h('label', { for: `points-${key}` }, 'Points lost'),
+      points,
+      h('label', { for: `reason-${key}` }, 'Reason (kept in the audit trail)'),
+      reason,
+      h('button', { type: 'submit' }, 'Save the change'),
+      message,
+    );
+    return h(
+      'li',
+      { class: `finding ${f.severity}` },
+      h('p', { class: 'finding-head' }, h('span', { class: `badge ${f.severity}` }, f.severity), ' ', h('code', {}, f.code), ' · ', h('span', {}, `${num(f.pointsLost)} point${f.pointsLost === 1 ? '' : 's'} lost`), f.override ? h('span', { class: 'overridden' }, ` (changed from ${num(f.override.originalPointsLost)} by ${f.override.by})`) : null),
+      h('p', {}, f.message),
+      h('p', { class: 'hint' }, h('code', {}, f.path)),
+      trail.length ? h('ul', { class: 'trail' }, trail.map((o) => h('li', {}, `${when(o.at)}: ${o.by} changed ${num(o.pointsBefore)} to ${num(o.pointsAfter)} points lost: “${o.reason}”`))) : null,
+      h('details', {}, h('summary', {}, 'Change the points of this finding'), form),
+    );
+  }
+
+  function draw() {
+    const result = view.result;
+    const findings = result?.findings ?? [];
+    const versions = h(
+      'select',
+      { id: 'version', onchange: (e) => (location.hash = `${base}/submission/${e.target.value}`) },
+      history.map((v) => h('option', { value: String(v.submissionId), selected: v.submissionId === submissionId }, `version ${v.version}, ${when(v.submittedAt)}${v.result ? `, ${v.result.score ?? '–'} / ${v.result.maxScore}` : ''}`)),
+    );
+    const releaseArea = h('div', { class: 'release' });
+    const askRelease = () => {
+      const yes = h('button', { type: 'button', class: 'primary', onclick: async () => {
+        try {
+          await api('POST', `/v1/submissions/${submissionId}/release`);
+          view = await api('GET', `/v1/submissions/${submissionId}`);
+          draw();
+        } catch (error) {
+          failure(error);
+        }
+      } }, 'Release to the student');
+      fill(releaseArea, h('p', { role: 'alert' }, `Release this result (${view.studentId}, version ${view.version}) to the student?`), yes, h('button', { type: 'button', class: 'quiet', onclick: draw }, 'Cancel'));
+      yes.focus();
+    };
+    releaseArea.append(
+      result?.releasedAt ? h('p', {}, `Released ${when(result.releasedAt)}.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, 'Release this result…'),
+    );
+    fill(root,
+      h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', h('a', { href: base }, `Section ${place.section.name} · ${place.assignment.title}`)),
+      h('h1', {}, `Student ${view.studentId}`),
+      h('div', { class: 'toolbar' }, h('div', {}, h('label', { for: 'version' }, 'Version '), versions), releaseArea, h('nav', { class: 'downloads', 'aria-label': 'Downloads' }, h('a', { href: `/v1/submissions/${submissionId}/feedback.pdf`, download: '' }, 'Feedback sheet (PDF)'))),
+      h('p', { class: 'score', role: 'status', tabindex: '-1' }, result ? (result.status === 'checked' ? `Score ${num(result.score)} of ${num(result.maxScore)}` : 'Refused by the checker: the data could not be graded') : 'Not graded yet'),
+      h('p', { class: 'caution' }, 'Each cause named below is a likely cause read from the numbers, for you to review: not a verdict. You can change the points of any finding, with a reason; nothing reaches the student until you release it.'),
+      result?.status === 'rejected' ? h('ul', {}, (result.rejected ?? []).map((r) => h('li', {}, h('code', {}, r.path), ` ${r.message}`))) : null,
+      ...STAGES.map(([stage, title]) => {
+        const here = findings.filter((f) => f.stage === stage);
+        return here.length ? h('section', { class: 'stage' }, h('h2', {}, title), h('ul', { class: 'findings' }, here.map(findingCard))) : null;
+      }),
+      findings.length === 0 && result?.status === 'checked' ? h('p', {}, 'No findings: every checked value agrees with the refit.') : null,
+      h('section', {}, h('h2', {}, 'Reported and refitted'), comparisonTable(view.payload ?? {}, result?.refit, assignment.settings), plots(view.payload ?? {}, result?.refit, assignment.settings)),
+    );
+  }
+  draw();
+  return root;
+}

@@ -1,0 +1,92 @@
+import { ApiFailure, upload } from './api.js';
+import { fill, h } from './dom.js';
+
+/**
+ * Adding submissions: choose or drop a JSON batch, or the readings and reported CSV files; the batch
+ * is checked first (nothing stored) and its problems listed by place, field and reason; then stored.
+ */
+export function uploadPanel(base, refresh, failure) {
+  let files = [];
+  const chosen = h('p', { class: 'hint', id: 'upload-chosen' }, 'No files chosen.');
+  const progress = h('progress', { max: '1', value: '0', hidden: true, 'aria-label': 'Upload progress' });
+  const outcome = h('div', { class: 'upload-outcome', 'aria-live': 'polite' });
+  const input = h('input', { id: 'upload-files', type: 'file', multiple: true, accept: '.json,.csv,application/json,text/csv', onchange: () => choose([...input.files]) });
+  const check = h('button', { type: 'button', class: 'primary', disabled: true, onclick: () => send(true) }, 'Check files');
+
+  function choose(list) {
+    files = list.filter((f) => /\.(json|csv)$/i.test(f.name));
+    chosen.textContent = files.length ? `Chosen: ${files.map((f) => f.name).join(', ')}` : 'Choose a .json batch, or readings and reported .csv files.';
+    check.disabled = files.length === 0;
+    fill(outcome);
+  }
+
+  /** The request body: a JSON batch as it is, CSV files as the multipart upload the API reads. */
+  async function body() {
+    const json = files.find((f) => /\.json$/i.test(f.name));
+    if (json) return { data: await json.text(), type: 'application/json' };
+    const form = new FormData();
+    const reported = files.find((f) => /report/i.test(f.name));
+    const readings = files.find((f) => f !== reported);
+    if (readings) form.append('readings', readings, readings.name);
+    if (reported) form.append('reported', reported, reported.name);
+    return { data: form, type: undefined };
+  }
+
+  async function send(dryRun) {
+    progress.hidden = false;
+    progress.value = 0;
+    fill(outcome, h('p', {}, dryRun ? 'Checking…' : 'Storing…'));
+    try {
+      const { data, type } = await body();
+      const answer = await upload(`${base}/submissions${dryRun ? '?dryRun=true' : ''}`, data, type, (f) => (progress.value = f));
+      progress.hidden = true;
+      if (dryRun) showCheck(answer);
+      else {
+        fill(outcome, h('p', { role: 'status' }, `Stored ${answer.stored.length} submission${answer.stored.length === 1 ? '' : 's'}; ${answer.rejected.length} problem${answer.rejected.length === 1 ? '' : 's'} left out.`));
+        await refresh();
+      }
+    } catch (error) {
+      progress.hidden = true;
+      if (error instanceof ApiFailure && error.status < 500 && error.status !== 401) {
+        fill(outcome, h('p', { class: 'form-error', role: 'alert' }, error.message), problems(error.details.map((d) => ({ at: '', studentId: null, path: d.path, message: d.message }))));
+      } else failure(error);
+    }
+  }
+
+  function showCheck(answer) {
+    const store = h('button', { type: 'button', class: 'primary', onclick: () => send(false) }, `Store ${answer.valid} submission${answer.valid === 1 ? '' : 's'}`);
+    fill(outcome,
+      h('p', { role: 'status' }, `${answer.valid} submission${answer.valid === 1 ? '' : 's'} can be stored; ${answer.rejected.length} problem${answer.rejected.length === 1 ? '' : 's'} found. Nothing is stored yet.`),
+      answer.rejected.length ? problems(answer.rejected) : null,
+      answer.valid > 0 ? store : null,
+    );
+  }
+
+  const zone = h(
+    'div',
+    {
+      class: 'drop-zone',
+      ondragover: (e) => (e.preventDefault(), zone.classList.add('over')),
+      ondragleave: () => zone.classList.remove('over'),
+      ondrop: (e) => {
+        e.preventDefault();
+        zone.classList.remove('over');
+        choose([...e.dataTransfer.files]);
+      },
+    },
+    h('label', { for: 'upload-files' }, 'Choose files, or drop them here'),
+    input,
+    chosen,
+  );
+  return h('details', { class: 'panel upload' }, h('summary', {}, 'Add submissions'), zone, h('div', { class: 'row' }, check, progress), outcome);
+}
+
+function problems(list) {
+  return h(
+    'table',
+    { class: 'problems' },
+    h('caption', {}, 'Problems, by place in the files'),
+    h('thead', {}, h('tr', {}, h('th', { scope: 'col' }, 'Where'), h('th', { scope: 'col' }, 'Student'), h('th', { scope: 'col' }, 'Field'), h('th', { scope: 'col' }, 'Reason'))),
+    h('tbody', {}, list.map((p) => h('tr', {}, h('td', {}, p.at), h('td', {}, p.studentId ?? ''), h('td', {}, h('code', {}, p.path)), h('td', {}, p.message)))),
+  );
+}
