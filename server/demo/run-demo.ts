@@ -78,7 +78,8 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
       write(`${r.studentId!.padEnd(8)} ${`${r.score}/${r.maxScore}`.padEnd(7)} ${made.padEnd(29)} ${codes}`);
     }
     write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/`);
-    write(`the demo database stays in ${dataDir}: RATEPROOF_DATA_DIR=${dataDir} npm start, then use the TA token below`);
+    write(`the demo database stays in ${dataDir}. To open the workspace on it:`);
+    write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with the TA token`);
     write(`TA token (section ${section.id}, assignment ${assignment.id}): ${taToken}`);
   } finally {
     await app.close();

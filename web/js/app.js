@@ -96,7 +96,9 @@ async function route() {
     if (!place) return home();
     if (m[3]) show(await studentView(place, Number(m[3]), failure));
     else show(await sectionView(place, failure));
-    main.focus();
+    // Focus moves to the new content for keyboard and screen-reader users; the page starts at its top.
+    main.focus({ preventScroll: true });
+    window.scrollTo(0, 0);
   } catch (error) {
     failure(error);
   }

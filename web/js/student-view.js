@@ -54,7 +54,7 @@ function plots(payload, refit, settings) {
   if (withLnF.length) out.push(lnFPlot(withLnF.filter((r) => r.timeUnit === withLnF[0].timeUnit), withLnF[0].timeUnit));
   const points = (payload.runs ?? []).map((run, i) => ({ label: run.label, c: Number(run.catalyst.value) * (TO_MOLAR[run.catalyst.unit.trim()] ?? NaN), k: refit?.runs?.[i]?.k?.instructor?.value }));
   if (refit?.kN && refit?.kA && points.every((p) => Number.isFinite(p.c) && Number.isFinite(p.k))) out.push(ratePlot(points, refit.kN.value, refit.kA.value, settings?.units?.k ?? ''));
-  return out.length ? h('div', { class: 'plots' }, out) : h('p', { class: 'hint' }, 'No refit to plot.');
+  return out.length ? h('figure', { class: 'plots' }, out, h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, lines the fitted k_obs; on the right, k_obs of each run against its catalyst concentration and the line k_N + k_A [catalyst].')) : h('p', { class: 'hint' }, 'No refit to plot.');
 }
 
 /** One student's latest result: findings by stage, overrides, the comparison, the plots, the versions. */
