@@ -184,14 +184,7 @@ function checkPlausible(c: Constant, value: number, uncertainty: number | undefi
 export function checkRateLaw(submission: Submission, refit: RateLawRefit | undefined, settings: Settings, drafts: DraftFinding[]): void {
   if (!refit) return;
   if (refit.unweightedBecause) {
-    drafts.push({
-      code: 'refit-note',
-      path: 'reported',
-      stage: 'rate-law',
-      severity: 'info',
-      charge: 0,
-      message: `The assignment asks for a weighted fit of k_obs against the catalyst concentration, but ${refit.unweightedBecause}. k_N and k_A were checked against the ordinary (unweighted) fit instead.`,
-    });
+    noteRefit(drafts, `The assignment asks for a weighted fit of k_obs against the catalyst concentration, but ${refit.unweightedBecause}. k_N and k_A were checked against the ordinary (unweighted) fit instead.`);
   }
   if (refit.weightedFit) noteConvention(refit, settings, drafts);
   for (const c of CONSTANTS) checkConstant(c, submission.reported?.[c.name], refit, settings, drafts);
@@ -212,15 +205,15 @@ function noteConvention(refit: RateLawRefit, settings: Settings, drafts: DraftFi
     settings.weightedErrors === 'either'
       ? 'Either convention is accepted.'
       : `The assignment asks for the ${settings.weightedErrors === 'absolute' ? 'first' : 'second'}; the standard errors are checked against it.`;
-  drafts.push({
-    code: 'refit-note',
-    path: 'reported',
-    stage: 'rate-law',
-    severity: 'info',
-    charge: 0,
-    message:
-      `The weighted fit of k_obs against the catalyst concentration has a reduced chi-square of ${fmt(w.reducedChiSquared)}: the k_obs scatter about the line ` +
+  noteRefit(
+    drafts,
+    `The weighted fit of k_obs against the catalyst concentration has a reduced chi-square of ${fmt(w.reducedChiSquared)}: the k_obs scatter about the line ` +
       `${ratio > 1 ? 'more' : 'less'} than their standard errors imply, so the standard errors of k_N and k_A depend on the convention. ` +
       `With each SE of k_obs taken as absolute: ${absolute}. Scaled by the scatter about the line (times ${fmt(ratio)}): ${scaled}. ${accepted}`,
-  });
+  );
+}
+
+/** An information note on the rate law's refit: no points, for the TA to see why it was done so. */
+function noteRefit(drafts: DraftFinding[], message: string): void {
+  drafts.push({ code: 'refit-note', path: 'reported', stage: 'rate-law', severity: 'info', charge: 0, message });
 }
