@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
-import { createCourse, createSection, createStaff, getCourse, getStaff, listSections } from '../store/courses.ts';
+import { createCourse, createSection, createStaff, getCourse, getStaff, listSections, listStaff } from '../store/courses.ts';
 import { createToken, revokeTokens } from '../store/tokens.ts';
 import { mayManage } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -77,6 +77,16 @@ export const courseRoutes: RouteSpec[] = [
       const foreign = sectionIds.findIndex((id) => !own.has(id));
       if (foreign >= 0) throw new ApiError('invalid-input', undefined, [{ path: `body.sectionIds[${foreign}]`, message: 'no such section in this course' }]);
       return { status: 201, body: await createStaff(db, scope.courseId!, handle, role, role === 'ta' ? sectionIds : []) };
+    },
+  },
+  {
+    method: 'GET',
+    url: '/v1/courses/:courseId/staff',
+    access: 'instructor',
+    summary: "The course's staff: role, the sections each TA teaches, and how many live tokens each holds",
+    schema: { params: z.object({ courseId: IdParam }), response: { 200: z.array(Staff.extend({ liveTokens: z.number() })) } },
+    async handler({ db, scope }) {
+      return { status: 200, body: await listStaff(db, scope.courseId!) };
     },
   },
   {

@@ -46,3 +46,17 @@ export async function listCourses(db: Kysely<Database>, ids?: number[]) {
   }
   return query.execute();
 }
+
+/** A course's staff with the sections each TA teaches and how many live tokens each holds. */
+export async function listStaff(db: Kysely<Database>, courseId: number) {
+  const staff = await db
+    .selectFrom('staff')
+    .select(['id', 'course_id as courseId', 'handle', 'role'])
+    .select((eb) => eb.selectFrom('api_tokens').select(eb.fn.countAll<string>().as('n')).whereRef('api_tokens.staff_id', '=', 'staff.id').where('api_tokens.revoked_at', 'is', null).as('liveTokens'))
+    .where('course_id', '=', courseId)
+    .orderBy('id')
+    .execute();
+  const ids = staff.map((s) => s.id);
+  const links = ids.length ? await db.selectFrom('ta_sections').select(['staff_id', 'section_id']).where('staff_id', 'in', ids).execute() : [];
+  return staff.map((s) => ({ ...s, liveTokens: Number(s.liveTokens ?? 0), sectionIds: links.filter((l) => l.staff_id === s.id).map((l) => l.section_id) }));
+}

@@ -163,6 +163,15 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
   });
 
+  it("lists the course's staff with their sections and live tokens, for the instructor", async () => {
+    const staff = await call(api.app, 'GET', `/v1/courses/${s.course.id}/staff`, s.instructorToken, undefined, 200);
+    expect(staff.body.slice(0, 3).map((m: { handle: string; role: string; sectionIds: number[]; liveTokens: number }) => [m.handle, m.role, m.sectionIds, m.liveTokens])).toEqual([
+      ['instructor-1', 'instructor', [], 1],
+      ['ta-a', 'ta', [s.sectionA.id], 1],
+      ['ta-b', 'ta', [s.sectionB.id], 1],
+    ]);
+  });
+
   it('a revoked token answers 401 from then on', async () => {
     const staff = (await call(api.app, 'POST', `/v1/courses/${s.course.id}/staff`, s.instructorToken, { handle: 'ta-leaving', role: 'ta', sectionIds: [s.sectionA.id] }, 201)).body;
     const token = (await call(api.app, 'POST', `/v1/staff/${staff.id}/tokens`, s.instructorToken, undefined, 201)).body.token;

@@ -38,6 +38,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'POST /v1/courses/:courseId/sections': (f) => ({ url: `/v1/courses/${f.course.id}/sections`, body: { name: `Section ${unique()}` } }),
   'GET /v1/courses/:courseId/sections': (f) => ({ url: `/v1/courses/${f.course.id}/sections` }),
   'POST /v1/courses/:courseId/staff': (f) => ({ url: `/v1/courses/${f.course.id}/staff`, body: { handle: `ta-${unique()}`, role: 'ta', sectionIds: [f.sectionA.id] } }),
+  'GET /v1/courses/:courseId/staff': (f) => ({ url: `/v1/courses/${f.course.id}/staff` }),
   'POST /v1/staff/:staffId/tokens': (f) => ({ url: `/v1/staff/${f.taA.id}/tokens` }),
   // A spare TA's tokens: revoking those of the callers in the matrix would change the answers after it.
   'POST /v1/staff/:staffId/tokens/revoke': (f) => ({ url: `/v1/staff/${f.spare.id}/tokens/revoke` }),
