@@ -111,6 +111,51 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.close();
   });
 
+  it("lets an instructor edit settings (the schema's messages beside the fields), regrade with progress, add to a roster and manage a TA's tokens", async () => {
+    const page = await browser.newPage();
+    const pageErrors: string[] = [];
+    page.on('pageerror', (e) => pageErrors.push(String(e)));
+    await signIn(page, s.instructorToken);
+    await page.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
+    const panel = page.locator('article', { has: page.getByRole('heading', { name: s.assignment.title }) });
+    await panel.getByText('Edit the settings').click();
+    const k = panel.getByLabel('k_obs, %', { exact: true });
+    await k.fill('-5');
+    await panel.getByRole('button', { name: 'Save the settings' }).click();
+    const beside = panel.locator(`#${await k.getAttribute('id')}-message`);
+    await expect.poll(() => beside.textContent()).toMatch(/>=\s*0/);
+    await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe(await k.getAttribute('id'));
+    await k.fill('2');
+    await panel.getByRole('button', { name: 'Save the settings' }).click();
+    await panel.getByText(/^Settings version 2 saved/).waitFor();
+    const stored = await call(api.app, 'GET', `/v1/assignments/${s.assignment.id}`, s.instructorToken, undefined, 200);
+    expect(stored.body.settings.tolerances.k).toEqual({ relative: 0.02 });
+
+    await panel.getByRole('button', { name: 'Regrade every submission' }).click();
+    await panel.getByText(/^Regrade finished: (\d+) of \1 submissions regraded\.$/).waitFor();
+
+    const roster = page.locator('article', { has: page.getByRole('heading', { name: /^Section A:/ }) });
+    await roster.getByLabel('Add students (pseudonymous ids, one per line)').fill('S-201\nS-202');
+    await roster.getByRole('button', { name: 'Add to the roster' }).click();
+    await roster.getByText('2 students added.').waitFor();
+    await roster.getByText('S-202', { exact: true }).waitFor();
+
+    await page.getByLabel('Handle (letters, digits, dot, underscore or hyphen)').fill('ta-new');
+    await page.getByLabel('Section A').check();
+    await page.getByRole('button', { name: 'Add', exact: true }).click();
+    const row = page.locator('tr', { has: page.getByRole('rowheader', { name: 'ta-new' }) });
+    await row.waitFor();
+    await row.getByRole('button', { name: 'Issue a token' }).click();
+    const token = (await page.locator('code.token').textContent())!;
+    expect(token).toMatch(/^rp_/);
+    await row.getByRole('button', { name: 'Revoke tokens…' }).click();
+    await page.getByRole('button', { name: 'Revoke every token of ta-new' }).click();
+    await page.getByText('1 token of ta-new revoked; their sessions are ended.').waitFor();
+    expect((await call(api.app, 'GET', '/v1/me', token)).status).toBe(401);
+    expect(pageErrors).toEqual([]);
+    await page.close();
+  });
+
   it('shows a TA of another section nothing of this one', async () => {
     const page = await browser.newPage();
     await signIn(page, s.taBToken);

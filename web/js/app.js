@@ -1,5 +1,6 @@
 import { api, ApiFailure, setCsrfToken } from './api.js';
 import { fill, h } from './dom.js';
+import { courseView } from './course-view.js';
 import { sectionView } from './section-view.js';
 import { signInView } from './sign-in.js';
 import { studentView } from './student-view.js';
@@ -47,6 +48,7 @@ function home() {
       'section',
       { class: 'panel' },
       h('h2', {}, course.name),
+      me.role === 'instructor' ? h('p', {}, h('a', { href: `#/course/${course.id}` }, 'Manage the course: assignments, rosters, staff')) : null,
       course.sections.length === 0
         ? h('p', { class: 'hint' }, 'No section of this course is assigned to you.')
         : h(
@@ -91,6 +93,14 @@ async function route() {
       }
     }
     header();
+    const c = /^#\/course\/(\d+)$/.exec(location.hash);
+    const course = c && me.role === 'instructor' && me.courses.find((x) => x.id === Number(c[1]));
+    if (course) {
+      show(await courseView(course, failure, () => ((me = null), route())));
+      main.focus({ preventScroll: true });
+      window.scrollTo(0, 0);
+      return;
+    }
     const m = /^#\/section\/(\d+)\/assignment\/(\d+)(?:\/submission\/(\d+))?$/.exec(location.hash);
     const place = m && context(Number(m[1]), Number(m[2]));
     if (!place) return home();

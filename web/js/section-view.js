@@ -60,7 +60,9 @@ export async function sectionView(place, failure) {
 
   function drawRelease() {
     const pending = rows.filter(STATUS_FILTERS.unreleased[1]).length;
-    const ask = h('button', { type: 'button', class: 'primary', disabled: pending === 0, onclick: () => confirmRelease(pending) }, pending === 0 ? 'Every result is released' : `Release results…`);
+    const submitted = rows.some((r) => r.submissionId !== null);
+    const label = pending > 0 ? 'Release results…' : submitted ? 'Every result is released' : 'Nothing to release yet';
+    const ask = h('button', { type: 'button', class: 'primary', disabled: pending === 0, onclick: () => confirmRelease(pending) }, label);
     fill(releaseArea, ask);
   }
 

@@ -1,0 +1,171 @@
+import { api } from './api.js';
+import { fill, h, when } from './dom.js';
+import { settingsForm } from './settings-form.js';
+
+/** An instructor's course: assignments (settings, regrades), each section's roster, and the staff. */
+export async function courseView(course, failure, reload) {
+  const [assignments, staff, rosters] = await Promise.all([
+    Promise.all(course.assignments.map((a) => api('GET', `/v1/assignments/${a.id}`))),
+    api('GET', `/v1/courses/${course.id}/staff`),
+    Promise.all(course.sections.map((s) => api('GET', `/v1/sections/${s.id}/roster`))),
+  ]);
+  return h(
+    'div',
+    { class: 'course-view' },
+    h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', course.name),
+    h('h1', {}, `Manage ${course.name}`),
+    h('section', {}, h('h2', {}, 'Assignments'), assignments.map((a) => assignmentPanel(a, failure)), newAssignment(course, failure, reload)),
+    h('section', {}, h('h2', {}, 'Rosters'), course.sections.map((section, i) => rosterPanel(section, rosters[i], failure))),
+    h('section', {}, h('h2', {}, 'Staff'), staffPanel(course, staff, failure)),
+  );
+}
+
+function assignmentPanel(assignment, failure) {
+  const progress = h('div', { class: 'regrade', 'aria-live': 'polite' });
+  const status = h('p', { class: 'hint' }, `Settings version ${assignment.settingsVersion}.`);
+  const edit = h('details', {}, h('summary', {}, 'Edit the settings'), settingsForm({ assignment, failure, done: (saved) => {
+    assignment = saved;
+    status.textContent = `Settings version ${saved.settingsVersion} saved ${when(new Date().toISOString())}. Regrade to apply it to stored work.`;
+  } }));
+  const regrade = h('button', { type: 'button', onclick: () => startRegrade(assignment, progress, regrade, failure) }, 'Regrade every submission');
+  return h('article', { class: 'panel' }, h('h3', {}, assignment.title), status, edit, h('div', { class: 'row' }, regrade, progress));
+}
+
+async function startRegrade(assignment, area, button, failure) {
+  button.disabled = true;
+  const bar = h('progress', { max: '1', value: '0', 'aria-label': 'Regrade progress' });
+  const text = h('span', {}, 'Starting…');
+  fill(area, bar, ' ', text);
+  try {
+    let run = await api('POST', `/v1/assignments/${assignment.id}/regrade`, {});
+    while (run.status === 'running') {
+      bar.max = String(Math.max(run.total, 1));
+      bar.value = String(run.done);
+      text.textContent = `${run.done} of ${run.total} regraded`;
+      await new Promise((r) => setTimeout(r, 400));
+      run = await api('GET', `/v1/assignments/${assignment.id}/regrades/${run.regradeId}`);
+    }
+    bar.max = String(Math.max(run.total, 1));
+    bar.value = String(run.done);
+    text.textContent = run.status === 'finished' ? `Regrade finished: ${run.done} of ${run.total} submissions regraded.` : `Regrade stopped: ${run.error ?? 'unknown reason'}. Results stored before it stopped stay; starting again is safe.`;
+  } catch (error) {
+    failure(error);
+  } finally {
+    button.disabled = false;
+  }
+}
+
+function newAssignment(course, failure, reload) {
+  return h('details', { class: 'panel' }, h('summary', {}, 'New assignment'), settingsForm({ courseId: course.id, failure, done: () => reload() }));
+}
+
+function rosterPanel(section, roster, failure) {
+  const list = h('ul', { class: 'roster' });
+  const draw = (rows) => fill(list, rows.map((r) => h('li', {}, r.studentId)));
+  draw(roster);
+  const idsId = `roster-add-${section.id}`;
+  const ids = h('textarea', { id: idsId, rows: '3', 'aria-describedby': `${idsId}-message` });
+  const message = h('p', { id: `${idsId}-message`, class: 'form-error', role: 'alert' });
+  const done = h('p', { role: 'status', class: 'hint' });
+  const add = async (e) => {
+    e.preventDefault();
+    message.textContent = '';
+    const students = ids.value.split(/[\s,;]+/).filter(Boolean).map((studentId) => ({ studentId }));
+    try {
+      const { added } = await api('POST', `/v1/sections/${section.id}/roster`, { students });
+      ids.value = '';
+      draw(await api('GET', `/v1/sections/${section.id}/roster`));
+      done.textContent = `${added} student${added === 1 ? '' : 's'} added.`;
+    } catch (error) {
+      if (error.status >= 400 && error.status < 500 && error.status !== 401) message.textContent = [error.message, ...error.details.map((d) => `${d.path}: ${d.message}`)].join(' ');
+      else failure(error);
+    }
+  };
+  return h(
+    'article',
+    { class: 'panel' },
+    h('h3', {}, `Section ${section.name}: ${roster.length} student${roster.length === 1 ? '' : 's'}`),
+    list,
+    h('form', { class: 'roster-add', onsubmit: add }, h('label', { for: idsId }, 'Add students (pseudonymous ids, one per line)'), ids, h('button', { type: 'submit' }, 'Add to the roster'), message, done),
+  );
+}
+
+function staffPanel(course, staff, failure) {
+  const sectionName = new Map(course.sections.map((s) => [s.id, s.name]));
+  const rows = h('tbody');
+  const shown = h('div', { 'aria-live': 'polite' });
+  const draw = (members) =>
+    fill(
+      rows,
+      members.map((m) =>
+        h(
+          'tr',
+          {},
+          h('th', { scope: 'row' }, m.handle),
+          h('td', {}, m.role === 'ta' ? 'teaching assistant' : 'instructor'),
+          h('td', {}, m.sectionIds.map((id) => sectionName.get(id) ?? id).join(', ')),
+          h('td', { class: 'number' }, m.liveTokens),
+          h(
+            'td',
+            {},
+            m.role === 'ta'
+              ? [
+                  h('button', { type: 'button', onclick: () => issue(m) }, 'Issue a token'),
+                  ' ',
+                  h('button', { type: 'button', class: 'quiet', disabled: m.liveTokens === 0, onclick: () => revoke(m) }, 'Revoke tokens…'),
+                ]
+              : null,
+          ),
+        ),
+      ),
+    );
+  const refresh = async () => draw(await api('GET', `/v1/courses/${course.id}/staff`));
+  async function issue(member) {
+    try {
+      const { token } = await api('POST', `/v1/staff/${member.id}/tokens`);
+      fill(shown, h('p', { role: 'status' }, `Token for ${member.handle}, shown this once (give it to them; it is stored only as a hash): `, h('code', { class: 'token' }, token)));
+      await refresh();
+    } catch (error) {
+      failure(error);
+    }
+  }
+  function revoke(member) {
+    const yes = h('button', { type: 'button', class: 'primary', onclick: async () => {
+      try {
+        const { revoked } = await api('POST', `/v1/staff/${member.id}/tokens/revoke`);
+        fill(shown, h('p', { role: 'status' }, `${revoked} token${revoked === 1 ? '' : 's'} of ${member.handle} revoked; their sessions are ended.`));
+        await refresh();
+      } catch (error) {
+        failure(error);
+      }
+    } }, `Revoke every token of ${member.handle}`);
+    fill(shown, h('p', { role: 'alert' }, `Revoke every token of ${member.handle}? Their requests and browser sessions stop working at once.`), yes, ' ', h('button', { type: 'button', class: 'quiet', onclick: () => fill(shown) }, 'Cancel'));
+    yes.focus();
+  }
+  draw(staff);
+
+  const handleId = `staff-handle-${course.id}`;
+  const handle = h('input', { id: handleId, type: 'text', 'aria-describedby': `${handleId}-message` });
+  const boxes = course.sections.map((s) => h('label', { class: 'check' }, h('input', { type: 'checkbox', value: String(s.id) }), ` Section ${s.name}`));
+  const message = h('p', { id: `${handleId}-message`, class: 'form-error', role: 'alert' });
+  const addTa = async (e) => {
+    e.preventDefault();
+    message.textContent = '';
+    const sectionIds = boxes.map((b) => b.querySelector('input')).filter((i) => i.checked).map((i) => Number(i.value));
+    try {
+      await api('POST', `/v1/courses/${course.id}/staff`, { handle: handle.value, role: 'ta', sectionIds });
+      handle.value = '';
+      await refresh();
+    } catch (error) {
+      if (error.status === 400 || error.status === 409) message.textContent = [error.message, ...error.details.map((d) => `${d.path.replace('body.', '')}: ${d.message}`)].join(' ');
+      else failure(error);
+    }
+  };
+  return h(
+    'div',
+    { class: 'panel' },
+    h('table', {}, h('caption', {}, 'Staff of the course'), h('thead', {}, h('tr', {}, ['Handle', 'Role', 'Sections', 'Live tokens', ''].map((t) => h('th', { scope: 'col' }, t)))), rows),
+    shown,
+    h('form', { class: 'staff-add', onsubmit: addTa }, h('h3', {}, 'Add a teaching assistant'), h('label', { for: handleId }, 'Handle (letters, digits, dot, underscore or hyphen)'), handle, h('fieldset', {}, h('legend', {}, 'Sections they teach'), boxes), h('button', { type: 'submit' }, 'Add'), message),
+  );
+}

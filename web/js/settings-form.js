@@ -1,0 +1,133 @@
+import { api, ApiFailure } from './api.js';
+import { h } from './dom.js';
+
+/**
+ * An assignment's settings as a form. The service validates them with the same schema as the API and
+ * its messages appear beside the fields they name. Parts the form does not show (a class dataset,
+ * reference bands) are kept as they are.
+ */
+const CHOICES = {
+  fitModel: [['origin', 'ln F = -k t (through the origin)'], ['intercept', 'ln F = a - k t (with an intercept)']],
+  rateLawFit: [['ordinary', 'ordinary least squares'], ['weighted', 'weighted by 1/SE² of each k_obs']],
+  weightedErrors: [['either', 'either convention'], ['absolute', 'SEs of k_obs taken as absolute'], ['scaled', 'scaled by the scatter about the line']],
+};
+const UNITS = [['k', 'k_obs'], ['kN', 'k_N'], ['kA', 'k_A']];
+// [key, label, kind]: relative tolerances are shown in per cent, absolute ones in the quantity's unit.
+const TOLERANCES = [
+  ['reading', 'Readings (deg)', 'absolute'],
+  ['lnF', 'ln F entries', 'absolute'],
+  ['k', 'k_obs', 'relative'],
+  ['kUncertainty', 'SE of k_obs', 'relative'],
+  ['kN', 'k_N', 'relative'],
+  ['kA', 'k_A', 'relative'],
+  ['rateLawUncertainty', 'SEs of k_N and k_A', 'relative'],
+];
+const RUBRIC = [
+  ['readings', 'Readings, per run (with a class dataset)'],
+  ['lnF', 'ln F column, per run'],
+  ['k', 'k_obs, per run'],
+  ['kUncertainty', 'SE of k_obs, per run'],
+  ['kN', 'k_N'],
+  ['kNUncertainty', 'SE of k_N'],
+  ['kA', 'k_A'],
+  ['kAUncertainty', 'SE of k_A'],
+  ['sigFigs', 'Rounding, once'],
+];
+
+const DEFAULTS = {
+  kind: 'first-order-catalysis',
+  fitModel: 'origin',
+  rateLawFit: 'ordinary',
+  weightedErrors: 'either',
+  units: { k: 'min^-1', kN: 'min^-1', kA: 'M^-1 min^-1' },
+  tolerances: { reading: { absolute: 0.0005 }, lnF: { absolute: 0.002 }, k: { relative: 0.01 }, kUncertainty: { relative: 0.25 }, kN: { relative: 0.02 }, kA: { relative: 0.02 }, rateLawUncertainty: { relative: 0.25 } },
+  rubric: { readings: 1, lnF: 1, k: 2, kUncertainty: 1, kN: 2, kNUncertainty: 1, kA: 2, kAUncertainty: 1, sigFigs: 0 },
+};
+
+let formCount = 0;
+
+/** `assignment` to edit, or undefined for a new one in `courseId`; `done(saved)` after a save, `failure` for what the form cannot show. */
+export function settingsForm({ courseId, assignment, done, failure }) {
+  const n = ++formCount;
+  const current = { ...DEFAULTS, ...(assignment?.settings ?? {}) };
+  const fields = new Map();
+  const messages = new Map();
+  const id = (path) => `f${n}-${path.replace(/\./g, '-')}`;
+
+  function field(path, label, control, hint) {
+    control.id = id(path);
+    const message = h('span', { class: 'form-error', id: `${id(path)}-message`, role: 'alert' });
+    control.setAttribute('aria-describedby', message.id);
+    fields.set(path, control);
+    messages.set(path, message);
+    return h('div', { class: 'field' }, h('label', { for: control.id }, label), control, hint ? h('span', { class: 'hint' }, hint) : null, message);
+  }
+  const select = (path, label, options, value) => field(path, label, h('select', {}, options.map(([v, text]) => h('option', { value: v, selected: v === value }, text))));
+  const number = (path, label, value, hint) => field(path, label, h('input', { type: 'number', step: 'any', value: value === undefined ? '' : String(value) }), hint);
+
+  const title = assignment ? null : field('title', 'Title', h('input', { type: 'text', required: true }));
+  const tol = (key) => current.tolerances?.[key] ?? DEFAULTS.tolerances[key];
+  const form = h(
+    'form',
+    { class: 'settings', novalidate: true, onsubmit: (e) => (e.preventDefault(), save()) },
+    title,
+    h('fieldset', {}, h('legend', {}, 'Fits'), select('fitModel', 'ln F against t', CHOICES.fitModel, current.fitModel), select('rateLawFit', 'k_obs against [catalyst]', CHOICES.rateLawFit, current.rateLawFit), select('weightedErrors', 'Right SEs of a weighted fit', CHOICES.weightedErrors, current.weightedErrors)),
+    h('fieldset', {}, h('legend', {}, 'Units values are reported in'), UNITS.map(([key, label]) => field(`units.${key}`, label, h('input', { type: 'text', value: current.units?.[key] ?? DEFAULTS.units[key] })))),
+    h(
+      'fieldset',
+      {},
+      h('legend', {}, 'Tolerances'),
+      TOLERANCES.map(([key, label, kind]) => {
+        const value = tol(key)[kind];
+        return kind === 'relative' ? number(`tolerances.${key}.relative`, `${label}, %`, value === undefined ? undefined : Number((value * 100).toPrecision(12))) : number(`tolerances.${key}.absolute`, label, value);
+      }),
+    ),
+    h('fieldset', {}, h('legend', {}, 'Rubric points'), RUBRIC.map(([key, label]) => number(`rubric.${key}`, label, current.rubric?.[key] ?? DEFAULTS.rubric[key]))),
+    h('p', { class: 'hint' }, 'A class dataset and reference bands, where set, are kept as they are (the API edits them). Saving changes no result until you regrade.'),
+    h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
+    h('p', { class: 'form-error', role: 'alert', 'data-role': 'summary' }),
+  );
+
+  function read() {
+    const settings = structuredClone(current);
+    for (const [path, control] of fields) {
+      if (path === 'title') continue;
+      const parts = path.split('.');
+      let target = settings;
+      for (const p of parts.slice(0, -1)) target = target[p] = { ...(target[p] ?? {}) };
+      const last = parts[parts.length - 1];
+      if (control.type === 'number') {
+        // An empty or unreadable number is sent as it is, for the schema to name.
+        const value = control.value.trim() === '' ? null : Number(control.value);
+        target[last] = value !== null && parts[0] === 'tolerances' && last === 'relative' ? value / 100 : value;
+      } else target[last] = control.value;
+    }
+    // A tolerance kept whole: the other part of it is replaced, not merged.
+    for (const [key, , kind] of TOLERANCES) settings.tolerances[key] = { [kind]: settings.tolerances[key][kind] };
+    return settings;
+  }
+
+  async function save() {
+    for (const m of messages.values()) m.textContent = '';
+    const summary = form.querySelector('[data-role=summary]');
+    summary.textContent = '';
+    try {
+      const saved = assignment
+        ? await api('PUT', `/v1/assignments/${assignment.id}/settings`, { settings: read() })
+        : await api('POST', `/v1/courses/${courseId}/assignments`, { title: fields.get('title').value, settings: read() });
+      done(saved);
+    } catch (error) {
+      if (!(error instanceof ApiFailure) || error.status !== 400) return failure(error);
+      const unplaced = [];
+      for (const d of error.details) {
+        const path = d.path.replace(/^body\.(settings\.)?/, '');
+        const message = messages.get(path);
+        if (message) message.textContent = d.message;
+        else unplaced.push(`${path}: ${d.message}`);
+      }
+      summary.textContent = `The settings were not saved: ${error.details.length} field${error.details.length === 1 ? '' : 's'} to correct${unplaced.length ? ` (${unplaced.join('; ')})` : ''}.`;
+      fields.get(error.details.map((d) => d.path.replace(/^body\.(settings\.)?/, '')).find((p) => fields.has(p)))?.focus();
+    }
+  }
+  return form;
+}
