@@ -3,7 +3,8 @@ import { mainErrorCodes, severityCounts } from './result-summary.ts';
 
 /**
  * The section's gradebook as CSV: one row per result, then one per roster student who has not
- * submitted (status `not-submitted`, no score), so that no student drops out of a gradebook silently.
+ * submitted (status `not-submitted`, or `withdrawn`; no score), so that no student drops out of a
+ * gradebook silently.
  *
  * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the error
  * findings' codes, most costly first, `;`-joined). A rejected result has an empty score.
@@ -18,8 +19,8 @@ import { mainErrorCodes, severityCounts } from './result-summary.ts';
  */
 export interface GradebookOptions {
   bom?: boolean;
-  /** Roster students with no submission. */
-  notSubmitted?: readonly string[];
+  /** Roster students with no submission, and whether each has withdrawn. */
+  notSubmitted?: ReadonlyArray<{ studentId: string; withdrawn: boolean }>;
 }
 
 export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes'] as const;
@@ -58,8 +59,9 @@ function row(result: CheckResult): Cell[] {
   ];
 }
 
-function notSubmittedRow(studentId: string): Cell[] {
-  return [{ text: studentId }, { number: null }, { number: null }, { text: 'not-submitted' }, { number: 0 }, { number: 0 }, { number: 0 }, { text: '' }];
+function notSubmittedRow(student: { studentId: string; withdrawn: boolean }): Cell[] {
+  const status = student.withdrawn ? 'withdrawn' : 'not-submitted';
+  return [{ text: student.studentId }, { number: null }, { number: null }, { text: status }, { number: 0 }, { number: 0 }, { number: 0 }, { text: '' }];
 }
 
 export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions = {}): string {

@@ -51,12 +51,16 @@ export async function screenBatch(db: Kysely<Database>, batch: GradedBatch, sect
       return;
     }
     const row = roster.get(result.studentId!);
-    if (row === undefined) {
+    if (row === undefined || row.status === 'removed') {
       rejected.push({ at: item.at, studentId: result.studentId, path: 'studentId', message: "not on this section's roster" });
       return;
     }
+    if (row.status === 'withdrawn') {
+      rejected.push({ at: item.at, studentId: result.studentId, path: 'studentId', message: 'withdrawn from this section; enrol them again to accept work' });
+      return;
+    }
     // Stored as the schema reads it: fields it does not know are left out, whatever they hold.
-    toStore.push({ studentId: result.studentId!, studentRowId: row, payloadJson: result.payloadJson!, result });
+    toStore.push({ studentId: result.studentId!, studentRowId: row.id, payloadJson: result.payloadJson!, result });
   });
   return { toStore, rejected };
 }

@@ -64,7 +64,7 @@ export const reportRoutes: RouteSpec[] = [
     schema: { params, querystring: z.object({ bom: z.enum(['true', 'false']).default('false') }), response: { 200: file } },
     async handler({ db, scope, params: p, query }) {
       const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
-      const notSubmitted = await studentsWithoutSubmission(db, sectionId, assignmentId);
+      const notSubmitted = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map((s) => ({ studentId: s.studentId, withdrawn: s.status === 'withdrawn' }));
       const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { bom: query.bom === 'true', notSubmitted });
       return { status: 200, body: csv, contentType: 'text/csv; charset=utf-8', headers: download(`gradebook-section-${scope.sectionId}.csv`) };
     },

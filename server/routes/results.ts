@@ -12,8 +12,10 @@ const Row = z.object({
   /** Null for a roster student who has not submitted. */
   submissionId: z.number().nullable(),
   version: z.number().nullable(),
-  /** `checked`, `rejected`, or `not-submitted`; null while a result is missing. */
+  /** `checked`, `rejected`, `not-submitted` or `withdrawn` (no submission); null while a result is missing. */
   status: z.string().nullable(),
+  /** On the roster: `enrolled` or `withdrawn` (removed students are left out). */
+  enrolment: z.enum(['enrolled', 'withdrawn', 'removed']),
   score: z.number().nullable(),
   maxScore: z.number().nullable(),
   errors: z.number(),
@@ -35,11 +37,12 @@ export const resultRoutes: RouteSpec[] = [
     async handler({ db, scope, params: p }) {
       const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
       const rows = await latestWithResults(db, sectionId, assignmentId);
-      const missing = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map((studentId) => ({
+      const missing = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map(({ studentId, status }) => ({
         studentId,
         submissionId: null,
         version: null,
-        status: 'not-submitted',
+        status: status === 'withdrawn' ? 'withdrawn' : 'not-submitted',
+        enrolment: status,
         score: null,
         maxScore: null,
         errors: 0,
@@ -53,6 +56,7 @@ export const resultRoutes: RouteSpec[] = [
         submissionId: submission.submissionId,
         version: submission.version,
         status: result?.status ?? null,
+        enrolment: submission.enrolment,
         score: result?.score ?? null,
         maxScore: result?.maxScore ?? null,
         ...severityCounts(result?.findings ?? []),

@@ -2,9 +2,18 @@ import { parse } from 'csv-parse/sync';
 import { z } from 'zod';
 import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
-import { addToRoster, listRoster, studentsElsewhere, type RosterEntry } from '../store/students.ts';
+import { addToRoster, listRoster, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
+
+const Enrolment = z.enum(['enrolled', 'withdrawn', 'removed']);
+const RosterStudent = z.object({
+  studentId: z.string(),
+  displayName: z.string().nullable(),
+  status: Enrolment,
+  /** Every change of enrolment: to what, by whom (null for the admin), when. */
+  history: z.array(z.object({ status: Enrolment, by: z.string().nullable(), at: z.date() })),
+});
 
 const Entry = z.object({ studentId: StudentId, displayName: Text(200).optional() });
 const RosterBody = z.union([z.object({ students: z.array(Entry).min(1, 'at least one student').max(5000, 'at most 5,000 students in one request') }), z.string()]);
@@ -35,7 +44,7 @@ export const rosterRoutes: RouteSpec[] = [
     summary: 'Add students to a section roster (JSON or text/csv); a student may be in one section per course',
     schema: { params: z.object({ sectionId: IdParam }), body: RosterBody, response: { 200: z.object({ added: z.number() }) } },
     transactional: true,
-    async handler({ db, scope, body }) {
+    async handler({ db, scope, body, caller }) {
       const entries = typeof body === 'string' ? rosterFromCsv(body) : (body as { students: RosterEntry[] }).students;
       const firstAt = new Map<string, number>();
       entries.forEach((e, i) => firstAt.set(e.studentId, firstAt.get(e.studentId) ?? i));
@@ -45,7 +54,7 @@ export const rosterRoutes: RouteSpec[] = [
       if (elsewhere.length > 0) {
         throw new ApiError('conflict', 'a student may be in one section per course', elsewhere.map((s) => ({ path: s.studentId, message: `already on the roster of section ${s.sectionId}` })));
       }
-      return { status: 200, body: { added: await addToRoster(db, scope.courseId!, scope.sectionId!, entries) } };
+      return { status: 200, body: { added: await addToRoster(db, scope.courseId!, scope.sectionId!, entries, caller.kind === 'staff' ? caller.staffId : null) } };
     },
   },
   {
@@ -53,9 +62,23 @@ export const rosterRoutes: RouteSpec[] = [
     url: '/v1/sections/:sectionId/roster',
     access: 'section',
     summary: "A section's roster",
-    schema: { params: z.object({ sectionId: IdParam }), response: { 200: z.array(z.object({ studentId: z.string(), displayName: z.string().nullable() })) } },
+    schema: { params: z.object({ sectionId: IdParam }), response: { 200: z.array(RosterStudent) } },
     async handler({ db, scope }) {
       return { status: 200, body: await listRoster(db, scope.sectionId!) };
+    },
+  },
+  {
+    method: 'PUT',
+    url: '/v1/sections/:sectionId/roster/:studentId',
+    access: 'instructor',
+    summary: "Mark a roster student enrolled, withdrawn or removed: nothing is deleted, their work stays in their history, and the change is recorded",
+    schema: { params: z.object({ sectionId: IdParam, studentId: StudentId }), body: z.object({ status: Enrolment }), response: { 200: RosterStudent } },
+    transactional: true,
+    async handler({ db, scope, params, body, caller }) {
+      const { status } = body as { status: 'enrolled' | 'withdrawn' | 'removed' };
+      const row = await setEnrolment(db, scope.sectionId!, params.studentId, status, caller.kind === 'staff' ? caller.staffId : null);
+      if (!row) throw new ApiError('not-found', `${params.studentId} is not on this section's roster`);
+      return { status: 200, body: (await listRoster(db, scope.sectionId!)).find((s) => s.studentId === params.studentId) };
     },
   },
 ];

@@ -5,6 +5,8 @@ type Ref = number;
 /** JSON goes in as text (pg would turn a JS array into a SQL array) and comes out parsed. */
 type Json<T> = ColumnType<T, string, string>;
 
+export type EnrolmentStatus = 'enrolled' | 'withdrawn' | 'removed';
+
 export interface Database {
   courses: { id: Generated<number>; name: string; created_at: Generated<Date> };
   sections: { id: Generated<number>; course_id: Ref; name: string };
@@ -12,7 +14,8 @@ export interface Database {
   ta_sections: { staff_id: Ref; section_id: Ref };
   api_tokens: { id: Generated<number>; staff_id: Ref; token_hash: string; created_at: Generated<Date>; revoked_at: Date | null };
   sessions: { id: Generated<number>; staff_id: Ref; session_hash: string; created_at: Generated<Date>; expires_at: Date };
-  students: { id: Generated<number>; course_id: Ref; section_id: Ref; student_id: string; display_name: string | null };
+  students: { id: Generated<number>; course_id: Ref; section_id: Ref; student_id: string; display_name: string | null; status: Generated<EnrolmentStatus> };
+  roster_events: { id: Generated<number>; student_row_id: Ref; status: EnrolmentStatus; staff_id: Ref | null; at: Generated<Date> };
   assignments: {
     id: Generated<number>;
     course_id: Ref;

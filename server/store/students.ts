@@ -1,5 +1,5 @@
 import type { Kysely } from 'kysely';
-import type { Database } from './database.ts';
+import type { Database, EnrolmentStatus } from './database.ts';
 
 export interface RosterEntry {
   studentId: string;
@@ -18,43 +18,71 @@ export async function studentsElsewhere(db: Kysely<Database>, courseId: number, 
     .execute();
 }
 
-export async function addToRoster(db: Kysely<Database>, courseId: number, sectionId: number, entries: RosterEntry[]): Promise<number> {
+async function recordEvents(db: Kysely<Database>, rows: Array<{ id: number }>, status: EnrolmentStatus, staffId: number | null): Promise<void> {
+  if (rows.length === 0) return;
+  await db.insertInto('roster_events').values(rows.map((r) => ({ student_row_id: r.id, status, staff_id: staffId }))).execute();
+}
+
+/** Adds students to a section, or enrols again those withdrawn or removed; each change is recorded. */
+export async function addToRoster(db: Kysely<Database>, courseId: number, sectionId: number, entries: RosterEntry[], staffId: number | null): Promise<number> {
   if (entries.length === 0) return 0;
+  const before = new Map(
+    (await db.selectFrom('students').select(['student_id', 'status']).where('section_id', '=', sectionId).where('student_id', 'in', entries.map((e) => e.studentId)).execute()).map((r) => [r.student_id, r.status]),
+  );
   const rows = await db
     .insertInto('students')
     .values(entries.map((e) => ({ course_id: courseId, section_id: sectionId, student_id: e.studentId, display_name: e.displayName ?? null })))
-    .onConflict((oc) => oc.columns(['course_id', 'student_id']).doUpdateSet((eb) => ({ display_name: eb.ref('excluded.display_name') })))
-    .returning('id')
+    .onConflict((oc) => oc.columns(['course_id', 'student_id']).doUpdateSet((eb) => ({ display_name: eb.ref('excluded.display_name'), status: 'enrolled' })))
+    .returning(['id', 'student_id'])
     .execute();
+  await recordEvents(db, rows.filter((r) => before.get(r.student_id) !== 'enrolled'), 'enrolled', staffId);
   return rows.length;
 }
 
+/** Marks a roster student enrolled, withdrawn or removed; undefined when they are not on the roster. */
+export async function setEnrolment(db: Kysely<Database>, sectionId: number, studentId: string, status: EnrolmentStatus, staffId: number | null) {
+  const row = await db.updateTable('students').set({ status }).where('section_id', '=', sectionId).where('student_id', '=', studentId).returning(['id']).executeTakeFirst();
+  if (row) await recordEvents(db, [row], status, staffId);
+  return row;
+}
+
 export async function listRoster(db: Kysely<Database>, sectionId: number) {
-  return db
+  const students = await db
     .selectFrom('students')
-    .select(['student_id as studentId', 'display_name as displayName'])
+    .select(['id', 'student_id as studentId', 'display_name as displayName', 'status'])
     .where('section_id', '=', sectionId)
     .orderBy('student_id')
     .execute();
+  const events = students.length
+    ? await db
+        .selectFrom('roster_events')
+        .leftJoin('staff', 'staff.id', 'roster_events.staff_id')
+        .select(['roster_events.student_row_id as rowId', 'roster_events.status as status', 'staff.handle as by', 'roster_events.at as at'])
+        .where('roster_events.student_row_id', 'in', students.map((s) => s.id))
+        .orderBy('roster_events.id')
+        .execute()
+    : [];
+  return students.map(({ id, ...s }) => ({ ...s, history: events.filter((e) => e.rowId === id).map(({ rowId: _, ...e }) => e) }));
 }
 
-/** Row ids of the given pseudonymous ids on a section's roster. */
-export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: string[]): Promise<Map<string, number>> {
+/** Row ids and enrolment of the given pseudonymous ids on a section's roster. */
+export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: string[]): Promise<Map<string, { id: number; status: EnrolmentStatus }>> {
   if (ids.length === 0) return new Map();
-  const rows = await db.selectFrom('students').select(['id', 'student_id']).where('section_id', '=', sectionId).where('student_id', 'in', ids).execute();
-  return new Map(rows.map((r) => [r.student_id, r.id]));
+  const rows = await db.selectFrom('students').select(['id', 'student_id', 'status']).where('section_id', '=', sectionId).where('student_id', 'in', ids).execute();
+  return new Map(rows.map((r) => [r.student_id, { id: r.id, status: r.status }]));
 }
 
-/** Roster students of a section with no submission to an assignment: a gradebook lists them too. */
-export async function studentsWithoutSubmission(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<string[]> {
+/** Roster students (enrolled or withdrawn) with no submission to an assignment: a gradebook lists them too. */
+export async function studentsWithoutSubmission(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<Array<{ studentId: string; status: EnrolmentStatus }>> {
   const rows = await db
     .selectFrom('students')
-    .select('student_id')
+    .select(['student_id as studentId', 'status'])
     .where('section_id', '=', sectionId)
+    .where('status', '!=', 'removed')
     .where(({ not, exists, selectFrom }) =>
       not(exists(selectFrom('submissions').select('submissions.id').whereRef('submissions.student_row_id', '=', 'students.id').where('submissions.assignment_id', '=', assignmentId))),
     )
     .orderBy('student_id')
     .execute();
-  return rows.map((r) => r.student_id);
+  return rows;
 }

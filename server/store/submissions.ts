@@ -100,6 +100,7 @@ const submissionHeadColumns = [
   'students.student_id as studentId',
   'students.section_id as sectionId',
   'students.course_id as courseId',
+  'students.status as enrolment',
 ] as const;
 
 const submissionColumns = [...submissionHeadColumns, 'submissions.payload as payload'] as const;
@@ -171,7 +172,9 @@ function latestQuery(db: Kysely<Database>, assignmentId: number, sectionId?: num
       ),
     );
   if (sectionId !== undefined) query = query.where('students.section_id', '=', sectionId);
-  return query.orderBy('students.student_id');
+  // A student removed from the roster leaves the section's tables, gradebook and regrades; their
+  // versions stay readable in their history.
+  return query.where('students.status', '!=', 'removed').orderBy('students.student_id');
 }
 
 /** The latest version of each student's submission to an assignment, in one section or all. */

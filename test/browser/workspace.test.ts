@@ -139,6 +139,10 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await roster.getByRole('button', { name: 'Add to the roster' }).click();
     await roster.getByText('2 students added.').waitFor();
     await roster.getByText('S-202', { exact: true }).waitFor();
+    await roster.getByLabel('Enrolment of S-202').selectOption('withdrawn');
+    await roster.getByText(/^withdrawn by instructor-1, /).waitFor();
+    const roster202 = (await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/roster`, s.instructorToken, undefined, 200)).body.find((r: { studentId: string }) => r.studentId === 'S-202');
+    expect(roster202.history.map((e: { status: string }) => e.status)).toEqual(['enrolled', 'withdrawn']);
 
     await page.getByLabel('Handle (letters, digits, dot, underscore or hyphen)').fill('ta-new');
     await page.getByLabel('Section A').check();

@@ -37,7 +37,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       ['S-006', 'not-submitted'],
     ]);
     expect(table.body[0]).toMatchObject({ version: 1, status: 'checked', score: 22, maxScore: 22, released: false });
-    expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, status: 'not-submitted', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false });
+    expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, status: 'not-submitted', enrolment: 'enrolled', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false });
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,');
   });
@@ -161,6 +161,33 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv?bom=true`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(csv.body.startsWith('\uFEFFstudent_id,score,max_score')).toBe(true);
     expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
+  });
+
+  it('a student withdrawn or removed stays in the history; the section shows who withdrew and leaves out who was removed', async () => {
+    const section = `/v1/sections/${s.sectionB.id}`;
+    const bUrl = `${section}/assignments/${s.assignment.id}`;
+    await call(api.app, 'POST', `${bUrl}/submissions`, s.taBToken, submissionsFor(['S-103'], 21), 201);
+    const withdrawn = await call(api.app, 'PUT', `${section}/roster/S-101`, s.instructorToken, { status: 'withdrawn' }, 200);
+    expect(withdrawn.body).toMatchObject({ studentId: 'S-101', status: 'withdrawn' });
+    expect(withdrawn.body.history.map((e: { status: string; by: string }) => [e.status, e.by])).toEqual([['enrolled', 'instructor-1'], ['withdrawn', 'instructor-1']]);
+    await call(api.app, 'PUT', `${section}/roster/S-103`, s.instructorToken, { status: 'removed' }, 200);
+    const table = await call(api.app, 'GET', `${bUrl}/results`, s.taBToken, undefined, 200);
+    expect(table.body.map((r: { studentId: string; status: string; enrolment: string }) => [r.studentId, r.status, r.enrolment])).toEqual([
+      ['S-101', 'withdrawn', 'withdrawn'],
+      ['S-102', 'not-submitted', 'enrolled'],
+    ]);
+    const csv = await api.app.inject({ method: 'GET', url: `${bUrl}/gradebook.csv`, headers: { authorization: `Bearer ${s.taBToken}` } });
+    expect(csv.body.split('\r\n').slice(1, 3)).toEqual(['S-101,,,withdrawn,0,0,0,', 'S-102,,,not-submitted,0,0,0,']);
+    const refused = await call(api.app, 'POST', `${bUrl}/submissions`, s.taBToken, submissionsFor(['S-101', 'S-103'], 22), 422);
+    expect(refused.body.error.details.map((d: { message: string }) => d.message)).toEqual(['withdrawn from this section; enrol them again to accept work', "not on this section's roster"]);
+    // The removed student's work is still in their history; enrolling again brings them back.
+    const history = await call(api.app, 'GET', `${section}/students/S-103/history`, s.taBToken, undefined, 200);
+    expect(history.body).toHaveLength(1);
+    await call(api.app, 'POST', `${section}/roster`, s.instructorToken, { students: [{ studentId: 'S-103' }] }, 200);
+    const roster = await call(api.app, 'GET', `${section}/roster`, s.taBToken, undefined, 200);
+    expect(roster.body.find((r: { studentId: string }) => r.studentId === 'S-103').history.map((e: { status: string }) => e.status)).toEqual(['enrolled', 'removed', 'enrolled']);
+    expect((await call(api.app, 'PUT', `${section}/roster/S-999`, s.instructorToken, { status: 'withdrawn' })).status).toBe(404);
+    expect((await call(api.app, 'PUT', `${section}/roster/S-102`, s.taBToken, { status: 'withdrawn' })).status).toBe(403);
   });
 
   it("lists the course's staff with their sections and live tokens, for the instructor", async () => {

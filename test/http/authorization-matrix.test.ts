@@ -43,6 +43,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   // A spare TA's tokens: revoking those of the callers in the matrix would change the answers after it.
   'POST /v1/staff/:staffId/tokens/revoke': (f) => ({ url: `/v1/staff/${f.spare.id}/tokens/revoke` }),
   'POST /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster`, body: { students: [{ studentId: 'S-001' }] } }),
+  'PUT /v1/sections/:sectionId/roster/:studentId': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster/S-006`, body: { status: 'enrolled' } }),
   'GET /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster` }),
   'POST /v1/courses/:courseId/assignments': (f) => ({ url: `/v1/courses/${f.course.id}/assignments`, body: { title: `Assignment ${unique()}`, settings: f.settings } }),
   'GET /v1/assignments/:assignmentId': (f) => ({ url: `/v1/assignments/${f.assignment.id}` }),

@@ -59,9 +59,36 @@ function newAssignment(course, failure, reload) {
   return h('details', { class: 'panel' }, h('summary', {}, 'New assignment'), settingsForm({ courseId: course.id, failure, done: () => reload() }));
 }
 
+const ENROLMENT = [['enrolled', 'enrolled'], ['withdrawn', 'withdrawn'], ['removed', 'removed (kept in history)']];
+
 function rosterPanel(section, roster, failure) {
-  const list = h('ul', { class: 'roster' });
-  const draw = (rows) => fill(list, rows.map((r) => h('li', {}, r.studentId)));
+  const list = h('table', { class: 'roster' });
+  const draw = (rows) =>
+    fill(
+      list,
+      h('caption', {}, 'Roster, with each student’s enrolment and its last change'),
+      h('thead', {}, h('tr', {}, ['Student', 'Enrolment', 'Last change'].map((t) => h('th', { scope: 'col' }, t)))),
+      h(
+        'tbody',
+        {},
+        rows.map((r) => {
+          const last = r.history[r.history.length - 1];
+          const choose = h(
+            'select',
+            { 'aria-label': `Enrolment of ${r.studentId}`, onchange: async () => {
+              try {
+                await api('PUT', `/v1/sections/${section.id}/roster/${encodeURIComponent(r.studentId)}`, { status: choose.value });
+                draw(await api('GET', `/v1/sections/${section.id}/roster`));
+              } catch (error) {
+                failure(error);
+              }
+            } },
+            ENROLMENT.map(([v, text]) => h('option', { value: v, selected: v === r.status }, text)),
+          );
+          return h('tr', { class: r.status === 'enrolled' ? '' : 'missing' }, h('th', { scope: 'row' }, r.studentId), h('td', {}, choose), h('td', { class: 'hint' }, last ? `${last.status} by ${last.by ?? 'the administrator'}, ${when(last.at)}` : ''));
+        }),
+      ),
+    );
   draw(roster);
   const idsId = `roster-add-${section.id}`;
   const ids = h('textarea', { id: idsId, rows: '3', 'aria-describedby': `${idsId}-message` });

@@ -8,6 +8,7 @@ const STATUS_FILTERS = {
   checked: ['Checked', (r) => r.status === 'checked'],
   rejected: ['Refused by the checker', (r) => r.status === 'rejected'],
   'not-submitted': ['Not submitted', (r) => r.status === 'not-submitted'],
+  withdrawn: ['Withdrawn', (r) => r.enrolment === 'withdrawn'],
   unreleased: ['Not yet released', (r) => r.submissionId !== null && !r.released],
 };
 
@@ -22,7 +23,7 @@ const COLUMNS = [
   ['released', 'Released'],
 ];
 
-const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted': 'not submitted' };
+const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted': 'not submitted', withdrawn: 'withdrawn' };
 
 /** One section's results for one assignment: every roster student, filters, counts, release, files. */
 export async function sectionView(place, failure) {
@@ -106,8 +107,8 @@ export async function sectionView(place, failure) {
       ...visible.map((r) =>
         h(
           'tr',
-          { class: r.status === 'not-submitted' ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
-          h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId)),
+          { class: r.submissionId === null ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
+          h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
           h('td', {}, r.version ?? '–'),
           h('td', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
           h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`),
