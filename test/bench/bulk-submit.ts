@@ -25,16 +25,16 @@ export interface BulkSubmitFigures {
   longestStallMs: number;
 }
 
-const ids = Array.from({ length: STUDENTS }, (_, i) => `S-${String(i + 1).padStart(4, '0')}`);
+export const ids = Array.from({ length: STUDENTS }, (_, i) => `S-${String(i + 1).padStart(4, '0')}`);
 
-function cleanSubmissions() {
+export function cleanSubmissions() {
   const random = seededRandom(500);
   const settings = generateAssignment(random, { fitModel: 'origin' });
   return ids.map((studentId, i) => ({ ...generateSubmission(random, settings, i + 1), studentId }));
 }
 
 /** A course with one section of 500 students and one assignment; returns the submission URL and a token. */
-async function seed(app: FastifyInstance) {
+export async function seed(app: FastifyInstance) {
   const course = (await call(app, 'POST', '/v1/courses', ADMIN_TOKEN, { name: 'Bulk bench (invented)' }, 201)).body;
   const instructor = (await call(app, 'POST', `/v1/courses/${course.id}/staff`, ADMIN_TOKEN, { handle: 'instructor-1', role: 'instructor' }, 201)).body;
   const token = (await call(app, 'POST', `/v1/staff/${instructor.id}/tokens`, ADMIN_TOKEN, undefined, 201)).body.token as string;

@@ -32,3 +32,6 @@ await benchBulkSubmit();
 
 const { benchConcurrentLoad } = await import('./concurrent-load.ts');
 await benchConcurrentLoad();
+
+const { benchWorkspaceView } = await import('./workspace-view.ts');
+await benchWorkspaceView();
