@@ -98,6 +98,36 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await context.close();
   });
 
+  it('can be used by keyboard alone: sign in, open a section, sort and filter', async () => {
+    const page = await browser.newPage();
+    await page.goto(origin);
+    await page.keyboard.press('Tab'); // the brand link
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('token');
+    await page.keyboard.type(s.taAToken);
+    await page.keyboard.press('Enter');
+    const link = page.getByRole('link', { name: s.assignment.title });
+    await link.focus();
+    await page.keyboard.press('Enter');
+    const sortByScore = page.getByRole('button', { name: 'Score' });
+    await sortByScore.focus();
+    await page.keyboard.press('Enter');
+    await expect.poll(() => page.locator('th[aria-sort=ascending]').textContent()).toContain('Score');
+    await page.getByLabel('Show').focus();
+    await page.keyboard.press('ArrowDown');
+    expect(await page.getByLabel('Show').inputValue()).toBe('errors');
+    await expect.poll(() => page.locator('tr.missing').count()).toBe(0);
+    // Every control on the page has a name a screen reader can say.
+    const unnamed = await page.evaluate(() =>
+      [...document.querySelectorAll('input, select, textarea, button')].filter((el) => {
+        const labelled = el.id && document.querySelector(`label[for="${el.id}"]`);
+        return !labelled && !el.getAttribute('aria-label') && !(el.textContent ?? '').trim();
+      }).length,
+    );
+    expect(unnamed).toBe(0);
+    await page.close();
+  });
+
   it('shows a hostile run label as text and runs nothing', async () => {
     const [submission] = generateSection(seededRandom(9), generateAssignment(seededRandom(9), { fitModel: 'origin' }), ['S-006']).submissions;
     submission.runs[0].label = '<img src=x onerror="window.__hostile=1">';
