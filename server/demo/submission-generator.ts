@@ -4,6 +4,7 @@ import { findingCodes, type Finding, type FindingCode } from '../../schemas/resu
 import { EngineError } from '../engine/engine-error.ts';
 import { fitLine, fitLineModel, type LineFit, type LineModel } from '../engine/linear-fit.ts';
 import { tCritical95 } from '../engine/student-t.ts';
+import { oneSlipCopies } from '../checks/digit-slips.ts';
 import { minutes, syntheticReadings } from './synthetic-run.ts';
 import { gaussian, seededRandom } from './seeded-random.ts';
 
@@ -194,6 +195,26 @@ function analyseRun(run: SubmittedRun, settings: Settings, method: RunMethod = {
   setColumn(run, column);
   setK(run, -line.slope, line.seSlope, settings.units.k);
   return line;
+}
+
+/**
+ * The x_inf a student uses by mistake: half the time the last reading, otherwise the recorded x_inf
+ * with one copying slip (digits swapped or dropped, the decimal point moved) that leaves every ln F
+ * defined and moves k by more than 5 %.
+ */
+function wrongInfinity(run: SubmittedRun, settings: Settings, random: Random): number {
+  const last = run.readings[run.readings.length - 1][1];
+  if (random() < 0.5) return last;
+  const recorded = measuredInfinity(run);
+  const x0 = run.readings[0][1];
+  const k = -refitRun(run, settings.fitModel).slope;
+  const copies = oneSlipCopies(recorded, READING_PLACES).filter((c) => {
+    if (!['transposed-digits', 'dropped-digit', 'decimal-point'].includes(c.kind)) return false;
+    if (!run.readings.every(([, x]) => (x - c.value) / (x0 - c.value) > 0)) return false;
+    const slipped = -fitColumn(run, fColumn(run, c.value), settings.fitModel).slope;
+    return Math.abs(slipped / k - 1) > 0.05;
+  });
+  return copies.length ? pick(random, copies).value : last;
 }
 
 /** The assignment's refit of a run from its readings, without touching what the student reported. */
@@ -438,7 +459,7 @@ const slips: Record<SlipCode, Slip> = {
   'wrong-infinity': ({ submission, random, settings }) => {
     const i = indexIn(random, submission.runs.length);
     const run = submission.runs[i];
-    analyseRun(run, settings, { infinity: run.readings[run.readings.length - 1][1] });
+    analyseRun(run, settings, { infinity: wrongInfinity(run, settings, random) });
     reportRateLaw(submission, settings);
     return [{ code: 'wrong-infinity', path: lnFPath(i) }];
   },
