@@ -13,6 +13,8 @@ export const engineErrorCodes = {
   'unit-kind-mismatch': 'the unit is of the wrong kind for this quantity',
   'no-convergence': 'the iterative fit did not converge',
   'no-interval-pairs': 'too few pairs of readings a constant interval apart',
+  'not-above-absolute-zero': 'a temperature at or below absolute zero',
+  'non-positive-rate': 'a rate constant that is not positive has no logarithm',
 } as const;
 
 export type EngineErrorCode = keyof typeof engineErrorCodes;
