@@ -12,6 +12,8 @@ const ConfigSchema = z.object({
   /** Creates courses and their first instructors; at least 24 characters when set. */
   RATEPROOF_ADMIN_TOKEN: z.string().min(24, 'at least 24 characters').optional(),
   RATEPROOF_BODY_LIMIT_MB: z.string().trim().regex(/^\d+(\.\d+)?$/, 'a number of megabytes').transform(Number).pipe(z.number().positive().max(100)).default(5),
+  /** `always` behind a proxy that ends TLS: the session cookie is then marked Secure although the service hears http. */
+  RATEPROOF_SECURE_COOKIE: z.enum(['auto', 'always']).default('auto'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -23,6 +25,8 @@ export interface Config {
   adminToken?: string;
   bodyLimitBytes: number;
   logLevel: z.infer<typeof ConfigSchema>['LOG_LEVEL'];
+  /** Mark the session cookie Secure on every request (`always`), or only on requests that came over TLS. */
+  secureCookie?: 'auto' | 'always';
 }
 
 export class ConfigError extends Error {
@@ -46,5 +50,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     adminToken: c.RATEPROOF_ADMIN_TOKEN,
     bodyLimitBytes: Math.round(c.RATEPROOF_BODY_LIMIT_MB * 1024 * 1024),
     logLevel: c.LOG_LEVEL,
+    secureCookie: c.RATEPROOF_SECURE_COOKIE,
   };
 }

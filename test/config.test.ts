@@ -24,6 +24,7 @@ describe('readConfig', () => {
       adminToken: undefined,
       bodyLimitBytes: 5 * 1024 * 1024,
       logLevel: 'info',
+      secureCookie: 'auto',
     });
   });
 
@@ -36,6 +37,7 @@ describe('readConfig', () => {
       RATEPROOF_ADMIN_TOKEN: TOKEN_24,
       RATEPROOF_BODY_LIMIT_MB: '12',
       LOG_LEVEL: 'warn',
+      RATEPROOF_SECURE_COOKIE: 'always',
     });
     expect(config).toEqual({
       databaseUrl: 'postgres://app@db.example:5432/rateproof',
@@ -45,6 +47,7 @@ describe('readConfig', () => {
       adminToken: TOKEN_24,
       bodyLimitBytes: 12 * 1024 * 1024,
       logLevel: 'warn',
+      secureCookie: 'always',
     });
   });
 

@@ -15,9 +15,9 @@ export function readSessionCookie(request: FastifyRequest): string | undefined {
   return undefined;
 }
 
-/** Set-Cookie for a session; an empty value with Max-Age 0 clears it. */
-export function sessionCookieHeader(request: FastifyRequest, value: string, maxAgeSeconds: number): string {
-  const secure = request.protocol === 'https' ? '; Secure' : '';
+/** Set-Cookie for a session; an empty value with Max-Age 0 clears it. Secure over TLS, or always when told. */
+export function sessionCookieHeader(request: FastifyRequest, value: string, maxAgeSeconds: number, alwaysSecure = false): string {
+  const secure = alwaysSecure || request.protocol === 'https' ? '; Secure' : '';
   return `${SESSION_COOKIE}=${encodeURIComponent(value)}; Path=/; HttpOnly; SameSite=Strict; Max-Age=${maxAgeSeconds}${secure}`;
 }
 

@@ -21,7 +21,7 @@ export function registerSessionRoutes(app: FastifyInstance, store: Store, config
     if (!caller) throw new ApiError('unauthenticated', 'the token is not valid');
     if (caller.kind === 'admin') throw new ApiError('forbidden', 'the workspace is for course staff; the admin token works with the API');
     const { session, expiresAt } = await createSession(store.db, caller.staffId, SESSION_HOURS);
-    reply.header('set-cookie', sessionCookieHeader(request, session, SESSION_HOURS * 3600));
+    reply.header('set-cookie', sessionCookieHeader(request, session, SESSION_HOURS * 3600, config.secureCookie === 'always'));
     return reply.code(201).send({ expiresAt, csrfToken: csrfTokenOf(session) });
   });
 
@@ -31,7 +31,7 @@ export function registerSessionRoutes(app: FastifyInstance, store: Store, config
       if (!csrfMatches(session, request.headers['x-csrf-token'])) throw new ApiError('forbidden', 'signing out needs the x-csrf-token header of the page');
       await endSession(store.db, session);
     }
-    reply.header('set-cookie', sessionCookieHeader(request, '', 0));
+    reply.header('set-cookie', sessionCookieHeader(request, '', 0, config.secureCookie === 'always'));
     return reply.code(204).send();
   });
 }

@@ -79,7 +79,10 @@ describe('workspace sessions', () => {
     expect((await api.app.inject({ method: 'GET', url: '/v1/me', headers: { cookie } })).statusCode).toBe(401);
   });
 
-  it('marks the cookie Secure when the service is reached over TLS', () => {
-    expect(sessionCookieHeader({ protocol: 'https' } as FastifyRequest, 'v', 60)).toBe(`${SESSION_COOKIE}=v; Path=/; HttpOnly; SameSite=Strict; Max-Age=60; Secure`);
+  it('marks the cookie Secure when the service is reached over TLS, or always when configured so (behind a TLS proxy)', () => {
+    const secure = `${SESSION_COOKIE}=v; Path=/; HttpOnly; SameSite=Strict; Max-Age=60; Secure`;
+    expect(sessionCookieHeader({ protocol: 'https' } as FastifyRequest, 'v', 60)).toBe(secure);
+    expect(sessionCookieHeader({ protocol: 'http' } as FastifyRequest, 'v', 60)).toBe(secure.replace('; Secure', ''));
+    expect(sessionCookieHeader({ protocol: 'http' } as FastifyRequest, 'v', 60, true)).toBe(secure);
   });
 });
