@@ -51,6 +51,19 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(table.body.find((r: { studentId: string }) => r.studentId === 'S-005').status).toBe('not-submitted');
   });
 
+  it('a dry run reads the CSV layout too', async () => {
+    const readings = ['student_id,run,catalyst,catalyst_unit,time_unit,t,x,infinity', ...[0, 1, 2, 3, 4, 5].map((t) => `S-999,A,0.1,M,min,${t},${(10 + 12 * Math.exp(-0.05 * t)).toFixed(3)},10.000`)].join('\n');
+    const boundary = 'dry-run-boundary';
+    const res = await api.app.inject({
+      method: 'POST',
+      url: `${url()}/submissions?dryRun=true`,
+      headers: { authorization: `Bearer ${s.taAToken}`, 'content-type': `multipart/form-data; boundary=${boundary}` },
+      payload: `--${boundary}\r\nContent-Disposition: form-data; name="readings"; filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n${readings}\r\n--${boundary}--\r\n`,
+    });
+    expect(res.statusCode, res.body).toBe(200);
+    expect(res.json()).toEqual({ dryRun: true, valid: 0, rejected: [{ at: 'submission 1', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" }] });
+  });
+
   it('a resubmission is a new version; the old one stays readable', async () => {
     const [again] = submissionsFor(['S-001'], 7);
     const res = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [again], 201);
