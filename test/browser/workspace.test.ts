@@ -128,8 +128,10 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.close();
   });
 
-  it('shows a hostile run label as text and runs nothing', async () => {
+  it('shows a hostile run label as text and runs nothing, and readings that look alike as a prompt', async () => {
     const [submission] = generateSection(seededRandom(9), generateAssignment(seededRandom(9), { fitModel: 'origin' }), ['S-006']).submissions;
+    const copied = JSON.parse(await readFile(batchFile, 'utf8'))[0];
+    submission.runs = structuredClone(copied.runs);
     submission.runs[0].label = '<img src=x onerror="window.__hostile=1">';
     const stored = await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`, s.taAToken, [submission], 201);
     const page = await browser.newPage();
@@ -138,6 +140,9 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.getByText('k_obs, run <img src=x onerror="window.__hostile=1">').waitFor();
     expect(await page.evaluate(() => (window as unknown as { __hostile?: number }).__hostile)).toBeUndefined();
     expect(await page.locator('main img').count()).toBe(0);
+    await page.getByRole('link', { name: /^Section A/ }).click();
+    await page.getByRole('heading', { name: 'Readings that look alike' }).waitFor();
+    await page.getByText(new RegExp(`^${copied.studentId} and S-006: 4 runs with the same readings; \\d reported k written alike to every digit\\.$`)).waitFor();
     await page.close();
   });
 

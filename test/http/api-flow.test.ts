@@ -203,6 +203,22 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect((await call(api.app, 'PUT', `${section}/roster/S-102`, s.taBToken, { status: 'withdrawn' })).status).toBe(403);
   });
 
+  it('lists submissions whose readings look alike, for the TA to review', async () => {
+    const before = await call(api.app, 'GET', `${url()}/shared-readings`, s.taAToken, undefined, 200);
+    expect(before.body).toEqual({ pairs: [], groups: [] });
+    // S-005 hands in S-001's latest readings shifted by a constant.
+    const history = await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/students/S-001/history`, s.taAToken, undefined, 200);
+    const latest = await call(api.app, 'GET', `/v1/submissions/${history.body[history.body.length - 1].submissionId}`, s.taAToken, undefined, 200);
+    const copy = structuredClone(latest.body.payload);
+    copy.studentId = 'S-005';
+    for (const run of copy.runs) run.readings = run.readings.map(([t, x]: [number, number]) => [t, Number((x + 0.75).toFixed(3))]);
+    await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [copy], 201);
+    const after = await call(api.app, 'GET', `${url()}/shared-readings`, s.taAToken, undefined, 200);
+    expect(after.body.pairs).toHaveLength(1);
+    expect(after.body.pairs[0].students).toEqual(['S-001', 'S-005']);
+    expect(after.body.pairs[0].runs.every((r: { relation: string }) => r.relation === 'offset')).toBe(true);
+  });
+
   it("lists the course's staff with their sections and live tokens, for the instructor", async () => {
     const staff = await call(api.app, 'GET', `/v1/courses/${s.course.id}/staff`, s.instructorToken, undefined, 200);
     expect(staff.body.slice(0, 3).map((m: { handle: string; role: string; sectionIds: number[]; liveTokens: number }) => [m.handle, m.role, m.sectionIds, m.liveTokens])).toEqual([

@@ -58,6 +58,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'POST /v1/submissions/:submissionId/overrides': (f) => ({ url: `/v1/submissions/${f.submissionId}/overrides`, body: { findingId: f.findingId, pointsLost: 1, reason: 'checked by hand' } }),
   'GET /v1/sections/:sectionId/students/:studentId/history': (f) => ({ url: `/v1/sections/${f.sectionA.id}/students/S-001/history` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/results': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/results` }),
+  'GET /v1/sections/:sectionId/assignments/:assignmentId/shared-readings': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/shared-readings` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/release': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/release` }),
   'POST /v1/submissions/:submissionId/release': (f) => ({ url: `/v1/submissions/${f.submissionId}/release` }),
   'GET /v1/submissions/:submissionId/feedback.pdf': (f) => ({ url: `/v1/submissions/${f.submissionId}/feedback.pdf` }),

@@ -25,11 +25,40 @@ const COLUMNS = [
 
 const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted': 'not submitted', withdrawn: 'withdrawn' };
 
+const RELATION_WORDS = { identical: 'the same readings', offset: 'the same readings shifted by a constant', scaled: 'the same readings rescaled', edited: 'the same readings with a few cells changed' };
+
+/** Pairs of submissions whose readings look alike: shown only when there are some, worded as a prompt. */
+function sharedPanel(shared) {
+  if (shared.pairs.length === 0) return null;
+  return h(
+    'section',
+    { class: 'panel signals' },
+    h('h2', {}, 'Readings that look alike'),
+    h('p', {}, 'Separate measurements agree in shape but not reading by reading. These submissions match cell by cell. This is a prompt to look and ask the students, not a finding: no points depend on it and nothing of it reaches a student.'),
+    h(
+      'ul',
+      {},
+      shared.pairs.map((p) =>
+        h(
+          'li',
+          {},
+          `${p.students[0]} and ${p.students[1]}: `,
+          p.runs.length ? `${p.runs.length} run${p.runs.length === 1 ? '' : 's'} with ${[...new Set(p.runs.map((r) => RELATION_WORDS[r.relation]))].join(', ')}` : '',
+          p.runs.length && p.sameReportedK.length ? '; ' : '',
+          p.sameReportedK.length ? `${p.sameReportedK.length} reported k written alike to every digit` : '',
+          '.',
+        ),
+      ),
+    ),
+    shared.groups.length ? h('p', {}, `Shared by more than two: ${shared.groups.map((g) => g.join(', ')).join('; ')}.`) : null,
+  );
+}
+
 /** One section's results for one assignment: every roster student, filters, counts, release, files. */
 export async function sectionView(place, failure) {
   const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
   const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
-  let rows = await api('GET', `${base}/results`);
+  let [rows, shared] = await Promise.all([api('GET', `${base}/results`), api('GET', `${base}/shared-readings`)]);
 
   const body = h('tbody');
   const shown = h('p', { class: 'hint', 'aria-live': 'polite' });
@@ -147,6 +176,7 @@ export async function sectionView(place, failure) {
       ),
     ),
     uploadPanel(base, refresh, failure),
+    sharedPanel(shared),
     counts,
     h(
       'div',

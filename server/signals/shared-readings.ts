@@ -1,0 +1,157 @@
+/**
+ * Data that look alike across a section, where every student measured their own: pairs of
+ * submissions whose runs hold the same readings, exactly, after a constant offset, after a change of
+ * scale, in another order of runs, or with a few cells edited; and reported rate constants equal to
+ * every digit. A prompt for the TA to look and ask, never a finding: honest runs of one experiment
+ * agree in shape but not reading by reading, as each carries its own noise.
+ *
+ * Each run is compared as F_i = (x_i - x_last)/(x_0 - x_last), which an offset or a scale leaves
+ * unchanged. Two runs match when at least MATCHING_SHARE of their cells agree to two display steps
+ * (relative to the run's amplitude); two submissions are paired when at least MATCHING_RUNS of their
+ * runs match a run of the other, in any order.
+ */
+export const MATCHING_SHARE = 0.75;
+export const MATCHING_RUNS = 2;
+const STEPS = 2;
+
+export interface SubmittedReadings {
+  studentId: string;
+  runs: Array<{ label: string; readings: Array<[number, number]> }>;
+  /** Reported k of each run as written (string or number), where given. */
+  reportedK?: Array<string | number | undefined>;
+}
+
+export type Relation = 'identical' | 'offset' | 'scaled' | 'edited';
+
+export interface RunMatch {
+  /** Run indices in the first and the second submission. */
+  runs: [number, number];
+  relation: Relation;
+  matchingCells: number;
+  cells: number;
+}
+
+export interface SharedPair {
+  students: [string, string];
+  runs: RunMatch[];
+  /** Runs whose reported k is written the same, to every digit (4 or more significant figures). */
+  sameReportedK: Array<[number, number]>;
+}
+
+export interface SharedReport {
+  pairs: SharedPair[];
+  /** Students linked by pairs, where more than two share. */
+  groups: string[][];
+}
+
+interface Prepared {
+  x: number[];
+  f: number[];
+  /** Two display steps as a share of the run's amplitude. */
+  tolerance: number;
+}
+
+function decimals(x: number): number {
+  const text = String(Math.abs(x));
+  if (text.includes('e')) return 6;
+  const dot = text.indexOf('.');
+  return dot < 0 ? 0 : text.length - dot - 1;
+}
+
+function prepare(readings: Array<[number, number]>): Prepared | undefined {
+  const x = readings.map((r) => Number(r[1]));
+  if (x.length < 4 || !x.every(Number.isFinite)) return undefined;
+  const span = x[0] - x[x.length - 1];
+  if (span === 0) return undefined;
+  const step = 10 ** -Math.max(...x.map(decimals));
+  return { x, f: x.map((v) => (v - x[x.length - 1]) / span), tolerance: (STEPS * step) / Math.abs(span) };
+}
+
+function constantWithin(values: number[], tolerance: number): boolean {
+  return Math.max(...values) - Math.min(...values) <= tolerance;
+}
+
+function compareRuns(a: Prepared, b: Prepared): Omit<RunMatch, 'runs'> | undefined {
+  if (a.x.length !== b.x.length) return undefined;
+  const tolerance = Math.max(a.tolerance, b.tolerance);
+  // Most pairs differ in most cells: stop once too many differ.
+  const allowed = a.f.length - Math.ceil(MATCHING_SHARE * a.f.length);
+  let differing = 0;
+  for (let i = 0; i < a.f.length && differing <= allowed; i++) if (!(Math.abs(a.f[i] - b.f[i]) <= tolerance)) differing++;
+  if (differing > allowed) return undefined;
+  const matching = a.f.length - differing;
+  const cells = a.x.length;
+  if (matching === cells) {
+    const step = Math.max(a.tolerance * Math.abs(a.x[0] - a.x[cells - 1]), b.tolerance * Math.abs(b.x[0] - b.x[cells - 1])) / STEPS;
+    if (a.x.every((v, i) => v === b.x[i])) return { relation: 'identical', matchingCells: cells, cells };
+    if (constantWithin(a.x.map((v, i) => b.x[i] - v), 2 * step)) return { relation: 'offset', matchingCells: cells, cells };
+    if (a.x.every((v) => v !== 0) && constantWithin(a.x.map((v, i) => b.x[i] / v), 2 * step / Math.min(...a.x.map(Math.abs)))) return { relation: 'scaled', matchingCells: cells, cells };
+  }
+  return { relation: 'edited', matchingCells: matching, cells };
+}
+
+/** A written value with 4 or more significant figures: short values (0.03) are equal by chance. */
+function distinctive(value: string | number | undefined): string | undefined {
+  if (value === undefined) return undefined;
+  const text = String(value).trim();
+  const digits = text.split(/e/i)[0].replace(/[^0-9]/g, '').replace(/^0+/, '');
+  return digits.length >= 4 ? text : undefined;
+}
+
+function comparePair(a: SubmittedReadings, pa: Array<Prepared | undefined>, b: SubmittedReadings, pb: Array<Prepared | undefined>): SharedPair | undefined {
+  const runs: RunMatch[] = [];
+  const usedB = new Set<number>();
+  pa.forEach((ra, i) => {
+    if (!ra) return;
+    for (let j = 0; j < pb.length; j++) {
+      const rb = pb[j];
+      if (!rb || usedB.has(j)) continue;
+      const match = compareRuns(ra, rb);
+      if (match) {
+        runs.push({ runs: [i, j], ...match });
+        usedB.add(j);
+        return;
+      }
+    }
+  });
+  const sameReportedK: Array<[number, number]> = [];
+  (a.reportedK ?? []).forEach((ka, i) => {
+    const text = distinctive(ka);
+    if (text === undefined) return;
+    const j = (b.reportedK ?? []).findIndex((kb) => distinctive(kb) === text);
+    if (j >= 0) sameReportedK.push([i, j]);
+  });
+  if (runs.length < Math.min(MATCHING_RUNS, a.runs.length, b.runs.length) && sameReportedK.length < MATCHING_RUNS) return undefined;
+  return { students: [a.studentId, b.studentId], runs, sameReportedK };
+}
+
+/** Connected students, in groups of three or more. */
+function groupsOf(pairs: SharedPair[]): string[][] {
+  const parent = new Map<string, string>();
+  const find = (s: string): string => {
+    const p = parent.get(s) ?? s;
+    if (p === s) return s;
+    const root = find(p);
+    parent.set(s, root);
+    return root;
+  };
+  for (const { students } of pairs) parent.set(find(students[0]), find(students[1]));
+  const groups = new Map<string, string[]>();
+  for (const s of new Set(pairs.flatMap((p) => p.students))) {
+    const root = find(s);
+    groups.set(root, [...(groups.get(root) ?? []), s]);
+  }
+  return [...groups.values()].filter((g) => g.length > 2).map((g) => g.sort());
+}
+
+export function findSharedReadings(submissions: SubmittedReadings[]): SharedReport {
+  const prepared = submissions.map((s) => s.runs.map((r) => prepare(r.readings)));
+  const pairs: SharedPair[] = [];
+  for (let i = 0; i < submissions.length; i++) {
+    for (let j = i + 1; j < submissions.length; j++) {
+      const pair = comparePair(submissions[i], prepared[i], submissions[j], prepared[j]);
+      if (pair) pairs.push(pair);
+    }
+  }
+  return { pairs, groups: groupsOf(pairs) };
+}
