@@ -27,30 +27,50 @@ const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted':
 
 const RELATION_WORDS = { identical: 'the same readings', offset: 'the same readings shifted by a constant', scaled: 'the same readings rescaled', edited: 'the same readings with a few cells changed' };
 
-/** Pairs of submissions whose readings look alike: shown only when there are some, worded as a prompt. */
-function sharedPanel(shared) {
-  if (shared.pairs.length === 0) return null;
+/** Signals across the section, shown only when there are some, worded as prompts for review. */
+function signalsPanel(signals) {
+  if (signals.pairs.length === 0 && signals.smooth.length === 0) return null;
+  const alike = signals.pairs.length
+    ? [
+        h('h3', {}, 'Readings that look alike'),
+        h('p', {}, 'Separate measurements agree in shape but not reading by reading. These submissions match cell by cell.'),
+        h(
+          'ul',
+          {},
+          signals.pairs.map((p) =>
+            h(
+              'li',
+              {},
+              `${p.students[0]} and ${p.students[1]}: `,
+              p.runs.length ? `${p.runs.length} run${p.runs.length === 1 ? '' : 's'} with ${[...new Set(p.runs.map((r) => RELATION_WORDS[r.relation]))].join(', ')}` : '',
+              p.runs.length && p.sameReportedK.length ? '; ' : '',
+              p.sameReportedK.length ? `${p.sameReportedK.length} reported k written alike to every digit` : '',
+              '.',
+            ),
+          ),
+        ),
+        signals.groups.length ? h('p', {}, `Shared by more than two: ${signals.groups.map((g) => g.join(', ')).join('; ')}.`) : null,
+      ]
+    : [];
+  const smooth = signals.smooth.length
+    ? [
+        h('h3', {}, 'Readings smoother than the instrument reads'),
+        h(
+          'ul',
+          {},
+          signals.smooth.map((r) =>
+            h('li', {}, `${r.studentId}, run ${r.label}: the readings scatter ${num(r.residualSD)} about the curve, no more than rounding to ${num(r.step)} alone gives; the section's runs scatter ${num(r.sectionMedianSD)} (median).`),
+          ),
+        ),
+      ]
+    : [];
   return h(
     'section',
     { class: 'panel signals' },
-    h('h2', {}, 'Readings that look alike'),
-    h('p', {}, 'Separate measurements agree in shape but not reading by reading. These submissions match cell by cell. This is a prompt to look and ask the students, not a finding: no points depend on it and nothing of it reaches a student.'),
-    h(
-      'ul',
-      {},
-      shared.pairs.map((p) =>
-        h(
-          'li',
-          {},
-          `${p.students[0]} and ${p.students[1]}: `,
-          p.runs.length ? `${p.runs.length} run${p.runs.length === 1 ? '' : 's'} with ${[...new Set(p.runs.map((r) => RELATION_WORDS[r.relation]))].join(', ')}` : '',
-          p.runs.length && p.sameReportedK.length ? '; ' : '',
-          p.sameReportedK.length ? `${p.sameReportedK.length} reported k written alike to every digit` : '',
-          '.',
-        ),
-      ),
-    ),
-    shared.groups.length ? h('p', {}, `Shared by more than two: ${shared.groups.map((g) => g.join(', ')).join('; ')}.`) : null,
+    h('h2', {}, 'For review: patterns across the section'),
+    h('p', { class: 'hint' }, 'Prompts to look and ask the students, not findings: no points depend on them and nothing of them reaches a student.'),
+    alike,
+    smooth,
   );
 }
 
@@ -58,7 +78,7 @@ function sharedPanel(shared) {
 export async function sectionView(place, failure) {
   const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
   const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
-  let [rows, shared] = await Promise.all([api('GET', `${base}/results`), api('GET', `${base}/shared-readings`)]);
+  let [rows, signals] = await Promise.all([api('GET', `${base}/results`), api('GET', `${base}/signals`)]);
 
   const body = h('tbody');
   const shown = h('p', { class: 'hint', 'aria-live': 'polite' });
@@ -176,7 +196,7 @@ export async function sectionView(place, failure) {
       ),
     ),
     uploadPanel(base, refresh, failure),
-    sharedPanel(shared),
+    signalsPanel(signals),
     counts,
     h(
       'div',
