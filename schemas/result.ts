@@ -85,6 +85,20 @@ export type Rejection = z.infer<typeof Rejection>;
 export const RubricCount = z.object({ item: z.string(), count: z.number().int().nonnegative(), each: z.number().nonnegative() });
 export type RubricCount = z.infer<typeof RubricCount>;
 
+/**
+ * What the numbers say about how the experiment was run, for the TA's review: never points lost, never
+ * on a student's sheet unless a TA puts it there.
+ */
+export const signalCodes = ['small-change', 'over-resolution'] as const;
+export const Signal = z.object({
+  code: z.enum(signalCodes),
+  path: z.string(),
+  /** Neutral words with the evidence. */
+  message: z.string(),
+  evidence: z.record(z.string(), z.number()),
+});
+export type Signal = z.infer<typeof Signal>;
+
 export const CheckResult = z.object({
   studentId: z.string().nullable(),
   status: z.enum(['checked', 'rejected']),
@@ -95,6 +109,8 @@ export const CheckResult = z.object({
   /** Our own values for every quantity; the shape is the experiment kind's. */
   refit: z.record(z.string(), z.unknown()).nullable(),
   findings: z.array(Finding),
+  /** Signals about the measurement, for review (absent in results stored before they were kept). */
+  signals: z.array(Signal).optional(),
   rejected: z.array(Rejection).optional(),
   engineVersion: z.string(),
 });

@@ -109,6 +109,8 @@ export const Settings = z.object({
   classDataset: z.object({ runs: z.array(RunData).min(1) }).optional(),
   /** Plausibility bands. */
   reference: z.object({ kN: Band.optional(), kA: Band.optional() }).optional(),
+  /** The smallest change the instrument displays, in the readings' unit (0.001 deg for a polarimeter). */
+  displayStep: z.number().positive().max(1).default(0.001),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;

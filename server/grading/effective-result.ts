@@ -1,4 +1,4 @@
-import type { Finding, RubricCount } from '../../schemas/result.ts';
+import type { Finding, RubricCount, Signal } from '../../schemas/result.ts';
 import type { OverrideRow, ResultRow } from '../store/submissions.ts';
 
 /**
@@ -24,10 +24,12 @@ export interface EffectiveResult {
   rejected: Array<{ path: string; message: string }>;
   /** What the maximum is made of (absent in results stored before it was kept). */
   items?: RubricCount[];
+  /** Signals about the measurement, for review; empty in results stored before they were kept. */
+  signals: Signal[];
 }
 
 export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): EffectiveResult {
-  const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }>; items?: RubricCount[] };
+  const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }>; items?: RubricCount[]; signals?: Signal[] };
   const latest = new Map<string, OverrideRow>();
   for (const o of overrides) if (o.submissionId === row.submissionId) latest.set(o.findingId, o);
   const findings: EffectiveFinding[] = stored.findings.map((f) => {
@@ -49,5 +51,6 @@ export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): Effec
     findings,
     rejected: stored.rejected,
     items: stored.items,
+    signals: stored.signals ?? [],
   };
 }

@@ -29,6 +29,6 @@ export function gradeForStore(input: { settingsJson: string; submissions: unknow
     rejected: result.rejected ?? [],
     payloadJson: read === undefined ? undefined : JSON.stringify(read),
     refitJson: result.refit === null ? null : JSON.stringify(result.refit),
-    findingsJson: JSON.stringify({ findings: result.findings, rejected: result.rejected ?? [], items: result.items }),
+    findingsJson: JSON.stringify({ findings: result.findings, rejected: result.rejected ?? [], items: result.items, signals: result.signals }),
   }));
 }

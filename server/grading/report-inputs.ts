@@ -13,7 +13,7 @@ import { effectiveResult, type EffectiveResult } from './effective-result.ts';
  * TAs' overrides applied, the settings that result used, and the names for the header.
  */
 function asCheckResult(studentId: string, r: EffectiveResult): CheckResult {
-  return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, items: r.items, refit: r.refit as CheckResult['refit'], findings: r.findings, rejected: r.rejected, engineVersion: r.engineVersion };
+  return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, items: r.items, refit: r.refit as CheckResult['refit'], findings: r.findings, signals: r.signals, rejected: r.rejected, engineVersion: r.engineVersion };
 }
 
 async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], sectionId: number, assignmentId: number): Promise<FeedbackInput[]> {

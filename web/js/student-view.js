@@ -142,6 +142,15 @@ export async function studentView(place, submissionId, failure) {
         return here.length ? h('section', { class: 'stage' }, h('h2', {}, title), h('ul', { class: 'findings' }, here.map(findingCard))) : null;
       }),
       findings.length === 0 && result?.status === 'checked' ? h('p', {}, 'No findings: every checked value agrees with the refit.') : null,
+      result?.signals?.length
+        ? h(
+            'section',
+            { class: 'panel signals' },
+            h('h2', {}, 'For review: how the runs were measured'),
+            h('p', { class: 'hint' }, 'What the readings suggest about the measurement. Prompts to look and ask, not findings: no points depend on them and they are not on the student’s sheet.'),
+            h('ul', {}, result.signals.map((sig) => h('li', {}, h('code', {}, sig.code), ' ', sig.message))),
+          )
+        : null,
       h('section', {}, h('h2', {}, 'Reported and refitted'), comparisonTable(view.payload ?? {}, result?.refit, assignment.settings), plots(view.payload ?? {}, result?.refit, assignment.settings)),
     );
   }

@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { cleanCase } from '../../server/demo/submission-generator.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { syntheticReadings } from '../../server/demo/synthetic-run.ts';
+
+/** Signals about how a run was measured: never on honest generated work, always on the condition. */
+const assignment = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin', rubric: { lnF: 0 } });
+const times = Array.from({ length: 16 }, (_, t) => t);
+
+/** An invented run, noise 0.003 deg, shown to `places` decimals. */
+function run(seed: number, x0: number, xInf: number, places = 3) {
+  const xs = syntheticReadings({ k: 0.05, x0, xInf, times, noise: 0.003, random: seededRandom(seed) }).map((x) => Number(x.toFixed(places)));
+  return { label: 'A', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings: times.map((t, i) => [t, xs[i]]), infinity: xInf };
+}
+const signalsOf = (r: object) => checkSubmission(assignment, { studentId: 'G-01', runs: [r] }).signals ?? [];
+
+describe('measurement signals', () => {
+  it('are raised on no honest generated submission (300, every assignment variant)', () => {
+    let signalled = 0;
+    for (let seed = 0; seed < 300; seed++) {
+      const { settings, submission } = cleanCase(seed);
+      if ((checkSubmission(parseAssignment(settings), submission).signals ?? []).length > 0) signalled++;
+    }
+    console.log(`honest: ${signalled} of 300 submissions with a signal`);
+    expect(signalled).toBe(0);
+  });
+
+  it('name readings written more finely than the display (computed values), with the count', () => {
+    for (let seed = 0; seed < 20; seed++) {
+      expect(signalsOf(run(seed, 22.4, 10.5, 6))).toEqual([expect.objectContaining({ code: 'over-resolution', path: 'runs[0].readings', evidence: expect.objectContaining({ readingsOffStep: expect.any(Number), displayStep: 0.001 }) })]);
+    }
+    expect(signalsOf(run(1, 22.4, 10.5))).toEqual([]);
+  });
+
+  it('name a run whose readings move too few display steps for k to be known to 5 %', () => {
+    // An amplitude of 0.03 deg, a change of about 0.016 deg over the run: some 16 display steps. Every seed of 20.
+    for (let seed = 0; seed < 20; seed++) {
+      const signals = signalsOf(run(seed, 10.53, 10.5));
+      expect(signals.map((s) => s.code)).toEqual(['small-change']);
+      expect(signals[0].evidence.relativeStandardError).toBeGreaterThan(0.05);
+      expect(signals[0].evidence.displaySteps).toBeLessThan(200);
+    }
+  });
+});
