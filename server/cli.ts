@@ -14,7 +14,7 @@ export type { CliIo } from './cli/cli-io.ts';
 type Command = (args: string[], io: CliIo) => Promise<number>;
 
 const USAGE = `usage: rateproof check --assignment A.json SUBMISSIONS.(json|jsonl|csv) [--reported R.csv]
-                      [--json | --jsonl [--arrays]] [--out DIR] [--workers N]
+                      [--json | --jsonl [--arrays]] [--out DIR] [--signals FILE] [--workers N]
        rateproof serve
        rateproof demo
 
@@ -24,6 +24,8 @@ const USAGE = `usage: rateproof check --assignment A.json SUBMISSIONS.(json|json
           --json prints the results as a JSON array instead of a table
           --jsonl prints one compact result per line, without the per-reading arrays (--arrays keeps them)
           --out DIR writes DIR/<studentId>.pdf per checked result, DIR/gradebook.csv, DIR/summary.pdf
+          --signals FILE writes, as JSON, what the batch's data suggest for review (readings that look
+                    alike across submissions, runs smoother than the instrument reads): prompts, not findings
           --workers N checks in N worker threads (default: one per core for files of 4 MB or more, else 0)
 `;
 

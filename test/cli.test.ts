@@ -145,6 +145,16 @@ describe('rateproof check: results', () => {
     expect(lines[rejected + 1]).toMatch(/^ {2}rejected +runs\[0\]\.readings\[1\]\[1\] +\S/);
   });
 
+  it('--signals FILE writes what the batch suggests for review: here s-01 and s-03 hand in the same readings', async () => {
+    const result = await rateproof('check', '--assignment', file('assignment.json'), file('batch.json'), '--signals', file('signals.json'));
+    expect(result.code).toBe(0);
+    expect(result.stdout).toContain(`signals for review: 1 pair(s) of submissions with readings that look alike, 0 run(s) smoother than the instrument reads; written to ${file('signals.json')}`);
+    const signals = JSON.parse(await readFile(file('signals.json'), 'utf8'));
+    expect(signals.pairs.map((p: { students: string[]; runs: Array<{ relation: string }> }) => [p.students, p.runs.map((r) => r.relation)])).toEqual([[['s-01', 's-03'], ['identical', 'identical', 'identical']]]);
+    // The results are printed as without it.
+    expect(result.stdout.split('\n')[0]).toMatch(/^student +score/);
+  });
+
   it('reads a CSV readings file with a reported-values file', async () => {
     const result = await rateproof('check', '--assignment', file('assignment.json'), file('readings.csv'), '--reported', file('reported.csv'), '--json');
     expect(result.stderr).toBe('');

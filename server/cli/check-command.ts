@@ -1,5 +1,5 @@
 import { createReadStream } from 'node:fs';
-import { stat } from 'node:fs/promises';
+import { stat, writeFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { checkBatch } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
@@ -34,6 +34,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     arrays: { type: 'boolean' },
     out: { type: 'string' },
     workers: { type: 'string' },
+    signals: { type: 'string' },
   });
   const { assignment: assignmentPath, reported: reportedPath } = values;
   if (assignmentPath === undefined || positionals.length !== 1) {
@@ -51,7 +52,8 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 
   const assignment = await readAssignment(assignmentPath, io);
   const printed: ResultOutput = values.json ? 'json' : values.jsonl ? 'jsonl' : 'table';
-  const output: ResultOutput = values.out !== undefined ? 'results' : printed;
+  // Reports and signals need every result and submission kept until the end.
+  const output: ResultOutput = values.out !== undefined || values.signals !== undefined ? 'results' : printed;
   const sink = new ResultSink(printed, !!values.arrays, io);
 
   let pool: WorkerPool | undefined;
@@ -67,19 +69,39 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
       const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
       await streamBatches(submissionsPath, jsonLines, pool, (batch) => ({ settingsJson, batch, jsonLines, output, arrays: !!values.arrays }), sink);
     }
-    if (values.out === undefined) {
+    if (output !== 'results') {
       sink.finish();
       return 0;
     }
-    const { writeReports } = await import('./write-reports.ts');
     const results = sink.results;
-    const count = await writeReports(values.out, { assignmentPath, submissionsPath }, assignment, sink.submissions, results, io, pool);
+    const count = values.out === undefined ? undefined : await (await import('./write-reports.ts')).writeReports(values.out, { assignmentPath, submissionsPath }, assignment, sink.submissions, results, io, pool);
     sink.print(results);
     sink.finish();
-    if (printed === 'table') io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${values.out}\n`);
+    if (printed === 'table' && count !== undefined) io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${values.out}\n`);
+    if (values.signals !== undefined) await writeSignals(values.signals, assignment.settings, sink.submissions, results, printed === 'table', io);
     return 0;
   } finally {
     await pool?.close();
+  }
+}
+
+/** --signals FILE: the section's signals as JSON, from the submissions the checker could read. */
+async function writeSignals(path: string, settings: unknown, submissions: unknown[], results: CheckResult[], say: boolean, io: CliIo): Promise<void> {
+  const { sectionSignals } = await import('../signals/section-signals.ts');
+  const checked = submissions.filter((_, i) => results[i]?.status === 'checked');
+  const report = sectionSignals(settings as { kind: string }, checked);
+  try {
+    await writeFile(path, `${JSON.stringify(report, null, 2)}\n`);
+  } catch (error) {
+    if (isFileError(error)) throw new InputError(`cannot write ${path}: ${fileErrorReason(error)}`);
+    throw error;
+  }
+  if (say) {
+    io.stdout(
+      report.notCompared
+        ? `signals: nothing compared (${report.notCompared}); written to ${path}\n`
+        : `signals for review: ${report.pairs.length} pair(s) of submissions with readings that look alike, ${report.smooth.length} run(s) smoother than the instrument reads; written to ${path}\n`,
+    );
   }
 }
 

@@ -1,6 +1,5 @@
 import { z } from 'zod';
-import { findSharedReadings, type SubmittedReadings } from '../signals/shared-readings.ts';
-import { findSmoothRuns } from '../signals/smooth-readings.ts';
+import { sectionSignals } from '../signals/section-signals.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { latestSubmissions } from '../store/submissions.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -17,9 +16,6 @@ const SectionSignals = z.object({
   smooth: z.array(z.object({ studentId: z.string(), run: z.number(), label: z.string(), residualSD: z.number(), step: z.number(), sectionMedianSD: z.number() })),
 });
 
-type Payload = { studentId: string; runs: Array<{ label: string; timeUnit: string; readings: Array<[number, number]>; reported?: { k?: { value: string | number } } }> };
-const nothing = (why: string) => ({ status: 200, body: { notCompared: why, pairs: [], groups: [], smooth: [] } });
-
 export const signalRoutes: RouteSpec[] = [
   {
     method: 'GET',
@@ -30,13 +26,8 @@ export const signalRoutes: RouteSpec[] = [
     schema: { params: z.object({ sectionId: IdParam, assignmentId: IdParam }), response: { 200: SectionSignals } },
     async handler({ db, scope, params }) {
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
-      const settings = assignment.settings as { kind: string; classDataset?: unknown };
-      if (settings.kind !== 'first-order-catalysis') return nothing(`the kind ${settings.kind} has no runs of readings to compare`);
-      if (settings.classDataset) return nothing('the class was handed one dataset, so shared and identical readings are expected');
       const rows = await latestSubmissions(db, assignment.id, scope.sectionId!);
-      const payloads = rows.map((row) => ({ studentId: row.studentId, runs: (row.payload as Payload).runs }));
-      const submissions: SubmittedReadings[] = payloads.map((p) => ({ ...p, reportedK: p.runs.map((r) => r.reported?.k?.value) }));
-      return { status: 200, body: { ...findSharedReadings(submissions), smooth: findSmoothRuns(payloads) } };
+      return { status: 200, body: sectionSignals(assignment.settings as { kind: string }, rows.map((row) => row.payload)) };
     },
   },
 ];
