@@ -1,5 +1,6 @@
 import type { Settings, Submission } from '../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../schemas/result.ts';
+import type { SectionSignals } from '../server/signals/section-signals.ts';
 
 /** What a feedback sheet is made from: plain data, no schema objects, no I/O. */
 export interface FeedbackHeader {
@@ -39,6 +40,8 @@ export interface SectionSummaryInput {
   results: CheckResult[];
   /** The submissions, matched to results by student id: their reported k_N and k_A are summarised too. */
   submissions?: Submission[];
+  /** The section's signals for review, where they were computed. */
+  signals?: SectionSignals;
   invented?: boolean;
 }
 

@@ -11,6 +11,7 @@ import { classValues, type ClassValues } from './summary/class-values.ts';
 import { codeCounts } from './summary/code-counts.ts';
 import { drawScoreHistogram } from './summary/histogram.ts';
 import { percentBins, spread } from './summary/stats.ts';
+import { drawSignals } from './summary/signals-block.ts';
 import { drawStripPlot } from './summary/strip-plot.ts';
 
 export type { SectionSummaryInput, SummaryHeader } from './feedback-input.ts';
@@ -165,7 +166,8 @@ function drawAttention(doc: Doc, input: SectionSummaryInput): void {
 
 /**
  * A section at a glance, as PDF bytes: score distribution, the class's k_N and k_A against the
- * reference band, how often each finding occurred, and who most needs a TA's attention (ids only).
+ * reference band, how often each finding occurred, who most needs a TA's attention (ids only), and
+ * the section's signals for review where they are given.
  */
 export async function renderSectionSummary(input: SectionSummaryInput): Promise<Buffer> {
   const gradedAt = new Date(input.header.gradedAt);
@@ -176,6 +178,7 @@ export async function renderSectionSummary(input: SectionSummaryInput): Promise<
   drawAttention(doc, input);
   drawRateConstants(doc, input);
   drawCodes(doc, input);
+  if (input.signals) drawSignals(doc, input.signals);
   finish(doc, {
     left: `Rateproof section summary · ${input.header.section} · ${input.header.assignment} · ${formatPoints(input.results.length)} students`,
     invented: input.invented ? INVENTED_NOTE : undefined,

@@ -50,6 +50,8 @@ export async function writeReports(
   }
   await save('gradebook.csv', gradebookCsv(results, { bom: true }));
   const { renderSectionSummary } = await import('../../reports/section-summary.ts');
-  await save('summary.pdf', await renderSectionSummary({ header, settings, results, submissions: sheets.map((s) => s.input.submission) }));
+  const { sectionSignals } = await import('../signals/section-signals.ts');
+  const submissionsRead = sheets.map((s) => s.input.submission);
+  await save('summary.pdf', await renderSectionSummary({ header, settings, results, submissions: submissionsRead, signals: sectionSignals(settings, submissionsRead) }));
   return sheets.length;
 }

@@ -8,6 +8,7 @@ import { renderSectionSummary } from '../../reports/section-summary.ts';
 import { buildApp } from '../app.ts';
 import type { Config } from '../config.ts';
 import { sectionFeedback, sectionResults } from '../grading/report-inputs.ts';
+import { sectionSignals } from '../signals/section-signals.ts';
 import { openStore } from '../store/connection.ts';
 import { migrateToLatest } from '../store/migrate.ts';
 import { seededRandom } from './seeded-random.ts';
@@ -64,6 +65,7 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
         settings: inputs[0].settings,
         results: inputs.map((i) => i.result),
         submissions: inputs.map((i) => i.submission),
+        signals: sectionSignals(inputs[0].settings, inputs.map((i) => i.submission)),
         invented: true,
       }),
     );

@@ -7,6 +7,7 @@ import { needAttention } from '../../reports/summary/attention.ts';
 import { classValues } from '../../reports/summary/class-values.ts';
 import { codeCounts } from '../../reports/summary/code-counts.ts';
 import { percentBins, spread } from '../../reports/summary/stats.ts';
+import { sectionSignals } from '../../server/signals/section-signals.ts';
 import { GRADED_AT, section } from './fixtures.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 
@@ -46,6 +47,23 @@ describe('section summary figures', () => {
 });
 
 describe('renderSectionSummary', () => {
+  it('lists the section signals for review, worded as prompts, when they are given', async () => {
+    // One student hands in another's readings shifted by a constant.
+    const copy = structuredClone(submissions[0]);
+    copy.studentId = 'S-099';
+    for (const run of copy.runs) run.readings = run.readings.map(([t, x]) => [t, Number((Number(x) + 0.5).toFixed(3))]);
+    const all = [...submissions, copy];
+    const signals = sectionSignals(s.settings, all);
+    expect(signals.pairs.map((p) => p.students)).toEqual([[submissions[0].studentId, 'S-099']]);
+    const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results, submissions: all, signals })));
+    expect(text).toContain('For review: patterns across the section');
+    expect(text).toContain('not findings: no points depend on them');
+    expect(text).toContain(`${submissions[0].studentId} and S-099`);
+    expect(text).toContain('shifted by a constant');
+    const without = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results, submissions })));
+    expect(without).not.toContain('For review');
+  });
+
   it('prints the section, the spread of k_A, the codes and the ids needing attention', async () => {
     const pdf = await renderSectionSummary({ header, settings: s.settings, results, submissions, invented: true });
     const text = folded(await pdfText(pdf));
