@@ -33,5 +33,8 @@ await benchBulkSubmit();
 const { benchConcurrentLoad } = await import('./concurrent-load.ts');
 await benchConcurrentLoad();
 
+const { benchSignalRates } = await import('./signal-rates.ts');
+benchSignalRates();
+
 const { benchWorkspaceView } = await import('./workspace-view.ts');
 await benchWorkspaceView();

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
 import { findSharedReadings, type SubmittedReadings } from '../../server/signals/shared-readings.ts';
+import { ownRunsSection } from '../support/own-runs-section.ts';
 
 /**
  * Generated sections (invented data: every student measures their own runs, with realistic noise at
@@ -14,12 +14,6 @@ const asReadings = (s: Submission): SubmittedReadings => ({
   runs: s.runs.map((r) => ({ label: r.label, readings: r.readings.map(([t, x]) => [Number(t), Number(x)] as [number, number]) })),
   reportedK: s.runs.map((r) => r.reported?.k?.value),
 });
-
-function section(seed: number, students: number): Submission[] {
-  const random = seededRandom(seed);
-  const settings = generateAssignment(random, { fitModel: 'origin' });
-  return Array.from({ length: students }, (_, i) => ({ ...generateSubmission(random, settings, i + 1), studentId: `S-${String(i + 1).padStart(3, '0')}` }));
-}
 
 const round3 = (x: number) => Number(x.toFixed(3));
 type Copy = (original: Submission, random: () => number) => Submission;
@@ -55,7 +49,7 @@ const copies: Record<string, Copy> = {
 describe('readings shared across a section', () => {
   it('raises no pair in honest sections (10 sections of 60)', () => {
     let pairs = 0;
-    for (let seed = 1; seed <= 10; seed++) pairs += findSharedReadings(section(seed, 60).map(asReadings)).pairs.length;
+    for (let seed = 1; seed <= 10; seed++) pairs += findSharedReadings(ownRunsSection(seed, 60).map(asReadings)).pairs.length;
     console.log(`honest: ${pairs} pairs among 10 x 1,770 pairs of students`);
     expect(pairs).toBe(0);
   });
@@ -63,7 +57,7 @@ describe('readings shared across a section', () => {
   it.each(Object.keys(copies))('finds a copy (%s) in at least 95 of 100 sections, with how the runs match', (how) => {
     let found = 0;
     for (let seed = 100; seed < 200; seed++) {
-      const students = section(seed, 12);
+      const students = ownRunsSection(seed, 12);
       const random = seededRandom(seed);
       const copy = { ...copies[how](students[3], random), studentId: 'S-099' };
       const report = findSharedReadings([...students, copy].map(asReadings));
@@ -75,7 +69,7 @@ describe('readings shared across a section', () => {
   });
 
   it('names the relation of each matching run and groups three or more who share', () => {
-    const students = section(7, 5);
+    const students = ownRunsSection(7, 5);
     const offset = structuredClone(students[0]);
     for (const run of offset.runs) run.readings = run.readings.map(([t, x]) => [t, round3(Number(x) + 1.25)]);
     const report = findSharedReadings([...students, { ...structuredClone(students[0]), studentId: 'S-010' }, { ...offset, studentId: 'S-011' }].map(asReadings));
@@ -86,7 +80,7 @@ describe('readings shared across a section', () => {
   });
 
   it('pairs reported rate constants written alike to 4 or more figures, not short ones', () => {
-    const [a, b] = section(8, 2).map(asReadings);
+    const [a, b] = ownRunsSection(8, 2).map(asReadings);
     const same = (k: Array<string | number>) => findSharedReadings([{ ...a, reportedK: k }, { ...b, reportedK: k }]).pairs;
     expect(same(['0.028731', '0.036512', '0.05'])[0].sameReportedK).toEqual([[0, 0], [1, 1]]);
     expect(same(['0.03', '0.04', '0.05'])).toEqual([]);
