@@ -111,6 +111,10 @@ export const Settings = z.object({
   reference: z.object({ kN: Band.optional(), kA: Band.optional() }).optional(),
   /** The smallest change the instrument displays, in the readings' unit (0.001 deg for a polarimeter). */
   displayStep: z.number().positive().max(1).default(0.001),
+  /** Runs of one experiment are meant to be at one temperature: the largest spread between them, and whether each run must record it. */
+  temperature: z
+    .object({ maxSpread: z.number().positive().max(100).default(1), required: z.boolean().default(false) })
+    .default({ maxSpread: 1, required: false }),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;

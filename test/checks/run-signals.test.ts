@@ -42,4 +42,16 @@ describe('measurement signals', () => {
       expect(signals[0].evidence.displaySteps).toBeLessThan(200);
     }
   });
+
+  it('name runs recorded further apart in temperature than the assignment allows, and runs without one where it is asked', () => {
+    const at = (seed: number, label: string, temperatureC?: number) => ({ ...run(seed, 22.4, 10.5), label, ...(temperatureC === undefined ? {} : { temperatureC }) });
+    const check = (settings: object, runs: object[]) => checkSubmission(parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin', rubric: { lnF: 0 }, ...settings }), { studentId: 'G-02', runs }).signals ?? [];
+    expect(check({}, [at(1, 'A', 25.0), at(2, 'B', 25.4), at(3, 'C', 24.8)])).toEqual([]);
+    const spread = check({}, [at(1, 'A', 25.0), at(2, 'B', 27.5), at(3, 'C', 24.8)]);
+    expect(spread).toEqual([expect.objectContaining({ code: 'temperature-spread', path: 'runs', evidence: { spread: expect.closeTo(2.7, 12), maxSpread: 1, lowest: 24.8, highest: 27.5 } })]);
+    expect(spread[0].message).toContain('run "C" at 24.8 degC, run "B" at 27.5 degC');
+    expect(check({ temperature: { maxSpread: 3 } }, [at(1, 'A', 25.0), at(2, 'B', 27.5)])).toEqual([]);
+    expect(check({}, [at(1, 'A', 25.0), at(2, 'B')])).toEqual([]);
+    expect(check({ temperature: { required: true } }, [at(1, 'A', 25.0), at(2, 'B')])).toEqual([expect.objectContaining({ code: 'temperature-missing', evidence: { missing: 1, runs: 2 } })]);
+  });
 });

@@ -1,10 +1,10 @@
-import type { Settings } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Signal } from '../../../schemas/result.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
 /**
- * Signals about how a run was measured, for the TA's review (never points):
+ * Signals about how a run was measured, for the TA's review (never points). Per run:
  * - `small-change`: the readings move fewer than SMALL_CHANGE_STEPS display steps over the run and k
  *   is uncertain by more than SMALL_CHANGE_SHARE (a late start, a dilute solution, or a short run):
  *   the change, not the instrument's scatter, limits what the run can tell;
@@ -44,6 +44,40 @@ export function runSignals(a: RunAnalysis, settings: Settings): Signal[] {
         evidence: { change, displaySteps: change / step, relativeStandardError: relative },
       });
     }
+  }
+  return out;
+}
+
+/**
+ * The runs of one experiment at one temperature: `temperature-spread` when the recorded temperatures
+ * (temperatureC) lie further apart than the assignment allows (1 degC by default; rate constants of
+ * activated processes change by several per cent per degree), `temperature-missing` when the
+ * assignment asks each run to record one and some do not.
+ */
+export function temperatureSignals(runs: SubmittedRun[], settings: Settings): Signal[] {
+  const recorded = runs.map((r, i) => ({ i, t: r.temperatureC })).filter((r): r is { i: number; t: number } => r.t !== undefined);
+  const out: Signal[] = [];
+  if (recorded.length >= 2) {
+    const low = recorded.reduce((a, b) => (b.t < a.t ? b : a));
+    const high = recorded.reduce((a, b) => (b.t > a.t ? b : a));
+    const spread = high.t - low.t;
+    if (spread > settings.temperature.maxSpread) {
+      out.push({
+        code: 'temperature-spread',
+        path: 'runs',
+        message: `The runs were recorded at temperatures ${fmt(spread)} degC apart (run "${runs[low.i].label}" at ${fmt(low.t)} degC, run "${runs[high.i].label}" at ${fmt(high.t)} degC), more than the ${fmt(settings.temperature.maxSpread)} degC the assignment allows; their rate constants may differ for that reason as well as the catalyst. Worth a look, not a finding.`,
+        evidence: { spread, maxSpread: settings.temperature.maxSpread, lowest: low.t, highest: high.t },
+      });
+    }
+  }
+  const missing = runs.length - recorded.length;
+  if (settings.temperature.required && missing > 0) {
+    out.push({
+      code: 'temperature-missing',
+      path: 'runs',
+      message: `${missing} of the ${runs.length} runs record no temperature, which the assignment asks for. Worth a look, not a finding.`,
+      evidence: { missing, runs: runs.length },
+    });
   }
   return out;
 }
