@@ -54,4 +54,20 @@ describe('measurement signals', () => {
     expect(check({}, [at(1, 'A', 25.0), at(2, 'B')])).toEqual([]);
     expect(check({ temperature: { required: true } }, [at(1, 'A', 25.0), at(2, 'B')])).toEqual([expect.objectContaining({ code: 'temperature-missing', evidence: { missing: 1, runs: 2 } })]);
   });
+
+  it('name readings whose last displayed digit takes at most five values (rounded to 0.002 or 0.005), over 40 readings or more', () => {
+    const roundedTo = (r: ReturnType<typeof run>, step: number) => ({ ...r, readings: r.readings.map(([t, x]) => [t, Number((Math.round(Number(x) / step) * step).toFixed(3))]) });
+    const submit = (runs: object[]) => checkSubmission(assignment, { studentId: 'G-03', runs }).signals ?? [];
+    for (let seed = 0; seed < 20; seed++) {
+      const runs = [0, 1, 2].map((i) => run(10 * seed + i, 22.4 - i, 10.5));
+      expect(submit(runs)).toEqual([]);
+      for (const step of [0.002, 0.005]) {
+        const signals = submit(runs.map((r) => roundedTo(r, step)));
+        expect(signals).toEqual([expect.objectContaining({ code: 'digit-preference', path: 'runs', evidence: { readings: 48, digitsUsed: expect.any(Number) } })]);
+        expect(signals[0].evidence.digitsUsed).toBeLessThanOrEqual(step === 0.002 ? 5 : 2);
+      }
+      // Two runs (32 readings) are too few to tell a preference from chance.
+      expect(submit(runs.slice(0, 2).map((r) => roundedTo(r, 0.005)))).toEqual([]);
+    }
+  });
 });

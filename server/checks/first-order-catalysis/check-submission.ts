@@ -10,7 +10,7 @@ import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
 import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, type RunAnalysis } from './run-analysis.ts';
-import { runSignals, temperatureSignals } from './run-signals.ts';
+import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
 import { itemPoints, pointsOf, rateLawGradable, rubricCounts } from './scoring.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
@@ -81,6 +81,6 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     items,
     refit,
     findings,
-    signals: [...analyses.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings)],
+    signals: [...analyses.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(analyses, settings)],
   };
 }

@@ -81,3 +81,31 @@ export function temperatureSignals(runs: SubmittedRun[], settings: Settings): Si
   }
   return out;
 }
+
+// With the last displayed digit uniform over 0-9, as honest scatter of a few display steps makes it,
+// 40 readings use at most 5 distinct last digits with probability about C(10,5) (1/2)^40 < 3e-10.
+export const DIGIT_MIN_READINGS = 40;
+export const DIGIT_MAX_USED = 5;
+
+/**
+ * `digit-preference`: across a submission's readings, the last displayed digit takes at most five of
+ * its ten values (only even digits, only 0 and 5): readings rounded more coarsely than displayed, or
+ * written by preference. Judged only for a display step that is a power of ten.
+ */
+export function digitSignals(analyses: RunAnalysis[], settings: Settings): Signal[] {
+  const step = settings.displayStep;
+  const places = -Math.log10(step);
+  if (Math.abs(places - Math.round(places)) > 1e-9) return [];
+  const digits = analyses.flatMap((a) => a.readings.map((x) => ((Math.round(Math.abs(x) / step) % 10) + 10) % 10));
+  if (digits.length < DIGIT_MIN_READINGS) return [];
+  const used = [...new Set(digits)].sort((a, b) => a - b);
+  if (used.length > DIGIT_MAX_USED) return [];
+  return [
+    {
+      code: 'digit-preference',
+      path: 'runs',
+      message: `Of ${digits.length} readings, the last displayed digit (the ${fmt(step)} place) is only ever ${used.join(', ')}; honest scatter of a few display steps uses all ten about equally. Readings rounded more coarsely than the instrument displays, or written by preference, would look like this. Worth a look, not a finding.`,
+      evidence: { readings: digits.length, digitsUsed: used.length },
+    },
+  ];
+}
