@@ -1,4 +1,3 @@
-import { createHash, timingSafeEqual } from 'node:crypto';
 import type { FastifyRequest } from 'fastify';
 import type { Config } from '../config.ts';
 import { ApiError } from '../errors.ts';
@@ -6,15 +5,10 @@ import type { Store } from '../store/connection.ts';
 import { sessionCaller } from '../store/sessions.ts';
 import { findCaller } from '../store/tokens.ts';
 import type { Caller } from './access.ts';
+import { sameSecret } from './same-secret.ts';
 import { csrfMatches, readSessionCookie } from './session-cookie.ts';
 
 const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
-
-function sameSecret(a: string, b: string): boolean {
-  const ha = createHash('sha256').update(a).digest();
-  const hb = createHash('sha256').update(b).digest();
-  return timingSafeEqual(ha, hb);
-}
 
 /** The admin or staff token of `Authorization: Bearer`, if the request carries one. */
 export async function tokenCaller(token: string, store: Store, config: Config): Promise<Caller | undefined> {

@@ -1,5 +1,6 @@
-import { createHash, timingSafeEqual } from 'node:crypto';
+import { createHash } from 'node:crypto';
 import type { FastifyRequest } from 'fastify';
+import { sameSecret } from './same-secret.ts';
 
 /** The workspace's session cookie: HttpOnly (no script reads it), SameSite=Strict, Secure over TLS. */
 export const SESSION_COOKIE = 'rateproof_session';
@@ -31,8 +32,5 @@ export function csrfTokenOf(session: string): string {
 }
 
 export function csrfMatches(session: string, sent: unknown): boolean {
-  if (typeof sent !== 'string') return false;
-  const a = createHash('sha256').update(csrfTokenOf(session)).digest();
-  const b = createHash('sha256').update(sent).digest();
-  return timingSafeEqual(a, b);
+  return typeof sent === 'string' && sameSecret(csrfTokenOf(session), sent);
 }
