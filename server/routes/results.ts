@@ -5,7 +5,7 @@ import { studentsWithoutSubmission } from '../store/students.ts';
 import { latestResults, releaseResults } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
-import { IdParam } from './schemas.ts';
+import { Enrolment, IdParam } from './schemas.ts';
 
 const Row = z.object({
   studentId: z.string(),
@@ -15,7 +15,7 @@ const Row = z.object({
   /** `checked`, `rejected`, `not-submitted` or `withdrawn` (no submission); null while a result is missing. */
   status: z.string().nullable(),
   /** On the roster: `enrolled` or `withdrawn` (removed students are left out). */
-  enrolment: z.enum(['enrolled', 'withdrawn', 'removed']),
+  enrolment: Enrolment,
   score: z.number().nullable(),
   maxScore: z.number().nullable(),
   errors: z.number(),

@@ -4,9 +4,8 @@ import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { addToRoster, listRoster, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
-import { IdParam } from './schemas.ts';
+import { Enrolment, IdParam } from './schemas.ts';
 
-const Enrolment = z.enum(['enrolled', 'withdrawn', 'removed']);
 const RosterStudent = z.object({
   studentId: z.string(),
   displayName: z.string().nullable(),
@@ -75,10 +74,10 @@ export const rosterRoutes: RouteSpec[] = [
     schema: { params: z.object({ sectionId: IdParam, studentId: StudentId }), body: z.object({ status: Enrolment }), response: { 200: RosterStudent } },
     transactional: true,
     async handler({ db, scope, params, body, caller }) {
-      const { status } = body as { status: 'enrolled' | 'withdrawn' | 'removed' };
+      const { status } = body as { status: z.infer<typeof Enrolment> };
       const row = await setEnrolment(db, scope.sectionId!, params.studentId, status, caller.kind === 'staff' ? caller.staffId : null);
       if (!row) throw new ApiError('not-found', `${params.studentId} is not on this section's roster`);
-      return { status: 200, body: (await listRoster(db, scope.sectionId!)).find((s) => s.studentId === params.studentId) };
+      return { status: 200, body: (await listRoster(db, scope.sectionId!, params.studentId))[0] };
     },
   },
 ];

@@ -26,16 +26,14 @@ async function recordEvents(db: Kysely<Database>, rows: Array<{ id: number }>, s
 /** Adds students to a section, or enrols again those withdrawn or removed; each change is recorded. */
 export async function addToRoster(db: Kysely<Database>, courseId: number, sectionId: number, entries: RosterEntry[], staffId: number | null): Promise<number> {
   if (entries.length === 0) return 0;
-  const before = new Map(
-    (await db.selectFrom('students').select(['student_id', 'status']).where('section_id', '=', sectionId).where('student_id', 'in', entries.map((e) => e.studentId)).execute()).map((r) => [r.student_id, r.status]),
-  );
+  const before = await rosterRows(db, sectionId, entries.map((e) => e.studentId));
   const rows = await db
     .insertInto('students')
     .values(entries.map((e) => ({ course_id: courseId, section_id: sectionId, student_id: e.studentId, display_name: e.displayName ?? null })))
     .onConflict((oc) => oc.columns(['course_id', 'student_id']).doUpdateSet((eb) => ({ display_name: eb.ref('excluded.display_name'), status: 'enrolled' })))
     .returning(['id', 'student_id'])
     .execute();
-  await recordEvents(db, rows.filter((r) => before.get(r.student_id) !== 'enrolled'), 'enrolled', staffId);
+  await recordEvents(db, rows.filter((r) => before.get(r.student_id)?.status !== 'enrolled'), 'enrolled', staffId);
   return rows.length;
 }
 
@@ -46,13 +44,11 @@ export async function setEnrolment(db: Kysely<Database>, sectionId: number, stud
   return row;
 }
 
-export async function listRoster(db: Kysely<Database>, sectionId: number) {
-  const students = await db
-    .selectFrom('students')
-    .select(['id', 'student_id as studentId', 'display_name as displayName', 'status'])
-    .where('section_id', '=', sectionId)
-    .orderBy('student_id')
-    .execute();
+/** A section's roster with each student's enrolment history, or one student's entry. */
+export async function listRoster(db: Kysely<Database>, sectionId: number, studentId?: string) {
+  let query = db.selectFrom('students').select(['id', 'student_id as studentId', 'display_name as displayName', 'status']).where('section_id', '=', sectionId);
+  if (studentId !== undefined) query = query.where('student_id', '=', studentId);
+  const students = await query.orderBy('student_id').execute();
   const events = students.length
     ? await db
         .selectFrom('roster_events')
