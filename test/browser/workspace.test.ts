@@ -101,6 +101,8 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
   it('can be used by keyboard alone: sign in, open a section, sort and filter', async () => {
     const page = await browser.newPage();
     await page.goto(origin);
+    // The form appears once the page has asked who is signed in; Tab before that finds nothing.
+    await page.getByLabel('Staff token').waitFor();
     await page.keyboard.press('Tab'); // the brand link
     await page.keyboard.press('Tab');
     expect(await page.evaluate(() => document.activeElement?.id)).toBe('token');
