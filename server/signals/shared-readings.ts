@@ -1,3 +1,5 @@
+import { displayStepOf } from './display-step.ts';
+
 /**
  * Data that look alike across a section, where every student measured their own: pairs of
  * submissions whose runs hold the same readings, exactly, after a constant offset, after a change of
@@ -47,15 +49,10 @@ export interface SharedReport {
 interface Prepared {
   x: number[];
   f: number[];
+  /** The step the readings are written to. */
+  step: number;
   /** Two display steps as a share of the run's amplitude. */
   tolerance: number;
-}
-
-function decimals(x: number): number {
-  const text = String(Math.abs(x));
-  if (text.includes('e')) return 6;
-  const dot = text.indexOf('.');
-  return dot < 0 ? 0 : text.length - dot - 1;
 }
 
 function prepare(readings: Array<[number, number]>): Prepared | undefined {
@@ -63,8 +60,8 @@ function prepare(readings: Array<[number, number]>): Prepared | undefined {
   if (x.length < 4 || !x.every(Number.isFinite)) return undefined;
   const span = x[0] - x[x.length - 1];
   if (span === 0) return undefined;
-  const step = 10 ** -Math.max(...x.map(decimals));
-  return { x, f: x.map((v) => (v - x[x.length - 1]) / span), tolerance: (STEPS * step) / Math.abs(span) };
+  const step = displayStepOf(x);
+  return { x, f: x.map((v) => (v - x[x.length - 1]) / span), step, tolerance: (STEPS * step) / Math.abs(span) };
 }
 
 function constantWithin(values: number[], tolerance: number): boolean {
@@ -82,7 +79,7 @@ function compareRuns(a: Prepared, b: Prepared): Omit<RunMatch, 'runs'> | undefin
   const matching = a.f.length - differing;
   const cells = a.x.length;
   if (matching === cells) {
-    const step = Math.max(a.tolerance * Math.abs(a.x[0] - a.x[cells - 1]), b.tolerance * Math.abs(b.x[0] - b.x[cells - 1])) / STEPS;
+    const step = Math.max(a.step, b.step);
     if (a.x.every((v, i) => v === b.x[i])) return { relation: 'identical', matchingCells: cells, cells };
     if (constantWithin(a.x.map((v, i) => b.x[i] - v), 2 * step)) return { relation: 'offset', matchingCells: cells, cells };
     if (a.x.every((v) => v !== 0) && constantWithin(a.x.map((v, i) => b.x[i] / v), 2 * step / Math.min(...a.x.map(Math.abs)))) return { relation: 'scaled', matchingCells: cells, cells };

@@ -1,5 +1,6 @@
 import { EngineError } from '../engine/engine-error.ts';
 import { fitFirstOrderNonlinear } from '../engine/first-order-nonlinear.ts';
+import { displayStepOf } from './display-step.ts';
 
 /**
  * Runs smoother than an instrument reads: the scatter of the readings about the exponential curve
@@ -24,24 +25,13 @@ export interface SmoothRun {
   sectionMedianSD: number;
 }
 
-function stepOf(x: number[]): number {
-  const places = Math.max(
-    ...x.map((v) => {
-      const text = String(Math.abs(v));
-      const dot = text.indexOf('.');
-      return text.includes('e') ? 6 : dot < 0 ? 0 : text.length - dot - 1;
-    }),
-  );
-  return 10 ** -places;
-}
-
 function scatterOf(run: RunsOfStudent['runs'][number]): { residualSD: number; step: number } | undefined {
   const times = run.readings.map((r) => Number(r[0]));
   const readings = run.readings.map((r) => Number(r[1]));
   if (readings.length < 6) return undefined;
   try {
     const fit = fitFirstOrderNonlinear({ times, readings, timeUnit: run.timeUnit }, { infinity: 'fitted' });
-    return { residualSD: fit.residualSD, step: stepOf(readings) };
+    return { residualSD: fit.residualSD, step: displayStepOf(readings) };
   } catch (error) {
     // A run the curve does not fit says nothing about smoothness.
     if (error instanceof EngineError) return undefined;
