@@ -8,6 +8,11 @@ const UNCERTAINTY_MATCH = 0.1;
 // A value (k) carries more digits: a long-shot slip must reproduce it to 0.05 % or its last place.
 const VALUE_MATCH = 0.0005;
 
+/** One unit in the last place `written` shows, in the unit of `value` (the same number read in another unit). */
+export function lastPlace(written: NumberLike, value: number): number {
+  return 10 ** -writtenDecimals(written) * Math.abs(value / Number(written) || 1);
+}
+
 /**
  * How close a slip's value must come to a reported uncertainty for that slip to be named. The band
  * that counts an uncertainty as right is wide (25 % by default), and with half a dozen candidates
@@ -16,7 +21,7 @@ const VALUE_MATCH = 0.0005;
  * and never more loosely than the band for right. `value` is `written` in the comparison's unit.
  */
 export function slipMatch(written: NumberLike, value: number, right: Tolerance, relative = UNCERTAINTY_MATCH): Tolerance {
-  const halfPlace = 0.5 * 10 ** -writtenDecimals(written) * Math.abs(value / Number(written) || 1);
+  const halfPlace = 0.5 * lastPlace(written, value);
   return { absolute: Math.min(Math.max(relative * Math.abs(value), halfPlace), allowance(value, right)) };
 }
 

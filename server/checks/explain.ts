@@ -88,22 +88,21 @@ function better(c: Candidate, best: Candidate, reported: number): boolean {
  */
 export function explain(reported: number, bases: Candidate[], factors: Factor[], tolerance: Tolerance, closeTolerance = tolerance): Expanded | undefined {
   let best: Expanded | undefined;
-  let band = tolerance;
-  const consider = (value: number, make: () => Expanded) => {
-    if (!Number.isFinite(value) || !withinTolerance(reported, value, band)) return;
+  // A long-shot base and every scaling of it must match within the closer band.
+  const consider = (b: Candidate, value: number, make: () => Expanded) => {
+    if (!Number.isFinite(value) || !withinTolerance(reported, value, b.longShot ? closeTolerance : tolerance)) return;
     const c = make();
     if (!best || better(c, best, reported)) best = c;
   };
   const sign = factors.find((f) => f.cause === 'sign-flipped');
   for (const b of bases) {
-    band = b.longShot ? closeTolerance : tolerance;
-    consider(b.value, () => ({ ...b, root: b.value, says: [] }));
+    consider(b, b.value, () => ({ ...b, root: b.value, says: [] }));
     for (const f of factors) {
       if (b.causes.length > 0 && !JOINS_A_METHOD_SLIP.has(f.cause)) continue;
       const scaled = b.value * f.factor;
-      consider(scaled, () => ({ ...b, root: b.value, value: scaled, causes: [...b.causes, f.cause], says: [f.says] }));
+      consider(b, scaled, () => ({ ...b, root: b.value, value: scaled, causes: [...b.causes, f.cause], says: [f.says] }));
       if (sign && f !== sign && b.causes.length === 0) {
-        consider(-scaled, () => ({ ...b, root: b.value, value: -scaled, causes: [sign.cause, f.cause], says: [sign.says, f.says] }));
+        consider(b, -scaled, () => ({ ...b, root: b.value, value: -scaled, causes: [sign.cause, f.cause], says: [sign.says, f.says] }));
       }
     }
   }

@@ -2,11 +2,10 @@ import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-
 import type { Estimate } from '../../engine/estimate.ts';
 import { rateUnitOf } from '../../engine/units.ts';
 import type { NumberLike } from '../../../schemas/common.ts';
-import { closeMatch, slipMatch } from '../cause-tolerance.ts';
+import { closeMatch, lastPlace, slipMatch } from '../cause-tolerance.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
-import { decimalsOf } from '../digit-slips.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
 import type { RunAnalysis } from './run-analysis.ts';
@@ -95,12 +94,11 @@ export function checkRunK(
  * to the digits reported, the closer of the two candidates is named.
  */
 function uncertaintySlips(value: number, written: number, a: RunAnalysis, slipSEs: Candidate[]): Candidate[] {
-  const model = slipSEs.filter((se) => se.causes.includes('fit-model'));
   if (!a.other) return [];
-  const lastPlace = 10 ** -decimalsOf(written) * Math.abs(value / written || 1);
+  const model = slipSEs.filter((se) => se.causes.includes('fit-model'));
   const toAsked = Math.abs(value - a.expected.value);
   const toOther = Math.abs(value - a.other.k.value);
-  if (Math.abs(toAsked - toOther) > lastPlace / 2) return toOther < toAsked ? model : [];
+  if (Math.abs(toAsked - toOther) > lastPlace(written, value) / 2) return toOther < toAsked ? model : [];
   return model.map((se) => ({ ...se, closestWins: true }));
 }
 
