@@ -142,6 +142,11 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.getByText('k_obs, run <img src=x onerror="window.__hostile=1">').waitFor();
     expect(await page.evaluate(() => (window as unknown as { __hostile?: number }).__hostile)).toBeUndefined();
     expect(await page.locator('main img').count()).toBe(0);
+    // One student's result released on its own, after a question naming the student and version.
+    await page.getByRole('button', { name: 'Release this result…' }).click();
+    await page.getByText('Release this result (S-006, version 1) to the student?').waitFor();
+    await page.getByRole('button', { name: 'Release to the student' }).click();
+    await page.getByText(/^Released /).waitFor();
     await page.getByRole('link', { name: /^Section A/ }).click();
     await page.getByRole('heading', { name: 'Readings that look alike' }).waitFor();
     await page.getByText(new RegExp(`^${copied.studentId} and S-006: 4 runs with the same readings; \\d reported k written alike to every digit\\.$`)).waitFor();

@@ -1,5 +1,6 @@
 import { api } from './api.js';
 import { fill, h, when } from './dom.js';
+import { askToConfirm } from './confirm.js';
 import { settingsForm } from './settings-form.js';
 
 /** An instructor's course: assignments (settings, regrades), each section's roster, and the staff. */
@@ -157,17 +158,17 @@ function staffPanel(course, staff, failure) {
     }
   }
   function revoke(member) {
-    const yes = h('button', { type: 'button', class: 'primary', onclick: async () => {
-      try {
+    askToConfirm(shown, {
+      question: `Revoke every token of ${member.handle}? Their requests and browser sessions stop working at once.`,
+      yes: `Revoke every token of ${member.handle}`,
+      act: async () => {
         const { revoked } = await api('POST', `/v1/staff/${member.id}/tokens/revoke`);
         fill(shown, h('p', { role: 'status' }, `${revoked} token${revoked === 1 ? '' : 's'} of ${member.handle} revoked; their sessions are ended.`));
         await refresh();
-      } catch (error) {
-        failure(error);
-      }
-    } }, `Revoke every token of ${member.handle}`);
-    fill(shown, h('p', { role: 'alert' }, `Revoke every token of ${member.handle}? Their requests and browser sessions stop working at once.`), yes, ' ', h('button', { type: 'button', class: 'quiet', onclick: () => fill(shown) }, 'Cancel'));
-    yes.focus();
+      },
+      cancel: () => fill(shown),
+      failure,
+    });
   }
   draw(staff);
 

@@ -1,5 +1,6 @@
 import { api } from './api.js';
 import { fill, h, num } from './dom.js';
+import { askToConfirm } from './confirm.js';
 import { uploadPanel } from './upload-panel.js';
 
 const STATUS_FILTERS = {
@@ -117,19 +118,19 @@ export async function sectionView(place, failure) {
   }
 
   function confirmRelease(pending) {
-    const yes = h('button', { type: 'button', class: 'primary', onclick: async () => {
-      try {
+    const results = `${pending} result${pending === 1 ? '' : 's'}`;
+    askToConfirm(releaseArea, {
+      question: `Release ${results} of this section to the students? They will see their feedback sheets; overrides can still be made later and are released the same way.`,
+      yes: `Release ${results}`,
+      act: async () => {
         const { released } = await api('POST', `${base}/release`);
         rows = await api('GET', `${base}/results`);
         draw();
         releaseArea.append(h('p', { role: 'status' }, `${released} result${released === 1 ? '' : 's'} released to students.`));
-      } catch (error) {
-        failure(error);
-      }
-    } }, `Release ${pending} result${pending === 1 ? '' : 's'}`);
-    const no = h('button', { type: 'button', class: 'quiet', onclick: drawRelease }, 'Cancel');
-    fill(releaseArea, h('p', { role: 'alert' }, `Release ${pending} result${pending === 1 ? '' : 's'} of this section to the students? They will see their feedback sheets; overrides can still be made later and are released the same way.`), yes, no);
-    yes.focus();
+      },
+      cancel: drawRelease,
+      failure,
+    });
   }
 
   function drawHead() {

@@ -1,5 +1,6 @@
 import { api } from './api.js';
 import { fill, h, num, when } from './dom.js';
+import { askToConfirm } from './confirm.js';
 import { lnFPlot, ratePlot } from './plots.js';
 
 const STAGES = [
@@ -114,19 +115,18 @@ export async function studentView(place, submissionId, failure) {
       history.map((v) => h('option', { value: String(v.submissionId), selected: v.submissionId === submissionId }, `version ${v.version}, ${when(v.submittedAt)}${v.result ? `, ${v.result.score ?? '–'} / ${v.result.maxScore}` : ''}`)),
     );
     const releaseArea = h('div', { class: 'release' });
-    const askRelease = () => {
-      const yes = h('button', { type: 'button', class: 'primary', onclick: async () => {
-        try {
+    const askRelease = () =>
+      askToConfirm(releaseArea, {
+        question: `Release this result (${view.studentId}, version ${view.version}) to the student?`,
+        yes: 'Release to the student',
+        act: async () => {
           await api('POST', `/v1/submissions/${submissionId}/release`);
           view = await api('GET', `/v1/submissions/${submissionId}`);
           draw();
-        } catch (error) {
-          failure(error);
-        }
-      } }, 'Release to the student');
-      fill(releaseArea, h('p', { role: 'alert' }, `Release this result (${view.studentId}, version ${view.version}) to the student?`), yes, h('button', { type: 'button', class: 'quiet', onclick: draw }, 'Cancel'));
-      yes.focus();
-    };
+        },
+        cancel: draw,
+        failure,
+      });
     releaseArea.append(
       result?.releasedAt ? h('p', {}, `Released ${when(result.releasedAt)}.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, 'Release this result…'),
     );

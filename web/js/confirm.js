@@ -1,0 +1,17 @@
+import { fill, h } from './dom.js';
+
+/**
+ * Asks before an action that reaches students or ends access: the question in `area`, the action's
+ * button (focused) and Cancel. `act` runs on yes; an error goes to `failure`; `cancel` redraws.
+ */
+export function askToConfirm(area, { question, yes, act, cancel, failure }) {
+  const button = h('button', { type: 'button', class: 'primary', onclick: async () => {
+    try {
+      await act();
+    } catch (error) {
+      failure(error);
+    }
+  } }, yes);
+  fill(area, h('p', { role: 'alert' }, question), button, ' ', h('button', { type: 'button', class: 'quiet', onclick: cancel }, 'Cancel'));
+  button.focus();
+}
