@@ -31,7 +31,7 @@ export interface EyringFit {
   line: LineFit;
 }
 
-// ln(k_B/h) in ln(s^-1 K^-1), from the exact SI constants: 23.76014...
+// ln(k_B/h) in ln(s^-1 K^-1), from the exact SI constants: 23.75998...
 const LN_KB_OVER_H = Math.log(BOLTZMANN / PLANCK);
 
 function lineOf(points: TemperaturePoint[], y: (p: TemperaturePoint) => number, weighted: boolean): LineFit {
