@@ -28,6 +28,9 @@ export interface FirstOrderNonlinearFit {
   residuals: number[];
   /** Leverage of each reading: the diagonal of J (J'J)^-1 J' at the optimum. */
   leverages: number[];
+  /** The Jacobian's columns at the optimum (k, A, and x_inf when fitted) and (J'J)^-1, row-major. */
+  jacobian: ArrayLike<number>[];
+  normalInverse: number[];
   iterations: number;
 }
 
@@ -231,6 +234,8 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
     dof,
     residuals: current.residuals,
     leverages,
+    jacobian: columns,
+    normalInverse: inv,
     iterations,
   };
 }

@@ -16,3 +16,11 @@ export function tCritical95(dof: number): number {
   }
   return t;
 }
+
+let cdf: ((t: number, dof: number) => number) | undefined;
+
+/** P(|T| >= |t|) for Student's t with `dof` degrees of freedom. */
+export function tTwoSidedP(t: number, dof: number): number {
+  cdf ??= createRequire(import.meta.url)('@stdlib/stats-base-dists-t-cdf') as (t: number, dof: number) => number;
+  return 2 * cdf(-Math.abs(t), dof);
+}

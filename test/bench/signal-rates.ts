@@ -1,7 +1,9 @@
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
 import { sectionSignals } from '../../server/signals/section-signals.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { computedReadings, ownRunsSection } from '../support/own-runs-section.ts';
+import { conditionRun, type RunCondition } from '../support/run-conditions.ts';
 
 /**
  * How often the signals for review fire on honest generated work (invented data, own runs, noise at
@@ -34,8 +36,33 @@ export function benchSignalRates(): void {
     const { settings: s, submission } = cleanCase(seed);
     if ((checkSubmission(parseAssignment(s), submission).signals ?? []).length > 0) runSignalled++;
   }
+  benchRunConditions();
   console.log(
     `signals: honest students signalled ${honestFlagged} of ${SECTIONS * STUDENTS} (section signals) and ${runSignalled} of 300 (run signals); ` +
       `a copied classmate's readings found in ${copiesFound} of ${SECTIONS}, computed readings in ${computedFound} of ${SECTIONS} (targets: < 1 % and >= 95 %)`,
   );
 }
+
+const RUNS = 2000;
+
+/** Per run: the share signalled on honest runs and on each condition, and which signal named it. */
+function benchRunConditions(): void {
+  const assignment = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin' });
+  const rate = (condition: RunCondition, size = 0) => {
+    const random = seededRandom(7000 + Math.round(size * 1000));
+    const counts = new Map<string, number>();
+    let any = 0;
+    for (let i = 0; i < RUNS; i++) {
+      const codes = new Set((checkSubmission(assignment, { studentId: 'B-01', runs: [conditionRun(random, condition, size)] }).signals ?? []).map((s) => s.code));
+      if (codes.size > 0) any++;
+      for (const code of codes) counts.set(code, (counts.get(code) ?? 0) + 1);
+    }
+    const by = [...counts].map(([code, n]) => `${code} ${pct(n)}`).join(', ');
+    return `${pct(any)}${by ? ` (${by})` : ''}`;
+  };
+  console.log(`signals per run (${RUNS} runs each): honest ${rate('honest')}; end value with 2-10 % of the change to come ${rate('early-end')}`);
+  console.log(`  steady drift over the run: ${[0.05, 0.1, 0.15, 0.3].map((d) => `${d} deg ${rate('linear-drift', d)}`).join('; ')}`);
+  console.log(`  instrument still warming up: ${[0.1, 0.3, 0.5].map((d) => `${d} deg ${rate('warm-up', d)}`).join('; ')}`);
+}
+
+const pct = (n: number) => `${((100 * n) / RUNS).toFixed(1)} %`;

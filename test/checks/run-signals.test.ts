@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
-import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 import { syntheticReadings } from '../../server/demo/synthetic-run.ts';
 
 /** Signals about how a run was measured: never on honest generated work, always on the condition. */
@@ -40,6 +40,56 @@ describe('measurement signals', () => {
       expect(signals.map((s) => s.code)).toEqual(['small-change']);
       expect(signals[0].evidence.relativeStandardError).toBeGreaterThan(0.05);
       expect(signals[0].evidence.displaySteps).toBeLessThan(200);
+    }
+  });
+
+  /** A run read from a curve f(t) with noise 0.003 deg, shown to 0.001 deg. */
+  const curve = (seed: number, f: (t: number) => number, infinity: number) => {
+    const random = seededRandom(seed);
+    const xs = times.map((t) => Number((f(t) + 0.003 * gaussian(random)).toFixed(3)));
+    return { label: 'A', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings: times.map((t, i) => [t, xs[i]]), infinity };
+  };
+  const codesOf = (r: object) => signalsOf(r).map((s) => s.code);
+
+  it('name residuals that run in a pattern: second-order data fitted as first order, every seed of 20', () => {
+    for (let seed = 0; seed < 20; seed++) {
+      const signals = signalsOf(curve(seed, (t) => 10.5 + 12 / (1 + 0.15 * t), 10.5));
+      const pattern = signals.find((s) => s.code === 'residual-pattern');
+      expect(pattern).toEqual(expect.objectContaining({ path: 'runs[0].readings' }));
+      expect(pattern?.evidence.pValue).toBeLessThan(1e-4);
+      expect(pattern?.evidence.durbinWatson).toBeLessThan(1);
+    }
+  });
+
+  it('name an instrument still warming up (0.3 deg settling over the first minutes) by its pattern or its end value, every seed of 20', () => {
+    for (let seed = 0; seed < 20; seed++) {
+      const codes = codesOf(curve(seed, (t) => 10.5 + 12 * Math.exp(-0.08 * t) - 0.3 * Math.exp(-t / 2.5), 10.5));
+      expect(codes.some((c) => c === 'residual-pattern' || c === 'end-value')).toBe(true);
+    }
+  });
+
+  it('name an end value read an hour after the start (a sixth of the change still to come), with both rate constants', () => {
+    const early = Number((10.5 + 12 * Math.exp(-0.03 * 60)).toFixed(3));
+    for (let seed = 0; seed < 20; seed++) {
+      const signals = signalsOf(curve(seed, (t) => 10.5 + 12 * Math.exp(-0.03 * t), early));
+      expect(signals).toEqual([expect.objectContaining({ code: 'end-value', path: 'runs[0].infinity' })]);
+      const { evidence } = signals[0];
+      expect(evidence.recordedEndValue).toBe(early);
+      // The readings' own end value is the true one to within four of its standard errors.
+      expect(Math.abs(evidence.readingsEndValue - 10.5)).toBeLessThan(4 * evidence.readingsEndValueSE);
+      expect(evidence.kWithReadings).toBeCloseTo(0.03, 2);
+      // An end value too close to the readings makes the run look faster.
+      expect(evidence.kWithRecorded).toBeGreaterThan(1.2 * evidence.kWithReadings);
+      expect(signals[0].message).toContain('cancels in F');
+    }
+  });
+
+  it('do not name a constant zero offset of the instrument: it cancels in F (common practice, no source)', () => {
+    for (let seed = 0; seed < 20; seed++) {
+      const f = (t: number) => 10.5 + 12 * Math.exp(-0.08 * t);
+      expect(codesOf(curve(seed, (t) => f(t) + 0.5, 11))).toEqual([]);
+      const k = (r: object) => (checkSubmission(assignment, { studentId: 'G-04', runs: [r] }).refit as { runs: { k: { instructor: { value: number } } }[] }).runs[0].k.instructor.value;
+      expect(k(curve(seed, (t) => f(t) + 0.5, 11))).toBeCloseTo(k(curve(seed, f, 10.5)), 12);
     }
   });
 

@@ -30,6 +30,11 @@ export interface RunAnalysis {
   other?: FirstOrderLinearFit;
   /** The exponential fit with x_inf fixed; absent if it cannot converge on these data. */
   exponential?: FirstOrderNonlinearFit;
+  /**
+   * The exponential fit with x_inf fitted too, the end value the readings themselves imply: the same
+   * as `exponential` for a run without x_inf; absent if it cannot converge.
+   */
+  ownEndValue?: FirstOrderNonlinearFit;
   /** The k the student should report, per the run's time unit: the asked model, or without x_inf the exponential fit. */
   expected: Estimate;
   /** Other values that are right too (the Guggenheim k for a run without x_inf). */
@@ -83,6 +88,16 @@ function parseAt<T>(path: string, parse: () => T): T {
 }
 
 /** The exponential fit is shown beside the asked one, never needed to grade: a failure leaves it out. */
+/** Only a signal for review rests on this fit, so a run too short or too flat for it simply has none. */
+function ownEndValueFit(data: FirstOrderRun, initialK: number): FirstOrderNonlinearFit | undefined {
+  try {
+    return fitFirstOrderNonlinear(data, { infinity: 'fitted', initialK });
+  } catch (error) {
+    if (error instanceof EngineError) return undefined;
+    throw error;
+  }
+}
+
 function exponentialOrNothing(fit: () => FirstOrderNonlinearFit): FirstOrderNonlinearFit | undefined {
   try {
     return fit();
@@ -142,7 +157,7 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
       // simply not offered as another right answer; the run is still graded against the fit.
       const alsoRight = guggenheimOrNothing(data);
       const undetermined = undeterminedK(path, readings, undefined, exponential.k);
-      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, excluded: [], exponential, expected: exponential.k, alsoRight, undetermined };
+      return { index, path, label: run.label, timeUnit, concentrationM, times, readings, excluded: [], exponential, ownEndValue: exponential, expected: exponential.k, alsoRight, undetermined };
     }
     const { transform, defined, excluded } = transformDefined(data, run.infinity);
     const asked = fitTransformed(defined, run.timeUnit, model);
@@ -163,6 +178,7 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
       asked,
       other,
       exponential,
+      ownEndValue: ownEndValueFit(data, withIntercept.k.value),
       expected: asked.k,
       alsoRight: [],
       undetermined: undeterminedK(path, readings, run.infinity, asked.k),

@@ -1,5 +1,7 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Signal } from '../../../schemas/result.ts';
+import { durbinWatson } from '../../engine/durbin-watson.ts';
+import { tTwoSidedP } from '../../engine/student-t.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -20,8 +22,61 @@ function onStep(x: number, step: number): boolean {
   return Math.abs(n - Math.round(n)) <= 1e-6 + 1e-12 * Math.abs(n);
 }
 
+/**
+ * `residual-pattern`: the residuals of the exponential fit with x_inf fitted run in a pattern rather
+ * than scatter, judged by the Durbin-Watson statistic for this run's own fit. Independent scatter gives
+ * so small a statistic with probability under PATTERN_P (about 1 run in 10,000 on honest generated
+ * runs).
+ */
+export const PATTERN_P = 1e-4;
+
+function residualPattern(a: RunAnalysis): Signal | undefined {
+  const fit = a.ownEndValue;
+  if (!fit || fit.dof < 3) return undefined;
+  const dw = durbinWatson(fit.residuals, fit.jacobian, fit.normalInverse);
+  if (!(dw.pValue < PATTERN_P)) return undefined;
+  return {
+    code: 'residual-pattern',
+    path: `${a.path}.readings`,
+    message: `The readings of run "${a.label}" lie on one side of the exponential curve for several minutes at a time rather than scattering about it (Durbin-Watson statistic ${fmt(dw.statistic)}, where independent scatter gives about ${fmt(dw.expected)}; one run in ${fmt(Math.round(1 / dw.pValue))} would show so strong a pattern by chance). An instrument still warming up or drifting, readings taken at other times than written, or a reaction that is not first order could explain it. Worth a look, not a finding.`,
+    evidence: { durbinWatson: dw.statistic, expected: dw.expected, pValue: dw.pValue },
+  };
+}
+
+/**
+ * `end-value`: the end value the readings imply (x_inf fitted with k) and the recorded x_inf differ by
+ * more than their uncertainties allow (two-sided p under END_VALUE_P, from the fitted value's standard
+ * error and the scatter of one reading), and the difference moves k by more than END_VALUE_K_SHARE,
+ * so it matters to the result. Judged only where the readings alone fix k to END_VALUE_OWN_K_SHARE.
+ * A constant zero offset of the instrument cancels in F and cannot cause it.
+ */
+export const END_VALUE_P = 1e-3;
+export const END_VALUE_K_SHARE = 0.01;
+/** Where the readings alone do not fix k this well, they do not say where they level off either. */
+export const END_VALUE_OWN_K_SHARE = 0.2;
+
+function endValue(a: RunAnalysis): Signal | undefined {
+  const own = a.ownEndValue;
+  const recorded = a.infinity;
+  if (!own || !a.exponential || recorded === undefined || own === a.exponential || own.dof < 2) return undefined;
+  if (!(own.k.value > 0 && own.k.standardError < END_VALUE_OWN_K_SHARE * own.k.value)) return undefined;
+  const fitted = own.infinity;
+  const t = (fitted.value - recorded) / Math.hypot(fitted.standardError, own.residualSD);
+  const p = tTwoSidedP(t, own.dof);
+  const kShare = Math.abs(a.exponential.k.value - own.k.value) / own.k.value;
+  if (!(p < END_VALUE_P && kShare > END_VALUE_K_SHARE)) return undefined;
+  const unit = a.exponential.k.unit;
+  return {
+    code: 'end-value',
+    path: `${a.path}.infinity`,
+    message: `The readings of run "${a.label}" level off towards ${fmt(fitted.value)} ± ${fmt(fitted.standardError)} (their own exponential fit), but the recorded end value is ${fmt(recorded)}. With the recorded value k is ${fmt(a.exponential.k.value)} ${unit}, with the readings' own ${fmt(own.k.value)} ${unit}, ${fmt(100 * kShare)} % apart. An end value read before equilibrium or misread, or an instrument that drifted during the run, could explain it; a constant zero offset could not, since it shifts the readings and the end value alike and cancels in F. Worth a look, not a finding.`,
+    evidence: { recordedEndValue: recorded, readingsEndValue: fitted.value, readingsEndValueSE: fitted.standardError, pValue: p, kWithRecorded: a.exponential.k.value, kWithReadings: own.k.value },
+  };
+}
+
 export function runSignals(a: RunAnalysis, settings: Settings): Signal[] {
   const out: Signal[] = [];
+  for (const signal of [residualPattern(a), endValue(a)]) if (signal) out.push(signal);
   const step = settings.displayStep;
   const offStep = a.readings.filter((x) => !onStep(x, step)).length;
   if (offStep > 0) {

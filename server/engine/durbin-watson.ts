@@ -1,0 +1,78 @@
+import { createRequire } from 'node:module';
+
+/**
+ * The Durbin-Watson statistic d = sum (e_i - e_(i-1))^2 / sum e_i^2 of a fit's residuals, and how
+ * unlikely so small a d is for independent scatter. Residuals that run in a pattern (drift, a wrong
+ * model) sit beside their neighbours and make d small; independent scatter gives d near 2.
+ *
+ * Under independent normal errors the residuals are e = M eps with M = I - H, H = J (J'J)^-1 J' the
+ * fit's hat matrix, and d's mean and variance follow from M and the differencing matrix A:
+ *   E d = tr(MA) / (n - p),  Var d = 2 [(n - p) tr((MA)^2) - tr(MA)^2] / [(n - p)^2 (n - p + 2)]
+ * (Durbin and Watson's moments, from memory). d / 4 is then taken as a beta variable with these two
+ * moments, the usual approximation to d's exact distribution, which gives a lower-tail probability
+ * for this fit's own design rather than one table for every run.
+ */
+export interface DurbinWatson {
+  statistic: number;
+  expected: number;
+  variance: number;
+  /** P(d <= statistic) for independent scatter: small when the residuals run in a pattern. */
+  pValue: number;
+}
+
+let betaCdf: ((x: number, a: number, b: number) => number) | undefined;
+
+/** The distribution of d for independent scatter about a fit: its mean, variance and lower tail. */
+export interface DurbinWatsonNull {
+  expected: number;
+  variance: number;
+  lowerTail(statistic: number): number;
+}
+
+/**
+ * `jacobian` holds the fit's columns (one per parameter, n entries each) and `normalInverse` the
+ * row-major (J'J)^-1, as the fit computed them for its standard errors.
+ */
+export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatsonNull {
+  const p = jacobian.length;
+  const n = jacobian[0].length;
+  if (n - p < 2) throw new RangeError('too few residuals for a Durbin-Watson statistic');
+  // M = I - J (J'J)^-1 J', then MA with A tridiagonal (1, 2, ..., 2, 1 on the diagonal, -1 beside it).
+  const m: number[][] = Array.from({ length: n }, () => new Array<number>(n));
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let h = 0;
+      for (let r = 0; r < p; r++) for (let c = 0; c < p; c++) h += jacobian[r][i] * normalInverse[r * p + c] * jacobian[c][j];
+      m[i][j] = (i === j ? 1 : 0) - h;
+    }
+  }
+  const ma: number[][] = m.map((row) =>
+    row.map((_, j) => (j === 0 || j === n - 1 ? 1 : 2) * row[j] - (j > 0 ? row[j - 1] : 0) - (j < n - 1 ? row[j + 1] : 0)),
+  );
+  let trace = 0;
+  let traceSquare = 0;
+  for (let i = 0; i < n; i++) {
+    trace += ma[i][i];
+    for (let j = 0; j < n; j++) traceSquare += ma[i][j] * ma[j][i];
+  }
+  const f = n - p;
+  const expected = trace / f;
+  const variance = (2 * (f * traceSquare - trace * trace)) / (f * f * (f + 2));
+  const mean = expected / 4;
+  const spread = (mean * (1 - mean)) / (variance / 16) - 1;
+  betaCdf ??= createRequire(import.meta.url)('@stdlib/stats-base-dists-beta-cdf') as (x: number, a: number, b: number) => number;
+  const cdf = betaCdf;
+  return { expected, variance, lowerTail: (statistic) => cdf(statistic / 4, mean * spread, (1 - mean) * spread) };
+}
+
+export function durbinWatson(residuals: ArrayLike<number>, jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatson {
+  let num = 0;
+  let den = 0;
+  for (let i = 0; i < residuals.length; i++) {
+    den += residuals[i] * residuals[i];
+    if (i > 0) num += (residuals[i] - residuals[i - 1]) ** 2;
+  }
+  const statistic = num / den;
+  const nullDistribution = durbinWatsonNull(jacobian, normalInverse);
+  return { statistic, expected: nullDistribution.expected, variance: nullDistribution.variance, pValue: nullDistribution.lowerTail(statistic) };
+}
