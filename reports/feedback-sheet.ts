@@ -2,6 +2,7 @@ import type { FeedbackInput } from './feedback-input.ts';
 import { INVENTED_NOTE } from './feedback-input.ts';
 import { drawFindings, drawRejections } from './feedback/findings-block.ts';
 import { drawHeader } from './feedback/header-block.ts';
+import { drawMeasurementNotes } from './feedback/measurement-notes-block.ts';
 import { drawRateLawPlot } from './feedback/rate-law-plot.ts';
 import { rateLawSeries } from './feedback/rate-law-series.ts';
 import { drawResidualPlots } from './feedback/residual-plots.ts';
@@ -18,7 +19,8 @@ export type { FeedbackHeader, FeedbackInput } from './feedback-input.ts';
 /**
  * One student's feedback sheet as PDF bytes: header, score and its rubric items, findings by stage in
  * the checker's words, reported against refit values, and vector plots (ln F against t per run,
- * k_obs against [catalyst], residuals where a reading looks suspect). Pure: data in, bytes out.
+ * k_obs against [catalyst], residuals where a reading looks suspect), and the signals about the
+ * measurement a TA chose to share. Pure: data in, bytes out.
  */
 export async function renderFeedbackSheet(input: FeedbackInput): Promise<Buffer> {
   const { header, settings, submission, result } = input;
@@ -33,6 +35,7 @@ export async function renderFeedbackSheet(input: FeedbackInput): Promise<Buffer>
   } else {
     drawScore(doc, result, rubricBreakdown(settings, submission, result));
     drawFindings(doc, result, submission);
+    drawMeasurementNotes(doc, result, submission);
     if (refit) {
       drawValues(doc, settings, submission, refit);
       const runs = allRunSeries(settings, submission.runs, refit, result.findings);

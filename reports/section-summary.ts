@@ -178,7 +178,7 @@ export async function renderSectionSummary(input: SectionSummaryInput): Promise<
   drawAttention(doc, input);
   drawRateConstants(doc, input);
   drawCodes(doc, input);
-  if (input.signals) drawSignals(doc, input.signals);
+  if (input.signals || input.results.some((r) => (r.signals ?? []).length > 0)) drawSignals(doc, input.signals, input.results, input.submissions);
   finish(doc, {
     left: `Rateproof section summary · ${input.header.section} · ${input.header.assignment} · ${formatPoints(input.results.length)} students`,
     invented: input.invented ? INVENTED_NOTE : undefined,

@@ -96,6 +96,8 @@ export const Signal = z.object({
   /** Neutral words with the evidence. */
   message: z.string(),
   evidence: z.record(z.string(), z.number()),
+  /** Set only by a TA's choice (never by the checker): shown on the student's feedback sheet. */
+  onSheet: z.boolean().optional(),
 });
 export type Signal = z.infer<typeof Signal>;
 

@@ -1,3 +1,5 @@
+import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { CheckResult } from '../../schemas/result.ts';
 import type { SectionSignals } from '../../server/signals/section-signals.ts';
 import { formatNumber } from '../format.ts';
 import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
@@ -6,10 +8,40 @@ import { COLOR, SIZE } from '../pdf/theme.ts';
 
 const RELATION = { identical: 'the same', offset: 'shifted by a constant', scaled: 'rescaled', edited: 'a few cells changed' } as const;
 
+/** Where a signal points, in a table cell's plain words: the run's label, or all runs. */
+function signalPlace(path: string, submission: Submission | undefined): string {
+  const run = /^runs\[(\d+)\]/.exec(path);
+  if (!run) return path === 'runs' ? 'all runs' : path;
+  const label = submission?.runs[Number(run[1])]?.label;
+  return label === undefined ? `run ${Number(run[1]) + 1}` : `run “${label}”`;
+}
+
+/** Each student's signals about the measurement (per run and per submission), one row per student. */
+function drawStudentSignals(doc: Doc, results: CheckResult[], submissions: Submission[]): void {
+  const byStudent = new Map(submissions.map((s) => [s.studentId, s]));
+  const rows = results.filter((r) => (r.signals ?? []).length > 0);
+  if (rows.length === 0) {
+    paragraph(doc, 'No signals about how any student’s runs were measured.');
+    return;
+  }
+  paragraph(doc, 'How the runs were measured: each student’s signals, with the places they concern (the workspace gives the evidence).');
+  drawTable(
+    doc,
+    [
+      { header: 'Student', weight: 1.1 },
+      { header: 'Signals', weight: 4.2 },
+    ],
+    rows.map((r) => [r.studentId ?? '—', (r.signals ?? []).map((s) => `${s.code} (${signalPlace(s.path, byStudent.get(r.studentId ?? ''))})`).join(', ')]),
+    { zebra: true, keepRows: 4 },
+  );
+}
+
 /** The section's signals for review: prompts to look and ask, never findings. */
-export function drawSignals(doc: Doc, signals: SectionSignals): void {
-  sectionHeading(doc, 'For review: patterns across the section', 90);
+export function drawSignals(doc: Doc, signals: SectionSignals | undefined, results: CheckResult[], submissions: Submission[] = []): void {
+  sectionHeading(doc, 'For review: how the data were measured, and patterns across the section', 90);
   paragraph(doc, 'Prompts to look and ask the students, not findings: no points depend on them and nothing here reaches a student.', { size: SIZE.small, color: COLOR.muted });
+  drawStudentSignals(doc, results, submissions);
+  if (!signals) return;
   if (signals.notCompared) {
     paragraph(doc, `Nothing was compared: ${signals.notCompared}.`);
     return;

@@ -1,4 +1,5 @@
 import type { Finding, RubricCount, Signal } from '../../schemas/result.ts';
+import type { SignalChoiceRow } from '../store/signal-choices.ts';
 import type { OverrideRow, ResultRow } from '../store/submissions.ts';
 
 /**
@@ -24,11 +25,17 @@ export interface EffectiveResult {
   rejected: Array<{ path: string; message: string }>;
   /** What the maximum is made of (absent in results stored before it was kept). */
   items?: RubricCount[];
-  /** Signals about the measurement, for review; empty in results stored before they were kept. */
+  /**
+   * Signals about the measurement, for review; empty in results stored before they were kept. Those a
+   * TA put on the student's sheet (their latest choice) carry `onSheet: true`.
+   */
   signals: Signal[];
 }
 
-export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): EffectiveResult {
+/** How a choice names its signal: a signal is one code at one place. */
+export const signalKey = (s: { code: string; path: string }): string => `${s.code} ${s.path}`;
+
+export function effectiveResult(row: ResultRow, overrides: OverrideRow[], choices: SignalChoiceRow[] = []): EffectiveResult {
   const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }>; items?: RubricCount[]; signals?: Signal[] };
   const latest = new Map<string, OverrideRow>();
   for (const o of overrides) if (o.submissionId === row.submissionId) latest.set(o.findingId, o);
@@ -37,6 +44,8 @@ export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): Effec
     if (!o) return f;
     return { ...f, pointsLost: o.pointsAfter, override: { pointsLost: o.pointsAfter, reason: o.reason, by: o.by, at: o.at, originalPointsLost: f.pointsLost } };
   });
+  const onSheet = new Map<string, boolean>();
+  for (const c of choices) if (c.submissionId === row.submissionId) onSheet.set(signalKey(c), c.onSheet);
   const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
   return {
     resultId: row.resultId,
@@ -51,6 +60,6 @@ export function effectiveResult(row: ResultRow, overrides: OverrideRow[]): Effec
     findings,
     rejected: stored.rejected,
     items: stored.items,
-    signals: stored.signals ?? [],
+    signals: (stored.signals ?? []).map((s) => (onSheet.get(signalKey(s)) ? { ...s, onSheet: true } : s)),
   };
 }

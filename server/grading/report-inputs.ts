@@ -4,13 +4,14 @@ import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput } from '../../reports/feedback-input.ts';
 import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
+import { signalChoicesOf } from '../store/signal-choices.ts';
 import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
 import { effectiveResult, type EffectiveResult } from './effective-result.ts';
 
 /**
  * What the reports are made from, read from the store: each submission's latest result with the
- * TAs' overrides applied, the settings that result used, and the names for the header.
+ * TAs' overrides applied (and, for sheets, the signals they chose to show), the settings that result used, and the names for the header.
  */
 function asCheckResult(studentId: string, r: EffectiveResult): CheckResult {
   return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, items: r.items, refit: r.refit as CheckResult['refit'], findings: r.findings, signals: r.signals, rejected: r.rejected, engineVersion: r.engineVersion };
@@ -22,6 +23,7 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
   const ids = rows.map((r) => r.submissionId);
   const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
   const overrides = await overridesOf(db, ids);
+  const choices = await signalChoicesOf(db, ids);
   // Results of one settings version share their parsed settings.
   const checkers = new Map<number, ReturnType<typeof assignmentOf>>();
   const out: FeedbackInput[] = [];
@@ -30,7 +32,7 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
     if (!stored || stored.status !== 'checked') continue;
     const checker = checkers.get(stored.settingsVersion) ?? assignmentOf(stored.settings, 'settings');
     checkers.set(stored.settingsVersion, checker);
-    const result = asCheckResult(row.studentId, effectiveResult(stored, overrides));
+    const result = asCheckResult(row.studentId, effectiveResult(stored, overrides, choices));
     out.push({
       header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt, released: stored.releasedAt !== null },
       settings: checker.settings as Settings,

@@ -5,7 +5,9 @@ import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
 import { gradeBatch, screenBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
+import { insertSignalChoice, signalChoicesOf } from '../store/signal-choices.ts';
 import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
+import { signalCodes } from '../../schemas/result.ts';
 import { submissionsFromMultipart } from './multipart-csv.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -31,6 +33,7 @@ const Override = z.object({
   by: z.string(),
   at: z.date(),
 });
+const SignalChoice = z.object({ code: z.string(), path: z.string(), onSheet: z.boolean(), by: z.string(), at: z.date() });
 const SubmissionView = z.object({
   submissionId: z.number(),
   assignmentId: z.number(),
@@ -41,14 +44,22 @@ const SubmissionView = z.object({
   payload: z.unknown(),
   result: Result.nullable(),
   overrides: z.array(Override),
+  /** Every choice to put a signal on the sheet or take it off, oldest first. */
+  signalChoices: z.array(SignalChoice),
 });
 
 async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {
   const s = (await getSubmission(db, submissionId))!;
   const [row] = await latestResults(db, [submissionId]);
   const overrides = await overridesOf(db, [submissionId]);
+  const choices = await signalChoicesOf(db, [submissionId]);
   const { courseId: _, ...rest } = s;
-  return { ...rest, result: row ? effectiveResult(row, overrides) : null, overrides };
+  return {
+    ...rest,
+    result: row ? effectiveResult(row, overrides, choices) : null,
+    overrides,
+    signalChoices: choices.map(({ code, path, onSheet, by, at }) => ({ code, path, onSheet, by, at })),
+  };
 }
 
 export const submissionRoutes: RouteSpec[] = [
@@ -120,6 +131,29 @@ export const submissionRoutes: RouteSpec[] = [
       if (!current) throw new ApiError('invalid-input', undefined, [{ path: 'body.findingId', message: 'no such finding in the latest result' }]);
       if (pointsLost > row.maxScore) throw new ApiError('invalid-input', undefined, [{ path: 'body.pointsLost', message: `at most ${row.maxScore}` }]);
       await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: staffIdOf(caller) });
+      return { status: 201, body: await submissionView(db, submissionId) };
+    },
+  },
+  {
+    method: 'POST',
+    url: '/v1/submissions/:submissionId/signals',
+    access: 'section',
+    summary: "Put a signal for review on the student's feedback sheet, or take it off; every choice is kept with who made it",
+    schema: {
+      params: z.object({ submissionId: IdParam }),
+      body: z.object({ code: z.enum(signalCodes), path: z.string().min(1).max(300).refine(isStorableText, UNSTORABLE_TEXT), onSheet: z.boolean() }),
+      response: { 201: SubmissionView },
+    },
+    transactional: true,
+    async handler({ db, params, body, caller }) {
+      const submissionId = Number(params.submissionId);
+      const { code, path, onSheet } = body as { code: string; path: string; onSheet: boolean };
+      const [row] = await latestResults(db, [submissionId]);
+      const signals = row ? effectiveResult(row, []).signals : [];
+      if (!signals.some((s) => s.code === code && s.path === path)) {
+        throw new ApiError('invalid-input', undefined, [{ path: 'body.path', message: `the latest result raises no signal ${code} at ${path}` }]);
+      }
+      await insertSignalChoice(db, { submissionId, code, path, onSheet, staffId: staffIdOf(caller) });
       return { status: 201, body: await submissionView(db, submissionId) };
     },
   },

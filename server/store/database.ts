@@ -59,6 +59,15 @@ export interface Database {
     staff_id: Ref;
     created_at: Generated<Date>;
   };
+  signal_choices: {
+    id: Generated<number>;
+    submission_id: Ref;
+    code: string;
+    path: string;
+    on_sheet: boolean;
+    staff_id: Ref;
+    created_at: Generated<Date>;
+  };
   idempotency_keys: {
     staff_id: Ref;
     key: string;

@@ -153,6 +153,26 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.close();
   });
 
+  it("puts a signal on the student's sheet only when the TA chooses, and keeps the choice in a trail", async () => {
+    const [submission] = generateSection(seededRandom(12), generateAssignment(seededRandom(12), { fitModel: 'origin' }), ['S-004']).submissions;
+    submission.runs[0].temperatureC = 25;
+    submission.runs[1].temperatureC = 27.5;
+    const stored = await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`, s.taAToken, [submission], 201);
+    const id = stored.body.stored[0].submissionId;
+    const page = await browser.newPage();
+    await signIn(page, s.taAToken);
+    await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}/submission/${id}`);
+    const signal = page.locator('li.signal', { hasText: 'temperature-spread' });
+    await signal.getByText('Not on the student’s sheet.').waitFor();
+    await signal.getByRole('button', { name: 'Show it on the sheet' }).click();
+    await page.locator('li.signal.on-sheet').getByText(/: ta-a put it on the sheet$/).waitFor();
+    const view = await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200);
+    expect(view.body.result.signals).toEqual([expect.objectContaining({ code: 'temperature-spread', onSheet: true })]);
+    await page.getByRole('button', { name: 'Take it off the sheet' }).click();
+    await page.getByText(/: ta-a took it off the sheet$/).waitFor();
+    await page.close();
+  });
+
   it("lets an instructor edit settings (the schema's messages beside the fields), regrade with progress, add to a roster and manage a TA's tokens", async () => {
     const page = await browser.newPage();
     const pageErrors: string[] = [];

@@ -124,6 +124,42 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(text).not.toContain('ta-a');
   });
 
+  it("a signal reaches the student's sheet only when a TA puts it there, and leaves it when taken off; every choice is kept", async () => {
+    const [spread] = submissionsFor(['S-004'], 6);
+    spread.runs[0].temperatureC = 25;
+    spread.runs[1].temperatureC = 27.5;
+    const stored = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [spread], 201);
+    const id = stored.body.stored[0].submissionId;
+    const sheetText = async () =>
+      folded(await pdfText((await api.app.inject({ method: 'GET', url: `/v1/submissions/${id}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } })).rawPayload));
+    const view = await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200);
+    expect(view.body.result.signals).toEqual([expect.objectContaining({ code: 'temperature-spread', path: 'runs' })]);
+    expect(view.body.result.signals[0].onSheet).toBeUndefined();
+    expect(view.body.signalChoices).toEqual([]);
+    expect(await sheetText()).not.toContain('Notes on the measurement');
+
+    const shown = await call(api.app, 'POST', `/v1/submissions/${id}/signals`, s.taAToken, { code: 'temperature-spread', path: 'runs', onSheet: true }, 201);
+    expect(shown.body.result.signals[0].onSheet).toBe(true);
+    const text = await sheetText();
+    expect(text).toContain('Notes on the measurement');
+    expect(text).toContain('The runs were recorded at temperatures 2.5 degC apart');
+    expect(text).not.toContain('ta-a');
+
+    const hidden = await call(api.app, 'POST', `/v1/submissions/${id}/signals`, s.taAToken, { code: 'temperature-spread', path: 'runs', onSheet: false }, 201);
+    expect(hidden.body.result.signals[0].onSheet).toBeUndefined();
+    expect(hidden.body.signalChoices).toEqual([
+      expect.objectContaining({ code: 'temperature-spread', path: 'runs', onSheet: true, by: 'ta-a' }),
+      expect.objectContaining({ code: 'temperature-spread', path: 'runs', onSheet: false, by: 'ta-a' }),
+    ]);
+    expect(await sheetText()).not.toContain('Notes on the measurement');
+
+    const missing = await call(api.app, 'POST', `/v1/submissions/${id}/signals`, s.taAToken, { code: 'end-value', path: 'runs[0].infinity', onSheet: true }, 400);
+    expect(missing.body.error.details).toEqual([{ path: 'body.path', message: 'the latest result raises no signal end-value at runs[0].infinity' }]);
+    const badCode = await call(api.app, 'POST', `/v1/submissions/${id}/signals`, s.taAToken, { code: 'misconduct', path: 'runs', onSheet: true }, 400);
+    expect(badCode.body.error.details[0].path).toBe('body.code');
+    expect((await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200)).body.signalChoices).toHaveLength(2);
+  });
+
   it('results are released only by a TA action; a sheet before release says it is a draft', async () => {
     const table0 = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     const draft = await api.app.inject({ method: 'GET', url: `/v1/submissions/${table0.body[0].submissionId}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });

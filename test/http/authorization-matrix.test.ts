@@ -56,6 +56,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   }),
   'GET /v1/submissions/:submissionId': (f) => ({ url: `/v1/submissions/${f.submissionId}` }),
   'POST /v1/submissions/:submissionId/overrides': (f) => ({ url: `/v1/submissions/${f.submissionId}/overrides`, body: { findingId: f.findingId, pointsLost: 1, reason: 'checked by hand' } }),
+  'POST /v1/submissions/:submissionId/signals': (f) => ({ url: `/v1/submissions/${f.submissionId}/signals`, body: { code: 'temperature-spread', path: 'runs', onSheet: true } }),
   'GET /v1/sections/:sectionId/students/:studentId/history': (f) => ({ url: `/v1/sections/${f.sectionA.id}/students/S-001/history` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/results': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/results` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/signals': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/signals` }),
@@ -78,6 +79,9 @@ describe('authorisation matrix: every route x every caller', () => {
     const seed = await seedCourse(api.app);
     const [slipped] = submissionsFor(['S-001'], 99);
     slipped.runs[0].reported!.k!.value = -Number(slipped.runs[0].reported!.k!.value);
+    // Runs recorded 2.5 degC apart: a signal for review to put on the sheet.
+    slipped.runs[0].temperatureC = 25;
+    slipped.runs[1].temperatureC = 27.5;
     const stored = await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/submissions`, seed.taAToken, [slipped], 201);
     const spare = (await call(api.app, 'POST', `/v1/courses/${seed.course.id}/staff`, seed.instructorToken, { handle: 'ta-spare', role: 'ta', sectionIds: [seed.sectionA.id] }, 201)).body;
     const { started } = await regradeAndWait(api.app, seed.instructorToken, seed.assignment.id);

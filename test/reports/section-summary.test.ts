@@ -56,12 +56,22 @@ describe('renderSectionSummary', () => {
     const signals = sectionSignals(s.settings, all);
     expect(signals.pairs.map((p) => p.students)).toEqual([[submissions[0].studentId, 'S-099']]);
     const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results, submissions: all, signals })));
-    expect(text).toContain('For review: patterns across the section');
+    expect(text).toContain('For review: how the data were measured, and patterns across the section');
+    expect(text).toContain('No signals about how any student’s runs were measured.');
     expect(text).toContain('not findings: no points depend on them');
     expect(text).toContain(`${submissions[0].studentId} and S-099`);
     expect(text).toContain('shifted by a constant');
     const without = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results, submissions })));
     expect(without).not.toContain('For review');
+  });
+
+  it("lists each student's signals about the measurement with their places, even without section signals", async () => {
+    const flagged = results.map((r, i) =>
+      i === 1 ? { ...r, signals: [{ code: 'end-value' as const, path: 'runs[2].infinity', message: 'm', evidence: {} }, { code: 'temperature-spread' as const, path: 'runs', message: 'm', evidence: {} }] } : r,
+    );
+    const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results: flagged, submissions })));
+    expect(text).toContain('For review: how the data were measured');
+    expect(text).toContain(`${flagged[1].studentId} end-value (run “${submissions[1].runs[2].label}”), temperature-spread (all runs)`);
   });
 
   it('prints the section, the spread of k_A, the codes and the ids needing attention', async () => {

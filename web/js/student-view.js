@@ -79,6 +79,31 @@ export async function studentView(place, submissionId, failure) {
     }
   }
 
+  async function chooseSignal(sig, onSheet) {
+    try {
+      view = await api('POST', `/v1/submissions/${submissionId}/signals`, { code: sig.code, path: sig.path, onSheet });
+      draw();
+    } catch (error) {
+      failure(error);
+    }
+  }
+
+  function signalItem(sig) {
+    const trail = view.signalChoices.filter((c) => c.code === sig.code && c.path === sig.path);
+    return h(
+      'li',
+      { class: sig.onSheet ? 'signal on-sheet' : 'signal' },
+      h('p', {}, h('code', {}, sig.code), ' ', sig.message),
+      h(
+        'p',
+        { class: 'signal-choice' },
+        h('span', {}, sig.onSheet ? 'On the student’s sheet. ' : 'Not on the student’s sheet. '),
+        h('button', { type: 'button', onclick: () => chooseSignal(sig, !sig.onSheet) }, sig.onSheet ? 'Take it off the sheet' : 'Show it on the sheet'),
+      ),
+      trail.length ? h('ul', { class: 'trail' }, trail.map((c) => h('li', {}, `${when(c.at)}: ${c.by} ${c.onSheet ? 'put it on' : 'took it off'} the sheet`))) : null,
+    );
+  }
+
   function findingCard(f) {
     const trail = view.overrides.filter((o) => o.findingId === f.id);
     const message = h('p', { class: 'form-error', role: 'alert' });
@@ -147,8 +172,8 @@ export async function studentView(place, submissionId, failure) {
             'section',
             { class: 'panel signals' },
             h('h2', {}, 'For review: how the runs were measured'),
-            h('p', { class: 'hint' }, 'What the readings suggest about the measurement. Prompts to look and ask, not findings: no points depend on them and they are not on the student’s sheet.'),
-            h('ul', {}, result.signals.map((sig) => h('li', {}, h('code', {}, sig.code), ' ', sig.message))),
+            h('p', { class: 'hint' }, 'What the readings suggest about the measurement. Prompts to look and ask, not findings: no points depend on them, and one reaches the student’s sheet only if you show it there.'),
+            h('ul', {}, result.signals.map(signalItem)),
           )
         : null,
       h('section', {}, h('h2', {}, 'Reported and refitted'), comparisonTable(view.payload ?? {}, result?.refit, assignment.settings), plots(view.payload ?? {}, result?.refit, assignment.settings)),
