@@ -111,6 +111,8 @@ export const Settings = z.object({
   reference: z.object({ kN: Band.optional(), kA: Band.optional() }).optional(),
   /** The smallest change the instrument displays, in the readings' unit (0.001 deg for a polarimeter). */
   displayStep: z.number().positive().max(1).default(0.001),
+  /** The scatter of one reading (SD, readings' unit) as the instrument's maker or the lab states it; optional. */
+  instrumentNoise: z.number().positive().max(10).optional(),
   /** Runs of one experiment are meant to be at one temperature: the largest spread between them, and whether each run must record it. */
   temperature: z
     .object({ maxSpread: z.number().positive().max(100).default(1), required: z.boolean().default(false) })

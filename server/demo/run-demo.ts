@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { mkdir, rm, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
+import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
 import { gradebookCsv } from '../../reports/gradebook-csv.ts';
@@ -54,6 +55,7 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
 
     const settings = generateAssignment(random, options);
     const { submissions, slipped } = generateSection(random, settings, ids);
+    recordTemperatures(submissions);
     await api('POST', `/v1/sections/${section.id}/assignments/${assignment.id}/submissions`, taToken, submissions);
 
     const inputs = await sectionFeedback(store.db, section.id, assignment.id);
@@ -79,6 +81,10 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
       const made = (slipped.get(r.studentId!) ?? []).join(', ') || '-';
       write(`${r.studentId!.padEnd(8)} ${`${r.score}/${r.maxScore}`.padEnd(7)} ${made.padEnd(29)} ${codes}`);
     }
+    for (const input of inputs) {
+      const signals = input.result.signals ?? [];
+      if (signals.length) write(`signals for review, ${input.result.studentId}: ${signals.map((x) => `${x.code} (${x.path})`).join(', ')}`);
+    }
     write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/`);
     write(`the demo database stays in ${dataDir}. To open the workspace on it:`);
     write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with the TA token`);
@@ -87,4 +93,14 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     await app.close();
     await store.close();
   }
+}
+
+/**
+ * Each run records the room's temperature, 24.6 to 25.4 degC (invented); one student measured a run
+ * on a warmer afternoon, 27.2 degC, which the workspace shows as a signal for review.
+ */
+function recordTemperatures(submissions: Submission[]): void {
+  const random = seededRandom(25);
+  for (const s of submissions) for (const run of s.runs) run.temperatureC = Number((24.6 + 0.8 * random()).toFixed(1));
+  submissions[7].runs[2].temperatureC = 27.2;
 }

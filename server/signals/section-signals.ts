@@ -17,10 +17,10 @@ interface RunsPayload {
 const nothing = (why: string): SectionSignals => ({ notCompared: why, pairs: [], groups: [], smooth: [] });
 
 /** `submissions`: the section's latest valid submissions, as their schema read them. */
-export function sectionSignals(settings: { kind: string; classDataset?: unknown }, submissions: unknown[]): SectionSignals {
+export function sectionSignals(settings: { kind: string; classDataset?: unknown; instrumentNoise?: number }, submissions: unknown[]): SectionSignals {
   if (settings.kind !== 'first-order-catalysis') return nothing(`the kind ${settings.kind} has no runs of readings to compare`);
   if (settings.classDataset) return nothing('the class was handed one dataset, so shared and identical readings are expected');
   const payloads = submissions as RunsPayload[];
   const shared = findSharedReadings(payloads.map((p) => ({ studentId: p.studentId, runs: p.runs, reportedK: p.runs.map((r) => r.reported?.k?.value) })));
-  return { ...shared, smooth: findSmoothRuns(payloads) };
+  return { ...shared, smooth: findSmoothRuns(payloads, settings.instrumentNoise) };
 }

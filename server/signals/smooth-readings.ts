@@ -5,7 +5,8 @@ import { displayStepOf } from './display-step.ts';
 /**
  * Runs smoother than an instrument reads: the scatter of the readings about the exponential curve
  * (x_inf fitted) is no larger than rounding to the display step alone gives (a uniform rounding error
- * has SD step/sqrt(12), about 0.29 step), while the section's own runs scatter several times more. A
+ * has SD step/sqrt(12), about 0.29 step), while the section's own runs (their median) or the
+ * instrument, by its stated noise where the assignment gives one, scatter several times more. A
  * sign that readings were computed from a curve rather than read; a prompt for review, never a finding.
  */
 export const SMOOTH_STEPS = 0.5;
@@ -23,6 +24,8 @@ export interface SmoothRun {
   residualSD: number;
   step: number;
   sectionMedianSD: number;
+  /** The assignment's stated noise of one reading, where it gives one. */
+  instrumentNoise?: number;
 }
 
 function scatterOf(run: RunsOfStudent['runs'][number]): { residualSD: number; step: number } | undefined {
@@ -39,14 +42,15 @@ function scatterOf(run: RunsOfStudent['runs'][number]): { residualSD: number; st
   }
 }
 
-export function findSmoothRuns(section: RunsOfStudent[]): SmoothRun[] {
+export function findSmoothRuns(section: RunsOfStudent[], instrumentNoise?: number): SmoothRun[] {
   const all = section.flatMap((s) => s.runs.map((run, i) => ({ studentId: s.studentId, run: i, label: run.label, scatter: scatterOf(run) })));
   const sds = all.flatMap((r) => (r.scatter ? [r.scatter.residualSD] : [])).sort((a, b) => a - b);
   if (sds.length === 0) return [];
   const median = sds[Math.floor(sds.length / 2)];
+  const expected = Math.max(median, instrumentNoise ?? 0);
   return all.flatMap((r) =>
-    r.scatter && r.scatter.residualSD <= SMOOTH_STEPS * r.scatter.step && median >= SECTION_FACTOR * Math.max(r.scatter.residualSD, (0.5 * r.scatter.step) / Math.sqrt(3))
-      ? [{ studentId: r.studentId, run: r.run, label: r.label, residualSD: r.scatter.residualSD, step: r.scatter.step, sectionMedianSD: median }]
+    r.scatter && r.scatter.residualSD <= SMOOTH_STEPS * r.scatter.step && expected >= SECTION_FACTOR * Math.max(r.scatter.residualSD, (0.5 * r.scatter.step) / Math.sqrt(3))
+      ? [{ studentId: r.studentId, run: r.run, label: r.label, residualSD: r.scatter.residualSD, step: r.scatter.step, sectionMedianSD: median, ...(instrumentNoise === undefined ? {} : { instrumentNoise }) }]
       : [],
   );
 }

@@ -11,6 +11,7 @@ import { conditionRun, type RunCondition } from '../support/run-conditions.ts';
  * constant, and readings computed from a curve. Printed, never asserted (the tests hold the limits).
  */
 const SECTIONS = 20;
+const HONEST_SUBMISSIONS = 5000;
 const STUDENTS = 30;
 
 export function benchSignalRates(): void {
@@ -18,6 +19,7 @@ export function benchSignalRates(): void {
   let honestFlagged = 0;
   let copiesFound = 0;
   let computedFound = 0;
+  let editedFound = 0;
   for (let seed = 1; seed <= SECTIONS; seed++) {
     const students = ownRunsSection(seed, STUDENTS);
     const honest = sectionSignals(settings, students);
@@ -27,19 +29,26 @@ export function benchSignalRates(): void {
     copy.studentId = 'S-900';
     for (const run of copy.runs) run.readings = run.readings.map(([t, x]) => [t, Number((Number(x) + 0.75).toFixed(3))]);
     const computed = { ...computedReadings(students[1]), studentId: 'S-901' };
-    const withCondition = sectionSignals(settings, [...students, copy, computed]);
+    // Another classmate's runs in reverse order, two readings of each changed by a few display steps.
+    const edited = structuredClone(students[2]);
+    edited.studentId = 'S-902';
+    edited.runs.reverse();
+    for (const run of edited.runs) for (const i of [4, 11]) run.readings[i] = [run.readings[i][0], Number((Number(run.readings[i][1]) + 0.004).toFixed(3))];
+    const withCondition = sectionSignals(settings, [...students, copy, computed, edited]);
     if (withCondition.pairs.some((p) => p.students.includes('S-900'))) copiesFound++;
+    if (withCondition.pairs.some((p) => p.students.includes('S-902'))) editedFound++;
     if (withCondition.smooth.some((r) => r.studentId === 'S-901')) computedFound++;
   }
+  // Seeds no test uses: honest submissions of every assignment variant.
   let runSignalled = 0;
-  for (let seed = 0; seed < 300; seed++) {
+  for (let seed = 200000; seed < 200000 + HONEST_SUBMISSIONS; seed++) {
     const { settings: s, submission } = cleanCase(seed);
     if ((checkSubmission(parseAssignment(s), submission).signals ?? []).length > 0) runSignalled++;
   }
   benchRunConditions();
   console.log(
-    `signals: honest students signalled ${honestFlagged} of ${SECTIONS * STUDENTS} (section signals) and ${runSignalled} of 300 (run signals); ` +
-      `a copied classmate's readings found in ${copiesFound} of ${SECTIONS}, computed readings in ${computedFound} of ${SECTIONS} (targets: < 1 % and >= 95 %)`,
+    `signals: honest students signalled ${honestFlagged} of ${SECTIONS * STUDENTS} (section signals) and ${runSignalled} of ${HONEST_SUBMISSIONS} submissions (run signals); ` +
+      `a copied classmate's readings found in ${copiesFound} of ${SECTIONS} (shifted by a constant) and ${editedFound} of ${SECTIONS} (runs reordered, two readings each edited), computed readings in ${computedFound} of ${SECTIONS} (targets: < 1 % and >= 95 %)`,
   );
 }
 

@@ -31,4 +31,15 @@ describe('runs smoother than the instrument reads', () => {
     console.log(`computed: found in ${found} of 100`);
     expect(found).toBe(100);
   });
+
+  it("are found in a student working alone against the instrument's stated noise, and not without it", () => {
+    for (let seed = 300; seed < 320; seed++) {
+      const alone = [asRuns(computedReadings(ownRunsSection(seed, 1)[0]))];
+      // The section is this student alone: their own scatter is the median, so nothing stands out.
+      expect(findSmoothRuns(alone)).toEqual([]);
+      const found = findSmoothRuns(alone, 0.003);
+      expect(found.map((r) => r.run)).toEqual([0, 1, 2, 3]);
+      expect(found[0]).toMatchObject({ studentId: 'S-001', instrumentNoise: 0.003 });
+    }
+  });
 });

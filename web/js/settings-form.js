@@ -44,6 +44,10 @@ const DEFAULTS = {
   rubric: { readings: 1, lnF: 1, k: 2, kUncertainty: 1, kN: 2, kNUncertainty: 1, kA: 2, kAUncertainty: 1, sigFigs: 0 },
 };
 
+/** Settings that may be left out (empty means unset), and those that are yes or no. */
+const OPTIONAL = new Set(['instrumentNoise']);
+const BOOLEAN = new Set(['temperature.required']);
+
 let formCount = 0;
 
 /** `assignment` to edit, or undefined for a new one in `courseId`; `done(saved)` after a save, `failure` for what the form cannot show. */
@@ -82,6 +86,15 @@ export function settingsForm({ courseId, assignment, done, failure }) {
         return kind === 'relative' ? number(`tolerances.${key}.relative`, `${label}, %`, value === undefined ? undefined : Number((value * 100).toPrecision(12))) : number(`tolerances.${key}.absolute`, label, value);
       }),
     ),
+    h(
+      'fieldset',
+      {},
+      h('legend', {}, 'The instrument (for signals to review, never points)'),
+      number('displayStep', 'Display step of a reading', current.displayStep ?? 0.001),
+      number('instrumentNoise', 'Stated noise of one reading (SD)', current.instrumentNoise, 'optional: leave empty to compare with the section alone'),
+      number('temperature.maxSpread', 'Largest spread of run temperatures, degC', current.temperature?.maxSpread ?? 1),
+      select('temperature.required', 'Each run records its temperature', [['false', 'optional'], ['true', 'required']], String(current.temperature?.required ?? false)),
+    ),
     h('fieldset', {}, h('legend', {}, 'Rubric points'), RUBRIC.map(([key, label]) => number(`rubric.${key}`, label, current.rubric?.[key] ?? DEFAULTS.rubric[key]))),
     h('p', { class: 'hint' }, 'A class dataset and reference bands, where set, are kept as they are (the API edits them). Saving changes no result until you regrade.'),
     h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
@@ -96,7 +109,9 @@ export function settingsForm({ courseId, assignment, done, failure }) {
       let target = settings;
       for (const p of parts.slice(0, -1)) target = target[p] = { ...(target[p] ?? {}) };
       const last = parts[parts.length - 1];
-      if (control.type === 'number') {
+      if (OPTIONAL.has(path) && control.value.trim() === '') delete target[last];
+      else if (BOOLEAN.has(path)) target[last] = control.value === 'true';
+      else if (control.type === 'number') {
         // An empty or unreadable number is sent as it is, for the schema to name.
         const value = control.value.trim() === '' ? null : Number(control.value);
         target[last] = value !== null && parts[0] === 'tolerances' && last === 'relative' ? value / 100 : value;
