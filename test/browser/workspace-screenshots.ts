@@ -7,7 +7,7 @@ import { openStore } from '../../server/store/connection.ts';
 import { launchChromium } from '../support/chromium.ts';
 
 /**
- * `npm run screenshots`: the README's two pictures of the workspace, taken from the demo data (an
+ * `npm run screenshots`: the README's pictures of the workspace, taken from the demo data (an
  * invented section) at 1280 px wide, into docs/.
  */
 const out = await mkdtemp(join(tmpdir(), 'rateproof-shots-'));
@@ -31,7 +31,13 @@ try {
   await page.locator('tr.has-errors a').nth(1).click();
   await page.locator('li.finding').first().waitFor();
   await page.screenshot({ path: 'docs/workspace-student.png', fullPage: true });
-  process.stdout.write('wrote docs/workspace-section.png and docs/workspace-student.png\n');
+  // A student whose runs carry a signal for review, put on the sheet by the TA.
+  await page.goBack();
+  await page.getByRole('link', { name: 'B-08', exact: true }).click();
+  await page.getByRole('button', { name: 'Show it on the sheet' }).click();
+  await page.getByText(/put it on the sheet$/).waitFor();
+  await page.locator('section.signals').screenshot({ path: 'docs/workspace-signal.png' });
+  process.stdout.write('wrote docs/workspace-section.png, docs/workspace-student.png and docs/workspace-signal.png\n');
 } finally {
   await browser.close();
   await app.close();
