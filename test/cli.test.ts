@@ -45,7 +45,9 @@ beforeAll(async () => {
   await writeFile(file('assignment.json'), JSON.stringify(assignment));
   await writeFile(file('bad-assignment.json'), JSON.stringify({ ...assignment, fitModel: 'sideways' }));
   await writeFile(file('one.json'), JSON.stringify(submission('s-01')));
-  await writeFile(file('batch.json'), JSON.stringify([submission('s-01'), notANumber, submission('s-03')], null, 2));
+  // s-03 recorded its runs at 25, 26.5 and 28 degC: a signal for review.
+  const warming = { ...submission('s-03'), runs: submission('s-03').runs.map((r, i) => ({ ...r, temperatureC: 25 + 1.5 * i })) };
+  await writeFile(file('batch.json'), JSON.stringify([submission('s-01'), notANumber, warming], null, 2));
   await writeFile(file('malformed.json'), '[\n  { "studentId": "s-01",\n  }\n]\n');
   const rows = submission('s-01').runs.flatMap((r) =>
     r.readings.map(([t, x]) => ['s-01', r.label, String(r.catalyst.value).replace('.', ','), 'M', 'min', t, String(x).replace('.', ','), t === 0 ? '1' : ''].join(';')),
@@ -145,12 +147,13 @@ describe('rateproof check: results', () => {
     expect(lines[rejected + 1]).toMatch(/^ {2}rejected +runs\[0\]\.readings\[1\]\[1\] +\S/);
   });
 
-  it('--signals FILE writes what the batch suggests for review: here s-01 and s-03 hand in the same readings', async () => {
+  it('--signals FILE writes what the batch suggests for review: here s-01 and s-03 hand in the same readings, and s-03 its runs 3 degC apart', async () => {
     const result = await rateproof('check', '--assignment', file('assignment.json'), file('batch.json'), '--signals', file('signals.json'));
     expect(result.code).toBe(0);
-    expect(result.stdout).toContain(`signals for review: 1 pair(s) of submissions with readings that look alike, 0 run(s) smoother than the instrument reads; written to ${file('signals.json')}`);
+    expect(result.stdout).toContain(`signals for review: 1 pair(s) of submissions with readings that look alike, 0 run(s) smoother than the instrument reads, 1 student(s) with signals about their runs; written to ${file('signals.json')}`);
     const signals = JSON.parse(await readFile(file('signals.json'), 'utf8'));
     expect(signals.pairs.map((p: { students: string[]; runs: Array<{ relation: string }> }) => [p.students, p.runs.map((r) => r.relation)])).toEqual([[['s-01', 's-03'], ['identical', 'identical', 'identical']]]);
+    expect(signals.students).toEqual([{ studentId: 's-03', signals: [expect.objectContaining({ code: 'temperature-spread', path: 'runs', evidence: expect.objectContaining({ spread: 3 }) })] }]);
     // The results are printed as without it.
     expect(result.stdout.split('\n')[0]).toMatch(/^student +score/);
   });

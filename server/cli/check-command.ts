@@ -89,7 +89,10 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 async function writeSignals(path: string, settings: unknown, submissions: unknown[], results: CheckResult[], say: boolean, io: CliIo): Promise<void> {
   const { sectionSignals } = await import('../signals/section-signals.ts');
   const checked = submissions.filter((_, i) => results[i]?.status === 'checked');
-  const report = sectionSignals(settings as { kind: string }, checked);
+  const section = sectionSignals(settings as { kind: string }, checked);
+  // Each student's own signals (per run and per submission) beside the section's.
+  const students = results.flatMap((r) => ((r.signals ?? []).length > 0 ? [{ studentId: r.studentId, signals: r.signals }] : []));
+  const report = { ...section, students };
   try {
     await writeFile(path, `${JSON.stringify(report, null, 2)}\n`);
   } catch (error) {
@@ -100,7 +103,7 @@ async function writeSignals(path: string, settings: unknown, submissions: unknow
     io.stdout(
       report.notCompared
         ? `signals: nothing compared (${report.notCompared}); written to ${path}\n`
-        : `signals for review: ${report.pairs.length} pair(s) of submissions with readings that look alike, ${report.smooth.length} run(s) smoother than the instrument reads; written to ${path}\n`,
+        : `signals for review: ${report.pairs.length} pair(s) of submissions with readings that look alike, ${report.smooth.length} run(s) smoother than the instrument reads, ${students.length} student(s) with signals about their runs; written to ${path}\n`,
     );
   }
 }
