@@ -1,6 +1,10 @@
-import type { Settings, Submission } from '../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import type { SectionSignals } from '../server/signals/section-signals.ts';
+
+/** Any kind's parsed settings: the kind's report reads the rest. */
+export interface KindSettings {
+  kind: string;
+}
 
 /** What a feedback sheet is made from: plain data, no schema objects, no I/O. */
 export interface FeedbackHeader {
@@ -19,9 +23,9 @@ export interface FeedbackHeader {
 export interface FeedbackInput {
   header: FeedbackHeader;
   /** Parsed settings (defaults filled), as `parseAssignment` returns them. */
-  settings: Settings;
-  /** The submission the result was checked from (parsed). */
-  submission: Submission;
+  settings: KindSettings;
+  /** The submission the result was checked from, as the kind's schema parsed it. */
+  submission: unknown;
   result: CheckResult;
   /** The data are invented (demo or test): says so in every page's footer. */
   invented?: boolean;
@@ -36,10 +40,10 @@ export interface SummaryHeader {
 
 export interface SectionSummaryInput {
   header: SummaryHeader;
-  settings: Settings;
+  settings: KindSettings;
   results: CheckResult[];
-  /** The submissions, matched to results by student id: their reported k_N and k_A are summarised too. */
-  submissions?: Submission[];
+  /** The submissions, matched to results by student id (the kind's report may summarise their reported values too). */
+  submissions?: unknown[];
   /** The section's signals for review, where they were computed. */
   signals?: SectionSignals;
   invented?: boolean;

@@ -1,24 +1,24 @@
 import type { SectionSummaryInput } from './feedback-input.ts';
 import { INVENTED_NOTE } from './feedback-input.ts';
-import { formatDate, formatNumber, formatPoints, prettyUnit } from './format.ts';
-import { collect, contentLeft, contentWidth, createDocument, ensureSpace, finish, moveTo, paragraph, sectionHeading, type Doc } from './pdf/document.ts';
+import { formatDate, formatPoints } from './format.ts';
+import { collect, contentLeft, contentWidth, createDocument, finish, moveTo, paragraph, sectionHeading, type Doc } from './pdf/document.ts';
 import { FONT } from './pdf/fonts.ts';
 import { drawTable } from './pdf/table.ts';
 import { COLOR, SIZE } from './pdf/theme.ts';
 import { scoreFraction } from './result-summary.ts';
 import { attentionRow, needAttention } from './summary/attention.ts';
-import { classValues, type ClassValues } from './summary/class-values.ts';
 import { codeCounts } from './summary/code-counts.ts';
 import { drawScoreHistogram } from './summary/histogram.ts';
 import { percentBins, spread } from './summary/stats.ts';
 import { drawSignals } from './summary/signals-block.ts';
-import { drawStripPlot } from './summary/strip-plot.ts';
+import type { KindReport } from './kind-report.ts';
+import { plainRich } from './pdf/rich-text.ts';
+import { kindFor, reportFor } from '../server/checks/kinds.ts';
 
 export type { SectionSummaryInput, SummaryHeader } from './feedback-input.ts';
 
-const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}' } as const;
 
-function drawHeader(doc: Doc, input: SectionSummaryInput): void {
+function drawHeader(doc: Doc, input: SectionSummaryInput, report: KindReport): void {
   const { header, results } = input;
   const left = contentLeft(doc);
   const width = contentWidth(doc);
@@ -33,7 +33,7 @@ function drawHeader(doc: Doc, input: SectionSummaryInput): void {
     ['Assignment', header.assignment],
     ['Graded', formatDate(header.gradedAt)],
     ['Submissions', `${results.length} (${checked} checked, ${results.length - checked} not checked)`],
-    ['Fit asked for', `ln F against t ${input.settings.fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`],
+    ...report.summaryFacts(input.settings),
   ];
   const third = width / 3;
   facts.forEach(([label, value], i) => {
@@ -67,62 +67,8 @@ function drawScores(doc: Doc, input: SectionSummaryInput): void {
   drawScoreHistogram(doc, percentBins(fractions));
 }
 
-function spreadRow(values: ClassValues, source: string, data: number[]): string[] {
-  const s = spread(data);
-  const outside = values.band ? data.filter((v) => v < values.band!.min || v > values.band!.max).length : undefined;
-  return [
-    SYMBOL[values.quantity],
-    source,
-    String(s?.n ?? 0),
-    s ? formatNumber(s.mean) : '—',
-    s && Number.isFinite(s.sd) ? formatNumber(s.sd, 2) : '—',
-    s ? formatNumber(s.median) : '—',
-    s ? `${formatNumber(s.min, 3)} to ${formatNumber(s.max, 3)}` : '—',
-    values.band ? `${formatNumber(values.band.min, 3)} to ${formatNumber(values.band.max, 3)}` : 'none',
-    outside === undefined ? '—' : String(outside),
-  ];
-}
-
-function drawRateConstants(doc: Doc, input: SectionSummaryInput): void {
-  const values = classValues(input.settings, input.results, input.submissions);
-  if (values.every((v) => v.refit.length === 0 && v.reported.length === 0)) return;
-  sectionHeading(doc, 'The class’s k_{N} and k_{A}', 150);
-  paragraph(
-    doc,
-    `Refit: our fit of each student’s own readings. Reported: the values the students handed in` +
-      (input.submissions ? '' : ' (not given for this summary)') +
-      `, converted to the assignment’s units. SD is the sample standard deviation. Units: ${prettyUnit(input.settings.units.kN)} for the first-order constant, ${prettyUnit(input.settings.units.kA)} for the catalytic one.`,
-    { size: SIZE.small, color: COLOR.muted },
-  );
-  const rows = values.flatMap((v) => [spreadRow(v, 'refit', v.refit), ...(input.submissions ? [spreadRow(v, 'reported', v.reported)] : [])]);
-  drawTable(
-    doc,
-    [
-      { header: '', weight: 0.5 },
-      { header: 'Source', weight: 0.9 },
-      { header: 'n', weight: 0.4, align: 'right' },
-      { header: 'Mean', weight: 1, align: 'right' },
-      { header: 'SD', weight: 0.9, align: 'right' },
-      { header: 'Median', weight: 1, align: 'right' },
-      { header: 'Range', weight: 1.8 },
-      { header: 'Reference band', weight: 1.6 },
-      { header: 'Outside band', weight: 1.1, align: 'right' },
-    ],
-    rows,
-    { zebra: true, keepRows: rows.length },
-  );
-  const unreadable = values.reduce((n, v) => n + v.unreadable, 0);
-  if (unreadable > 0) paragraph(doc, `${unreadable} reported value(s) left out: their unit could not be read.`, { size: SIZE.small, color: COLOR.muted });
-  for (const v of values) {
-    if (v.refit.length + v.reported.length === 0) continue;
-    ensureSpace(doc, 130);
-    moveTo(doc, doc.y + 6);
-    drawStripPlot(doc, v);
-  }
-}
-
 function drawCodes(doc: Doc, input: SectionSummaryInput): void {
-  const counts = codeCounts(input.results);
+  const counts = codeCounts(input.results, kindFor(input.settings.kind)?.findingCodes);
   const checked = input.results.filter((r) => r.status === 'checked').length;
   sectionHeading(doc, 'How often each finding occurred', 80);
   if (counts.length === 0) {
@@ -165,20 +111,24 @@ function drawAttention(doc: Doc, input: SectionSummaryInput): void {
 }
 
 /**
- * A section at a glance, as PDF bytes: score distribution, the class's k_N and k_A against the
- * reference band, how often each finding occurred, who most needs a TA's attention (ids only), and
+ * A section at a glance, as PDF bytes: score distribution, the kind's part on the class's values (for
+ * the first kind, k_N and k_A against the reference band), how often each finding occurred, who most needs a TA's attention (ids only), and
  * the section's signals for review where they are given.
  */
 export async function renderSectionSummary(input: SectionSummaryInput): Promise<Buffer> {
   const gradedAt = new Date(input.header.gradedAt);
   const doc = createDocument({ title: `Section summary ${input.header.section}`, date: Number.isNaN(gradedAt.getTime()) ? new Date(0) : gradedAt });
   const bytes = collect(doc);
-  drawHeader(doc, input);
+  const report = await reportFor(input.settings.kind);
+  drawHeader(doc, input, report);
   drawScores(doc, input);
   drawAttention(doc, input);
-  drawRateConstants(doc, input);
+  report.drawSummaryData(doc, input);
   drawCodes(doc, input);
-  if (input.signals || input.results.some((r) => (r.signals ?? []).length > 0)) drawSignals(doc, input.signals, input.results, input.submissions);
+  if (input.signals || input.results.some((r) => (r.signals ?? []).length > 0)) {
+    const submissions = new Map((input.submissions ?? []).map((s) => [(s as { studentId?: string }).studentId, s]));
+    drawSignals(doc, input.signals, input.results, (path, studentId) => plainRich(report.describePath(path, submissions.get(studentId ?? undefined))));
+  }
   finish(doc, {
     left: `Rateproof section summary · ${input.header.section} · ${input.header.assignment} · ${formatPoints(input.results.length)} students`,
     invented: input.invented ? INVENTED_NOTE : undefined,

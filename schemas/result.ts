@@ -1,34 +1,28 @@
 import { z } from 'zod';
 
-/** What the checker returns for one submission; the same for every experiment kind. */
-export const Stage = z.enum(['readings', 'run', 'rate-law', 'reporting']);
+/**
+ * What the checker returns for one submission; the same for every experiment kind. A kind names its
+ * own stages and finding codes (its schema module lists them); these codes mean the same in every kind.
+ */
 export const Severity = z.enum(['info', 'warning', 'error']);
 
-export const findingCodes = [
+export const sharedFindingCodes = [
   'sign-flipped',
   'log-base',
-  'time-unit',
-  'concentration-unit',
   'decimal-shift',
-  'swapped-axes',
-  'wrong-infinity',
-  'fit-model',
-  'half-life-for-rate',
-  'uncertainty-kind',
   'carried-forward',
-  'transcription',
-  'suspect-reading',
   'implausible',
   'sig-figs',
   'unit-unrecognised',
-  'unit-assumed',
   'missing-value',
   'unexplained',
   // Not a slip: how the refit had to depart from the settings (and why), for the TA to see.
   'refit-note',
 ] as const;
-export const FindingCode = z.enum(findingCodes);
-export type FindingCode = z.infer<typeof FindingCode>;
+export type SharedFindingCode = (typeof sharedFindingCodes)[number];
+
+/** Codes and stage names are lower-case words joined by hyphens. */
+const Code = z.string().regex(/^[a-z][a-z0-9-]*$/);
 
 export const transcriptionDetails = [
   'transposed-digits',
@@ -45,12 +39,14 @@ export const transcriptionDetails = [
 export const Finding = z.object({
   /** Stable within a result: `code@path`, so a TA's override can name it across regrades. */
   id: z.string(),
-  code: FindingCode,
+  /** One of the kind's finding codes (the shared ones among them). */
+  code: Code,
   /** Further codes when more than one cause explains the value at once (e.g. sign and log base). */
-  alsoCodes: z.array(FindingCode).optional(),
+  alsoCodes: z.array(Code).optional(),
   /** For transcription: which slip; for wrong-infinity: which value was used. */
   detail: z.string().optional(),
-  stage: Stage,
+  /** One of the kind's stages, in which the sheet groups findings. */
+  stage: Code,
   /** Where in the submission, e.g. `runs[2].reported.k`. */
   path: z.string(),
   reported: z.number().nullable().optional(),

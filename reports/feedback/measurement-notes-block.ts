@@ -1,13 +1,12 @@
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { printableMessage } from '../format.ts';
 import { contentLeft, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawRich } from '../pdf/rich-text.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import { describePath } from './paths.ts';
+import type { DescribePath } from './findings-block.ts';
 
 /** The signals a TA chose to share with the student, as notes about the measurement; drawn only where there are some. */
-export function drawMeasurementNotes(doc: Doc, result: CheckResult, submission: Submission | undefined): void {
+export function drawMeasurementNotes(doc: Doc, result: CheckResult, describe: DescribePath): void {
   const chosen = (result.signals ?? []).filter((s) => s.onSheet);
   if (chosen.length === 0) return;
   sectionHeading(doc, 'Notes on the measurement', 60);
@@ -19,7 +18,7 @@ export function drawMeasurementNotes(doc: Doc, result: CheckResult, submission: 
     // The place and at least three lines of its note stay together.
     ensureSpace(doc, 14 + 3 * 12);
     const y = doc.y;
-    drawRich(doc, s.path === 'runs' ? 'All runs' : describePath(s.path, submission), contentLeft(doc), y, { size: SIZE.body, bold: true, color: COLOR.ink });
+    drawRich(doc, describe(s.path), contentLeft(doc), y, { size: SIZE.body, bold: true, color: COLOR.ink });
     moveTo(doc, y + 14);
     paragraph(doc, printableMessage(s.message), { gap: 7 });
   }

@@ -18,6 +18,7 @@ const QUANTITIES: Record<string, string> = {
 };
 
 const TOP: Record<string, string> = {
+  runs: 'All runs',
   'reported.kN': 'k_{N}',
   'reported.kN.uncertainty': 'standard error of k_{N}',
   'reported.kN.unit': 'unit of k_{N}',

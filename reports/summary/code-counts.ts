@@ -1,4 +1,3 @@
-import { findingCodes } from '../../schemas/result.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 
 export interface CodeCount {
@@ -9,8 +8,8 @@ export interface CodeCount {
   asError: number;
 }
 
-/** How many students each finding code occurred for, most frequent first (ties in the schema's order). */
-export function codeCounts(results: readonly CheckResult[]): CodeCount[] {
+/** How many students each finding code occurred for, most frequent first (ties in `order`, the kind's list). */
+export function codeCounts(results: readonly CheckResult[], order: readonly string[] = []): CodeCount[] {
   const students = new Map<string, number>();
   const asError = new Map<string, number>();
   for (const result of results) {
@@ -20,8 +19,8 @@ export function codeCounts(results: readonly CheckResult[]): CodeCount[] {
     for (const c of errors) asError.set(c, (asError.get(c) ?? 0) + 1);
   }
   const rank = (code: string) => {
-    const i = (findingCodes as readonly string[]).indexOf(code);
-    return i === -1 ? findingCodes.length : i;
+    const i = order.indexOf(code);
+    return i === -1 ? order.length : i;
   };
   return [...students.entries()]
     .map(([code, n]) => ({ code, students: n, asError: asError.get(code) ?? 0 }))

@@ -1,4 +1,3 @@
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { SectionSignals } from '../../server/signals/section-signals.ts';
 import { formatNumber } from '../format.ts';
@@ -6,19 +5,13 @@ import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 
+/** A signal's place in a student's submission, in plain words. */
+export type SignalPlace = (path: string, studentId: string | null) => string;
+
 const RELATION = { identical: 'the same', offset: 'shifted by a constant', scaled: 'rescaled', edited: 'a few cells changed' } as const;
 
-/** Where a signal points, in a table cell's plain words: the run's label, or all runs. */
-function signalPlace(path: string, submission: Submission | undefined): string {
-  const run = /^runs\[(\d+)\]/.exec(path);
-  if (!run) return path === 'runs' ? 'all runs' : path;
-  const label = submission?.runs[Number(run[1])]?.label;
-  return label === undefined ? `run ${Number(run[1]) + 1}` : `run “${label}”`;
-}
-
 /** Each student's signals about the measurement (per run and per submission), one row per student. */
-function drawStudentSignals(doc: Doc, results: CheckResult[], submissions: Submission[]): void {
-  const byStudent = new Map(submissions.map((s) => [s.studentId, s]));
+function drawStudentSignals(doc: Doc, results: CheckResult[], place: SignalPlace): void {
   const rows = results.filter((r) => (r.signals ?? []).length > 0);
   if (rows.length === 0) {
     paragraph(doc, 'No signals about how any student’s runs were measured.');
@@ -31,16 +24,16 @@ function drawStudentSignals(doc: Doc, results: CheckResult[], submissions: Submi
       { header: 'Student', weight: 1.1 },
       { header: 'Signals', weight: 4.2 },
     ],
-    rows.map((r) => [r.studentId ?? '—', (r.signals ?? []).map((s) => `${s.code} (${signalPlace(s.path, byStudent.get(r.studentId ?? ''))})`).join(', ')]),
+    rows.map((r) => [r.studentId ?? '—', (r.signals ?? []).map((s) => `${s.code} (${place(s.path, r.studentId)})`).join(', ')]),
     { zebra: true, keepRows: 4 },
   );
 }
 
 /** The section's signals for review: prompts to look and ask, never findings. */
-export function drawSignals(doc: Doc, signals: SectionSignals | undefined, results: CheckResult[], submissions: Submission[] = []): void {
+export function drawSignals(doc: Doc, signals: SectionSignals | undefined, results: CheckResult[], place: SignalPlace): void {
   sectionHeading(doc, 'For review: how the data were measured, and patterns across the section', 90);
   paragraph(doc, 'Prompts to look and ask the students, not findings: no points depend on them and nothing here reaches a student.', { size: SIZE.small, color: COLOR.muted });
-  drawStudentSignals(doc, results, submissions);
+  drawStudentSignals(doc, results, place);
   if (!signals) return;
   if (signals.notCompared) {
     paragraph(doc, `Nothing was compared: ${signals.notCompared}.`);

@@ -9,6 +9,40 @@ import { Estimate, RefitValue } from '../result.ts';
  */
 export const KIND = 'first-order-catalysis';
 
+/** The stages findings are grouped in, in order, with their titles (sub/superscript markup). */
+export const stages = [
+  { id: 'readings', title: 'Readings' },
+  { id: 'run', title: 'Runs: ln F and k_{obs}' },
+  { id: 'rate-law', title: 'Rate law: k_{N} and k_{A}' },
+  { id: 'reporting', title: 'Reporting' },
+] as const;
+export type Stage = (typeof stages)[number]['id'];
+
+/** The kind's finding codes, the shared ones among them, in the order a summary lists them. */
+export const findingCodes = [
+  'sign-flipped',
+  'log-base',
+  'time-unit',
+  'concentration-unit',
+  'decimal-shift',
+  'swapped-axes',
+  'wrong-infinity',
+  'fit-model',
+  'half-life-for-rate',
+  'uncertainty-kind',
+  'carried-forward',
+  'transcription',
+  'suspect-reading',
+  'implausible',
+  'sig-figs',
+  'unit-unrecognised',
+  'unit-assumed',
+  'missing-value',
+  'unexplained',
+  'refit-note',
+] as const;
+export type FindingCode = (typeof findingCodes)[number];
+
 const Reading = z.tuple([FiniteNumber, FiniteNumber]);
 
 function timesInOrder(rows: Array<[number, number]>, ctx: z.RefinementCtx): void {

@@ -1,10 +1,9 @@
-import type { FindingCode } from '../../schemas/result.ts';
 
 /**
  * Plain words for each likely cause: what would produce the number, and what to check. The wording
  * stays tentative on purpose: a diagnosis is a likely cause for a TA to confirm, never a verdict.
  */
-export const causeText: Partial<Record<FindingCode, { what: string; check: string }>> = {
+export const causeText: Partial<Record<string, { what: string; check: string }>> = {
   'sign-flipped': { what: 'the sign of the slope was kept (k is minus the slope)', check: 'the sign of the reported value' },
   'log-base': { what: 'log10 was used where the natural logarithm ln is needed', check: 'which logarithm the spreadsheet used (LOG10 or LN)' },
   'time-unit': { what: 'the time unit of the value does not match the unit declared', check: 'the unit of your times and the unit you wrote next to the value' },
@@ -18,7 +17,7 @@ export const causeText: Partial<Record<FindingCode, { what: string; check: strin
 };
 
 /** "likely cause: ...; check ..." for the causes found, in order. */
-export function likelyCause(codes: FindingCode[], details: string[] = []): string {
+export function likelyCause(codes: string[], details: string[] = []): string {
   const parts = codes.map((c) => causeText[c]).filter((t) => t !== undefined);
   if (parts.length === 0) return '';
   const what = parts.map((p) => p.what).join(', and ');

@@ -1,4 +1,4 @@
-import type { Finding, FindingCode } from '../../schemas/result.ts';
+import type { Finding } from '../../schemas/result.ts';
 
 /** A finding before scoring: what it would cost, and which rubric item (per run where it applies). */
 export interface DraftFinding extends Omit<Finding, 'id' | 'pointsLost'> {
@@ -8,7 +8,7 @@ export interface DraftFinding extends Omit<Finding, 'id' | 'pointsLost'> {
 }
 
 /** Causes that come from a habit, not a one-off: named each time they show, scored once. */
-const SYSTEMATIC = new Set<FindingCode>([
+const SYSTEMATIC = new Set<string>([
   'sign-flipped',
   'log-base',
   'time-unit',
@@ -26,7 +26,7 @@ const SYSTEMATIC = new Set<FindingCode>([
  * it is worth.
  */
 export function scoreFindings(drafts: DraftFinding[], itemPoints: (itemKey: string) => number): Finding[] {
-  const chargedAt = new Map<FindingCode, string>();
+  const chargedAt = new Map<string, string>();
   const spent = new Map<string, number>();
   return drafts.map(({ charge, itemKey, ...draft }) => {
     const causes = [draft.code, ...(draft.alsoCodes ?? [])];

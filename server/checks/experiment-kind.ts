@@ -7,6 +7,10 @@ import type { CheckResult, Rejection } from '../../schemas/result.ts';
  */
 export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   kind: string;
+  /** Every finding code the kind's checker can give (the shared ones among them), in the order a summary lists them. */
+  findingCodes: readonly string[];
+  /** The stages findings are grouped in, in order, with their titles (sub/superscript markup: k_{obs}). */
+  stages: ReadonlyArray<{ id: string; title: string }>;
   settingsSchema: z.ZodType<Settings>;
   submissionSchema: z.ZodType<Submission>;
   /** What the schema cannot say about valid-looking settings (a unit of the wrong kind, say). */

@@ -1,5 +1,4 @@
 import type { Tolerance } from '../../schemas/common.ts';
-import type { FindingCode } from '../../schemas/result.ts';
 import { withinTolerance } from './tolerance.ts';
 
 /**
@@ -9,7 +8,7 @@ import { withinTolerance } from './tolerance.ts';
  */
 export interface Candidate {
   value: number;
-  causes: FindingCode[];
+  causes: string[];
   /** What the cause was in this case, e.g. "x_inf = last reading (10.873)". */
   detail?: string;
   /** What the value is, in words: "the refit", "the slope of t against ln F". */
@@ -23,7 +22,7 @@ export interface Candidate {
 /** Common slips that scale a value; which apply depends on the quantity. */
 export interface Factor {
   factor: number;
-  cause: FindingCode;
+  cause: string;
   /** How the factor reads in a message, e.g. "divided by ln 10 = 2.302585". */
   says: string;
 }
@@ -52,7 +51,7 @@ export const DECIMAL_SHIFT: Factor[] = [-3, -2, -1, 1, 2, 3].map((p) => ({
 }));
 
 /** When two explanations have as many causes, the more common slip is named. */
-const CAUSE_PRIORITY: FindingCode[] = [
+const CAUSE_PRIORITY: string[] = [
   'fit-model',
   'sign-flipped',
   'log-base',
@@ -72,7 +71,7 @@ export type Expanded = Candidate & { root: number; says: string[] };
 
 // Two scalings at once are named only when one is the sign, which moves no magnitude; a slip of
 // method joins only the common unit slips. Wider pairings would "explain" almost any number.
-const JOINS_A_METHOD_SLIP = new Set<FindingCode>(['sign-flipped', 'log-base', 'time-unit']);
+const JOINS_A_METHOD_SLIP = new Set<string>(['sign-flipped', 'log-base', 'time-unit']);
 
 function better(c: Candidate, best: Candidate, reported: number): boolean {
   if (c.causes.length !== best.causes.length) return c.causes.length < best.causes.length;

@@ -1,9 +1,36 @@
+import type { KindReport } from '../../reports/kind-report.ts';
 import type { ExperimentKind } from './experiment-kind.ts';
 import { firstOrderCatalysis } from './first-order-catalysis/kind.ts';
 
-/** Every experiment kind the checker knows, by name. */
-const kinds = new Map<string, ExperimentKind>([[firstOrderCatalysis.kind, firstOrderCatalysis as ExperimentKind]]);
+/**
+ * Every experiment kind the service knows, by name: its checker, and its parts of the documents,
+ * loaded only when a document is drawn. Registering a kind is one call.
+ */
+interface RegisteredKind {
+  checker: ExperimentKind;
+  report(): Promise<KindReport>;
+}
+
+const kinds = new Map<string, RegisteredKind>();
+
+export function registerKind(checker: ExperimentKind, report: () => Promise<KindReport>): void {
+  kinds.set(checker.kind, { checker, report });
+}
+
+registerKind(firstOrderCatalysis as ExperimentKind, async () => (await import('../../reports/first-order-catalysis/report.ts')).firstOrderCatalysisReport);
 
 export function kindFor(name: string): ExperimentKind | undefined {
-  return kinds.get(name);
+  return kinds.get(name)?.checker;
+}
+
+/** The kind's parts of the documents; the kind must be registered (settings name only known kinds). */
+export async function reportFor(name: string): Promise<KindReport> {
+  const kind = kinds.get(name);
+  if (!kind) throw new Error(`no experiment kind ${name}`);
+  return kind.report();
+}
+
+/** Its stages, in order, with their titles. */
+export function stagesOf(name: string): ExperimentKind['stages'] {
+  return kinds.get(name)?.checker.stages ?? [];
 }

@@ -1,6 +1,6 @@
-import { KIND, Settings, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../../schemas/kinds/first-order-catalysis.ts';
+import { findingCodes, KIND, Settings, type FindingCode, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { ReportedValue } from '../../schemas/common.ts';
-import { findingCodes, type Finding, type FindingCode } from '../../schemas/result.ts';
+import type { Finding } from '../../schemas/result.ts';
 import { EngineError } from '../engine/engine-error.ts';
 import { fitLine, fitLineModel, type LineFit, type LineModel } from '../engine/linear-fit.ts';
 import { tCritical95 } from '../engine/student-t.ts';

@@ -1,4 +1,4 @@
-import { findingCodes, type FindingCode } from '../../schemas/result.ts';
+import { findingCodes, type FindingCode } from '../../schemas/kinds/first-order-catalysis.ts';
 import { checkBatch, checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { FindingCode } from '../../schemas/result.ts';
+import type { FindingCode } from '../../schemas/kinds/first-order-catalysis.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';

@@ -1,10 +1,10 @@
 import { parse } from 'csv-parse/sync';
 import { describe, expect, it } from 'vitest';
-import type { CheckResult, Finding, FindingCode } from '../../schemas/result.ts';
+import type { CheckResult, Finding } from '../../schemas/result.ts';
 import { GRADEBOOK_COLUMNS, gradebookCsv, neutraliseText } from '../../reports/gradebook-csv.ts';
 
 function finding(code: string, severity: Finding['severity'], pointsLost: number): Finding {
-  return { id: `${code}@x`, code: code as FindingCode, stage: 'run', path: 'x', severity, pointsLost, message: 'm' };
+  return { id: `${code}@x`, code, stage: 'run', path: 'x', severity, pointsLost, message: 'm' };
 }
 
 function result(studentId: string | null, findings: Finding[] = [], score: number | null = 20): CheckResult {

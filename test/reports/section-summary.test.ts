@@ -71,7 +71,7 @@ describe('renderSectionSummary', () => {
     );
     const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results: flagged, submissions })));
     expect(text).toContain('For review: how the data were measured');
-    expect(text).toContain(`${flagged[1].studentId} end-value (run “${submissions[1].runs[2].label}”), temperature-spread (all runs)`);
+    expect(text).toContain(`${flagged[1].studentId} end-value (Run “${submissions[1].runs[2].label}”, end value x∞), temperature-spread (All runs)`);
   });
 
   it('prints the section, the spread of k_A, the codes and the ids needing attention', async () => {

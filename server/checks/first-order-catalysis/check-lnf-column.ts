@@ -1,5 +1,5 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
-import type { FindingCode } from '../../../schemas/result.ts';
+import type { FindingCode } from '../../../schemas/kinds/first-order-catalysis.ts';
 import { likelyCause } from '../cause-text.ts';
 import { slipBetween } from '../digit-slips.ts';
 import type { DraftFinding } from '../draft-finding.ts';

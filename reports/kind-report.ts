@@ -1,0 +1,22 @@
+import type { CheckResult } from '../schemas/result.ts';
+import type { FeedbackInput, SectionSummaryInput } from './feedback-input.ts';
+import type { RubricLine } from './feedback/rubric-breakdown.ts';
+import type { Doc } from './pdf/document.ts';
+
+/**
+ * What an experiment kind adds to the documents; the sheet and the summary draw everything else
+ * (header, score, findings by stage, notes on the measurement, score distribution, codes, signals)
+ * the same for every kind. Settings and submissions arrive as the kind's schemas parsed them.
+ */
+export interface KindReport {
+  /** A finding's or signal's place in words, with sub/superscript markup: `runs[2].reported.k` → Run “0.20 M”: k_{obs}. */
+  describePath(path: string, submission: unknown): string;
+  /** The score taken apart by rubric item. */
+  rubricBreakdown(settings: unknown, submission: unknown, result: CheckResult): RubricLine[];
+  /** The sheet after the findings of a checked result: reported against refit values, plots. */
+  drawSheetData(doc: Doc, input: FeedbackInput): void;
+  /** Facts for the summary's header beside course, section and assignment: [label, value]. */
+  summaryFacts(settings: unknown): Array<[string, string]>;
+  /** The summary's part on the class's values. */
+  drawSummaryData(doc: Doc, input: SectionSummaryInput): void;
+}
