@@ -9,6 +9,7 @@ import type { Config } from './config.ts';
 import { poolGrader, type Grader } from './grading/grader.ts';
 import { Regrades } from './grading/regrade.ts';
 import { createWorkerPool } from './pool/worker-pool.ts';
+import { sameThreadPool } from './pool/same-thread-pool.ts';
 import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
 import { callerOf } from './routes/caller.ts';
@@ -197,7 +198,8 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     }
   });
 
-  const pool = options.grader ? undefined : createWorkerPool();
+  const workers = options.config.workers;
+  const pool = options.grader ? undefined : workers === 0 ? sameThreadPool() : createWorkerPool(workers);
   const grader = options.grader ?? poolGrader(pool!);
   const regrades = new Regrades(grader);
   app.addHook('onClose', async () => {

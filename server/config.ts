@@ -14,6 +14,8 @@ const ConfigSchema = z.object({
   RATEPROOF_BODY_LIMIT_MB: z.string().trim().regex(/^\d+(\.\d+)?$/, 'a number of megabytes').transform(Number).pipe(z.number().positive().max(100)).default(5),
   /** `always` behind a proxy that ends TLS: the session cookie is then marked Secure although the service hears http. */
   RATEPROOF_SECURE_COOKIE: z.enum(['auto', 'always']).default('auto'),
+  /** Worker threads for checking and drawing; 0 does that work in the service's own thread. Default: one per core. */
+  RATEPROOF_WORKERS: z.string().trim().regex(/^\d+$/, 'a whole number of threads').transform(Number).pipe(z.number().max(64)).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -25,6 +27,8 @@ export interface Config {
   adminToken?: string;
   bodyLimitBytes: number;
   logLevel: z.infer<typeof ConfigSchema>['LOG_LEVEL'];
+  /** Worker threads for checking and drawing (0: the service's own thread); unset: one per core. */
+  workers?: number;
   /** Mark the session cookie Secure on every request (`always`), or only on requests that came over TLS. */
   secureCookie?: 'auto' | 'always';
 }
@@ -51,5 +55,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     bodyLimitBytes: Math.round(c.RATEPROOF_BODY_LIMIT_MB * 1024 * 1024),
     logLevel: c.LOG_LEVEL,
     secureCookie: c.RATEPROOF_SECURE_COOKIE,
+    workers: c.RATEPROOF_WORKERS,
   };
 }

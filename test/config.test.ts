@@ -25,6 +25,7 @@ describe('readConfig', () => {
       bodyLimitBytes: 5 * 1024 * 1024,
       logLevel: 'info',
       secureCookie: 'auto',
+      workers: undefined,
     });
   });
 
@@ -38,6 +39,7 @@ describe('readConfig', () => {
       RATEPROOF_BODY_LIMIT_MB: '12',
       LOG_LEVEL: 'warn',
       RATEPROOF_SECURE_COOKIE: 'always',
+      RATEPROOF_WORKERS: '0',
     });
     expect(config).toEqual({
       databaseUrl: 'postgres://app@db.example:5432/rateproof',
@@ -48,7 +50,12 @@ describe('readConfig', () => {
       bodyLimitBytes: 12 * 1024 * 1024,
       logLevel: 'warn',
       secureCookie: 'always',
+      workers: 0,
     });
+  });
+
+  it('names RATEPROOF_WORKERS when it is not a whole number', () => {
+    expect(configError({ RATEPROOF_WORKERS: 'two' }).message).toContain('RATEPROOF_WORKERS: a whole number of threads');
   });
 
   it('ignores variables it does not know', () => {

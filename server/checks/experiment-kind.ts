@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import type { CheckResult, Rejection } from '../../schemas/result.ts';
+import type { CsvLayout } from '../input/csv-layout.ts';
 
 /**
  * One kind of experiment the checker understands. A new kind is a new module that implements this
@@ -17,6 +18,8 @@ export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   settingsIssues(settings: Settings): Rejection[];
   /** Refits, compares, diagnoses and scores one valid submission. Pure. */
   check(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'>;
+  /** How submissions of this kind are read from CSV files; absent: JSON only. */
+  csvLayout?: CsvLayout;
   /** The points available under these settings for this submission's shape. */
   maxScore(settings: Settings, submission: Submission): number;
 }

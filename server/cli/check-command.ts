@@ -59,7 +59,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
   let pool: WorkerPool | undefined;
   try {
     if (isCsv) {
-      const submissions = await readCsvSubmissions(submissionsPath, reportedPath, io);
+      const submissions = await readCsvSubmissions(assignment.kind, submissionsPath, reportedPath, io);
       sink.add(0, formatResults(checkBatch(assignment, submissions), submissions, { output, arrays: !!values.arrays }));
     } else {
       const size = await sizeOf(submissionsPath);

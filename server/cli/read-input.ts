@@ -1,4 +1,5 @@
 import type { Assignment } from '../checks/check.ts';
+import type { ExperimentKind } from '../checks/experiment-kind.ts';
 import { parseAssignment, SettingsError } from '../checks/check.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import { filePosition } from './json-batches.ts';
@@ -32,16 +33,25 @@ export async function readAssignment(path: string, io: CliIo): Promise<Assignmen
   }
 }
 
-export async function readCsvSubmissions(path: string, reportedPath: string | undefined, io: CliIo): Promise<unknown[]> {
-  const { parseSubmissionsCsv } = await import('../input/csv-submissions.ts');
-  const readings = await readText(path, io);
-  const reported = reportedPath === undefined ? undefined : await readText(reportedPath, io);
-  const { submissions, rowErrors } = parseSubmissionsCsv(readings, reported);
+/**
+ * Submissions from CSV files by the kind's layout: the positional file is its main file, `--reported`
+ * names the optional file of that name.
+ */
+export async function readCsvSubmissions(kind: ExperimentKind, path: string, reportedPath: string | undefined, io: CliIo): Promise<unknown[]> {
+  const layout = kind.csvLayout;
+  if (!layout) throw new InputError(`the kind ${kind.kind} has no CSV layout: give the submissions as JSON`);
+  const paths: Record<string, string> = { [layout.main]: path };
+  if (reportedPath !== undefined) {
+    if (!layout.optional.includes('reported')) throw new InputError(`the kind ${kind.kind} reads no reported-values file`);
+    paths.reported = reportedPath;
+  }
+  const files: Record<string, string> = {};
+  for (const [name, file] of Object.entries(paths)) files[name] = await readText(file, io);
+  const { submissions, rowErrors } = await layout.read(files);
   const [first] = rowErrors;
   if (first) {
-    const file = first.file === 'readings' ? path : reportedPath;
     const more = rowErrors.length > 1 ? ` (and ${rowErrors.length - 1} more problems)` : '';
-    throw new InputError(`cannot read ${file}: line ${first.row}: ${first.message}${more}`);
+    throw new InputError(`cannot read ${paths[first.file] ?? first.file}: line ${first.row}: ${first.message}${more}`);
   }
   return submissions;
 }

@@ -9,17 +9,7 @@ import { parse } from 'csv-parse/sync';
  * Only the layout itself (columns, field counts, agreement of a run's values) is checked here.
  */
 
-export interface CsvRowError {
-  file: 'readings' | 'reported';
-  /** 1-based line in that file. */
-  row: number;
-  message: string;
-}
-
-export interface CsvSubmissions {
-  submissions: unknown[];
-  rowErrors: CsvRowError[];
-}
+import type { CsvRowError, CsvSubmissions } from './csv-layout.ts';
 
 type LineError = Omit<CsvRowError, 'file'>;
 

@@ -1,25 +1,40 @@
 import type {} from '@fastify/multipart';
 import type { FastifyRequest } from 'fastify';
+import type { ExperimentKind } from '../checks/experiment-kind.ts';
 import { ApiError } from '../errors.ts';
-import { parseSubmissionsCsv } from '../input/csv-submissions.ts';
+import { layoutProblems } from '../input/csv-layout.ts';
 import { decodeUtf8 } from './utf8.ts';
 
-/**
- * A multipart upload of the CSV layout: a file field `readings` and, optionally, `reported`. Returns
- * the submissions in file order; a structural problem in a file is a 400 naming the file and line.
- */
-export async function submissionsFromMultipart(request: FastifyRequest): Promise<unknown[]> {
-  const files = new Map<string, string>();
+/** A multipart upload's files by field name, read before the assignment (and so the kind's layout) is known. */
+export interface CsvUpload {
+  csvFiles: Record<string, string>;
+}
+
+// More files than any layout has is no upload to read.
+const MAX_FILES = 8;
+
+export async function filesFromMultipart(request: FastifyRequest): Promise<CsvUpload> {
+  const csvFiles: Record<string, string> = {};
   for await (const part of request.parts()) {
     if (part.type !== 'file') continue;
-    if (part.fieldname !== 'readings' && part.fieldname !== 'reported') {
-      throw new ApiError('invalid-input', undefined, [{ path: part.fieldname, message: 'expected a file field named readings or reported' }]);
-    }
-    files.set(part.fieldname, decodeUtf8(await part.toBuffer(), part.fieldname));
+    if (Object.keys(csvFiles).length >= MAX_FILES) throw new ApiError('invalid-input', undefined, [{ path: part.fieldname, message: `at most ${MAX_FILES} files` }]);
+    csvFiles[part.fieldname] = decodeUtf8(await part.toBuffer(), part.fieldname);
   }
-  const readings = files.get('readings');
-  if (readings === undefined) throw new ApiError('invalid-input', undefined, [{ path: 'readings', message: 'a readings file is required' }]);
-  const { submissions, rowErrors } = parseSubmissionsCsv(readings, files.get('reported'));
+  return { csvFiles };
+}
+
+export const isCsvUpload = (body: unknown): body is CsvUpload => typeof body === 'object' && body !== null && 'csvFiles' in body;
+
+/**
+ * The submissions in an upload, read by the kind's CSV layout in file order; a file the layout does
+ * not have, a missing one, or a structural problem in one is a 400 naming the file (and line).
+ */
+export async function submissionsFromCsv(kind: ExperimentKind, upload: CsvUpload): Promise<unknown[]> {
+  const layout = kind.csvLayout;
+  if (!layout) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: `the kind ${kind.kind} has no CSV layout: send the submissions as a JSON array` }]);
+  const problems = layoutProblems(layout, Object.keys(upload.csvFiles));
+  if (problems.length > 0) throw new ApiError('invalid-input', undefined, problems);
+  const { submissions, rowErrors } = await layout.read(upload.csvFiles);
   if (rowErrors.length > 0) {
     throw new ApiError('invalid-input', 'the CSV cannot be read', rowErrors.map((e) => ({ path: `${e.file} line ${e.row}`, message: e.message })));
   }

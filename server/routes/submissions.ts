@@ -8,7 +8,7 @@ import { getAssignment } from '../store/assignments.ts';
 import { insertSignalChoice, signalChoicesOf } from '../store/signal-choices.ts';
 import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
 import { signalCodes } from '../../schemas/result.ts';
-import { submissionsFromMultipart } from './multipart-csv.ts';
+import { filesFromMultipart, isCsvUpload, submissionsFromCsv } from './multipart-csv.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
@@ -80,14 +80,15 @@ export const submissionRoutes: RouteSpec[] = [
         200: z.object({ dryRun: z.literal(true), valid: z.number(), rejected: z.array(Rejected) }),
       },
     },
-    readBody: async (request) => (request.isMultipart() ? submissionsFromMultipart(request) : request.body),
+    readBody: async (request) => (request.isMultipart() ? filesFromMultipart(request) : request.body),
     idempotent: true,
     transactional: true,
-    async prepare({ db, grader, params, body: submissions, request }) {
+    async prepare({ db, grader, params, body, request }) {
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
-      if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
       // Stored settings that no longer validate are the server's problem, named before any checking.
-      assignmentOf(assignment.settings, 'settings');
+      const { kind } = assignmentOf(assignment.settings, 'settings');
+      const submissions = isCsvUpload(body) ? await submissionsFromCsv(kind, body) : body;
+      if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
       return gradeBatch(grader, assignment, submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })));
     },
     async handler({ db, scope, caller, prepared, query }) {

@@ -346,11 +346,11 @@ const cases: Case[] = [
     detail: /a readings file is required/,
   },
   {
-    name: 'a multipart file under an unknown field name',
+    name: 'a multipart file under an unknown field name (and so no readings file)',
     request: submitMultipart(() => ({ data: readingsCsv('S-001') })),
     status: 400,
     code: 'invalid-input',
-    paths: ['data'],
+    paths: ['data', 'readings'],
     detail: /readings or reported/,
   },
   {

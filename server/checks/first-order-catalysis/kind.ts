@@ -13,4 +13,10 @@ export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   settingsIssues,
   check: checkFirstOrderCatalysis,
   maxScore,
+  // The parser loads on the first CSV, not with the checker.
+  csvLayout: {
+    main: 'readings',
+    optional: ['reported'],
+    read: async (files) => (await import('../../input/csv-submissions.ts')).parseSubmissionsCsv(files.readings, files.reported),
+  },
 };
