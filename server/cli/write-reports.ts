@@ -1,8 +1,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import { basename, dirname, extname, join } from 'node:path';
-import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import type { FeedbackInput } from '../../reports/feedback-input.ts';
+import type { FeedbackInput, KindSettings } from '../../reports/feedback-input.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
 import { gradebookCsv } from '../../reports/gradebook-csv.ts';
 import type { Assignment } from '../checks/check.ts';
@@ -33,13 +32,13 @@ export async function writeReports(
   };
   const stem = (path: string) => basename(path, extname(path));
   const header = { course: 'Offline check', section: stem(paths.submissionsPath), assignment: stem(paths.assignmentPath), gradedAt: new Date() };
-  const settings = assignment.settings as Settings;
+  const settings = assignment.settings as KindSettings;
   const names = new UniqueNames();
   const sheets: Array<{ name: string; input: FeedbackInput }> = [];
   for (const [i, result] of results.entries()) {
     const parsed = assignment.kind.submissionSchema.safeParse(submissions[i]);
     if (result.status !== 'checked' || result.studentId === null || !parsed.success) continue;
-    const submission = parsed.data as Submission;
+    const submission = parsed.data;
     sheets.push({ name: names.take(result.studentId), input: { header: { ...header, studentId: result.studentId, version: 1 }, settings, submission, result } });
   }
   if (pool) {

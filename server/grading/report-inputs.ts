@@ -1,7 +1,6 @@
 import type { Kysely } from 'kysely';
-import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import type { FeedbackInput } from '../../reports/feedback-input.ts';
+import type { FeedbackInput, KindSettings } from '../../reports/feedback-input.ts';
 import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
 import { signalChoicesOf } from '../store/signal-choices.ts';
@@ -35,8 +34,8 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
     const result = asCheckResult(row.studentId, effectiveResult(stored, overrides, choices));
     out.push({
       header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt, released: stored.releasedAt !== null },
-      settings: checker.settings as Settings,
-      submission: checker.kind.submissionSchema.parse(row.payload) as Submission,
+      settings: checker.settings as KindSettings,
+      submission: checker.kind.submissionSchema.parse(row.payload),
       result,
     });
   }
