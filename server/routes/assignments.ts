@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
+import { stagesOf } from '../checks/kinds.ts';
 import { createAssignment, getAssignment, replaceSettings } from '../store/assignments.ts';
 import { getSection } from '../store/courses.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -11,10 +12,15 @@ const Assignment = z.object({
   courseId: z.number(),
   title: z.string(),
   kind: z.string(),
+  /** The kind's stages, in order, as findings are grouped (titles with sub/superscript markup: k_{obs}). */
+  stages: z.array(z.object({ id: z.string(), title: z.string() })),
   settings: z.unknown(),
   settingsVersion: z.number(),
   createdAt: z.date(),
 });
+
+/** A stored assignment with what its kind says about how findings are grouped. */
+const withStages = <T extends { kind: string }>(assignment: T) => ({ ...assignment, stages: stagesOf(assignment.kind) });
 const Settings = z.record(z.string(), z.unknown());
 const RegradeProgressView = z.object({
   regradeId: z.string(),
@@ -39,7 +45,7 @@ export const assignmentRoutes: RouteSpec[] = [
     async handler({ db, scope, body }) {
       const { title, settings } = body as { title: string; settings: unknown };
       const checker = assignmentOf(settings);
-      return { status: 201, body: await createAssignment(db, scope.courseId!, title, checker.kind.kind, checker.settings) };
+      return { status: 201, body: withStages(await createAssignment(db, scope.courseId!, title, checker.kind.kind, checker.settings)) };
     },
   },
   {
@@ -49,7 +55,7 @@ export const assignmentRoutes: RouteSpec[] = [
     summary: 'An assignment with its settings',
     schema: { params: z.object({ assignmentId: IdParam }), response: { 200: Assignment } },
     async handler({ db, params }) {
-      return { status: 200, body: await getAssignment(db, Number(params.assignmentId)) };
+      return { status: 200, body: withStages((await getAssignment(db, Number(params.assignmentId)))!) };
     },
   },
   {
@@ -66,7 +72,7 @@ export const assignmentRoutes: RouteSpec[] = [
       if (checker.kind.kind !== current.kind) {
         throw new ApiError('invalid-input', undefined, [{ path: 'body.settings.kind', message: `the assignment's kind is ${current.kind}` }]);
       }
-      return { status: 200, body: await replaceSettings(db, id, checker.settings) };
+      return { status: 200, body: withStages(await replaceSettings(db, id, checker.settings)) };
     },
   },
   {

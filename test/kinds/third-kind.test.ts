@@ -52,6 +52,8 @@ describe('a kind registered in one line', () => {
     expect(bad.body.error.details.map((d: { path: string }) => d.path)).toEqual(['body.settings.tolerance']);
     const assignment = (await call(app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Zero order (invented)', settings: { kind: ZERO_ORDER } }, 201)).body;
     url = `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}`;
+    // The workspace groups findings by the stages the assignment's kind names.
+    expect(assignment.stages).toEqual([{ id: 'line', title: 'The line: k' }]);
 
     const batch = [
       zeroOrderSubmission('S-001', 0.05, 0.05),

@@ -57,3 +57,11 @@ export function when(iso) {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? '' : d.toLocaleString();
 }
+
+/** Text with `_{sub}` and `^{sup}` markup as text nodes and sub/sup elements (never as HTML). */
+export function marked(text) {
+  return text.split(/([_^]\{[^}]*\})/).filter((part) => part !== '').map((part) => {
+    const m = /^([_^])\{([^}]*)\}$/.exec(part);
+    return m ? h(m[1] === '_' ? 'sub' : 'sup', {}, m[2]) : part;
+  });
+}

@@ -1,14 +1,8 @@
 import { api } from './api.js';
-import { fill, h, num, when } from './dom.js';
+import { fill, h, marked, num, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { lnFPlot, ratePlot } from './plots.js';
 
-const STAGES = [
-  ['readings', 'The readings'],
-  ['run', 'Each run: ln F and k_obs'],
-  ['rate-law', 'The rate law: k_N and k_A'],
-  ['reporting', 'Reporting: units and rounding'],
-];
 // Molar factors for the plot's concentration axis; other units leave the plot out rather than guess.
 const TO_MOLAR = { M: 1, N: 1, mM: 1e-3, mN: 1e-3, uM: 1e-6, 'µM': 1e-6 };
 
@@ -162,9 +156,10 @@ export async function studentView(place, submissionId, failure) {
       h('p', { class: 'score', role: 'status', tabindex: '-1' }, result ? (result.status === 'checked' ? `Score ${num(result.score)} of ${num(result.maxScore)}` : 'Refused by the checker: the data could not be graded') : 'Not graded yet'),
       h('p', { class: 'caution' }, 'Each cause named below is a likely cause read from the numbers, for you to review: not a verdict. You can change the points of any finding, with a reason; nothing reaches the student until you release it.'),
       result?.status === 'rejected' ? h('ul', {}, (result.rejected ?? []).map((r) => h('li', {}, h('code', {}, r.path), ` ${r.message}`))) : null,
-      ...STAGES.map(([stage, title]) => {
-        const here = findings.filter((f) => f.stage === stage);
-        return here.length ? h('section', { class: 'stage' }, h('h2', {}, title), h('ul', { class: 'findings' }, here.map(findingCard))) : null;
+      // The kind's stages, in its order; a finding of a stage the kind no longer names still shows, last.
+      ...[...assignment.stages, ...[...new Set(findings.map((f) => f.stage))].filter((id) => !assignment.stages.some((s) => s.id === id)).map((id) => ({ id, title: id }))].map(({ id, title }) => {
+        const here = findings.filter((f) => f.stage === id);
+        return here.length ? h('section', { class: 'stage' }, h('h2', {}, ...marked(title)), h('ul', { class: 'findings' }, here.map(findingCard))) : null;
       }),
       findings.length === 0 && result?.status === 'checked' ? h('p', {}, 'No findings: every checked value agrees with the refit.') : null,
       result?.signals?.length
