@@ -1,6 +1,6 @@
 import type { Tolerance } from '../../schemas/common.ts';
 import type { Finding } from '../../schemas/result.ts';
-import { likelyCause } from './cause-text.ts';
+import { likelyCause, type CauseVocabulary } from './cause-text.ts';
 import type { DraftFinding } from './draft-finding.ts';
 import { explain, type Candidate, type Expanded, type Factor } from './explain.ts';
 import { withUnit } from './format.ts';
@@ -32,6 +32,8 @@ export interface ValueCheck {
   slips?: () => Candidate[];
   /** Scalings that known slips of units or copying produce. */
   factors: Factor[];
+  /** The kind's words and preferences for causes. */
+  causes: CauseVocabulary;
   tolerance: Tolerance;
   /** How close a slip's value must come for the slip to be named, where narrower than `tolerance`. */
   causeTolerance?: Tolerance;
@@ -86,7 +88,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
   if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
-  const by = explain(reported, roots, c.factors, c.causeTolerance ?? tolerance, c.closeTolerance);
+  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance ?? tolerance, c.closeTolerance);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;
     const how = by.says.length ? ` ${by.says.join(' and ')}` : '';
@@ -97,7 +99,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
       detail: by.detail,
       severity: 'error',
       charge: c.charge,
-      message: `${intro} Your value matches ${by.basis} (${withUnit(by.root, c.unit)})${how}. ${likelyCause(by.causes, by.detail ? [by.detail] : [])}`,
+      message: `${intro} Your value matches ${by.basis} (${withUnit(by.root, c.unit)})${how}. ${likelyCause(c.causes, by.causes, by.detail ? [by.detail] : [])}`,
     });
     return { kind: 'explained', by };
   }

@@ -1,10 +1,11 @@
 import type { Tolerance } from '../../schemas/common.ts';
+import type { CauseVocabulary } from './cause-text.ts';
 import { withinTolerance } from './tolerance.ts';
 
 /**
  * Explaining a mismatch: each candidate is a value the student would have reported had they made
  * the slips named in `causes`. A reported value is explained by the candidates it matches within
- * tolerance; the fewest causes win (the simplest story), then the order of `CAUSE_PRIORITY`.
+ * tolerance; the fewest causes win (the simplest story), then the kind's order of preference.
  */
 export interface Candidate {
   value: number;
@@ -50,54 +51,44 @@ export const DECIMAL_SHIFT: Factor[] = [-3, -2, -1, 1, 2, 3].map((p) => ({
   says: `${p > 0 ? 'multiplied' : 'divided'} by ${10 ** Math.abs(p)} (a misplaced decimal point)`,
 }));
 
-/** When two explanations have as many causes, the more common slip is named. */
-const CAUSE_PRIORITY: string[] = [
-  'fit-model',
-  'sign-flipped',
-  'log-base',
-  'time-unit',
-  'concentration-unit',
-  'uncertainty-kind',
-  'half-life-for-rate',
-  'swapped-axes',
-  'wrong-infinity',
-  'decimal-shift',
-];
-
-const rank = (c: Candidate) => Math.min(...c.causes.map((code) => CAUSE_PRIORITY.indexOf(code) + 1), CAUSE_PRIORITY.length + 1);
-
 /** A candidate made from a base value: `root` is the base, `says` how the slips scaled it. */
 export type Expanded = Candidate & { root: number; says: string[] };
 
-// Two scalings at once are named only when one is the sign, which moves no magnitude; a slip of
-// method joins only the common unit slips. Wider pairings would "explain" almost any number.
-const JOINS_A_METHOD_SLIP = new Set<string>(['sign-flipped', 'log-base', 'time-unit']);
-
-function better(c: Candidate, best: Candidate, reported: number): boolean {
+function better(c: Candidate, best: Candidate, reported: number, priority: readonly string[]): boolean {
   if (c.causes.length !== best.causes.length) return c.causes.length < best.causes.length;
   const closer = Math.abs(reported - c.value) < Math.abs(reported - best.value);
+  const rank = (x: Candidate) => Math.min(...x.causes.map((code) => priority.indexOf(code) + 1), priority.length + 1);
   if (c.closestWins || best.closestWins || rank(c) === rank(best)) return closer;
   return rank(c) < rank(best);
 }
 
 /**
  * The best explanation of `reported`, or undefined when none matches. The candidates are every base
- * value alone, with one scaling, and with one scaling and the sign: at most two causes. A candidate is
- * built only when its value matches, since almost none do.
+ * value alone, with one scaling, and with one scaling and the sign: at most two causes. Two scalings
+ * at once are named only when one is the sign, which moves no magnitude, and a slip of method joins
+ * only the scalings the kind's vocabulary allows. A candidate is built only when its value matches,
+ * since almost none do.
  */
-export function explain(reported: number, bases: Candidate[], factors: Factor[], tolerance: Tolerance, closeTolerance = tolerance): Expanded | undefined {
+export function explain(
+  reported: number,
+  bases: Candidate[],
+  factors: Factor[],
+  vocabulary: Pick<CauseVocabulary, 'priority' | 'joinMethodSlips'>,
+  tolerance: Tolerance,
+  closeTolerance = tolerance,
+): Expanded | undefined {
   let best: Expanded | undefined;
   // A long-shot base and every scaling of it must match within the closer band.
   const consider = (b: Candidate, value: number, make: () => Expanded) => {
     if (!Number.isFinite(value) || !withinTolerance(reported, value, b.longShot ? closeTolerance : tolerance)) return;
     const c = make();
-    if (!best || better(c, best, reported)) best = c;
+    if (!best || better(c, best, reported, vocabulary.priority)) best = c;
   };
   const sign = factors.find((f) => f.cause === 'sign-flipped');
   for (const b of bases) {
     consider(b, b.value, () => ({ ...b, root: b.value, says: [] }));
     for (const f of factors) {
-      if (b.causes.length > 0 && !JOINS_A_METHOD_SLIP.has(f.cause)) continue;
+      if (b.causes.length > 0 && !vocabulary.joinMethodSlips.has(f.cause)) continue;
       const scaled = b.value * f.factor;
       consider(b, scaled, () => ({ ...b, root: b.value, value: scaled, causes: [...b.causes, f.cause], says: [f.says] }));
       if (sign && f !== sign && b.causes.length === 0) {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findSuspectReading } from '../../server/checks/suspect-readings.ts';
+import { findSuspectReading } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
 

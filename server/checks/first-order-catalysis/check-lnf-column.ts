@@ -1,6 +1,7 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { FindingCode } from '../../../schemas/kinds/first-order-catalysis.ts';
 import { likelyCause } from '../cause-text.ts';
+import { firstOrderCauses } from './causes.ts';
 import { slipBetween } from '../digit-slips.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { LN10 } from '../explain.ts';
@@ -97,7 +98,7 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
       charge: points,
       message:
         `The ln F column of run "${a.label}" differs from ln F computed from your readings throughout ` +
-        `(at t = ${fmt(a.times[j])}: ${fmt(values[j])} against ${fmt(ours[j])}). ${likelyCause(found.causes, found.detail ? [found.detail] : [])}`,
+        `(at t = ${fmt(a.times[j])}: ${fmt(values[j])} against ${fmt(ours[j])}). ${likelyCause(firstOrderCauses, found.causes, found.detail ? [found.detail] : [])}`,
     });
     return { values, wrong: true };
   }

@@ -1,5 +1,6 @@
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Refit, Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import { firstOrderCauses } from './causes.ts';
 import { fitCatalysisLaw, type CatalysisFit } from '../../engine/catalysis-law.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
@@ -121,6 +122,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
       expected: ours.value,
       carriedForward: theirs && { value: theirs.value, from },
       factors,
+      causes: firstOrderCauses,
       tolerance: tolerances[c.name],
     },
     drafts,
@@ -152,6 +154,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         carriedForward: theirs && { value: theirs.standardError, from, quiet: outcome.kind === 'carried-forward' },
         slips: () => spread,
         factors: factors.filter((f) => f !== SIGN),
+        causes: firstOrderCauses,
         tolerance: tolerances.rateLawUncertainty,
         causeTolerance: slipMatch(reported.uncertainty!, read.uncertainty, tolerances.rateLawUncertainty),
       },

@@ -2,7 +2,7 @@ import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/fir
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
 import { molarForNormality } from './catalyst-unit.ts';
-import { findSuspectReading } from '../suspect-readings.ts';
+import { findSuspectReading } from './suspect-readings.ts';
 import { compareTables, type TableSlip } from '../transcription.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 

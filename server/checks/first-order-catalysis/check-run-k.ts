@@ -1,5 +1,6 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Estimate } from '../../engine/estimate.ts';
+import { firstOrderCauses } from './causes.ts';
 import { rateUnitOf } from '../../engine/units.ts';
 import type { NumberLike } from '../../../schemas/common.ts';
 import { closeMatch, lastPlace, slipMatch } from '../cause-tolerance.ts';
@@ -72,6 +73,7 @@ export function checkRunK(
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
       slips: () => slipValues().map((s) => s.k),
       factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+      causes: firstOrderCauses,
       tolerance: tolerances.k,
       closeTolerance: closeMatch(reported.value, read.value, tolerances.k),
     },
@@ -156,6 +158,7 @@ function checkUncertainty(
       carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
       slips: () => [...spread, ...slips.candidates()],
       factors: uncertaintyFactors(kOutcome),
+      causes: firstOrderCauses,
       tolerance: settings.tolerances.kUncertainty,
       causeTolerance: slipMatch(reported.written, reported.value, settings.tolerances.kUncertainty),
     },

@@ -1,6 +1,6 @@
-import { EngineError } from '../engine/engine-error.ts';
-import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../engine/first-order-nonlinear.ts';
-import { decimalsOf, oneSlipCopies, type SlipKind } from './digit-slips.ts';
+import { EngineError } from '../../engine/engine-error.ts';
+import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../../engine/first-order-nonlinear.ts';
+import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
 
 /**
  * Readings far off the curve through the others, on a student's own data (no class table to copy
