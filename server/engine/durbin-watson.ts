@@ -37,24 +37,32 @@ export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: A
   const p = jacobian.length;
   const n = jacobian[0].length;
   if (n - p < 2) throw new RangeError('too few residuals for a Durbin-Watson statistic');
-  // M = I - J (J'J)^-1 J', then MA with A tridiagonal (1, 2, ..., 2, 1 on the diagonal, -1 beside it).
-  const m: number[][] = Array.from({ length: n }, () => new Array<number>(n));
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      let h = 0;
-      for (let r = 0; r < p; r++) for (let c = 0; c < p; c++) h += jacobian[r][i] * normalInverse[r * p + c] * jacobian[c][j];
-      m[i][j] = (i === j ? 1 : 0) - h;
+  // With H = J C J' (C = (J'J)^-1) of rank p, the traces need only p x p matrices:
+  //   tr(MA) = tr(A) - tr(C G),  tr((MA)^2) = tr(A^2) - 2 tr(C K) + tr(C G C G),
+  // where G = J'AJ and K = (AJ)'(AJ); A is tridiagonal (1, 2, ..., 2, 1 on the diagonal, -1 beside it).
+  const aj = jacobian.map((col) => {
+    const out = new Array<number>(n);
+    for (let i = 0; i < n; i++) out[i] = (i === 0 || i === n - 1 ? 1 : 2) * col[i] - (i > 0 ? col[i - 1] : 0) - (i < n - 1 ? col[i + 1] : 0);
+    return out;
+  });
+  const dot = (x: ArrayLike<number>, y: ArrayLike<number>) => {
+    let sum = 0;
+    for (let i = 0; i < n; i++) sum += x[i] * y[i];
+    return sum;
+  };
+  const g: number[] = [];
+  const k: number[] = [];
+  for (let r = 0; r < p; r++) {
+    for (let c = 0; c < p; c++) {
+      g.push(dot(jacobian[r], aj[c]));
+      k.push(dot(aj[r], aj[c]));
     }
   }
-  const ma: number[][] = m.map((row) =>
-    row.map((_, j) => (j === 0 || j === n - 1 ? 1 : 2) * row[j] - (j > 0 ? row[j - 1] : 0) - (j < n - 1 ? row[j + 1] : 0)),
-  );
-  let trace = 0;
-  let traceSquare = 0;
-  for (let i = 0; i < n; i++) {
-    trace += ma[i][i];
-    for (let j = 0; j < n; j++) traceSquare += ma[i][j] * ma[j][i];
-  }
+  const cg = product(normalInverse, g, p);
+  const traceA = 2 * (n - 1);
+  const traceA2 = 4 * (n - 2) + 2 + 2 * (n - 1);
+  const trace = traceA - traceOf(cg, p);
+  const traceSquare = traceA2 - 2 * traceOf(product(normalInverse, k, p), p) + traceOf(product(cg, cg, p), p);
   const f = n - p;
   const expected = trace / f;
   const variance = (2 * (f * traceSquare - trace * trace)) / (f * f * (f + 2));
@@ -63,6 +71,19 @@ export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: A
   betaCdf ??= createRequire(import.meta.url)('@stdlib/stats-base-dists-beta-cdf') as (x: number, a: number, b: number) => number;
   const cdf = betaCdf;
   return { expected, variance, lowerTail: (statistic) => cdf(statistic / 4, mean * spread, (1 - mean) * spread) };
+}
+
+/** Row-major p x p product. */
+function product(x: ArrayLike<number>, y: ArrayLike<number>, p: number): number[] {
+  const out = new Array<number>(p * p).fill(0);
+  for (let r = 0; r < p; r++) for (let c = 0; c < p; c++) for (let j = 0; j < p; j++) out[r * p + c] += x[r * p + j] * y[j * p + c];
+  return out;
+}
+
+function traceOf(x: ArrayLike<number>, p: number): number {
+  let sum = 0;
+  for (let r = 0; r < p; r++) sum += x[r * p + r];
+  return sum;
 }
 
 export function durbinWatson(residuals: ArrayLike<number>, jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatson {
