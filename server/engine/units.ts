@@ -1,12 +1,14 @@
 import { EngineError } from './engine-error.ts';
 
 /**
- * Units of time, concentration and first- and second-order rate constants. Text is parsed by a small
- * grammar (atoms with integer exponents, products, `/`, one level of parentheses) into a dimension
- * over (time, amount, length) and a scale, so that every reasonable spelling of one unit agrees.
- * Base units, factor 1: s, M (mol dm^-3), s^-1, M^-1 s^-1.
+ * Units of time, concentration, first- and second-order rate constants, molar energy and molar
+ * entropy. Text is parsed by a small grammar (atoms with integer exponents, products, `/`, one level
+ * of parentheses) into a dimension over (time, amount, length, energy, temperature) and a scale, so
+ * that every reasonable spelling of one unit agrees. Base units, factor 1: s, M (mol dm^-3), s^-1,
+ * M^-1 s^-1, J mol^-1, J K^-1 mol^-1. Temperatures themselves have an offset (degrees Celsius), which
+ * a factor cannot say: `temperature.ts` reads them.
  */
-export type UnitKind = 'time' | 'concentration' | 'first-order-rate' | 'second-order-rate';
+export type UnitKind = 'time' | 'concentration' | 'first-order-rate' | 'second-order-rate' | 'molar-energy' | 'molar-entropy';
 
 export interface Unit {
   /** As given, trimmed. */
@@ -16,7 +18,7 @@ export interface Unit {
   factor: number;
 }
 
-type Dim = [time: number, amount: number, length: number];
+type Dim = [time: number, amount: number, length: number, energy: number, temperature: number];
 
 /**
  * Powers of ten are kept apart from the other multipliers and applied once at the end: 10^n is exact
@@ -29,10 +31,12 @@ interface Scale {
 }
 
 const KIND_DIMS: Record<UnitKind, Dim> = {
-  time: [1, 0, 0],
-  concentration: [0, 1, -3],
-  'first-order-rate': [-1, 0, 0],
-  'second-order-rate': [-1, -1, 3],
+  time: [1, 0, 0, 0, 0],
+  concentration: [0, 1, -3, 0, 0],
+  'first-order-rate': [-1, 0, 0, 0, 0],
+  'second-order-rate': [-1, -1, 3, 0, 0],
+  'molar-energy': [0, -1, 0, 1, 0],
+  'molar-entropy': [0, -1, 0, 1, -1],
 };
 
 // Lengths in dm, so that L = dm^3 and M = mol dm^-3 both have factor 1.
@@ -40,25 +44,31 @@ const ATOMS = new Map<string, Scale>();
 function define(names: string, dim: Dim, mult: number, pow10 = 0): void {
   for (const name of names.split(' ')) ATOMS.set(name, { dim, mult, pow10 });
 }
-define('1', [0, 0, 0], 1);
+define('1', [0, 0, 0, 0, 0], 1);
 // The spellings students use, each unambiguous here (S and H, which name other units, are not read).
-define('s sec secs second seconds', [1, 0, 0], 1);
-define('ms', [1, 0, 0], 1, -3);
-define('min mins Min Mins minute minutes', [1, 0, 0], 60);
-define('h hr hrs hour hours', [1, 0, 0], 3600);
-define('d day days', [1, 0, 0], 86400);
-define('mol', [0, 1, 0], 1);
-define('mmol', [0, 1, 0], 1, -3);
-define('umol', [0, 1, 0], 1, -6);
-define('L l', [0, 0, 3], 1);
-define('mL ml', [0, 0, 3], 1, -3);
-define('m', [0, 0, 1], 1, 1);
-define('dm', [0, 0, 1], 1);
-define('cm', [0, 0, 1], 1, -1);
-define('M', [0, 1, -3], 1);
-define('mM', [0, 1, -3], 1, -3);
-define('uM', [0, 1, -3], 1, -6);
-define('nM', [0, 1, -3], 1, -9);
+define('s sec secs second seconds', [1, 0, 0, 0, 0], 1);
+define('ms', [1, 0, 0, 0, 0], 1, -3);
+define('min mins Min Mins minute minutes', [1, 0, 0, 0, 0], 60);
+define('h hr hrs hour hours', [1, 0, 0, 0, 0], 3600);
+define('d day days', [1, 0, 0, 0, 0], 86400);
+define('mol', [0, 1, 0, 0, 0], 1);
+define('mmol', [0, 1, 0, 0, 0], 1, -3);
+define('umol', [0, 1, 0, 0, 0], 1, -6);
+define('L l', [0, 0, 3, 0, 0], 1);
+define('mL ml', [0, 0, 3, 0, 0], 1, -3);
+define('m', [0, 0, 1, 0, 0], 1, 1);
+define('dm', [0, 0, 1, 0, 0], 1);
+define('cm', [0, 0, 1, 0, 0], 1, -1);
+define('M', [0, 1, -3, 0, 0], 1);
+define('mM', [0, 1, -3, 0, 0], 1, -3);
+define('uM', [0, 1, -3, 0, 0], 1, -6);
+define('nM', [0, 1, -3, 0, 0], 1, -9);
+// The thermochemical calorie, 4.184 J exactly by definition; K is the kelvin (an interval of temperature).
+define('J', [0, 0, 0, 1, 0], 1);
+define('kJ', [0, 0, 0, 1, 0], 1, 3);
+define('cal', [0, 0, 0, 1, 0], 4.184);
+define('kcal', [0, 0, 0, 1, 0], 4.184, 3);
+define('K', [0, 0, 0, 0, 1], 1);
 
 const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
 // Groups: whitespace | / ( ) | explicit product sign | atom | exponent sign, digits. The lone 1 may
@@ -66,7 +76,7 @@ const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
 const TOKEN = /(\s+)|([/()])|([*·⋅.])|(1(?![\wµμ])|[A-Za-zµμ]+)|\^?([-−⁻]?)([0-9]+|[⁰¹²³⁴⁵⁶⁷⁸⁹]+)/gy;
 
 function scaleOf(text: string, fail: (detail?: string) => never): Scale {
-  const frames = [{ acc: { dim: [0, 0, 0] as Dim, mult: 1, pow10: 0 }, sign: 1 }];
+  const frames = [{ acc: { dim: [0, 0, 0, 0, 0] as Dim, mult: 1, pow10: 0 }, sign: 1 }];
   let pending: Scale | undefined; // the last atom or group, still open to an exponent
   let expectFactor = true; // at the start and after / ( or a product sign
   let end = 0;
@@ -74,7 +84,7 @@ function scaleOf(text: string, fail: (detail?: string) => never): Scale {
     if (!pending) return;
     const { acc, sign } = frames[frames.length - 1];
     const e = sign * exponent;
-    for (let k = 0; k < 3; k++) acc.dim[k] += pending.dim[k] * e;
+    for (let k = 0; k < acc.dim.length; k++) acc.dim[k] += pending.dim[k] * e;
     acc.mult = e < 0 ? acc.mult / pending.mult ** -e : acc.mult * pending.mult ** e;
     acc.pow10 += pending.pow10 * e;
     pending = undefined;
@@ -106,7 +116,7 @@ function scaleOf(text: string, fail: (detail?: string) => never): Scale {
     } else if (punct === '(') {
       commit();
       if (frames.length > 1) fail('nested parentheses');
-      frames.push({ acc: { dim: [0, 0, 0], mult: 1, pow10: 0 }, sign: 1 });
+      frames.push({ acc: { dim: [0, 0, 0, 0, 0], mult: 1, pow10: 0 }, sign: 1 });
       expectFactor = true;
     } else {
       commit();

@@ -45,6 +45,22 @@ describe('conversion between units of one kind', () => {
     expect(convert(2.5, 'mM^-1 s^-1', 'M^-1 s^-1')).toBe(2500);
   });
 
+  // The prefix kilo is 10^3 (SI Brochure, 9th ed., table 7); the thermochemical calorie is 4.184 J
+  // exactly by its definition (from memory).
+  it('converts molar energies between kJ, J, cal and kcal per mole, in any spelling', () => {
+    expect(parseUnit('kJ mol^-1')).toEqual({ text: 'kJ mol^-1', kind: 'molar-energy', factor: 1000 });
+    expect(convert(1, 'kJ/mol', 'J mol^-1')).toBe(1000);
+    expect(convert(1, 'kcal mol-1', 'kJ/mol')).toBeCloseTo(4.184, 12);
+    expect(convert(4184, 'J/mol', 'kcal/mol')).toBeCloseTo(1, 12);
+  });
+
+  it('converts molar entropies, and keeps them apart from molar energies', () => {
+    expect(parseUnit('J K^-1 mol^-1')).toEqual({ text: 'J K^-1 mol^-1', kind: 'molar-entropy', factor: 1 });
+    expect(convert(1, 'cal/(mol K)', 'J K^-1 mol^-1')).toBeCloseTo(4.184, 12);
+    expect(thrown(() => convert(1, 'J/mol', 'J K^-1 mol^-1')).code).toBe('unit-kind-mismatch');
+    expect(thrown(() => parseUnit('kJ')).code).toBe('unknown-unit');
+  });
+
   it('accepts a Unit as well as text', () => {
     expect(convert(3, parseUnit('h'), parseUnit('min'))).toBe(180);
   });
