@@ -66,3 +66,14 @@ export function rubricBreakdown(settings: Settings, submission: Pick<Submission,
   }
   return lines;
 }
+
+/** Rubric lines from the checker's own account of the maximum (`result.items`), with the kind's labels. */
+export function rubricLinesOf(result: CheckResult, labels: Readonly<Record<string, string>>): RubricLine[] {
+  const lostBy = new Map<string, number>();
+  for (const f of result.findings) if (f.pointsLost > 0) lostBy.set(f.rubricItem ?? '', (lostBy.get(f.rubricItem ?? '') ?? 0) + f.pointsLost);
+  return (result.items ?? []).map(({ item, count, each }) => {
+    const available = each * count;
+    const lost = Math.min(available, lostBy.get(item) ?? 0);
+    return { item, label: labels[item] ?? item, count, each, available, lost, earned: available - lost };
+  });
+}

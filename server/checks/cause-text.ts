@@ -10,6 +10,8 @@ export interface CauseVocabulary {
   priority: readonly string[];
   /** Scalings that may join a slip of method (wider pairings would "explain" almost any number). */
   joinMethodSlips: ReadonlySet<string>;
+  /** Causes that come from a habit, not a one-off: named each time they show, scored once. */
+  systematic: ReadonlySet<string>;
 }
 
 /** The words for the shared codes, the same in every kind. */

@@ -7,32 +7,19 @@ export interface DraftFinding extends Omit<Finding, 'id' | 'pointsLost'> {
   itemKey?: string;
 }
 
-/** Causes that come from a habit, not a one-off: named each time they show, scored once. */
-const SYSTEMATIC = new Set<string>([
-  'sign-flipped',
-  'log-base',
-  'time-unit',
-  'concentration-unit',
-  'swapped-axes',
-  'wrong-infinity',
-  'fit-model',
-  'half-life-for-rate',
-  'uncertainty-kind',
-]);
-
 /**
- * Turns drafts (in the order the work was done: readings, runs, rate law, reporting) into findings
- * with points: a systematic cause costs once, where it first entered; no rubric item loses more than
- * it is worth.
+ * Turns drafts (in the order the work was done) into findings with points: a systematic cause (one
+ * that comes from a habit, not a one-off: `systematic`, the kind's list) is named each time it shows
+ * and costs once, where it first entered; no rubric item loses more than it is worth.
  */
-export function scoreFindings(drafts: DraftFinding[], itemPoints: (itemKey: string) => number): Finding[] {
+export function scoreFindings(drafts: DraftFinding[], itemPoints: (itemKey: string) => number, systematic: ReadonlySet<string>): Finding[] {
   const chargedAt = new Map<string, string>();
   const spent = new Map<string, number>();
   return drafts.map(({ charge, itemKey, ...draft }) => {
     const causes = [draft.code, ...(draft.alsoCodes ?? [])];
     let points = charge;
     let message = draft.message;
-    const earlier = causes.every((c) => SYSTEMATIC.has(c) && chargedAt.has(c)) ? chargedAt.get(draft.code) : undefined;
+    const earlier = causes.every((c) => systematic.has(c) && chargedAt.has(c)) ? chargedAt.get(draft.code) : undefined;
     if (points > 0 && earlier !== undefined) {
       points = 0;
       message += ` Counted once: the same likely cause was already scored at ${earlier}.`;
@@ -42,7 +29,7 @@ export function scoreFindings(drafts: DraftFinding[], itemPoints: (itemKey: stri
       points = Math.max(0, Math.min(points, left));
       spent.set(itemKey, (spent.get(itemKey) ?? 0) + points);
     }
-    if (charge > 0) for (const c of causes) if (SYSTEMATIC.has(c) && !chargedAt.has(c)) chargedAt.set(c, draft.path);
+    if (charge > 0) for (const c of causes) if (systematic.has(c) && !chargedAt.has(c)) chargedAt.set(c, draft.path);
     return { id: `${draft.code}@${draft.path}`, ...draft, message, pointsLost: points };
   });
 }

@@ -56,9 +56,12 @@ export type Expanded = Candidate & { root: number; says: string[] };
 
 function better(c: Candidate, best: Candidate, reported: number, priority: readonly string[]): boolean {
   if (c.causes.length !== best.causes.length) return c.causes.length < best.causes.length;
-  const closer = Math.abs(reported - c.value) < Math.abs(reported - best.value);
   const rank = (x: Candidate) => Math.min(...x.causes.map((code) => priority.indexOf(code) + 1), priority.length + 1);
-  if (c.closestWins || best.closestWins || rank(c) === rank(best)) return closer;
+  const dc = Math.abs(reported - c.value);
+  const db = Math.abs(reported - best.value);
+  // Two ways to the same number (to rounding) are told apart by which slip is commoner.
+  const sameNumber = Math.abs(dc - db) <= 1e-9 * Math.abs(reported);
+  if ((c.closestWins || best.closestWins || rank(c) === rank(best)) && !sameNumber) return dc < db;
   return rank(c) < rank(best);
 }
 

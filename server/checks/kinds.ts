@@ -1,6 +1,7 @@
 import type { KindReport } from '../../reports/kind-report.ts';
 import type { ExperimentKind } from './experiment-kind.ts';
 import { firstOrderCatalysis } from './first-order-catalysis/kind.ts';
+import { temperatureDependence } from './temperature-dependence/kind.ts';
 
 /**
  * Every experiment kind the service knows, by name: its checker, and its parts of the documents,
@@ -18,6 +19,7 @@ export function registerKind(checker: ExperimentKind, report: () => Promise<Kind
 }
 
 registerKind(firstOrderCatalysis as ExperimentKind, async () => (await import('../../reports/first-order-catalysis/report.ts')).firstOrderCatalysisReport);
+registerKind(temperatureDependence as ExperimentKind, async () => (await import('../../reports/temperature-dependence/report.ts')).temperatureDependenceReport);
 
 export function kindFor(name: string): ExperimentKind | undefined {
   return kinds.get(name)?.checker;

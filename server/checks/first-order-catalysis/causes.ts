@@ -14,4 +14,5 @@ export const firstOrderCauses: CauseVocabulary = {
   },
   priority: ['fit-model', 'sign-flipped', 'log-base', 'time-unit', 'concentration-unit', 'uncertainty-kind', 'half-life-for-rate', 'swapped-axes', 'wrong-infinity', 'decimal-shift'],
   joinMethodSlips: new Set(['sign-flipped', 'log-base', 'time-unit']),
+  systematic: new Set(['sign-flipped', 'log-base', 'time-unit', 'concentration-unit', 'swapped-axes', 'wrong-infinity', 'fit-model', 'half-life-for-rate', 'uncertainty-kind']),
 };

@@ -4,6 +4,7 @@ import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
+import { firstOrderCauses } from './causes.ts';
 import { checkLnFColumn } from './check-lnf-column.ts';
 import { checkReadings } from './check-readings.ts';
 import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
@@ -60,7 +61,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
   checkRateLaw(submission, rateLaw, settings, drafts);
   checkSigFigs(submission, settings, drafts);
 
-  const findings = scoreFindings(drafts, (key) => itemPoints(settings, key));
+  const findings = scoreFindings(drafts, (key) => itemPoints(settings, key), firstOrderCauses.systematic);
   const items = rubricCounts(settings, submission, { kRuns: undetermined.length, rateLaw: rateLawLeftOut });
   const max = pointsOf(items);
   const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);

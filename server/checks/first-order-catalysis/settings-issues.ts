@@ -1,7 +1,7 @@
 import type { Settings } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Rejection } from '../../../schemas/result.ts';
-import { EngineError } from '../../engine/engine-error.ts';
-import { parseUnit, type UnitKind } from '../../engine/units.ts';
+import type { UnitKind } from '../../engine/units.ts';
+import { unitIssues } from '../unit-issues.ts';
 
 /** Every unit in the settings must parse, and be of the kind its place needs. */
 export function settingsIssues(settings: Settings): Rejection[] {
@@ -16,15 +16,5 @@ export function settingsIssues(settings: Settings): Rejection[] {
       [`classDataset.runs[${i}].catalyst.unit`, run.catalyst.unit, 'concentration'],
     ]),
   ];
-  const issues: Rejection[] = [];
-  for (const [path, text, kind] of units) {
-    if (text === undefined) continue;
-    try {
-      parseUnit(text, kind);
-    } catch (error) {
-      if (!(error instanceof EngineError)) throw error;
-      issues.push({ path, message: error.message });
-    }
-  }
-  return issues;
+  return unitIssues(units);
 }

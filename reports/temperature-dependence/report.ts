@@ -1,0 +1,63 @@
+import type { Refit, Settings, Submission } from '../../schemas/kinds/temperature-dependence.ts';
+import type { ReportedValue } from '../../schemas/common.ts';
+import { formatEstimate, formatReported, formatTolerance, prettyUnit } from '../format.ts';
+import type { KindReport } from '../kind-report.ts';
+import { rubricLinesOf } from '../feedback/rubric-breakdown.ts';
+import { drawArrheniusPlot } from './arrhenius-plot.ts';
+import { drawClassActivation } from './class-activation.ts';
+import { paragraph, sectionHeading } from '../pdf/document.ts';
+import { drawTable } from '../pdf/table.ts';
+import { COLOR, SIZE } from '../pdf/theme.ts';
+
+const SYMBOLS = { Ea: 'E_{a}', A: 'A', dH: 'ΔH^{‡}', dS: 'ΔS^{‡}' } as const;
+const RUBRIC_LABELS: Record<keyof Settings['rubric'], string> = {
+  Ea: 'E_{a}',
+  EaUncertainty: 'Standard error of E_{a}',
+  A: 'A',
+  dH: 'ΔH^{‡}',
+  dS: 'ΔS^{‡}',
+};
+
+function describe(path: string, submission: Submission | undefined): string {
+  const top = /^reported\.(Ea|A|dH|dS)(\.uncertainty|\.unit)?$/.exec(path);
+  if (top) {
+    const symbol = SYMBOLS[top[1] as keyof typeof SYMBOLS];
+    return top[2] === '.uncertainty' ? `standard error of ${symbol}` : top[2] === '.unit' ? `unit of ${symbol}` : symbol;
+  }
+  const point = /^points\[(\d+)\](?:\.(.*))?$/.exec(path);
+  if (!point) return path;
+  const label = submission?.points?.[Number(point[1])]?.label;
+  const where = label === undefined ? `Point ${Number(point[1]) + 1}` : `Point “${label}”`;
+  return point[2] ? `${where}, ${point[2]}` : where;
+}
+
+/**
+ * The documents' parts for `temperature-dependence`: reported against refit values and the Arrhenius
+ * plot on the sheet; the class's activation energies in the summary.
+ */
+export const temperatureDependenceReport: KindReport = {
+  describePath: (path, submission) => describe(path, Array.isArray((submission as Partial<Submission> | undefined)?.points) ? (submission as Submission) : undefined),
+  rubricBreakdown: (_settings, _submission, result) => rubricLinesOf(result, RUBRIC_LABELS),
+  drawSheetData(doc, input) {
+    const settings = input.settings as Settings;
+    const submission = input.submission as Submission;
+    const refit = input.result.refit as Refit | null;
+    if (!refit) return;
+    sectionHeading(doc, 'Reported and refitted', 80);
+    paragraph(doc, 'The refit is our own straight-line fit of your rate constants against 1/T (temperatures in kelvin, k per second for Eyring), with its standard error.', { size: SIZE.small, color: COLOR.muted });
+    const rows = (Object.keys(SYMBOLS) as Array<keyof typeof SYMBOLS>).map((q) => {
+      const reported: ReportedValue | undefined = submission.reported?.[q];
+      return [
+        SYMBOLS[q],
+        reported ? `${formatReported(reported.value)}${reported.uncertainty === undefined ? '' : ` ± ${formatReported(reported.uncertainty)}`} ${prettyUnit(reported.unit)}` : '—',
+        `${formatEstimate(refit[q].value, refit[q].standardError)} ${prettyUnit(refit[q].unit)}`,
+        // An absolute tolerance is in the quantity's unit.
+        `${formatTolerance(settings.tolerances[q])}${settings.tolerances[q].relative === undefined ? ` ${prettyUnit(settings.units[q])}` : ''}`,
+      ];
+    });
+    drawTable(doc, [{ header: 'Quantity', weight: 0.8 }, { header: 'Reported', weight: 2 }, { header: 'Refit', weight: 2 }, { header: 'Tolerance', weight: 1.2 }], rows, { zebra: true, keepRows: rows.length });
+    drawArrheniusPlot(doc, refit);
+  },
+  summaryFacts: (settings) => [['Fit', (settings as Settings).fit === 'weighted' ? 'weighted by SE(ln k)' : 'ordinary least squares']],
+  drawSummaryData: drawClassActivation,
+};

@@ -1,0 +1,99 @@
+import { z } from 'zod';
+import { FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
+import { Estimate } from '../result.ts';
+
+/**
+ * Experiment kind `temperature-dependence`: rate constants measured at several temperatures, fitted
+ * by Arrhenius (ln k against 1/T: E_a and A) and by Eyring (ln(k/T) against 1/T with k per second:
+ * the enthalpy and entropy of activation).
+ */
+export const KIND = 'temperature-dependence';
+
+export const stages = [
+  { id: 'arrhenius', title: 'Arrhenius: E_{a} and A' },
+  { id: 'eyring', title: 'Eyring: ΔH^{‡} and ΔS^{‡}' },
+  { id: 'reporting', title: 'Reporting' },
+] as const;
+export type Stage = (typeof stages)[number]['id'];
+
+/** The kind's finding codes, the shared ones among them, in the order a summary lists them. */
+export const findingCodes = [
+  'temperature-scale',
+  'log-base',
+  'gas-constant',
+  'energy-unit',
+  'sign-flipped',
+  'reciprocal-scale',
+  'eyring-form',
+  'time-unit',
+  'decimal-shift',
+  'carried-forward',
+  'implausible',
+  'sig-figs',
+  'unit-unrecognised',
+  'missing-value',
+  'unexplained',
+  'refit-note',
+] as const;
+export type FindingCode = (typeof findingCodes)[number];
+
+/** A temperature as read: kelvin, or degrees Celsius (an offset, converted by the checker). */
+export const Temperature = z.object({ value: FiniteNumber, unit: z.enum(['K', 'degC']) });
+
+/** One temperature and the rate constant measured there. */
+export const Point = z.object({
+  label: Text(40),
+  temperature: Temperature,
+  k: z.object({ value: NumberLike, uncertainty: NumberLike.optional(), unit: UnitText }),
+});
+export type Point = z.infer<typeof Point>;
+
+export const Submission = z.object({
+  studentId: StudentId,
+  points: z.array(Point).min(3, 'at least 3 temperatures').max(50),
+  reported: z.object({ Ea: ReportedValue.optional(), A: ReportedValue.optional(), dH: ReportedValue.optional(), dS: ReportedValue.optional() }).optional(),
+});
+export type Submission = z.infer<typeof Submission>;
+
+const points = z.number().nonnegative().max(1000);
+
+export const Rubric = z.object({
+  Ea: points.default(2),
+  EaUncertainty: points.default(1),
+  A: points.default(1),
+  dH: points.default(2),
+  dS: points.default(2),
+});
+
+export const Tolerances = z.object({
+  Ea: Tolerance.default({ relative: 0.02 }),
+  // ln A carries the intercept's uncertainty, which 1/T far from zero makes large: A is read loosely.
+  A: Tolerance.default({ relative: 0.1 }),
+  dH: Tolerance.default({ relative: 0.02 }),
+  dS: Tolerance.default({ absolute: 2 }),
+  uncertainty: Tolerance.default({ relative: 0.25 }),
+});
+
+export const Settings = z.object({
+  kind: z.literal(KIND),
+  /** Ordinary least squares, or weighted by 1/SE(ln k)^2 where every k has its standard error. */
+  fit: z.enum(['ordinary', 'weighted']).default('ordinary'),
+  units: z
+    .object({ Ea: UnitText.default('kJ mol^-1'), A: UnitText.default('s^-1'), dH: UnitText.default('kJ mol^-1'), dS: UnitText.default('J K^-1 mol^-1') })
+    .default({ Ea: 'kJ mol^-1', A: 's^-1', dH: 'kJ mol^-1', dS: 'J K^-1 mol^-1' }),
+  tolerances: Tolerances.default(Tolerances.parse({})),
+  rubric: Rubric.default(Rubric.parse({})),
+});
+export type Settings = z.infer<typeof Settings>;
+export type SettingsInput = z.input<typeof Settings>;
+
+/** Our values, each in the instructor's unit. */
+export const Refit = z.object({
+  Ea: Estimate,
+  A: Estimate,
+  dH: Estimate,
+  dS: Estimate,
+  /** The points as fitted: T in kelvin and k per second. */
+  points: z.array(z.object({ label: z.string(), temperatureK: z.number(), kPerSecond: z.number() })),
+});
+export type Refit = z.infer<typeof Refit>;

@@ -1,0 +1,125 @@
+import type { ReportedValue } from '../../../schemas/common.ts';
+import type { Settings, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
+import type { CheckResult, RubricCount } from '../../../schemas/result.ts';
+import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { convert, type UnitKind } from '../../engine/units.ts';
+import { slipMatch } from '../cause-tolerance.ts';
+import { checkValue } from '../check-value.ts';
+import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
+import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
+import { readReported } from '../reported-number.ts';
+import { temperatureCauses } from './causes.ts';
+import { analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
+
+type Quantity = keyof Activation;
+
+const QUANTITIES: Record<Quantity, { label: string; stage: string; unitKind: UnitKind; base: string }> = {
+  Ea: { label: 'E_a', stage: 'arrhenius', unitKind: 'molar-energy', base: 'J mol^-1' },
+  A: { label: 'A', stage: 'arrhenius', unitKind: 'first-order-rate', base: 's^-1' },
+  dH: { label: 'ΔH‡', stage: 'eyring', unitKind: 'molar-energy', base: 'J mol^-1' },
+  dS: { label: 'ΔS‡', stage: 'eyring', unitKind: 'molar-entropy', base: 'J K^-1 mol^-1' },
+};
+
+// R in other units, read as if in J K^-1 mol^-1: 1.987 cal K^-1 mol^-1 and 0.08206 L atm K^-1 mol^-1
+// (common practice, no source).
+const GAS_CONSTANT_SLIPS: Factor[] = [
+  { factor: 1.987 / GAS_CONSTANT, cause: 'gas-constant', says: 'times 1.987/8.314 (R in cal K^-1 mol^-1)' },
+  { factor: 0.08206 / GAS_CONSTANT, cause: 'gas-constant', says: 'times 0.08206/8.314 (R in L atm K^-1 mol^-1)' },
+];
+// 1000 J per kJ (the prefix) and 4.184 J per thermochemical calorie (its definition). Dividing by
+// 4.184 is the same number as R in calories (1.987/8.314), which that cause names; dividing by 1000
+// on E_a or ΔH‡ the same as 1000/T read as 1/T: their words say so.
+const ENERGY_UNIT: Factor[] = [
+  { factor: 1000, cause: 'energy-unit', says: 'multiplied by 1000 (joules written as kilojoules)' },
+  { factor: 1 / 1000, cause: 'energy-unit', says: 'divided by 1000 (kilojoules written as joules)' },
+  { factor: 4.184, cause: 'energy-unit', says: 'multiplied by 4.184 (joules converted to calories the wrong way)' },
+];
+
+const FACTORS: Record<Quantity, Factor[]> = {
+  Ea: [SIGN, LOG_BASE, ...GAS_CONSTANT_SLIPS, ...ENERGY_UNIT, ...DECIMAL_SHIFT],
+  A: [...TIME_UNIT, ...DECIMAL_SHIFT],
+  dH: [SIGN, LOG_BASE, ...GAS_CONSTANT_SLIPS, ...ENERGY_UNIT, ...DECIMAL_SHIFT],
+  dS: [SIGN, ...GAS_CONSTANT_SLIPS, ...ENERGY_UNIT, ...DECIMAL_SHIFT],
+};
+
+/** What the slips of method give for one quantity, in the instructor's unit. */
+function slipCandidates(analysis: TemperatureAnalysis, q: Quantity, unit: string): Candidate[] {
+  return Object.entries(analysis.slips).flatMap(([code, variants]) =>
+    (variants ?? []).flatMap(({ values, detail }) =>
+      // Computed exactly from the data, a slip's value beats a scaling that only lands within tolerance
+      // (an absolute tolerance on a ΔS‡ near zero lets many scalings land there).
+      values[q] === undefined ? [] : [{ value: convert(values[q]!, QUANTITIES[q].base, unit), causes: [code], basis: `the value with ${detail}`, detail, closestWins: true }],
+    ),
+  );
+}
+
+function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+  const { label, stage, unitKind } = QUANTITIES[q];
+  const path = `reported.${q}`;
+  const charge = settings.rubric[q];
+  if (!reported) {
+    if (charge > 0) drafts.push({ code: 'missing-value', path, stage, rubricItem: q, itemKey: q, severity: 'error', charge, message: `${label} is missing.` });
+    return;
+  }
+  const unit = settings.units[q];
+  const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
+  const ours = analysis[q];
+  checkValue(
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: slipMatch(reported.value, read.value, settings.tolerances[q]) },
+    drafts,
+  );
+  if (q !== 'Ea' || settings.rubric.EaUncertainty === 0) return;
+  if (read.uncertainty === undefined) {
+    drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage, rubricItem: 'EaUncertainty', itemKey: 'EaUncertainty', severity: 'error', charge: settings.rubric.EaUncertainty, message: `The standard error of ${label} is missing.` });
+    return;
+  }
+  checkValue(
+    {
+      what: `The standard error of ${label}`,
+      path: `${path}.uncertainty`,
+      stage,
+      rubricItem: 'EaUncertainty',
+      itemKey: 'EaUncertainty',
+      charge: settings.rubric.EaUncertainty,
+      reported: read.uncertainty,
+      unit,
+      expected: ours.standardError,
+      factors: FACTORS.Ea.filter((f) => f !== SIGN),
+      causes: temperatureCauses,
+      tolerance: settings.tolerances.uncertainty,
+      causeTolerance: slipMatch(reported.uncertainty!, read.uncertainty, settings.tolerances.uncertainty),
+    },
+    drafts,
+  );
+}
+
+/** What each rubric item is worth for this assignment; an item worth nothing is left out. */
+function rubricCounts(settings: Settings): RubricCount[] {
+  return Object.entries(settings.rubric).flatMap(([item, each]) => (each > 0 ? [{ item, count: 1, each }] : []));
+}
+
+export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
+  const analysis = analyseTemperatures(settings, submission.points);
+  const drafts: DraftFinding[] = [];
+  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, settings, drafts);
+  const findings = scoreFindings(drafts, (key) => settings.rubric[key as keyof Settings['rubric']] ?? 0, temperatureCauses.systematic);
+  const items = rubricCounts(settings);
+  const max = items.reduce((sum, i) => sum + i.count * i.each, 0);
+  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
+  return {
+    studentId: submission.studentId,
+    status: 'checked',
+    score: Math.max(0, max - lost),
+    maxScore: max,
+    items,
+    refit: {
+      Ea: analysis.Ea,
+      A: analysis.A,
+      dH: analysis.dH,
+      dS: analysis.dS,
+      points: analysis.points.map((p, i) => ({ label: analysis.labels[i], temperatureK: p.temperature, kPerSecond: p.k })),
+    },
+    findings,
+    signals: [],
+  };
+}

@@ -1,0 +1,15 @@
+import { findingCodes, KIND, Settings, stages, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
+import type { ExperimentKind } from '../experiment-kind.ts';
+import { checkTemperatureDependence } from './check-submission.ts';
+import { settingsIssues } from './settings-issues.ts';
+
+export const temperatureDependence: ExperimentKind<Settings, Submission> = {
+  kind: KIND,
+  findingCodes,
+  stages,
+  settingsSchema: Settings,
+  submissionSchema: Submission,
+  settingsIssues,
+  check: checkTemperatureDependence,
+  maxScore: (settings) => Object.values(settings.rubric).reduce((sum, each) => sum + each, 0),
+};

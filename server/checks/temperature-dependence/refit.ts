@@ -1,0 +1,99 @@
+import type { Point, Settings } from '../../../schemas/kinds/temperature-dependence.ts';
+import { EngineError } from '../../engine/engine-error.ts';
+import type { Estimate } from '../../engine/estimate.ts';
+import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../engine/temperature-dependence.ts';
+import { toKelvin, ZERO_CELSIUS_K } from '../../engine/temperature.ts';
+import { convert, parseUnit } from '../../engine/units.ts';
+import { convertEstimate } from '../convert-estimate.ts';
+import { InputRejected } from '../input-rejected.ts';
+
+/** The four values of the two fits in base units: J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1. */
+export interface Activation {
+  Ea: number;
+  A: number;
+  dH: number;
+  dS: number;
+}
+
+export interface TemperatureAnalysis {
+  points: TemperaturePoint[];
+  labels: string[];
+  Ea: Estimate;
+  A: Estimate;
+  dH: Estimate;
+  dS: Estimate;
+  /** What the same data give with one slip of method each: what a student who made it reports. */
+  slips: Partial<Record<string, Array<{ values: Partial<Activation>; detail: string }>>>;
+}
+
+// ln(k_B/h) and its log10 by mistake, in ln(s^-1 K^-1): 23.760 and 10.319 (from the exact SI constants).
+const LN_KB_OVER_H = Math.log(1.380649e-23 / 6.62607015e-34);
+const LOG10_KB_OVER_H = Math.log10(1.380649e-23 / 6.62607015e-34);
+
+/** Every point in kelvin and per second; a temperature at or below absolute zero, or k not a first-order rate, is refused by field. */
+function pointsOf(points: Point[]): TemperaturePoint[] {
+  return points.map((p, i) => {
+    const at = (field: string) => `points[${i}].${field}`;
+    try {
+      parseUnit(p.k.unit, 'first-order-rate', at('k.unit'));
+      const k = convert(Number(p.k.value), p.k.unit, 's^-1');
+      const se = p.k.uncertainty === undefined ? undefined : convert(Number(p.k.uncertainty), p.k.unit, 's^-1');
+      return { temperature: toKelvin(p.temperature.value, p.temperature.unit, at('temperature.value')), k, standardError: se };
+    } catch (error) {
+      if (error instanceof EngineError) throw new InputRejected([{ path: error.field ?? at('k'), message: error.message }]);
+      throw error;
+    }
+  });
+}
+
+function both(points: TemperaturePoint[], weighted: boolean): Activation | undefined {
+  try {
+    const a = fitArrhenius(points, { kUnit: 's^-1', weighted });
+    const e = fitEyring(points, { weighted });
+    return { Ea: a.Ea.value, A: a.A.value, dH: e.dH.value, dS: e.dS.value };
+  } catch (error) {
+    // A slip that makes the data unfittable (a temperature of 0 degC in 1/T) is no candidate.
+    if (error instanceof EngineError) return undefined;
+    throw error;
+  }
+}
+
+export function analyseTemperatures(settings: Settings, input: Point[]): TemperatureAnalysis {
+  const points = pointsOf(input);
+  const weighted = settings.fit === 'weighted';
+  let arrhenius, eyring;
+  try {
+    arrhenius = fitArrhenius(points, { kUnit: 's^-1', weighted });
+    eyring = fitEyring(points, { weighted });
+  } catch (error) {
+    if (error instanceof EngineError) throw new InputRejected([{ path: error.field ? error.field.replace('standardError', 'k.uncertainty').replace('.k', '.k.value') : 'points', message: error.message }]);
+    throw error;
+  }
+  const R = GAS_CONSTANT;
+  const ln = arrhenius.line;
+  const ey = eyring.line;
+  const slips: TemperatureAnalysis['slips'] = {};
+  const celsius = both(points.map((p) => ({ ...p, temperature: p.temperature - ZERO_CELSIUS_K })), weighted);
+  if (celsius) slips['temperature-scale'] = [{ values: celsius, detail: 'temperatures in °C in 1/T' }];
+  slips['log-base'] = [{ values: { A: Math.exp(ln.intercept / Math.LN10), dS: R * (ey.intercept / Math.LN10 - LN_KB_OVER_H) }, detail: 'log10 of k, and its intercept taken as a natural logarithm' }];
+  slips['reciprocal-scale'] = [{ values: { Ea: arrhenius.Ea.value / 1000, dH: eyring.dH.value / 1000 }, detail: '1000/T read as 1/T' }];
+  slips['eyring-form'] = [
+    { values: { dH: arrhenius.Ea.value, dS: R * (ln.intercept - LN_KB_OVER_H) }, detail: 'ln k in place of ln(k/T)' },
+    { values: { dS: R * (ey.intercept - LOG10_KB_OVER_H) }, detail: 'log10(k_B/h) = 10.319 in place of ln(k_B/h) = 23.760' },
+    { values: { dS: R * ey.intercept }, detail: 'ln(k_B/h) left out' },
+  ];
+  slips['time-unit'] = [
+    { values: { dS: eyring.dS.value + R * Math.log(60) }, detail: 'k per minute where per second was needed' },
+    { values: { dS: eyring.dS.value - R * Math.log(60) }, detail: 'k per second taken as per minute' },
+  ];
+  return {
+    points,
+    labels: input.map((p) => p.label),
+    Ea: convertEstimate(arrhenius.Ea, settings.units.Ea),
+    A: convertEstimate(arrhenius.A, settings.units.A),
+    dH: convertEstimate(eyring.dH, settings.units.dH),
+    dS: convertEstimate(eyring.dS, settings.units.dS),
+    slips,
+  };
+}

@@ -1,0 +1,13 @@
+import type { Settings } from '../../../schemas/kinds/temperature-dependence.ts';
+import type { Rejection } from '../../../schemas/result.ts';
+import { unitIssues } from '../unit-issues.ts';
+
+/** Every unit in the settings must parse, and be of the kind its place needs. */
+export function settingsIssues(settings: Settings): Rejection[] {
+  return unitIssues([
+    ['units.Ea', settings.units.Ea, 'molar-energy'],
+    ['units.A', settings.units.A, 'first-order-rate'],
+    ['units.dH', settings.units.dH, 'molar-energy'],
+    ['units.dS', settings.units.dS, 'molar-entropy'],
+  ]);
+}
