@@ -20,6 +20,9 @@ console.log(
     `(${checks.microsecondsPerCheck.toFixed(1)} µs each; clean, 4 runs x 16 readings, default assignment, checkBatch over 2,000; one core)`,
 );
 
+const { benchTemperatureRecall } = await import('./temperature-recall.ts');
+benchTemperatureRecall();
+
 const { benchPdfs } = await import('./pdf-throughput.ts');
 const pdfs = await benchPdfs();
 console.log(

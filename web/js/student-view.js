@@ -14,15 +14,19 @@ function tolerance(tol, unit) {
   return `± ${parts.join(' or ')}`;
 }
 
+const SYMBOLS = { kN: 'k_N', kA: 'k_A', Ea: 'E_a', A: 'A', dH: 'ΔH‡', dS: 'ΔS‡' };
+
 const valueText = (v, unit) => (v ? `${v.value}${v.uncertainty !== undefined ? ` ± ${v.uncertainty}` : ''} ${v.unit ?? unit ?? ''}`.trim() : 'not given');
 const estimateText = (e) => (e ? `${num(e.value)} ± ${num(e.standardError)} ${e.unit}` : '–');
 
 /** Reported against refit, with the tolerance each is judged by. */
 function comparisonTable(payload, refit, settings) {
   const rows = (payload.runs ?? []).map((run, i) => [`k_obs, run ${run.label}`, valueText(run.reported?.k), estimateText(refit?.runs?.[i]?.k?.instructor), tolerance(settings?.tolerances?.k)]);
-  for (const [key, label] of [['kN', 'k_N'], ['kA', 'k_A']]) {
-    if (payload.reported?.[key] || refit?.[key]) rows.push([label, valueText(payload.reported?.[key]), estimateText(refit?.[key]), tolerance(settings?.tolerances?.[key])]);
-  }
+  // Every value reported for the submission as a whole beside the refit's value of the same name
+  // (k_N and k_A, E_a and A, ...), whatever the kind.
+  const isEstimate = (e) => e && typeof e.value === 'number' && typeof e.standardError === 'number';
+  const keys = [...new Set([...Object.keys(payload.reported ?? {}), ...Object.keys(SYMBOLS).filter((key) => isEstimate(refit?.[key]))])];
+  for (const key of keys) rows.push([SYMBOLS[key] ?? key, valueText(payload.reported?.[key]), estimateText(isEstimate(refit?.[key]) ? refit[key] : undefined), tolerance(settings?.tolerances?.[key])]);
   return h(
     'table',
     { class: 'comparison' },

@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { slipPlace, temperatureSlips, temperatureSubmission } from '../../server/demo/temperature-generator.ts';
+
+/** Recall on generated temperature-dependence work (invented): each slip named at its place, clean work left alone. */
+const assignment = parseAssignment({ kind: 'temperature-dependence' });
+const N = 100;
+
+describe('temperature dependence: recall on generated submissions', () => {
+  it(`finds no error in ${N} clean submissions`, () => {
+    const flagged = Array.from({ length: N }, (_, s) => checkSubmission(assignment, temperatureSubmission(seededRandom(s), 'T-01'))).filter((r) => r.findings.some((f) => f.severity === 'error'));
+    expect(flagged).toEqual([]);
+  });
+
+  it.each(temperatureSlips)(`names %s at its place in at least 97 of ${N}`, (slip) => {
+    let named = 0;
+    for (let s = 0; s < N; s++) {
+      const result = checkSubmission(assignment, temperatureSubmission(seededRandom(5000 + s), 'T-01', slip));
+      const at = result.findings.find((f) => f.path === slipPlace[slip]);
+      if (at && (at.code === slip || at.alsoCodes?.includes(slip))) named++;
+    }
+    console.log(`${slip}: ${named} of ${N}`);
+    expect(named).toBeGreaterThanOrEqual(97);
+  });
+});
