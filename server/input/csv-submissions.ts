@@ -1,5 +1,4 @@
-import type { Info } from 'csv-parse/sync';
-import { parse } from 'csv-parse/sync';
+import { numberOrText, numberText, readTable, type Row } from './csv-table.ts';
 
 /**
  * The CSV layout of `first-order-catalysis` submissions: a readings file, one row per reading, and
@@ -11,7 +10,6 @@ import { parse } from 'csv-parse/sync';
 
 import type { CsvRowError, CsvSubmissions } from './csv-layout.ts';
 
-type LineError = Omit<CsvRowError, 'file'>;
 
 // Required columns, lower case. Optional ones: infinity, lnf and temperature_c in the readings file,
 // uncertainty in the reported file. Any other column is ignored, so a spreadsheet may keep notes.
@@ -22,80 +20,6 @@ const REPORTED_COLUMNS = ['student_id', 'run', 'quantity', 'value', 'unit'];
 const RUN_COLUMNS = ['catalyst', 'catalyst_unit', 'time_unit', 'infinity', 'temperature_c'] as const;
 type RunColumn = (typeof RUN_COLUMNS)[number];
 
-// The same grammar as NumberLike in schemas/common.ts, after a decimal comma has become a point.
-const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
-
-interface Row {
-  line: number;
-  /** The trimmed cell, '' when blank or when the column is absent. */
-  cell(column: string): string;
-}
-
-interface Table {
-  rows: Row[];
-  /** Only a `;`-separated file may write 0,052 for 0.052: in a comma file the comma splits fields. */
-  decimalComma: boolean;
-  errors: LineError[];
-}
-
-function readTable(text: string, required: string[]): Table {
-  const body = text.replace(/^\uFEFF/, '');
-  const headerLine = body.split(/\r?\n/).find((line) => line.trim() !== '');
-  if (headerLine === undefined) return { rows: [], decimalComma: false, errors: [{ row: 1, message: 'the file is empty' }] };
-  const delimiter = count(headerLine, ';') > count(headerLine, ',') ? ';' : ',';
-
-  let records: Array<{ record: string[]; info: Info }>;
-  try {
-    // The typings do not model `info: true`, which wraps each record with its line number.
-    records = parse(body, {
-      delimiter,
-      info: true,
-      trim: true,
-      relax_column_count: true,
-      skip_empty_lines: true,
-      // Spreadsheets export trailing rows of bare delimiters.
-      skip_records_with_empty_values: true,
-    }) as unknown as typeof records;
-  } catch (error) {
-    return { rows: [], decimalComma: false, errors: [{ row: (error as { lines?: number }).lines ?? 1, message: (error as Error).message }] };
-  }
-
-  const [header, ...data] = records;
-  const names = header.record.map((name) => name.toLowerCase());
-  const errors: LineError[] = [];
-  names.forEach((name, i) => {
-    if (name !== '' && names.indexOf(name) !== i) errors.push({ row: header.info.lines, message: `column "${name}" appears twice` });
-  });
-  for (const name of required) {
-    if (!names.includes(name)) errors.push({ row: header.info.lines, message: `missing column "${name}"` });
-  }
-  if (errors.length > 0) return { rows: [], decimalComma: false, errors };
-  if (data.length === 0) return { rows: [], decimalComma: false, errors: [{ row: header.info.lines + 1, message: 'no rows below the header' }] };
-
-  const rows: Row[] = [];
-  for (const { record, info } of data) {
-    if (record.length !== names.length) {
-      errors.push({ row: info.lines, message: `${record.length} fields where the header has ${names.length}` });
-      continue;
-    }
-    rows.push({ line: info.lines, cell: (column) => record[names.indexOf(column)] ?? '' });
-  }
-  return { rows, decimalComma: delimiter === ';', errors };
-}
-
-function count(text: string, char: string): number {
-  return text.split(char).length - 1;
-}
-
-function numberText(text: string, decimalComma: boolean): string {
-  return decimalComma ? text.replace(',', '.') : text;
-}
-
-/** A number, or the text as written so that the schema rejects it at its path. */
-function numberOrText(text: string, decimalComma: boolean): number | string {
-  const normal = numberText(text, decimalComma);
-  return NUMBER.test(normal) ? Number(normal) : text;
-}
 
 /** A reported value as ReportedValue wants it: the digits as written, so significant figures survive. */
 interface ReportedText {

@@ -62,6 +62,23 @@ describe('the temperature-dependence kind through the service and the command', 
     expect(gradebook.replace(/^\uFEFF/, '').split('\r\n')[2]).toBe('S-002,0,2,checked,1,0,0,gas-constant');
   });
 
+  it('takes its CSV layout as a multipart upload: a points file and a reported file', async () => {
+    const assignment = (await call(api.app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Activation energy, CSV (invented)', settings }, 201)).body;
+    const pointsCsv = ['student_id,label,temperature,temperature_unit,k,k_unit', ...points.map((p) => `S-003,${p.label},${p.temperature.value},K,${p.k.value},s^-1`)].join('\n');
+    const reportedCsv = `student_id,quantity,value,unit\nS-003,Ea,${activationEnergy(1.987).toPrecision(4)},kJ mol^-1`;
+    const boundary = 'tdboundary';
+    const part = (name: string, text: string) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"; filename="${name}.csv"\r\nContent-Type: text/csv\r\n\r\n${text}\r\n`;
+    const res = await api.app.inject({
+      method: 'POST',
+      url: `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}/submissions`,
+      headers: { authorization: `Bearer ${s.taAToken}`, 'content-type': `multipart/form-data; boundary=${boundary}` },
+      payload: part('points', pointsCsv) + part('reported', reportedCsv) + `--${boundary}--\r\n`,
+    });
+    expect(res.statusCode).toBe(201);
+    const view = (await call(api.app, 'GET', `/v1/submissions/${res.json().stored[0].submissionId}`, s.taAToken, undefined, 200)).body;
+    expect(view.result.findings.map((f: { id: string }) => f.id)).toEqual(['gas-constant@reported.Ea']);
+  });
+
   it('checks a batch with the command', async () => {
     await writeFile(join(dir, 'assignment.json'), JSON.stringify(settings));
     await writeFile(join(dir, 'batch.json'), JSON.stringify([submission('s-01', R), submission('s-02', 1.987)]));
@@ -71,5 +88,11 @@ describe('the temperature-dependence kind through the service and the command', 
     expect(JSON.parse(out).map((r: { findings: Array<{ code: string }> }) => r.findings.map((f) => f.code))).toEqual([[], ['gas-constant']]);
     expect(await run(['check', '--assignment', join(dir, 'assignment.json'), join(dir, 'batch.json'), '--out', join(dir, 'out')], io)).toBe(0);
     expect((await readdir(join(dir, 'out'))).sort()).toEqual(['gradebook.csv', 's-01.pdf', 's-02.pdf', 'summary.pdf']);
+    // The CSV layout: the points file, and --reported for the reported values.
+    await writeFile(join(dir, 'points.csv'), ['student_id,label,temperature,temperature_unit,k,k_unit', ...points.map((p) => `s-03,${p.label},${p.temperature.value},K,${p.k.value},s^-1`)].join('\n'));
+    await writeFile(join(dir, 'reported.csv'), `student_id,quantity,value,unit\ns-03,Ea,${(-activationEnergy(R)).toPrecision(4)},kJ/mol`);
+    out = '';
+    expect(await run(['check', '--assignment', join(dir, 'assignment.json'), join(dir, 'points.csv'), '--reported', join(dir, 'reported.csv'), '--json'], io)).toBe(0);
+    expect(JSON.parse(out).map((r: { findings: Array<{ code: string }> }) => r.findings.map((f) => f.code))).toEqual([['sign-flipped']]);
   });
 });

@@ -12,4 +12,10 @@ export const temperatureDependence: ExperimentKind<Settings, Submission> = {
   settingsIssues,
   check: checkTemperatureDependence,
   maxScore: (settings) => Object.values(settings.rubric).reduce((sum, each) => sum + each, 0),
+  // The parser loads on the first CSV, not with the checker.
+  csvLayout: {
+    main: 'points',
+    optional: ['reported'],
+    read: async (files) => (await import('../../input/temperature-csv.ts')).parseTemperatureCsv(files.points, files.reported),
+  },
 };
