@@ -1,19 +1,16 @@
 import { randomBytes } from 'node:crypto';
-import { mkdir, rm, writeFile } from 'node:fs/promises';
+import { mkdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
-import { gradebookCsv } from '../../reports/gradebook-csv.ts';
-import { renderSectionSummary } from '../../reports/section-summary.ts';
 import { buildApp } from '../app.ts';
 import type { Config } from '../config.ts';
-import { sectionFeedback, sectionResults } from '../grading/report-inputs.ts';
-import { sectionSignals } from '../signals/section-signals.ts';
 import { openStore } from '../store/connection.ts';
 import { migrateToLatest } from '../store/migrate.ts';
 import { seededRandom } from './seeded-random.ts';
 import { generateSection } from './generated-section.ts';
+import { writeSectionDocuments } from './section-documents.ts';
+import { temperatureDemo } from './temperature-demo.ts';
 import { assignmentSettings, generateAssignment } from './submission-generator.ts';
 
 /**
@@ -58,20 +55,9 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     recordTemperatures(submissions);
     await api('POST', `/v1/sections/${section.id}/assignments/${assignment.id}/submissions`, taToken, submissions);
 
-    const inputs = await sectionFeedback(store.db, section.id, assignment.id);
-    for (const input of inputs) await writeFile(join(outDir, `${input.header.studentId}.pdf`), await renderFeedbackSheet({ ...input, invented: true }));
-    await writeFile(
-      join(outDir, 'summary.pdf'),
-      await renderSectionSummary({
-        header: { course: course.name, section: section.name, assignment: assignment.title, gradedAt: new Date() },
-        settings: inputs[0].settings,
-        results: inputs.map((i) => i.result),
-        submissions: inputs.map((i) => i.submission),
-        signals: sectionSignals(inputs[0].settings, inputs.map((i) => i.submission)),
-        invented: true,
-      }),
-    );
-    await writeFile(join(outDir, 'gradebook.csv'), gradebookCsv(await sectionResults(store.db, section.id, assignment.id), { bom: true }));
+    const inputs = await writeSectionDocuments(store.db, { courseName: course.name, sectionName: section.name, sectionId: section.id, assignmentId: assignment.id, title: assignment.title }, outDir);
+    const place = { courseId: course.id, courseName: course.name, sectionId: section.id, sectionName: section.name, instructorToken, taToken, ids };
+    const secondKind = await temperatureDemo(api, store.db, place, outDir);
 
     write(`${INVENTED_NOTE}`);
     write('student  score   slips made (generated)        codes found');
@@ -85,7 +71,10 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
       const signals = input.result.signals ?? [];
       if (signals.length) write(`signals for review, ${input.result.studentId}: ${signals.map((x) => `${x.code} (${x.path})`).join(', ')}`);
     }
-    write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/`);
+    write(`\nSecond assignment (temperature-dependence): activation energy from rate constants at six temperatures`);
+    write('student  score   slips made (generated)        codes found');
+    for (const line of secondKind) write(line);
+    write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/, and those of the second assignment to ${outDir}/temperature-dependence/`);
     write(`the demo database stays in ${dataDir}. To open the workspace on it:`);
     write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with the TA token`);
     write(`TA token (section ${section.id}, assignment ${assignment.id}): ${taToken}`);

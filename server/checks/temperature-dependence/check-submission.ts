@@ -11,7 +11,7 @@ import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
 import { analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
 
-type Quantity = keyof Activation;
+type Quantity = Exclude<keyof Activation, 'EaSE'>;
 
 const QUANTITIES: Record<Quantity, { label: string; stage: string; unitKind: UnitKind; base: string }> = {
   Ea: { label: 'E_a', stage: 'arrhenius', unitKind: 'molar-energy', base: 'J mol^-1' },
@@ -42,13 +42,13 @@ const FACTORS: Record<Quantity, Factor[]> = {
   dS: [SIGN, ...GAS_CONSTANT_SLIPS, ...ENERGY_UNIT, ...DECIMAL_SHIFT],
 };
 
-/** What the slips of method give for one quantity, in the instructor's unit. */
-function slipCandidates(analysis: TemperatureAnalysis, q: Quantity, unit: string): Candidate[] {
+/** What the slips of method give for one quantity (or the SE of E_a), in the instructor's unit. */
+function slipCandidates(analysis: TemperatureAnalysis, q: keyof Activation, unit: string): Candidate[] {
   return Object.entries(analysis.slips).flatMap(([code, variants]) =>
     (variants ?? []).flatMap(({ values, detail }) =>
       // Computed exactly from the data, a slip's value beats a scaling that only lands within tolerance
       // (an absolute tolerance on a ΔS‡ near zero lets many scalings land there).
-      values[q] === undefined ? [] : [{ value: convert(values[q]!, QUANTITIES[q].base, unit), causes: [code], basis: `the value with ${detail}`, detail, closestWins: true }],
+      values[q] === undefined ? [] : [{ value: convert(values[q]!, q === 'EaSE' ? 'J mol^-1' : QUANTITIES[q].base, unit), causes: [code], basis: `the value with ${detail}`, detail, closestWins: true }],
     ),
   );
 }
@@ -84,6 +84,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       reported: read.uncertainty,
       unit,
       expected: ours.standardError,
+      slips: () => slipCandidates(analysis, 'EaSE', unit),
       factors: FACTORS.Ea.filter((f) => f !== SIGN),
       causes: temperatureCauses,
       tolerance: settings.tolerances.uncertainty,

@@ -8,12 +8,13 @@ import { convert, parseUnit } from '../../engine/units.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import { InputRejected } from '../input-rejected.ts';
 
-/** The four values of the two fits in base units: J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1. */
+/** The four values of the two fits in base units (J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1), and the standard error of E_a. */
 export interface Activation {
   Ea: number;
   A: number;
   dH: number;
   dS: number;
+  EaSE: number;
 }
 
 export interface TemperatureAnalysis {
@@ -51,7 +52,7 @@ function both(points: TemperaturePoint[], weighted: boolean): Activation | undef
   try {
     const a = fitArrhenius(points, { kUnit: 's^-1', weighted });
     const e = fitEyring(points, { weighted });
-    return { Ea: a.Ea.value, A: a.A.value, dH: e.dH.value, dS: e.dS.value };
+    return { Ea: a.Ea.value, A: a.A.value, dH: e.dH.value, dS: e.dS.value, EaSE: a.Ea.standardError };
   } catch (error) {
     // A slip that makes the data unfittable (a temperature of 0 degC in 1/T) is no candidate.
     if (error instanceof EngineError) return undefined;
@@ -77,7 +78,7 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
   const celsius = both(points.map((p) => ({ ...p, temperature: p.temperature - ZERO_CELSIUS_K })), weighted);
   if (celsius) slips['temperature-scale'] = [{ values: celsius, detail: 'temperatures in °C in 1/T' }];
   slips['log-base'] = [{ values: { A: Math.exp(ln.intercept / Math.LN10), dS: R * (ey.intercept / Math.LN10 - LN_KB_OVER_H) }, detail: 'log10 of k, and its intercept taken as a natural logarithm' }];
-  slips['reciprocal-scale'] = [{ values: { Ea: arrhenius.Ea.value / 1000, dH: eyring.dH.value / 1000 }, detail: '1000/T read as 1/T' }];
+  slips['reciprocal-scale'] = [{ values: { Ea: arrhenius.Ea.value / 1000, dH: eyring.dH.value / 1000, EaSE: arrhenius.Ea.standardError / 1000 }, detail: '1000/T read as 1/T' }];
   slips['eyring-form'] = [
     { values: { dH: arrhenius.Ea.value, dS: R * (ln.intercept - LN_KB_OVER_H) }, detail: 'ln k in place of ln(k/T)' },
     { values: { dS: R * (ey.intercept - LOG10_KB_OVER_H) }, detail: 'log10(k_B/h) = 10.319 in place of ln(k_B/h) = 23.760' },
