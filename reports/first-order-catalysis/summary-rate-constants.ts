@@ -5,22 +5,17 @@ import { ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf
 import { drawTable } from '../pdf/table.ts';
 import { SIZE, COLOR } from '../pdf/theme.ts';
 import { classValues, type ClassValues } from '../summary/class-values.ts';
-import { spread } from '../summary/stats.ts';
+import { SPREAD_COLUMNS, spreadCells } from '../summary/spread-table.ts';
 import { drawStripPlot } from '../summary/strip-plot.ts';
 
 const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}' } as const;
 
 function spreadRow(values: ClassValues, source: string, data: number[]): string[] {
-  const s = spread(data);
   const outside = values.band ? data.filter((v) => v < values.band!.min || v > values.band!.max).length : undefined;
   return [
     SYMBOL[values.quantity],
     source,
-    String(s?.n ?? 0),
-    s ? formatNumber(s.mean) : '—',
-    s && Number.isFinite(s.sd) ? formatNumber(s.sd, 2) : '—',
-    s ? formatNumber(s.median) : '—',
-    s ? `${formatNumber(s.min, 3)} to ${formatNumber(s.max, 3)}` : '—',
+    ...spreadCells(data),
     values.band ? `${formatNumber(values.band.min, 3)} to ${formatNumber(values.band.max, 3)}` : 'none',
     outside === undefined ? '—' : String(outside),
   ];
@@ -46,11 +41,7 @@ export function drawRateConstants(doc: Doc, input: SectionSummaryInput): void {
     [
       { header: '', weight: 0.5 },
       { header: 'Source', weight: 0.9 },
-      { header: 'n', weight: 0.4, align: 'right' },
-      { header: 'Mean', weight: 1, align: 'right' },
-      { header: 'SD', weight: 0.9, align: 'right' },
-      { header: 'Median', weight: 1, align: 'right' },
-      { header: 'Range', weight: 1.8 },
+      ...SPREAD_COLUMNS,
       { header: 'Reference band', weight: 1.6 },
       { header: 'Outside band', weight: 1.1, align: 'right' },
     ],

@@ -1,9 +1,9 @@
 import type { Refit } from '../../schemas/kinds/temperature-dependence.ts';
 import type { SectionSummaryInput } from '../feedback-input.ts';
-import { formatNumber, prettyUnit } from '../format.ts';
+import { prettyUnit } from '../format.ts';
 import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
-import { spread } from '../summary/stats.ts';
+import { SPREAD_COLUMNS, spreadCells } from '../summary/spread-table.ts';
 
 const SYMBOLS = { Ea: 'E_{a}', dH: 'ΔH^{‡}', dS: 'ΔS^{‡}' } as const;
 
@@ -13,22 +13,6 @@ export function drawClassActivation(doc: Doc, input: SectionSummaryInput): void 
   if (refits.length === 0) return;
   sectionHeading(doc, 'The class’s activation parameters', 120);
   paragraph(doc, 'Refit: our fit of each student’s own rate constants. SD is the sample standard deviation.');
-  const rows = (Object.keys(SYMBOLS) as Array<keyof typeof SYMBOLS>).map((q) => {
-    const s = spread(refits.map((r) => r[q].value))!;
-    return [SYMBOLS[q], prettyUnit(refits[0][q].unit), String(s.n), formatNumber(s.mean), Number.isFinite(s.sd) ? formatNumber(s.sd, 2) : '—', formatNumber(s.median), `${formatNumber(s.min, 3)} to ${formatNumber(s.max, 3)}`];
-  });
-  drawTable(
-    doc,
-    [
-      { header: '', weight: 0.6 },
-      { header: 'Unit', weight: 1.3 },
-      { header: 'n', weight: 0.4, align: 'right' },
-      { header: 'Mean', weight: 1, align: 'right' },
-      { header: 'SD', weight: 0.9, align: 'right' },
-      { header: 'Median', weight: 1, align: 'right' },
-      { header: 'Range', weight: 1.8 },
-    ],
-    rows,
-    { zebra: true, keepRows: rows.length },
-  );
+  const rows = (Object.keys(SYMBOLS) as Array<keyof typeof SYMBOLS>).map((q) => [SYMBOLS[q], prettyUnit(refits[0][q].unit), ...spreadCells(refits.map((r) => r[q].value))]);
+  drawTable(doc, [{ header: '', weight: 0.6 }, { header: 'Unit', weight: 1.3 }, ...SPREAD_COLUMNS], rows, { zebra: true, keepRows: rows.length });
 }

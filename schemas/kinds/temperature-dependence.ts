@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
-import { Estimate } from '../result.ts';
+import { Estimate, sharedFindingCodes } from '../result.ts';
 
 /**
  * Experiment kind `temperature-dependence`: rate constants measured at several temperatures, fitted
@@ -17,24 +17,7 @@ export const stages = [
 export type Stage = (typeof stages)[number]['id'];
 
 /** The kind's finding codes, the shared ones among them, in the order a summary lists them. */
-export const findingCodes = [
-  'temperature-scale',
-  'log-base',
-  'gas-constant',
-  'energy-unit',
-  'sign-flipped',
-  'reciprocal-scale',
-  'eyring-form',
-  'time-unit',
-  'decimal-shift',
-  'carried-forward',
-  'implausible',
-  'sig-figs',
-  'unit-unrecognised',
-  'missing-value',
-  'unexplained',
-  'refit-note',
-] as const;
+export const findingCodes = ['temperature-scale', 'gas-constant', 'energy-unit', 'reciprocal-scale', 'eyring-form', 'time-unit', ...sharedFindingCodes] as const;
 export type FindingCode = (typeof findingCodes)[number];
 
 /** A temperature as read: kelvin, or degrees Celsius (an offset, converted by the checker). */

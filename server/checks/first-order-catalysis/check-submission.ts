@@ -12,7 +12,8 @@ import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, type RunAnalysis } from './run-analysis.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
-import { itemPoints, pointsOf, rateLawGradable, rubricCounts } from './scoring.ts';
+import { scoredResult } from '../scored-result.ts';
+import { itemPoints, rateLawGradable, rubricCounts } from './scoring.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
 function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
@@ -63,8 +64,6 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
 
   const findings = scoreFindings(drafts, (key) => itemPoints(settings, key), firstOrderCauses.systematic);
   const items = rubricCounts(settings, submission, { kRuns: undetermined.length, rateLaw: rateLawLeftOut });
-  const max = pointsOf(items);
-  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
   const refit: Refit = {
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
     kN: rateLaw?.kN,
@@ -74,14 +73,6 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     fromReportedK: rateLaw?.fromReportedK,
     weightedFit: rateLaw?.weightedFit,
   };
-  return {
-    studentId: submission.studentId,
-    status: 'checked',
-    score: Math.max(0, max - lost),
-    maxScore: max,
-    items,
-    refit,
-    findings,
-    signals: [...analyses.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(analyses, settings)],
-  };
+  const signals = [...analyses.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(analyses, settings)];
+  return scoredResult(submission.studentId, items, findings, refit, signals);
 }

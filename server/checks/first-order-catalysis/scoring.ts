@@ -1,3 +1,4 @@
+import { pointsOf } from '../scored-result.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import { convert } from '../../engine/units.ts';
 import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
@@ -55,10 +56,6 @@ export function rubricCounts(settings: Settings, submission: Submission, ungrada
 }
 
 /** The points the items are worth together. */
-export function pointsOf(items: readonly RubricCount[]): number {
-  return items.reduce((sum, c) => sum + c.count * c.each, 0);
-}
-
 export function maxScore(settings: Settings, submission: Submission, ungradable?: Ungradable): number {
   return pointsOf(rubricCounts(settings, submission, ungradable));
 }

@@ -6,6 +6,7 @@ import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
+import { scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
@@ -95,7 +96,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
 }
 
 /** What each rubric item is worth for this assignment; an item worth nothing is left out. */
-function rubricCounts(settings: Settings): RubricCount[] {
+export function rubricCounts(settings: Settings): RubricCount[] {
   return Object.entries(settings.rubric).flatMap(([item, each]) => (each > 0 ? [{ item, count: 1, each }] : []));
 }
 
@@ -104,23 +105,12 @@ export function checkTemperatureDependence(settings: Settings, submission: Submi
   const drafts: DraftFinding[] = [];
   for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, settings, drafts);
   const findings = scoreFindings(drafts, (key) => settings.rubric[key as keyof Settings['rubric']] ?? 0, temperatureCauses.systematic);
-  const items = rubricCounts(settings);
-  const max = items.reduce((sum, i) => sum + i.count * i.each, 0);
-  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
-  return {
-    studentId: submission.studentId,
-    status: 'checked',
-    score: Math.max(0, max - lost),
-    maxScore: max,
-    items,
-    refit: {
-      Ea: analysis.Ea,
-      A: analysis.A,
-      dH: analysis.dH,
-      dS: analysis.dS,
-      points: analysis.points.map((p, i) => ({ label: analysis.labels[i], temperatureK: p.temperature, kPerSecond: p.k })),
-    },
-    findings,
-    signals: [],
+  const refit = {
+    Ea: analysis.Ea,
+    A: analysis.A,
+    dH: analysis.dH,
+    dS: analysis.dS,
+    points: analysis.points.map((p, i) => ({ label: analysis.labels[i], temperatureK: p.temperature, kPerSecond: p.k })),
   };
+  return scoredResult(submission.studentId, rubricCounts(settings), findings, refit, []);
 }

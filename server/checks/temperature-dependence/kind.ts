@@ -1,6 +1,7 @@
 import { findingCodes, KIND, Settings, stages, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
 import type { ExperimentKind } from '../experiment-kind.ts';
-import { checkTemperatureDependence } from './check-submission.ts';
+import { pointsOf } from '../scored-result.ts';
+import { checkTemperatureDependence, rubricCounts } from './check-submission.ts';
 import { settingsIssues } from './settings-issues.ts';
 
 export const temperatureDependence: ExperimentKind<Settings, Submission> = {
@@ -11,7 +12,7 @@ export const temperatureDependence: ExperimentKind<Settings, Submission> = {
   submissionSchema: Submission,
   settingsIssues,
   check: checkTemperatureDependence,
-  maxScore: (settings) => Object.values(settings.rubric).reduce((sum, each) => sum + each, 0),
+  maxScore: (settings) => pointsOf(rubricCounts(settings)),
   // The parser loads on the first CSV, not with the checker.
   csvLayout: {
     main: 'points',
