@@ -25,8 +25,10 @@ function comparisonTable(payload, refit, settings) {
   // Every value reported for the submission as a whole beside the refit's value of the same name
   // (k_N and k_A, E_a and A, ...), whatever the kind.
   const isEstimate = (e) => e && typeof e.value === 'number' && typeof e.standardError === 'number';
-  const keys = [...new Set([...Object.keys(payload.reported ?? {}), ...Object.keys(SYMBOLS).filter((key) => isEstimate(refit?.[key]))])];
-  for (const key of keys) rows.push([SYMBOLS[key] ?? key, valueText(payload.reported?.[key]), estimateText(isEstimate(refit?.[key]) ? refit[key] : undefined), tolerance(settings?.tolerances?.[key])]);
+  // In the order of SYMBOLS (a stored payload's keys may come back in another order), then any other.
+  const known = Object.keys(SYMBOLS).filter((key) => payload.reported?.[key] || isEstimate(refit?.[key]));
+  const keys = [...known, ...Object.keys(payload.reported ?? {}).filter((key) => !known.includes(key))];
+  for (const key of keys) rows.push([SYMBOLS[key] ?? key, valueText(payload.reported?.[key]), estimateText(isEstimate(refit?.[key]) ? refit[key] : undefined), tolerance(settings?.tolerances?.[key], settings?.units?.[key])]);
   return h(
     'table',
     { class: 'comparison' },
@@ -53,7 +55,9 @@ function plots(payload, refit, settings) {
   if (withLnF.length) out.push(lnFPlot(withLnF.filter((r) => r.timeUnit === withLnF[0].timeUnit), withLnF[0].timeUnit));
   const points = (payload.runs ?? []).map((run, i) => ({ label: run.label, c: Number(run.catalyst.value) * (TO_MOLAR[run.catalyst.unit.trim()] ?? NaN), k: refit?.runs?.[i]?.k?.instructor?.value }));
   if (refit?.kN && refit?.kA && points.every((p) => Number.isFinite(p.c) && Number.isFinite(p.k))) out.push(ratePlot(points, refit.kN.value, refit.kA.value, settings?.units?.k ?? ''));
-  return out.length ? h('figure', { class: 'plots' }, out, h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, lines the fitted k_obs; on the right, k_obs of each run against its catalyst concentration and the line k_N + k_A [catalyst].')) : h('p', { class: 'hint' }, 'No refit to plot.');
+  return out.length
+    ? h('figure', { class: 'plots' }, out, h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, lines the fitted k_obs; on the right, k_obs of each run against its catalyst concentration and the line k_N + k_A [catalyst].'))
+    : h('p', { class: 'hint' }, refit ? 'The plots of this kind of experiment are on the feedback sheet.' : 'No refit to plot.');
 }
 
 /** One student's latest result: findings by stage, overrides, the comparison, the plots, the versions. */
