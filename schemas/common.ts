@@ -58,3 +58,8 @@ export const Tolerance = z
 export type Tolerance = z.infer<typeof Tolerance>;
 
 export const FitModel = z.enum(['origin', 'intercept']);
+
+/** A range of values the instructor expects for this experiment, in its own unit. */
+export const Band = z
+  .object({ min: FiniteNumber, max: FiniteNumber, unit: UnitText })
+  .refine((b) => b.min < b.max, 'min must be below max');

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
+import { Band, FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
 import { Estimate, RefitValue } from '../result.ts';
 
 /**
@@ -116,10 +116,6 @@ export const Tolerances = z.object({
   rateLawUncertainty: Tolerance.default({ relative: 0.25 }),
 });
 export type Tolerances = z.infer<typeof Tolerances>;
-
-const Band = z
-  .object({ min: FiniteNumber, max: FiniteNumber, unit: UnitText })
-  .refine((b) => b.min < b.max, 'min must be below max');
 
 export const Settings = z.object({
   kind: z.literal(KIND),

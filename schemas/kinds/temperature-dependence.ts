@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
+import { Band, FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
 import { Estimate, sharedFindingCodes } from '../result.ts';
 
 /**
@@ -66,6 +66,8 @@ export const Settings = z.object({
     .default({ Ea: 'kJ mol^-1', A: 's^-1', dH: 'kJ mol^-1', dS: 'J K^-1 mol^-1' }),
   tolerances: Tolerances.default(Tolerances.parse({})),
   rubric: Rubric.default(Rubric.parse({})),
+  /** Plausibility bands: a right value outside its band is a warning to look at, never points. */
+  reference: z.object({ Ea: Band.optional(), A: Band.optional(), dH: Band.optional(), dS: Band.optional() }).optional(),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;

@@ -137,3 +137,14 @@ describe('temperature dependence: each slip is named at its place', () => {
     expect(result.findings.filter((f) => f.code === 'gas-constant').map((f) => f.pointsLost)).toEqual([2, 0, 0]);
   });
 });
+
+describe('temperature dependence: reference bands', () => {
+  it('warns, without points, when a right E_a lies outside the band the instructor expects', () => {
+    const banded = parseAssignment({ kind: 'temperature-dependence', reference: { Ea: { min: 20, max: 60, unit: 'kJ/mol' } } });
+    const v = studentValues();
+    const result = checkSubmission(banded, { studentId: 'T-02', points, reported: { Ea: { value: (v.Ea / 1000).toPrecision(4), uncertainty: 2.1, unit: 'kJ mol^-1' } } });
+    expect(result.findings.filter((f) => f.code === 'implausible')).toEqual([expect.objectContaining({ path: 'reported.Ea', severity: 'warning', pointsLost: 0 })]);
+    expect(() => parseAssignment({ kind: 'temperature-dependence', reference: { Ea: { min: 20, max: 60, unit: 'J/K/mol' } } })).toThrow();
+  });
+});
+

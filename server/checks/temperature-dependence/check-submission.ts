@@ -5,6 +5,7 @@ import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
 import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
+import { fmt } from '../format.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
 import { scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
@@ -65,10 +66,27 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const unit = settings.units[q];
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
-  checkValue(
+  const outcome = checkValue(
     { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: slipMatch(reported.value, read.value, settings.tolerances[q]) },
     drafts,
   );
+  // A value already found wrong needs no second warning about its size.
+  const band = settings.reference?.[q];
+  if (band && (outcome.kind === 'right' || outcome.kind === 'carried-forward')) {
+    const inBand = convert(read.value, unit, band.unit);
+    if (inBand < band.min || inBand > band.max) {
+      drafts.push({
+        code: 'implausible',
+        path,
+        stage,
+        severity: 'warning',
+        charge: 0,
+        reported: read.value,
+        unit,
+        message: `${label} = ${fmt(inBand)} ${band.unit} lies outside the range expected for this experiment, ${fmt(band.min)} to ${fmt(band.max)} ${band.unit}. It agrees with the refit of your data, so this may be right; it is worth checking the temperatures and the rate constants.`,
+      });
+    }
+  }
   if (q !== 'Ea' || settings.rubric.EaUncertainty === 0) return;
   if (read.uncertainty === undefined) {
     drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage, rubricItem: 'EaUncertainty', itemKey: 'EaUncertainty', severity: 'error', charge: settings.rubric.EaUncertainty, message: `The standard error of ${label} is missing.` });

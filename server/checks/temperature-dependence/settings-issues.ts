@@ -9,5 +9,9 @@ export function settingsIssues(settings: Settings): Rejection[] {
     ['units.A', settings.units.A, 'first-order-rate'],
     ['units.dH', settings.units.dH, 'molar-energy'],
     ['units.dS', settings.units.dS, 'molar-entropy'],
+    ['reference.Ea.unit', settings.reference?.Ea?.unit, 'molar-energy'],
+    ['reference.A.unit', settings.reference?.A?.unit, 'first-order-rate'],
+    ['reference.dH.unit', settings.reference?.dH?.unit, 'molar-energy'],
+    ['reference.dS.unit', settings.reference?.dS?.unit, 'molar-entropy'],
   ]);
 }
