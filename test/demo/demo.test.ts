@@ -30,8 +30,11 @@ describe('npm run demo', () => {
     expect(text).toContain('B-05');
   });
 
+  // The first table is the first assignment's; the second kind's follows its heading.
+  const second = () => lines.findIndex((l) => l.trim().startsWith('Second assignment'));
+
   it('gives about a third of the section one or two slips, and finds them', () => {
-    const rows = lines.filter((l) => /^B-\d\d /.test(l));
+    const rows = lines.slice(0, second()).filter((l) => /^B-\d\d /.test(l));
     expect(rows).toHaveLength(24);
     const withSlips = rows.filter((l) => !/ - +-$/.test(l) && !/^B-\d\d +\S+ +- /.test(l));
     expect(withSlips.length).toBe(8);
@@ -40,5 +43,19 @@ describe('npm run demo', () => {
       const [, made, found] = /^B-\d\d +\S+ +(\S+?),? .*?((?:[a-z-]+(?:, )?)+)$/.exec(row) ?? [];
       expect(found, row).toContain(made.replace(/,$/, ''));
     }
+  });
+
+  it('adds a second assignment of the kind temperature-dependence: every third student with one slip, each found, and its documents', async () => {
+    const rows = lines.slice(second()).filter((l) => /^B-\d\d /.test(l));
+    expect(rows).toHaveLength(24);
+    const withSlips = rows.filter((l) => !/^B-\d\d +\S+ +- /.test(l));
+    expect(withSlips).toHaveLength(8);
+    for (const row of withSlips) {
+      const [, made, found] = /^B-\d\d +\S+ +(\S+) +(.*)$/.exec(row) ?? [];
+      expect(found.split(', '), row).toContain(made);
+    }
+    const files = await readdir(join(dir, 'out', 'temperature-dependence'));
+    expect(files.filter((f) => /^B-\d\d\.pdf$/.test(f))).toHaveLength(24);
+    expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv']));
   });
 });
