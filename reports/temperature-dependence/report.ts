@@ -11,6 +11,7 @@ import { COLOR, SIZE } from '../pdf/theme.ts';
 
 const SYMBOLS = { Ea: 'E_{a}', A: 'A', dH: 'ΔH^{‡}', dS: 'ΔS^{‡}' } as const;
 const RUBRIC_LABELS: Record<keyof Settings['rubric'], string> = {
+  k: 'k of each run',
   Ea: 'E_{a}',
   EaUncertainty: 'Standard error of E_{a}',
   A: 'A',
@@ -28,7 +29,8 @@ function describe(path: string, submission: Submission | undefined): string {
   if (!point) return path;
   const label = submission?.points?.[Number(point[1])]?.label;
   const where = label === undefined ? `Point ${Number(point[1]) + 1}` : `Point “${label}”`;
-  return point[2] ? `${where}, ${point[2]}` : where;
+  const PLACES: Record<string, string> = { 'run.reported.k': 'k of the run', 'run.readings': 'readings of the run', 'run.infinity': 'end value of the run', 'k.unit': 'unit of k', 'k.value': 'k' };
+  return point[2] ? `${where}, ${PLACES[point[2]] ?? point[2]}` : where;
 }
 
 /**

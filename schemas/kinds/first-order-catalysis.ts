@@ -45,6 +45,9 @@ export type FindingCode = (typeof findingCodes)[number];
 
 const Reading = z.tuple([FiniteNumber, FiniteNumber]);
 
+/** [t, x] pairs in time order; other kinds with first-order runs read them the same way. */
+export const Readings = z.array(Reading).min(3, 'at least 3 readings').max(1000).superRefine(timesInOrder);
+
 function timesInOrder(rows: Array<[number, number]>, ctx: z.RefinementCtx): void {
   for (let i = 1; i < rows.length; i++) {
     const [t, x] = rows[i];
@@ -61,7 +64,7 @@ export const RunData = z.object({
   /** Unit of the times in `readings`. */
   timeUnit: UnitText,
   /** [t, x] pairs in time order. A row repeated exactly is kept (and reported as a likely slip). */
-  readings: z.array(Reading).min(3, 'at least 3 readings').max(1000).superRefine(timesInOrder),
+  readings: Readings,
   /** x_inf, the end value; absent when it was never measured (then the Guggenheim method). */
   infinity: FiniteNumber.optional(),
   temperatureC: FiniteNumber.optional(),

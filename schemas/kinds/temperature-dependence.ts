@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { Band, FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
 import { Estimate, sharedFindingCodes } from '../result.ts';
+import { Readings } from './first-order-catalysis.ts';
 
 /**
  * Experiment kind `temperature-dependence`: rate constants measured at several temperatures, fitted
@@ -10,6 +11,7 @@ import { Estimate, sharedFindingCodes } from '../result.ts';
 export const KIND = 'temperature-dependence';
 
 export const stages = [
+  { id: 'runs', title: 'Rate constants from the runs' },
   { id: 'arrhenius', title: 'Arrhenius: E_{a} and A' },
   { id: 'eyring', title: 'Eyring: ΔH^{‡} and ΔS^{‡}' },
   { id: 'reporting', title: 'Reporting' },
@@ -23,12 +25,28 @@ export type FindingCode = (typeof findingCodes)[number];
 /** A temperature as read: kelvin, or degrees Celsius (an offset, converted by the checker). */
 export const Temperature = z.object({ value: FiniteNumber, unit: z.enum(['K', 'degC']) });
 
-/** One temperature and the rate constant measured there. */
-export const Point = z.object({
-  label: Text(40),
-  temperature: Temperature,
-  k: z.object({ value: NumberLike, uncertainty: NumberLike.optional(), unit: UnitText }),
+/** A first-order run at one temperature, as in the first kind: refitted here, its k graded, and carried forward. */
+export const PointRun = z.object({
+  timeUnit: UnitText,
+  readings: Readings,
+  /** x_inf; absent: the exponential fit finds it. */
+  infinity: FiniteNumber.optional(),
+  reported: z.object({ k: ReportedValue.optional() }).optional(),
 });
+
+export type PointRun = z.infer<typeof PointRun>;
+
+/** One temperature and its rate constant: measured (`k`) or from a run of readings (`run`), one of the two. */
+export const Point = z
+  .object({
+    label: Text(40),
+    temperature: Temperature,
+    k: z.object({ value: NumberLike, uncertainty: NumberLike.optional(), unit: UnitText }).optional(),
+    run: PointRun.optional(),
+  })
+  .superRefine((p, ctx) => {
+    if ((p.k === undefined) === (p.run === undefined)) ctx.addIssue({ code: 'custom', path: ['k'], message: 'either k (a measured rate constant) or run (readings to refit), not both or neither' });
+  });
 export type Point = z.infer<typeof Point>;
 
 export const Submission = z.object({
@@ -41,6 +59,8 @@ export type Submission = z.infer<typeof Submission>;
 const points = z.number().nonnegative().max(1000);
 
 export const Rubric = z.object({
+  /** Per point given as a run: its reported k. */
+  k: points.default(1),
   Ea: points.default(2),
   EaUncertainty: points.default(1),
   A: points.default(1),
@@ -49,6 +69,7 @@ export const Rubric = z.object({
 });
 
 export const Tolerances = z.object({
+  k: Tolerance.default({ relative: 0.01 }),
   Ea: Tolerance.default({ relative: 0.02 }),
   // ln A carries the intercept's uncertainty, which 1/T far from zero makes large: A is read loosely.
   A: Tolerance.default({ relative: 0.1 }),

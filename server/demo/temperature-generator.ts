@@ -49,13 +49,13 @@ export function temperatureSubmission(random: () => number, studentId: string, s
 
   // The student's own work, from the rate constants as written.
   const T = CELSIUS.map((c) => (slip === 'temperature-scale' ? c : c + ZERO_C));
-  const kPerSecond = points.map((p) => Number(p.k.value) / (perMinute ? 60 : 1));
+  const kPerSecond = points.map((p) => Number(p.k!.value) / (perMinute ? 60 : 1));
   const x = T.map((t) => (slip === 'reciprocal-scale' ? 1000 : 1) / t);
   const lnOf = slip === 'log-base' ? Math.log10 : Math.log;
   const R = slip === 'gas-constant' ? 1.987 : GAS_CONSTANT;
   const arrhenius = fitLine(x, kPerSecond.map((k) => lnOf(k)));
   // Eyring wants k per second: the time-unit slip takes them as written, per minute.
-  const kEyring = slip === 'time-unit' ? points.map((p) => Number(p.k.value)) : kPerSecond;
+  const kEyring = slip === 'time-unit' ? points.map((p) => Number(p.k!.value)) : kPerSecond;
   const eyring = fitLine(x, slip === 'eyring-form' ? kEyring.map((k) => lnOf(k)) : kEyring.map((k, i) => lnOf(k / T[i])));
   const sign = slip === 'sign-flipped' ? -1 : 1;
   // Energies are computed in J/mol and written in kJ/mol; the energy-unit slip writes the joules.

@@ -11,7 +11,8 @@ import { scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
-import { analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
+import { checkRunKs } from './check-run-k.ts';
+import { activationOf, analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
 
 type Quantity = Exclude<keyof Activation, 'EaSE'>;
 
@@ -55,7 +56,10 @@ function slipCandidates(analysis: TemperatureAnalysis, q: keyof Activation, unit
   );
 }
 
-function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+/** What follows from the student's own rate constants, where they differ from ours (a run's k misread). */
+const FROM_THEIR_K = 'your own rate constants from the runs';
+
+function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, theirs: Activation | undefined, settings: Settings, drafts: DraftFinding[]): void {
   const { label, stage, unitKind } = QUANTITIES[q];
   const path = `reported.${q}`;
   const charge = settings.rubric[q];
@@ -67,7 +71,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
   const outcome = checkValue(
-    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: slipMatch(reported.value, read.value, settings.tolerances[q]) },
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: slipMatch(reported.value, read.value, settings.tolerances[q]) },
     drafts,
   );
   // A value already found wrong needs no second warning about its size.
@@ -103,6 +107,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       reported: read.uncertainty,
       unit,
       expected: ours.standardError,
+      carriedForward: theirs && { value: convert(theirs.EaSE, 'J mol^-1', unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
       slips: () => slipCandidates(analysis, 'EaSE', unit),
       factors: FACTORS.Ea.filter((f) => f !== SIGN),
       causes: temperatureCauses,
@@ -113,16 +118,29 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   );
 }
 
-/** What each rubric item is worth for this assignment; an item worth nothing is left out. */
-export function rubricCounts(settings: Settings): RubricCount[] {
-  return Object.entries(settings.rubric).flatMap(([item, each]) => (each > 0 ? [{ item, count: 1, each }] : []));
+/** What each rubric item is worth for this submission (k once per point given as a run); an item worth nothing is left out. */
+export function rubricCounts(settings: Settings, submission: Pick<Submission, 'points'>): RubricCount[] {
+  const runs = submission.points.filter((p) => p.run).length;
+  return Object.entries(settings.rubric).flatMap(([item, each]) => {
+    const count = item === 'k' ? runs : 1;
+    return each > 0 && count > 0 ? [{ item, count, each }] : [];
+  });
+}
+
+/** What one instance of an item is worth: `k@points[2]` is one run's k. */
+function itemPoints(settings: Settings, key: string): number {
+  return settings.rubric[key.split('@')[0] as keyof Settings['rubric']] ?? 0;
 }
 
 export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analysis = analyseTemperatures(settings, submission.points);
   const drafts: DraftFinding[] = [];
-  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, settings, drafts);
-  const findings = scoreFindings(drafts, (key) => settings.rubric[key as keyof Settings['rubric']] ?? 0, temperatureCauses.systematic);
+  const theirK = checkRunKs(submission, analysis, settings, drafts);
+  // Their fits, where a run's k as they have it differs from ours: what their E_a and the rest follow from.
+  const differs = [...theirK].some(([i, k]) => Math.abs(k - analysis.points[i].k) > 1e-9 * analysis.points[i].k);
+  const theirs = differs ? activationOf(analysis.points.map((p, i) => ({ ...p, k: theirK.get(i) ?? p.k })), settings.fit === 'weighted') : undefined;
+  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, theirs, settings, drafts);
+  const findings = scoreFindings(drafts, (key) => itemPoints(settings, key), temperatureCauses.systematic);
   const refit = {
     Ea: analysis.Ea,
     A: analysis.A,
@@ -130,5 +148,5 @@ export function checkTemperatureDependence(settings: Settings, submission: Submi
     dS: analysis.dS,
     points: analysis.points.map((p, i) => ({ label: analysis.labels[i], temperatureK: p.temperature, kPerSecond: p.k })),
   };
-  return scoredResult(submission.studentId, rubricCounts(settings), findings, refit, []);
+  return scoredResult(submission.studentId, rubricCounts(settings, submission), findings, refit, []);
 }

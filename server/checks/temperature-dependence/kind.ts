@@ -12,7 +12,7 @@ export const temperatureDependence: ExperimentKind<Settings, Submission> = {
   submissionSchema: Submission,
   settingsIssues,
   check: checkTemperatureDependence,
-  maxScore: (settings) => pointsOf(rubricCounts(settings)),
+  maxScore: (settings, submission) => pointsOf(rubricCounts(settings, submission)),
   // The parser loads on the first CSV, not with the checker.
   csvLayout: {
     main: 'points',

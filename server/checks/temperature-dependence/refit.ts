@@ -1,7 +1,9 @@
-import type { Point, Settings } from '../../../schemas/kinds/temperature-dependence.ts';
+import type { Point, PointRun, Settings } from '../../../schemas/kinds/temperature-dependence.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { fitFirstOrderLinear } from '../../engine/first-order-linear.ts';
+import { fitFirstOrderNonlinear } from '../../engine/first-order-nonlinear.ts';
 import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../engine/temperature-dependence.ts';
 import { toKelvin, ZERO_CELSIUS_K } from '../../engine/temperature.ts';
 import { convert, parseUnit } from '../../engine/units.ts';
@@ -19,6 +21,8 @@ export interface Activation {
 
 export interface TemperatureAnalysis {
   points: TemperaturePoint[];
+  /** The points given as runs, refitted. */
+  runs: RunK[];
   labels: string[];
   Ea: Estimate;
   A: Estimate;
@@ -32,23 +36,57 @@ export interface TemperatureAnalysis {
 const LN_KB_OVER_H = Math.log(1.380649e-23 / 6.62607015e-34);
 const LOG10_KB_OVER_H = Math.log10(1.380649e-23 / 6.62607015e-34);
 
+/** A point given as a run: our k in the run's own rate unit, and other right values (the ln F lines). */
+export interface RunK {
+  index: number;
+  k: Estimate;
+  alsoRight: number[];
+}
+
+function refitRun(run: PointRun, path: string): { k: Estimate; alsoRight: number[] } {
+  const data = { times: run.readings.map((r) => r[0]), readings: run.readings.map((r) => r[1]), timeUnit: run.timeUnit, infinity: run.infinity };
+  const exponential = fitFirstOrderNonlinear(data, { infinity: run.infinity === undefined ? 'fitted' : 'fixed' });
+  const alsoRight: number[] = [];
+  if (run.infinity !== undefined) {
+    for (const model of ['origin', 'intercept'] as const) {
+      try {
+        alsoRight.push(fitFirstOrderLinear({ ...data, infinity: run.infinity }, model).k.value);
+      } catch (error) {
+        // A reading past x_inf leaves ln F undefined: the exponential fit alone is right then.
+        if (!(error instanceof EngineError)) throw error;
+      }
+    }
+  }
+  if (!(exponential.k.value > 0)) throw new InputRejected([{ path: `${path}.readings`, message: `the readings give k = ${exponential.k.value}, not a rate constant: check x_inf and the readings` }]);
+  return { k: exponential.k, alsoRight };
+}
+
 /** Every point in kelvin and per second; a temperature at or below absolute zero, or k not a first-order rate, is refused by field. */
-function pointsOf(points: Point[]): TemperaturePoint[] {
-  return points.map((p, i) => {
+function pointsOf(points: Point[]): { points: TemperaturePoint[]; runs: RunK[] } {
+  const runs: RunK[] = [];
+  const fitted = points.map((p, i) => {
     const at = (field: string) => `points[${i}].${field}`;
     try {
-      parseUnit(p.k.unit, 'first-order-rate', at('k.unit'));
-      const k = convert(Number(p.k.value), p.k.unit, 's^-1');
-      const se = p.k.uncertainty === undefined ? undefined : convert(Number(p.k.uncertainty), p.k.unit, 's^-1');
-      return { temperature: toKelvin(p.temperature.value, p.temperature.unit, at('temperature.value')), k, standardError: se };
+      const temperature = toKelvin(p.temperature.value, p.temperature.unit, at('temperature.value'));
+      if (p.run) {
+        const { k, alsoRight } = refitRun(p.run, at('run'));
+        runs.push({ index: i, k, alsoRight });
+        return { temperature, k: convert(k.value, k.unit, 's^-1'), standardError: convert(k.standardError, k.unit, 's^-1') };
+      }
+      const measured = p.k!;
+      parseUnit(measured.unit, 'first-order-rate', at('k.unit'));
+      const se = measured.uncertainty === undefined ? undefined : convert(Number(measured.uncertainty), measured.unit, 's^-1');
+      return { temperature, k: convert(Number(measured.value), measured.unit, 's^-1'), standardError: se };
     } catch (error) {
-      if (error instanceof EngineError) throw new InputRejected([{ path: error.field ?? at('k'), message: error.message }]);
+      if (error instanceof EngineError) throw new InputRejected([{ path: error.field?.startsWith('points[') ? error.field : at(p.run ? `run.${error.field ?? 'readings'}` : 'k'), message: error.message }]);
       throw error;
     }
   });
+  return { points: fitted, runs };
 }
 
-function both(points: TemperaturePoint[], weighted: boolean): Activation | undefined {
+/** The two fits of these points (per second, kelvin), in base units; undefined where they cannot be made. */
+export function activationOf(points: TemperaturePoint[], weighted: boolean): Activation | undefined {
   try {
     const a = fitArrhenius(points, { kUnit: 's^-1', weighted });
     const e = fitEyring(points, { weighted });
@@ -61,7 +99,7 @@ function both(points: TemperaturePoint[], weighted: boolean): Activation | undef
 }
 
 export function analyseTemperatures(settings: Settings, input: Point[]): TemperatureAnalysis {
-  const points = pointsOf(input);
+  const { points, runs } = pointsOf(input);
   const weighted = settings.fit === 'weighted';
   let arrhenius, eyring;
   try {
@@ -75,7 +113,7 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
   const ln = arrhenius.line;
   const ey = eyring.line;
   const slips: TemperatureAnalysis['slips'] = {};
-  const celsius = both(points.map((p) => ({ ...p, temperature: p.temperature - ZERO_CELSIUS_K })), weighted);
+  const celsius = activationOf(points.map((p) => ({ ...p, temperature: p.temperature - ZERO_CELSIUS_K })), weighted);
   if (celsius) slips['temperature-scale'] = [{ values: celsius, detail: 'temperatures in °C in 1/T' }];
   slips['log-base'] = [{ values: { A: Math.exp(ln.intercept / Math.LN10), dS: R * (ey.intercept / Math.LN10 - LN_KB_OVER_H) }, detail: 'log10 of k, and its intercept taken as a natural logarithm' }];
   slips['reciprocal-scale'] = [{ values: { Ea: arrhenius.Ea.value / 1000, dH: eyring.dH.value / 1000, EaSE: arrhenius.Ea.standardError / 1000 }, detail: '1000/T read as 1/T' }];
@@ -90,6 +128,7 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
   ];
   return {
     points,
+    runs,
     labels: input.map((p) => p.label),
     Ea: convertEstimate(arrhenius.Ea, settings.units.Ea),
     A: convertEstimate(arrhenius.A, settings.units.A),

@@ -1,0 +1,53 @@
+import type { Settings, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
+import { convert } from '../../engine/units.ts';
+import { slipMatch } from '../cause-tolerance.ts';
+import { checkValue } from '../check-value.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT } from '../explain.ts';
+import { readReported } from '../reported-number.ts';
+import { temperatureCauses } from './causes.ts';
+import type { TemperatureAnalysis } from './refit.ts';
+
+/**
+ * The k reported for each point given as a run, against our refit of its readings (the exponential
+ * fit, or either ln F line where x_inf was measured). Returns each such point's k as the student has
+ * it, per second, for what follows from it.
+ */
+export function checkRunKs(submission: Submission, analysis: TemperatureAnalysis, settings: Settings, drafts: DraftFinding[]): Map<number, number> {
+  const theirs = new Map<number, number>();
+  for (const run of analysis.runs) {
+    const point = submission.points[run.index];
+    const path = `points[${run.index}].run.reported.k`;
+    const what = `k of the run at ${point.label}`;
+    const itemKey = `k@points[${run.index}]`;
+    const reported = point.run?.reported?.k;
+    const charge = settings.rubric.k;
+    if (!reported) {
+      if (charge > 0) drafts.push({ code: 'missing-value', path, stage: 'runs', rubricItem: 'k', itemKey, severity: 'error', charge, message: `The ${what} is missing.` });
+      continue;
+    }
+    const unit = run.k.unit;
+    const read = readReported(reported, 'first-order-rate', unit, unit, { path, what, stage: 'runs' }, drafts);
+    checkValue(
+      {
+        what: `The ${what}`,
+        path,
+        stage: 'runs',
+        rubricItem: 'k',
+        itemKey,
+        charge,
+        reported: read.value,
+        unit,
+        expected: run.k.value,
+        alsoRight: run.alsoRight,
+        factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+        causes: temperatureCauses,
+        tolerance: settings.tolerances.k,
+        causeTolerance: slipMatch(reported.value, read.value, settings.tolerances.k),
+      },
+      drafts,
+    );
+    if (read.value > 0) theirs.set(run.index, convert(read.value, unit, 's^-1'));
+  }
+  return theirs;
+}
