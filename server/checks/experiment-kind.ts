@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import type { CheckResult, Rejection } from '../../schemas/result.ts';
 import type { CsvLayout } from '../input/csv-layout.ts';
+import type { SectionSignals } from '../signals/section-report.ts';
 
 /**
  * One kind of experiment the checker understands. A new kind is a new module that implements this
@@ -20,6 +21,8 @@ export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   check(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'>;
   /** How submissions of this kind are read from CSV files; absent: JSON only. */
   csvLayout?: CsvLayout;
+  /** What a section's submissions say together, for the TA's review; absent: nothing is compared. */
+  sectionSignals?(settings: Settings, submissions: unknown[]): SectionSignals;
   /** The points available under these settings for this submission's shape. */
   maxScore(settings: Settings, submission: Submission): number;
 }

@@ -1,6 +1,7 @@
 import { findingCodes, KIND, Settings, stages, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { ExperimentKind } from '../experiment-kind.ts';
 import { checkFirstOrderCatalysis } from './check-submission.ts';
+import { runSectionSignals } from '../../signals/run-section-signals.ts';
 import { maxScore } from './scoring.ts';
 import { settingsIssues } from './settings-issues.ts';
 
@@ -13,6 +14,7 @@ export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   settingsIssues,
   check: checkFirstOrderCatalysis,
   maxScore,
+  sectionSignals: runSectionSignals,
   // The parser loads on the first CSV, not with the checker.
   csvLayout: {
     main: 'readings',
