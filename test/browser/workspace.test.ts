@@ -222,6 +222,32 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.close();
   });
 
+  it('lets an instructor create an assignment of the second kind and edit its settings as JSON, with the messages by field', async () => {
+    const page = await browser.newPage();
+    const pageErrors: string[] = [];
+    page.on('pageerror', (e) => pageErrors.push(String(e)));
+    await signIn(page, s.instructorToken);
+    await page.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
+    await page.getByText('New assignment').click();
+    await page.getByLabel('Kind of experiment').selectOption('temperature-dependence');
+    await page.getByLabel('Title').fill('Activation energy (invented)');
+    await page.getByRole('button', { name: 'Create the assignment' }).click();
+    const panel = page.locator('article', { has: page.getByRole('heading', { name: 'Activation energy (invented)' }) });
+    await panel.waitFor();
+    await panel.getByText('Edit the settings').click();
+    const json = panel.getByLabel(/^Settings \(JSON/);
+    const settings = JSON.parse(await json.inputValue());
+    expect(settings).toMatchObject({ kind: 'temperature-dependence', fit: 'ordinary' });
+    await json.fill(JSON.stringify({ ...settings, tolerances: { ...settings.tolerances, Ea: { relative: -1 } } }));
+    await panel.getByRole('button', { name: 'Save the settings' }).click();
+    await panel.getByText(/^tolerances\.Ea\.relative: /).waitFor();
+    await json.fill(JSON.stringify({ ...settings, fit: 'weighted' }));
+    await panel.getByRole('button', { name: 'Save the settings' }).click();
+    await panel.getByText(/^Settings version 2 saved/).waitFor();
+    expect(pageErrors).toEqual([]);
+    await page.close();
+  });
+
   it('shows a TA of another section nothing of this one', async () => {
     const page = await browser.newPage();
     await signIn(page, s.taBToken);

@@ -1,5 +1,5 @@
 import { api, ApiFailure } from './api.js';
-import { h } from './dom.js';
+import { fill, h } from './dom.js';
 
 /**
  * An assignment's settings as a form. The service validates them with the same schema as the API and
@@ -50,8 +50,63 @@ const BOOLEAN = new Set(['temperature.required']);
 
 let formCount = 0;
 
-/** `assignment` to edit, or undefined for a new one in `courseId`; `done(saved)` after a save, `failure` for what the form cannot show. */
-export function settingsForm({ courseId, assignment, done, failure }) {
+/** The kinds of experiment an assignment can be, with their names in words. */
+const KINDS = [
+  ['first-order-catalysis', 'First-order runs and the catalysis rate law'],
+  ['temperature-dependence', 'Rate constants at several temperatures (Arrhenius, Eyring)'],
+];
+
+/**
+ * `assignment` to edit, or undefined for a new one in `courseId`; `done(saved)` after a save, `failure`
+ * for what the form cannot show. The first kind has a form of fields; any other kind's settings are
+ * edited as JSON, which the service validates and answers field by field.
+ */
+export function settingsForm(options) {
+  if (options.assignment) return options.assignment.kind === DEFAULTS.kind ? catalysisForm(options) : jsonForm(options, options.assignment.kind);
+  const holder = h('div', {});
+  const kind = h('select', { id: `kind-${++formCount}`, onchange: () => show() }, KINDS.map(([value, text]) => h('option', { value }, text)));
+  const show = () => fill(holder, kind.value === DEFAULTS.kind ? catalysisForm(options) : jsonForm(options, kind.value));
+  show();
+  return h('div', {}, h('div', { class: 'field' }, h('label', { for: kind.id }, 'Kind of experiment'), kind), holder);
+}
+
+/** Settings as JSON text, saved as they are; the service's messages are listed by field. */
+function jsonForm({ courseId, assignment, done, failure }, kind) {
+  const n = ++formCount;
+  const text = h('textarea', { id: `json-${n}`, rows: '12', class: 'json-settings', spellcheck: 'false' });
+  text.value = JSON.stringify(assignment?.settings ?? { kind }, null, 2);
+  const title = assignment ? null : h('input', { id: `title-${n}`, type: 'text', required: true });
+  const messages = h('ul', { class: 'form-error', role: 'alert' });
+  async function save() {
+    fill(messages);
+    let settings;
+    try {
+      settings = JSON.parse(text.value);
+    } catch (error) {
+      fill(messages, h('li', {}, `The settings are not valid JSON: ${error.message}`));
+      return text.focus();
+    }
+    try {
+      const saved = assignment
+        ? await api('PUT', `/v1/assignments/${assignment.id}/settings`, { settings })
+        : await api('POST', `/v1/courses/${courseId}/assignments`, { title: title.value, settings });
+      done(saved);
+    } catch (error) {
+      if (!(error instanceof ApiFailure) || error.status !== 400) return failure(error);
+      fill(messages, error.details.map((d) => h('li', {}, `${d.path.replace(/^body\.(settings\.)?/, '')}: ${d.message}`)));
+    }
+  }
+  return h(
+    'form',
+    { class: 'settings', novalidate: true, onsubmit: (e) => (e.preventDefault(), save()) },
+    title ? h('div', { class: 'field' }, h('label', { for: title.id }, 'Title'), title) : null,
+    h('div', { class: 'field' }, h('label', { for: text.id }, 'Settings (JSON; the README lists the fields of each kind)'), text),
+    h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
+    messages,
+  );
+}
+
+function catalysisForm({ courseId, assignment, done, failure }) {
   const n = ++formCount;
   const current = { ...DEFAULTS, ...(assignment?.settings ?? {}) };
   const fields = new Map();
