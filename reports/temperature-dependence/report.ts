@@ -17,6 +17,7 @@ const RUBRIC_LABELS: Record<keyof Settings['rubric'], string> = {
   A: 'A',
   dH: 'ΔH^{‡}',
   dS: 'ΔS^{‡}',
+  sigFigs: 'Significant figures',
 };
 
 function describe(path: string, submission: Submission | undefined): string {

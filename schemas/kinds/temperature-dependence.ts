@@ -66,6 +66,8 @@ export const Rubric = z.object({
   A: points.default(1),
   dH: points.default(2),
   dS: points.default(2),
+  /** Each value rounded consistently with its uncertainty; 0 (the default) makes a slip a warning only. */
+  sigFigs: points.default(0),
 });
 
 export const Tolerances = z.object({

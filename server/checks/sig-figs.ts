@@ -1,4 +1,5 @@
-import type { NumberLike } from '../../schemas/common.ts';
+import type { NumberLike, ReportedValue } from '../../schemas/common.ts';
+import type { DraftFinding } from './draft-finding.ts';
 import { decimalsOf } from './digit-slips.ts';
 
 /**
@@ -48,4 +49,27 @@ export function sigFigProblem(value: NumberLike, uncertainty: NumberLike): SigFi
     return { problem: 'value-under-precise', text: `the value ${String(value)} stops before the last decimal place of its uncertainty ${uText}` };
   }
   return undefined;
+}
+
+/**
+ * Presentation: each reported value with an uncertainty rounded consistently with it; `points` is the
+ * rubric item's worth (0: a warning only).
+ */
+export function checkRounding(values: Array<[path: string, value: ReportedValue | undefined]>, points: number, drafts: DraftFinding[]): void {
+  for (const [path, v] of values) {
+    if (!v || v.uncertainty === undefined) continue;
+    const problem = sigFigProblem(v.value, v.uncertainty);
+    if (!problem) continue;
+    drafts.push({
+      code: 'sig-figs',
+      detail: problem.problem,
+      path,
+      stage: 'reporting',
+      rubricItem: 'sigFigs',
+      itemKey: 'sigFigs',
+      severity: points > 0 ? 'error' : 'warning',
+      charge: points,
+      message: `${problem.text[0].toUpperCase()}${problem.text.slice(1)}. Round the uncertainty to one or two significant figures and the value to the same decimal place.`,
+    });
+  }
 }

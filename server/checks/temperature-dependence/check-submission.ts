@@ -4,6 +4,7 @@ import type { CheckResult, RubricCount } from '../../../schemas/result.ts';
 import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
 import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
+import { checkRounding } from '../sig-figs.ts';
 import { checkValue } from '../check-value.ts';
 import { fmt } from '../format.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
@@ -140,6 +141,14 @@ export function checkTemperatureDependence(settings: Settings, submission: Submi
   const differs = [...theirK].some(([i, k]) => Math.abs(k - analysis.points[i].k) > 1e-9 * analysis.points[i].k);
   const theirs = differs ? activationOf(analysis.points.map((p, i) => ({ ...p, k: theirK.get(i) ?? p.k })), settings.fit === 'weighted') : undefined;
   for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, theirs, settings, drafts);
+  checkRounding(
+    [
+      ...analysis.runs.map((r): [string, ReportedValue | undefined] => [`points[${r.index}].run.reported.k`, submission.points[r.index].run?.reported?.k]),
+      ...(Object.keys(QUANTITIES) as Quantity[]).map((q): [string, ReportedValue | undefined] => [`reported.${q}`, submission.reported?.[q]]),
+    ],
+    settings.rubric.sigFigs,
+    drafts,
+  );
   const findings = scoreFindings(drafts, (key) => itemPoints(settings, key), temperatureCauses.systematic);
   const refit = {
     Ea: analysis.Ea,
