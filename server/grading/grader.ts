@@ -1,4 +1,5 @@
 import type { FeedbackInput, SectionSummaryInput } from '../../reports/feedback-input.ts';
+import type { SectionSignals } from '../signals/section-report.ts';
 import type { GradedForStore } from './graded-for-store.ts';
 import { inParts } from '../in-parts.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
@@ -12,6 +13,8 @@ export interface Grader {
   check(settings: unknown, submissions: unknown[]): Promise<GradedForStore[]>;
   renderSheet(input: FeedbackInput): Promise<Buffer>;
   renderSummary(input: SectionSummaryInput): Promise<Buffer>;
+  /** A section's signals for review (every pair of students compared). */
+  sectionSignals(settings: { kind: string }, submissions: unknown[]): Promise<SectionSignals>;
   /** Sheets for many inputs, yielded in their order while the next few are drawn. */
   renderSheets<T extends { input: FeedbackInput }>(items: T[]): AsyncIterable<T & { pdf: Buffer }>;
 }
@@ -39,6 +42,7 @@ export function poolGrader(pool: WorkerPool): Grader {
     },
     renderSheet,
     renderSummary: async (input) => asBuffer(await pool.run('render-summary', input)),
+    sectionSignals: (settings, submissions) => pool.run('section-signals', { settings, submissions }),
     async *renderSheets(items) {
       // Two sheets per worker in flight: every core draws while the reader takes the finished ones.
       const ahead = 2 * pool.size;

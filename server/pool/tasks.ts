@@ -7,6 +7,7 @@ export const tasks = {
   'grade-for-store': () => import('../grading/graded-for-store.ts').then((m) => m.gradeForStore),
   'render-sheet': () => import('../../reports/sheet-or-reason.ts').then((m) => m.renderSheetOrReason),
   'render-summary': () => import('../../reports/section-summary.ts').then((m) => m.renderSectionSummary),
+  'section-signals': () => import('../signals/section-signals.ts').then((m) => m.sectionSignalsTask),
 };
 
 export type TaskName = keyof typeof tasks;

@@ -3,7 +3,6 @@ import { gradebookCsv } from '../../reports/gradebook-csv.ts';
 import { sectionZip } from '../../reports/section-zip.ts';
 import { ApiError } from '../errors.ts';
 import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
-import { sectionSignals } from '../signals/section-signals.ts';
 import { studentsWithoutSubmission } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
@@ -53,7 +52,7 @@ export const reportRoutes: RouteSpec[] = [
         settings: inputs[0].settings,
         results: inputs.map((i) => i.result),
         submissions: inputs.map((i) => i.submission),
-        signals: sectionSignals(inputs[0].settings, inputs.map((i) => i.submission)),
+        signals: await grader.sectionSignals(inputs[0].settings, inputs.map((i) => i.submission)),
       });
       return { status: 200, body: pdf, contentType: 'application/pdf', headers: download(`summary-section-${scope.sectionId}.pdf`) };
     },

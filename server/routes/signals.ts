@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import { sectionSignals } from '../signals/section-signals.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { latestSubmissions } from '../store/submissions.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -13,7 +12,7 @@ const SectionSignals = z.object({
   pairs: z.array(z.object({ students: z.tuple([z.string(), z.string()]), runs: z.array(RunMatch), sameReportedK: z.array(z.tuple([z.number(), z.number()])) })),
   groups: z.array(z.array(z.string())),
   /** Runs whose readings scatter no more than rounding alone, where the section's scatter several times more. */
-  smooth: z.array(z.object({ studentId: z.string(), run: z.number(), label: z.string(), residualSD: z.number(), step: z.number(), sectionMedianSD: z.number() })),
+  smooth: z.array(z.object({ studentId: z.string(), run: z.number(), label: z.string(), residualSD: z.number(), step: z.number(), sectionMedianSD: z.number(), instrumentNoise: z.number().optional() })),
 });
 
 export const signalRoutes: RouteSpec[] = [
@@ -24,10 +23,10 @@ export const signalRoutes: RouteSpec[] = [
     summary:
       "What the section's data say beyond the arithmetic: submissions whose readings look alike (the same, offset, rescaled, reordered or a few cells edited) or whose reported k are written alike, and runs smoother than the instrument reads. Prompts for a TA's review, never findings",
     schema: { params: z.object({ sectionId: IdParam, assignmentId: IdParam }), response: { 200: SectionSignals } },
-    async handler({ db, scope, params }) {
+    async handler({ db, grader, scope, params }) {
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
       const rows = await latestSubmissions(db, assignment.id, scope.sectionId!);
-      return { status: 200, body: sectionSignals(assignment.settings as { kind: string }, rows.map((row) => row.payload)) };
+      return { status: 200, body: await grader.sectionSignals(assignment.settings as { kind: string }, rows.map((row) => row.payload)) };
     },
   },
 ];

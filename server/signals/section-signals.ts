@@ -9,3 +9,8 @@ export function sectionSignals(settings: { kind: string }, submissions: unknown[
   if (!kind?.sectionSignals) return nothingCompared(`the kind ${settings.kind} has no signals across a section`);
   return kind.sectionSignals(settings, submissions);
 }
+
+/** The same as one task for the worker pool: a section's comparisons take seconds, which the event loop must not wait on. */
+export function sectionSignalsTask(input: { settings: { kind: string }; submissions: unknown[] }): SectionSignals {
+  return sectionSignals(input.settings, input.submissions);
+}

@@ -23,6 +23,7 @@ describe('the log of an unexpected error', () => {
       },
       renderSheet: async () => Buffer.alloc(0),
       renderSummary: async () => Buffer.alloc(0),
+      sectionSignals: async () => ({ pairs: [], groups: [], smooth: [] }),
       renderSheets: async function* () {},
     };
     const stream = new PassThrough();

@@ -79,7 +79,16 @@ function signalsPanel(signals) {
 export async function sectionView(place, failure) {
   const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
   const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
-  let [rows, signals] = await Promise.all([api('GET', `${base}/results`), api('GET', `${base}/signals`)]);
+  let rows = await api('GET', `${base}/results`);
+  // The signals compare every pair of students, which takes longer than the table: the table is drawn
+  // first and the signals panel fills in when they arrive.
+  const signalsSlot = h('div', { 'aria-live': 'polite' });
+  const loadSignals = () =>
+    api('GET', `${base}/signals`).then(
+      (signals) => fill(signalsSlot, signalsPanel(signals)),
+      () => fill(signalsSlot, h('p', { class: 'hint' }, 'The signals for review could not be loaded; reload the page to try again.')),
+    );
+  loadSignals();
 
   const body = h('tbody');
   const shown = h('p', { class: 'hint', 'aria-live': 'polite' });
@@ -177,6 +186,7 @@ export async function sectionView(place, failure) {
   const refresh = async () => {
     rows = await api('GET', `${base}/results`);
     draw();
+    loadSignals();
   };
   draw();
   return h(
@@ -197,7 +207,7 @@ export async function sectionView(place, failure) {
       ),
     ),
     uploadPanel(base, refresh, failure),
-    signalsPanel(signals),
+    signalsSlot,
     counts,
     h(
       'div',
