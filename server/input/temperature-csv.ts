@@ -1,58 +1,112 @@
 import type { CsvRowError, CsvSubmissions } from './csv-layout.ts';
-import { numberOrText, numberText, readTable } from './csv-table.ts';
+import { numberOrText, numberText, readTable, type Row } from './csv-table.ts';
 
 /**
- * The CSV layout of `temperature-dependence` submissions: a points file, one row per temperature
- * (`student_id, label, temperature, temperature_unit, k, k_unit`, optionally `k_uncertainty`), and
- * optionally a reported-values file (`student_id, quantity, value, unit`, optionally `uncertainty`;
- * quantity one of Ea, A, dH, dS). Values are passed on as written for the schema to validate.
+ * The CSV layout of `temperature-dependence` submissions: a points file and optionally a reported-values
+ * file. Values are passed on as written for the schema to validate.
+ * - Points: `student_id, label, temperature, temperature_unit`, and for a measured rate constant one
+ *   row with `k, k_unit` (optionally `k_uncertainty`); for a run, one row per reading with `t, x` and
+ *   `time_unit` (optionally `infinity`), its temperature repeated or given once.
+ * - Reported: `student_id, quantity, value, unit` (optionally `uncertainty`), quantity one of Ea, A,
+ *   dH, dS, or `k` with the run's `label` for the k a student found from that run.
  */
-const POINT_COLUMNS = ['student_id', 'label', 'temperature', 'temperature_unit', 'k', 'k_unit'];
+const POINT_COLUMNS = ['student_id', 'label', 'temperature', 'temperature_unit'];
 const REPORTED_COLUMNS = ['student_id', 'quantity', 'value', 'unit'];
 const QUANTITIES = ['Ea', 'A', 'dH', 'dS'];
 
+interface ReportedText {
+  value: string;
+  uncertainty?: string;
+  unit: string;
+}
+
+interface PointDraft {
+  label: string;
+  first: Row;
+  run?: { timeUnit: string; infinity?: number | string; readings: Array<[number | string, number | string]>; reported?: { k: ReportedText } };
+  k?: ReportedText;
+}
+
 interface Draft {
   studentId: string;
-  points: unknown[];
-  reported: Record<string, { value: string; uncertainty?: string; unit: string }>;
+  points: Map<string, PointDraft>;
+  reported: Record<string, ReportedText>;
 }
 
 export function parseTemperatureCsv(pointsText: string, reportedText?: string): CsvSubmissions {
   const drafts = new Map<string, Draft>();
-  const draftOf = (studentId: string) => drafts.get(studentId) ?? drafts.set(studentId, { studentId, points: [], reported: {} }).get(studentId)!;
   const points = readTable(pointsText, POINT_COLUMNS);
   const rowErrors: CsvRowError[] = points.errors.map((e) => ({ file: 'points', ...e }));
   for (const row of points.rows) {
-    const uncertainty = row.cell('k_uncertainty');
-    draftOf(row.cell('student_id')).points.push({
-      label: row.cell('label'),
-      temperature: { value: numberOrText(row.cell('temperature'), points.decimalComma), unit: row.cell('temperature_unit') },
-      k: { value: numberText(row.cell('k'), points.decimalComma), ...(uncertainty !== '' && { uncertainty: numberText(uncertainty, points.decimalComma) }), unit: row.cell('k_unit') },
-    });
+    const error = addPointRow(drafts, row, points.decimalComma);
+    if (error) rowErrors.push({ file: 'points', row: row.line, message: error });
   }
   if (reportedText !== undefined) {
     const reported = readTable(reportedText, REPORTED_COLUMNS);
     rowErrors.push(...reported.errors.map((e) => ({ file: 'reported', ...e })));
     for (const row of reported.rows) {
-      const quantity = row.cell('quantity');
-      const studentId = row.cell('student_id');
-      if (!QUANTITIES.includes(quantity)) {
-        rowErrors.push({ file: 'reported', row: row.line, message: `quantity "${quantity}" is not one of ${QUANTITIES.join(', ')}` });
-        continue;
-      }
-      if (!drafts.has(studentId)) {
-        rowErrors.push({ file: 'reported', row: row.line, message: `student "${studentId}" has no points in the points file` });
-        continue;
-      }
-      const draft = draftOf(studentId);
-      if (draft.reported[quantity]) {
-        rowErrors.push({ file: 'reported', row: row.line, message: `${quantity} of student "${studentId}" is given twice` });
-        continue;
-      }
-      const uncertainty = row.cell('uncertainty');
-      draft.reported[quantity] = { value: numberText(row.cell('value'), reported.decimalComma), ...(uncertainty !== '' && { uncertainty: numberText(uncertainty, reported.decimalComma) }), unit: row.cell('unit') };
+      const error = addReported(drafts, row, reported.decimalComma);
+      if (error) rowErrors.push({ file: 'reported', row: row.line, message: error });
     }
   }
-  const submissions = [...drafts.values()].map(({ studentId, points: p, reported: r }) => ({ studentId, points: p, ...(Object.keys(r).length > 0 && { reported: r }) }));
+  const submissions = [...drafts.values()].map(({ studentId, points: p, reported: r }) => ({
+    studentId,
+    points: [...p.values()].map((point) => toPoint(point, points.decimalComma)),
+    ...(Object.keys(r).length > 0 && { reported: r }),
+  }));
   return { submissions, rowErrors };
+}
+
+/** Files a row under its student and point; returns a message when the point's rows disagree. */
+function addPointRow(drafts: Map<string, Draft>, row: Row, decimalComma: boolean): string | undefined {
+  const studentId = row.cell('student_id');
+  const label = row.cell('label');
+  const draft = drafts.get(studentId) ?? drafts.set(studentId, { studentId, points: new Map(), reported: {} }).get(studentId)!;
+  const point = draft.points.get(label) ?? draft.points.set(label, { label, first: row }).get(label)!;
+  const where = `point "${label}" of student "${studentId}"`;
+  for (const column of ['temperature', 'temperature_unit']) {
+    const text = row.cell(column);
+    if (text !== '' && text !== point.first.cell(column)) return `${where}: ${column} is ${point.first.cell(column)} on line ${point.first.line} but ${text} on line ${row.line}`;
+  }
+  const isReading = row.cell('t') !== '' || row.cell('x') !== '';
+  if (isReading) {
+    if (point.k) return `${where} has a measured k and readings: give one or the other`;
+    point.run ??= { timeUnit: row.cell('time_unit'), readings: [] };
+    if (row.cell('infinity') !== '') point.run.infinity = numberOrText(row.cell('infinity'), decimalComma);
+    point.run.readings.push([numberOrText(row.cell('t'), decimalComma), numberOrText(row.cell('x'), decimalComma)]);
+    return undefined;
+  }
+  if (point.run || point.k) return `${where} is given twice`;
+  const uncertainty = row.cell('k_uncertainty');
+  point.k = { value: numberText(row.cell('k'), decimalComma), ...(uncertainty !== '' && { uncertainty: numberText(uncertainty, decimalComma) }), unit: row.cell('k_unit') };
+  return undefined;
+}
+
+function addReported(drafts: Map<string, Draft>, row: Row, decimalComma: boolean): string | undefined {
+  const quantity = row.cell('quantity');
+  const studentId = row.cell('student_id');
+  const draft = drafts.get(studentId);
+  if (!draft) return `student "${studentId}" has no points in the points file`;
+  const uncertainty = row.cell('uncertainty');
+  const value: ReportedText = { value: numberText(row.cell('value'), decimalComma), ...(uncertainty !== '' && { uncertainty: numberText(uncertainty, decimalComma) }), unit: row.cell('unit') };
+  if (quantity === 'k') {
+    const run = draft.points.get(row.cell('label'))?.run;
+    if (!run) return `k of student "${studentId}" names no run: the label "${row.cell('label')}" is not a point given as readings`;
+    if (run.reported) return `k of run "${row.cell('label')}" of student "${studentId}" is given twice`;
+    run.reported = { k: value };
+    return undefined;
+  }
+  if (!QUANTITIES.includes(quantity)) return `quantity "${quantity}" is not one of ${[...QUANTITIES, 'k'].join(', ')}`;
+  if (draft.reported[quantity]) return `${quantity} of student "${studentId}" is given twice`;
+  draft.reported[quantity] = value;
+  return undefined;
+}
+
+function toPoint(point: PointDraft, decimalComma: boolean): unknown {
+  const temperature = { value: numberOrText(point.first.cell('temperature'), decimalComma), unit: point.first.cell('temperature_unit') };
+  if (point.run) {
+    const { timeUnit, infinity, readings, reported } = point.run;
+    return { label: point.label, temperature, run: { timeUnit, readings, ...(infinity !== undefined && { infinity }), ...(reported && { reported }) } };
+  }
+  return { label: point.label, temperature, ...(point.k && { k: point.k }) };
 }

@@ -37,9 +37,29 @@ describe('temperature-dependence CSV layout', () => {
   it('names the file and line of a quantity it does not know, a student without points, and a missing column', () => {
     const reported = ['student_id,quantity,value,unit', 'T-01,Eact,75,kJ/mol', 'T-09,Ea,75,kJ/mol'].join('\n');
     expect(parseTemperatureCsv(POINTS, reported).rowErrors).toEqual([
-      { file: 'reported', row: 2, message: 'quantity "Eact" is not one of Ea, A, dH, dS' },
+      { file: 'reported', row: 2, message: 'quantity "Eact" is not one of Ea, A, dH, dS, k' },
       { file: 'reported', row: 3, message: 'student "T-09" has no points in the points file' },
     ]);
     expect(parseTemperatureCsv('student_id,label,temperature,k,k_unit\nT-01,a,15,0.1,s^-1').rowErrors).toEqual([{ file: 'points', row: 1, message: 'missing column "temperature_unit"' }]);
+  });
+
+  it('reads a point given as a run, one row per reading, with its k in the reported file under its label', () => {
+    const rows = ['student_id,label,temperature,temperature_unit,time_unit,t,x,infinity'];
+    const ks = [0.05, 0.1, 0.2];
+    [20, 30, 40].forEach((c, i) => {
+      for (const t of [0, 2, 4, 6, 8]) rows.push(`T-05,${c} °C,${t === 0 ? c : ''},${t === 0 ? 'degC' : ''},min,${t},${(5 + 15 * Math.exp(-ks[i] * t)).toFixed(3)},${t === 0 ? 5 : ''}`);
+    });
+    const reported = 'student_id,quantity,label,value,unit\nT-05,k,30 °C,0.1000,min^-1\nT-05,k,50 °C,0.3,min^-1';
+    const { submissions, rowErrors } = parseTemperatureCsv(rows.join('\n'), reported);
+    expect(rowErrors).toEqual([{ file: 'reported', row: 3, message: 'k of student "T-05" names no run: the label "50 °C" is not a point given as readings' }]);
+    const [submission] = submissions as Array<{ points: Array<{ label: string; temperature: unknown; run: { timeUnit: string; readings: unknown[]; infinity: number; reported?: unknown } }> }>;
+    expect(submission.points.map((p) => [p.label, p.temperature, p.run.timeUnit, p.run.readings.length, p.run.infinity])).toEqual([
+      ['20 °C', { value: 20, unit: 'degC' }, 'min', 5, 5],
+      ['30 °C', { value: 30, unit: 'degC' }, 'min', 5, 5],
+      ['40 °C', { value: 40, unit: 'degC' }, 'min', 5, 5],
+    ]);
+    expect(submission.points[1].run.reported).toEqual({ k: { value: '0.1000', unit: 'min^-1' } });
+    const assignment = parseAssignment({ kind: 'temperature-dependence' });
+    expect(checkSubmission(assignment, submission).status).toBe('checked');
   });
 });
