@@ -1,6 +1,7 @@
 import type { Point, Submission } from '../../schemas/kinds/temperature-dependence.ts';
 import { fitLine } from '../engine/linear-fit.ts';
-import { BOLTZMANN, GAS_CONSTANT, PLANCK } from '../engine/physical-constants.ts';
+import { GAS_CONSTANT, LN_KB_OVER_H } from '../engine/physical-constants.ts';
+import { ZERO_CELSIUS_K } from '../engine/temperature.ts';
 import { gaussian } from './seeded-random.ts';
 
 /**
@@ -26,8 +27,6 @@ export const slipPlace: Record<TemperatureSlip, string> = {
 };
 
 const CELSIUS = [15, 20, 25, 30, 35, 40];
-const ZERO_C = 273.15;
-const LN_KB_OVER_H = Math.log(BOLTZMANN / PLANCK);
 
 export function temperatureSubmission(random: () => number, studentId: string, slip?: TemperatureSlip): Submission {
   const uniform = (low: number, high: number) => low + (high - low) * random();
@@ -39,16 +38,16 @@ export function temperatureSubmission(random: () => number, studentId: string, s
   // For the time-unit slip the rate constants are handed in per minute, as a timer in minutes gives them.
   const perMinute = slip === 'time-unit';
   const points: Point[] = CELSIUS.map((c) => {
-    const k = A * Math.exp(-Ea / (GAS_CONSTANT * (c + ZERO_C))) * (1 + noise * gaussian(random));
+    const k = A * Math.exp(-Ea / (GAS_CONSTANT * (c + ZERO_CELSIUS_K))) * (1 + noise * gaussian(random));
     return {
       label: `${c} °C`,
-      temperature: inKelvin ? { value: c + ZERO_C, unit: 'K' } : { value: c, unit: 'degC' },
+      temperature: inKelvin ? { value: c + ZERO_CELSIUS_K, unit: 'K' } : { value: c, unit: 'degC' },
       k: { value: Number((perMinute ? k * 60 : k).toPrecision(4)), unit: perMinute ? 'min^-1' : 's^-1' },
     };
   });
 
   // The student's own work, from the rate constants as written.
-  const T = CELSIUS.map((c) => (slip === 'temperature-scale' ? c : c + ZERO_C));
+  const T = CELSIUS.map((c) => (slip === 'temperature-scale' ? c : c + ZERO_CELSIUS_K));
   const kPerSecond = points.map((p) => Number(p.k!.value) / (perMinute ? 60 : 1));
   const x = T.map((t) => (slip === 'reciprocal-scale' ? 1000 : 1) / t);
   const lnOf = slip === 'log-base' ? Math.log10 : Math.log;

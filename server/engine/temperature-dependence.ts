@@ -1,7 +1,7 @@
 import { EngineError } from './engine-error.ts';
 import type { Estimate } from './estimate.ts';
 import { fitLine, type LineFit } from './linear-fit.ts';
-import { BOLTZMANN, GAS_CONSTANT, PLANCK } from './physical-constants.ts';
+import { GAS_CONSTANT, LN_KB_OVER_H } from './physical-constants.ts';
 
 /**
  * Rate constants at several temperatures. Arrhenius: ln k = ln A - Ea/(R T), so ln k against 1/T has
@@ -30,9 +30,6 @@ export interface EyringFit {
   dS: Estimate;
   line: LineFit;
 }
-
-// ln(k_B/h) in ln(s^-1 K^-1), from the exact SI constants: 23.75998...
-const LN_KB_OVER_H = Math.log(BOLTZMANN / PLANCK);
 
 function lineOf(points: TemperaturePoint[], y: (p: TemperaturePoint) => number, weighted: boolean): LineFit {
   points.forEach((p, i) => {

@@ -1,7 +1,7 @@
 import type { Point, PointRun, Settings } from '../../../schemas/kinds/temperature-dependence.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
-import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { GAS_CONSTANT, LN_KB_OVER_H } from '../../engine/physical-constants.ts';
 import { fitFirstOrderLinear } from '../../engine/first-order-linear.ts';
 import { fitFirstOrderNonlinear } from '../../engine/first-order-nonlinear.ts';
 import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../engine/temperature-dependence.ts';
@@ -32,9 +32,8 @@ export interface TemperatureAnalysis {
   slips: Partial<Record<string, Array<{ values: Partial<Activation>; detail: string }>>>;
 }
 
-// ln(k_B/h) and its log10 by mistake, in ln(s^-1 K^-1): 23.760 and 10.319 (from the exact SI constants).
-const LN_KB_OVER_H = Math.log(1.380649e-23 / 6.62607015e-34);
-const LOG10_KB_OVER_H = Math.log10(1.380649e-23 / 6.62607015e-34);
+// log10(k_B/h) = 10.319, used by mistake where ln(k_B/h) = 23.760 belongs.
+const LOG10_KB_OVER_H = LN_KB_OVER_H / Math.LN10;
 
 /** A point given as a run: our k in the run's own rate unit, and other right values (the ln F lines). */
 export interface RunK {
