@@ -63,3 +63,4 @@ export const FitModel = z.enum(['origin', 'intercept']);
 export const Band = z
   .object({ min: FiniteNumber, max: FiniteNumber, unit: UnitText })
   .refine((b) => b.min < b.max, 'min must be below max');
+export type Band = z.infer<typeof Band>;

@@ -1,5 +1,6 @@
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Refit, Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
+import { outsideBand } from '../reference-band.ts';
 import { firstOrderCauses } from './causes.ts';
 import { fitCatalysisLaw, type CatalysisFit } from '../../engine/catalysis-law.ts';
 import { EngineError } from '../../engine/engine-error.ts';
@@ -171,12 +172,10 @@ function checkPlausible(c: Constant, value: number, uncertainty: number | undefi
   const path = `reported.${c.name}`;
   const unit = settings.units[c.name];
   const warn = (message: string) => drafts.push({ code: 'implausible', path, stage: 'rate-law', severity: 'warning', charge: 0, reported: value, unit, message });
-  if (band) {
-    const inBand = convert(value, unit, band.unit);
-    if (inBand < band.min || inBand > band.max) {
-      warn(`${c.label} = ${fmt(inBand)} ${band.unit} lies outside the range expected for this experiment, ${fmt(band.min)} to ${fmt(band.max)} ${band.unit}. This may be right for your data, but it is worth checking the runs and the units.`);
-      return;
-    }
+  const outside = band && outsideBand(band, value, unit, { label: c.label, path, stage: 'rate-law', advice: 'This may be right for your data, but it is worth checking the runs and the units.' });
+  if (outside) {
+    drafts.push(outside);
+    return;
   }
   // 1.96: the two-sided 95 % normal quantile; the degrees of freedom behind a reported value are unknown.
   if (c.name === 'kN' && uncertainty !== undefined && value + 1.96 * uncertainty < 0) {

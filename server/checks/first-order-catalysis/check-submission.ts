@@ -12,8 +12,8 @@ import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, type RunAnalysis } from './run-analysis.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
-import { scoredResult } from '../scored-result.ts';
-import { itemPoints, rateLawGradable, rubricCounts } from './scoring.ts';
+import { itemPoints, scoredResult } from '../scored-result.ts';
+import { rateLawGradable, rubricCounts } from './scoring.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
 function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
@@ -62,7 +62,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
   checkRateLaw(submission, rateLaw, settings, drafts);
   checkSigFigs(submission, settings, drafts);
 
-  const findings = scoreFindings(drafts, (key) => itemPoints(settings, key), firstOrderCauses.systematic);
+  const findings = scoreFindings(drafts, (key) => itemPoints(settings.rubric, key), firstOrderCauses.systematic);
   const items = rubricCounts(settings, submission, { kRuns: undetermined.length, rateLaw: rateLawLeftOut });
   const refit: Refit = {
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),

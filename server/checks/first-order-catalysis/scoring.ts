@@ -4,12 +4,6 @@ import { convert } from '../../engine/units.ts';
 import type { Settings, Submission } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { RubricCount } from '../../../schemas/result.ts';
 
-/** The points a rubric item instance is worth: `k@runs[2]` is worth rubric.k. */
-export function itemPoints(settings: Settings, itemKey: string): number {
-  const item = itemKey.split('@')[0] as keyof Settings['rubric'];
-  return settings.rubric[item] ?? 0;
-}
-
 /** A straight line through k_obs against [catalyst] needs three runs at two concentrations or more. */
 export function rateLawGradable(submission: Submission): boolean {
   const inM = submission.runs.map((run) => {

@@ -6,9 +6,9 @@ import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkRounding } from '../sig-figs.ts';
 import { checkValue } from '../check-value.ts';
-import { fmt } from '../format.ts';
+import { outsideBand } from '../reference-band.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
-import { scoredResult } from '../scored-result.ts';
+import { itemPoints, scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
@@ -52,7 +52,7 @@ function slipCandidates(analysis: TemperatureAnalysis, q: keyof Activation, unit
     (variants ?? []).flatMap(({ values, detail }) =>
       // Computed exactly from the data, a slip's value beats a scaling that only lands within tolerance
       // (an absolute tolerance on a ΔS‡ near zero lets many scalings land there).
-      values[q] === undefined ? [] : [{ value: convert(values[q]!, q === 'EaSE' ? 'J mol^-1' : QUANTITIES[q].base, unit), causes: [code], basis: `the value with ${detail}`, detail, closestWins: true }],
+      values[q] === undefined ? [] : [{ value: convert(values[q]!, QUANTITIES[q === 'EaSE' ? 'Ea' : q].base, unit), causes: [code], basis: `the value with ${detail}`, detail, closestWins: true }],
     ),
   );
 }
@@ -78,19 +78,8 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   // A value already found wrong needs no second warning about its size.
   const band = settings.reference?.[q];
   if (band && (outcome.kind === 'right' || outcome.kind === 'carried-forward')) {
-    const inBand = convert(read.value, unit, band.unit);
-    if (inBand < band.min || inBand > band.max) {
-      drafts.push({
-        code: 'implausible',
-        path,
-        stage,
-        severity: 'warning',
-        charge: 0,
-        reported: read.value,
-        unit,
-        message: `${label} = ${fmt(inBand)} ${band.unit} lies outside the range expected for this experiment, ${fmt(band.min)} to ${fmt(band.max)} ${band.unit}. It agrees with the refit of your data, so this may be right; it is worth checking the temperatures and the rate constants.`,
-      });
-    }
+    const outside = outsideBand(band, read.value, unit, { label, path, stage, advice: 'It agrees with the refit of your data, so this may be right; it is worth checking the temperatures and the rate constants.' });
+    if (outside) drafts.push(outside);
   }
   if (q !== 'Ea' || settings.rubric.EaUncertainty === 0) return;
   if (read.uncertainty === undefined) {
@@ -108,7 +97,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       reported: read.uncertainty,
       unit,
       expected: ours.standardError,
-      carriedForward: theirs && { value: convert(theirs.EaSE, 'J mol^-1', unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
+      carriedForward: theirs && { value: convert(theirs.EaSE, QUANTITIES.Ea.base, unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
       slips: () => slipCandidates(analysis, 'EaSE', unit),
       factors: FACTORS.Ea.filter((f) => f !== SIGN),
       causes: temperatureCauses,
@@ -128,11 +117,6 @@ export function rubricCounts(settings: Settings, submission: Pick<Submission, 'p
   });
 }
 
-/** What one instance of an item is worth: `k@points[2]` is one run's k. */
-function itemPoints(settings: Settings, key: string): number {
-  return settings.rubric[key.split('@')[0] as keyof Settings['rubric']] ?? 0;
-}
-
 export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analysis = analyseTemperatures(settings, submission.points);
   const drafts: DraftFinding[] = [];
@@ -149,7 +133,7 @@ export function checkTemperatureDependence(settings: Settings, submission: Submi
     settings.rubric.sigFigs,
     drafts,
   );
-  const findings = scoreFindings(drafts, (key) => itemPoints(settings, key), temperatureCauses.systematic);
+  const findings = scoreFindings(drafts, (key) => itemPoints(settings.rubric, key), temperatureCauses.systematic);
   const refit = {
     Ea: analysis.Ea,
     A: analysis.A,
