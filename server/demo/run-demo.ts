@@ -8,6 +8,7 @@ import type { Config } from '../config.ts';
 import { openStore } from '../store/connection.ts';
 import { migrateToLatest } from '../store/migrate.ts';
 import { seededRandom } from './seeded-random.ts';
+import { TABLE_HEADER, tableRows } from './demo-table.ts';
 import { generateSection } from './generated-section.ts';
 import { writeSectionDocuments } from './section-documents.ts';
 import { temperatureDemo } from './temperature-demo.ts';
@@ -60,20 +61,15 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     const secondKind = await temperatureDemo(api, store.db, place, outDir);
 
     write(`${INVENTED_NOTE}`);
-    write('student  score   slips made (generated)        codes found');
-    for (const input of inputs) {
-      const r = input.result;
-      const codes = [...new Set(r.findings.filter((f) => f.severity !== 'info').map((f) => f.code))].join(', ') || '-';
-      const made = (slipped.get(r.studentId!) ?? []).join(', ') || '-';
-      write(`${r.studentId!.padEnd(8)} ${`${r.score}/${r.maxScore}`.padEnd(7)} ${made.padEnd(29)} ${codes}`);
-    }
+    write(TABLE_HEADER);
+    for (const row of tableRows(inputs.map((i) => i.result), (id) => slipped.get(id) ?? [])) write(row);
     for (const input of inputs) {
       const signals = input.result.signals ?? [];
       if (signals.length) write(`signals for review, ${input.result.studentId}: ${signals.map((x) => `${x.code} (${x.path})`).join(', ')}`);
     }
     write(`\nSecond assignment (temperature-dependence): activation energy from rate constants at six temperatures`);
-    write('student  score   slips made (generated)        codes found');
-    for (const line of secondKind) write(line);
+    write(TABLE_HEADER);
+    for (const row of secondKind) write(row);
     write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/, and those of the second assignment to ${outDir}/temperature-dependence/`);
     write(`the demo database stays in ${dataDir}. To open the workspace on it:`);
     write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with the TA token`);

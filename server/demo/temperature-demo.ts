@@ -1,6 +1,7 @@
 import { join } from 'node:path';
 import type { Kysely } from 'kysely';
 import type { Database } from '../store/database.ts';
+import { tableRows } from './demo-table.ts';
 import { writeSectionDocuments } from './section-documents.ts';
 import { seededRandom } from './seeded-random.ts';
 import { temperatureSlips, temperatureSubmission } from './temperature-generator.ts';
@@ -21,17 +22,14 @@ export async function temperatureDemo(
   const title = 'Activation energy from rate constants at six temperatures (invented scenario)';
   const assignment = await api('POST', `/v1/courses/${place.courseId}/assignments`, place.instructorToken, { title, settings: { kind: 'temperature-dependence' } });
   const random = seededRandom(20261203);
-  const made = new Map<string, string>();
+  const made = new Map<string, string[]>();
   const submissions = place.ids.map((id, i) => {
     const slip = i % 3 === 2 ? temperatureSlips[Math.floor(i / 3) % temperatureSlips.length] : undefined;
-    if (slip) made.set(id, slip);
+    if (slip) made.set(id, [slip]);
     return temperatureSubmission(random, id, slip);
   });
   await api('POST', `/v1/sections/${place.sectionId}/assignments/${assignment.id}/submissions`, place.taToken, submissions);
 
   const inputs = await writeSectionDocuments(db, { courseName: place.courseName, sectionName: place.sectionName, sectionId: place.sectionId, assignmentId: assignment.id, title }, join(outDir, 'temperature-dependence'));
-  return inputs.map(({ result: r }) => {
-    const codes = [...new Set(r.findings.filter((f) => f.severity !== 'info').map((f) => f.code))].join(', ') || '-';
-    return `${r.studentId!.padEnd(8)} ${`${r.score}/${r.maxScore}`.padEnd(7)} ${(made.get(r.studentId!) ?? '-').padEnd(29)} ${codes}`;
-  });
+  return tableRows(inputs.map((i) => i.result), (id) => made.get(id) ?? []);
 }
