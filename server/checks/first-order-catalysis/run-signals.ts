@@ -58,7 +58,7 @@ export const END_VALUE_OWN_K_SHARE = 0.2;
 function endValue(a: RunAnalysis): Signal | undefined {
   const own = a.ownEndValue;
   const recorded = a.infinity;
-  if (!own || !a.exponential || recorded === undefined || own === a.exponential || own.dof < 2) return undefined;
+  if (!own || !a.exponential || recorded === undefined || own.dof < 2) return undefined;
   if (!(own.k.value > 0 && own.k.standardError < END_VALUE_OWN_K_SHARE * own.k.value)) return undefined;
   const fitted = own.infinity;
   const t = (fitted.value - recorded) / Math.hypot(fitted.standardError, own.residualSD);
