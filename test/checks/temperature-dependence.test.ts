@@ -148,3 +148,13 @@ describe('temperature dependence: reference bands', () => {
   });
 });
 
+describe('temperature dependence: data the fit cannot use', () => {
+  it('names the field: a measured k without its uncertainty in a weighted fit, and a k below zero', () => {
+    const measured = celsius.slice(0, 3).map((t, i) => ({ label: `${t} °C`, temperature: { value: t, unit: 'degC' }, k: { value: ks[i], ...(i === 1 ? {} : { uncertainty: ks[i] / 100 }), unit: 's^-1' } }));
+    const weighted = parseAssignment({ kind: 'temperature-dependence', fit: 'weighted' });
+    expect(checkSubmission(weighted, { studentId: 'T-04', points: measured }).rejected).toEqual([{ path: 'points[1].k.uncertainty', message: 'point 1 has no standard error for a weighted fit' }]);
+    const negative = measured.map((p, i) => (i === 2 ? { ...p, k: { value: -ks[2], unit: 's^-1' } } : p));
+    expect(checkSubmission(assignment, { studentId: 'T-04', points: negative }).rejected).toEqual([{ path: 'points[2].k.value', message: `point 2 has k = ${-ks[2]}` }]);
+  });
+});
+

@@ -97,6 +97,16 @@ export function activationOf(points: TemperaturePoint[], weighted: boolean): Act
   }
 }
 
+/** Where in the submission the fit's complaint about a point (its k, SE or temperature) lies. */
+function pointPath(field: string | undefined, input: Point[]): string {
+  const m = /^points\[(\d+)\]\.(k|standardError|temperature)$/.exec(field ?? '');
+  if (!m) return 'points';
+  const i = Number(m[1]);
+  // A run's k and SE come from its readings.
+  const place = m[2] === 'temperature' ? 'temperature.value' : input[i]?.run ? 'run.readings' : m[2] === 'k' ? 'k.value' : 'k.uncertainty';
+  return `points[${i}].${place}`;
+}
+
 export function analyseTemperatures(settings: Settings, input: Point[]): TemperatureAnalysis {
   const { points, runs } = pointsOf(input);
   const weighted = settings.fit === 'weighted';
@@ -105,7 +115,7 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
     arrhenius = fitArrhenius(points, { kUnit: 's^-1', weighted });
     eyring = fitEyring(points, { weighted });
   } catch (error) {
-    if (error instanceof EngineError) throw new InputRejected([{ path: error.field ? error.field.replace('standardError', 'k.uncertainty').replace('.k', '.k.value') : 'points', message: error.message }]);
+    if (error instanceof EngineError) throw new InputRejected([{ path: pointPath(error.field, input), message: error.message }]);
     throw error;
   }
   const R = GAS_CONSTANT;
