@@ -4,8 +4,8 @@ import { prettyUnit } from '../format.ts';
 import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
 import { SPREAD_COLUMNS, spreadCells } from '../summary/spread-table.ts';
+import { SYMBOLS } from './symbols.ts';
 
-const SYMBOLS = { Ea: 'E_{a}', dH: 'ΔH^{‡}', dS: 'ΔS^{‡}' } as const;
 
 /** The class's refitted E_a, ΔH‡ and ΔS‡: how far apart the students' own data put them. */
 export function drawClassActivation(doc: Doc, input: SectionSummaryInput): void {
@@ -13,6 +13,6 @@ export function drawClassActivation(doc: Doc, input: SectionSummaryInput): void 
   if (refits.length === 0) return;
   sectionHeading(doc, 'The class’s activation parameters', 120);
   paragraph(doc, 'Refit: our fit of each student’s own rate constants. SD is the sample standard deviation.');
-  const rows = (Object.keys(SYMBOLS) as Array<keyof typeof SYMBOLS>).map((q) => [SYMBOLS[q], prettyUnit(refits[0][q].unit), ...spreadCells(refits.map((r) => r[q].value))]);
+  const rows = (['Ea', 'dH', 'dS'] as const).map((q) => [SYMBOLS[q], prettyUnit(refits[0][q].unit), ...spreadCells(refits.map((r) => r[q].value))]);
   drawTable(doc, [{ header: '', weight: 0.6 }, { header: 'Unit', weight: 1.3 }, ...SPREAD_COLUMNS], rows, { zebra: true, keepRows: rows.length });
 }

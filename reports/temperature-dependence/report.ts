@@ -5,18 +5,15 @@ import type { KindReport } from '../kind-report.ts';
 import { rubricLinesOf } from '../feedback/rubric-breakdown.ts';
 import { drawArrheniusPlot } from './arrhenius-plot.ts';
 import { drawClassActivation } from './class-activation.ts';
+import { SYMBOLS } from './symbols.ts';
 import { paragraph, sectionHeading } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 
-const SYMBOLS = { Ea: 'E_{a}', A: 'A', dH: 'ΔH^{‡}', dS: 'ΔS^{‡}' } as const;
 const RUBRIC_LABELS: Record<keyof Settings['rubric'], string> = {
   k: 'k of each run',
-  Ea: 'E_{a}',
-  EaUncertainty: 'Standard error of E_{a}',
-  A: 'A',
-  dH: 'ΔH^{‡}',
-  dS: 'ΔS^{‡}',
+  ...SYMBOLS,
+  EaUncertainty: `Standard error of ${SYMBOLS.Ea}`,
   sigFigs: 'Significant figures',
 };
 
