@@ -81,22 +81,22 @@ export function explain(
   closeTolerance = tolerance,
 ): Expanded | undefined {
   let best: Expanded | undefined;
-  // A long-shot base and every scaling of it must match within the closer band.
-  const consider = (b: Candidate, value: number, make: () => Expanded) => {
-    if (!Number.isFinite(value) || !withinTolerance(reported, value, b.longShot ? closeTolerance : tolerance)) return;
-    const c = make();
+  const offer = (b: Candidate, value: number, causes: string[], says: string[]) => {
+    // Fields named one by one: a candidate may be a class whose words are a getter.
+    const c: Expanded = { value, causes, detail: b.detail, basis: b.basis, closestWins: b.closestWins, longShot: b.longShot, root: b.value, says };
     if (!best || better(c, best, reported, vocabulary.priority)) best = c;
   };
   const sign = factors.find((f) => f.cause === 'sign-flipped');
   for (const b of bases) {
-    consider(b, b.value, () => ({ ...b, root: b.value, says: [] }));
+    // A long-shot base and every scaling of it must match within the closer band.
+    const band = b.longShot ? closeTolerance : tolerance;
+    const matches = (value: number) => Number.isFinite(value) && withinTolerance(reported, value, band);
+    if (matches(b.value)) offer(b, b.value, b.causes, []);
     for (const f of factors) {
       if (b.causes.length > 0 && !vocabulary.joinMethodSlips.has(f.cause)) continue;
       const scaled = b.value * f.factor;
-      consider(b, scaled, () => ({ ...b, root: b.value, value: scaled, causes: [...b.causes, f.cause], says: [f.says] }));
-      if (sign && f !== sign && b.causes.length === 0) {
-        consider(b, -scaled, () => ({ ...b, root: b.value, value: -scaled, causes: [sign.cause, f.cause], says: [sign.says, f.says] }));
-      }
+      if (matches(scaled)) offer(b, scaled, [...b.causes, f.cause], [f.says]);
+      if (sign && f !== sign && b.causes.length === 0 && matches(-scaled)) offer(b, -scaled, [sign.cause, f.cause], [sign.says, f.says]);
     }
   }
   return best;

@@ -75,14 +75,14 @@ function weightsOf(sigma: ArrayLike<number> | undefined): Weights {
   return w;
 }
 
-function weightedMean(v: ArrayLike<number>, w: Weights, sumW: number): number {
+function weightedMean(v: ArrayLike<number>, n: number, w: Weights, sumW: number): number {
   let m = 0;
-  for (let i = 0; i < v.length; i++) m += (w ? w[i] : 1) * v[i];
+  for (let i = 0; i < n; i++) m += (w ? w[i] : 1) * v[i];
   m /= sumW;
   // One correction pass: the mean of the deviations from the first estimate restores the digits
   // lost when the values share a large common part.
   let c = 0;
-  for (let i = 0; i < v.length; i++) c += (w ? w[i] : 1) * (v[i] - m);
+  for (let i = 0; i < n; i++) c += (w ? w[i] : 1) * (v[i] - m);
   return m + c / sumW;
 }
 
@@ -90,18 +90,26 @@ function interval(value: number, se: number, t: number): [number, number] {
   return [value - t * se, value + t * se];
 }
 
-export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: LineFitOptions = {}): LineFit {
-  const { sigma } = options;
-  checkInput(x, y, sigma);
-  const n = x.length;
-  const w = weightsOf(sigma);
+/** The sums a fit is read from; for the origin model the means are zero and sumW is unused. */
+interface LineSums {
+  sumW: number;
+  xm: number;
+  ym: number;
+  sxx: number;
+  syy: number;
+  slope: number;
+  sse: number;
+}
+
+/** The first n points' fit with an intercept, without allocating: slip searches run thousands. */
+function interceptSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: Weights): LineSums {
   let sumW = n;
   if (w) {
     sumW = 0;
     for (let i = 0; i < n; i++) sumW += w[i];
   }
-  const xm = weightedMean(x, w, sumW);
-  const ym = weightedMean(y, w, sumW);
+  const xm = weightedMean(x, n, w, sumW);
+  const ym = weightedMean(y, n, w, sumW);
   let sxx = 0;
   let sxy = 0;
   let syy = 0;
@@ -117,15 +125,48 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: Lin
     throw new EngineError('degenerate-x', 'all x values are equal, so no slope can be fitted', 'x');
   }
   const slope = sxy / sxx;
-  const intercept = ym - slope * xm;
-  const residuals = new Array<number>(n);
   let sse = 0;
   for (let i = 0; i < n; i++) {
     const r = y[i] - ym - slope * (x[i] - xm);
-    residuals[i] = r;
     sse += (w ? w[i] : 1) * r * r;
   }
-  const dof = n - 2;
+  return { sumW, xm, ym, sxx, syy, slope, sse };
+}
+
+function originSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: Weights): LineSums {
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  for (let i = 0; i < n; i++) {
+    const wi = w ? w[i] : 1;
+    sxx += wi * x[i] * x[i];
+    sxy += wi * x[i] * y[i];
+    syy += wi * y[i] * y[i];
+  }
+  if (!(sxx > 0)) {
+    throw new EngineError('degenerate-x', 'all x values are zero, so no slope through the origin can be fitted', 'x');
+  }
+  const slope = sxy / sxx;
+  let sse = 0;
+  for (let i = 0; i < n; i++) {
+    const r = y[i] - slope * x[i];
+    sse += (w ? w[i] : 1) * r * r;
+  }
+  return { sumW: n, xm: 0, ym: 0, sxx, syy, slope, sse };
+}
+
+const dofOf = (model: LineModel, n: number) => (model === 'origin' ? n - 1 : n - 2);
+
+export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: LineFitOptions = {}): LineFit {
+  const { sigma } = options;
+  checkInput(x, y, sigma);
+  const n = x.length;
+  const w = weightsOf(sigma);
+  const { sumW, xm, ym, sxx, syy, slope, sse } = interceptSums(x, y, n, w);
+  const intercept = ym - slope * xm;
+  const residuals = new Array<number>(n);
+  for (let i = 0; i < n; i++) residuals[i] = y[i] - ym - slope * (x[i] - xm);
+  const dof = dofOf('intercept', n);
   const reducedChiSquared = sse / dof;
   const weighted = sigma !== undefined;
   const scale = weighted && !options.scaleByResidual ? 1 : reducedChiSquared;
@@ -157,27 +198,10 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, opt
   checkInput(x, y, sigma);
   const n = x.length;
   const w = weightsOf(sigma);
-  let sxx = 0;
-  let sxy = 0;
-  let syy = 0;
-  for (let i = 0; i < n; i++) {
-    const wi = w ? w[i] : 1;
-    sxx += wi * x[i] * x[i];
-    sxy += wi * x[i] * y[i];
-    syy += wi * y[i] * y[i];
-  }
-  if (!(sxx > 0)) {
-    throw new EngineError('degenerate-x', 'all x values are zero, so no slope through the origin can be fitted', 'x');
-  }
-  const slope = sxy / sxx;
+  const { sxx, syy, slope, sse } = originSums(x, y, n, w);
   const residuals = new Array<number>(n);
-  let sse = 0;
-  for (let i = 0; i < n; i++) {
-    const r = y[i] - slope * x[i];
-    residuals[i] = r;
-    sse += (w ? w[i] : 1) * r * r;
-  }
-  const dof = n - 1;
+  for (let i = 0; i < n; i++) residuals[i] = y[i] - slope * x[i];
+  const dof = dofOf('origin', n);
   const reducedChiSquared = sse / dof;
   const weighted = sigma !== undefined;
   const scale = weighted && !options.scaleByResidual ? 1 : reducedChiSquared;
@@ -189,8 +213,8 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, opt
     dof,
     intercept: 0,
     slope,
-    seIntercept: 0,
     seSlope,
+    seIntercept: 0,
     covInterceptSlope: 0,
     residualSD: Math.sqrt(reducedChiSquared),
     rSquared: syy > 0 ? 1 - sse / syy : 1,
@@ -199,6 +223,18 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, opt
     ci95: { intercept: [0, 0], slope: interval(slope, seSlope, t) },
     residuals,
   };
+}
+
+/**
+ * The ordinary fit's slope and its standard error alone, from the first `n` points of x and y (finite,
+ * as the caller guarantees): the same numbers as the full fit, for searches that try many data sets.
+ */
+export function slopeOnly(model: LineModel, x: ArrayLike<number>, y: ArrayLike<number>, n: number): { slope: number; seSlope: number } {
+  if (n < MIN_POINTS) {
+    throw new EngineError('too-few-points', `a fit needs at least ${MIN_POINTS} points, got ${n}`, 'x');
+  }
+  const { sxx, slope, sse } = model === 'origin' ? originSums(x, y, n, undefined) : interceptSums(x, y, n, undefined);
+  return { slope, seSlope: Math.sqrt(sse / dofOf(model, n) / sxx) };
 }
 
 export function fitLineModel(model: LineModel, x: ArrayLike<number>, y: ArrayLike<number>, options?: LineFitOptions): LineFit {

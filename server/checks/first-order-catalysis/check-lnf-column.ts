@@ -8,7 +8,7 @@ import { LN10 } from '../explain.ts';
 import { fmt } from '../format.ts';
 import { withinTolerance } from '../tolerance.ts';
 import type { RunAnalysis } from './run-analysis.ts';
-import { infinityAlternatives, lnFWith } from './slip-values.ts';
+import { infinityAlternatives, lnFWith, type InfinityAlternative } from './slip-values.ts';
 
 /** The student's ln F column as numbers (NaN where blank), and whether a slip made it differ from ours. */
 export interface LnFColumn {
@@ -16,37 +16,57 @@ export interface LnFColumn {
   wrong: boolean;
 }
 
-interface ColumnVariant {
-  values: number[];
-  causes: FindingCode[];
-  detail?: string;
+/** A column a slip makes: a base column (ours, or with another x_inf), its sign flipped or not, over 1 or ln 10. */
+interface Scaling {
+  sign: 1 | -1;
+  divisor: number;
 }
+
+interface ColumnVariant extends Scaling {
+  base: number[];
+  causes: FindingCode[];
+  alternative?: InfinityAlternative;
+}
+
+// Both slips at once only on our own column: three causes are past what a finding names.
+const SCALINGS: Array<Scaling & { causes: FindingCode[]; alone?: true }> = [
+  { sign: 1, divisor: 1, causes: [] },
+  { sign: 1, divisor: LN10, causes: ['log-base'] },
+  { sign: -1, divisor: 1, causes: ['sign-flipped'] },
+  { sign: -1, divisor: LN10, causes: ['sign-flipped', 'log-base'], alone: true },
+];
+
+const scaled = (v: number, s: Scaling) => (s.sign * v) / s.divisor;
 
 /** Columns a student gets by the common slips: log10, a flipped sign, another x_inf, and pairs of them. */
 function variants(a: RunAnalysis, all: RunAnalysis[]): ColumnVariant[] {
-  const ours = a.transform!.lnF;
-  const bases: ColumnVariant[] = [{ values: ours, causes: [] }];
-  for (const alt of infinityAlternatives(a, all)) bases.push({ values: lnFWith(a, alt.value), causes: ['wrong-infinity'], detail: alt.detail });
-  const out: ColumnVariant[] = [];
-  for (const b of bases) {
-    out.push(b);
-    out.push({ ...b, values: b.values.map((v) => v / LN10), causes: [...b.causes, 'log-base'] });
-    out.push({ ...b, values: b.values.map((v) => -v), causes: [...b.causes, 'sign-flipped'] });
-    if (b.causes.length === 0) out.push({ ...b, values: b.values.map((v) => -v / LN10), causes: ['sign-flipped', 'log-base'] });
-  }
-  return out;
-}
-
-/** Every entry the student filled matches the variant (a blank only where the variant is undefined too). */
-function matches(student: number[], variant: number[], settings: Settings): boolean {
-  return student.every((s, i) =>
-    Number.isNaN(s) ? !Number.isFinite(variant[i]) || i === 0 : Number.isFinite(variant[i]) && withinTolerance(s, variant[i], settings.tolerances.lnF),
+  const bases: Array<{ base: number[]; alternative?: InfinityAlternative }> = [{ base: a.transform!.lnF }];
+  for (const alternative of infinityAlternatives(a, all)) bases.push({ base: lnFWith(a, alternative.value), alternative });
+  return bases.flatMap(({ base, alternative }) =>
+    SCALINGS.filter((s) => !(s.alone && alternative)).map((s) => ({
+      base,
+      sign: s.sign,
+      divisor: s.divisor,
+      causes: alternative ? ['wrong-infinity' as const, ...s.causes] : s.causes,
+      alternative,
+    })),
   );
 }
 
+/** Every entry the student filled matches the variant (a blank only where the variant is undefined too). */
+function matches(student: number[], variant: number[], scaling: Scaling, settings: Settings): boolean {
+  return student.every((s, i) => {
+    const v = scaled(variant[i], scaling);
+    return Number.isNaN(s) ? !Number.isFinite(v) || i === 0 : Number.isFinite(v) && withinTolerance(s, v, settings.tolerances.lnF);
+  });
+}
+
 /** Sum of squared differences over the entries both columns have. */
-function distance(student: number[], variant: number[]): number {
-  return student.reduce((sum, s, i) => (Number.isFinite(s) && Number.isFinite(variant[i]) ? sum + (s - variant[i]) ** 2 : sum), 0);
+function distance(student: number[], variant: ColumnVariant): number {
+  return student.reduce((sum, s, i) => {
+    const v = scaled(variant.base[i], variant);
+    return Number.isFinite(s) && Number.isFinite(v) ? sum + (s - v) ** 2 : sum;
+  }, 0);
 }
 
 export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): LnFColumn | undefined {
@@ -77,20 +97,21 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
   const values = column.map((v) => (v === null ? Number.NaN : Number(v)));
   const ours = a.transform.lnF;
   // Most columns are right: the slip variants are made only for one that is not.
-  if (matches(values, ours, settings)) return { values, wrong: false };
+  if (matches(values, ours, SCALINGS[0], settings)) return { values, wrong: false };
   // The fewest causes, then the closest column: x_inf variants a few thousandths apart can both pass.
   const found = variants(a, all)
-    .filter((v) => matches(values, v.values, settings))
-    .sort((x, y) => x.causes.length - y.causes.length || distance(values, x.values) - distance(values, y.values))[0];
+    .filter((v) => matches(values, v.base, v, settings))
+    .sort((x, y) => x.causes.length - y.causes.length || distance(values, x) - distance(values, y))[0];
   if (found && found.causes.length === 0) return { values, wrong: false };
   if (found) {
     const [code, ...also] = found.causes;
+    const detail = found.alternative?.detail;
     const j = values.findIndex((v, i) => i > 0 && Number.isFinite(v));
     drafts.push({
       ...common,
       code,
       alsoCodes: also.length ? also : undefined,
-      detail: found.detail,
+      detail,
       path,
       reported: values[j],
       expected: ours[j],
@@ -98,7 +119,7 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
       charge: points,
       message:
         `The ln F column of run "${a.label}" differs from ln F computed from your readings throughout ` +
-        `(at t = ${fmt(a.times[j])}: ${fmt(values[j])} against ${fmt(ours[j])}). ${likelyCause(firstOrderCauses, found.causes, found.detail ? [found.detail] : [])}`,
+        `(at t = ${fmt(a.times[j])}: ${fmt(values[j])} against ${fmt(ours[j])}). ${likelyCause(firstOrderCauses, found.causes, detail ? [detail] : [])}`,
     });
     return { values, wrong: true };
   }

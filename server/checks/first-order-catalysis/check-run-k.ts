@@ -134,7 +134,7 @@ function checkUncertainty(
   }
   // Judge the uncertainty against the fit the value came from, so one slip is not named twice.
   const by = kOutcome.kind === 'explained' ? kOutcome.by : undefined;
-  const byK = by && slips.slipSEs().find((s) => s.detail === by.detail && s.causes.every((c) => by.causes.includes(c)));
+  const byK = by && slips.slipSEs().find((s) => s.causes.every((c) => by.causes.includes(c)) && s.detail === by.detail);
   const expected = a.expected.standardError;
   const line = a.asked;
   const spread: Candidate[] = line

@@ -1,5 +1,5 @@
 import { EngineError } from '../../engine/engine-error.ts';
-import { fitLine, fitThroughOrigin, type LineModel } from '../../engine/linear-fit.ts';
+import { slopeOnly, type LineModel } from '../../engine/linear-fit.ts';
 import type { Candidate } from '../explain.ts';
 import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
 import { fmt } from '../format.ts';
@@ -31,11 +31,29 @@ const COPY_SLIP_SAYS: Record<SlipKind, string> = {
   'sign-lost': 'with its sign reversed',
 };
 
-export interface InfinityAlternative {
-  value: number;
-  detail: string;
-  /** One of dozens of copying variants: named only on a close match (see `Candidate.longShot`). */
-  longShot: boolean;
+/** Where an alternative x_inf comes from, kept to put it in words only when a finding names it. */
+type AlternativeSource = { from: 'last-reading' } | { from: 'run'; label: string } | { from: 'copy'; recorded: number; slip: SlipKind };
+
+export class InfinityAlternative {
+  private said: string | undefined;
+  constructor(
+    readonly value: number,
+    /** One of dozens of copying variants: named only on a close match (see `Candidate.longShot`). */
+    readonly longShot: boolean,
+    private readonly source: AlternativeSource,
+  ) {}
+
+  /** The x_inf in words: dozens are tried for each run and almost none is named. */
+  get detail(): string {
+    return (this.said ??= this.describe());
+  }
+
+  private describe(): string {
+    const s = this.source;
+    if (s.from === 'last-reading') return `x_inf taken as the last reading, ${fmt(this.value)}`;
+    if (s.from === 'run') return `x_inf of run "${s.label}", ${fmt(this.value)}`;
+    return `x_inf taken as ${fmt(this.value)}, the recorded ${fmt(s.recorded)} ${COPY_SLIP_SAYS[s.slip]}`;
+  }
 }
 
 /**
@@ -48,27 +66,84 @@ export function infinityAlternatives(a: RunAnalysis, all: RunAnalysis[]): Infini
   const infinity = a.infinity;
   if (infinity === undefined) return [];
   const last = a.readings[a.readings.length - 1];
-  const out: InfinityAlternative[] = [{ value: last, detail: `x_inf taken as the last reading, ${fmt(last)}`, longShot: false }];
-  const add = (value: number, detail: string, longShot: boolean) => {
-    if (value !== infinity && !out.some((o) => o.value === value)) out.push({ value, detail, longShot });
+  const out = [new InfinityAlternative(last, false, { from: 'last-reading' })];
+  const seen = new Set([infinity, last]);
+  const add = (value: number, longShot: boolean, source: AlternativeSource) => {
+    if (!seen.has(value)) {
+      seen.add(value);
+      out.push(new InfinityAlternative(value, longShot, source));
+    }
   };
   for (const other of all) {
-    if (other.index !== a.index && other.infinity !== undefined) add(other.infinity, `x_inf of run "${other.label}", ${fmt(other.infinity)}`, false);
+    if (other.index !== a.index && other.infinity !== undefined) add(other.infinity, false, { from: 'run', label: other.label });
   }
   for (const copy of oneSlipCopies(infinity, decimalsOf(infinity))) {
-    add(copy.value, `x_inf taken as ${fmt(copy.value)}, the recorded ${fmt(infinity)} ${COPY_SLIP_SAYS[copy.kind]}`, copy.kind !== 'transposed-digits');
+    add(copy.value, copy.kind !== 'transposed-digits', { from: 'copy', recorded: infinity, slip: copy.kind });
   }
   return out;
 }
 
-function fitModel(model: LineModel, x: number[], y: number[]) {
-  return model === 'origin' ? fitThroughOrigin(x, y) : fitLine(x, y);
+const WRONG_INFINITY = ['wrong-infinity'];
+
+/** k or its SE from the refit with another x_inf: its words are read only if it explains a value. */
+class AlternativeFit implements Candidate {
+  readonly causes = WRONG_INFINITY;
+  constructor(
+    readonly value: number,
+    readonly basis: string,
+    readonly alternative: InfinityAlternative,
+    readonly longShot: boolean,
+  ) {}
+
+  get detail(): string {
+    return this.alternative.detail;
+  }
 }
 
-/** The asked model fitted to (t, ln F) pairs that are defined. */
-export function fitDefined(model: LineModel, t: number[], lnF: number[]) {
-  const keep = lnF.map((v, i) => (Number.isFinite(v) ? i : -1)).filter((i) => i >= 0);
-  return fitModel(model, keep.map((i) => t[i]), keep.map((i) => lnF[i]));
+// Scratch buffers for the defined (t, ln F) pairs: a slip search fits dozens of columns per run.
+let pairT = new Float64Array(64);
+let pairLnF = new Float64Array(64);
+
+function reserve(n: number): void {
+  if (pairT.length < n) {
+    pairT = new Float64Array(2 * n);
+    pairLnF = new Float64Array(2 * n);
+  }
+}
+
+/** Gathers the pairs whose ln F is defined into the scratch buffers; returns how many. */
+function definedPairs(t: ArrayLike<number>, lnF: ArrayLike<number>): number {
+  reserve(t.length);
+  let n = 0;
+  for (let i = 0; i < t.length; i++) {
+    if (Number.isFinite(lnF[i])) {
+      pairT[n] = t[i];
+      pairLnF[n++] = lnF[i];
+    }
+  }
+  return n;
+}
+
+/** The asked model fitted to the (t, ln F) pairs that are defined: slope and standard error. */
+export function fitDefined(model: LineModel, t: ArrayLike<number>, lnF: ArrayLike<number>): { slope: number; seSlope: number } {
+  const n = definedPairs(t, lnF);
+  return slopeOnly(model, pairT, pairLnF, n);
+}
+
+/** The same fit of the run's ln F made with another x_inf (as `lnFWith` makes it), without the column. */
+function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number, model: LineModel): { slope: number; seSlope: number } {
+  reserve(t.length);
+  const span = a.readings[0] - infinity;
+  let n = 0;
+  for (let i = 0; i < t.length; i++) {
+    const f = (a.readings[i] - infinity) / span;
+    const lnF = f > 0 ? Math.log(f) : Number.NaN;
+    if (Number.isFinite(lnF)) {
+      pairT[n] = t[i];
+      pairLnF[n++] = lnF;
+    }
+  }
+  return slopeOnly(model, pairT, pairLnF, n);
 }
 
 export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): SlipFit[] {
@@ -81,8 +156,8 @@ export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): 
     },
   ];
   // t regressed on ln F, the slope reported as if it were the slope of ln F on t.
-  const defined = lnF.map((_, i) => i).filter((i) => Number.isFinite(lnF[i]));
-  const swapped = fitModel(model, defined.map((i) => lnF[i]), defined.map((i) => t[i]));
+  const pairs = definedPairs(t, lnF);
+  const swapped = slopeOnly(model, pairLnF, pairT, pairs);
   out.push({
     k: { value: -swapped.slope, causes: ['swapped-axes'], basis: 'minus the slope of t against ln F' },
     se: { value: swapped.seSlope, causes: ['swapped-axes'], basis: 'the standard error of the slope of t against ln F' },
@@ -93,10 +168,10 @@ export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): 
   });
   for (const alt of infinityAlternatives(a, all)) {
     try {
-      const fit = fitDefined(model, t, lnFWith(a, alt.value));
+      const fit = fitWithInfinity(a, t, alt.value, model);
       out.push({
-        k: { value: -fit.slope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the refit with that x_inf', longShot: alt.longShot },
-        se: { value: fit.seSlope, causes: ['wrong-infinity'], detail: alt.detail, basis: 'the standard error of the refit with that x_inf' },
+        k: new AlternativeFit(-fit.slope, 'the refit with that x_inf', alt, alt.longShot),
+        se: new AlternativeFit(fit.seSlope, 'the standard error of the refit with that x_inf', alt, false),
       });
     } catch (error) {
       // Too few defined points with that x_inf: not a slip a student could have fitted either.
