@@ -132,9 +132,10 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
       message: `In run "${a.label}", row ${i + 1} repeats row ${i} exactly (t = ${t}, x = ${x}); it may have been copied twice. It was fitted as given.`,
     });
   }
-  // The run's own rate is a close start for the fit with x_inf free, and spares estimating one.
+  // The analysis has fitted all readings with x_inf free already; where that failed, the run's own rate
+  // is a close start for another try.
   const startK = a.expected.value > 0 ? a.expected.value : undefined;
-  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK });
+  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue });
   if (!suspect) return;
   const guess = suspect.intended
     ? ` It may have been meant as ${suspect.intended.value.toFixed(suspect.decimals)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`

@@ -40,6 +40,8 @@ interface Curve {
   timeUnit: string;
   /** A rate constant to start the fit of all readings from (the run's own); else one is estimated. */
   startK?: number;
+  /** The fit of all readings with x_inf fitted, where the caller has made it already. */
+  fitOfAll?: FirstOrderNonlinearFit;
 }
 
 /** The curve without reading `skip`, started from the rate of the fit of all where there is one. */
@@ -74,7 +76,7 @@ function mostSuspect(curve: Curve) {
   let tried = curve.readings.map((_, i) => i);
   let initialK: number | undefined;
   try {
-    const all = fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted', initialK: curve.startK });
+    const all = curve.fitOfAll ?? fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted', initialK: curve.startK });
     tried = tried.sort((a, b) => Math.abs(all.residuals[b]) - Math.abs(all.residuals[a])).slice(0, 3);
     if (!tried.some((i) => mightBeSuspect(all, i))) return undefined;
     initialK = all.k.value;
