@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { Band, FiniteNumber, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
+import { Band, FiniteNumber, withFastPath, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../common.ts';
 import { Estimate, RefitValue } from '../result.ts';
 
 /**
@@ -45,8 +45,27 @@ export type FindingCode = (typeof findingCodes)[number];
 
 const Reading = z.tuple([FiniteNumber, FiniteNumber]);
 
+const MAX_READINGS = 1000;
+const ReadingRows = z.array(Reading).min(3, 'at least 3 readings').max(MAX_READINGS).superRefine(timesInOrder);
+
+/** Rows of two finite numbers, times rising or a row repeated exactly: what ReadingRows takes unchanged. */
+function plainRows(value: unknown): boolean {
+  if (!Array.isArray(value) || value.length < 3 || value.length > MAX_READINGS) return false;
+  let tBefore = -Infinity;
+  let xBefore = Number.NaN;
+  for (const row of value) {
+    if (!Array.isArray(row) || row.length !== 2) return false;
+    const [t, x] = row as unknown[];
+    if (typeof t !== 'number' || typeof x !== 'number' || !Number.isFinite(t) || !Number.isFinite(x)) return false;
+    if (t < tBefore || (t === tBefore && x !== xBefore)) return false;
+    tBefore = t;
+    xBefore = x;
+  }
+  return true;
+}
+
 /** [t, x] pairs in time order; other kinds with first-order runs read them the same way. */
-export const Readings = z.array(Reading).min(3, 'at least 3 readings').max(1000).superRefine(timesInOrder);
+export const Readings = withFastPath(ReadingRows, plainRows);
 
 function timesInOrder(rows: Array<[number, number]>, ctx: z.RefinementCtx): void {
   for (let i = 1; i < rows.length; i++) {
