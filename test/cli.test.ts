@@ -232,6 +232,22 @@ describe('rateproof check: large files, worker threads and JSON Lines', () => {
     }
   });
 
+  it('names the column of a malformed submission in a large file written on one line, in a worker too', async () => {
+    const submissions = JSON.parse(await readFile(big, 'utf8')) as unknown[];
+    const oneLine = JSON.stringify(submissions);
+    // A doubled comma inside a submission about 80 % of the way in, well past the first batch.
+    const at = oneLine.indexOf(',"runs"', Math.floor(oneLine.length * 0.8));
+    const text = `${oneLine.slice(0, at)},${oneLine.slice(at)}`;
+    await writeFile(file('big-one-line.json'), text);
+    const whole = filePosition((caught(() => JSON.parse(text)) as Error).message, text);
+    expect(whole).toMatch(new RegExp(`at line 1 column ${at + 2}$`));
+    for (const workers of ['0', '2']) {
+      const result = await rateproof('check', '--assignment', bigAssignment, file('big-one-line.json'), '--json', '--workers', workers);
+      expect(result.code).toBe(2);
+      expect(result.stderr).toBe(`rateproof: cannot read ${file('big-one-line.json')}: ${whole}\n`);
+    }
+  });
+
   it.each([[['--json', '--jsonl']], [['--arrays']], [['--workers', 'many']]])('%j: usage on stderr, exit 2', async (flags) => {
     const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), ...flags);
     expect(result.code).toBe(2);

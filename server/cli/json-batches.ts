@@ -43,17 +43,16 @@ export function parseBatch(batch: JsonBatch, jsonLines: boolean): unknown[] {
       try {
         return [JSON.parse(line) as unknown];
       } catch (error) {
-        throw new JsonLayoutError(filePosition((error as Error).message, line, batch.line + i));
+        throw new JsonLayoutError(filePosition((error as Error).message, line, { line: batch.line + i, column: 1 }));
       }
     });
   }
-  // The opening bracket stands on a line of its own before the batch's first line, and spaces pad that
-  // line to the batch's column, so that positions in this text fall on the file's lines and columns.
-  const text = `[\n${' '.repeat(batch.column - 1)}${batch.text}]`;
+  const text = `[${batch.text}]`;
   try {
     return JSON.parse(text) as unknown[];
   } catch (error) {
-    throw new JsonLayoutError(filePosition((error as Error).message, text, batch.line - 1));
+    // The bracket added in front is no part of the file: positions after it count from the batch's start.
+    throw new JsonLayoutError(filePosition((error as Error).message, text, batch, 1));
   }
 }
 
@@ -61,13 +60,14 @@ export function parseBatch(batch: JsonBatch, jsonLines: boolean): unknown[] {
  * JSON.parse says `at position 57`, or for an unexpected token quotes the text around it; a person
  * editing the file wants the reason, the line and the column.
  */
-export function filePosition(message: string, text: string, firstLine = 1): string {
+export function filePosition(message: string, text: string, start: { line: number; column: number } = { line: 1, column: 1 }, skip = 0): string {
   const stated = /^(.*?) in JSON at position (\d+)/.exec(message);
   const reason = stated ? stated[1] : message.replace(/, (".*"|\.\.\.".*") is not valid JSON$/s, '');
   const position = stated ? Number(stated[2]) : jsonErrorPosition(text);
   if (position < 0) return reason;
-  const before = text.slice(0, position).split('\n');
-  return `${reason} ${at(firstLine + before.length - 1, before[before.length - 1].length + 1)}`;
+  const before = text.slice(skip, Math.max(skip, position)).split('\n');
+  const last = before[before.length - 1].length;
+  return `${reason} ${at(start.line + before.length - 1, before.length === 1 ? start.column + last : last + 1)}`;
 }
 
 export class JsonBatcher {
