@@ -53,9 +53,11 @@ function plainRows(value: unknown): boolean {
   if (!Array.isArray(value) || value.length < 3 || value.length > MAX_READINGS) return false;
   let tBefore = -Infinity;
   let xBefore = Number.NaN;
-  for (const row of value) {
+  for (let i = 0; i < value.length; i++) {
+    const row: unknown = value[i];
     if (!Array.isArray(row) || row.length !== 2) return false;
-    const [t, x] = row as unknown[];
+    const t: unknown = row[0];
+    const x: unknown = row[1];
     if (typeof t !== 'number' || typeof x !== 'number' || !Number.isFinite(t) || !Number.isFinite(x)) return false;
     if (t < tBefore || (t === tBefore && x !== xBefore)) return false;
     tBefore = t;

@@ -26,14 +26,19 @@ export function oneSlipCopies(value: number, decimals: number): Slip[] {
   const text = digitsOf(value, decimals);
   const out: Slip[] = [];
   const add = (kind: SlipKind, t: string) => {
-    if (/^\d*\.?\d+$|^\d+\.$/.test(t)) {
+    // The text is digits and at most one point, and a slip keeps it so: only a lone digit dropped
+    // leaves no number ("" or ".").
+    if (t !== '' && t !== '.') {
       const v = signed(t, negative);
       if (Number.isFinite(v) && v !== value) out.push({ kind, value: v });
     }
   };
   if (value !== 0) out.push({ kind: 'sign-lost', value: -value });
+  // Beyond 1e21 toFixed writes an exponent, which has no digits to swap.
+  const plain = /^\d+(\.\d*)?$/.test(text);
   // 185.19 x 0.1 is 18.519000000000002 in binary: fifteen significant digits give back the number as written.
   for (const p of [-2, -1, 1, 2]) out.push({ kind: 'decimal-point', value: Number((value * 10 ** p).toPrecision(15)) });
+  if (!plain) return out;
   for (let i = 0; i + 1 < text.length; i++) {
     const a = text[i];
     const b = text[i + 1];
