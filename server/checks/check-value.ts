@@ -2,7 +2,7 @@ import type { Tolerance } from '../../schemas/common.ts';
 import type { Finding } from '../../schemas/result.ts';
 import { likelyCause, type CauseVocabulary } from './cause-text.ts';
 import type { DraftFinding } from './draft-finding.ts';
-import { explain, type Candidate, type Expanded, type Factor } from './explain.ts';
+import { explain, type Candidate, type Expanded, type Factor, type LaterBases } from './explain.ts';
 import { withUnit } from './format.ts';
 import { withinTolerance } from './tolerance.ts';
 
@@ -30,6 +30,8 @@ export interface ValueCheck {
   carriedForward?: { value: number; from: string; quiet?: boolean };
   /** Values produced by known slips of method (each with its cause); asked for only when the value is not right. */
   slips?: () => Candidate[];
+  /** Costly ones, tried after all others and only where they could still explain the value best. */
+  laterSlips?: LaterBases;
   /** Scalings that known slips of units or copying produce. */
   factors: Factor[];
   /** The kind's words and preferences for causes. */
@@ -88,7 +90,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
   if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
-  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance ?? tolerance, c.closeTolerance);
+  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance ?? tolerance, c.closeTolerance, c.laterSlips);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;
     const how = by.says.length ? ` ${by.says.join(' and ')}` : '';

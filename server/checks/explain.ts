@@ -54,15 +54,38 @@ export const DECIMAL_SHIFT: Factor[] = [-3, -2, -1, 1, 2, 3].map((p) => ({
 /** A candidate made from a base value: `root` is the base, `says` how the slips scaled it. */
 export type Expanded = Candidate & { root: number; says: string[] };
 
+const rankOf = (causes: readonly string[], priority: readonly string[]) => Math.min(...causes.map((code) => priority.indexOf(code) + 1), priority.length + 1);
+
 function better(c: Candidate, best: Candidate, reported: number, priority: readonly string[]): boolean {
   if (c.causes.length !== best.causes.length) return c.causes.length < best.causes.length;
-  const rank = (x: Candidate) => Math.min(...x.causes.map((code) => priority.indexOf(code) + 1), priority.length + 1);
+  const rank = (x: Candidate) => rankOf(x.causes, priority);
   const dc = Math.abs(reported - c.value);
   const db = Math.abs(reported - best.value);
   // Two ways to the same number (to rounding) are told apart by which slip is commoner.
   const sameNumber = Math.abs(dc - db) <= 1e-9 * Math.abs(reported);
   if ((c.closestWins || best.closestWins || rank(c) === rank(best)) && !sameNumber) return dc < db;
   return rank(c) < rank(best);
+}
+
+/**
+ * Bases that are costly to make (dozens of refits), each with exactly the one cause `cause` and no
+ * `closestWins`: made only when one of them could still be the best explanation.
+ */
+export interface LaterBases {
+  cause: string;
+  bases: () => Candidate[];
+}
+
+/**
+ * Whether a base with the one cause `cause` could beat `best`: by fewer causes, or by as many and a
+ * commoner cause or (at the same rank or where `best` asks for it) a closer value. A best of no cause,
+ * or of one commoner cause without `closestWins`, cannot be beaten by it.
+ */
+function beatable(best: Expanded | undefined, cause: string, priority: readonly string[]): boolean {
+  if (!best) return true;
+  if (best.causes.length === 0) return false;
+  if (best.causes.length > 1 || best.closestWins) return true;
+  return rankOf(best.causes, priority) >= rankOf([cause], priority);
 }
 
 /**
@@ -79,6 +102,7 @@ export function explain(
   vocabulary: Pick<CauseVocabulary, 'priority' | 'joinMethodSlips'>,
   tolerance: Tolerance,
   closeTolerance = tolerance,
+  later?: LaterBases,
 ): Expanded | undefined {
   let best: Expanded | undefined;
   const offer = (b: Candidate, value: number, causes: string[], says: string[]) => {
@@ -87,7 +111,7 @@ export function explain(
     if (!best || better(c, best, reported, vocabulary.priority)) best = c;
   };
   const sign = factors.find((f) => f.cause === 'sign-flipped');
-  for (const b of bases) {
+  const consider = (b: Candidate) => {
     // A long-shot base and every scaling of it must match within the closer band.
     const band = b.longShot ? closeTolerance : tolerance;
     const matches = (value: number) => Number.isFinite(value) && withinTolerance(reported, value, band);
@@ -98,6 +122,8 @@ export function explain(
       if (matches(scaled)) offer(b, scaled, [...b.causes, f.cause], [f.says]);
       if (sign && f !== sign && b.causes.length === 0 && matches(-scaled)) offer(b, -scaled, [sign.cause, f.cause], [sign.says, f.says]);
     }
-  }
+  };
+  bases.forEach(consider);
+  if (later && beatable(best, later.cause, vocabulary.priority)) later.bases().forEach(consider);
   return best;
 }

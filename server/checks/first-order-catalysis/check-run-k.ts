@@ -6,11 +6,11 @@ import type { NumberLike } from '../../../schemas/common.ts';
 import { closeMatch, lastPlace, slipMatch } from '../cause-tolerance.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
-import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
+import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Expanded, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
 import type { RunAnalysis } from './run-analysis.ts';
-import { fitDefined, slipFits, type SlipFit } from './slip-values.ts';
+import { fitDefined, infinitySlipFits, methodSlipFits, WRONG_INFINITY, type SlipFit } from './slip-values.ts';
 
 /** The student's k for one run, in the run's rate unit, as the second stage will use it. */
 export interface StudentK {
@@ -45,9 +45,14 @@ export function checkRunK(
   }
   const unit = rateUnitOf(a.timeUnit);
   const read = readReported(reported, 'first-order-rate', unit, settings.units.k, { path, what, stage: 'run' }, drafts);
-  // The values of known slips are needed only for a value that is not right: most are right.
-  let slips: SlipFit[] | undefined;
-  const slipValues = () => (slips ??= slipFits(a, all, settings.fitModel));
+  // The values of known slips are needed only for a value that is not right: most are right. Those
+  // with another x_inf take dozens of refits and are made only when no commoner slip explains k.
+  let method: SlipFit[] | undefined;
+  let infinity: SlipFit[] | undefined;
+  const slipValues: SlipValues = {
+    method: () => (method ??= methodSlipFits(a, settings.fitModel)),
+    infinity: () => (infinity ??= infinitySlipFits(a, all, settings.fitModel)),
+  };
   // k from the student's own ln F column, when that column carries a slip of its own.
   let own: Estimate | undefined;
   // A column of another length was named as such; k is then judged against the refit alone.
@@ -71,7 +76,8 @@ export function checkRunK(
       // (Guggenheim at another interval, Kezdy-Swinbourne) that lands inside it is right too.
       rightWithin: a.infinity === undefined ? a.expected.ci95 : undefined,
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
-      slips: () => slipValues().map((s) => s.k),
+      slips: () => slipValues.method().map((s) => s.k),
+      laterSlips: { cause: WRONG_INFINITY, bases: () => slipValues.infinity().map((s) => s.k) },
       factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       causes: firstOrderCauses,
       tolerance: tolerances.k,
@@ -79,11 +85,10 @@ export function checkRunK(
     },
     drafts,
   );
-  const slipSEs = () => slipValues().map((s) => s.se);
-  const candidates = () => uncertaintySlips(read.value, Number(reported.value), a, slipSEs());
+  const candidates = () => uncertaintySlips(read.value, Number(reported.value), a, slipValues.method().map((s) => s.se));
   const written = reported.uncertainty;
   const uncertainty = read.uncertainty === undefined || written === undefined ? undefined : { value: read.uncertainty, written };
-  checkUncertainty(uncertainty, a, own, outcome, { slipSEs, candidates }, settings, drafts);
+  checkUncertainty(uncertainty, a, own, outcome, { values: slipValues, candidates }, settings, drafts);
   return { value: read.value, uncertainty: read.uncertainty };
 }
 
@@ -104,6 +109,18 @@ function uncertaintySlips(value: number, written: number, a: RunAnalysis, slipSE
   return model.map((se) => ({ ...se, closestWins: true }));
 }
 
+/** The slips' values, by the cost of making them. */
+interface SlipValues {
+  method: () => SlipFit[];
+  infinity: () => SlipFit[];
+}
+
+/** The SE of the slip that explains k, where a slip of method or x_inf does: right beside its k. */
+function sameSlipSE(by: Expanded, values: SlipValues): Candidate | undefined {
+  const same = (s: SlipFit) => s.se.causes.every((c) => by.causes.includes(c)) && s.se.detail === by.detail;
+  return (values.method().find(same) ?? (by.causes.includes(WRONG_INFINITY) ? values.infinity().find(same) : undefined))?.se;
+}
+
 /**
  * Scalings of an SE alone: a misplaced decimal point is a copying slip of its own; a scaling of the
  * whole fit (logarithm base, time unit) reaches the SE only together with k, so it is tried only
@@ -121,7 +138,7 @@ function checkUncertainty(
   own: Estimate | undefined,
   kOutcome: ValueOutcome,
   /** Every slip's SE, and those that may explain this SE on their own. */
-  slips: { slipSEs: () => Candidate[]; candidates: () => Candidate[] },
+  slips: { values: SlipValues; candidates: () => Candidate[] },
   settings: Settings,
   drafts: DraftFinding[],
 ): void {
@@ -134,7 +151,7 @@ function checkUncertainty(
   }
   // Judge the uncertainty against the fit the value came from, so one slip is not named twice.
   const by = kOutcome.kind === 'explained' ? kOutcome.by : undefined;
-  const byK = by && slips.slipSEs().find((s) => s.causes.every((c) => by.causes.includes(c)) && s.detail === by.detail);
+  const byK = by && sameSlipSE(by, slips.values);
   const expected = a.expected.standardError;
   const line = a.asked;
   const spread: Candidate[] = line

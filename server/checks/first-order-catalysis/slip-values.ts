@@ -83,11 +83,12 @@ export function infinityAlternatives(a: RunAnalysis, all: RunAnalysis[]): Infini
   return out;
 }
 
-const WRONG_INFINITY = ['wrong-infinity'];
+export const WRONG_INFINITY = 'wrong-infinity';
+const WRONG_INFINITY_CAUSES = [WRONG_INFINITY];
 
 /** k or its SE from the refit with another x_inf: its words are read only if it explains a value. */
 class AlternativeFit implements Candidate {
-  readonly causes = WRONG_INFINITY;
+  readonly causes = WRONG_INFINITY_CAUSES;
   constructor(
     readonly value: number,
     readonly basis: string,
@@ -146,7 +147,8 @@ function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number,
   return slopeOnly(model, pairT, pairLnF, n);
 }
 
-export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): SlipFit[] {
+/** The slips of method that need no refit: the other line model, swapped axes, the half-life. */
+export function methodSlipFits(a: RunAnalysis, model: LineModel): SlipFit[] {
   if (!a.transform || !a.other) return [];
   const { t, lnF } = a.transform;
   const out: SlipFit[] = [
@@ -166,6 +168,14 @@ export function slipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): 
     k: { value: Math.LN2 / a.expected.value, causes: ['half-life-for-rate'], basis: 'the half-life ln 2/k' },
     se: { value: (Math.LN2 * a.expected.standardError) / a.expected.value ** 2, causes: ['half-life-for-rate'], basis: 'the standard error of the half-life' },
   });
+  return out;
+}
+
+/** The refits with each alternative x_inf (cause `wrong-infinity`): dozens of fits, made only when needed. */
+export function infinitySlipFits(a: RunAnalysis, all: RunAnalysis[], model: LineModel): SlipFit[] {
+  if (!a.transform || !a.other) return [];
+  const { t } = a.transform;
+  const out: SlipFit[] = [];
   for (const alt of infinityAlternatives(a, all)) {
     try {
       const fit = fitWithInfinity(a, t, alt.value, model);
