@@ -8,7 +8,7 @@ import { LN10 } from '../explain.ts';
 import { fmt } from '../format.ts';
 import { withinTolerance } from '../tolerance.ts';
 import type { RunAnalysis } from './run-analysis.ts';
-import { infinityAlternatives, lnFWith, type InfinityAlternative } from './slip-values.ts';
+import { infinityAlternatives, lnFEntryWith, lnFWith, type InfinityAlternative } from './slip-values.ts';
 
 /** The student's ln F column as numbers (NaN where blank), and whether a slip made it differ from ours. */
 export interface LnFColumn {
@@ -38,10 +38,19 @@ const SCALINGS: Array<Scaling & { causes: FindingCode[]; alone?: true }> = [
 
 const scaled = (v: number, s: Scaling) => (s.sign * v) / s.divisor;
 
-/** Columns a student gets by the common slips: log10, a flipped sign, another x_inf, and pairs of them. */
-function variants(a: RunAnalysis, all: RunAnalysis[]): ColumnVariant[] {
+/**
+ * Columns a student gets by the common slips: log10, a flipped sign, another x_inf, and pairs of them.
+ * Dozens of x_inf are tried: a column is made only for one whose entry at `probe` (an entry the student
+ * filled) matches the student's there in some scaling, since a column must match at every entry.
+ */
+function variants(a: RunAnalysis, all: RunAnalysis[], student: number[], settings: Settings): ColumnVariant[] {
   const bases: Array<{ base: number[]; alternative?: InfinityAlternative }> = [{ base: a.transform!.lnF }];
-  for (const alternative of infinityAlternatives(a, all)) bases.push({ base: lnFWith(a, alternative.value), alternative });
+  const probe = student.findIndex((v, i) => i > 0 && Number.isFinite(v));
+  const mayMatch = (value: number) =>
+    probe < 0 || SCALINGS.some((s) => !s.alone && entryMatches(student[probe], scaled(lnFEntryWith(a, value)(probe), s), settings));
+  for (const alternative of infinityAlternatives(a, all)) {
+    if (mayMatch(alternative.value)) bases.push({ base: lnFWith(a, alternative.value), alternative });
+  }
   return bases.flatMap(({ base, alternative }) =>
     SCALINGS.filter((s) => !(s.alone && alternative)).map((s) => ({
       base,
@@ -53,11 +62,14 @@ function variants(a: RunAnalysis, all: RunAnalysis[]): ColumnVariant[] {
   );
 }
 
+/** A filled entry against the variant's. */
+const entryMatches = (s: number, v: number, settings: Settings) => Number.isFinite(v) && withinTolerance(s, v, settings.tolerances.lnF);
+
 /** Every entry the student filled matches the variant (a blank only where the variant is undefined too). */
 function matches(student: number[], variant: number[], scaling: Scaling, settings: Settings): boolean {
   return student.every((s, i) => {
     const v = scaled(variant[i], scaling);
-    return Number.isNaN(s) ? !Number.isFinite(v) || i === 0 : Number.isFinite(v) && withinTolerance(s, v, settings.tolerances.lnF);
+    return Number.isNaN(s) ? !Number.isFinite(v) || i === 0 : entryMatches(s, v, settings);
   });
 }
 
@@ -99,7 +111,7 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
   // Most columns are right: the slip variants are made only for one that is not.
   if (matches(values, ours, SCALINGS[0], settings)) return { values, wrong: false };
   // The fewest causes, then the closest column: x_inf variants a few thousandths apart can both pass.
-  const found = variants(a, all)
+  const found = variants(a, all, values, settings)
     .filter((v) => matches(values, v.base, v, settings))
     .sort((x, y) => x.causes.length - y.causes.length || distance(values, x) - distance(values, y))[0];
   if (found && found.causes.length === 0) return { values, wrong: false };

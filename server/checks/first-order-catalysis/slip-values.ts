@@ -14,13 +14,19 @@ export interface SlipFit {
   se: Candidate;
 }
 
+/** ln F with another x_inf at reading i; NaN where the reading is on the wrong side of it. */
+export function lnFEntryWith(a: RunAnalysis, infinity: number): (i: number) => number {
+  const span = a.readings[0] - infinity;
+  return (i) => {
+    const f = (a.readings[i] - infinity) / span;
+    return f > 0 ? Math.log(f) : Number.NaN;
+  };
+}
+
 /** ln F with another x_inf; NaN where the reading is on the wrong side of it. */
 export function lnFWith(a: RunAnalysis, infinity: number): number[] {
-  const span = a.readings[0] - infinity;
-  return a.readings.map((x) => {
-    const f = (x - infinity) / span;
-    return f > 0 ? Math.log(f) : Number.NaN;
-  });
+  const at = lnFEntryWith(a, infinity);
+  return a.readings.map((_, i) => at(i));
 }
 
 const COPY_SLIP_SAYS: Record<SlipKind, string> = {
@@ -134,11 +140,10 @@ export function fitDefined(model: LineModel, t: ArrayLike<number>, lnF: ArrayLik
 /** The same fit of the run's ln F made with another x_inf (as `lnFWith` makes it), without the column. */
 function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number, model: LineModel): { slope: number; seSlope: number } {
   reserve(t.length);
-  const span = a.readings[0] - infinity;
+  const lnFAt = lnFEntryWith(a, infinity);
   let n = 0;
   for (let i = 0; i < t.length; i++) {
-    const f = (a.readings[i] - infinity) / span;
-    const lnF = f > 0 ? Math.log(f) : Number.NaN;
+    const lnF = lnFAt(i);
     if (Number.isFinite(lnF)) {
       pairT[n] = t[i];
       pairLnF[n++] = lnF;
