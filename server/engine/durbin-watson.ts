@@ -27,6 +27,12 @@ export interface DurbinWatsonNull {
   expected: number;
   variance: number;
   lowerTail(statistic: number): number;
+  /**
+   * Whether P(d <= statistic) is surely at least 1/2, known without the incomplete beta function: for
+   * a beta distribution with both parameters above 1 the median lies between the mean and the mode
+   * (a property of the beta distribution, from memory), so a statistic past both is past the median.
+   */
+  pastMedian(statistic: number): boolean;
 }
 
 /**
@@ -70,7 +76,15 @@ export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: A
   const spread = (mean * (1 - mean)) / (variance / 16) - 1;
   betaCdf ??= createRequire(import.meta.url)('@stdlib/stats-base-dists-beta-cdf') as (x: number, a: number, b: number) => number;
   const cdf = betaCdf;
-  return { expected, variance, lowerTail: (statistic) => cdf(statistic / 4, mean * spread, (1 - mean) * spread) };
+  const a = mean * spread;
+  const b = (1 - mean) * spread;
+  const mode = (a - 1) / (a + b - 2);
+  return {
+    expected,
+    variance,
+    lowerTail: (statistic) => cdf(statistic / 4, a, b),
+    pastMedian: (statistic) => a > 1 && b > 1 && statistic / 4 >= Math.max(mean, mode),
+  };
 }
 
 /** Row-major p x p product. */
@@ -86,14 +100,29 @@ function traceOf(x: ArrayLike<number>, p: number): number {
   return sum;
 }
 
-export function durbinWatson(residuals: ArrayLike<number>, jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatson {
+/**
+ * The test for a pattern at level `p` (at most 1/2): the statistic and its p-value where that could be
+ * under `p`, undefined where the statistic is past the null's median, as most are.
+ */
+export function durbinWatsonBelow(p: number, residuals: ArrayLike<number>, jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatson | undefined {
+  const statistic = statisticOf(residuals);
+  const nullDistribution = durbinWatsonNull(jacobian, normalInverse);
+  if (p <= 0.5 && nullDistribution.pastMedian(statistic)) return undefined;
+  return { statistic, expected: nullDistribution.expected, variance: nullDistribution.variance, pValue: nullDistribution.lowerTail(statistic) };
+}
+
+function statisticOf(residuals: ArrayLike<number>): number {
   let num = 0;
   let den = 0;
   for (let i = 0; i < residuals.length; i++) {
     den += residuals[i] * residuals[i];
     if (i > 0) num += (residuals[i] - residuals[i - 1]) ** 2;
   }
-  const statistic = num / den;
+  return num / den;
+}
+
+export function durbinWatson(residuals: ArrayLike<number>, jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatson {
+  const statistic = statisticOf(residuals);
   const nullDistribution = durbinWatsonNull(jacobian, normalInverse);
   return { statistic, expected: nullDistribution.expected, variance: nullDistribution.variance, pValue: nullDistribution.lowerTail(statistic) };
 }

@@ -47,7 +47,7 @@ class Profile {
   sse = 0;
   xInf = 0;
   amplitude = 0;
-  // Plain arrays: small typed arrays cost more to allocate than they save here.
+  // Sized for the longest run so far and reused (see scratchProfiles); entries past t.length are stale.
   readonly u: number[];
   readonly residuals: number[];
   constructor(n: number) {
@@ -95,6 +95,29 @@ class Profile {
     this.sse = sse;
     return this;
   }
+}
+
+// The search's buffers, reused from fit to fit: a check makes a dozen exponential fits per submission.
+let profiles: [Profile, Profile] = [new Profile(64), new Profile(64)];
+let scratchJacobian = new Array<number>(64).fill(0);
+
+function scratchProfiles(n: number): [Profile, Profile] {
+  if (profiles[0].u.length < n) {
+    profiles = [new Profile(2 * n), new Profile(2 * n)];
+    scratchJacobian = new Array<number>(2 * n).fill(0);
+  }
+  return [profiles[0], profiles[1]];
+}
+
+// The x_inf column of the Jacobian is all ones; fits of one length share it (nothing writes to it).
+const ones = new Map<number, readonly number[]>();
+function onesOf(n: number): readonly number[] {
+  let column = ones.get(n);
+  if (!column) {
+    column = new Array<number>(n).fill(1);
+    ones.set(n, column);
+  }
+  return column;
 }
 
 /**
@@ -166,9 +189,10 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
   }
 
   let k = options.initialK ?? startingK(run, t);
-  let current = new Profile(t.length).evaluate(k, t, x, fixedInfinity);
-  let trial = new Profile(t.length);
-  const jacobian = new Array<number>(t.length);
+  const buffers = scratchProfiles(t.length);
+  let current = buffers[0].evaluate(k, t, x, fixedInfinity);
+  let trial = buffers[1];
+  const jacobian = scratchJacobian;
   let lambda = 1e-3;
   let iterations = 0;
   let converged = false;
@@ -206,10 +230,13 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
   }
 
   const n = t.length;
+  // The search ran in scratch buffers: the fit keeps copies of the ones it returns.
+  const u = current.u.slice(0, n);
+  const residuals = current.residuals.slice(0, n);
   // Jacobian columns of the model in parameter order k, A (, x_inf).
   const dk = new Array<number>(n);
-  for (let i = 0; i < n; i++) dk[i] = -current.amplitude * t[i] * current.u[i];
-  const columns: ArrayLike<number>[] = fitted ? [dk, current.u, new Array<number>(n).fill(1)] : [dk, current.u];
+  for (let i = 0; i < n; i++) dk[i] = -current.amplitude * t[i] * u[i];
+  const columns: ArrayLike<number>[] = fitted ? [dk, u, onesOf(n)] : [dk, u];
   // Row-major (J'J)^-1: var k at [0]; var A at [4] (3 x 3) or [3] (2 x 2); var x_inf at [8], cov(A, x_inf) at [5].
   const inv = inverseNormalMatrix(columns);
   const leverages = new Array<number>(n);
@@ -232,7 +259,7 @@ export function fitFirstOrderNonlinear(run: FirstOrderRun, options: NonlinearOpt
     infinity: estimateOf(current.xInf, fitted ? inv[8] * s2 : 0, tc, readingUnit),
     residualSD: Math.sqrt(s2),
     dof,
-    residuals: current.residuals,
+    residuals,
     leverages,
     jacobian: columns,
     normalInverse: inv,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { durbinWatson, durbinWatsonNull } from '../../server/engine/durbin-watson.ts';
+import { durbinWatson, durbinWatsonBelow, durbinWatsonNull } from '../../server/engine/durbin-watson.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 
 /** The design of a straight line y = a + b x at x = 1..n: its columns and (X'X)^-1. */
@@ -89,5 +89,25 @@ describe('Durbin-Watson statistic', () => {
     expect(durbinWatson(wave, jacobian, normalInverse).pValue).toBeLessThan(1e-4);
     const alternating = Array.from({ length: 16 }, (_, i) => (i % 2 ? 1 : -1));
     expect(durbinWatson(alternating, jacobian, normalInverse).pValue).toBeGreaterThan(0.99);
+  });
+
+  it('skips the tail probability only past the median: every skipped statistic has a lower tail of at least 1/2', () => {
+    let skipped = 0;
+    let checked = 0;
+    for (const n of [6, 8, 12, 16, 30, 60]) {
+      const { jacobian, normalInverse } = lineDesign(n);
+      const nullDistribution = durbinWatsonNull(jacobian, normalInverse);
+      for (let d = 0.02; d < 4; d += 0.02) {
+        if (!nullDistribution.pastMedian(d)) continue;
+        checked++;
+        expect(nullDistribution.lowerTail(d)).toBeGreaterThanOrEqual(0.5);
+      }
+      const wave = Array.from({ length: n }, (_, i) => Math.sin((i / (n - 1)) * 2 * Math.PI));
+      const alternating = Array.from({ length: n }, (_, i) => (i % 2 ? 1 : -1));
+      if (durbinWatsonBelow(1e-4, alternating, jacobian, normalInverse) === undefined) skipped++;
+      expect(durbinWatsonBelow(1e-4, wave, jacobian, normalInverse)?.pValue).toBe(durbinWatson(wave, jacobian, normalInverse).pValue);
+    }
+    expect(checked).toBeGreaterThan(300);
+    expect(skipped).toBe(6);
   });
 });

@@ -119,7 +119,8 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
     return;
   }
   for (let i = 1; i < run.readings.length; i++) {
-    const [t, x] = run.readings[i];
+    const t = run.readings[i][0];
+    const x = run.readings[i][1];
     if (t !== run.readings[i - 1][0] || x !== run.readings[i - 1][1]) continue;
     drafts.push({
       code: 'suspect-reading',

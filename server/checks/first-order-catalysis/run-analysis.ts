@@ -126,6 +126,11 @@ function transformDefined(run: FirstOrderRun, infinity: number) {
   const keep: number[] = [];
   const excluded: number[] = [];
   for (let i = 0; i < run.readings.length; i++) ((run.readings[i] - infinity) / span > 0 ? keep : excluded).push(i);
+  // Nearly always every reading is on x_0's side: the column is the defined one.
+  if (excluded.length === 0) {
+    const transform = firstOrderTransform(run, infinity);
+    return { transform, defined: transform, excluded };
+  }
   const defined = firstOrderTransform(
     { ...run, times: keep.map((i) => run.times[i]), readings: keep.map((i) => run.readings[i]) },
     infinity,

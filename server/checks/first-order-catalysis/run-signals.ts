@@ -1,6 +1,6 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Signal } from '../../../schemas/result.ts';
-import { durbinWatson } from '../../engine/durbin-watson.ts';
+import { durbinWatsonBelow } from '../../engine/durbin-watson.ts';
 import { tTwoSidedP } from '../../engine/student-t.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
@@ -33,8 +33,8 @@ export const PATTERN_P = 1e-4;
 function residualPattern(a: RunAnalysis): Signal | undefined {
   const fit = a.ownEndValue;
   if (!fit || fit.dof < 3) return undefined;
-  const dw = durbinWatson(fit.residuals, fit.jacobian, fit.normalInverse);
-  if (!(dw.pValue < PATTERN_P)) return undefined;
+  const dw = durbinWatsonBelow(PATTERN_P, fit.residuals, fit.jacobian, fit.normalInverse);
+  if (!dw || !(dw.pValue < PATTERN_P)) return undefined;
   return {
     code: 'residual-pattern',
     path: `${a.path}.readings`,
