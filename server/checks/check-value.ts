@@ -37,10 +37,13 @@ export interface ValueCheck {
   /** The kind's words and preferences for causes. */
   causes: CauseVocabulary;
   tolerance: Tolerance;
-  /** How close a slip's value must come for the slip to be named, where narrower than `tolerance`. */
-  causeTolerance?: Tolerance;
+  /**
+   * How close a slip's value must come for the slip to be named, where narrower than `tolerance`;
+   * worked out (from the digits written) only for a value that is not right.
+   */
+  causeTolerance?: () => Tolerance;
   /** The same for a long-shot candidate. */
-  closeTolerance?: Tolerance;
+  closeTolerance?: () => Tolerance;
 }
 
 export type ValueOutcome =
@@ -90,7 +93,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
   if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
-  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance ?? tolerance, c.closeTolerance, c.laterSlips);
+  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance?.() ?? tolerance, c.closeTolerance?.(), c.laterSlips);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;
     const how = by.says.length ? ` ${by.says.join(' and ')}` : '';

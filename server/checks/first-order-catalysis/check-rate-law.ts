@@ -157,7 +157,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         factors: factors.filter((f) => f !== SIGN),
         causes: firstOrderCauses,
         tolerance: tolerances.rateLawUncertainty,
-        causeTolerance: slipMatch(reported.uncertainty!, read.uncertainty, tolerances.rateLawUncertainty),
+        causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, tolerances.rateLawUncertainty),
       },
       drafts,
     );

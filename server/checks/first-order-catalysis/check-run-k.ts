@@ -81,7 +81,7 @@ export function checkRunK(
       factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
       causes: firstOrderCauses,
       tolerance: tolerances.k,
-      closeTolerance: closeMatch(reported.value, read.value, tolerances.k),
+      closeTolerance: () => closeMatch(reported.value, read.value, tolerances.k),
     },
     drafts,
   );
@@ -177,7 +177,7 @@ function checkUncertainty(
       factors: uncertaintyFactors(kOutcome),
       causes: firstOrderCauses,
       tolerance: settings.tolerances.kUncertainty,
-      causeTolerance: slipMatch(reported.written, reported.value, settings.tolerances.kUncertainty),
+      causeTolerance: () => slipMatch(reported.written, reported.value, settings.tolerances.kUncertainty),
     },
     drafts,
   );

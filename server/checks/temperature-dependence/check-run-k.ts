@@ -43,7 +43,7 @@ export function checkRunKs(submission: Submission, analysis: TemperatureAnalysis
         factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
         causes: temperatureCauses,
         tolerance: settings.tolerances.k,
-        causeTolerance: slipMatch(reported.value, read.value, settings.tolerances.k),
+        causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances.k),
       },
       drafts,
     );

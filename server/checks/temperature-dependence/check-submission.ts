@@ -72,7 +72,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
   const outcome = checkValue(
-    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: slipMatch(reported.value, read.value, settings.tolerances[q]) },
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]) },
     drafts,
   );
   // A value already found wrong needs no second warning about its size.
@@ -102,7 +102,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       factors: FACTORS.Ea.filter((f) => f !== SIGN),
       causes: temperatureCauses,
       tolerance: settings.tolerances.uncertainty,
-      causeTolerance: slipMatch(reported.uncertainty!, read.uncertainty, settings.tolerances.uncertainty),
+      causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, settings.tolerances.uncertainty),
     },
     drafts,
   );
