@@ -51,6 +51,9 @@ export const DECIMAL_SHIFT: Factor[] = [-3, -2, -1, 1, 2, 3].map((p) => ({
   says: `${p > 0 ? 'multiplied' : 'divided'} by ${10 ** Math.abs(p)} (a misplaced decimal point)`,
 }));
 
+/** The scalings a slip can give a rate constant: its sign, the logarithm's base, the time unit, the decimal point. */
+export const RATE_CONSTANT_FACTORS: Factor[] = [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT];
+
 /** A candidate made from a base value: `root` is the base, `says` how the slips scaled it. */
 export type Expanded = Candidate & { root: number; says: string[] };
 

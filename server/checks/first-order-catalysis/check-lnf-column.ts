@@ -39,27 +39,29 @@ const SCALINGS: Array<Scaling & { causes: FindingCode[]; alone?: true }> = [
 const scaled = (v: number, s: Scaling) => (s.sign * v) / s.divisor;
 
 /**
- * Columns a student gets by the common slips: log10, a flipped sign, another x_inf, and pairs of them.
- * Dozens of x_inf are tried: a column is made only for one whose entry at `probe` (an entry the student
- * filled) matches the student's there in some scaling, since a column must match at every entry.
+ * The columns made by the common slips (log10, a flipped sign, another x_inf, and pairs of them) that
+ * match the student's at every filled entry. Dozens of x_inf are tried: one is looked at only where its
+ * entry at `probe` (an entry the student filled) matches there in some scaling.
  */
-function variants(a: RunAnalysis, all: RunAnalysis[], student: number[], settings: Settings): ColumnVariant[] {
-  const bases: Array<{ base: number[]; alternative?: InfinityAlternative }> = [{ base: a.transform!.lnF }];
+function matchingVariants(a: RunAnalysis, all: RunAnalysis[], student: number[], settings: Settings): ColumnVariant[] {
+  const out: ColumnVariant[] = [];
+  const tryBase = (base: number[], alternative?: InfinityAlternative) => {
+    for (const s of SCALINGS) {
+      if (alternative && s.alone) continue;
+      if (!matches(student, base, s, settings)) continue;
+      out.push({ base, sign: s.sign, divisor: s.divisor, causes: alternative ? ['wrong-infinity', ...s.causes] : s.causes, alternative });
+    }
+  };
+  tryBase(a.transform!.lnF);
   const probe = student.findIndex((v, i) => i > 0 && Number.isFinite(v));
-  const mayMatch = (value: number) =>
-    probe < 0 || SCALINGS.some((s) => !s.alone && entryMatches(student[probe], scaled(lnFEntryWith(a, value)(probe), s), settings));
   for (const alternative of infinityAlternatives(a, all)) {
-    if (mayMatch(alternative.value)) bases.push({ base: lnFWith(a, alternative.value), alternative });
+    if (probe >= 0) {
+      const entry = lnFEntryWith(a, alternative.value)(probe);
+      if (!SCALINGS.some((s) => !s.alone && entryMatches(student[probe], scaled(entry, s), settings))) continue;
+    }
+    tryBase(lnFWith(a, alternative.value), alternative);
   }
-  return bases.flatMap(({ base, alternative }) =>
-    SCALINGS.filter((s) => !(s.alone && alternative)).map((s) => ({
-      base,
-      sign: s.sign,
-      divisor: s.divisor,
-      causes: alternative ? ['wrong-infinity' as const, ...s.causes] : s.causes,
-      alternative,
-    })),
-  );
+  return out;
 }
 
 /** A filled entry against the variant's. */
@@ -111,9 +113,7 @@ export function checkLnFColumn(run: SubmittedRun, a: RunAnalysis, all: RunAnalys
   // Most columns are right: the slip variants are made only for one that is not.
   if (matches(values, ours, SCALINGS[0], settings)) return { values, wrong: false };
   // The fewest causes, then the closest column: x_inf variants a few thousandths apart can both pass.
-  const found = variants(a, all, values, settings)
-    .filter((v) => matches(values, v.base, v, settings))
-    .sort((x, y) => x.causes.length - y.causes.length || distance(values, x) - distance(values, y))[0];
+  const found = matchingVariants(a, all, values, settings).sort((x, y) => x.causes.length - y.causes.length || distance(values, x) - distance(values, y))[0];
   if (found && found.causes.length === 0) return { values, wrong: false };
   if (found) {
     const [code, ...also] = found.causes;

@@ -6,7 +6,7 @@ import type { NumberLike } from '../../../schemas/common.ts';
 import { closeMatch, lastPlace, slipMatch } from '../cause-tolerance.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
-import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Expanded, type Factor } from '../explain.ts';
+import { DECIMAL_SHIFT, LOG_BASE, RATE_CONSTANT_FACTORS, TIME_UNIT, type Candidate, type Expanded, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
 import type { RunAnalysis } from './run-analysis.ts';
@@ -78,7 +78,7 @@ export function checkRunK(
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
       slips: () => slipValues.method().map((s) => s.k),
       laterSlips: { cause: WRONG_INFINITY, bases: () => slipValues.infinity().map((s) => s.k) },
-      factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+      factors: RATE_CONSTANT_FACTORS,
       causes: firstOrderCauses,
       tolerance: tolerances.k,
       closeTolerance: () => closeMatch(reported.value, read.value, tolerances.k),
@@ -154,12 +154,13 @@ function checkUncertainty(
   const byK = by && sameSlipSE(by, slips.values);
   const expected = a.expected.standardError;
   const line = a.asked;
-  const spread: Candidate[] = line
-    ? [
-        { value: line.line.residualSD, causes: ['uncertainty-kind'], basis: 'the standard deviation of the ln F points about the line', detail: 'standard deviation of the points' },
-        { value: (line.k.ci95[1] - line.k.ci95[0]) / 2, causes: ['uncertainty-kind'], basis: 'the half-width of the 95 % confidence interval', detail: '95 % confidence half-width' },
-      ]
-    : [];
+  const spread = (): Candidate[] =>
+    line
+      ? [
+          { value: line.line.residualSD, causes: ['uncertainty-kind'], basis: 'the standard deviation of the ln F points about the line', detail: 'standard deviation of the points' },
+          { value: (line.k.ci95[1] - line.k.ci95[0]) / 2, causes: ['uncertainty-kind'], basis: 'the half-width of the 95 % confidence interval', detail: '95 % confidence half-width' },
+        ]
+      : [];
   checkValue(
     {
       what,
@@ -173,7 +174,7 @@ function checkUncertainty(
       expected,
       alsoRight: byK ? [byK.value] : [],
       carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
-      slips: () => [...spread, ...slips.candidates()],
+      slips: () => [...spread(), ...slips.candidates()],
       factors: uncertaintyFactors(kOutcome),
       causes: firstOrderCauses,
       tolerance: settings.tolerances.kUncertainty,

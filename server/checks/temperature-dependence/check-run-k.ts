@@ -3,7 +3,7 @@ import { convert } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
-import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT } from '../explain.ts';
+import { RATE_CONSTANT_FACTORS } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
 import type { TemperatureAnalysis } from './refit.ts';
@@ -40,7 +40,7 @@ export function checkRunKs(submission: Submission, analysis: TemperatureAnalysis
         unit,
         expected: run.k.value,
         alsoRight: run.alsoRight,
-        factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT],
+        factors: RATE_CONSTANT_FACTORS,
         causes: temperatureCauses,
         tolerance: settings.tolerances.k,
         causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances.k),
