@@ -54,6 +54,8 @@ export const END_VALUE_P = 1e-3;
 export const END_VALUE_K_SHARE = 0.01;
 /** Where the readings alone do not fix k this well, they do not say where they level off either. */
 export const END_VALUE_OWN_K_SHARE = 0.2;
+// The standard normal's two-sided 0.1 % point, 3.2905 (from memory), rounded down.
+export const END_VALUE_T_SCREEN = 3.29;
 
 function endValue(a: RunAnalysis): Signal | undefined {
   const own = a.ownEndValue;
@@ -61,10 +63,14 @@ function endValue(a: RunAnalysis): Signal | undefined {
   if (!own || !a.exponential || recorded === undefined || own.dof < 2) return undefined;
   if (!(own.k.value > 0 && own.k.standardError < END_VALUE_OWN_K_SHARE * own.k.value)) return undefined;
   const fitted = own.infinity;
-  const t = (fitted.value - recorded) / Math.hypot(fitted.standardError, own.residualSD);
-  const p = tTwoSidedP(t, own.dof);
   const kShare = Math.abs(a.exponential.k.value - own.k.value) / own.k.value;
-  if (!(p < END_VALUE_P && kShare > END_VALUE_K_SHARE)) return undefined;
+  if (!(kShare > END_VALUE_K_SHARE)) return undefined;
+  const t = (fitted.value - recorded) / Math.hypot(fitted.standardError, own.residualSD);
+  // Student's t has heavier tails than the normal: below the normal's two-sided 0.1 % point (3.2905)
+  // p is above END_VALUE_P for any degrees of freedom, and the t distribution need not be evaluated.
+  if (!(Math.abs(t) >= END_VALUE_T_SCREEN)) return undefined;
+  const p = tTwoSidedP(t, own.dof);
+  if (!(p < END_VALUE_P)) return undefined;
   const unit = a.exponential.k.unit;
   return {
     code: 'end-value',
