@@ -20,6 +20,8 @@ export interface DurbinWatson {
   pValue: number;
 }
 
+let ajBuffer = new Float64Array(3 * 64);
+
 let betaCdf: ((x: number, a: number, b: number) => number) | undefined;
 
 /** The distribution of d for independent scatter about a fit: its mean, variance and lower tail. */
@@ -46,22 +48,26 @@ export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: A
   // With H = J C J' (C = (J'J)^-1) of rank p, the traces need only p x p matrices:
   //   tr(MA) = tr(A) - tr(C G),  tr((MA)^2) = tr(A^2) - 2 tr(C K) + tr(C G C G),
   // where G = J'AJ and K = (AJ)'(AJ); A is tridiagonal (1, 2, ..., 2, 1 on the diagonal, -1 beside it).
-  const aj = jacobian.map((col) => {
-    const out = new Array<number>(n);
-    for (let i = 0; i < n; i++) out[i] = (i === 0 || i === n - 1 ? 1 : 2) * col[i] - (i > 0 ? col[i - 1] : 0) - (i < n - 1 ? col[i + 1] : 0);
-    return out;
-  });
-  const dot = (x: ArrayLike<number>, y: ArrayLike<number>) => {
-    let sum = 0;
-    for (let i = 0; i < n; i++) sum += x[i] * y[i];
-    return sum;
-  };
-  const g: number[] = [];
-  const k: number[] = [];
+  // A J, column by column, in one reused buffer: this runs for every run checked.
+  if (ajBuffer.length < p * n) ajBuffer = new Float64Array(2 * p * n);
+  const aj = ajBuffer;
+  for (let c = 0; c < p; c++) {
+    const col = jacobian[c];
+    for (let i = 0; i < n; i++) aj[c * n + i] = (i === 0 || i === n - 1 ? 1 : 2) * col[i] - (i > 0 ? col[i - 1] : 0) - (i < n - 1 ? col[i + 1] : 0);
+  }
+  const g = new Array<number>(p * p);
+  const k = new Array<number>(p * p);
   for (let r = 0; r < p; r++) {
+    const jr = jacobian[r];
     for (let c = 0; c < p; c++) {
-      g.push(dot(jacobian[r], aj[c]));
-      k.push(dot(aj[r], aj[c]));
+      let jAj = 0;
+      let ajAj = 0;
+      for (let i = 0; i < n; i++) {
+        jAj += jr[i] * aj[c * n + i];
+        ajAj += aj[r * n + i] * aj[c * n + i];
+      }
+      g[r * p + c] = jAj;
+      k[r * p + c] = ajAj;
     }
   }
   const cg = product(normalInverse, g, p);

@@ -68,6 +68,21 @@ function mightBeSuspect(all: FirstOrderNonlinearFit, i: number): boolean {
   return Math.abs(r) / free > (SUSPECT_SDS / SCREEN_MARGIN) * sdWithout;
 }
 
+/** The indices of the `count` largest residuals by size, largest first (the first index on a tie, as a stable sort gives). */
+function worstFitting(residuals: number[], count: number): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < residuals.length; i++) {
+    const size = Math.abs(residuals[i]);
+    let at = out.length;
+    while (at > 0 && Math.abs(residuals[out[at - 1]]) < size) at--;
+    if (at < count) {
+      out.splice(at, 0, i);
+      if (out.length > count) out.pop();
+    }
+  }
+  return out;
+}
+
 /**
  * The reading whose removal leaves the tightest curve. Only the three worst-fitting readings of a fit
  * of all are tried; when one reading is so far off that no fit of all converges, every reading is.
@@ -77,7 +92,7 @@ function mostSuspect(curve: Curve) {
   let initialK: number | undefined;
   try {
     const all = curve.fitOfAll ?? fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted', initialK: curve.startK });
-    tried = tried.sort((a, b) => Math.abs(all.residuals[b]) - Math.abs(all.residuals[a])).slice(0, 3);
+    tried = worstFitting(all.residuals, 3);
     if (!tried.some((i) => mightBeSuspect(all, i))) return undefined;
     initialK = all.k.value;
   } catch (error) {
