@@ -4,13 +4,19 @@ import { checkAndRead, parseAssignment, type Assignment, type CheckedSubmission 
 const parsed = new Map<string, Assignment>();
 const CACHE_LIMIT = 32;
 
-/** Checks `submissions` against settings given as JSON text (validated, as stored or read). */
-export function checkSettingsBatch(input: { settingsJson: string; submissions: unknown[] }): CheckedSubmission[] {
-  let assignment = parsed.get(input.settingsJson);
+/** The assignment of settings given as JSON text (validated, as stored or read), parsed once. */
+export function assignmentOfJson(settingsJson: string): Assignment {
+  let assignment = parsed.get(settingsJson);
   if (!assignment) {
-    assignment = parseAssignment(JSON.parse(input.settingsJson));
+    assignment = parseAssignment(JSON.parse(settingsJson));
     if (parsed.size >= CACHE_LIMIT) parsed.clear();
-    parsed.set(input.settingsJson, assignment);
+    parsed.set(settingsJson, assignment);
   }
-  return input.submissions.map((submission) => checkAndRead(assignment!, submission));
+  return assignment;
+}
+
+/** Checks `submissions` against settings given as JSON text. */
+export function checkSettingsBatch(input: { settingsJson: string; submissions: unknown[] }): CheckedSubmission[] {
+  const assignment = assignmentOfJson(input.settingsJson);
+  return input.submissions.map((submission) => checkAndRead(assignment, submission));
 }

@@ -1,5 +1,6 @@
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkSettingsBatch } from '../checks/check-settings-batch.ts';
+import { checkAndRead } from '../checks/check.ts';
+import { assignmentOfJson } from '../checks/check-settings-batch.ts';
 import { parseBatch, type JsonBatch } from './json-batches.ts';
 import { tableEntry, type TableEntry } from './results-table.ts';
 
@@ -30,23 +31,40 @@ function withoutArrays(result: CheckResult): CheckResult {
   return { ...result, refit: { ...refit, runs: refit.runs.map(({ lnF: _lnF, ...run }) => run) } };
 }
 
-/** Parses one batch of a submissions file, checks it, and formats the results for output. */
+/**
+ * Parses one batch of a submissions file, checks it, and formats the results for output. Each result
+ * is formatted as soon as it is made, so that (unless --out keeps them) it is garbage while still young.
+ */
 export function checkJsonBatch(input: CheckJsonBatchInput): CheckedBatch {
   const submissions = parseBatch(input.batch, input.jsonLines);
-  const checked = checkSettingsBatch({ settingsJson: input.settingsJson, submissions });
-  return formatResults(checked.map((c) => c.result), submissions, input);
+  const assignment = assignmentOfJson(input.settingsJson);
+  const check = (submission: unknown) => checkAndRead(assignment, submission).result;
+  const { output, arrays } = input;
+  if (output === 'results') return { results: submissions.map(check), submissions };
+  const format = formatterOf({ output, arrays });
+  return joined(output, submissions.map((s) => format(check(s))));
+}
+
+type Formatted = TableEntry | string;
+
+function formatterOf(input: { output: Exclude<ResultOutput, 'results'>; arrays: boolean }): (r: CheckResult) => Formatted {
+  switch (input.output) {
+    case 'table':
+      return tableEntry;
+    case 'json':
+      return (r) => `  ${JSON.stringify(r, null, 2).replaceAll('\n', '\n  ')}`;
+    case 'jsonl':
+      return (r) => `${JSON.stringify(input.arrays ? r : withoutArrays(r))}\n`;
+  }
+}
+
+function joined(output: Exclude<ResultOutput, 'results'>, items: Formatted[]): CheckedBatch {
+  if (output === 'table') return { table: items as TableEntry[] };
+  return { text: (items as string[]).join(output === 'json' ? ',\n' : '') };
 }
 
 /** Results as the command prints them (or keeps them, for --out). */
 export function formatResults(results: CheckResult[], submissions: unknown[], input: { output: ResultOutput; arrays: boolean }): CheckedBatch {
-  switch (input.output) {
-    case 'table':
-      return { table: results.map(tableEntry) };
-    case 'json':
-      return { text: results.map((r) => `  ${JSON.stringify(r, null, 2).replaceAll('\n', '\n  ')}`).join(',\n') };
-    case 'jsonl':
-      return { text: results.map((r) => `${JSON.stringify(input.arrays ? r : withoutArrays(r))}\n`).join('') };
-    case 'results':
-      return { results, submissions };
-  }
+  if (input.output === 'results') return { results, submissions };
+  return joined(input.output, results.map(formatterOf({ output: input.output, arrays: input.arrays })));
 }
