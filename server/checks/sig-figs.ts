@@ -26,22 +26,29 @@ export function writtenDecimals(value: NumberLike): number {
   return typeof value === 'string' ? decimalsOfText(value) : decimalsOf(value);
 }
 
+/** The digits of the mantissa from the first that is not zero: every reported value passes here. */
 function significantFiguresOfText(text: string): number {
-  const mantissa = text.trim().toLowerCase().split('e')[0].replace(/^[-+]/, '').replace('.', '');
-  return mantissa.replace(/^0+/, '').length;
+  let figures = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 0x65 || c === 0x45) break; // e, E: the exponent follows
+    if (c >= 0x30 && c <= 0x39 && (figures > 0 || c !== 0x30)) figures++;
+  }
+  return figures;
 }
 
 export function sigFigProblem(value: NumberLike, uncertainty: NumberLike): SigFigProblem | undefined {
+  if (Number(uncertainty) === 0) return undefined;
   const uText = String(uncertainty);
+  const uFigures = significantFiguresOfText(uText);
+  if (uFigures > 2) {
+    return { problem: 'uncertainty-digits', text: `the uncertainty ${uText} has ${uFigures} significant figures; 1 or 2 are meaningful` };
+  }
   const exactTexts = typeof value === 'string' && typeof uncertainty === 'string';
   const uDecimals = writtenDecimals(uncertainty);
   const vDecimals = writtenDecimals(value);
-  if (Number(uncertainty) === 0) return undefined;
-  if (significantFiguresOfText(uText) > 2) {
-    return { problem: 'uncertainty-digits', text: `the uncertainty ${uText} has ${significantFiguresOfText(uText)} significant figures; 1 or 2 are meaningful` };
-  }
   // A JSON number has lost its trailing zeros: an uncertainty that shows one figure may have had two.
-  const uMayHaveLostZero = typeof uncertainty === 'number' && significantFiguresOfText(uText) === 1;
+  const uMayHaveLostZero = typeof uncertainty === 'number' && uFigures === 1;
   if (vDecimals > uDecimals + (uMayHaveLostZero ? 1 : 0)) {
     return { problem: 'value-over-precise', text: `the value ${String(value)} has more decimal places than its uncertainty ${uText}` };
   }
