@@ -13,11 +13,17 @@ console.log(
     `(${engine.microsecondsPerRefit.toFixed(1)} µs each; 4 runs x 16 readings, both ln F models, exponential fit, second stage; one core; target >= 50,000/s)`,
 );
 
-const { benchChecks } = await import('./check-throughput.ts');
+const { benchChecks, benchCorpusChecks } = await import('./check-throughput.ts');
 const checks = benchChecks();
 console.log(
   `checker: ${Math.round(checks.checksPerSecond).toLocaleString('en-US')} checked submissions/s ` +
     `(${checks.microsecondsPerCheck.toFixed(1)} µs each; clean, 4 runs x 16 readings, default assignment, checkBatch over 2,000; one core)`,
+);
+
+const mixed = await benchCorpusChecks();
+console.log(
+  `checker on the whole-process corpus: ${Math.round(mixed.checksPerSecond).toLocaleString('en-US')} checked submissions/s ` +
+    `(${mixed.microsecondsPerCheck.toFixed(1)} µs each; 2,000 of its submissions, a third with slips whose causes are searched; one core, warm)`,
 );
 
 const { benchTemperatureRecall } = await import('./temperature-recall.ts');
