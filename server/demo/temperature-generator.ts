@@ -3,13 +3,14 @@ import { fitLine } from '../engine/linear-fit.ts';
 import { GAS_CONSTANT, LN_KB_OVER_H } from '../engine/physical-constants.ts';
 import { ZERO_CELSIUS_K } from '../engine/temperature.ts';
 import { gaussian } from './seeded-random.ts';
+import { reportedValue } from './submission-generator.ts';
 
 /**
  * Seeded generator of invented submissions for the kind `temperature-dependence`, clean or with one
  * slip. Not measurements: E_a ~ U(50, 100) kJ/mol, A such that k at 25 °C lies between 1e-4 and
  * 1e-2 s^-1, six temperatures 15 to 40 °C (written in °C or K), each k with 1 to 3 % scatter and
  * written to 4 significant figures. The clean student fits ln k and ln(k/T) against 1/T by ordinary
- * least squares and reports E_a (with its SE), A, ΔH‡ and ΔS‡.
+ * least squares and reports E_a (its SE to 2 figures, E_a to the SE's last place), A, ΔH‡ and ΔS‡.
  */
 export const temperatureSlips = ['temperature-scale', 'log-base', 'gas-constant', 'energy-unit', 'sign-flipped', 'reciprocal-scale', 'eyring-form', 'time-unit'] as const;
 export type TemperatureSlip = (typeof temperatureSlips)[number];
@@ -64,7 +65,8 @@ export function temperatureSubmission(random: () => number, studentId: string, s
     studentId,
     points,
     reported: {
-      Ea: { value: Number((reportedEa * kJ).toPrecision(4)), uncertainty: Number((arrhenius.seSlope * R * kJ).toPrecision(2)), unit: 'kJ mol^-1' },
+      // Rounded as a careful student rounds: the SE to 2 figures, E_a to the SE's last place.
+      Ea: reportedValue(reportedEa * kJ, arrhenius.seSlope * R * kJ, 'kJ mol^-1'),
       A: { value: Number(Math.exp(arrhenius.intercept).toPrecision(3)), unit: 's^-1' },
       dH: { value: Number((-sign * eyring.slope * R * kJ).toPrecision(4)), unit: 'kJ mol^-1' },
       dS: { value: Number((R * (eyring.intercept - LN_KB_OVER_H)).toPrecision(4)), unit: 'J K^-1 mol^-1' },

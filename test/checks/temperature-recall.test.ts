@@ -13,6 +13,11 @@ describe('temperature dependence: recall on generated submissions', () => {
     expect(flagged).toEqual([]);
   });
 
+  it(`finds no rounding to warn about in ${N} clean submissions (E_a rounded to its SE's last place)`, () => {
+    const warned = Array.from({ length: N }, (_, s) => checkSubmission(assignment, temperatureSubmission(seededRandom(s), 'T-01'))).flatMap((r) => r.findings.filter((f) => f.code === 'sig-figs').map((f) => f.path));
+    expect(warned).toEqual([]);
+  });
+
   it.each(temperatureSlips)(`names %s at its place in at least 97 of ${N}`, (slip) => {
     let named = 0;
     for (let s = 0; s < N; s++) {
