@@ -118,29 +118,9 @@ function reserve(n: number): void {
   }
 }
 
-/** Gathers the pairs whose ln F is defined into the scratch buffers; returns how many. */
-function definedPairs(t: ArrayLike<number>, lnF: ArrayLike<number>): number {
+/** Gathers the pairs whose ln F (entry i of a column) is defined into the scratch buffers; returns how many. */
+function definedPairs(t: ArrayLike<number>, lnFAt: (i: number) => number): number {
   reserve(t.length);
-  let n = 0;
-  for (let i = 0; i < t.length; i++) {
-    if (Number.isFinite(lnF[i])) {
-      pairT[n] = t[i];
-      pairLnF[n++] = lnF[i];
-    }
-  }
-  return n;
-}
-
-/** The asked model fitted to the (t, ln F) pairs that are defined: slope and standard error. */
-export function fitDefined(model: LineModel, t: ArrayLike<number>, lnF: ArrayLike<number>): { slope: number; seSlope: number } {
-  const n = definedPairs(t, lnF);
-  return slopeOnly(model, pairT, pairLnF, n);
-}
-
-/** The same fit of the run's ln F made with another x_inf (as `lnFWith` makes it), without the column. */
-function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number, model: LineModel): { slope: number; seSlope: number } {
-  reserve(t.length);
-  const lnFAt = lnFEntryWith(a, infinity);
   let n = 0;
   for (let i = 0; i < t.length; i++) {
     const lnF = lnFAt(i);
@@ -149,6 +129,18 @@ function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number,
       pairLnF[n++] = lnF;
     }
   }
+  return n;
+}
+
+/** The asked model fitted to the (t, ln F) pairs that are defined: slope and standard error. */
+export function fitDefined(model: LineModel, t: ArrayLike<number>, lnF: ArrayLike<number>): { slope: number; seSlope: number } {
+  const n = definedPairs(t, (i) => lnF[i]);
+  return slopeOnly(model, pairT, pairLnF, n);
+}
+
+/** The same fit of the run's ln F made with another x_inf, without keeping the column. */
+function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number, model: LineModel): { slope: number; seSlope: number } {
+  const n = definedPairs(t, lnFEntryWith(a, infinity));
   return slopeOnly(model, pairT, pairLnF, n);
 }
 
@@ -163,7 +155,7 @@ export function methodSlipFits(a: RunAnalysis, model: LineModel): SlipFit[] {
     },
   ];
   // t regressed on ln F, the slope reported as if it were the slope of ln F on t.
-  const pairs = definedPairs(t, lnF);
+  const pairs = definedPairs(t, (i) => lnF[i]);
   const swapped = slopeOnly(model, pairLnF, pairT, pairs);
   out.push({
     k: { value: -swapped.slope, causes: ['swapped-axes'], basis: 'minus the slope of t against ln F' },
