@@ -53,7 +53,16 @@ export function fastPathAsExact(ctx: { zodSchema: unknown; jsonSchema: Record<st
  * UTF-16 surrogate (which JSON can carry as an escape such as "\ud800") is not Unicode text at all.
  */
 const UNPAIRED_SURROGATE = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
-export const isStorableText = (text: string): boolean => !text.includes('\u0000') && !UNPAIRED_SURROGATE.test(text);
+export const isStorableText = (text: string): boolean => {
+  // Most text has no NUL and no surrogate at all: one pass over the code units decides it.
+  let surrogates = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 0) return false;
+    if (c >= 0xd800 && c <= 0xdfff) surrogates = true;
+  }
+  return !surrogates || !UNPAIRED_SURROGATE.test(text);
+};
 export const UNSTORABLE_TEXT = 'contains a NUL character or an unpaired surrogate, which cannot be stored';
 
 /** Free text of at most `max` characters, trimmed, never empty, storable. */

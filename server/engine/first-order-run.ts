@@ -27,7 +27,9 @@ export function elapsedTimes(run: FirstOrderRun): number[] {
   requireFinite(times, 'times');
   requireFinite(readings, 'readings');
   const t0 = times[0];
-  if (Array.prototype.every.call(times, (v: number) => v === t0)) {
+  let allEqual = true;
+  for (let i = 1; i < times.length && allEqual; i++) allEqual = times[i] === t0;
+  if (allEqual) {
     throw new EngineError('degenerate-x', 'all times are equal, so no rate can be fitted', 'times');
   }
   const elapsed = new Array<number>(times.length);

@@ -189,9 +189,17 @@ export function timeSymbol(unit: Unit): 's' | 'min' | 'h' | undefined {
   return TIME_SYMBOLS.find(([, f]) => Math.abs(unit.factor - f) <= 1e-12 * f)?.[0];
 }
 
+// Every estimate names its unit: a time unit's rate unit is worked out once (units are frozen and kept).
+const rateUnits = new WeakMap<Unit, string>();
+
 export function rateUnitOf(timeUnit: Unit | string): string {
   const unit = asUnit(timeUnit, 'time');
-  return `${timeSymbol(unit) ?? `(${unit.text})`}^-1`;
+  let rate = rateUnits.get(unit);
+  if (rate === undefined) {
+    rate = `${timeSymbol(unit) ?? `(${unit.text})`}^-1`;
+    rateUnits.set(unit, rate);
+  }
+  return rate;
 }
 
 export function secondOrderRateUnitOf(concentrationUnit: Unit | string, timeUnit: Unit | string): string {
