@@ -1,7 +1,7 @@
 import { execFileSync, spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
+import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { corpus } from './corpus.ts';
@@ -64,6 +64,9 @@ export async function benchWholeProcess(): Promise<void> {
     const ours = await seconds(process.execPath, [bin, 'check', '--assignment', data.assignment, data.submissions], 3);
     const theirs = missing ? undefined : await seconds(PYTHON, [baseline, '--once', data.submissions], 3);
     console.log(`check ${CHECKED.toLocaleString('en-US')} submissions (whole process, table output): rateproof ${secs(ours)}, baseline ${secs(theirs)}: ${ratio(theirs, ours)} (goal >= 5)`);
+    // What the worker pool adds on this machine: the same check in the command's own thread.
+    const oneThread = await seconds(process.execPath, [bin, 'check', '--workers', '0', '--assignment', data.assignment, data.submissions], 3);
+    console.log(`  the same in one thread (--workers 0): ${secs(oneThread)}; the pool of ${availableParallelism()} workers is ${(oneThread / ours).toFixed(2)} times as fast`);
 
     const few = join(dir, `first-${SHEETS}.json`);
     await writeFile(few, JSON.stringify((JSON.parse(await readFile(data.submissions, 'utf8')) as unknown[]).slice(0, SHEETS)));
