@@ -114,6 +114,10 @@ export function durbinWatsonBelow(p: number, residuals: ArrayLike<number>, jacob
   const statistic = statisticOf(residuals);
   const nullDistribution = durbinWatsonNull(jacobian, normalInverse);
   if (p <= 0.5 && nullDistribution.pastMedian(statistic)) return undefined;
+  return tested(statistic, nullDistribution);
+}
+
+function tested(statistic: number, nullDistribution: DurbinWatsonNull): DurbinWatson {
   return { statistic, expected: nullDistribution.expected, variance: nullDistribution.variance, pValue: nullDistribution.lowerTail(statistic) };
 }
 
@@ -128,7 +132,5 @@ function statisticOf(residuals: ArrayLike<number>): number {
 }
 
 export function durbinWatson(residuals: ArrayLike<number>, jacobian: ArrayLike<number>[], normalInverse: ArrayLike<number>): DurbinWatson {
-  const statistic = statisticOf(residuals);
-  const nullDistribution = durbinWatsonNull(jacobian, normalInverse);
-  return { statistic, expected: nullDistribution.expected, variance: nullDistribution.variance, pValue: nullDistribution.lowerTail(statistic) };
+  return tested(statisticOf(residuals), durbinWatsonNull(jacobian, normalInverse));
 }

@@ -106,7 +106,7 @@ function scratchProfiles(n: number): [Profile, Profile] {
     profiles = [new Profile(2 * n), new Profile(2 * n)];
     scratchJacobian = new Array<number>(2 * n).fill(0);
   }
-  return [profiles[0], profiles[1]];
+  return profiles;
 }
 
 // The x_inf column of the Jacobian is all ones; fits of one length share it (nothing writes to it).

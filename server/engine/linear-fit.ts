@@ -101,8 +101,11 @@ interface LineSums {
   sse: number;
 }
 
-/** The first n points' fit with an intercept, without allocating: slip searches run thousands. */
-function interceptSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: Weights): LineSums {
+/**
+ * The first n points' fit with an intercept, without allocating (slip searches run thousands); the
+ * residuals are written into `residuals` where the caller wants them.
+ */
+function interceptSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: Weights, residuals?: number[]): LineSums {
   let sumW = n;
   if (w) {
     sumW = 0;
@@ -128,12 +131,13 @@ function interceptSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w:
   let sse = 0;
   for (let i = 0; i < n; i++) {
     const r = y[i] - ym - slope * (x[i] - xm);
+    if (residuals) residuals[i] = r;
     sse += (w ? w[i] : 1) * r * r;
   }
   return { sumW, xm, ym, sxx, syy, slope, sse };
 }
 
-function originSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: Weights): LineSums {
+function originSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: Weights, residuals?: number[]): LineSums {
   let sxx = 0;
   let sxy = 0;
   let syy = 0;
@@ -150,6 +154,7 @@ function originSums(x: ArrayLike<number>, y: ArrayLike<number>, n: number, w: We
   let sse = 0;
   for (let i = 0; i < n; i++) {
     const r = y[i] - slope * x[i];
+    if (residuals) residuals[i] = r;
     sse += (w ? w[i] : 1) * r * r;
   }
   return { sumW: n, xm: 0, ym: 0, sxx, syy, slope, sse };
@@ -162,10 +167,9 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, options: Lin
   checkInput(x, y, sigma);
   const n = x.length;
   const w = weightsOf(sigma);
-  const { sumW, xm, ym, sxx, syy, slope, sse } = interceptSums(x, y, n, w);
-  const intercept = ym - slope * xm;
   const residuals = new Array<number>(n);
-  for (let i = 0; i < n; i++) residuals[i] = y[i] - ym - slope * (x[i] - xm);
+  const { sumW, xm, ym, sxx, syy, slope, sse } = interceptSums(x, y, n, w, residuals);
+  const intercept = ym - slope * xm;
   const dof = dofOf('intercept', n);
   const reducedChiSquared = sse / dof;
   const weighted = sigma !== undefined;
@@ -198,9 +202,8 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, opt
   checkInput(x, y, sigma);
   const n = x.length;
   const w = weightsOf(sigma);
-  const { sxx, syy, slope, sse } = originSums(x, y, n, w);
   const residuals = new Array<number>(n);
-  for (let i = 0; i < n; i++) residuals[i] = y[i] - slope * x[i];
+  const { sxx, syy, slope, sse } = originSums(x, y, n, w, residuals);
   const dof = dofOf('origin', n);
   const reducedChiSquared = sse / dof;
   const weighted = sigma !== undefined;

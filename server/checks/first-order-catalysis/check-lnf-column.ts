@@ -8,7 +8,7 @@ import { LN10 } from '../explain.ts';
 import { fmt } from '../format.ts';
 import { withinTolerance } from '../tolerance.ts';
 import type { RunAnalysis } from './run-analysis.ts';
-import { infinityAlternatives, lnFEntryWith, lnFWith, type InfinityAlternative } from './slip-values.ts';
+import { infinityAlternatives, lnFEntryWith, lnFWith, WRONG_INFINITY, type InfinityAlternative } from './slip-values.ts';
 
 /** The student's ln F column as numbers (NaN where blank), and whether a slip made it differ from ours. */
 export interface LnFColumn {
@@ -36,6 +36,8 @@ const SCALINGS: Array<Scaling & { causes: FindingCode[]; alone?: true }> = [
   { sign: -1, divisor: LN10, causes: ['sign-flipped', 'log-base'], alone: true },
 ];
 
+const ALTERNATIVE_SCALINGS = SCALINGS.filter((s) => !s.alone);
+
 const scaled = (v: number, s: Scaling) => (s.sign * v) / s.divisor;
 
 /**
@@ -46,10 +48,9 @@ const scaled = (v: number, s: Scaling) => (s.sign * v) / s.divisor;
 function matchingVariants(a: RunAnalysis, all: RunAnalysis[], student: number[], settings: Settings): ColumnVariant[] {
   const out: ColumnVariant[] = [];
   const tryBase = (base: number[], alternative?: InfinityAlternative) => {
-    for (const s of SCALINGS) {
-      if (alternative && s.alone) continue;
+    for (const s of alternative ? ALTERNATIVE_SCALINGS : SCALINGS) {
       if (!matches(student, base, s, settings)) continue;
-      out.push({ base, sign: s.sign, divisor: s.divisor, causes: alternative ? ['wrong-infinity', ...s.causes] : s.causes, alternative });
+      out.push({ base, sign: s.sign, divisor: s.divisor, causes: alternative ? [WRONG_INFINITY, ...s.causes] : s.causes, alternative });
     }
   };
   tryBase(a.transform!.lnF);
@@ -57,7 +58,7 @@ function matchingVariants(a: RunAnalysis, all: RunAnalysis[], student: number[],
   for (const alternative of infinityAlternatives(a, all)) {
     if (probe >= 0) {
       const entry = lnFEntryWith(a, alternative.value)(probe);
-      if (!SCALINGS.some((s) => !s.alone && entryMatches(student[probe], scaled(entry, s), settings))) continue;
+      if (!ALTERNATIVE_SCALINGS.some((s) => entryMatches(student[probe], scaled(entry, s), settings))) continue;
     }
     tryBase(lnFWith(a, alternative.value), alternative);
   }

@@ -132,17 +132,14 @@ function definedPairs(t: ArrayLike<number>, lnFAt: (i: number) => number): numbe
   return n;
 }
 
-/** The asked model fitted to the (t, ln F) pairs that are defined: slope and standard error. */
-export function fitDefined(model: LineModel, t: ArrayLike<number>, lnF: ArrayLike<number>): { slope: number; seSlope: number } {
-  const n = definedPairs(t, (i) => lnF[i]);
+/** The asked model fitted to the (t, ln F) pairs that are defined, ln F given entry by entry: slope and standard error. */
+function fitColumn(model: LineModel, t: ArrayLike<number>, lnFAt: (i: number) => number): { slope: number; seSlope: number } {
+  const n = definedPairs(t, lnFAt);
   return slopeOnly(model, pairT, pairLnF, n);
 }
 
-/** The same fit of the run's ln F made with another x_inf, without keeping the column. */
-function fitWithInfinity(a: RunAnalysis, t: ArrayLike<number>, infinity: number, model: LineModel): { slope: number; seSlope: number } {
-  const n = definedPairs(t, lnFEntryWith(a, infinity));
-  return slopeOnly(model, pairT, pairLnF, n);
-}
+/** The asked model fitted to the (t, ln F) pairs of a column that are defined. */
+export const fitDefined = (model: LineModel, t: ArrayLike<number>, lnF: ArrayLike<number>) => fitColumn(model, t, (i) => lnF[i]);
 
 /** The slips of method that need no refit: the other line model, swapped axes, the half-life. */
 export function methodSlipFits(a: RunAnalysis, model: LineModel): SlipFit[] {
@@ -175,7 +172,8 @@ export function infinitySlipFits(a: RunAnalysis, all: RunAnalysis[], model: Line
   const out: SlipFit[] = [];
   for (const alt of infinityAlternatives(a, all)) {
     try {
-      const fit = fitWithInfinity(a, t, alt.value, model);
+      // ln F with that x_inf is made entry by entry as it is fitted, without keeping the column.
+      const fit = fitColumn(model, t, lnFEntryWith(a, alt.value));
       out.push({
         k: new AlternativeFit(-fit.slope, 'the refit with that x_inf', alt, alt.longShot),
         se: new AlternativeFit(fit.seSlope, 'the standard error of the refit with that x_inf', alt, false),
