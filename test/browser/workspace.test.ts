@@ -45,12 +45,18 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.getByText(/^Signed in as/).waitFor();
   }
 
+  /** Signs in, collecting the page's script errors from the start (each test expects none). */
+  async function signInWatchingErrors(page: Page, token: string): Promise<string[]> {
+    const pageErrors: string[] = [];
+    page.on('pageerror', (e) => pageErrors.push(String(e)));
+    await signIn(page, token);
+    return pageErrors;
+  }
+
   it('takes a TA from sign-in through upload, review, override and release to the gradebook and sign-out', async () => {
     const context = await browser.newContext({ acceptDownloads: true });
     const page = await context.newPage();
-    const pageErrors: string[] = [];
-    page.on('pageerror', (e) => pageErrors.push(String(e)));
-    await signIn(page, s.taAToken);
+    const pageErrors = await signInWatchingErrors(page, s.taAToken);
     // The token is not kept by the page: not in storage, and the cookie is HttpOnly.
     expect(await page.evaluate(() => JSON.stringify({ ...localStorage }) + JSON.stringify({ ...sessionStorage }) + document.cookie)).toBe('{}{}');
 
@@ -175,9 +181,7 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
 
   it("lets an instructor edit settings (the schema's messages beside the fields), regrade with progress, add to a roster and manage a TA's tokens", async () => {
     const page = await browser.newPage();
-    const pageErrors: string[] = [];
-    page.on('pageerror', (e) => pageErrors.push(String(e)));
-    await signIn(page, s.instructorToken);
+    const pageErrors = await signInWatchingErrors(page, s.instructorToken);
     await page.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
     const panel = page.locator('article', { has: page.getByRole('heading', { name: s.assignment.title }) });
     await panel.getByText('Edit the settings').click();
@@ -224,9 +228,7 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
 
   it('lets an instructor create an assignment of the second kind and edit its settings as JSON, with the messages by field', async () => {
     const page = await browser.newPage();
-    const pageErrors: string[] = [];
-    page.on('pageerror', (e) => pageErrors.push(String(e)));
-    await signIn(page, s.instructorToken);
+    const pageErrors = await signInWatchingErrors(page, s.instructorToken);
     await page.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
     await page.getByText('New assignment').click();
     await page.getByLabel('Kind of experiment').selectOption('temperature-dependence');
