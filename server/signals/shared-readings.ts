@@ -1,4 +1,5 @@
 import { displayStepOf } from './display-step.ts';
+import { pairCandidates } from './pair-candidates.ts';
 
 /**
  * Data that look alike across a section, where every student measured their own: pairs of
@@ -122,6 +123,11 @@ function comparePair(a: SubmittedReadings, pa: Array<Prepared | undefined>, b: S
   return { students: [a.studentId, b.studentId], runs, sameReportedK };
 }
 
+/** The full comparison of two submissions, as findSharedReadings makes it for a pair it compares. */
+export function sharedPair(a: SubmittedReadings, b: SubmittedReadings): SharedPair | undefined {
+  return comparePair(a, a.runs.map((r) => prepare(r.readings)), b, b.runs.map((r) => prepare(r.readings)));
+}
+
 /** Connected students, in groups of three or more. */
 function groupsOf(pairs: SharedPair[]): string[][] {
   const parent = new Map<string, string>();
@@ -143,12 +149,12 @@ function groupsOf(pairs: SharedPair[]): string[][] {
 
 export function findSharedReadings(submissions: SubmittedReadings[]): SharedReport {
   const prepared = submissions.map((s) => s.runs.map((r) => prepare(r.readings)));
+  // Only pairs that can share anything are compared (see pairCandidates), in the order of all pairs.
+  const written = submissions.map((s) => (s.reportedK ?? []).flatMap((k) => distinctive(k) ?? []));
   const pairs: SharedPair[] = [];
-  for (let i = 0; i < submissions.length; i++) {
-    for (let j = i + 1; j < submissions.length; j++) {
-      const pair = comparePair(submissions[i], prepared[i], submissions[j], prepared[j]);
-      if (pair) pairs.push(pair);
-    }
+  for (const [i, j] of pairCandidates(prepared, MATCHING_SHARE, written)) {
+    const pair = comparePair(submissions[i], prepared[i], submissions[j], prepared[j]);
+    if (pair) pairs.push(pair);
   }
   return { pairs, groups: groupsOf(pairs) };
 }

@@ -46,10 +46,23 @@ export function benchSignalRates(): void {
     if ((checkSubmission(parseAssignment(s), submission).signals ?? []).length > 0) runSignalled++;
   }
   benchRunConditions();
+  benchSectionSize();
   console.log(
     `signals: honest students signalled ${honestFlagged} of ${SECTIONS * STUDENTS} (section signals) and ${runSignalled} of ${HONEST_SUBMISSIONS} submissions (run signals); ` +
       `a copied classmate's readings found in ${copiesFound} of ${SECTIONS} (shifted by a constant) and ${editedFound} of ${SECTIONS} (runs reordered, two readings each edited), computed readings in ${computedFound} of ${SECTIONS} (targets: < 1 % and >= 95 %)`,
   );
+}
+
+/** The section signals' time on large honest sections: all pairs are considered, few compared. */
+function benchSectionSize(): void {
+  const settings = { kind: 'first-order-catalysis' };
+  const times = [500, 2000, 5000].map((size) => {
+    const students = ownRunsSection(size, size);
+    const start = performance.now();
+    sectionSignals(settings, students);
+    return `${size.toLocaleString('en-US')} in ${Math.round(performance.now() - start)} ms`;
+  });
+  console.log(`section signals on one generated honest section: ${times.join(', ')}`);
 }
 
 const RUNS = 2000;

@@ -1,20 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { findSharedReadings, type SubmittedReadings } from '../../server/signals/shared-readings.ts';
-import { ownRunsSection } from '../support/own-runs-section.ts';
+import { findSharedReadings } from '../../server/signals/shared-readings.ts';
+import { asReadings, ownRunsSection } from '../support/own-runs-section.ts';
 
 /**
  * Generated sections (invented data: every student measures their own runs, with realistic noise at
  * 0.001 deg) with and without copied work. Honest sections must raise no pair; each way of copying
  * must be caught in at least 95 of 100 cases.
  */
-const asReadings = (s: Submission): SubmittedReadings => ({
-  studentId: s.studentId,
-  runs: s.runs.map((r) => ({ label: r.label, readings: r.readings.map(([t, x]) => [Number(t), Number(x)] as [number, number]) })),
-  reportedK: s.runs.map((r) => r.reported?.k?.value),
-});
-
 const round3 = (x: number) => Number(x.toFixed(3));
 type Copy = (original: Submission, random: () => number) => Submission;
 

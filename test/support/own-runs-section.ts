@@ -1,5 +1,6 @@
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
+import type { SubmittedReadings } from '../../server/signals/shared-readings.ts';
 import { generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
 
 /** A generated section where every student measured their own runs (invented data), S-001, S-002, ... */
@@ -21,3 +22,10 @@ export function computedReadings(s: Submission): Submission {
   }
   return copy;
 }
+
+/** A submission as the shared-readings signal reads it. */
+export const asReadings = (s: Submission): SubmittedReadings => ({
+  studentId: s.studentId,
+  runs: s.runs.map((r) => ({ label: r.label, readings: r.readings.map(([t, x]) => [Number(t), Number(x)] as [number, number]) })),
+  reportedK: s.runs.map((r) => r.reported?.k?.value),
+});
