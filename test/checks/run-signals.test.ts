@@ -3,8 +3,8 @@ import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 import { syntheticReadings } from '../../server/demo/synthetic-run.ts';
-import { END_VALUE_P, END_VALUE_T_SCREEN } from '../../server/checks/first-order-catalysis/run-signals.ts';
-import { tTwoSidedP } from '../../server/engine/student-t.ts';
+import { END_VALUE_P, END_VALUE_SCREEN_MARGIN } from '../../server/checks/first-order-catalysis/run-signals.ts';
+import { tCriticalTwoSided, tTwoSidedP } from '../../server/engine/student-t.ts';
 
 /** Signals about how a run was measured: never on honest generated work, always on the condition. */
 const assignment = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin', rubric: { lnF: 0 } });
@@ -86,11 +86,13 @@ describe('measurement signals', () => {
     }
   });
 
-  it('screen the end value by t alone only where no degrees of freedom could bring p under the threshold', () => {
-    // Student's t (from @stdlib/stats-base-dists-t-cdf, a reference library) has heavier tails than the normal.
-    for (const dof of [1, 2, 3, 5, 10, 30, 100, 1000, 1e6]) expect(tTwoSidedP(END_VALUE_T_SCREEN, dof)).toBeGreaterThan(END_VALUE_P);
-    // And the screen is not loose: for many degrees of freedom p at the screen is within 1 % of the threshold.
-    expect(tTwoSidedP(END_VALUE_T_SCREEN, 1e6)).toBeLessThan(1.01 * END_VALUE_P);
+  it('screen the end value by t alone only where p cannot be under the threshold, and not much further', () => {
+    // p from Student's t distribution function (@stdlib/stats-base-dists-t-cdf, a reference library).
+    for (const dof of [1, 2, 3, 5, 10, 13, 30, 100, 120, 121, 1000, 1e6]) {
+      const screen = tCriticalTwoSided(END_VALUE_P, dof) * (1 - END_VALUE_SCREEN_MARGIN);
+      expect(tTwoSidedP(screen, dof)).toBeGreaterThanOrEqual(END_VALUE_P);
+      expect(tTwoSidedP(screen, dof)).toBeLessThan(1.000001 * END_VALUE_P);
+    }
   });
 
   it('do not name a constant zero offset of the instrument: it cancels in F (common practice, no source)', () => {

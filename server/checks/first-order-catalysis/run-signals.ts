@@ -1,7 +1,7 @@
 import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import type { Signal } from '../../../schemas/result.ts';
 import { durbinWatsonBelow } from '../../engine/durbin-watson.ts';
-import { tTwoSidedP } from '../../engine/student-t.ts';
+import { tCriticalTwoSided, tTwoSidedP } from '../../engine/student-t.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -54,8 +54,9 @@ export const END_VALUE_P = 1e-3;
 export const END_VALUE_K_SHARE = 0.01;
 /** Where the readings alone do not fix k this well, they do not say where they level off either. */
 export const END_VALUE_OWN_K_SHARE = 0.2;
-// The standard normal's two-sided 0.1 % point, 3.2905 (from memory), rounded down.
-export const END_VALUE_T_SCREEN = 3.29;
+// Inside this share below the critical value p is surely not under END_VALUE_P, whatever rounding the
+// quantile and the distribution function carry.
+export const END_VALUE_SCREEN_MARGIN = 1e-9;
 
 function endValue(a: RunAnalysis): Signal | undefined {
   const own = a.ownEndValue;
@@ -66,9 +67,8 @@ function endValue(a: RunAnalysis): Signal | undefined {
   const kShare = Math.abs(a.exponential.k.value - own.k.value) / own.k.value;
   if (!(kShare > END_VALUE_K_SHARE)) return undefined;
   const t = (fitted.value - recorded) / Math.hypot(fitted.standardError, own.residualSD);
-  // Student's t has heavier tails than the normal: below the normal's two-sided 0.1 % point (3.2905)
-  // p is above END_VALUE_P for any degrees of freedom, and the t distribution need not be evaluated.
-  if (!(Math.abs(t) >= END_VALUE_T_SCREEN)) return undefined;
+  // Inside Student's critical value for END_VALUE_P p is above it: only a run past it needs p itself.
+  if (!(Math.abs(t) >= tCriticalTwoSided(END_VALUE_P, own.dof) * (1 - END_VALUE_SCREEN_MARGIN))) return undefined;
   const p = tTwoSidedP(t, own.dof);
   if (!(p < END_VALUE_P)) return undefined;
   const unit = a.exponential.k.unit;
