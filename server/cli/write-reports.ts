@@ -9,6 +9,8 @@ import type { WorkerPool } from '../pool/worker-pool.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 
+const WRITES_IN_FLIGHT = 8;
+
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary. Sheets are drawn
  * in the worker pool when there is one. Returns the sheet count.
@@ -45,7 +47,16 @@ export async function writeReports(
     await Promise.all(sheets.map(async ({ name, input }) => save(name, await pool.run('render-sheet', input))));
   } else {
     const { renderSheetOrReason } = await import('../../reports/sheet-or-reason.ts');
-    for (const { name, input } of sheets) await save(name, await renderSheetOrReason(input));
+    // Each sheet is written while the next is drawn, a few at most in flight.
+    const writing = new Set<Promise<void>>();
+    for (const { name, input } of sheets) {
+      if (writing.size >= WRITES_IN_FLIGHT) await Promise.race(writing);
+      const written = save(name, await renderSheetOrReason(input)).finally(() => writing.delete(written));
+      // A failure is seen by the Promise.all below; this keeps it from counting as unhandled meanwhile.
+      written.catch(() => {});
+      writing.add(written);
+    }
+    await Promise.all(writing);
   }
   await save('gradebook.csv', gradebookCsv(results, { bom: true }));
   const { renderSectionSummary } = await import('../../reports/section-summary.ts');
