@@ -107,7 +107,7 @@ export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: A
     tailAtLeast: (statistic, level) => {
       const x = statistic / 4;
       if (level <= 0.5 && a > 1 && b > 1 && x >= Math.max(mean, mode)) return true;
-      return a > 0 && b > 0 && x > 0 && x < 1 && logTailBound(x, a, b) - BOUND_MARGIN >= Math.log(level);
+      return a > 0 && b > 0 && Number.isFinite(a + b) && x > 0 && x < 1 && logTailBound(x, a, b) - BOUND_MARGIN >= Math.log(level);
     },
   };
 }
