@@ -96,13 +96,26 @@ function distinctive(value: string | number | undefined): string | undefined {
   return digits.length >= 4 ? text : undefined;
 }
 
-function comparePair(a: SubmittedReadings, pa: Array<Prepared | undefined>, b: SubmittedReadings, pb: Array<Prepared | undefined>): SharedPair | undefined {
+/** A submission as the comparison reads it: each run prepared, each reported k's distinctive text. */
+export interface PreparedSubmission {
+  source: SubmittedReadings;
+  runs: Array<Prepared | undefined>;
+  written: Array<string | undefined>;
+}
+
+export function prepareSubmission(source: SubmittedReadings): PreparedSubmission {
+  return { source, runs: source.runs.map((r) => prepare(r.readings)), written: (source.reportedK ?? []).map(distinctive) };
+}
+
+function comparePair(pa: PreparedSubmission, pb: PreparedSubmission): SharedPair | undefined {
+  const { source: a } = pa;
+  const { source: b } = pb;
   const runs: RunMatch[] = [];
   const usedB = new Set<number>();
-  pa.forEach((ra, i) => {
+  pa.runs.forEach((ra, i) => {
     if (!ra) return;
-    for (let j = 0; j < pb.length; j++) {
-      const rb = pb[j];
+    for (let j = 0; j < pb.runs.length; j++) {
+      const rb = pb.runs[j];
       if (!rb || usedB.has(j)) continue;
       const match = compareRuns(ra, rb);
       if (match) {
@@ -113,10 +126,9 @@ function comparePair(a: SubmittedReadings, pa: Array<Prepared | undefined>, b: S
     }
   });
   const sameReportedK: Array<[number, number]> = [];
-  (a.reportedK ?? []).forEach((ka, i) => {
-    const text = distinctive(ka);
+  pa.written.forEach((text, i) => {
     if (text === undefined) return;
-    const j = (b.reportedK ?? []).findIndex((kb) => distinctive(kb) === text);
+    const j = pb.written.indexOf(text);
     if (j >= 0) sameReportedK.push([i, j]);
   });
   if (runs.length < Math.min(MATCHING_RUNS, a.runs.length, b.runs.length) && sameReportedK.length < MATCHING_RUNS) return undefined;
@@ -125,7 +137,7 @@ function comparePair(a: SubmittedReadings, pa: Array<Prepared | undefined>, b: S
 
 /** The full comparison of two submissions, as findSharedReadings makes it for a pair it compares. */
 export function sharedPair(a: SubmittedReadings, b: SubmittedReadings): SharedPair | undefined {
-  return comparePair(a, a.runs.map((r) => prepare(r.readings)), b, b.runs.map((r) => prepare(r.readings)));
+  return comparePair(prepareSubmission(a), prepareSubmission(b));
 }
 
 /** Connected students, in groups of three or more. */
@@ -148,12 +160,12 @@ function groupsOf(pairs: SharedPair[]): string[][] {
 }
 
 export function findSharedReadings(submissions: SubmittedReadings[]): SharedReport {
-  const prepared = submissions.map((s) => s.runs.map((r) => prepare(r.readings)));
+  const prepared = submissions.map(prepareSubmission);
   // Only pairs that can share anything are compared (see pairCandidates), in the order of all pairs.
-  const written = submissions.map((s) => (s.reportedK ?? []).flatMap((k) => distinctive(k) ?? []));
+  const written = prepared.map((p) => p.written.filter((text) => text !== undefined));
   const pairs: SharedPair[] = [];
-  for (const [i, j] of pairCandidates(prepared, MATCHING_SHARE, written)) {
-    const pair = comparePair(submissions[i], prepared[i], submissions[j], prepared[j]);
+  for (const [i, j] of pairCandidates(prepared.map((p) => p.runs), MATCHING_SHARE, written)) {
+    const pair = comparePair(prepared[i], prepared[j]);
     if (pair) pairs.push(pair);
   }
   return { pairs, groups: groupsOf(pairs) };

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { pairCandidates } from '../../server/signals/pair-candidates.ts';
-import { findSharedReadings, MATCHING_SHARE, sharedPair, type SharedPair, type SubmittedReadings } from '../../server/signals/shared-readings.ts';
+import { findSharedReadings, MATCHING_SHARE, prepareSubmission, sharedPair, type SharedPair, type SubmittedReadings } from '../../server/signals/shared-readings.ts';
 import { asReadings, ownRunsSection } from '../support/own-runs-section.ts';
 
 /**
@@ -96,15 +96,9 @@ describe('the pairs compared for shared readings', () => {
 
   it('leave out nearly all pairs of an honest section', () => {
     const section = ownRunsSection(31, 300).map(asReadings);
-    const prepared = section.map((s) => s.runs.map((r) => ({ f: fOf(r.readings), tolerance: (2 * STEP) / Math.abs(r.readings[0][1] - r.readings[r.readings.length - 1][1]) })));
-    const candidates = pairCandidates(prepared, MATCHING_SHARE, section.map(() => []));
+    const candidates = pairCandidates(section.map((s) => prepareSubmission(s).runs), MATCHING_SHARE, section.map(() => []));
     const all = (section.length * (section.length - 1)) / 2;
     console.log(`honest section of 300: ${candidates.length} of ${all} pairs compared`);
     expect(candidates.length).toBeLessThan(all / 100);
   });
 });
-
-function fOf(readings: Array<[number, number]>): number[] {
-  const last = readings[readings.length - 1][1];
-  return readings.map(([, x]) => (x - last) / (readings[0][1] - last));
-}
