@@ -9,6 +9,7 @@ import { checkJsonBatch, formatResults, type CheckedBatch, type ResultOutput } f
 import { fileErrorReason, InputError, isFileError, UsageError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { parseOptions } from './parse-options.ts';
+import { InFlight } from './in-flight.ts';
 import { JsonBatcher, JsonLayoutError, type JsonBatch } from './json-batches.ts';
 import { readAssignment, readCsvSubmissions } from './read-input.ts';
 import { renderTable, type TableEntry } from './results-table.ts';
@@ -125,17 +126,12 @@ async function streamBatches(
   sink: ResultSink,
 ): Promise<void> {
   const batcher = new JsonBatcher({ jsonLines, batchBytes: BATCH_BYTES });
-  const inFlight = new Set<Promise<void>>();
+  const inFlight = new InFlight(2 * (pool?.size ?? 1));
   let seq = 0;
   const check = async (batch: JsonBatch) => {
     const n = seq++;
     if (!pool) return sink.add(n, checkJsonBatch(job(batch)));
-    while (inFlight.size >= 2 * pool.size) await Promise.race(inFlight);
-    const done = pool.run('check-json-batch', job(batch)).then((checked) => sink.add(n, checked));
-    const tracked = done.finally(() => inFlight.delete(tracked));
-    // A failure is seen by the Promise.all below; this keeps it from counting as unhandled meanwhile.
-    tracked.catch(() => {});
-    inFlight.add(tracked);
+    await inFlight.add(() => pool.run('check-json-batch', job(batch)).then((checked) => sink.add(n, checked)));
   };
   try {
     let first = true;
@@ -146,9 +142,9 @@ async function streamBatches(
       for (const batch of batcher.push(bytes)) await check(batch);
     }
     for (const batch of batcher.end()) await check(batch);
-    await Promise.all(inFlight);
+    await inFlight.done();
   } catch (error) {
-    await Promise.allSettled(inFlight);
+    await inFlight.settled();
     if (error instanceof JsonLayoutError || (error instanceof WorkerTaskError && error.taskErrorName === 'JsonLayoutError')) {
       throw new InputError(`cannot read ${path}: ${error.message}`);
     }

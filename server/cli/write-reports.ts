@@ -8,6 +8,7 @@ import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
+import { InFlight } from './in-flight.ts';
 
 const WRITES_IN_FLIGHT = 8;
 
@@ -48,15 +49,12 @@ export async function writeReports(
   } else {
     const { renderSheetOrReason } = await import('../../reports/sheet-or-reason.ts');
     // Each sheet is written while the next is drawn, a few at most in flight.
-    const writing = new Set<Promise<void>>();
+    const writing = new InFlight(WRITES_IN_FLIGHT);
     for (const { name, input } of sheets) {
-      if (writing.size >= WRITES_IN_FLIGHT) await Promise.race(writing);
-      const written = save(name, await renderSheetOrReason(input)).finally(() => writing.delete(written));
-      // A failure is seen by the Promise.all below; this keeps it from counting as unhandled meanwhile.
-      written.catch(() => {});
-      writing.add(written);
+      const bytes = await renderSheetOrReason(input);
+      await writing.add(() => save(name, bytes));
     }
-    await Promise.all(writing);
+    await writing.done();
   }
   await save('gradebook.csv', gradebookCsv(results, { bom: true }));
   const { renderSectionSummary } = await import('../../reports/section-summary.ts');
