@@ -4,10 +4,12 @@ import { mainErrorCodes, severityCounts } from './result-summary.ts';
 /**
  * The section's gradebook as CSV: one row per result, then one per roster student who has not
  * submitted (status `not-submitted`, or `withdrawn`; no score), so that no student drops out of a
- * gradebook silently.
+ * gradebook silently. A withdrawn student who submitted has status `withdrawn` too, with the score
+ * and counts of their work kept: it was graded before they left, and what becomes of it is the
+ * instructor's decision, which a blank cell would take away.
  *
- * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the error
- * findings' codes, most costly first, `;`-joined). A rejected result has an empty score.
+ * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the codes of
+ * the errors that cost points, most costly first, `;`-joined). A rejected result has an empty score.
  *
  * - RFC 4180: fields with a comma, a double quote, CR or LF are quoted, quotes doubled; lines end CRLF.
  * - UTF-8; with `bom: true` a byte-order mark first, which Excel needs to read UTF-8.
@@ -21,6 +23,8 @@ export interface GradebookOptions {
   bom?: boolean;
   /** Roster students with no submission, and whether each has withdrawn. */
   notSubmitted?: ReadonlyArray<{ studentId: string; withdrawn: boolean }>;
+  /** Students who submitted and have since withdrawn. */
+  withdrawn?: ReadonlySet<string>;
 }
 
 export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes'] as const;
@@ -45,13 +49,13 @@ function cellText(cell: Cell): string {
   return cell.number === null ? '' : String(Number(cell.number.toFixed(2)));
 }
 
-function row(result: CheckResult): Cell[] {
+function row(result: CheckResult, withdrawn: ReadonlySet<string>): Cell[] {
   const counts = severityCounts(result.findings);
   return [
     { text: result.studentId ?? '' },
     { number: result.status === 'checked' ? result.score : null },
     { number: result.maxScore },
-    { text: result.status },
+    { text: result.studentId !== null && withdrawn.has(result.studentId) ? 'withdrawn' : result.status },
     { number: counts.errors },
     { number: counts.warnings },
     { number: counts.infos },
@@ -65,7 +69,8 @@ function notSubmittedRow(student: { studentId: string; withdrawn: boolean }): Ce
 }
 
 export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions = {}): string {
-  const rows = [...results.map(row), ...(options.notSubmitted ?? []).map(notSubmittedRow)];
+  const withdrawn = options.withdrawn ?? new Set<string>();
+  const rows = [...results.map((r) => row(r, withdrawn)), ...(options.notSubmitted ?? []).map(notSubmittedRow)];
   const lines = [GRADEBOOK_COLUMNS.join(','), ...rows.map((r) => r.map(cellText).join(','))];
   return `${options.bom ? '\uFEFF' : ''}${lines.join('\r\n')}\r\n`;
 }

@@ -16,13 +16,15 @@ export function severityCounts(findings: readonly Finding[]): SeverityCounts {
 }
 
 /**
- * The codes of the error findings, each once, most costly first (points lost summed over the code's
- * findings); ties keep the order in which the codes first appear.
+ * The codes of the error findings that cost points, each once, most costly first (points lost summed
+ * over the code's findings); ties keep the order in which the codes first appear. An error that costs
+ * nothing (a TA overrode it to 0, or its rubric item is worth 0) is still counted among the errors,
+ * but is not what a student lost points for.
  */
 export function mainErrorCodes(findings: readonly Finding[]): string[] {
   const cost = new Map<string, number>();
   for (const f of findings) {
-    if (f.severity === 'error') cost.set(f.code, (cost.get(f.code) ?? 0) + f.pointsLost);
+    if (f.severity === 'error' && f.pointsLost > 0) cost.set(f.code, (cost.get(f.code) ?? 0) + f.pointsLost);
   }
   const order = [...cost.keys()];
   return order.sort((a, b) => cost.get(b)! - cost.get(a)! || order.indexOf(a) - order.indexOf(b));

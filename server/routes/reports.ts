@@ -3,7 +3,7 @@ import { gradebookCsv } from '../../reports/gradebook-csv.ts';
 import { sectionZip } from '../../reports/section-zip.ts';
 import { ApiError } from '../errors.ts';
 import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
-import { studentsWithoutSubmission } from '../store/students.ts';
+import { studentsWithoutSubmission, withdrawnStudents } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
@@ -66,7 +66,8 @@ export const reportRoutes: RouteSpec[] = [
     async handler({ db, scope, params: p, query }) {
       const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
       const notSubmitted = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map((s) => ({ studentId: s.studentId, withdrawn: s.status === 'withdrawn' }));
-      const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { bom: query.bom === 'true', notSubmitted });
+      const withdrawn = new Set(await withdrawnStudents(db, sectionId));
+      const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { bom: query.bom === 'true', notSubmitted, withdrawn });
       return { status: 200, body: csv, contentType: 'text/csv; charset=utf-8', headers: download(`gradebook-section-${scope.sectionId}.csv`) };
     },
   },

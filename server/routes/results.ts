@@ -12,7 +12,7 @@ const Row = z.object({
   /** Null for a roster student who has not submitted. */
   submissionId: z.number().nullable(),
   version: z.number().nullable(),
-  /** `checked`, `rejected`, `not-submitted` or `withdrawn` (no submission); null while a result is missing. */
+  /** `checked`, `rejected`, `not-submitted`, or `withdrawn` (score kept when they submitted); null while a result is missing. */
   status: z.string().nullable(),
   /** On the roster: `enrolled` or `withdrawn` (removed students are left out). */
   enrolment: Enrolment,
@@ -55,7 +55,7 @@ export const resultRoutes: RouteSpec[] = [
         studentId: submission.studentId,
         submissionId: submission.submissionId,
         version: submission.version,
-        status: result?.status ?? null,
+        status: submission.enrolment === 'withdrawn' ? 'withdrawn' : (result?.status ?? null),
         enrolment: submission.enrolment,
         score: result?.score ?? null,
         maxScore: result?.maxScore ?? null,

@@ -82,3 +82,9 @@ export async function studentsWithoutSubmission(db: Kysely<Database>, sectionId:
     .execute();
   return rows;
 }
+
+/** The pseudonymous ids of a section's withdrawn students. */
+export async function withdrawnStudents(db: Kysely<Database>, sectionId: number): Promise<string[]> {
+  const rows = await db.selectFrom('students').select('student_id').where('section_id', '=', sectionId).where('status', '=', 'withdrawn').execute();
+  return rows.map((r) => r.student_id);
+}

@@ -73,3 +73,20 @@ describe('gradebookCsv', () => {
     expect(neutraliseText('-2')).toBe(`'-2`);
   });
 });
+
+describe('gradebookCsv, books a TA can trust', () => {
+  it('names as main codes only the errors that cost points (an error forgiven to 0 is counted, not named)', () => {
+    const [, row] = rows(gradebookCsv([result('S-001', [finding('sign-flipped', 'error', 0), finding('time-unit', 'error', 2)], 20)]));
+    expect(row.slice(4)).toEqual(['2', '0', '0', 'time-unit']);
+  });
+
+  it('shows a withdrawn student who submitted as withdrawn, keeping the score of their work', () => {
+    const csv = gradebookCsv([result('S-001', [], 20), result('S-002', [], 18), result('S-003', [], null)], { withdrawn: new Set(['S-002', 'S-003']), notSubmitted: [{ studentId: 'S-004', withdrawn: true }] });
+    expect(rows(csv).slice(1).map((r) => r.slice(0, 4))).toEqual([
+      ['S-001', '20', '22', 'checked'],
+      ['S-002', '18', '22', 'withdrawn'],
+      ['S-003', '', '22', 'withdrawn'],
+      ['S-004', '', '', 'withdrawn'],
+    ]);
+  });
+});
