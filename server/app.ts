@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import fastifyMultipart from '@fastify/multipart';
 import fastifySwagger from '@fastify/swagger';
 import fastifySwaggerUi from '@fastify/swagger-ui';
-import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
+import Fastify, { type FastifyInstance, type FastifyReply, type FastifyRequest } from 'fastify';
 import { sql } from 'kysely';
 import { hasZodFastifySchemaValidationErrors, jsonSchemaTransform, serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
 import type { Config } from './config.ts';
@@ -24,6 +24,9 @@ import { validationDetails } from './routes/validation-details.ts';
 import type { Store } from './store/connection.ts';
 import { findIdempotent, holdIdempotencyKey, MAX_IDEMPOTENCY_KEY, saveIdempotent } from './store/idempotency.ts';
 import { isDatabaseUnavailable } from './store/unavailable.ts';
+
+/** The longest path parameter the router reads (a student id has at most 64 characters). */
+const MAX_PATH_PARAM = 100;
 
 /** How long a client is asked to wait before sending a request again while the database is away. */
 const RETRY_AFTER_SECONDS = '5';
@@ -122,6 +125,12 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
       ? { level: options.config.logLevel, serializers: { req: logRequest }, ...(typeof options.logger === 'object' ? { stream: options.logger.stream } : {}) }
       : false,
     bodyLimit: options.config.bodyLimitBytes,
+    // The router's own refusals (a path that is not percent-encoding, a parameter past its length) answer in our error shape.
+    frameworkErrors: (error, _request, reply) => {
+      const message = error.code === 'FST_ERR_MAX_PARAM_LENGTH' ? `a path parameter is longer than ${MAX_PATH_PARAM} characters` : 'a path parameter is not valid percent-encoding (% must start two hex digits of UTF-8)';
+      return (reply as FastifyReply).code(400).send(errorBody(new ApiError('invalid-input', undefined, [{ path: 'params', message }])));
+    },
+    routerOptions: { maxParamLength: MAX_PATH_PARAM },
   });
   app.setValidatorCompiler(validatorCompiler);
   app.setSerializerCompiler(serializerCompiler);

@@ -1,17 +1,25 @@
 import { createHash } from 'node:crypto';
 import type { FastifyRequest } from 'fastify';
+import { ApiError } from '../errors.ts';
 import { sameSecret } from './same-secret.ts';
 
 /** The workspace's session cookie: HttpOnly (no script reads it), SameSite=Strict, Secure over TLS. */
 export const SESSION_COOKIE = 'rateproof_session';
 export const SESSION_HOURS = 8;
 
+/** The session cookie's value; a value that is not percent-encoding is no session (a 401 naming the cookie). */
 export function readSessionCookie(request: FastifyRequest): string | undefined {
   const header = request.headers.cookie;
   if (!header) return undefined;
   for (const part of header.split(';')) {
     const eq = part.indexOf('=');
-    if (eq > 0 && part.slice(0, eq).trim() === SESSION_COOKIE) return decodeURIComponent(part.slice(eq + 1).trim());
+    if (eq > 0 && part.slice(0, eq).trim() === SESSION_COOKIE) {
+      try {
+        return decodeURIComponent(part.slice(eq + 1).trim());
+      } catch {
+        throw new ApiError('unauthenticated', 'the session cookie cannot be read; sign in again', [{ path: `cookie.${SESSION_COOKIE}`, message: 'not valid percent-encoding' }]);
+      }
+    }
   }
   return undefined;
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isStorableText, UNSTORABLE_TEXT } from '../../schemas/common.ts';
+import { isStorableText, StudentId, UNSTORABLE_TEXT } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
@@ -164,7 +164,7 @@ export const submissionRoutes: RouteSpec[] = [
     access: 'section',
     summary: "A student's submissions (every version) with each one's latest result",
     schema: {
-      params: z.object({ sectionId: IdParam, studentId: z.string().min(1).max(64) }),
+      params: z.object({ sectionId: IdParam, studentId: StudentId }),
       querystring: z.object({ assignmentId: IdParam.optional() }),
       response: { 200: z.array(z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: Result.nullable() })) },
     },
