@@ -13,6 +13,7 @@ import { sameThreadPool } from './pool/same-thread-pool.ts';
 import { ApiError, errorBody } from './errors.ts';
 import { authorize, resolveScope, type Caller, type Scope } from './routes/access.ts';
 import { callerOf } from './routes/caller.ts';
+import { loggableUrl } from './routes/loggable-url.ts';
 import { registerSessionRoutes } from './routes/session-routes.ts';
 import { registerWorkspaceFiles } from './routes/workspace-files.ts';
 import { routes } from './routes/index.ts';
@@ -114,8 +115,8 @@ function loggable(error: unknown): { name: string; code?: string; at: string[] }
 }
 
 /** Request lines for the log: method and URL with student ids taken out; no headers, no body. */
-function logRequest(request: { method: string; url: string; id: string }) {
-  return { id: request.id, method: request.method, url: request.url.replace(/\/students\/[^/?]+/, '/students/:studentId') };
+function logRequest(request: FastifyRequest) {
+  return { id: request.id, method: request.method, url: loggableUrl(request) };
 }
 
 /** Builds the app: content parsers, error mapping, OpenAPI, and every route. Never listens. */

@@ -40,3 +40,40 @@ describe('the log of an unexpected error', () => {
     for (const secret of ['S-001', 'secret text', 'Failing row', 'violates', s.taAToken]) expect(logged).not.toContain(secret);
   });
 });
+
+describe('the request log', () => {
+  let api: Api;
+  let s: Seed;
+  beforeAll(async () => {
+    api = await openApi('pglite');
+    s = await seedCourse(api.app);
+  }, 60_000);
+  afterAll(async () => api?.close());
+
+  it('names no student id on any line, whatever URL carried one (roster, history, query, unknown or malformed paths)', async () => {
+    const lines: string[] = [];
+    const stream = new PassThrough();
+    stream.on('data', (chunk) => lines.push(...String(chunk).split('\n').filter(Boolean)));
+    const app = await buildApp({ config: { ...testConfig, logLevel: 'trace' }, store: api.database.store, logger: { stream } });
+    const requests = [
+      { method: 'PUT' as const, url: `/v1/sections/${s.sectionA.id}/roster/S-001`, payload: { status: 'withdrawn' } },
+      { method: 'PUT' as const, url: `/v1/sections/${s.sectionA.id}/roster/S-002`, payload: { status: 'sideways' } },
+      { method: 'GET' as const, url: `/v1/sections/${s.sectionA.id}/students/S-003/history?assignmentId=${s.assignment.id}` },
+      { method: 'GET' as const, url: `/v1/sections/${s.sectionA.id}/roster?student=S-004` },
+      { method: 'GET' as const, url: `/v1/sections/${s.sectionA.id}/pupils/S-005` },
+      { method: 'GET' as const, url: `/v1/sections/${s.sectionA.id}/students/S-006%/history` },
+      { method: 'GET' as const, url: `/v1/sections/${s.sectionA.id}/students/S-101${'x'.repeat(120)}/history` },
+    ];
+    const statuses: number[] = [];
+    for (const r of requests) statuses.push((await app.inject({ ...r, headers: bearer(s.instructorToken) })).statusCode);
+    await app.close();
+    // Each request was answered (a success, a refusal or a miss), so each was logged on its way in and out.
+    expect(statuses).toEqual([200, 400, 404, 200, 404, 400, 400]);
+    const logged = lines.join('\n');
+    expect(lines.filter((l) => l.includes('incoming request')).length).toBe(requests.length);
+    // The numeric section id is kept: it names no person and helps find a request again.
+    expect(logged).toContain(`/v1/sections/${s.sectionA.id}/roster/:studentId`);
+    for (const id of ['S-001', 'S-002', 'S-003', 'S-004', 'S-005', 'S-006', 'S-101']) expect(logged).not.toContain(id);
+  });
+});
+
