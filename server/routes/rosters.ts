@@ -2,7 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { z } from 'zod';
 import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
-import { addToRoster, listRoster, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
+import { addToRoster, idKey, listRoster, rosterRows, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { Enrolment, IdParam } from './schemas.ts';
 
@@ -15,10 +15,22 @@ const RosterStudent = z.object({
 });
 
 const Entry = z.object({ studentId: StudentId, displayName: Text(200).optional() });
-const RosterBody = z.union([z.object({ students: z.array(Entry).min(1, 'at least one student').max(5000, 'at most 5,000 students in one request') }), z.string()]);
+const MAX_STUDENTS = 5000;
+const RosterBody = z.union([z.object({ students: z.array(Entry).min(1, 'at least one student').max(MAX_STUDENTS, 'at most 5,000 students in one request') }), z.string()]);
+const RosterAdded = z.object({
+  /** Students new to the roster. */
+  added: z.number(),
+  /** Students withdrawn or removed before, enrolled again. */
+  reenrolled: z.number(),
+  /** Students listed who were already enrolled: nothing changed for them but a display name given. */
+  alreadyEnrolled: z.number(),
+});
+
+/** A roster entry with where in the request its id was given, for messages. */
+type Placed = RosterEntry & { at: string };
 
 /** A roster CSV: a header with `student_id` and optionally `display_name`. */
-function rosterFromCsv(text: string): RosterEntry[] {
+function rosterFromCsv(text: string): Placed[] {
   let rows: Record<string, string>[];
   try {
     rows = parse(text, { columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()), skip_empty_lines: true, trim: true, bom: true });
@@ -29,10 +41,32 @@ function rosterFromCsv(text: string): RosterEntry[] {
     throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a header row with a student_id column is required' }]);
   }
   return rows.map((r, i) => {
+    const at = `line ${i + 2}.student_id`;
     const parsed = Entry.safeParse({ studentId: r.student_id, displayName: r.display_name || undefined });
-    if (!parsed.success) throw new ApiError('invalid-input', undefined, [{ path: `line ${i + 2}.student_id`, message: parsed.error.issues[0].message }]);
-    return parsed.data;
+    if (!parsed.success) throw new ApiError('invalid-input', undefined, [{ path: at, message: parsed.error.issues[0].message }]);
+    return { ...parsed.data, at };
   });
+}
+
+/** Plain text, one id per line as typed in the workspace's roster box; blank lines are skipped, any other line must be one id. */
+function rosterFromLines(text: string): Placed[] {
+  const entries: Placed[] = [];
+  const wrong: Array<{ path: string; message: string }> = [];
+  text.split(/\r\n|\r|\n/).forEach((line, i) => {
+    const id = line.trim();
+    if (id === '') return;
+    if (StudentId.safeParse(id).success) entries.push({ studentId: id, at: `body line ${i + 1}` });
+    else wrong.push({ path: `body line ${i + 1}`, message: `${JSON.stringify(id.length > 80 ? `${id.slice(0, 80)}…` : id)} is not one student id: give one id per line (letters, digits, dot, underscore or hyphen, at most 64)` });
+  });
+  if (wrong.length > 0) throw new ApiError('invalid-input', `${wrong.length} line${wrong.length === 1 ? ' is' : 's are'} not one student id; nothing was added`, wrong);
+  if (entries.length === 0) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'at least one student id' }]);
+  if (entries.length > MAX_STUDENTS) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'at most 5,000 students in one request' }]);
+  return entries;
+}
+
+function entriesOf(body: unknown, contentType: string | undefined): Placed[] {
+  if (typeof body !== 'string') return (body as { students: RosterEntry[] }).students.map((e, i) => ({ ...e, at: `body.students[${i}].studentId` }));
+  return contentType?.startsWith('text/plain') ? rosterFromLines(body) : rosterFromCsv(body);
 }
 
 export const rosterRoutes: RouteSpec[] = [
@@ -40,20 +74,28 @@ export const rosterRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/sections/:sectionId/roster',
     access: 'instructor',
-    summary: 'Add students to a section roster (JSON or text/csv); a student may be in one section per course',
-    schema: { params: z.object({ sectionId: IdParam }), body: RosterBody, response: { 200: z.object({ added: z.number() }) } },
+    summary:
+      'Add students to a section roster: JSON, text/csv (a student_id column, display_name optional) or text/plain (one id per line). Ids are compared without regard to case; a student may be in one section per course. Answers how many were added, enrolled again and already enrolled',
+    schema: { params: z.object({ sectionId: IdParam }), body: RosterBody, response: { 200: RosterAdded } },
     transactional: true,
-    async handler({ db, scope, body, caller }) {
-      const entries = typeof body === 'string' ? rosterFromCsv(body) : (body as { students: RosterEntry[] }).students;
-      const firstAt = new Map<string, number>();
-      entries.forEach((e, i) => firstAt.set(e.studentId, firstAt.get(e.studentId) ?? i));
-      const repeated = entries.findIndex((e, i) => firstAt.get(e.studentId) !== i);
-      if (repeated >= 0) throw new ApiError('invalid-input', undefined, [{ path: `body.students[${repeated}].studentId`, message: `${entries[repeated].studentId} is listed twice` }]);
+    async handler({ db, scope, body, caller, request }) {
+      const entries = entriesOf(body, request.headers['content-type']);
+      const firstAt = new Map<string, Placed>();
+      for (const e of entries) {
+        const first = firstAt.get(idKey(e.studentId));
+        if (first) throw new ApiError('invalid-input', undefined, [{ path: e.at, message: `${e.studentId} is listed twice (as ${first.studentId} at ${first.at}; ids are compared without regard to case)` }]);
+        firstAt.set(idKey(e.studentId), e);
+      }
+      const onRoster = await rosterRows(db, scope.sectionId!, entries.map((e) => e.studentId));
+      const otherCase = entries.filter((e) => onRoster.has(e.studentId) && onRoster.get(e.studentId)!.studentId !== e.studentId);
+      if (otherCase.length > 0) {
+        throw new ApiError('conflict', 'a student id differs only in case from one on the roster: the same student', otherCase.map((e) => ({ path: e.at, message: `already on this roster as ${onRoster.get(e.studentId)!.studentId}` })));
+      }
       const elsewhere = await studentsElsewhere(db, scope.courseId!, scope.sectionId!, entries.map((e) => e.studentId));
       if (elsewhere.length > 0) {
         throw new ApiError('conflict', 'a student may be in one section per course', elsewhere.map((s) => ({ path: s.studentId, message: `already on the roster of section ${s.sectionId}` })));
       }
-      return { status: 200, body: { added: await addToRoster(db, scope.courseId!, scope.sectionId!, entries, caller.kind === 'staff' ? caller.staffId : null) } };
+      return { status: 200, body: await addToRoster(db, scope.courseId!, scope.sectionId!, entries, caller.kind === 'staff' ? caller.staffId : null) };
     },
   },
   {

@@ -1,4 +1,4 @@
-import type { Kysely } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import type { Database, EnrolmentStatus } from './database.ts';
 
 export interface RosterEntry {
@@ -6,7 +6,10 @@ export interface RosterEntry {
   displayName?: string;
 }
 
-/** Students of a course already placed in another section: each may be in one section per course. */
+/** Student ids are compared without regard to case (`A-01` and `a-01` are one student); the key they are compared by. */
+export const idKey = (studentId: string): string => studentId.toLowerCase();
+
+/** Students of a course already placed in another section (ids in any case): each may be in one section per course. */
 export async function studentsElsewhere(db: Kysely<Database>, courseId: number, sectionId: number, ids: string[]) {
   if (ids.length === 0) return [];
   return db
@@ -14,7 +17,7 @@ export async function studentsElsewhere(db: Kysely<Database>, courseId: number, 
     .select(['student_id as studentId', 'section_id as sectionId'])
     .where('course_id', '=', courseId)
     .where('section_id', '!=', sectionId)
-    .where('student_id', 'in', ids)
+    .where(sql`lower(student_id)`, 'in', ids.map(idKey))
     .execute();
 }
 
@@ -23,23 +26,41 @@ async function recordEvents(db: Kysely<Database>, rows: Array<{ id: number }>, s
   await db.insertInto('roster_events').values(rows.map((r) => ({ student_row_id: r.id, status, staff_id: staffId }))).execute();
 }
 
-/** Adds students to a section, or enrols again those withdrawn or removed; each change is recorded. */
-export async function addToRoster(db: Kysely<Database>, courseId: number, sectionId: number, entries: RosterEntry[], staffId: number | null): Promise<number> {
-  if (entries.length === 0) return 0;
+/** What adding to a roster did: students new to it, students enrolled again after leaving, and students already enrolled. */
+export interface RosterAdded {
+  added: number;
+  reenrolled: number;
+  alreadyEnrolled: number;
+}
+
+/**
+ * Adds students to a section, or enrols again those withdrawn or removed; each change of enrolment is
+ * recorded. A display name given replaces the one kept; none given keeps it. The entries must spell
+ * each id as the roster does (see `rosterRows`), which the caller checks.
+ */
+export async function addToRoster(db: Kysely<Database>, courseId: number, sectionId: number, entries: RosterEntry[], staffId: number | null): Promise<RosterAdded> {
+  if (entries.length === 0) return { added: 0, reenrolled: 0, alreadyEnrolled: 0 };
   const before = await rosterRows(db, sectionId, entries.map((e) => e.studentId));
   const rows = await db
     .insertInto('students')
     .values(entries.map((e) => ({ course_id: courseId, section_id: sectionId, student_id: e.studentId, display_name: e.displayName ?? null })))
-    .onConflict((oc) => oc.columns(['course_id', 'student_id']).doUpdateSet((eb) => ({ display_name: eb.ref('excluded.display_name'), status: 'enrolled' })))
+    .onConflict((oc) =>
+      oc.columns(['course_id', 'student_id']).doUpdateSet((eb) => ({ display_name: eb.fn.coalesce(eb.ref('excluded.display_name'), eb.ref('students.display_name')), status: 'enrolled' })),
+    )
     .returning(['id', 'student_id'])
     .execute();
   await recordEvents(db, rows.filter((r) => before.get(r.student_id)?.status !== 'enrolled'), 'enrolled', staffId);
-  return rows.length;
+  const statuses = entries.map((e) => before.get(e.studentId)?.status);
+  return {
+    added: statuses.filter((s) => s === undefined).length,
+    reenrolled: statuses.filter((s) => s === 'withdrawn' || s === 'removed').length,
+    alreadyEnrolled: statuses.filter((s) => s === 'enrolled').length,
+  };
 }
 
 /** Marks a roster student enrolled, withdrawn or removed; undefined when they are not on the roster. */
 export async function setEnrolment(db: Kysely<Database>, sectionId: number, studentId: string, status: EnrolmentStatus, staffId: number | null) {
-  const row = await db.updateTable('students').set({ status }).where('section_id', '=', sectionId).where('student_id', '=', studentId).returning(['id']).executeTakeFirst();
+  const row = await db.updateTable('students').set({ status }).where('section_id', '=', sectionId).where(sql`lower(student_id)`, '=', idKey(studentId)).returning(['id']).executeTakeFirst();
   if (row) await recordEvents(db, [row], status, staffId);
   return row;
 }
@@ -47,7 +68,7 @@ export async function setEnrolment(db: Kysely<Database>, sectionId: number, stud
 /** A section's roster with each student's enrolment history, or one student's entry. */
 export async function listRoster(db: Kysely<Database>, sectionId: number, studentId?: string) {
   let query = db.selectFrom('students').select(['id', 'student_id as studentId', 'display_name as displayName', 'status']).where('section_id', '=', sectionId);
-  if (studentId !== undefined) query = query.where('student_id', '=', studentId);
+  if (studentId !== undefined) query = query.where(sql`lower(student_id)`, '=', idKey(studentId));
   const students = await query.orderBy('student_id').execute();
   const events = students.length
     ? await db
@@ -61,11 +82,20 @@ export async function listRoster(db: Kysely<Database>, sectionId: number, studen
   return students.map(({ id, ...s }) => ({ ...s, history: events.filter((e) => e.rowId === id).map(({ rowId: _, ...e }) => e) }));
 }
 
-/** Row ids and enrolment of the given pseudonymous ids on a section's roster. */
-export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: string[]): Promise<Map<string, { id: number; status: EnrolmentStatus }>> {
+/**
+ * Row ids, enrolment and the roster's own spelling of the given pseudonymous ids on a section's
+ * roster, keyed by the ids as given: an id matches the roster's student whatever its case.
+ */
+export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: string[]): Promise<Map<string, { id: number; status: EnrolmentStatus; studentId: string }>> {
   if (ids.length === 0) return new Map();
-  const rows = await db.selectFrom('students').select(['id', 'student_id', 'status']).where('section_id', '=', sectionId).where('student_id', 'in', ids).execute();
-  return new Map(rows.map((r) => [r.student_id, { id: r.id, status: r.status }]));
+  const rows = await db
+    .selectFrom('students')
+    .select(['id', 'student_id', 'status'])
+    .where('section_id', '=', sectionId)
+    .where(sql`lower(student_id)`, 'in', [...new Set(ids.map(idKey))])
+    .execute();
+  const byKey = new Map(rows.map((r) => [idKey(r.student_id), { id: r.id, status: r.status, studentId: r.student_id }]));
+  return new Map(ids.flatMap((id) => (byKey.has(idKey(id)) ? [[id, byKey.get(idKey(id))!] as const] : [])));
 }
 
 /** Roster students (enrolled or withdrawn) with no submission to an assignment: a gradebook lists them too. */

@@ -194,7 +194,7 @@ export async function studentSubmissions(db: Kysely<Database>, sectionId: number
     .innerJoin('students', 'students.id', 'submissions.student_row_id')
     .select(submissionColumns)
     .where('students.section_id', '=', sectionId)
-    .where('students.student_id', '=', studentId);
+    .where(sql`lower(students.student_id)`, '=', studentId.toLowerCase());
   if (assignmentId !== undefined) query = query.where('submissions.assignment_id', '=', assignmentId);
   return query.orderBy('submissions.assignment_id').orderBy('submissions.version').execute();
 }

@@ -14,13 +14,14 @@ export class ApiFailure extends Error {
   }
 }
 
-export async function api(method, url, body) {
+/** `contentType` for a text body other than JSON (text/plain, text/csv). */
+export async function api(method, url, body, contentType = 'application/json') {
   const headers = {};
   if (method !== 'GET') headers['x-csrf-token'] = csrfToken ?? '';
   let payload;
   if (body instanceof FormData) payload = body;
   else if (body !== undefined) {
-    headers['content-type'] = 'application/json';
+    headers['content-type'] = contentType;
     payload = typeof body === 'string' ? body : JSON.stringify(body);
   }
   const res = await fetch(url, { method, headers, body: payload, credentials: 'same-origin' });

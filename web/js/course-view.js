@@ -98,14 +98,16 @@ function rosterPanel(section, roster, failure) {
   const add = async (e) => {
     e.preventDefault();
     message.textContent = '';
-    const students = ids.value.split(/[\s,;]+/).filter(Boolean).map((studentId) => ({ studentId }));
+    done.textContent = '';
     try {
-      const { added } = await api('POST', `/v1/sections/${section.id}/roster`, { students });
+      // The box's text as it is: the service reads one id per line and names any line that is not one.
+      const { added, reenrolled, alreadyEnrolled } = await api('POST', `/v1/sections/${section.id}/roster`, ids.value, 'text/plain');
       ids.value = '';
       draw(await api('GET', `/v1/sections/${section.id}/roster`));
-      done.textContent = `${added} student${added === 1 ? '' : 's'} added.`;
+      const counts = [`${added} student${added === 1 ? '' : 's'} added`, reenrolled ? `${reenrolled} enrolled again` : '', alreadyEnrolled ? `${alreadyEnrolled} already enrolled` : ''];
+      done.textContent = `${counts.filter(Boolean).join('; ')}.`;
     } catch (error) {
-      if (error.status >= 400 && error.status < 500 && error.status !== 401) message.textContent = [error.message, ...error.details.map((d) => `${d.path}: ${d.message}`)].join(' ');
+      if (error.status >= 400 && error.status < 500 && error.status !== 401) message.textContent = [`${error.message}.`, ...error.details.map((d) => `${d.path.replace(/^body /, '').replace(/^line/, 'Line')}: ${d.message}.`)].join(' ');
       else failure(error);
     }
   };
