@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
-import { assignmentOf } from '../grading/assignment-of.ts';
+import { newSettings, patchedSettings, replacedSettings } from '../grading/settings-update.ts';
 import { stagesOf } from '../checks/kinds.ts';
 import { createAssignment, getAssignment, replaceSettings } from '../store/assignments.ts';
 import { getSection } from '../store/courses.ts';
@@ -44,7 +44,7 @@ export const assignmentRoutes: RouteSpec[] = [
     transactional: true,
     async handler({ db, scope, body }) {
       const { title, settings } = body as { title: string; settings: unknown };
-      const checker = assignmentOf(settings);
+      const checker = newSettings(settings);
       return { status: 201, body: withStages(await createAssignment(db, scope.courseId!, title, checker.kind.kind, checker.settings)) };
     },
   },
@@ -62,16 +62,27 @@ export const assignmentRoutes: RouteSpec[] = [
     method: 'PUT',
     url: '/v1/assignments/:assignmentId/settings',
     access: 'instructor',
-    summary: 'Replace the settings (stored results keep the settings they used; regrade to apply)',
+    summary:
+      'Replace the settings whole: every setting the assignment has must be stated (null clears an optional one; one left out is a 422 naming it). Stored results keep the settings they used; regrade to apply',
     schema: { params: z.object({ assignmentId: IdParam }), body: z.object({ settings: Settings }), response: { 200: Assignment } },
     transactional: true,
     async handler({ db, params, body }) {
       const id = Number(params.assignmentId);
-      const current = (await getAssignment(db, id))!;
-      const checker = assignmentOf((body as { settings: unknown }).settings);
-      if (checker.kind.kind !== current.kind) {
-        throw new ApiError('invalid-input', undefined, [{ path: 'body.settings.kind', message: `the assignment's kind is ${current.kind}` }]);
-      }
+      const checker = replacedSettings((await getAssignment(db, id))!, (body as { settings: Record<string, unknown> }).settings);
+      return { status: 200, body: withStages(await replaceSettings(db, id, checker.settings)) };
+    },
+  },
+  {
+    method: 'PATCH',
+    url: '/v1/assignments/:assignmentId/settings',
+    access: 'instructor',
+    summary:
+      'Change some settings: a JSON Merge Patch (RFC 7396) of the current ones (objects such as tolerances, rubric, units and reference merge key by key, null removes a key, anything else replaces), validated whole after merging. Regrade to apply',
+    schema: { params: z.object({ assignmentId: IdParam }), body: z.object({ settings: Settings }), response: { 200: Assignment } },
+    transactional: true,
+    async handler({ db, params, body }) {
+      const id = Number(params.assignmentId);
+      const checker = patchedSettings((await getAssignment(db, id))!, (body as { settings: Record<string, unknown> }).settings);
       return { status: 200, body: withStages(await replaceSettings(db, id, checker.settings)) };
     },
   },

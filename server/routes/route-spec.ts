@@ -39,7 +39,7 @@ export interface RouteAnswer {
  * route cannot escape it.
  */
 export interface RouteSpec {
-  method: 'GET' | 'POST' | 'PUT';
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH';
   url: string;
   access: Access;
   summary: string;

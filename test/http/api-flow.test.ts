@@ -106,8 +106,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       expect.objectContaining({ findingId: finding.id, pointsBefore: 2, pointsAfter: 1, by: 'ta-a', reason: 'sign slip only in the summary table' }),
     ]);
 
-    const settings = { ...s.settings, rubric: { k: 3 } };
-    await call(api.app, 'PUT', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings }, 200);
+    await call(api.app, 'PATCH', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings: { rubric: { k: 3 } } }, 200);
     const regraded = await regradeAndWait(api.app, s.instructorToken, s.assignment.id, { sectionId: s.sectionA.id });
     expect(regraded.location).toBe(`/v1/assignments/${s.assignment.id}/regrades/${regraded.started.regradeId}`);
     expect(regraded.progress).toMatchObject({ status: 'finished', sectionId: s.sectionA.id });

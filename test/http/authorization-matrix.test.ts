@@ -47,7 +47,9 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster` }),
   'POST /v1/courses/:courseId/assignments': (f) => ({ url: `/v1/courses/${f.course.id}/assignments`, body: { title: `Assignment ${unique()}`, settings: f.settings } }),
   'GET /v1/assignments/:assignmentId': (f) => ({ url: `/v1/assignments/${f.assignment.id}` }),
-  'PUT /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: f.settings } }),
+  // The settings as stored (every setting stated), as a PUT must send them.
+  'PUT /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: f.assignment.settings } }),
+  'PATCH /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: { rubric: { k: 2 } } } }),
   'POST /v1/assignments/:assignmentId/regrade': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrade`, body: {} }),
   'GET /v1/assignments/:assignmentId/regrades/:regradeId': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrades/${f.regradeId}` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/submissions': (f) => ({

@@ -403,7 +403,7 @@ const cases: Case[] = [
   },
   {
     name: 'replacement settings with fitModel "diagonal"',
-    request: (s) => ({ method: 'PUT', url: `/v1/assignments/${s.assignment.id}/settings`, headers: auth(s.instructorToken), payload: { settings: { ...s.settings, fitModel: 'diagonal' } } }),
+    request: (s) => ({ method: 'PUT', url: `/v1/assignments/${s.assignment.id}/settings`, headers: auth(s.instructorToken), payload: { settings: { ...s.assignment.settings, fitModel: 'diagonal' } } }),
     status: 400,
     code: 'invalid-input',
     paths: ['body.settings.fitModel'],

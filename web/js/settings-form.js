@@ -92,7 +92,7 @@ function jsonForm({ courseId, assignment, done, failure }, kind) {
         : await api('POST', `/v1/courses/${courseId}/assignments`, { title: title.value, settings });
       done(saved);
     } catch (error) {
-      if (!(error instanceof ApiFailure) || error.status !== 400) return failure(error);
+      if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
       fill(messages, error.details.map((d) => h('li', {}, `${d.path.replace(/^body\.(settings\.)?/, '')}: ${d.message}`)));
     }
   }
@@ -164,7 +164,8 @@ function catalysisForm({ courseId, assignment, done, failure }) {
       let target = settings;
       for (const p of parts.slice(0, -1)) target = target[p] = { ...(target[p] ?? {}) };
       const last = parts[parts.length - 1];
-      if (OPTIONAL.has(path) && control.value.trim() === '') delete target[last];
+      // An optional setting left empty is sent as null: not set (a PUT must state every setting the assignment has).
+      if (OPTIONAL.has(path) && control.value.trim() === '') target[last] = null;
       else if (BOOLEAN.has(path)) target[last] = control.value === 'true';
       else if (control.type === 'number') {
         // An empty or unreadable number is sent as it is, for the schema to name.
@@ -187,7 +188,7 @@ function catalysisForm({ courseId, assignment, done, failure }) {
         : await api('POST', `/v1/courses/${courseId}/assignments`, { title: fields.get('title').value, settings: read() });
       done(saved);
     } catch (error) {
-      if (!(error instanceof ApiFailure) || error.status !== 400) return failure(error);
+      if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
       const unplaced = [];
       for (const d of error.details) {
         const path = d.path.replace(/^body\.(settings\.)?/, '');
