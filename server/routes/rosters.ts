@@ -56,9 +56,12 @@ function rosterFromLines(text: string): Placed[] {
     const id = line.trim();
     if (id === '') return;
     if (StudentId.safeParse(id).success) entries.push({ studentId: id, at: `body line ${i + 1}` });
-    else wrong.push({ path: `body line ${i + 1}`, message: `${JSON.stringify(id.length > 80 ? `${id.slice(0, 80)}…` : id)} is not one student id: give one id per line (letters, digits, dot, underscore or hyphen, at most 64)` });
+    else wrong.push({ path: `body line ${i + 1}`, message: `${JSON.stringify(id.length > 80 ? `${id.slice(0, 80)}…` : id)} is not one student id` });
   });
-  if (wrong.length > 0) throw new ApiError('invalid-input', `${wrong.length} line${wrong.length === 1 ? ' is' : 's are'} not one student id; nothing was added`, wrong);
+  if (wrong.length > 0) {
+    const count = `${wrong.length} line${wrong.length === 1 ? ' is' : 's are'} not one student id`;
+    throw new ApiError('invalid-input', `${count} (one id per line: letters, digits, dot, underscore or hyphen, at most 64); nothing was added`, wrong);
+  }
   if (entries.length === 0) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'at least one student id' }]);
   if (entries.length > MAX_STUDENTS) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'at most 5,000 students in one request' }]);
   return entries;

@@ -209,6 +209,14 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await roster.getByText(/^withdrawn by instructor-1, /).waitFor();
     const roster202 = (await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/roster`, s.instructorToken, undefined, 200)).body.find((r: { studentId: string }) => r.studentId === 'S-202');
     expect(roster202.history.map((e: { status: string }) => e.status)).toEqual(['enrolled', 'withdrawn']);
+    // One id per line: a line holding three words is named and nothing is added; then the counts say
+    // who was added and who was already there (the box's promise, common practice, no source).
+    await roster.getByLabel('Add students (pseudonymous ids, one per line)').fill('S-203\nB 26 bad');
+    await roster.getByRole('button', { name: 'Add to the roster' }).click();
+    await roster.getByText(/Line 2: "B 26 bad" is not one student id/).waitFor();
+    await roster.getByLabel('Add students (pseudonymous ids, one per line)').fill('S-203\nS-201\nS-202');
+    await roster.getByRole('button', { name: 'Add to the roster' }).click();
+    await roster.getByText('1 student added; 1 enrolled again; 1 already enrolled.').waitFor();
 
     await page.getByLabel('Handle (letters, digits, dot, underscore or hyphen)').fill('ta-new');
     await page.getByLabel('Section A').check();

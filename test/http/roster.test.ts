@@ -26,10 +26,10 @@ describe('roster additions', () => {
     const before = await studentRows();
     const res = await addLines('S-201\nB 26 bad\n\nS-202, S-203\nS-204\n');
     expect(res.statusCode, res.body).toBe(400);
-    expect(res.json().error).toMatchObject({ code: 'invalid-input', message: '2 lines are not one student id; nothing was added' });
+    expect(res.json().error).toMatchObject({ code: 'invalid-input', message: expect.stringMatching(/^2 lines are not one student id \(one id per line: .*\); nothing was added$/) });
     expect(res.json().error.details).toEqual([
-      { path: 'body line 2', message: expect.stringMatching(/^"B 26 bad" is not one student id: give one id per line/) },
-      { path: 'body line 4', message: expect.stringMatching(/^"S-202, S-203" is not one student id/) },
+      { path: 'body line 2', message: '"B 26 bad" is not one student id' },
+      { path: 'body line 4', message: '"S-202, S-203" is not one student id' },
     ]);
     expect(await studentRows()).toBe(before);
   });

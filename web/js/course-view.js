@@ -64,7 +64,9 @@ const ENROLMENT = [['enrolled', 'enrolled'], ['withdrawn', 'withdrawn'], ['remov
 
 function rosterPanel(section, roster, failure) {
   const list = h('table', { class: 'roster' });
-  const draw = (rows) =>
+  const heading = h('h3', {});
+  const draw = (rows) => {
+    heading.textContent = `Section ${section.name}: ${rows.length} student${rows.length === 1 ? '' : 's'}`;
     fill(
       list,
       h('caption', {}, 'Roster, with each student’s enrolment and its last change'),
@@ -90,6 +92,7 @@ function rosterPanel(section, roster, failure) {
         }),
       ),
     );
+  };
   draw(roster);
   const idsId = `roster-add-${section.id}`;
   const ids = h('textarea', { id: idsId, rows: '3', 'aria-describedby': `${idsId}-message` });
@@ -114,8 +117,9 @@ function rosterPanel(section, roster, failure) {
   return h(
     'article',
     { class: 'panel' },
-    h('h3', {}, `Section ${section.name}: ${roster.length} student${roster.length === 1 ? '' : 's'}`),
-    list,
+    heading,
+    // Scrolls sideways on a narrow screen rather than clipping the last column.
+    h('div', { class: 'table-wrap' }, list),
     h('form', { class: 'roster-add', onsubmit: add }, h('label', { for: idsId }, 'Add students (pseudonymous ids, one per line)'), ids, h('button', { type: 'submit' }, 'Add to the roster'), message, done),
   );
 }
