@@ -55,7 +55,9 @@ function rosterFromLines(text: string): Placed[] {
   text.split(/\r\n|\r|\n/).forEach((line, i) => {
     const id = line.trim();
     if (id === '') return;
-    if (StudentId.safeParse(id).success) entries.push({ studentId: id, at: `body line ${i + 1}` });
+    // Before text/plain meant lines, a CSV could come under it: its header must not become a student.
+    if (id.toLowerCase() === 'student_id' && entries.length === 0 && wrong.length === 0) wrong.push({ path: `body line ${i + 1}`, message: 'a CSV header, not a student id: send a roster CSV as text/csv' });
+    else if (StudentId.safeParse(id).success) entries.push({ studentId: id, at: `body line ${i + 1}` });
     else wrong.push({ path: `body line ${i + 1}`, message: `${JSON.stringify(id.length > 80 ? `${id.slice(0, 80)}…` : id)} is not one student id` });
   });
   if (wrong.length > 0) {

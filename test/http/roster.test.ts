@@ -31,6 +31,10 @@ describe('roster additions', () => {
       { path: 'body line 2', message: '"B 26 bad" is not one student id' },
       { path: 'body line 4', message: '"S-202, S-203" is not one student id' },
     ]);
+    // A one-column CSV sent as plain text: its header is named, not enrolled.
+    const csvAsText = await addLines('student_id\nS-209\n');
+    expect(csvAsText.statusCode, csvAsText.body).toBe(400);
+    expect(csvAsText.json().error.details).toEqual([{ path: 'body line 1', message: expect.stringContaining('send a roster CSV as text/csv') }]);
     expect(await studentRows()).toBe(before);
   });
 
