@@ -6,6 +6,7 @@ import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkRounding } from '../sig-figs.ts';
 import { checkValue } from '../check-value.ts';
+import { roundingOf } from '../rounding-rule.ts';
 import { outsideBand } from '../reference-band.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
@@ -72,7 +73,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
   const outcome = checkValue(
-    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]) },
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]), rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, settings.rubric.sigFigs) },
     drafts,
   );
   // A value already found wrong needs no second warning about its size.
@@ -103,6 +104,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       causes: temperatureCauses,
       tolerance: settings.tolerances.uncertainty,
       causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, settings.tolerances.uncertainty),
+      rounding: roundingOf(reported.uncertainty!, read.uncertainty, undefined, settings.rubric.sigFigs),
     },
     drafts,
   );
