@@ -14,8 +14,12 @@ import { firstFigurePlace, lastPlace } from './written-number.ts';
 export interface Rounding {
   /** The value as sent: a string keeps its digits, a JSON number is read as it prints. */
   written: NumberLike;
-  /** The standard error that goes with the value, in the comparison's unit, and whether it is ours (the student gave none). */
-  uncertainty: { value: number; ours: boolean } | undefined;
+  /**
+   * The standard error that goes with the value, in the comparison's unit, and whether it is ours (the
+   * student gave none); `itself` for a standard error, which must keep at least the first figure of
+   * the value it is compared with (0.00001 is not 0.0000054 rounded).
+   */
+  uncertainty: { value: number; ours: boolean } | 'itself' | undefined;
   /** What a value rounded more coarsely than its standard error costs: the sigFigs rubric item's worth. */
   sigFigsCharge: number;
 }
@@ -29,13 +33,15 @@ export interface RoundedValue {
 
 /** The rule for `reported` (`rounding.written` in the comparison's unit); none without a standard error to measure the place by. */
 export function roundedFrom(reported: number, rounding: Rounding): RoundedValue | undefined {
-  const se = rounding.uncertainty?.value;
-  if (se === undefined || !(se > 0) || !Number.isFinite(se)) return undefined;
+  const { uncertainty } = rounding;
   const place = lastPlace(rounding.written, reported);
-  if (!(place > 0) || !Number.isFinite(place)) return undefined;
-  // The factors 1 +- 1e-9 absorb binary arithmetic: 0.014 - 0.0135 is not exactly 0.0005.
-  const half = 0.5 * place * (1 + 1e-9);
-  return { agrees: (reference) => Math.abs(reported - reference) <= half, coarse: place > firstFigurePlace(se) * (1 + 1e-9) };
+  if (uncertainty === undefined || !(place > 0) || !Number.isFinite(place)) return undefined;
+  // The factors 1 + 1e-9 absorb binary arithmetic: 0.014 - 0.0135 is not exactly 0.0005.
+  const fineEnough = (x: number) => x > 0 && Number.isFinite(x) && place <= firstFigurePlace(x) * (1 + 1e-9);
+  const near = (reference: number) => Math.abs(reported - reference) <= 0.5 * place * (1 + 1e-9);
+  if (uncertainty === 'itself') return { agrees: (reference) => fineEnough(Math.abs(reference)) && near(reference), coarse: false };
+  if (!(uncertainty.value > 0) || !Number.isFinite(uncertainty.value)) return undefined;
+  return { agrees: near, coarse: !fineEnough(uncertainty.value) };
 }
 
 /** The finding for a value rounded right but more coarsely than its standard error allows. */
@@ -45,7 +51,7 @@ export function coarselyRounded(
   basis: string,
 ): DraftFinding {
   const { rounding } = at;
-  const se = rounding.uncertainty!;
+  const se = rounding.uncertainty as { value: number; ours: boolean };
   const seWords = se.ours ? 'the standard error of the refit' : 'its standard error';
   return {
     code: 'sig-figs',
@@ -71,3 +77,6 @@ export function roundingOf(written: NumberLike, theirs: number | undefined, ours
   const uncertainty = theirs !== undefined && theirs > 0 ? { value: theirs, ours: false } : ours === undefined ? undefined : { value: ours, ours: true };
   return { written, uncertainty, sigFigsCharge };
 }
+
+/** The rule for a standard error as written: never coarser than the first figure of what it is compared with. */
+export const roundingOfUncertainty = (written: NumberLike): Rounding => ({ written, uncertainty: 'itself', sigFigsCharge: 0 });

@@ -8,7 +8,7 @@ import type { Estimate } from '../../engine/estimate.ts';
 import { convert, rateUnitOf, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
-import { roundingOf } from '../rounding-rule.ts';
+import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { CONCENTRATION_UNIT, DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
@@ -160,7 +160,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         causes: firstOrderCauses,
         tolerance: tolerances.rateLawUncertainty,
         causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, tolerances.rateLawUncertainty),
-        rounding: roundingOf(reported.uncertainty!, read.uncertainty, undefined, rubric.sigFigs),
+        rounding: roundingOfUncertainty(reported.uncertainty!),
       },
       drafts,
     );

@@ -4,7 +4,7 @@ import { firstOrderCauses } from './causes.ts';
 import { rateUnitOf } from '../../engine/units.ts';
 import type { NumberLike } from '../../../schemas/common.ts';
 import { closeMatch, slipMatch } from '../cause-tolerance.ts';
-import { roundingOf } from '../rounding-rule.ts';
+import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
 import { lastPlace } from '../written-number.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
@@ -80,9 +80,9 @@ export function checkRunK(
       rightWithin: a.infinity === undefined ? a.expected.ci95 : undefined,
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
       slips: () => slipValues.method().map((s) => s.k),
-      // The student's own ln F column, where it is right, shows the x_inf and the logarithm they used.
+      // The student's own ln F column, where it is right, shows the x_inf they used.
       laterSlips: columnRight ? undefined : { cause: WRONG_INFINITY, bases: () => slipValues.infinity().map((s) => s.k) },
-      factors: columnRight ? RATE_CONSTANT_FACTORS.filter((f) => f !== LOG_BASE) : RATE_CONSTANT_FACTORS,
+      factors: RATE_CONSTANT_FACTORS,
       causes: firstOrderCauses,
       tolerance: tolerances.k,
       closeTolerance: () => closeMatch(reported.value, read.value, tolerances.k),
@@ -196,7 +196,7 @@ function checkUncertainty(
       causes: firstOrderCauses,
       tolerance: settings.tolerances.kUncertainty,
       causeTolerance: () => slipMatch(reported.written, reported.value, settings.tolerances.kUncertainty),
-      rounding: roundingOf(reported.written, reported.value, undefined, settings.rubric.sigFigs),
+      rounding: roundingOfUncertainty(reported.written),
     },
     drafts,
   );

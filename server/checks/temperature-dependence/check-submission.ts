@@ -6,7 +6,7 @@ import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkRounding } from '../sig-figs.ts';
 import { checkValue } from '../check-value.ts';
-import { roundingOf } from '../rounding-rule.ts';
+import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
 import { outsideBand } from '../reference-band.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
@@ -104,7 +104,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       causes: temperatureCauses,
       tolerance: settings.tolerances.uncertainty,
       causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, settings.tolerances.uncertainty),
-      rounding: roundingOf(reported.uncertainty!, read.uncertainty, undefined, settings.rubric.sigFigs),
+      rounding: roundingOfUncertainty(reported.uncertainty!),
     },
     drafts,
   );
