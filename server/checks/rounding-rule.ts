@@ -24,6 +24,11 @@ export interface Rounding {
   sigFigsCharge: number;
 }
 
+// Where the student gives no SE, theirs is unseen and may be any that counts as right (the default band
+// for a right SE is 25 %; another convention, or rounding, moves it so): 9.96e12 may have been theirs
+// at 1.0e13, and A written 4e13 is then to its first figure.
+const UNSEEN_SE_BAND = 0.25;
+
 export interface RoundedValue {
   /** Whether `reference`, rounded to the value's last written place, gives the value. */
   agrees: (reference: number) => boolean;
@@ -41,7 +46,7 @@ export function roundedFrom(reported: number, rounding: Rounding): RoundedValue 
   const near = (reference: number) => Math.abs(reported - reference) <= 0.5 * place * (1 + 1e-9);
   if (uncertainty === 'itself') return { agrees: (reference) => fineEnough(Math.abs(reference)) && near(reference), coarse: false };
   if (!(uncertainty.value > 0) || !Number.isFinite(uncertainty.value)) return undefined;
-  return { agrees: near, coarse: !fineEnough(uncertainty.value) };
+  return { agrees: near, coarse: !fineEnough(uncertainty.ours ? uncertainty.value * (1 + UNSEEN_SE_BAND) : uncertainty.value) };
 }
 
 /** The finding for a value rounded right but more coarsely than its standard error allows. */

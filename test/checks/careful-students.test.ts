@@ -41,6 +41,21 @@ function leastSquares(x: number[], y: number[], origin: boolean): { slope: numbe
   return { slope, seSlope: Math.sqrt(s2 / sxx), intercept, seIntercept: Math.sqrt(s2 * (1 / n + (mx * mx) / sxx)) };
 }
 
+/**
+ * Weighted least squares (weights 1/sigma^2) in closed form, the standard errors in either convention
+ * in use: sigma taken as absolute, or scaled by the reduced chi-square sum(w r^2)/(n - 2).
+ */
+function weightedLeastSquares(x: number[], y: number[], sigma: number[], scaled: boolean): { slope: number; seSlope: number; intercept: number; seIntercept: number } {
+  const w = sigma.map((s) => 1 / (s * s));
+  const sum = (f: (i: number) => number) => w.reduce((acc, wi, i) => acc + wi * f(i), 0);
+  const [s0, sx, sy, sxx, sxy] = [sum(() => 1), sum((i) => x[i]), sum((i) => y[i]), sum((i) => x[i] * x[i]), sum((i) => x[i] * y[i])];
+  const d = s0 * sxx - sx * sx;
+  const slope = (s0 * sxy - sx * sy) / d;
+  const intercept = (sxx * sy - sx * sxy) / d;
+  const scale = scaled ? sum((i) => (y[i] - intercept - slope * x[i]) ** 2) / (x.length - 2) : 1;
+  return { slope, seSlope: Math.sqrt((scale * s0) / d), intercept, seIntercept: Math.sqrt((scale * sxx) / d) };
+}
+
 /** A value and its SE as a careful student writes them: the SE to `figures` significant figures, the value to its place; as text (trailing zeros kept) or as a JSON number. */
 function written(value: number, se: number, figures: number, asText: boolean, unit: string) {
   const places = figures - 1 - Math.floor(Math.log10(se));
@@ -117,14 +132,21 @@ describe('200 careful students of the second kind', () => {
       const Ea = 40000 + 60000 * random();
       const k298 = 10 ** (-4 + 2 * random());
       const lnA = Math.log(k298) + Ea / (R * 298.15);
+      // Every other pair of students fits with weights, each k given with its SE (3 %, to 2 figures).
+      const weighted = (student >> 1) % 2 === 1;
       const points = temperatures.map((T, i) => {
         const k = Math.exp(lnA - Ea / (R * T)) * (1 + 0.03 * normal(random));
-        return { label: `T${i + 1}`, temperature: { value: T, unit: 'K' as const }, k: { value: Number(k.toPrecision(4)), unit: 's^-1' } };
+        const measured: { value: number; uncertainty?: number; unit: string } = weighted ? written(k, 0.03 * k, 2, false, 's^-1') as { value: number; uncertainty: number; unit: string } : { value: Number(k.toPrecision(4)), unit: 's^-1' };
+        return { label: `T${i + 1}`, temperature: { value: T, unit: 'K' as const }, k: measured };
       });
       const x = temperatures.map((T) => 1 / T);
       const ks = points.map((p) => p.k.value);
-      const arrhenius = leastSquares(x, ks.map(Math.log), false);
-      const eyring = leastSquares(x, ks.map((k, i) => Math.log(k / temperatures[i])), false);
+      const sigmas = points.map((p, i) => Number(p.k.uncertainty) / ks[i]);
+      // Of those, every other pair scales the standard errors by the scatter about the line.
+      const scaled = (student >> 2) % 2 === 1;
+      const fit = (y: number[]) => (weighted ? weightedLeastSquares(x, y, sigmas, scaled) : leastSquares(x, y, false));
+      const arrhenius = fit(ks.map(Math.log));
+      const eyring = fit(ks.map((k, i) => Math.log(k / temperatures[i])));
       // Every other student gives E_a in J/mol, where its SE has trailing zeros (880) that are not significant.
       const perJoule = student % 2 === 1;
       const EaFit = (-arrhenius.slope * R) / (perJoule ? 1 : 1000);
@@ -147,7 +169,7 @@ describe('200 careful students of the second kind', () => {
           dS: one(dS, R * eyring.seIntercept, 'J K^-1 mol^-1'),
         },
       };
-      const result = checkSubmission(parseAssignment({ kind: 'temperature-dependence', rubric: { sigFigs: 1 } }), submission);
+      const result = checkSubmission(parseAssignment({ kind: 'temperature-dependence', fit: weighted ? 'weighted' : 'ordinary', rubric: { sigFigs: 1 } }), submission);
       expect(result.status).toBe('checked');
       for (const f of charged(result.findings)) losses.push(`student ${student}: ${f.code} at ${f.path}: ${f.message}`);
     }

@@ -1,7 +1,9 @@
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Settings, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
 import type { CheckResult, RubricCount } from '../../../schemas/result.ts';
+import { EngineError } from '../../engine/engine-error.ts';
 import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { fitArrhenius } from '../../engine/temperature-dependence.ts';
 import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkRounding } from '../sig-figs.ts';
@@ -98,6 +100,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       reported: read.uncertainty,
       unit,
       expected: ours.standardError,
+      alsoRight: scaledConvention(analysis, settings).map((factor) => factor * ours.standardError),
       carriedForward: theirs && { value: convert(theirs.EaSE, QUANTITIES.Ea.base, unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
       slips: () => slipCandidates(analysis, 'EaSE', unit),
       factors: FACTORS.Ea.filter((f) => f !== SIGN),
@@ -108,6 +111,22 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
     },
     drafts,
   );
+}
+
+/**
+ * A weighted fit's standard errors come in two conventions in use: each SE of k taken as absolute (our
+ * refit's), or scaled by the scatter about the line (times the square root of the reduced chi-square).
+ * Both are right; this is the factor from the one to the other.
+ */
+function scaledConvention(analysis: TemperatureAnalysis, settings: Settings): number[] {
+  if (settings.fit !== 'weighted') return [];
+  try {
+    return [Math.sqrt(fitArrhenius(analysis.points, { kUnit: 's^-1', weighted: true }).line.reducedChiSquared)];
+  } catch (error) {
+    // The refit itself was made from these points: a weighted fit that fails here has nothing to add.
+    if (error instanceof EngineError) return [];
+    throw error;
+  }
 }
 
 /** What each rubric item is worth for this submission (k once per point given as a run); an item worth nothing is left out. */
