@@ -76,7 +76,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   const { rounding } = c;
   const rounded = rounding && roundedFrom(reported, rounding);
   const coarse = (reference: number, basis: string) => {
-    if (rounding && rounded?.coarse) drafts.push(coarselyRounded({ ...c, rounding }, reference, basis));
+    if (rounding && rounded?.coarse(reference)) drafts.push(coarselyRounded({ ...c, rounding }, reference, basis));
   };
   const roundedRight = rounded && rights.find(rounded.agrees);
   if (roundedRight !== undefined) {

@@ -1,7 +1,7 @@
 import type { NumberLike } from '../../schemas/common.ts';
 import type { DraftFinding } from './draft-finding.ts';
 import { withUnit } from './format.ts';
-import { firstFigurePlace, lastPlace } from './written-number.ts';
+import { finestPlace, firstFigurePlace, lastPlace } from './written-number.ts';
 
 /**
  * The rounding rule: a reported value agrees with a reference when it is that reference rounded to
@@ -32,8 +32,13 @@ const UNSEEN_SE_BAND = 0.25;
 export interface RoundedValue {
   /** Whether `reference`, rounded to the value's last written place, gives the value. */
   agrees: (reference: number) => boolean;
-  /** The value's last place is coarser than its standard error's first figure. */
-  coarse: boolean;
+  /**
+   * Whether the value, agreeing with `reference`, is written more coarsely than its standard error's
+   * first figure. Not where zeros that may follow unseen (lost from a JSON number, or an integer's
+   * trailing zeros) could reach that figure's place and the value agrees there too: no finding
+   * rests on them.
+   */
+  coarse: (reference: number) => boolean;
 }
 
 /** The rule for `reported` (`rounding.written` in the comparison's unit); none without a standard error to measure the place by. */
@@ -44,9 +49,13 @@ export function roundedFrom(reported: number, rounding: Rounding): RoundedValue 
   // The factors 1 + 1e-9 absorb binary arithmetic: 0.014 - 0.0135 is not exactly 0.0005.
   const fineEnough = (x: number) => x > 0 && Number.isFinite(x) && place <= firstFigurePlace(x) * (1 + 1e-9);
   const near = (reference: number) => Math.abs(reported - reference) <= 0.5 * place * (1 + 1e-9);
-  if (uncertainty === 'itself') return { agrees: (reference) => fineEnough(Math.abs(reference)) && near(reference), coarse: false };
-  if (!(uncertainty.value > 0) || !Number.isFinite(uncertainty.value)) return undefined;
-  return { agrees: near, coarse: !fineEnough(uncertainty.ours ? uncertainty.value * (1 + UNSEEN_SE_BAND) : uncertainty.value) };
+  if (uncertainty === 'itself') return { agrees: (reference) => fineEnough(Math.abs(reference)) && near(reference), coarse: () => false };
+  const se = uncertainty.ours ? uncertainty.value * (1 + UNSEEN_SE_BAND) : uncertainty.value;
+  if (!(se > 0) || !Number.isFinite(se)) return undefined;
+  if (fineEnough(se)) return { agrees: near, coarse: () => false };
+  const needed = firstFigurePlace(se);
+  const zerosReach = finestPlace(rounding.written, reported) <= needed * (1 + 1e-9);
+  return { agrees: near, coarse: (reference) => !(zerosReach && Math.abs(reported - reference) <= 0.5 * needed * (1 + 1e-9)) };
 }
 
 /** The finding for a value rounded right but more coarsely than its standard error allows. */

@@ -49,6 +49,11 @@ export function lastPlace(written: NumberLike, value: number): number {
   return 10 ** -readWritten(written).decimals * Math.abs(value / Number(written) || 1);
 }
 
+/** The same for the finest place the digits could have reached with the zeros that may follow unseen: 0 for a JSON number. */
+export function finestPlace(written: NumberLike, value: number): number {
+  return 10 ** -readWritten(written).finest * Math.abs(value / Number(written) || 1);
+}
+
 /** The place of the first significant figure of a positive number: 0.00058 -> 0.0001. */
 export function firstFigurePlace(x: number): number {
   // The small lift keeps an exact power of ten (1e-5, whose logarithm may print as -5.000000001) in its own place.

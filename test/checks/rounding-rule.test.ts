@@ -100,6 +100,19 @@ describe('a value rounded correctly is right', () => {
     expect(judge({ reported: 0.0115, expected: 0.01149, rounding: roundingOf(0.0115, undefined, 0.0004, 0) }).drafts).toEqual([]);
   });
 
+  it('rests no such finding on zeros a JSON number may have lost', () => {
+    const tolerance = { relative: 0.001 };
+    // Sent as the number 0.011, it may have been written 0.0110: to the 1e-4 place of the SE's first
+    // figure, 0.01103 rounds to 0.0110, so the value may be right as written. No finding.
+    expect(judge({ reported: 0.011, expected: 0.01103, tolerance, rounding: roundingOf(0.011, 0.0004, undefined, 1) })).toEqual({ kind: 'right', drafts: [] });
+    // The string "0.011" says it stops at the thousandths: a finding.
+    expect(judge({ reported: 0.011, expected: 0.01103, tolerance, rounding: roundingOf('0.011', 0.0004, undefined, 1) }).drafts.map((d) => d.code)).toEqual(['sig-figs']);
+    // 0.01149 to the 1e-4 place is 0.0115, not 0.0110: whatever zeros were lost, the number is too coarse.
+    expect(judge({ reported: 0.011, expected: 0.01149, tolerance, rounding: roundingOf(0.011, 0.0004, undefined, 1) }).drafts.map((d) => d.code)).toEqual(['sig-figs']);
+    // An integer's trailing zeros likewise: "12000" may be to the units, and 12000.3 rounds to 12000 there.
+    expect(judge({ reported: 12000, expected: 12000.3, tolerance: { relative: 1e-6 }, rounding: roundingOf('12000', 8, undefined, 1) })).toEqual({ kind: 'right', drafts: [] });
+  });
+
   it('a standard error keeps at least its first figure: 0.000005 is 0.0000054 rounded, 0.00001 is not', () => {
     const tolerance = { relative: 0.25 };
     expect(judge({ reported: 0.000005, expected: 0.0000054, tolerance, rounding: roundingOfUncertainty(0.000005) }).kind).toBe('right');
