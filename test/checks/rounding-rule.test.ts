@@ -7,7 +7,6 @@ import { firstOrderCauses } from '../../server/checks/first-order-catalysis/caus
 import { roundingOf, roundingOfUncertainty } from '../../server/checks/rounding-rule.ts';
 import { sigFigProblem } from '../../server/checks/sig-figs.ts';
 import { readWritten } from '../../server/checks/written-number.ts';
-import { readingsFor } from '../support/hand-made-section.ts';
 
 // The rounding conventions here are common practice, no source: a value is given to the decimal
 // place of its standard error's first or second significant figure; a number rounded to a place
@@ -120,38 +119,43 @@ describe('a value rounded correctly is right', () => {
   });
 });
 
-describe('a k written to two figures with the student\'s own ln F column right', () => {
-  // One invented run from the hand-made section: x = 2 + 10 e^(-0.01149 t) at t = 0..10 min to 0.001,
-  // x_inf = 2. Its ln F column, worked here as ln((x - 2)/(x_0 - 2)), and k = 0.011 (2 figures).
-  const readings = readingsFor(0.01149);
-  const lnF = readings.map(([, x]) => Number(Math.log((x - 2) / (readings[0][1] - 2)).toFixed(5)));
-  const submission = (k: number | string, uncertainty: number | string): Submission => ({
+describe('a k written to two figures', () => {
+  // One invented run: x = 10.873 + 10 e^(-0.01149 t) at t = 0..15 min to 0.001, x_inf = 10.873 recorded.
+  // With a digit added, x_inf 10.49 gives a k near 0.011 too: two figures of k cannot tell the two apart.
+  // The ln F column, worked here as ln((x - x_inf)/(x_0 - x_inf)), is right; k = 0.011 is 0.01149 to 2 figures.
+  const infinity = 10.873;
+  const readings = Array.from({ length: 16 }, (_, t): [number, number] => [t, Number((infinity + 10 * Math.exp(-0.01149 * t)).toFixed(3))]);
+  const y = readings.map(([, x]) => Math.log((x - infinity) / (readings[0][1] - infinity)));
+  const lnF = y.map((v) => Number(v.toFixed(4)));
+  const submission = (k: number | string, uncertainty: number | string, column = true): Submission => ({
     studentId: 'R-01',
-    runs: [{ label: '0.1 M', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings, infinity: 2, reported: { lnF, k: { value: k, uncertainty, unit: 'min^-1' } } }],
+    runs: [{ label: '0.1 M', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings, infinity, reported: { ...(column ? { lnF } : {}), k: { value: k, uncertainty, unit: 'min^-1' } } }],
   });
   const assignment = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin', rubric: { sigFigs: 1 } });
   // The SE of the slope through the origin, worked here: sqrt(SSE / (n - 1) / sum t^2).
   const t = readings.map(([time]) => time);
-  const y = readings.map(([, x]) => Math.log((x - 2) / (readings[0][1] - 2)));
   const stt = t.reduce((s, ti) => s + ti * ti, 0);
   const slope = t.reduce((s, ti, i) => s + ti * y[i], 0) / stt;
   const se = Math.sqrt(t.reduce((s, ti, i) => s + (y[i] - slope * ti) ** 2, 0) / (t.length - 1) / stt);
   const se2 = Number(se.toPrecision(2));
+  const atK = (s: Submission) => checkSubmission(assignment, s).findings.filter((f) => f.path === 'runs[0].reported.k');
 
-  it('is a rounding fault (sig-figs), never a wrong x_inf', () => {
+  it('beside a right ln F column is a rounding fault (sig-figs), never a wrong x_inf', () => {
     // Readings to 0.001 fix k to about 1e-6 (the SE): two figures of k are far too few.
     expect(se).toBeLessThan(1e-5);
     const r = checkSubmission(assignment, submission(0.011, se2));
-    const atK = r.findings.filter((f) => f.path === 'runs[0].reported.k');
-    expect(atK.map((f) => f.code)).toEqual(['sig-figs']);
+    expect(r.findings.filter((f) => f.path === 'runs[0].reported.k').map((f) => f.code)).toEqual(['sig-figs']);
     expect(r.findings.some((f) => f.code === 'wrong-infinity')).toBe(false);
     expect(r.score).toBe((r.maxScore ?? 0) - 1);
   });
 
+  it('without a column, is a rounding fault too: plain rounding gives the value, so no slip is named', () => {
+    expect(atK(submission(0.011, se2, false)).map((f) => f.code)).toEqual(['sig-figs']);
+  });
+
   it('a k that no rounding of the refit gives is still judged wrong: 0.0125', () => {
-    const r = checkSubmission(assignment, submission(0.0125, se2));
-    const atK = r.findings.find((f) => f.path === 'runs[0].reported.k' && f.code !== 'sig-figs');
-    expect(atK).toMatchObject({ severity: 'error', pointsLost: 2 });
-    expect(atK!.code).not.toBe('wrong-infinity');
+    const found = atK(submission(0.0125, se2)).find((f) => f.code !== 'sig-figs');
+    expect(found).toMatchObject({ severity: 'error', pointsLost: 2 });
+    expect(found!.code).not.toBe('wrong-infinity');
   });
 });
