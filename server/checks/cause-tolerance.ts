@@ -1,17 +1,12 @@
 import type { NumberLike, Tolerance } from '../../schemas/common.ts';
-import { writtenDecimals } from './sig-figs.ts';
 import { allowance } from './tolerance.ts';
+import { lastPlace } from './written-number.ts';
 
 // A slip reproduces its number to about the digits written; 10 % leaves an uncertainty room for a
 // student's own rounding of intermediate values (common practice, no source).
 const UNCERTAINTY_MATCH = 0.1;
 // A value (k) carries more digits: a long-shot slip must reproduce it to 0.05 % or its last place.
 const VALUE_MATCH = 0.0005;
-
-/** One unit in the last place `written` shows, in the unit of `value` (the same number read in another unit). */
-export function lastPlace(written: NumberLike, value: number): number {
-  return 10 ** -writtenDecimals(written) * Math.abs(value / Number(written) || 1);
-}
 
 /**
  * How close a slip's value must come to a reported uncertainty for that slip to be named. The band

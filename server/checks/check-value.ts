@@ -4,6 +4,7 @@ import { likelyCause, type CauseVocabulary } from './cause-text.ts';
 import type { DraftFinding } from './draft-finding.ts';
 import { explain, type Candidate, type Expanded, type Factor, type LaterBases } from './explain.ts';
 import { withUnit } from './format.ts';
+import { coarselyRounded, roundedFrom, type Rounding } from './rounding-rule.ts';
 import { withinTolerance } from './tolerance.ts';
 
 /** One reported number against the refit: right, carried forward, explained by a likely cause, or not. */
@@ -44,6 +45,8 @@ export interface ValueCheck {
   causeTolerance?: () => Tolerance;
   /** The same for a long-shot candidate. */
   closeTolerance?: () => Tolerance;
+  /** How the value was written, for the rounding rule (see rounding-rule.ts). */
+  rounding?: Rounding;
 }
 
 export type ValueOutcome =
@@ -67,7 +70,17 @@ function absurdOrders(reported: number, expected: number): number | undefined {
 export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome {
   const { reported, expected, tolerance } = c;
   const inRange = c.rightWithin !== undefined && reported >= c.rightWithin[0] && reported <= c.rightWithin[1];
-  if (inRange || withinTolerance(reported, expected, tolerance) || (c.alsoRight ?? []).some((v) => withinTolerance(reported, v, tolerance))) {
+  const rights = [expected, ...(c.alsoRight ?? [])];
+  if (inRange || rights.some((v) => withinTolerance(reported, v, tolerance))) return { kind: 'right' };
+  // Plain rounding comes before every slip: a slip is named only where rounding does not give the value.
+  const { rounding } = c;
+  const rounded = rounding && roundedFrom(reported, rounding);
+  const coarse = (reference: number, basis: string) => {
+    if (rounding && rounded?.coarse(reference)) drafts.push(coarselyRounded({ ...c, rounding }, reference, basis));
+  };
+  const roundedRight = rounded && rights.find(rounded.agrees);
+  if (roundedRight !== undefined) {
+    coarse(roundedRight, roundedRight === expected ? 'the refit from your data' : 'an accepted value');
     return { kind: 'right' };
   }
   const base = {
@@ -80,19 +93,21 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
     itemKey: c.itemKey,
   };
   const intro = `${c.what} is ${withUnit(reported, c.unit)}; the refit from your data gives ${withUnit(expected, c.unit)}.`;
-  if (c.carriedForward && withinTolerance(reported, c.carriedForward.value, tolerance)) {
-    if (c.carriedForward.quiet) return { kind: 'carried-forward' };
+  const carried = c.carriedForward;
+  if (carried && (withinTolerance(reported, carried.value, tolerance) || rounded?.agrees(carried.value))) {
+    if (!withinTolerance(reported, carried.value, tolerance)) coarse(carried.value, `the value from ${carried.from}`);
+    if (carried.quiet) return { kind: 'carried-forward' };
     drafts.push({
       ...base,
       code: 'carried-forward',
       severity: 'info',
       charge: 0,
-      message: `${intro} Your value follows correctly from ${c.carriedForward.from}, so the method earns its points here; the difference was scored where it entered.`,
+      message: `${intro} Your value follows correctly from ${carried.from}, so the method earns its points here; the difference was scored where it entered.`,
     });
     return { kind: 'carried-forward' };
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
-  if (c.carriedForward) roots.push({ value: c.carriedForward.value, causes: [], basis: `the value from ${c.carriedForward.from}` });
+  if (carried) roots.push({ value: carried.value, causes: [], basis: `the value from ${carried.from}` });
   const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance?.() ?? tolerance, c.closeTolerance?.(), c.laterSlips);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;

@@ -32,3 +32,36 @@ describe('a run without x_inf, analysed by a method of the trade other than ours
     expect(result.findings.find((f) => f.path === 'runs[0].reported.k')).toMatchObject({ severity: 'error' });
   });
 });
+
+describe('the standard error of the line through the origin, in both conventions in use', () => {
+  // Invented run: x = 2 + 10 e^(-0.1 t) at t = 0..5 min with a little scatter, x_inf = 2. The line through
+  // the origin is fitted to every (t, ln F), (0, 0) among them. Common spreadsheet functions (LINEST with
+  // the constant set to zero) count that point among the n - 1 degrees of freedom; counting it out
+  // leaves n - 2 (common practice, no source). Both SEs are worked here in closed form.
+  const scatter = [0, 0.004, -0.003, 0.005, -0.002, 0.001];
+  const readings = scatter.map((d, t): [number, number] => [t, Number((2 + 10 * Math.exp(-0.1 * t) + d).toFixed(3))]);
+  const t = readings.map(([time]) => time);
+  const y = readings.map(([, x]) => Math.log((x - 2) / (readings[0][1] - 2)));
+  const stt = t.reduce((s, ti) => s + ti * ti, 0);
+  const slope = t.reduce((s, ti, i) => s + ti * y[i], 0) / stt;
+  const sse = t.reduce((s, ti, i) => s + (y[i] - slope * ti) ** 2, 0);
+  const seWith = (dof: number) => Math.sqrt(sse / dof / stt);
+  // A narrow band for the SE (1 %), so that only the conventions themselves are right, each to 2 figures.
+  const strict = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin', tolerances: { kUncertainty: { relative: 0.01 } } });
+  const withSE = (se: number) =>
+    checkSubmission(strict, {
+      studentId: 'O-01',
+      runs: [{ label: 'A', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings, infinity: 2, reported: { k: { value: Number((-slope).toFixed(4)), uncertainty: Number(se.toPrecision(2)), unit: 'min^-1' } } }],
+    }).findings.filter((f) => f.path === 'runs[0].reported.k.uncertainty');
+
+  it('is right with the point at t = 0 counted (n - 1 = 5 degrees of freedom) or not (n - 2 = 4)', () => {
+    // The two differ by sqrt(5/4) = 1.118, beyond both the band and the rounding to 2 figures.
+    expect(Math.abs(seWith(4) / seWith(5) - 1)).toBeGreaterThan(0.1);
+    expect(withSE(seWith(5))).toEqual([]);
+    expect(withSE(seWith(4))).toEqual([]);
+  });
+
+  it('but not with some other count (n - 3 = 3)', () => {
+    expect(withSE(seWith(3))).toEqual([expect.objectContaining({ severity: 'error' })]);
+  });
+});

@@ -8,6 +8,7 @@ import type { Estimate } from '../../engine/estimate.ts';
 import { convert, rateUnitOf, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
+import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { CONCENTRATION_UNIT, DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate } from '../explain.ts';
@@ -125,6 +126,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
       factors,
       causes: firstOrderCauses,
       tolerance: tolerances[c.name],
+      rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, rubric.sigFigs),
     },
     drafts,
   );
@@ -158,6 +160,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
         causes: firstOrderCauses,
         tolerance: tolerances.rateLawUncertainty,
         causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, tolerances.rateLawUncertainty),
+        rounding: roundingOfUncertainty(reported.uncertainty!),
       },
       drafts,
     );

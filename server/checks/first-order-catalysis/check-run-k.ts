@@ -3,7 +3,9 @@ import type { Estimate } from '../../engine/estimate.ts';
 import { firstOrderCauses } from './causes.ts';
 import { rateUnitOf } from '../../engine/units.ts';
 import type { NumberLike } from '../../../schemas/common.ts';
-import { closeMatch, lastPlace, slipMatch } from '../cause-tolerance.ts';
+import { closeMatch, slipMatch } from '../cause-tolerance.ts';
+import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
+import { lastPlace } from '../written-number.ts';
 import { checkValue, type ValueOutcome } from '../check-value.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, RATE_CONSTANT_FACTORS, TIME_UNIT, type Candidate, type Expanded, type Factor } from '../explain.ts';
@@ -60,6 +62,7 @@ export function checkRunK(
     const fit = fitDefined(settings.fitModel, a.transform.t, ownColumn.values);
     own = { value: -fit.slope, standardError: fit.seSlope, ci95: [0, 0], unit };
   }
+  const columnRight = ownColumn !== undefined && !ownColumn.wrong;
   const outcome = checkValue(
     {
       what,
@@ -77,11 +80,13 @@ export function checkRunK(
       rightWithin: a.infinity === undefined ? a.expected.ci95 : undefined,
       carriedForward: own && { value: own.value, from: 'your own ln F column' },
       slips: () => slipValues.method().map((s) => s.k),
-      laterSlips: { cause: WRONG_INFINITY, bases: () => slipValues.infinity().map((s) => s.k) },
+      // The student's own ln F column, where it is right, shows the x_inf they used.
+      laterSlips: columnRight ? undefined : { cause: WRONG_INFINITY, bases: () => slipValues.infinity().map((s) => s.k) },
       factors: RATE_CONSTANT_FACTORS,
       causes: firstOrderCauses,
       tolerance: tolerances.k,
       closeTolerance: () => closeMatch(reported.value, read.value, tolerances.k),
+      rounding: roundingOf(reported.value, read.uncertainty, a.expected.standardError, rubric.sigFigs),
     },
     drafts,
   );
@@ -131,6 +136,18 @@ function uncertaintyFactors(kOutcome: ValueOutcome): Factor[] {
   return [...withK, ...DECIMAL_SHIFT];
 }
 
+/**
+ * The line through the origin is fitted to every (t, ln F) point, (0, 0) among them, with n - 1
+ * degrees of freedom, as common spreadsheet functions do (LINEST with the constant set to zero);
+ * counting the fixed point out leaves n - 2, and an SE larger by sqrt((n - 1)/(n - 2)). Both are in
+ * use, and both are right.
+ */
+function otherDegreesOfFreedom(a: RunAnalysis): number[] {
+  const line = a.asked?.line;
+  if (!line || line.model !== 'origin' || line.dof < 2) return [];
+  return [a.expected.standardError * Math.sqrt(line.dof / (line.dof - 1))];
+}
+
 /** The standard error of the fit the student's k came from, against the measures of spread often reported instead. */
 function checkUncertainty(
   reported: { value: number; written: NumberLike } | undefined,
@@ -172,13 +189,14 @@ function checkUncertainty(
       reported: reported.value,
       unit: rateUnitOf(a.timeUnit),
       expected,
-      alsoRight: byK ? [byK.value] : [],
+      alsoRight: [...otherDegreesOfFreedom(a), ...(byK ? [byK.value] : [])],
       carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
       slips: () => [...spread(), ...slips.candidates()],
       factors: uncertaintyFactors(kOutcome),
       causes: firstOrderCauses,
       tolerance: settings.tolerances.kUncertainty,
       causeTolerance: () => slipMatch(reported.written, reported.value, settings.tolerances.kUncertainty),
+      rounding: roundingOfUncertainty(reported.written),
     },
     drafts,
   );

@@ -2,6 +2,7 @@ import type { Settings, Submission } from '../../../schemas/kinds/temperature-de
 import { convert } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkValue } from '../check-value.ts';
+import { roundingOf } from '../rounding-rule.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { RATE_CONSTANT_FACTORS } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
@@ -44,6 +45,7 @@ export function checkRunKs(submission: Submission, analysis: TemperatureAnalysis
         causes: temperatureCauses,
         tolerance: settings.tolerances.k,
         causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances.k),
+        rounding: roundingOf(reported.value, read.uncertainty, run.k.standardError, settings.rubric.sigFigs),
       },
       drafts,
     );

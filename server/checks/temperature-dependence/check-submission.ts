@@ -1,11 +1,14 @@
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Settings, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
 import type { CheckResult, RubricCount } from '../../../schemas/result.ts';
+import { EngineError } from '../../engine/engine-error.ts';
 import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { fitArrhenius } from '../../engine/temperature-dependence.ts';
 import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkRounding } from '../sig-figs.ts';
 import { checkValue } from '../check-value.ts';
+import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
 import { outsideBand } from '../reference-band.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
@@ -72,7 +75,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
   const outcome = checkValue(
-    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]) },
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]), rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, settings.rubric.sigFigs) },
     drafts,
   );
   // A value already found wrong needs no second warning about its size.
@@ -97,15 +100,33 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       reported: read.uncertainty,
       unit,
       expected: ours.standardError,
+      alsoRight: scaledConvention(analysis, settings).map((factor) => factor * ours.standardError),
       carriedForward: theirs && { value: convert(theirs.EaSE, QUANTITIES.Ea.base, unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
       slips: () => slipCandidates(analysis, 'EaSE', unit),
       factors: FACTORS.Ea.filter((f) => f !== SIGN),
       causes: temperatureCauses,
       tolerance: settings.tolerances.uncertainty,
       causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, settings.tolerances.uncertainty),
+      rounding: roundingOfUncertainty(reported.uncertainty!),
     },
     drafts,
   );
+}
+
+/**
+ * A weighted fit's standard errors come in two conventions in use: each SE of k taken as absolute (our
+ * refit's), or scaled by the scatter about the line (times the square root of the reduced chi-square).
+ * Both are right; this is the factor from the one to the other.
+ */
+function scaledConvention(analysis: TemperatureAnalysis, settings: Settings): number[] {
+  if (settings.fit !== 'weighted') return [];
+  try {
+    return [Math.sqrt(fitArrhenius(analysis.points, { kUnit: 's^-1', weighted: true }).line.reducedChiSquared)];
+  } catch (error) {
+    // The refit itself was made from these points: a weighted fit that fails here has nothing to add.
+    if (error instanceof EngineError) return [];
+    throw error;
+  }
 }
 
 /** What each rubric item is worth for this submission (k once per point given as a run); an item worth nothing is left out. */
