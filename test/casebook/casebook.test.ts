@@ -25,7 +25,8 @@ interface Located {
 interface Present {
   pathPrefix: string;
   points: number;
-  mentions?: string;
+  /** Its message names at least one of these (what was probably meant, in any of its spellings). */
+  mentionsOneOf?: string[];
 }
 interface Expected {
   score?: number;
@@ -80,8 +81,9 @@ function mismatches(c: Case, result: CheckResult): string[] {
     if (f) out.push(`expected no ${a.code}${a.path ? `@${a.path}` : ''}, got ${f.code}@${f.path} -${f.pointsLost}: ${f.message}`);
   }
   for (const p of e.present ?? []) {
-    const f = result.findings.find((g) => g.path.startsWith(p.pathPrefix) && g.pointsLost === p.points && (p.mentions === undefined || g.message.includes(p.mentions)));
-    if (!f) out.push(`expected a finding at ${p.pathPrefix}... costing ${p.points}${p.mentions ? ` that mentions "${p.mentions}"` : ''}, not found`);
+    const mentions = p.mentionsOneOf ?? [];
+    const f = result.findings.find((g) => g.path.startsWith(p.pathPrefix) && g.pointsLost === p.points && (mentions.length === 0 || mentions.some((m) => g.message.includes(m))));
+    if (!f) out.push(`expected a finding at ${p.pathPrefix}... costing ${p.points}${mentions.length ? ` that mentions one of ${mentions.map((m) => `"${m}"`).join(', ')}` : ''}, not found`);
   }
   const pairs = e.scoreOneOf ?? [[e.score, e.maxScore]];
   if (!pairs.some(([s, m]) => s === result.score && m === result.maxScore)) {
