@@ -65,7 +65,7 @@ const chargedKey = (f: { code: string; path: string; points: number }) => `${f.c
 /** Every way the checker's verdict departs from the case's, one line each (empty when they agree). */
 function mismatches(c: Case, result: CheckResult): string[] {
   const e = c.expected;
-  if (result.status !== 'checked') return [`refused: ${result.rejected.map((r) => `${r.path}: ${r.message}`).join('; ')}`];
+  if (result.status !== 'checked') return [`refused: ${(result.rejected ?? []).map((r) => `${r.path}: ${r.message}`).join('; ')}`];
   const out: string[] = [];
   const got = result.findings.filter((f) => f.pointsLost > 0).map((f) => chargedKey({ code: f.code, path: f.path, points: f.pointsLost }));
   const want = e.charged.map(chargedKey);
