@@ -1,6 +1,8 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { findingCodes as catalysisCodes } from '../../schemas/kinds/first-order-catalysis.ts';
+import { findingCodes as temperatureCodes } from '../../schemas/kinds/temperature-dependence.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 
@@ -60,6 +62,9 @@ function settingsOf(c: Case): Record<string, unknown> {
   return typeof c.settings === 'string' ? (readJson(join(here, 'settings', `${c.settings}.json`)) as Record<string, unknown>) : c.settings;
 }
 
+/** The codes each kind can give, from its schema: a case naming another code could never pass. */
+const codesOf: Record<string, readonly string[]> = { 'first-order-catalysis': catalysisCodes, 'temperature-dependence': temperatureCodes };
+
 const chargedKey = (f: { code: string; path: string; points: number }) => `${f.code}@${f.path} -${f.points}`;
 
 /** Every way the checker's verdict departs from the case's, one line each (empty when they agree). */
@@ -102,6 +107,8 @@ describe('the casebook', () => {
       expect(c.source.length, `${c.id}: source`).toBeGreaterThan(20);
       expect(c.worked.length, `${c.id}: worked`).toBeGreaterThan(20);
       expect(c.expected.scoreOneOf ?? [c.expected.score, c.expected.maxScore], `${c.id}: a score to compare`).not.toContain(undefined);
+      const named = [...c.expected.charged, ...(c.expected.uncharged ?? []), ...(c.expected.absent ?? [])].map((f) => f.code);
+      expect(named.filter((code) => !codesOf[c.kind].includes(code)), `${c.id}: codes its kind gives`).toEqual([]);
     }
   });
 
