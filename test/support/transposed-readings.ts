@@ -12,7 +12,7 @@ import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
  * Runs: 12 to 20 readings every 0.5, 1 or 2 min; k such that k t_end is 1 to 6 (many runs reach their
  * plateau); x_0 from 10 to 25 deg, x_inf from -8
  * to 11 deg (sucrose turns negative as it inverts: common practice, no source); scatter SD 0.002 to
- * 0.006 deg; x_inf measured with the same scatter.
+ * 0.006 deg unless asked otherwise; x_inf measured with the same scatter.
  */
 export const SMALLEST_SWAP = 0.05;
 export const LARGEST_SWAP = 0.1;
@@ -26,14 +26,18 @@ export interface CorpusRun {
   noise: number;
 }
 
-export function corpusRun(random: () => number): CorpusRun {
+/** Scatter SD drawn from this range, deg. */
+export type NoiseRange = [low: number, high: number];
+export const USUAL_NOISE: NoiseRange = [0.002, 0.006];
+
+export function corpusRun(random: () => number, noiseRange: NoiseRange = USUAL_NOISE): CorpusRun {
   const count = 12 + Math.floor(random() * 9);
   const interval = [0.5, 1, 2][Math.floor(random() * 3)];
   const times = Array.from({ length: count }, (_, i) => i * interval);
   const k = uniform(random, 1, 6) / times[count - 1];
   const x0 = uniform(random, 10, 25);
   const xInf = uniform(random, -8, 11);
-  const noise = process.env.NOISE ? Number(process.env.NOISE) : uniform(random, 0.002, 0.006);
+  const noise = uniform(random, ...noiseRange);
   const shown = (x: number) => Number(x.toFixed(3));
   const readings = times.map((t) => shown(xInf + (x0 - xInf) * Math.exp(-k * t) + noise * gaussian(random)));
   return { times, readings, infinity: shown(xInf + noise * gaussian(random)), noise };
@@ -82,9 +86,9 @@ export function asSubmission(runs: CorpusRun[], studentId: string): Submission {
 }
 
 /** Case `seed`: four runs, and with `transposed` one reading of one of them swapped. */
-export function corpusCase(seed: number, transposed: boolean): { submission: Submission; slip?: Transposed } {
+export function corpusCase(seed: number, transposed: boolean, noise?: NoiseRange): { submission: Submission; slip?: Transposed } {
   const random = seededRandom(seed);
-  const runs = CATALYST_M.map(() => corpusRun(random));
+  const runs = CATALYST_M.map(() => corpusRun(random, noise));
   if (!transposed) return { submission: asSubmission(runs, `T-${seed}`) };
   // Every small swap of every reading of every run equally likely; a run whose readings
   // have no such pair of digits (about one in two hundred) is simply passed over.

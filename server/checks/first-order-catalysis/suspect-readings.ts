@@ -4,23 +4,24 @@ import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
 
 /**
  * Readings far off the curve through the others, on a student's own data (no class table to copy
- * from). The run's scatter is measured robustly, as 1.4826 times the median absolute deviation of the
- * residuals of the curve fitted without the reading (the normal distribution's SD from its MAD: common
- * practice, no source), so that the slip itself, or a second one, does not hide in it. A reading is
- * suspect when it lies more than SUSPECT_SDS such SDs from that curve, or more than REVERSAL_SDS from
- * it while it turns the run back (it rises where the run falls, or the other way) by more than
- * REVERSAL_SDS against a neighbour: a careful reader circles a run that goes down, up and down again.
- * Both need MIN_OFFSET_STEPS display steps too, so the last-digit scatter of a reading shown more
- * coarsely than it scatters is never called a slip.
+ * from). The run's scatter is measured robustly (robustScatter) on the curve fitted without the
+ * reading, so that the slip itself, or a second one, does not hide in it. A reading is suspect when it
+ * lies more than SUSPECT_SDS SDs from that curve, or more than REVERSAL_SDS while it turns the run back
+ * (it rises where the run falls, or the other way) by more than REVERSAL_SDS SDs against a neighbour: a
+ * careful reader circles a run that goes down, up and down again. The SD of the miss is the scatter
+ * widened by the curve's own uncertainty at that time, which matters at the ends (the first reading is
+ * an extrapolation of the others). Both need MIN_OFFSET_STEPS display steps too, so the last-digit
+ * scatter of a reading shown more coarsely than it scatters is never called a slip.
  */
 const SUSPECT_SDS = 6;
 const REVERSAL_SDS = 3;
 const MIN_OFFSET_STEPS = 10;
 const SCREEN_MARGIN = 1.5;
-/** 1 / Φ^-1(3/4): a normal distribution's SD over its median absolute deviation. */
+/** A normal distribution's SD over its median absolute deviation. */
 const MAD_TO_SD = 1.4826;
-/** Residuals further than this many first (MAD) estimates of the scatter are left out of the second. */
-const CLIP_SDS = 3.5;
+/** Residuals further than this many first (MAD) estimates of the scatter are left out of the second:
+ * at 3.5 a first estimate small by chance cut honest residuals and called clean readings suspect. */
+const CLIP_SDS = 5;
 /** Parameters of the curve x = x_inf + A e^(-k t). */
 const CURVE_PARAMETERS = 3;
 
@@ -74,10 +75,10 @@ function median(values: number[]): number {
  * The scatter of a run's readings about its curve, from the residuals of the curve's fit, robust to a
  * reading far off: a first estimate MAD_TO_SD times their median absolute deviation, then the root mean
  * square of the residuals within CLIP_SDS of those, on n - 3 degrees of freedom (the curve's three
- * parameters). The first alone varies from run to run about twice as much as a plain SD (the MAD's
- * efficiency is 37 %: common practice, no source), enough to call honest scatter a slip now and then;
- * the second keeps nearly every residual of honest work and drops a slip. NaN where too few residuals
- * are left to measure it.
+ * parameters); 1.4826 = 1 / Φ^-1(3/4) (common practice, no source). The first alone varies from run to
+ * run far more than a plain SD (the MAD's efficiency at the normal is 37 %: common practice, no source),
+ * enough to call honest scatter a slip now and then; the second keeps every residual of honest work
+ * and drops a slip. NaN where too few residuals are left to measure it.
  */
 export function robustScatter(residuals: ArrayLike<number>): number {
   const r = Array.from(residuals).filter(Number.isFinite);
