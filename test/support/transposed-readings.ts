@@ -1,4 +1,6 @@
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { assignmentSettings } from '../../server/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 
 /**
@@ -96,4 +98,47 @@ export function corpusCase(seed: number, transposed: boolean, noise?: NoiseRange
   const slip = swaps[Math.floor(random() * swaps.length)];
   runs[slip.run].readings[slip.index] = slip.copy;
   return { submission: asSubmission(runs, `T-${seed}`), slip };
+}
+
+/** The first-order assignment the corpus is checked under: the origin model, no class dataset. */
+const corpusAssignment = parseAssignment(assignmentSettings({ fitModel: 'origin' }));
+
+export interface TranspositionRecall {
+  cases: number;
+  /** A suspect-reading at the changed reading. */
+  found: number;
+  /** ... naming two neighbouring digits swapped. */
+  namedSwap: number;
+  misses: Transposed[];
+}
+
+/** Cases `firstSeed` on, one small transposition each, checked; which were found at the reading changed. */
+export function transpositionRecall(firstSeed: number, cases: number, noise?: NoiseRange): TranspositionRecall {
+  const out: TranspositionRecall = { cases, found: 0, namedSwap: 0, misses: [] };
+  for (let seed = firstSeed; seed < firstSeed + cases; seed++) {
+    const { submission, slip } = corpusCase(seed, true, noise);
+    const at = `runs[${slip!.run}].readings[${slip!.index}]`;
+    const finding = checkSubmission(corpusAssignment, submission).findings.find((f) => f.code === 'suspect-reading' && f.path === at);
+    if (!finding) out.misses.push(slip!);
+    else {
+      out.found++;
+      if (finding.detail === 'transposed-digits') out.namedSwap++;
+    }
+  }
+  return out;
+}
+
+/** Clean cases `firstSeed` on, checked: suspect-reading warnings, and submissions with any. */
+export function cleanSuspectWarnings(firstSeed: number, cases: number, noise?: NoiseRange): { cases: number; runs: number; warnings: number; submissions: number } {
+  let warnings = 0;
+  let submissions = 0;
+  let runs = 0;
+  for (let seed = firstSeed; seed < firstSeed + cases; seed++) {
+    const { submission } = corpusCase(seed, false, noise);
+    runs += submission.runs.length;
+    const count = checkSubmission(corpusAssignment, submission).findings.filter((f) => f.code === 'suspect-reading').length;
+    warnings += count;
+    if (count > 0) submissions++;
+  }
+  return { cases, runs, warnings, submissions };
 }
