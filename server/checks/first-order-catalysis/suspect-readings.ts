@@ -149,14 +149,13 @@ interface Found {
   predicted: number;
   /** The scatter of the readings about the curve without this one. */
   sd: number;
-  /** The reading's leverage on that curve, had it been fitted: its time's uncertainty of the curve in units of sd^2. */
+  /** The variance of that curve at the reading's time, in units of sd^2 (leverageAt). */
   leverage: number;
 }
 
 /**
- * The suspect reading whose removal leaves the tightest curve. Only the
- * screen's candidates are refitted without; when one reading is so far off that no fit of all
- * converges, every reading is.
+ * The suspect reading whose removal leaves the tightest curve. Only the screen's candidates are
+ * refitted without; when one reading is so far off that no fit of all converges, every reading is.
  */
 function mostSuspect(curve: Curve, floor: number): Found | undefined {
   let tried = curve.readings.map((_, i) => i);
