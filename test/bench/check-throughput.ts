@@ -68,12 +68,15 @@ export function heldOutRecall(): string {
     return `${code}: ${((100 * found) / HELD_OUT_CASES).toFixed(1)} % (${found}/${HELD_OUT_CASES})`;
   });
   let clean = 0;
+  let suspect = 0;
   for (let seed = HELD_OUT_FIRST_SEED; seed < HELD_OUT_FIRST_SEED + HELD_OUT_CASES; seed++) {
     const { settings, submission } = cleanCase(seed);
     const result = checkSubmission(parseAssignment(settings), submission);
     if (result.status === 'checked' && !result.findings.some((f) => f.severity === 'error')) clean++;
+    if (result.findings.some((f) => f.code === 'suspect-reading')) suspect++;
   }
   lines.push(`clean work with no error: ${((100 * clean) / HELD_OUT_CASES).toFixed(1)} % (${clean}/${HELD_OUT_CASES})`);
+  lines.push(`clean work with a suspect-reading warning (a false alarm): ${((100 * suspect) / HELD_OUT_CASES).toFixed(1)} % (${suspect}/${HELD_OUT_CASES})`);
   return lines.join('\n');
 }
 

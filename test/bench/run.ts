@@ -20,6 +20,9 @@ console.log(
     `(${checks.microsecondsPerCheck.toFixed(1)} µs each; clean, 4 runs x 16 readings, default assignment, checkBatch over 2,000; one core)`,
 );
 
+const { benchTranspositionRecall } = await import('./transposition-recall.ts');
+benchTranspositionRecall();
+
 const mixed = await benchCorpusChecks();
 console.log(
   `checker on the whole-process corpus: ${Math.round(mixed.checksPerSecond).toLocaleString('en-US')} checked submissions/s ` +

@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { findSuspectReading } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
-import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { assignmentSettings } from '../../server/demo/submission-generator.ts';
+import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
+import { cleanSuspectWarnings, transpositionRecall } from '../support/transposed-readings.ts';
 
 // Invented runs: x_0 = 22.44 deg, x_inf = 10.54 deg, k = 0.05 per min, a reading a minute for 15 min,
 // noise 0.002 deg, shown to 0.001 deg as a polarimeter displays it.
@@ -55,5 +58,70 @@ describe('a copying slip late in a run, near x_inf', () => {
       }
     }
     expect(tried).toBeGreaterThan(40);
+  });
+});
+
+describe('small transpositions in any position (a corpus of our own, test/support/transposed-readings.ts)', () => {
+  // The corpus changes one reading of one run by swapping two neighbouring digits (0.05 to 0.1 deg,
+  // scatter 0.002 to 0.006 deg) and knows which: a finding at that reading is the outside truth.
+  it('names the changed reading in at least 99 % of 200 submissions, most as a swap', () => {
+    const recall = transpositionRecall(0, 200);
+    console.log(`small transpositions: ${recall.found}/200 found at the reading changed, ${recall.namedSwap} named as a swap; missed ${JSON.stringify(recall.misses)}`);
+    expect(recall.found).toBeGreaterThanOrEqual(198);
+    expect(recall.namedSwap).toBeGreaterThanOrEqual(194);
+  });
+
+  it('names no reading of 200 clean submissions of the same corpus (800 runs)', () => {
+    // Other seeds than the transposed ones, whose runs before the swap are the same.
+    expect(cleanSuspectWarnings(10_000, 200)).toMatchObject({ warnings: 0 });
+  });
+});
+
+describe('a reading that turns the run back', () => {
+  // Invented plateau runs: x = 9.4 + 12.6 e^(-0.6 t) deg, a reading a minute, scatter 0.004 deg, to
+  // 0.001 deg. One of readings 12 to 14 is set 5 SDs (0.020 deg) above the curve, fewer than the 6
+  // needed on its own, where it lies more than 3 SDs above the reading before it: the run falls, rises
+  // and falls again, which a careful reader circles.
+  const noise = 0.004;
+  const times = minutes(16);
+  const curve = times.map((t) => 9.4 + 12.6 * Math.exp(-0.6 * t));
+
+  it('is named in at least 90 % of the runs where it rises more than 3 SDs over the reading before', () => {
+    let tried = 0;
+    let named = 0;
+    for (let seed = 0; seed < 100; seed++) {
+      const random = seededRandom(seed);
+      const readings = curve.map((x) => Number((x + noise * gaussian(random)).toFixed(3)));
+      const j = 12 + (seed % 3);
+      readings[j] = Number((curve[j] + 5 * noise).toFixed(3));
+      if (!(readings[j] - readings[j - 1] > 3 * noise)) continue;
+      tried++;
+      if (findSuspectReading({ times, readings, timeUnit: 'min' })?.index === j) named++;
+    }
+    expect(tried).toBeGreaterThan(60);
+    expect(named / tried).toBeGreaterThanOrEqual(0.9);
+  });
+});
+
+describe('a reading past x_inf', () => {
+  // Invented: a run read to its plateau, x = 9.4 + 12.6 e^(-0.6 t) deg, scatter 0.003 deg, to 0.001
+  // deg, the student's x_inf 9.400. A reading 0.004 deg past it is the plateau's own scatter (under
+  // 3 SDs); one 0.060 deg past it (20 SDs) is a slip to check.
+  const times = minutes(16);
+  const random = seededRandom(7);
+  const readings = times.map((t) => Number((9.4 + 12.6 * Math.exp(-0.6 * t) + 0.003 * gaussian(random)).toFixed(3)));
+  const assignment = parseAssignment(assignmentSettings({ fitModel: 'origin' }));
+  const submissionWith = (x: number) => {
+    const run = readings.map((r, i): [number, number] => [times[i], i === 13 ? x : r]);
+    return { studentId: 'S-1', runs: [{ label: 'run 1', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings: run, infinity: 9.4 }] };
+  };
+  const suspectAt13 = (x: number) => checkSubmission(assignment, submissionWith(x)).findings.filter((f) => f.code === 'suspect-reading' && f.path === 'runs[0].readings[13]');
+
+  it('within 3 SDs of the scatter is not named', () => {
+    expect(suspectAt13(9.396)).toEqual([]);
+  });
+
+  it('far past it is named', () => {
+    expect(suspectAt13(9.34)).toHaveLength(1);
   });
 });

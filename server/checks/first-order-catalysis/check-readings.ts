@@ -2,7 +2,7 @@ import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/fir
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
 import { molarForNormality } from './catalyst-unit.ts';
-import { findSuspectReading } from './suspect-readings.ts';
+import { findSuspectReading, robustScatter } from './suspect-readings.ts';
 import { compareTables, type TableSlip } from '../transcription.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -80,9 +80,10 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
   const before = drafts.length;
   compareReadings(run, a, settings, drafts);
   const named = new Set(drafts.slice(before).map((d) => d.path));
+  const pastWithinNoise = withinScatterOfInfinity(a);
   for (const i of a.excluded) {
     const path = `${a.path}.readings[${i}]`;
-    if (named.has(path)) continue;
+    if (named.has(path) || pastWithinNoise(a.readings[i])) continue;
     drafts.push({
       code: 'suspect-reading',
       stage: 'readings',
@@ -93,6 +94,22 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
       message: `In run "${a.label}", the reading at t = ${fmt(a.times[i])} (${a.readings[i]}) is on the other side of x_inf = ${a.infinity} from x_0, so ln F is undefined there; the refit leaves it out. Please check the reading and x_inf.`,
     });
   }
+}
+
+/** Past x_inf by less than this many SDs of the run's scatter, a reading is the plateau's own noise. */
+const PAST_INFINITY_SDS = 3;
+
+/**
+ * Whether a reading past x_inf is only the plateau's scatter: a run read until it stops changing has
+ * readings on both sides of its end value, and one past it by a few SDs is no slip (the refit still
+ * leaves it out, ln F being undefined there). The scatter is the run's own about the curve with x_inf
+ * fitted; without that fit every reading past x_inf is named.
+ */
+function withinScatterOfInfinity(a: RunAnalysis): (reading: number) => boolean {
+  const scatter = a.ownEndValue ? robustScatter(a.ownEndValue.residuals) : Number.NaN;
+  const infinity = a.infinity;
+  if (!(scatter > 0) || infinity === undefined) return () => false;
+  return (reading) => Math.abs(reading - infinity) <= PAST_INFINITY_SDS * scatter;
 }
 
 function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {

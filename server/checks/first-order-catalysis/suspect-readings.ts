@@ -4,13 +4,26 @@ import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
 
 /**
  * Readings far off the curve through the others, on a student's own data (no class table to copy
- * from). A reading is suspect when it lies more than SUSPECT_SDS residual standard deviations, and
- * more than MIN_OFFSET_STEPS display steps, from the curve fitted without it; the floor keeps the
- * last-digit scatter of a reading from ever being called a slip.
+ * from). The run's scatter is measured robustly (robustScatter) on the curve fitted without the
+ * reading, so that the slip itself, or a second one, does not hide in it. A reading is suspect when it
+ * lies more than SUSPECT_SDS SDs from that curve, or more than REVERSAL_SDS while it turns the run back
+ * (it rises where the run falls, or the other way) by more than REVERSAL_SDS SDs against a neighbour: a
+ * careful reader circles a run that goes down, up and down again. The SD of the miss is the scatter
+ * widened by the curve's own uncertainty at that time, which matters at the ends (the first reading is
+ * an extrapolation of the others). Both need MIN_OFFSET_STEPS display steps too, so the last-digit
+ * scatter of a reading shown more coarsely than it scatters is never called a slip.
  */
 const SUSPECT_SDS = 6;
+const REVERSAL_SDS = 3;
 const MIN_OFFSET_STEPS = 10;
 const SCREEN_MARGIN = 1.5;
+/** A normal distribution's SD over its median absolute deviation. */
+const MAD_TO_SD = 1.4826;
+/** Residuals further than this many first (MAD) estimates of the scatter are left out of the second:
+ * at 3.5 a first estimate small by chance cut honest residuals and called clean readings suspect. */
+const CLIP_SDS = 5;
+/** Parameters of the curve x = x_inf + A e^(-k t). */
+const CURVE_PARAMETERS = 3;
 
 export interface SuspectReading {
   index: number;
@@ -51,63 +64,131 @@ function fitWithout(curve: Curve, skip: number, initialK?: number) {
   return fitFirstOrderNonlinear({ times, readings, timeUnit: curve.timeUnit }, { infinity: 'fitted', initialK });
 }
 
+/** The median of a non-empty list. */
+function median(values: number[]): number {
+  const sorted = values.slice().sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
+}
+
 /**
- * Whether reading i could lie SUSPECT_SDS residual SDs off the curve fitted without it, judged from
- * the fit of all readings alone. For a model linear in its parameters the curve without reading i
- * misses it by r_i / (1 - h_i) exactly, and the others' sum of squares is SSE - r_i^2 / (1 - h_i)
- * (h_i the reading's leverage). Near its optimum the exponential fit is close to linear (these estimates
- * agree with the refits to a few per cent), so a margin of 1.5 leaves the refits without a reading to the
- * runs where one might be suspect.
+ * The scatter of a run's readings about its curve, from the residuals of the curve's fit, robust to a
+ * reading far off: a first estimate MAD_TO_SD times their median absolute deviation, then the root mean
+ * square of the residuals within CLIP_SDS of those, on n - 3 degrees of freedom (the curve's three
+ * parameters); 1.4826 = 1 / Φ^-1(3/4) (common practice, no source). The first alone varies from run to
+ * run far more than a plain SD (the MAD's efficiency at the normal is 37 %: common practice, no source),
+ * enough to call honest scatter a slip now and then; the second keeps every residual of honest work
+ * and drops a slip. NaN where too few residuals are left to measure it.
  */
-function mightBeSuspect(all: FirstOrderNonlinearFit, i: number): boolean {
-  const r = all.residuals[i];
-  const free = 1 - all.leverages[i];
-  if (!(free > 1e-6)) return true;
+export function robustScatter(residuals: ArrayLike<number>): number {
+  const r = Array.from(residuals).filter(Number.isFinite);
+  if (r.length <= CURVE_PARAMETERS) return Number.NaN;
+  const centre = median(r);
+  const first = MAD_TO_SD * median(r.map((x) => Math.abs(x - centre)));
+  const kept = r.filter((x) => Math.abs(x - centre) <= CLIP_SDS * first);
+  if (kept.length <= CURVE_PARAMETERS) return first;
+  return Math.sqrt(kept.reduce((sum, x) => sum + x * x, 0) / (kept.length - CURVE_PARAMETERS));
+}
+
+/**
+ * How far reading i turns the run back against a neighbour: how much it lies beyond the reading
+ * before it, or the reading after lies beyond it, against the run's direction (`direction` +1 for a run
+ * that rises, -1 for one that falls); 0 where it keeps the run's direction.
+ */
+function reversalAt(readings: number[], i: number, direction: number): number {
+  const back = i > 0 ? -direction * (readings[i] - readings[i - 1]) : 0;
+  const ahead = i + 1 < readings.length ? -direction * (readings[i + 1] - readings[i]) : 0;
+  return Math.max(0, back, ahead);
+}
+
+/**
+ * Whether a reading `offset` from the curve without it is suspect: `spread` is the SD that offset would
+ * have from scatter alone (the scatter widened by the uncertainty of the curve at that time), `scatter`
+ * the readings' own, against which a turn back of `reversal` is judged.
+ */
+function isSuspect(offset: number, spread: number, reversal: number, scatter: number, floor: number): boolean {
+  if (!(offset > floor)) return false;
+  if (!(spread > 0)) return true;
+  return offset > SUSPECT_SDS * spread || (offset > REVERSAL_SDS * spread && reversal > REVERSAL_SDS * scatter);
+}
+
+/**
+ * The readings that might be suspect, judged from the fit of all readings alone, most off first (at
+ * most three). For a model linear in its parameters the curve without reading i misses it by
+ * r_i / (1 - h_i) exactly (h_i the reading's leverage), a miss whose SD from scatter alone is
+ * sigma / sqrt(1 - h_i), and the others' sum of squares is SSE - r_i^2 / (1 - h_i). Near its optimum the
+ * exponential fit is close to linear, so the tests of isSuspect with every bound divided by
+ * SCREEN_MARGIN (1.5) leave the refits without a reading to the runs where one might be suspect. The
+ * screen's scatter is that plain SD without the reading, not a robust one: a far first reading pulls
+ * the fit of all so that every residual bends, which the sum of squares without it takes back out.
+ */
+function candidates(all: FirstOrderNonlinearFit, readings: number[], floor: number): number[] {
   const sse = all.residualSD ** 2 * all.dof;
-  const sdWithout = Math.sqrt(Math.max(0, sse - (r * r) / free) / (all.dof - 1));
-  return Math.abs(r) / free > (SUSPECT_SDS / SCREEN_MARGIN) * sdWithout;
+  const direction = Math.sign(all.infinity.value - all.x0.value);
+  const out: Array<{ index: number; offset: number }> = [];
+  for (let i = 0; i < readings.length; i++) {
+    const r = all.residuals[i];
+    const free = 1 - all.leverages[i];
+    if (!(free > 1e-6)) {
+      out.push({ index: i, offset: Number.POSITIVE_INFINITY });
+      continue;
+    }
+    const offset = Math.abs(r) / free;
+    if (!(offset > floor / SCREEN_MARGIN)) continue;
+    const scatter = Math.sqrt(Math.max(0, sse - (r * r) / free) / (all.dof - 1)) / SCREEN_MARGIN;
+    if (isSuspect(offset, scatter / Math.sqrt(free), reversalAt(readings, i, direction), scatter, floor / SCREEN_MARGIN)) out.push({ index: i, offset });
+  }
+  return out
+    .sort((a, b) => b.offset - a.offset || a.index - b.index)
+    .slice(0, 3)
+    .map((c) => c.index);
 }
 
-/** The indices of the `count` largest residuals by size, largest first (the first index on a tie, as a stable sort gives). */
-function worstFitting(residuals: number[], count: number): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < residuals.length; i++) {
-    const size = Math.abs(residuals[i]);
-    let at = out.length;
-    while (at > 0 && Math.abs(residuals[out[at - 1]]) < size) at--;
-    if (at < count) {
-      out.splice(at, 0, i);
-      if (out.length > count) out.pop();
-    }
-  }
-  return out;
+interface Found {
+  index: number;
+  predicted: number;
+  /** The scatter of the readings about the curve without this one. */
+  sd: number;
+  /** The variance of that curve at the reading's time, in units of sd^2 (leverageAt). */
+  leverage: number;
 }
 
 /**
- * The reading whose removal leaves the tightest curve. Only the three worst-fitting readings of a fit
- * of all are tried; when one reading is so far off that no fit of all converges, every reading is.
+ * The suspect reading whose removal leaves the tightest curve. Only the screen's candidates are
+ * refitted without; when one reading is so far off that no fit of all converges, every reading is.
  */
-function mostSuspect(curve: Curve) {
+function mostSuspect(curve: Curve, floor: number): Found | undefined {
   let tried = curve.readings.map((_, i) => i);
   let initialK: number | undefined;
   try {
     const all = curve.fitOfAll ?? fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted', initialK: curve.startK });
-    tried = worstFitting(all.residuals, 3);
-    if (!tried.some((i) => mightBeSuspect(all, i))) return undefined;
+    tried = candidates(all, curve.readings, floor);
     initialK = all.k.value;
   } catch (error) {
     if (!(error instanceof EngineError)) throw error;
   }
-  let best: { index: number; fit: ReturnType<typeof fitWithout> } | undefined;
-  for (const i of tried) {
+  let best: { found: Found; score: number } | undefined;
+  for (const index of tried) {
+    let fit: FirstOrderNonlinearFit;
     try {
-      const fit = fitWithout(curve, i, initialK);
-      if (!best || fit.residualSD < best.fit.residualSD) best = { index: i, fit };
+      fit = fitWithout(curve, index, initialK);
     } catch (error) {
       if (!(error instanceof EngineError)) throw error;
+      continue;
     }
+    // Times count from the first reading; without reading 0 they count from reading 1.
+    const origin = index === 0 ? curve.times[1] : curve.times[0];
+    const predicted = fit.infinity.value + (fit.x0.value - fit.infinity.value) * Math.exp(-fit.k.value * (curve.times[index] - origin));
+    const offset = Math.abs(curve.readings[index] - predicted);
+    const sd = robustScatter(fit.residuals);
+    const leverage = leverageAt(curve.times, index, origin, fit);
+    const direction = Math.sign(fit.infinity.value - fit.x0.value);
+    if (!isSuspect(offset, sd * Math.sqrt(1 + leverage), reversalAt(curve.readings, index, direction), sd, floor)) continue;
+    // A reading next to a slip can look off the curve the slip pulls; leaving out the slip leaves the tightest curve.
+    const score = fit.residualSD;
+    if (!best || score < best.score) best = { found: { index, predicted, sd, leverage }, score };
   }
-  return best;
+  return best?.found;
 }
 
 /**
@@ -144,24 +225,17 @@ function solve3(m: number[], b: number[]): number[] | undefined {
 export function findSuspectReading(curve: Curve): SuspectReading | undefined {
   const n = curve.readings.length;
   if (n < 6) return undefined;
-  const best = mostSuspect(curve);
-  if (!best) return undefined;
-  const { index, fit } = best;
-  // Times count from the first reading; without reading 0 they count from reading 1.
-  const origin = index === 0 ? curve.times[1] : curve.times[0];
-  const predicted = fit.infinity.value + (fit.x0.value - fit.infinity.value) * Math.exp(-fit.k.value * (curve.times[index] - origin));
-  const reading = curve.readings[index];
-  const offset = Math.abs(reading - predicted);
-  // The cheap test first: the display step is needed only for a reading far off by the scatter.
-  if (offset <= SUSPECT_SDS * fit.residualSD) return undefined;
   const decimals = curve.readings.reduce((d, x) => Math.max(d, decimalsOf(x)), 0);
   const step = 10 ** -decimals;
-  if (offset <= MIN_OFFSET_STEPS * step) return undefined;
+  const best = mostSuspect(curve, MIN_OFFSET_STEPS * step);
+  if (!best) return undefined;
+  const { index, predicted, sd, leverage } = best;
+  const reading = curve.readings[index];
   // The intended value was written to the run's precision; a slip that added a digit is undone by
   // dropping one, and the reverse. Among the copies on the curve the commonest slip is named (two
   // neighbouring digits swapped, then a digit dropped or added): near the plateau a dropped or added
   // digit can land as close to the curve as the swap that was made.
-  const band = Math.max(4 * fit.residualSD * Math.sqrt(1 + leverageAt(curve.times, index, origin, fit)), 3 * step);
+  const band = Math.max(4 * (sd || 0) * Math.sqrt(1 + leverage), 3 * step);
   const intended = oneSlipCopies(reading, decimals)
     .filter((s) => decimalsOf(s.value) <= decimals && Math.abs(s.value - predicted) <= band)
     .map((s) => ({ value: s.value, slip: undo[s.kind] }))
