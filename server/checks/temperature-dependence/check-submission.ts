@@ -14,6 +14,7 @@ import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
 import { checkRunKs } from './check-run-k.ts';
 import { activationOf, analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
+import { hasTwoPoints, twoPointsNote } from './two-points.ts';
 
 type Quantity = Exclude<keyof Activation, 'EaSE'>;
 
@@ -60,7 +61,7 @@ function slipCandidates(analysis: TemperatureAnalysis, q: keyof Activation, unit
 /** What follows from the student's own rate constants, where they differ from ours (a run's k misread). */
 const FROM_THEIR_K = 'your own rate constants from the runs';
 
-function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, theirs: Activation | undefined, settings: Settings, drafts: DraftFinding[]): void {
+function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, theirs: Activation | undefined, settings: Settings, drafts: DraftFinding[], seDefined: boolean): void {
   const { label, stage, unitKind } = QUANTITIES[q];
   const path = `reported.${q}`;
   const charge = settings.rubric[q];
@@ -81,7 +82,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
     const outside = outsideBand(band, read.value, unit, { label, path, stage, advice: 'It agrees with the refit of your data, so this may be right; it is worth checking the temperatures and the rate constants.' });
     if (outside) drafts.push(outside);
   }
-  if (q !== 'Ea' || settings.rubric.EaUncertainty === 0) return;
+  if (q !== 'Ea' || settings.rubric.EaUncertainty === 0 || !seDefined) return;
   if (read.uncertainty === undefined) {
     drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage, rubricItem: 'EaUncertainty', itemKey: 'EaUncertainty', severity: 'error', charge: settings.rubric.EaUncertainty, message: `The standard error of ${label} is missing.` });
     return;
@@ -112,19 +113,22 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
 export function rubricCounts(settings: Settings, submission: Pick<Submission, 'points'>): RubricCount[] {
   const runs = submission.points.filter((p) => p.run).length;
   return Object.entries(settings.rubric).flatMap(([item, each]) => {
-    const count = item === 'k' ? runs : 1;
+    // With two temperatures the standard error of E_a is not defined: nothing to grade.
+    const count = item === 'k' ? runs : item === 'EaUncertainty' && hasTwoPoints(submission) ? 0 : 1;
     return each > 0 && count > 0 ? [{ item, count, each }] : [];
   });
 }
 
 export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analysis = analyseTemperatures(settings, submission.points);
-  const drafts: DraftFinding[] = [];
+  const drafts: DraftFinding[] = [...analysis.temperatureNotes];
   const theirK = checkRunKs(submission, analysis, settings, drafts);
   // Their fits, where a run's k as they have it differs from ours: what their E_a and the rest follow from.
   const differs = [...theirK].some(([i, k]) => Math.abs(k - analysis.points[i].k) > 1e-9 * analysis.points[i].k);
   const theirs = differs ? activationOf(analysis.points.map((p, i) => ({ ...p, k: theirK.get(i) ?? p.k })), settings.fit === 'weighted') : undefined;
-  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, theirs, settings, drafts);
+  const twoPoints = hasTwoPoints(submission);
+  if (twoPoints) drafts.push(twoPointsNote(submission));
+  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, theirs, settings, drafts, !twoPoints);
   checkRounding(
     [
       ...analysis.runs.map((r): [string, ReportedValue | undefined] => [`points[${r.index}].run.reported.k`, submission.points[r.index].run?.reported?.k]),

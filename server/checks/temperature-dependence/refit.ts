@@ -8,7 +8,10 @@ import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../engine/tem
 import { toKelvin, ZERO_CELSIUS_K } from '../../engine/temperature.ts';
 import { convert, parseUnit } from '../../engine/units.ts';
 import { convertEstimate } from '../convert-estimate.ts';
+import { fmt } from '../format.ts';
+import type { DraftFinding } from '../draft-finding.ts';
 import { InputRejected } from '../input-rejected.ts';
+import { implausibleTemperature, implausibleTemperatureDraft } from '../temperature-plausibility.ts';
 
 /** The four values of the two fits in base units (J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1), and the standard error of E_a. */
 export interface Activation {
@@ -28,6 +31,8 @@ export interface TemperatureAnalysis {
   A: Estimate;
   dH: Estimate;
   dS: Estimate;
+  /** Temperatures outside the plausible range, each named with what was probably meant (the refit uses that). */
+  temperatureNotes: DraftFinding[];
   /** What the same data give with one slip of method each: what a student who made it reports. */
   slips: Partial<Record<string, Array<{ values: Partial<Activation>; detail: string }>>>;
 }
@@ -60,13 +65,29 @@ function refitRun(run: PointRun, path: string): { k: Estimate; alsoRight: number
   return { k: exponential.k, alsoRight };
 }
 
+/**
+ * A point's temperature in kelvin: as declared, or where that is implausible and the other unit makes
+ * it plausible, as probably meant (a warning names it). A temperature at or below absolute zero with
+ * no plausible reading is refused by field.
+ */
+function kelvinOf(p: Point, i: number, notes: DraftFinding[]): number {
+  const path = `points[${i}].temperature.value`;
+  const found = implausibleTemperature(p.temperature.value, p.temperature.unit);
+  if (found) {
+    const consequence = found.meant === undefined ? 'It is used as written.' : `The refit uses ${fmt(found.meant)} K, and your values are checked against that.`;
+    notes.push(implausibleTemperatureDraft(found, `${fmt(p.temperature.value)} ${p.temperature.unit === 'degC' ? '°C' : 'K'}`, { path, stage: 'arrhenius', what: `point “${p.label}”`, consequence }));
+    if (found.meant !== undefined) return found.meant;
+  }
+  return toKelvin(p.temperature.value, p.temperature.unit, path);
+}
+
 /** Every point in kelvin and per second; a temperature at or below absolute zero, or k not a first-order rate, is refused by field. */
-function pointsOf(points: Point[]): { points: TemperaturePoint[]; runs: RunK[] } {
+function pointsOf(points: Point[], notes: DraftFinding[]): { points: TemperaturePoint[]; runs: RunK[] } {
   const runs: RunK[] = [];
   const fitted = points.map((p, i) => {
     const at = (field: string) => `points[${i}].${field}`;
     try {
-      const temperature = toKelvin(p.temperature.value, p.temperature.unit, at('temperature.value'));
+      const temperature = kelvinOf(p, i, notes);
       if (p.run) {
         const { k, alsoRight } = refitRun(p.run, at('run'));
         runs.push({ index: i, k, alsoRight });
@@ -108,7 +129,8 @@ function pointPath(field: string | undefined, input: Point[]): string {
 }
 
 export function analyseTemperatures(settings: Settings, input: Point[]): TemperatureAnalysis {
-  const { points, runs } = pointsOf(input);
+  const temperatureNotes: DraftFinding[] = [];
+  const { points, runs } = pointsOf(input, temperatureNotes);
   const weighted = settings.fit === 'weighted';
   let arrhenius, eyring;
   try {
@@ -143,6 +165,7 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
     A: convertEstimate(arrhenius.A, settings.units.A),
     dH: convertEstimate(eyring.dH, settings.units.dH),
     dS: convertEstimate(eyring.dS, settings.units.dS),
+    temperatureNotes,
     slips,
   };
 }
