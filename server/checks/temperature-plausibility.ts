@@ -1,6 +1,5 @@
 import { ZERO_CELSIUS_K } from '../engine/temperature.ts';
 import type { DraftFinding } from './draft-finding.ts';
-import { fmt } from './format.ts';
 
 /**
  * Kinetics in a teaching lab runs between a cold bath and a boiling one: 250 to 400 K (common
@@ -20,6 +19,8 @@ export interface ImplausibleTemperature {
   says: string;
 }
 
+/** A temperature to the hundredth, as 273.15 is written: 4 figures would print 298.15 K as 298.1. */
+export const inKelvin = (kelvin: number) => String(Number(kelvin.toFixed(2)));
 const plausible = (kelvin: number) => kelvin >= PLAUSIBLE_KELVIN.min && kelvin <= PLAUSIBLE_KELVIN.max;
 
 /** Undefined for a plausible temperature; else what it reads as and what was probably meant. */
@@ -28,7 +29,7 @@ export function implausibleTemperature(value: number, unit: TemperatureUnit): Im
   if (plausible(asDeclared)) return undefined;
   const asOther = unit === 'K' ? value + ZERO_CELSIUS_K : value;
   if (plausible(asOther)) {
-    const says = unit === 'K' ? `probably ${fmt(value)} °C was meant, which is ${fmt(asOther)} K` : `probably ${fmt(value)} K was meant (${fmt(value - ZERO_CELSIUS_K)} °C)`;
+    const says = unit === 'K' ? `probably ${inKelvin(value)} °C was meant, which is ${inKelvin(asOther)} K` : `probably ${inKelvin(value)} K was meant (${inKelvin(value - ZERO_CELSIUS_K)} °C)`;
     return { asDeclared, meant: asOther, says };
   }
   return { asDeclared, says: 'neither kelvin nor degrees Celsius make it a temperature a kinetics run is done at' };
@@ -43,7 +44,7 @@ export function implausibleTemperatureDraft(found: ImplausibleTemperature, writt
     severity: 'warning',
     charge: 0,
     message:
-      `The temperature of ${where.what} is written as ${written}, which is ${fmt(found.asDeclared)} K: outside ${PLAUSIBLE_KELVIN.min}-${PLAUSIBLE_KELVIN.max} K, ` +
+      `The temperature of ${where.what} is written as ${written}, which is ${inKelvin(found.asDeclared)} K: outside ${PLAUSIBLE_KELVIN.min}-${PLAUSIBLE_KELVIN.max} K, ` +
       `where a kinetics run is done; ${found.says}. ${where.consequence} Please check the number and its unit.`,
   };
 }

@@ -8,10 +8,9 @@ import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../engine/tem
 import { toKelvin, ZERO_CELSIUS_K } from '../../engine/temperature.ts';
 import { convert, parseUnit } from '../../engine/units.ts';
 import { convertEstimate } from '../convert-estimate.ts';
-import { fmt } from '../format.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { InputRejected } from '../input-rejected.ts';
-import { implausibleTemperature, implausibleTemperatureDraft } from '../temperature-plausibility.ts';
+import { implausibleTemperature, implausibleTemperatureDraft, inKelvin } from '../temperature-plausibility.ts';
 
 /** The four values of the two fits in base units (J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1), and the standard error of E_a. */
 export interface Activation {
@@ -74,8 +73,8 @@ function kelvinOf(p: Point, i: number, notes: DraftFinding[]): number {
   const path = `points[${i}].temperature.value`;
   const found = implausibleTemperature(p.temperature.value, p.temperature.unit);
   if (found) {
-    const consequence = found.meant === undefined ? 'It is used as written.' : `The refit uses ${fmt(found.meant)} K, and your values are checked against that.`;
-    notes.push(implausibleTemperatureDraft(found, `${fmt(p.temperature.value)} ${p.temperature.unit === 'degC' ? '°C' : 'K'}`, { path, stage: 'arrhenius', what: `point “${p.label}”`, consequence }));
+    const consequence = found.meant === undefined ? 'It is used as written.' : `The refit uses ${inKelvin(found.meant)} K, and your values are checked against that.`;
+    notes.push(implausibleTemperatureDraft(found, `${p.temperature.value} ${p.temperature.unit === 'degC' ? '°C' : 'K'}`, { path, stage: 'arrhenius', what: `point “${p.label}”`, consequence }));
     if (found.meant !== undefined) return found.meant;
   }
   return toKelvin(p.temperature.value, p.temperature.unit, path);
