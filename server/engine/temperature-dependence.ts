@@ -39,6 +39,7 @@ function lineOf(points: TemperaturePoint[], y: (p: TemperaturePoint) => number, 
     if (!(p.k > 0)) throw new EngineError('non-positive-rate', `point ${i} has k = ${p.k}`, `points[${i}].k`);
     if (!(p.temperature > 0)) throw new EngineError('not-above-absolute-zero', `point ${i} has T = ${p.temperature} K`, `points[${i}].temperature`);
   });
+  if (points.length < 2) throw new EngineError('too-few-points', `a line against 1/T needs at least 2 temperatures, got ${points.length}`, 'points');
   if (points.length === 2) return lineThroughTwoPoints(points.map((p) => 1 / p.temperature), points.map(y));
   const sigma = weighted
     ? points.map((p, i) => {

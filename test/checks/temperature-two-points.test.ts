@@ -74,3 +74,41 @@ describe('two temperatures: values graded, standard errors not defined', () => {
     expect(result.rejected?.[0]?.path).toBe('points');
   });
 });
+
+describe('a point given as a run that cannot be fitted', () => {
+  // A third point at 318.15 K given as a run of three readings without x_inf (invented): the exponential
+  // fit would have to find x_0, x_inf and k from three numbers. The student reports k = 4.5e-3 s^-1 for
+  // it and fits all three of their k by least squares (textbook formulas below).
+  const T3 = 318.15;
+  const k3 = 4.5e-3; // well off the line through the other two (which gives about 6.8e-3 there)
+  const run = { timeUnit: 's', readings: [[0, 10], [100, 7.2], [200, 5.6]], reported: { k: { value: k3, unit: 's^-1' } } };
+  const x = [T1, T2, T3].map((t) => 1 / t);
+  const line = (y: number[]) => {
+    const mx = x.reduce((a, b) => a + b, 0) / 3;
+    const my = y.reduce((a, b) => a + b, 0) / 3;
+    const slope = x.reduce((s, xi, i) => s + (xi - mx) * (y[i] - my), 0) / x.reduce((s, xi) => s + (xi - mx) ** 2, 0);
+    return { slope, intercept: my - slope * mx };
+  };
+  const ks3 = [k1, k2, k3];
+  const arr = line(ks3.map(Math.log));
+  const eyr = line(ks3.map((k, i) => Math.log(k / [T1, T2, T3][i])));
+  const theirs = { Ea: -R * arr.slope, A: Math.exp(arr.intercept), dH: -R * eyr.slope, dS: R * (eyr.intercept - LN_KB_OVER_H) };
+
+  it('is named on its readings and left out of our fit; values from the student\'s own three k are carried forward, not charged', () => {
+    const reported = {
+      Ea: { value: (theirs.Ea / 1000).toPrecision(4), unit: 'kJ mol^-1' },
+      A: { value: theirs.A.toPrecision(3), unit: 's^-1' },
+      dH: { value: (theirs.dH / 1000).toPrecision(4), unit: 'kJ mol^-1' },
+      dS: { value: theirs.dS.toPrecision(4), unit: 'J K^-1 mol^-1' },
+    };
+    const result = checkSubmission(assignment, { studentId: 'T-3R', points: [...points, { label: 'run', temperature: { value: T3, unit: 'K' }, run }], reported });
+    expect(result.status).toBe('checked');
+    expect(result.findings.filter((f) => f.code === 'run-not-fitted')).toEqual([expect.objectContaining({ path: 'points[2].run.readings', severity: 'warning', pointsLost: 0 })]);
+    // Our line is the two measured points' (see above): E_a as worked by hand there.
+    expect((result.refit as { Ea: { value: number } }).Ea.value / (Ea / 1000)).toBeCloseTo(1, 9);
+    // Hand verdict: E_a 2 + A 1 + ΔH‡ 2 + ΔS‡ 2 = 7 (the run's k and the SE of E_a are not graded), none lost.
+    expect(result.maxScore).toBe(7);
+    expect(result.score).toBe(7);
+    expect(result.findings.filter((f) => f.code === 'carried-forward').map((f) => f.path)).toEqual(['reported.Ea', 'reported.A', 'reported.dH', 'reported.dS']);
+  });
+});

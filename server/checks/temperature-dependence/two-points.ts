@@ -4,9 +4,9 @@ import { fmt } from '../format.ts';
 
 const LABELS = { Ea: 'E_a', A: 'A', dH: 'ΔH‡', dS: 'ΔS‡' } as const;
 
-/** Two temperatures give an exact line: its values are graded, its standard errors are not defined. */
-export function hasTwoPoints(submission: Pick<Submission, 'points'>): boolean {
-  return submission.points.length === 2;
+/** Two temperatures (points fitted) give an exact line: its values are graded, its standard errors are not defined. */
+export function hasTwoPoints(fittedPoints: number): boolean {
+  return fittedPoints === 2;
 }
 
 /**
