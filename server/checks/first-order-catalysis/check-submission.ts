@@ -12,7 +12,7 @@ import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
 import { analyseRun, isFitted, type RunAnalysis, type UnfittedRun } from './run-analysis.ts';
 import { runTemperatureDraft } from './run-temperature.ts';
-import { timeUnitImplausible } from './time-unit-plausibility.ts';
+import { runTimeUnitImplausible } from './time-unit-plausibility.ts';
 import { theirUngradedK, unfittedRunDraft } from './unfitted-run.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
@@ -58,7 +58,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     if (temperature) drafts.push(temperature);
   }
   for (const a of fitted) {
-    const timeUnit = timeUnitImplausible(a, settings);
+    const timeUnit = runTimeUnitImplausible(a, settings);
     if (timeUnit) drafts.push(timeUnit);
     checkReadings(submission.runs[a.index], a, settings, drafts);
   }
