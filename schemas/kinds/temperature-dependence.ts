@@ -19,7 +19,7 @@ export const stages = [
 export type Stage = (typeof stages)[number]['id'];
 
 /** The kind's finding codes, the shared ones among them, in the order a summary lists them. */
-export const findingCodes = ['temperature-implausible', 'run-not-fitted', 'uncertainty-undefined', 'temperature-scale', 'gas-constant', 'energy-unit', 'reciprocal-scale', 'eyring-form', 'time-unit', ...sharedFindingCodes] as const;
+export const findingCodes = ['temperature-implausible', 'run-not-fitted', 'time-unit-implausible', 'uncertainty-undefined', 'temperature-scale', 'gas-constant', 'energy-unit', 'reciprocal-scale', 'eyring-form', 'time-unit', ...sharedFindingCodes] as const;
 export type FindingCode = (typeof findingCodes)[number];
 
 /** A temperature as read: kelvin, or degrees Celsius (an offset, converted by the checker). */

@@ -93,3 +93,33 @@ describe('temperatures that cannot be what was typed', () => {
     expect(result.findings.map((f) => f.message)).toEqual([]);
   });
 });
+
+describe('a run whose times cannot fit their unit (second kind)', () => {
+  // Invented: E_a = 75 kJ/mol, A = 2e10 s^-1. The bands E_a 74-76 kJ/mol and A 1.5e10-2.5e10 s^-1 allow
+  // at 298.15 K k from 1.5e10 e^(-76000/RT) to 2.5e10 e^(-74000/RT), about 7.3e-4 to 2.7e-3 s^-1 (worked
+  // below). The run's readings are taken every minute but declared in seconds: its k reads 60 times
+  // too large, over 30 times the band's top, and inside it per minute (common practice, no source).
+  const T = 298.15;
+  const kTrue = 2e10 * Math.exp(-75000 / (R * T)); // s^-1
+  const perMinute = kTrue * 60;
+  const readings = Array.from({ length: 31 }, (_, t) => [t, 5 + 15 * Math.exp(-perMinute * t)]);
+  const settings = { kind: 'temperature-dependence', reference: { Ea: { min: 74, max: 76, unit: 'kJ mol^-1' }, A: { min: 1.5e10, max: 2.5e10, unit: 's^-1' } } };
+  const measured = [288.15, 308.15].map((t) => ({ label: `${t} K`, temperature: { value: t, unit: 'K' }, k: { value: 2e10 * Math.exp(-75000 / (R * t)), unit: 's^-1' } }));
+  const withRun = (timeUnit: string) => [...measured, { label: 'run', temperature: { value: T, unit: 'K' }, run: { timeUnit, readings, infinity: 5, reported: { k: { value: perMinute, unit: `${timeUnit}^-1` } } } }];
+
+  it('the band by hand, and the run named on its time unit with minutes as the probable unit', () => {
+    const top = 2.5e10 * Math.exp(-74000 / (R * T));
+    expect(perMinute).toBeGreaterThan(30 * top);
+    expect(kTrue).toBeLessThan(top);
+    expect(kTrue).toBeGreaterThan(1.5e10 * Math.exp(-76000 / (R * T)));
+    const result = checkSubmission(parseAssignment(settings), { studentId: 'T-TU', points: withRun('s') });
+    const found = result.findings.filter((f) => f.code === 'time-unit-implausible');
+    expect(found).toEqual([expect.objectContaining({ path: 'points[2].run.timeUnit', severity: 'warning', pointsLost: 0 })]);
+    expect(found[0].message).toContain('the times were probably in min');
+  });
+
+  it('the same run declared in minutes draws nothing', () => {
+    const result = checkSubmission(parseAssignment(settings), { studentId: 'T-TU', points: withRun('min') });
+    expect(result.findings.filter((f) => f.code === 'time-unit-implausible')).toEqual([]);
+  });
+});

@@ -15,6 +15,7 @@ import { temperatureCauses } from './causes.ts';
 import { checkRunKs } from './check-run-k.ts';
 import { activationOf, analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
 import { hasTwoPoints, twoPointsNote } from './two-points.ts';
+import { runTimeUnitDrafts } from './time-unit-plausibility.ts';
 import { theirUnfittedPoints } from './unfitted-points.ts';
 
 type Quantity = Exclude<keyof Activation, 'EaSE'>;
@@ -125,7 +126,7 @@ export function rubricCounts(settings: Settings, submission: Pick<Submission, 'p
 
 export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analysis = analyseTemperatures(settings, submission.points);
-  const drafts: DraftFinding[] = [...analysis.dataNotes];
+  const drafts: DraftFinding[] = [...analysis.dataNotes, ...runTimeUnitDrafts(submission, analysis, settings)];
   const theirK = checkRunKs(submission, analysis, settings, drafts);
   // Their fits, where a run's k as they have it differs from ours or a run we could not fit has a k
   // of theirs: what their E_a and the rest follow from.
