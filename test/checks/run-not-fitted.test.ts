@@ -72,3 +72,11 @@ describe('a run that cannot be fitted', () => {
     expect(result.rejected?.[0]?.path).toBe('runs[0].timeUnit');
   });
 });
+
+describe('a submission with no run that can be fitted', () => {
+  it('is refused, naming each run and why: nothing in it can be graded', () => {
+    const result = checkSubmission(assignment, { studentId: 'F-06', runs: [shortRun], reported });
+    expect(result.status).toBe('rejected');
+    expect(result.rejected).toEqual([expect.objectContaining({ path: 'runs[0].readings', message: expect.stringContaining('run "R5" cannot be fitted') })]);
+  });
+});

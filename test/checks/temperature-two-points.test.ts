@@ -112,3 +112,12 @@ describe('a point given as a run that cannot be fitted', () => {
     expect(result.findings.filter((f) => f.code === 'carried-forward').map((f) => f.path)).toEqual(['reported.Ea', 'reported.A', 'reported.dH', 'reported.dS']);
   });
 });
+
+describe('fewer than two points with a rate constant', () => {
+  it('is refused, naming the run that gave none and the points', () => {
+    const run = { timeUnit: 's', readings: [[0, 10], [100, 7.2], [200, 5.6]] };
+    const result = checkSubmission(assignment, { studentId: 'T-1R', points: [points[0], { label: 'run', temperature: { value: 318.15, unit: 'K' }, run }], reported: reportedRight() });
+    expect(result.status).toBe('rejected');
+    expect(result.rejected?.map((r) => r.path)).toEqual(['points[1].run.readings', 'points']);
+  });
+});

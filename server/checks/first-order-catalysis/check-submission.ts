@@ -4,6 +4,7 @@ import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
+import { InputRejected } from '../input-rejected.ts';
 import { firstOrderCauses } from './causes.ts';
 import { checkLnFColumn } from './check-lnf-column.ts';
 import { checkReadings } from './check-readings.ts';
@@ -52,6 +53,8 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
   const analyses = submission.runs.map((run, i) => analyseRun(run, i, settings.fitModel));
   const fitted = analyses.filter(isFitted);
   const unfitted = analyses.filter((a): a is UnfittedRun => !isFitted(a));
+  // With no run fitted nothing can be graded: refused, with why each run gave no fit.
+  if (fitted.length === 0) throw new InputRejected(unfitted.map((a) => ({ path: a.notFitted.path, message: `run "${a.label}" cannot be fitted: ${a.notFitted.message}` })));
   const drafts: DraftFinding[] = unfitted.map(unfittedRunDraft);
   for (const [i, run] of submission.runs.entries()) {
     const temperature = runTemperatureDraft(run, i);

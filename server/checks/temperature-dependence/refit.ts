@@ -178,6 +178,11 @@ function pointPath(field: string | undefined, input: Point[]): string {
 export function analyseTemperatures(settings: Settings, input: Point[]): TemperatureAnalysis {
   const dataNotes: DraftFinding[] = [];
   const { points, runs, pointIndex, unfitted } = pointsOf(input, dataNotes);
+  // With fewer than two points left nothing can be graded: refused, with why each run gave no k.
+  if (points.length < 2 && unfitted.length > 0) {
+    const whyNot = dataNotes.filter((d) => d.code === 'run-not-fitted').map((d) => ({ path: d.path, message: d.message }));
+    throw new InputRejected([...whyNot, { path: 'points', message: `fewer than 2 points give a rate constant (${points.length}), and a line against 1/T needs 2` }]);
+  }
   const weighted = settings.fit === 'weighted';
   let arrhenius, eyring;
   try {
