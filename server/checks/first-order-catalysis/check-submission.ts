@@ -76,11 +76,13 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
   const rateLaw = refitRateLaw(analyses, studentKs, settings);
   const undetermined = fitted.filter((a) => a.undetermined);
   const withoutK = [...unfitted, ...undetermined].sort((a, b) => a.index - b.index);
+  const named = withoutK.map((a) => `run "${a.label}"`).join(' and ');
+  const one = withoutK.length === 1;
   const rateLawLeftOut = !rateLaw && rateLawGradable(submission);
   if (rateLawLeftOut) {
     const why =
       withoutK.length > 0
-        ? `without ${withoutK.map((a) => `run "${a.label}"`).join(' and ')}, which has no rate constant to grade against (see the finding on it), fewer than three runs at two concentrations or more remain`
+        ? `without ${named}, which ${one ? 'has' : 'have'} no rate constant to grade against (see the finding${one ? '' : 's'}), fewer than three runs at two concentrations or more remain`
         : 'the k_obs values could not be fitted';
     drafts.push({ code: 'refit-note', path: 'reported', stage: 'rate-law', severity: 'info', charge: 0, message: `k_N and k_A are not graded: ${why}, so the line through the k_obs values is not determined. They are left out of the maximum.` });
   } else if (rateLaw && withoutK.length > 0) {
@@ -90,7 +92,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
       stage: 'rate-law',
       severity: 'info',
       charge: 0,
-      message: `k_N and k_A are checked against our line through the other runs' k_obs: ${withoutK.map((a) => `run "${a.label}"`).join(' and ')} has no rate constant of ours (see the finding on it). A line through your own k_obs values, that run's included, is right too.`,
+      message: `k_N and k_A are checked against our line through the other runs' k_obs: ${named} ${one ? 'has' : 'have'} no rate constant of ours (see the finding${one ? '' : 's'}). A line through your own k_obs values, ${one ? "that run's" : "those runs'"} included, is right too.`,
     });
   }
   checkRateLaw(submission, rateLaw, settings, drafts);
