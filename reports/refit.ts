@@ -7,9 +7,9 @@ import type { CheckResult } from '../schemas/result.ts';
  * Read field by field rather than with `Refit.parse`: the checker can put a non-finite number in a
  * field the sheets do not use (a half-life interval's upper end is Infinity when k's interval reaches
  * 0; after JSON it is null), and the strict schema would then refuse the whole refit. Only what the
- * sheets draw is required: per run a k with value, standard error and unit.
+ * sheets draw is required: per run a k with value, standard error and unit, or why the run has none.
  */
-type EstimateValue = Refit['runs'][number]['k']['instructor'];
+type EstimateValue = NonNullable<Refit['runs'][number]['k']>['instructor'];
 
 const record = (value: unknown): Record<string, unknown> | undefined =>
   typeof value === 'object' && value !== null && !Array.isArray(value) ? (value as Record<string, unknown>) : undefined;
@@ -26,6 +26,7 @@ function runRefit(value: unknown): RunRefit | undefined {
   const run = record(value);
   const k = record(run?.k);
   const instructor = estimate(k?.instructor);
+  if (run && typeof run.notFitted === 'string') return { label: typeof run.label === 'string' ? run.label : '', model: 'exponential', notFitted: run.notFitted };
   if (!run || !instructor) return undefined;
   const model = run.model === 'intercept' || run.model === 'exponential' ? run.model : 'origin';
   const lnF = Array.isArray(run.lnF) ? run.lnF.map((v) => (typeof v === 'number' && Number.isFinite(v) ? v : null)) : undefined;

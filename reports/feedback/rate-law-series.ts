@@ -30,9 +30,10 @@ export function rateLawSeries(settings: Settings, submission: Submission, refit:
     const data = submission.runs[i];
     const c = data ? convertUnit(data.catalyst.value, data.catalyst.unit, 'M') : undefined;
     if (c === undefined) return;
-    const estimate = run.k.instructor;
-    const k = convertUnit(estimate.value, estimate.unit, kUnit);
-    const se = convertUnit(estimate.standardError, estimate.unit, kUnit);
+    // A run that could not be fitted has no k of ours; the student's is still drawn.
+    const estimate = run.k?.instructor;
+    const k = estimate && convertUnit(estimate.value, estimate.unit, kUnit);
+    const se = estimate && convertUnit(estimate.standardError, estimate.unit, kUnit);
     if (k !== undefined && se !== undefined) ours.push({ c, k, se });
     const reported = data?.reported?.k;
     if (reported) {

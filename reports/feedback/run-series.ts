@@ -61,7 +61,7 @@ function withinTolerance(settings: Settings, theirs: number, ours: number): bool
 }
 
 export function runSeries(settings: Settings, run: SubmittedRun, refitRun: RunRefit, index: number, findings: Finding[]): RunSeries | undefined {
-  if (!refitRun.lnF || run.readings.length === 0) return undefined;
+  if (!refitRun.lnF || !refitRun.k || run.readings.length === 0) return undefined;
   const perTime = `${run.timeUnit}^-1`;
   const instructor = refitRun.k.instructor;
   const ourK = convertUnit(instructor.value, instructor.unit, perTime);

@@ -42,6 +42,10 @@ export function valueRows(settings: Settings, submission: Submission, refit: Ref
   const t = settings.tolerances;
   const rows: ValueRow[] = refit.runs.map((run, i) => {
     const reported = submission.runs[i]?.reported?.k;
+    if (!run.k) {
+      const unit = reported?.unit ?? settings.units.k;
+      return { quantity: 'k_{obs}', run: runLabel(submission, i).replace(/^Run /, ''), reported: reportedText(reported, unit), refit: 'not fitted', unit: prettyUnit(unit), difference: '—', tolerance: tolerancePair(t.k, t.kUncertainty) };
+    }
     const estimate = run.k.declared ?? run.k.instructor;
     return {
       quantity: 'k_{obs}',

@@ -50,7 +50,10 @@ export const temperatureDependenceReport: KindReport = {
       return [
         SYMBOLS[q],
         reported ? `${formatReported(reported.value)}${reported.uncertainty === undefined ? '' : ` ± ${formatReported(reported.uncertainty)}`} ${prettyUnit(reported.unit)}` : '—',
-        `${formatEstimate(refit[q].value, refit[q].standardError)} ${prettyUnit(refit[q].unit)}`,
+        // Two temperatures give an exact line, whose standard errors are not defined (null after JSON).
+        Number.isFinite(refit[q].standardError)
+          ? `${formatEstimate(refit[q].value, refit[q].standardError)} ${prettyUnit(refit[q].unit)}`
+          : `${formatEstimate(refit[q].value, undefined)} ${prettyUnit(refit[q].unit)} (SE not defined with two points)`,
         // An absolute tolerance is in the quantity's unit.
         `${formatTolerance(settings.tolerances[q])}${settings.tolerances[q].relative === undefined ? ` ${prettyUnit(settings.units[q])}` : ''}`,
       ];

@@ -33,6 +33,9 @@ export const findingCodes = [
   'carried-forward',
   'transcription',
   'suspect-reading',
+  'run-not-fitted',
+  'time-unit-implausible',
+  'temperature-implausible',
   'implausible',
   'sig-figs',
   'unit-unrecognised',
@@ -180,7 +183,9 @@ export const RunRefit = z.object({
   label: z.string(),
   /** The model the expected k comes from: the asked one, or `exponential` for a run without x_inf. */
   model: z.enum(['origin', 'intercept', 'exponential']),
-  k: RefitValue,
+  /** Absent for a run its data cannot be fitted for; `notFitted` says why. */
+  k: RefitValue.optional(),
+  notFitted: z.string().optional(),
   kOtherModel: Estimate.optional(),
   kExponential: Estimate.optional(),
   halfLife: Estimate.optional(),

@@ -19,7 +19,7 @@ export const stages = [
 export type Stage = (typeof stages)[number]['id'];
 
 /** The kind's finding codes, the shared ones among them, in the order a summary lists them. */
-export const findingCodes = ['temperature-scale', 'gas-constant', 'energy-unit', 'reciprocal-scale', 'eyring-form', 'time-unit', ...sharedFindingCodes] as const;
+export const findingCodes = ['temperature-implausible', 'run-not-fitted', 'time-unit-implausible', 'uncertainty-undefined', 'temperature-scale', 'gas-constant', 'energy-unit', 'reciprocal-scale', 'eyring-form', 'time-unit', ...sharedFindingCodes] as const;
 export type FindingCode = (typeof findingCodes)[number];
 
 /** A temperature as read: kelvin, or degrees Celsius (an offset, converted by the checker). */
@@ -51,7 +51,8 @@ export type Point = z.infer<typeof Point>;
 
 export const Submission = z.object({
   studentId: StudentId,
-  points: z.array(Point).min(3, 'at least 3 temperatures').max(50),
+  // Two temperatures fix E_a and the rest exactly; their standard errors need a third.
+  points: z.array(Point).min(2, 'at least 2 temperatures').max(50),
   reported: z.object({ Ea: ReportedValue.optional(), A: ReportedValue.optional(), dH: ReportedValue.optional(), dS: ReportedValue.optional() }).optional(),
 });
 export type Submission = z.infer<typeof Submission>;

@@ -26,8 +26,10 @@ import { gaussian, seededRandom } from './seeded-random.ts';
  */
 
 export type Random = () => number;
-export type SlipCode = Exclude<FindingCode, 'carried-forward' | 'refit-note'>;
-export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => c !== 'carried-forward' && c !== 'refit-note');
+// Not slips the generator makes: notes on the refit, and findings on data a run or its entry cannot be.
+const NOT_SLIPS = ['carried-forward', 'refit-note', 'run-not-fitted', 'time-unit-implausible', 'temperature-implausible'] as const;
+export type SlipCode = Exclude<FindingCode, (typeof NOT_SLIPS)[number]>;
+export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => !(NOT_SLIPS as readonly string[]).includes(c));
 
 /** A finding the checker must report for an injected slip. */
 export interface ExpectedFinding {

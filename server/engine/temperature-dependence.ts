@@ -2,13 +2,16 @@ import { EngineError } from './engine-error.ts';
 import type { Estimate } from './estimate.ts';
 import { fitLine, type LineFit } from './linear-fit.ts';
 import { GAS_CONSTANT, LN_KB_OVER_H } from './physical-constants.ts';
+import { lineThroughTwoPoints } from './two-point-line.ts';
 
 /**
  * Rate constants at several temperatures. Arrhenius: ln k = ln A - Ea/(R T), so ln k against 1/T has
  * slope -Ea/R and intercept ln A. Eyring: ln(k/T) = ln(k_B/h) + dS/R - dH/(R T) with k in s^-1, so
  * ln(k/T) against 1/T has slope -dH/R and intercept ln(k_B/h) + dS/R. Energies come out in J mol^-1,
  * dS in J K^-1 mol^-1, A in the unit of k. Standard errors propagate linearly from the line's; A's
- * interval is exp of the intercept's (exact for a monotonic map).
+ * interval is exp of the intercept's (exact for a monotonic map). With two points the line passes
+ * through both exactly: the values are exact, and their standard errors and intervals are NaN (not
+ * defined: no scatter is left to estimate them from).
  */
 export interface TemperaturePoint {
   /** In kelvin. */
@@ -36,6 +39,8 @@ function lineOf(points: TemperaturePoint[], y: (p: TemperaturePoint) => number, 
     if (!(p.k > 0)) throw new EngineError('non-positive-rate', `point ${i} has k = ${p.k}`, `points[${i}].k`);
     if (!(p.temperature > 0)) throw new EngineError('not-above-absolute-zero', `point ${i} has T = ${p.temperature} K`, `points[${i}].temperature`);
   });
+  if (points.length < 2) throw new EngineError('too-few-points', `a line against 1/T needs at least 2 temperatures, got ${points.length}`, 'points');
+  if (points.length === 2) return lineThroughTwoPoints(points.map((p) => 1 / p.temperature), points.map(y));
   const sigma = weighted
     ? points.map((p, i) => {
         if (p.standardError === undefined) throw new EngineError('bad-weight', `point ${i} has no standard error for a weighted fit`, `points[${i}].standardError`);

@@ -194,8 +194,8 @@ describe('the refit, in the units the instructor asks for and in those the stude
     });
     expect(r.findings.filter((f) => f.code !== 'sig-figs')).toEqual([]);
     const refit = r.refit as Refit;
-    expect(refit.runs[1].k.instructor.unit).toBe('min^-1');
-    expect(refit.runs[1].k.declared).toMatchObject({ unit: 's^-1', value: expect.closeTo(refit.runs[1].k.instructor.value / 60, 12) });
+    expect(refit.runs[1].k!.instructor.unit).toBe('min^-1');
+    expect(refit.runs[1].k!.declared).toMatchObject({ unit: 's^-1', value: expect.closeTo(refit.runs[1].k!.instructor.value / 60, 12) });
     expect(refit.kADeclared).toMatchObject({ unit: 'M^-1 s^-1', value: expect.closeTo(refit.kA!.value / 60, 12) });
     expect(refit.kNDeclared).toBeUndefined();
   });

@@ -82,3 +82,29 @@ describe('Arrhenius and Eyring fits', () => {
     expect(caught(() => fitEyring([{ temperature: 300, k: 1 }, { temperature: 310, k: 2 }, { temperature: 320, k: 3 }], { weighted: true }))).toMatchObject({ code: 'bad-weight', field: 'points[0].standardError' });
   });
 });
+
+describe('two temperatures', () => {
+  it('give the line through both points exactly, by the two-point Arrhenius relation E_a = R ln(k2/k1)/(1/T1 - 1/T2) (textbook algebra), with standard errors not defined', () => {
+    // Invented: k = 2.0e-4 s^-1 at 300 K and 8.0e-4 s^-1 at 320 K.
+    const points = [
+      { temperature: 300, k: 2.0e-4, standardError: 1e-5 },
+      { temperature: 320, k: 8.0e-4, standardError: 2e-5 },
+    ];
+    const Ea = (GAS_CONSTANT * Math.log(4)) / (1 / 300 - 1 / 320);
+    for (const weighted of [false, true]) {
+      const fit = fitArrhenius(points, { kUnit: 's^-1', weighted });
+      near(fit.Ea.value, Ea, 1e-12);
+      near(fit.A.value, 2.0e-4 * Math.exp(Ea / (GAS_CONSTANT * 300)), 1e-10);
+      expect(Number.isNaN(fit.Ea.standardError)).toBe(true);
+      expect(fit.Ea.ci95.every(Number.isNaN)).toBe(true);
+      expect(fit.line.dof).toBe(0);
+      const eyring = fitEyring(points, { weighted });
+      near(eyring.dH.value, (GAS_CONSTANT * Math.log(8.0e-4 / 320 / (2.0e-4 / 300))) / (1 / 300 - 1 / 320), 1e-12);
+      expect(Number.isNaN(eyring.dS.standardError)).toBe(true);
+    }
+  });
+
+  it('at one temperature twice are refused: no slope', () => {
+    expect(caught(() => fitArrhenius([{ temperature: 300, k: 1e-3 }, { temperature: 300, k: 2e-3 }], { kUnit: 's^-1' }))).toMatchObject({ code: 'degenerate-x' });
+  });
+});

@@ -272,11 +272,6 @@ const cases: Case[] = [
     detail: /^at most two files: readings and, optionally, reported$/,
   },
   {
-    name: 'x_inf equal to the first reading',
-    request: submit(() => [broken('S-001', (s) => (s.runs[2].infinity = s.runs[2].readings[0][1]))]),
-    ...perSubmission('[0].runs[2].infinity', /equals the first reading x_0, so F is undefined/),
-  },
-  {
     name: 'a regrade id that was never given out',
     request: (s) => ({ method: 'GET', url: `/v1/assignments/${s.assignment.id}/regrades/2b1c9a3e-0000-4000-8000-000000000000`, headers: auth(s.instructorToken) }),
     status: 404,
@@ -583,13 +578,16 @@ describe('malformed requests on PostgreSQL', () => {
       if (res.statusCode >= 400) expect(await counts()).toEqual(before);
     });
 
-    it('a run whose readings are all equal is rejected per submission, not a 500', async () => {
-      const before = await counts();
-      const flat = broken('S-001', (x) => (x.runs[0].readings = x.runs[0].readings.map(([t]: [number, number]) => [t, 20])));
-      const res = await api.app.inject(submit(() => [flat])(s));
-      expect(res.statusCode, res.body).toBe(422);
-      expect(res.json().error.details[0].path).toMatch(/^\[0\]\.runs\[0\]/);
-      expect(await counts()).toEqual(before);
+    // Once refused whole, a run its data cannot be fitted for is now a finding on that run and the
+    // rest of the submission is graded: the data are valid input, only that run gives no rate.
+    it.each([
+      ['whose readings are all equal', 0, (x: { runs: Array<{ readings: Array<[number, number]>; infinity?: number }> }) => (x.runs[0].readings = x.runs[0].readings.map(([t]) => [t, 20])), 'runs[0].readings', /do not change/],
+      ['with x_inf equal to the first reading', 2, (x: { runs: Array<{ readings: Array<[number, number]>; infinity?: number }> }) => (x.runs[2].infinity = x.runs[2].readings[0][1]), 'runs[2].infinity', /equals the first reading x_0/],
+    ] as const)('a run %s is stored with a run-not-fitted finding on it, not refused and not a 500', async (_name, _run, change, path, says) => {
+      const res = await call(api.app, 'POST', submissionsUrl(s), s.taAToken, [broken('S-003', change)], 201);
+      const view = await call(api.app, 'GET', `/v1/submissions/${res.body.stored[0].submissionId}`, s.taAToken, undefined, 200);
+      const findings = view.body.result.findings as Array<{ code: string; path: string; message: string }>;
+      expect(findings.filter((f) => f.code === 'run-not-fitted')).toEqual([expect.objectContaining({ path, message: expect.stringMatching(says) })]);
     });
 
     it('an ln F column longer than the readings is a finding on that column, and k is still checked', async () => {

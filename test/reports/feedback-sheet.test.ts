@@ -29,7 +29,7 @@ describe('renderFeedbackSheet', () => {
     expect(text).toContain('S-002');
     expect(flat).toContain(`${formatPoints(result.score!)} / ${formatPoints(result.maxScore)}`);
     const refit = readRefit(result)!;
-    expect(text).toContain(formatNumber(refit.runs[0].k.instructor.value));
+    expect(text).toContain(formatNumber(refit.runs[0].k!.instructor.value));
     expect(text).toContain(formatNumber(refit.kA!.value));
     expect(flat).toContain(folded(LIKELY_CAUSES_NOTE));
   });
@@ -82,7 +82,7 @@ describe('renderFeedbackSheet', () => {
     refit.runs[0].halfLife = { value: 20, standardError: 1, ci95: [18, Infinity], unit: 'min' };
     const roundTripped = JSON.parse(JSON.stringify({ ...result, refit }));
     const text = await pdfText(await renderFeedbackSheet(feedbackInput(s.settings, { submission, result: roundTripped })));
-    expect(text).toContain(formatNumber(readRefit(result)!.runs[0].k.instructor.value));
+    expect(text).toContain(formatNumber(readRefit(result)!.runs[0].k!.instructor.value));
     expect(folded(text)).toContain('ln F against t, run by run');
   });
 

@@ -17,14 +17,15 @@ function tolerance(tol, unit) {
 const SYMBOLS = { kN: 'k_N', kA: 'k_A', Ea: 'E_a', A: 'A', dH: 'ΔH‡', dS: 'ΔS‡' };
 
 const valueText = (v, unit) => (v ? `${v.value}${v.uncertainty !== undefined ? ` ± ${v.uncertainty}` : ''} ${v.unit ?? unit ?? ''}`.trim() : 'not given');
-const estimateText = (e) => (e ? `${num(e.value)} ± ${num(e.standardError)} ${e.unit}` : '–');
+// A fit through two points has no standard error (null): its value is shown alone.
+const estimateText = (e) => (e ? (typeof e.standardError === 'number' ? `${num(e.value)} ± ${num(e.standardError)} ${e.unit}` : `${num(e.value)} ${e.unit} (SE not defined)`) : '–');
 
 /** Reported against refit, with the tolerance each is judged by. */
 function comparisonTable(payload, refit, settings) {
   const rows = (payload.runs ?? []).map((run, i) => [`k_obs, run ${run.label}`, valueText(run.reported?.k), estimateText(refit?.runs?.[i]?.k?.instructor), tolerance(settings?.tolerances?.k)]);
   // Every value reported for the submission as a whole beside the refit's value of the same name
   // (k_N and k_A, E_a and A, ...), whatever the kind.
-  const isEstimate = (e) => e && typeof e.value === 'number' && typeof e.standardError === 'number';
+  const isEstimate = (e) => e && typeof e.value === 'number';
   // In the order of SYMBOLS (a stored payload's keys may come back in another order), then any other.
   const known = Object.keys(SYMBOLS).filter((key) => payload.reported?.[key] || isEstimate(refit?.[key]));
   const keys = [...known, ...Object.keys(payload.reported ?? {}).filter((key) => !known.includes(key))];

@@ -16,7 +16,7 @@ import { fmt, withUnit } from '../format.ts';
 import { withinTolerance } from '../tolerance.ts';
 import { readReported } from '../reported-number.ts';
 import type { StudentK } from './check-run-k.ts';
-import type { RunAnalysis } from './run-analysis.ts';
+import { isFitted, type RunAnalysis, type RunOutcome } from './run-analysis.ts';
 
 /** k_N and k_A from our refit, and from the student's own k_obs values where they gave them all. */
 export interface RateLawRefit {
@@ -55,16 +55,17 @@ function fitInUnits(points: Array<{ c: number; k: number; se?: number }>, weight
   };
 }
 
-export function refitRateLaw(analyses: RunAnalysis[], studentKs: Array<StudentK | undefined>, settings: Settings): RateLawRefit | undefined {
-  // A run with no rate constant of its own leaves the line through the k_obs values undetermined too.
-  if (analyses.some((a) => a.undetermined)) return undefined;
+export function refitRateLaw(analyses: RunOutcome[], studentKs: Array<StudentK | undefined>, settings: Settings): RateLawRefit | undefined {
+  // Our line leaves out a run with no rate constant of its own (not fitted, or undetermined); with
+  // fewer than three runs at two concentrations left, the fit below refuses and nothing is graded.
+  const graded = analyses.filter((a): a is RunAnalysis => isFitted(a) && !a.undetermined);
   const weighted = settings.rateLawFit === 'weighted';
-  const perSecond = (a: RunAnalysis, k: number) => convert(k, rateUnitOf(a.timeUnit), 's^-1');
+  const perSecond = (a: RunOutcome, k: number) => convert(k, rateUnitOf(a.timeUnit), 's^-1');
   try {
-    const points = analyses.map((a) => ({ c: a.concentrationM, k: perSecond(a, a.expected.value), se: perSecond(a, a.expected.standardError) }));
+    const points = graded.map((a) => ({ c: a.concentrationM, k: perSecond(a, a.expected.value), se: perSecond(a, a.expected.standardError) }));
     // Weights are 1/SE^2: a run fitted exactly (SE 0) would take all the weight. The ordinary fit
     // stands in, and a finding says so, rather than leave k_N and k_A unchecked.
-    const exact = weighted ? analyses.find((_, i) => !(points[i].se > 0)) : undefined;
+    const exact = weighted ? graded.find((_, i) => !(points[i].se > 0)) : undefined;
     const unweightedBecause = exact && `the standard error of k_obs of run "${exact.label}" is 0 (its readings lie exactly on the curve), so weights 1/SE² cannot be formed`;
     const ours = fitInUnits(points, weighted && !exact, settings);
     let fromReportedK: RateLawRefit['fromReportedK'];

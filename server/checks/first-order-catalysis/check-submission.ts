@@ -4,13 +4,17 @@ import { EngineError } from '../../engine/engine-error.ts';
 import type { Estimate } from '../../engine/estimate.ts';
 import { convertEstimate } from '../convert-estimate.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
+import { InputRejected } from '../input-rejected.ts';
 import { firstOrderCauses } from './causes.ts';
 import { checkLnFColumn } from './check-lnf-column.ts';
 import { checkReadings } from './check-readings.ts';
 import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
 import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
-import { analyseRun, type RunAnalysis } from './run-analysis.ts';
+import { analyseRun, isFitted, type RunAnalysis, type UnfittedRun } from './run-analysis.ts';
+import { runTemperatureDraft } from './run-temperature.ts';
+import { runTimeUnitImplausible } from './time-unit-plausibility.ts';
+import { theirUngradedK, unfittedRunDraft } from './unfitted-run.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
 import { rateLawGradable, rubricCounts } from './scoring.ts';
@@ -28,7 +32,8 @@ function inDeclared(e: Estimate | undefined, declared: string | undefined, instr
 }
 
 /** Our values for one run: in the instructor's unit, and in the unit the student declared where it differs. */
-function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Settings): RunRefit {
+function runRefit(a: RunAnalysis | UnfittedRun, declaredUnit: string | undefined, settings: Settings): RunRefit {
+  if (!isFitted(a)) return { label: a.label, model: 'exponential', notFitted: a.notFitted.message };
   const declared = inDeclared(a.expected, declaredUnit, settings.units.k);
   return {
     label: a.label,
@@ -46,24 +51,55 @@ function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Se
 
 export function checkFirstOrderCatalysis(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analyses = submission.runs.map((run, i) => analyseRun(run, i, settings.fitModel));
-  const drafts: DraftFinding[] = [];
-  submission.runs.forEach((run, i) => checkReadings(run, analyses[i], settings, drafts));
-  const studentKs = submission.runs.map((run, i) => {
-    const column = checkLnFColumn(run, analyses[i], analyses, settings, drafts);
-    return checkRunK(run, analyses[i], analyses, column, settings, drafts);
+  const fitted = analyses.filter(isFitted);
+  const unfitted = analyses.filter((a): a is UnfittedRun => !isFitted(a));
+  // With no run fitted nothing can be graded: refused, with why each run gave no fit.
+  if (fitted.length === 0) throw new InputRejected(unfitted.map((a) => ({ path: a.notFitted.path, message: `run "${a.label}" cannot be fitted: ${a.notFitted.message}` })));
+  const drafts: DraftFinding[] = unfitted.map(unfittedRunDraft);
+  for (const [i, run] of submission.runs.entries()) {
+    const temperature = runTemperatureDraft(run, i);
+    if (temperature) drafts.push(temperature);
+  }
+  for (const a of fitted) {
+    const timeUnit = runTimeUnitImplausible(a, settings);
+    if (timeUnit) drafts.push(timeUnit);
+    checkReadings(submission.runs[a.index], a, settings, drafts);
+  }
+  const studentKs = analyses.map((a) => {
+    const run = submission.runs[a.index];
+    // A k we cannot grade (no fit, or undetermined) still belongs in the student's line through their own k_obs.
+    if (!isFitted(a)) return theirUngradedK(run, a);
+    const column = checkLnFColumn(run, a, fitted, settings, drafts);
+    const checked = checkRunK(run, a, fitted, column, settings, drafts);
+    return a.undetermined ? theirUngradedK(run, a) : checked;
   });
   const rateLaw = refitRateLaw(analyses, studentKs, settings);
-  const undetermined = analyses.filter((a) => a.undetermined);
+  const undetermined = fitted.filter((a) => a.undetermined);
+  const withoutK = [...unfitted, ...undetermined].sort((a, b) => a.index - b.index);
+  const named = withoutK.map((a) => `run "${a.label}"`).join(' and ');
+  const one = withoutK.length === 1;
   const rateLawLeftOut = !rateLaw && rateLawGradable(submission);
   if (rateLawLeftOut) {
-    const why = undetermined.length > 0 ? `run "${undetermined[0].label}" has no rate constant to grade against (see the finding on that run)` : 'the k_obs values could not be fitted';
+    const why =
+      withoutK.length > 0
+        ? `without ${named}, which ${one ? 'has' : 'have'} no rate constant to grade against (see the finding${one ? '' : 's'}), fewer than three runs at two concentrations or more remain`
+        : 'the k_obs values could not be fitted';
     drafts.push({ code: 'refit-note', path: 'reported', stage: 'rate-law', severity: 'info', charge: 0, message: `k_N and k_A are not graded: ${why}, so the line through the k_obs values is not determined. They are left out of the maximum.` });
+  } else if (rateLaw && withoutK.length > 0) {
+    drafts.push({
+      code: 'refit-note',
+      path: 'reported',
+      stage: 'rate-law',
+      severity: 'info',
+      charge: 0,
+      message: `k_N and k_A are checked against our line through the other runs' k_obs: ${named} ${one ? 'has' : 'have'} no rate constant of ours (see the finding${one ? '' : 's'}). A line through your own k_obs values, ${one ? "that run's" : "those runs'"} included, is right too.`,
+    });
   }
   checkRateLaw(submission, rateLaw, settings, drafts);
   checkSigFigs(submission, settings, drafts);
 
   const findings = scoreFindings(drafts, (key) => itemPoints(settings.rubric, key), firstOrderCauses.systematic);
-  const items = rubricCounts(settings, submission, { kRuns: undetermined.length, rateLaw: rateLawLeftOut });
+  const items = rubricCounts(settings, submission, { kRuns: undetermined.length, unfittedRuns: unfitted.map((a) => a.index), rateLaw: rateLawLeftOut });
   const refit: Refit = {
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
     kN: rateLaw?.kN,
@@ -73,6 +109,6 @@ export function checkFirstOrderCatalysis(settings: Settings, submission: Submiss
     fromReportedK: rateLaw?.fromReportedK,
     weightedFit: rateLaw?.weightedFit,
   };
-  const signals = [...analyses.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(analyses, settings)];
+  const signals = [...fitted.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(fitted, settings)];
   return scoredResult(submission.studentId, items, findings, refit, signals);
 }

@@ -11,6 +11,20 @@ import { fmt } from '../format.ts';
 import { InputRejected } from '../input-rejected.ts';
 import { molarForNormality } from './catalyst-unit.ts';
 
+/** A run whose data give no fit at all: a finding on the run, and the rest of the submission is graded. */
+export interface UnfittedRun {
+  index: number;
+  path: string;
+  label: string;
+  timeUnit: Unit;
+  concentrationM: number;
+  notFitted: { path: string; message: string };
+}
+
+export type RunOutcome = RunAnalysis | UnfittedRun;
+
+export const isFitted = (a: RunOutcome): a is RunAnalysis => !('notFitted' in a);
+
 /** Our own analysis of one run, from the student's raw data as submitted. */
 export interface RunAnalysis {
   index: number;
@@ -70,12 +84,21 @@ function undeterminedK(path: string, readings: number[], infinity: number | unde
   return undefined;
 }
 
-/** Maps an engine error's field (`readings[3]`, `times[2]`, `infinity`) into the submission. */
-function rejectAt(runPath: string, error: EngineError): never {
+/** Where in the submission an engine error's field (`readings[3]`, `times[2]`, `infinity`) lies. */
+function placeOf(runPath: string, error: EngineError): string {
   const field = error.field ?? '';
   const m = /^(readings|times)\[(\d+)\]$/.exec(field);
-  const path = m ? `${runPath}.readings[${m[2]}][${m[1] === 'times' ? 0 : 1}]` : `${runPath}.${field || 'readings'}`;
-  throw new InputRejected([{ path, message: error.message }]);
+  return m ? `${runPath}.readings[${m[2]}][${m[1] === 'times' ? 0 : 1}]` : `${runPath}.${field === 'infinity' ? 'infinity' : 'readings'}`;
+}
+
+/** Why a run's data give no fit, in words a student can act on. */
+function whyNotFitted(run: SubmittedRun, error: EngineError): string {
+  if (error.code === 'too-few-points' && run.infinity === undefined) {
+    return `it has ${run.readings.length} readings and no x_inf: the exponential fit then finds x_0, x_inf and k together and needs at least 4 readings (with x_inf measured, 3 would do)`;
+  }
+  if (error.code === 'too-few-points') return `fewer than 3 of its readings lie on x_0's side of x_inf = ${fmt(run.infinity!)}, and ln F needs 3 to fit a line (${error.message})`;
+  if (error.code === 'no-convergence') return 'the exponential fit with x_inf fitted did not converge on these readings (they may not follow a first-order curve)';
+  return error.message;
 }
 
 function parseAt<T>(path: string, parse: () => T): T {
@@ -144,7 +167,12 @@ function transformDefined(run: FirstOrderRun, infinity: number) {
   return { transform, defined, excluded };
 }
 
-export function analyseRun(run: SubmittedRun, index: number, model: LineModel): RunAnalysis {
+/**
+ * Our analysis of one run; a run its data cannot be fitted for (too few readings, readings that do
+ * not change, x_inf equal to x_0, a fit that does not converge) comes back as unfitted with the
+ * reason. A unit that cannot be read is refused by field.
+ */
+export function analyseRun(run: SubmittedRun, index: number, model: LineModel): RunOutcome {
   const path = `runs[${index}]`;
   const timeUnit = parseAt(`${path}.timeUnit`, () => parseUnit(run.timeUnit, 'time'));
   const catalystUnit = molarForNormality(run.catalyst.unit) ?? run.catalyst.unit;
@@ -152,9 +180,8 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
   const times = run.readings.map((r) => r[0]);
   const readings = run.readings.map((r) => r[1]);
   const data = { times, readings, timeUnit: run.timeUnit, infinity: run.infinity };
-  if (readings.every((x) => x === readings[0])) {
-    throw new InputRejected([{ path: `${path}.readings`, message: 'the readings do not change, so no rate can be fitted' }]);
-  }
+  const unfitted = (at: string, why: string): UnfittedRun => ({ index, path, label: run.label, timeUnit, concentrationM, notFitted: { path: at, message: why } });
+  if (readings.every((x) => x === readings[0])) return unfitted(`${path}.readings`, 'its readings do not change, so no rate can be fitted');
   try {
     if (run.infinity === undefined) {
       const exponential = fitFirstOrderNonlinear(data, { infinity: 'fitted' });
@@ -189,7 +216,7 @@ export function analyseRun(run: SubmittedRun, index: number, model: LineModel): 
       undetermined: undeterminedK(path, readings, run.infinity, asked.k),
     };
   } catch (error) {
-    if (error instanceof EngineError) rejectAt(path, error);
+    if (error instanceof EngineError) return unfitted(placeOf(path, error), whyNotFitted(run, error));
     throw error;
   }
 }

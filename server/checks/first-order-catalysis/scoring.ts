@@ -21,6 +21,8 @@ export function rateLawGradable(submission: Submission): boolean {
 export interface Ungradable {
   /** Runs whose k_obs these data do not determine: their k and its uncertainty are not graded. */
   kRuns?: number;
+  /** Runs (by index) whose data give no fit: their ln F column, k and its uncertainty are not graded. */
+  unfittedRuns?: number[];
   /** The rate law could not be refitted although the runs would allow it. */
   rateLaw?: boolean;
 }
@@ -33,11 +35,12 @@ export interface Ungradable {
 export function rubricCounts(settings: Settings, submission: Submission, ungradable: Ungradable = {}): RubricCount[] {
   const r = settings.rubric;
   const runs = submission.runs.length;
-  const kRuns = runs - (ungradable.kRuns ?? 0);
+  const unfitted = new Set(ungradable.unfittedRuns ?? []);
+  const kRuns = runs - (ungradable.kRuns ?? 0) - unfitted.size;
   const rateLaw = rateLawGradable(submission) && !ungradable.rateLaw ? 1 : 0;
   const counts: Array<[keyof Settings['rubric'], number]> = [
     ['readings', settings.classDataset ? runs : 0],
-    ['lnF', submission.runs.filter((run) => run.infinity !== undefined).length],
+    ['lnF', submission.runs.filter((run, i) => run.infinity !== undefined && !unfitted.has(i)).length],
     ['k', kRuns],
     ['kUncertainty', kRuns],
     ['kN', rateLaw],

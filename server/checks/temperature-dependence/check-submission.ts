@@ -17,6 +17,9 @@ import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
 import { checkRunKs } from './check-run-k.ts';
 import { activationOf, analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
+import { hasTwoPoints, twoPointsNote } from './two-points.ts';
+import { runTimeUnitDrafts } from './time-unit-plausibility.ts';
+import { theirUnfittedPoints } from './unfitted-points.ts';
 
 type Quantity = Exclude<keyof Activation, 'EaSE'>;
 
@@ -63,7 +66,7 @@ function slipCandidates(analysis: TemperatureAnalysis, q: keyof Activation, unit
 /** What follows from the student's own rate constants, where they differ from ours (a run's k misread). */
 const FROM_THEIR_K = 'your own rate constants from the runs';
 
-function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, theirs: Activation | undefined, settings: Settings, drafts: DraftFinding[]): void {
+function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysis: TemperatureAnalysis, theirs: Activation | undefined, settings: Settings, drafts: DraftFinding[], seDefined: boolean): void {
   const { label, stage, unitKind } = QUANTITIES[q];
   const path = `reported.${q}`;
   const charge = settings.rubric[q];
@@ -84,7 +87,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
     const outside = outsideBand(band, read.value, unit, { label, path, stage, advice: 'It agrees with the refit of your data, so this may be right; it is worth checking the temperatures and the rate constants.' });
     if (outside) drafts.push(outside);
   }
-  if (q !== 'Ea' || settings.rubric.EaUncertainty === 0) return;
+  if (q !== 'Ea' || settings.rubric.EaUncertainty === 0 || !seDefined) return;
   if (read.uncertainty === undefined) {
     drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage, rubricItem: 'EaUncertainty', itemKey: 'EaUncertainty', severity: 'error', charge: settings.rubric.EaUncertainty, message: `The standard error of ${label} is missing.` });
     return;
@@ -129,23 +132,33 @@ function scaledConvention(analysis: TemperatureAnalysis, settings: Settings): nu
   }
 }
 
-/** What each rubric item is worth for this submission (k once per point given as a run); an item worth nothing is left out. */
-export function rubricCounts(settings: Settings, submission: Pick<Submission, 'points'>): RubricCount[] {
-  const runs = submission.points.filter((p) => p.run).length;
+/**
+ * What each rubric item is worth for this submission (k once per point given as a run that could be
+ * fitted); an item worth nothing is left out.
+ */
+export function rubricCounts(settings: Settings, submission: Pick<Submission, 'points'>, unfittedRuns = 0): RubricCount[] {
+  const runs = submission.points.filter((p) => p.run).length - unfittedRuns;
   return Object.entries(settings.rubric).flatMap(([item, each]) => {
-    const count = item === 'k' ? runs : 1;
+    // With two temperatures the standard error of E_a is not defined: nothing to grade.
+    const count = item === 'k' ? runs : item === 'EaUncertainty' && hasTwoPoints(submission.points.length - unfittedRuns) ? 0 : 1;
     return each > 0 && count > 0 ? [{ item, count, each }] : [];
   });
 }
 
 export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analysis = analyseTemperatures(settings, submission.points);
-  const drafts: DraftFinding[] = [];
+  const drafts: DraftFinding[] = [...analysis.dataNotes, ...runTimeUnitDrafts(submission, analysis, settings)];
   const theirK = checkRunKs(submission, analysis, settings, drafts);
-  // Their fits, where a run's k as they have it differs from ours: what their E_a and the rest follow from.
-  const differs = [...theirK].some(([i, k]) => Math.abs(k - analysis.points[i].k) > 1e-9 * analysis.points[i].k);
-  const theirs = differs ? activationOf(analysis.points.map((p, i) => ({ ...p, k: theirK.get(i) ?? p.k })), settings.fit === 'weighted') : undefined;
-  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, theirs, settings, drafts);
+  // Their fits, where a run's k as they have it differs from ours or a run we could not fit has a k
+  // of theirs: what their E_a and the rest follow from.
+  const position = new Map(analysis.pointIndex.map((at, j) => [at, j]));
+  const differs = [...theirK].some(([i, k]) => Math.abs(k - analysis.points[position.get(i)!].k) > 1e-9 * analysis.points[position.get(i)!].k);
+  const ownUnfitted = theirUnfittedPoints(submission, analysis);
+  const ownPoints = [...analysis.points.map((p, j) => ({ ...p, k: theirK.get(analysis.pointIndex[j]) ?? p.k })), ...ownUnfitted];
+  const theirs = differs || ownUnfitted.length > 0 ? activationOf(ownPoints, settings.fit === 'weighted') : undefined;
+  const twoPoints = hasTwoPoints(analysis.points.length);
+  if (twoPoints) drafts.push(twoPointsNote(submission));
+  for (const q of Object.keys(QUANTITIES) as Quantity[]) checkQuantity(q, submission.reported?.[q], analysis, theirs, settings, drafts, !twoPoints);
   checkRounding(
     [
       ...analysis.runs.map((r): [string, ReportedValue | undefined] => [`points[${r.index}].run.reported.k`, submission.points[r.index].run?.reported?.k]),
@@ -162,5 +175,5 @@ export function checkTemperatureDependence(settings: Settings, submission: Submi
     dS: analysis.dS,
     points: analysis.points.map((p, i) => ({ label: analysis.labels[i], temperatureK: p.temperature, kPerSecond: p.k })),
   };
-  return scoredResult(submission.studentId, rubricCounts(settings, submission), findings, refit, []);
+  return scoredResult(submission.studentId, rubricCounts(settings, submission, analysis.unfitted.length), findings, refit, []);
 }

@@ -8,7 +8,10 @@ import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../engine/tem
 import { toKelvin, ZERO_CELSIUS_K } from '../../engine/temperature.ts';
 import { convert, parseUnit } from '../../engine/units.ts';
 import { convertEstimate } from '../convert-estimate.ts';
+import { fmt } from '../format.ts';
+import type { DraftFinding } from '../draft-finding.ts';
 import { InputRejected } from '../input-rejected.ts';
+import { implausibleTemperature, implausibleTemperatureDraft, inKelvin } from '../temperature-plausibility.ts';
 
 /** The four values of the two fits in base units (J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1), and the standard error of E_a. */
 export interface Activation {
@@ -24,16 +27,28 @@ export interface TemperatureAnalysis {
   /** The points given as runs, refitted. */
   runs: RunK[];
   labels: string[];
+  /** Where each fitted point is in the submission (a run that gave no k is left out). */
+  pointIndex: number[];
+  /** The points given as runs that gave no k: left out of our fits. */
+  unfitted: UnfittedPoint[];
   Ea: Estimate;
   A: Estimate;
   dH: Estimate;
   dS: Estimate;
+  /** Findings on the data: temperatures outside the plausible range (the refit uses what was probably meant), runs that gave no k. */
+  dataNotes: DraftFinding[];
   /** What the same data give with one slip of method each: what a student who made it reports. */
   slips: Partial<Record<string, Array<{ values: Partial<Activation>; detail: string }>>>;
 }
 
 // log10(k_B/h) = 10.319, used by mistake where ln(k_B/h) = 23.760 belongs.
 const LOG10_KB_OVER_H = LN_KB_OVER_H / Math.LN10;
+
+/** A point given as a run whose readings give no k: where it is, and its temperature in kelvin. */
+export interface UnfittedPoint {
+  index: number;
+  temperature: number;
+}
 
 /** A point given as a run: our k in the run's own rate unit, and other right values (the ln F lines). */
 export interface RunK {
@@ -42,9 +57,20 @@ export interface RunK {
   alsoRight: number[];
 }
 
-function refitRun(run: PointRun, path: string): { k: Estimate; alsoRight: number[] } {
+// A unit that cannot be read is refused by field; any other failure of a run's fit is a finding on it.
+const UNIT_ERRORS = new Set(['unknown-unit', 'unit-kind-mismatch']);
+
+/** Our k for a run, or why its readings give none (a run-not-fitted finding; the point leaves the fit). */
+function refitRun(run: PointRun): { k: Estimate; alsoRight: number[] } | { notFitted: string; field: string } {
   const data = { times: run.readings.map((r) => r[0]), readings: run.readings.map((r) => r[1]), timeUnit: run.timeUnit, infinity: run.infinity };
-  const exponential = fitFirstOrderNonlinear(data, { infinity: run.infinity === undefined ? 'fitted' : 'fixed' });
+  let exponential;
+  try {
+    exponential = fitFirstOrderNonlinear(data, { infinity: run.infinity === undefined ? 'fitted' : 'fixed' });
+  } catch (error) {
+    if (!(error instanceof EngineError) || UNIT_ERRORS.has(error.code)) throw error;
+    const few = error.code === 'too-few-points' && run.infinity === undefined;
+    return { notFitted: few ? `it has ${run.readings.length} readings and no x_inf, and the exponential fit then needs at least 4` : error.message, field: error.field === 'infinity' ? 'infinity' : 'readings' };
+  }
   const alsoRight: number[] = [];
   if (run.infinity !== undefined) {
     for (const model of ['origin', 'intercept'] as const) {
@@ -56,32 +82,74 @@ function refitRun(run: PointRun, path: string): { k: Estimate; alsoRight: number
       }
     }
   }
-  if (!(exponential.k.value > 0)) throw new InputRejected([{ path: `${path}.readings`, message: `the readings give k = ${exponential.k.value}, not a rate constant: check x_inf and the readings` }]);
+  if (!(exponential.k.value > 0)) return { notFitted: `the readings give k = ${fmt(exponential.k.value)}, not a rate constant: check x_inf and the readings`, field: 'readings' };
   return { k: exponential.k, alsoRight };
 }
 
-/** Every point in kelvin and per second; a temperature at or below absolute zero, or k not a first-order rate, is refused by field. */
-function pointsOf(points: Point[]): { points: TemperaturePoint[]; runs: RunK[] } {
+/**
+ * A point's temperature in kelvin: as declared, or where that is implausible and the other unit makes
+ * it plausible, as probably meant (a warning names it). A temperature at or below absolute zero with
+ * no plausible reading is refused by field.
+ */
+function kelvinOf(p: Point, i: number, notes: DraftFinding[]): number {
+  const path = `points[${i}].temperature.value`;
+  const found = implausibleTemperature(p.temperature.value, p.temperature.unit);
+  if (found) {
+    const consequence = found.meant === undefined ? 'It is used as written.' : `The refit uses ${inKelvin(found.meant)} K, and your values are checked against that.`;
+    notes.push(implausibleTemperatureDraft(found, `${p.temperature.value} ${p.temperature.unit === 'degC' ? '°C' : 'K'}`, { path, stage: 'arrhenius', what: `point “${p.label}”`, consequence }));
+    if (found.meant !== undefined) return found.meant;
+  }
+  return toKelvin(p.temperature.value, p.temperature.unit, path);
+}
+
+/** The finding on a point given as a run whose readings give no k: it leaves the fit, which the rest still makes. */
+function unfittedRunDraft(p: Point, path: string, why: string): DraftFinding {
+  return {
+    code: 'run-not-fitted',
+    path,
+    stage: 'runs',
+    severity: 'warning',
+    charge: 0,
+    message: `The run at ${p.label} cannot be fitted: ${why}. Its k is not graded, and the point is left out of the fits of E_a and the rest, which are made from the other points.`,
+  };
+}
+
+/**
+ * Every point in kelvin and per second, with where each came from in the submission; a run that gives
+ * no k is left out with a finding. A temperature at or below absolute zero, or k not a first-order
+ * rate, is refused by field.
+ */
+function pointsOf(points: Point[], notes: DraftFinding[]): { points: TemperaturePoint[]; runs: RunK[]; pointIndex: number[]; unfitted: UnfittedPoint[] } {
   const runs: RunK[] = [];
-  const fitted = points.map((p, i) => {
+  const unfitted: UnfittedPoint[] = [];
+  const pointIndex: number[] = [];
+  const fitted = points.flatMap((p, i): TemperaturePoint[] => {
     const at = (field: string) => `points[${i}].${field}`;
     try {
-      const temperature = toKelvin(p.temperature.value, p.temperature.unit, at('temperature.value'));
+      const temperature = kelvinOf(p, i, notes);
       if (p.run) {
-        const { k, alsoRight } = refitRun(p.run, at('run'));
+        const refit = refitRun(p.run);
+        if ('notFitted' in refit) {
+          notes.push(unfittedRunDraft(p, at(`run.${refit.field}`), refit.notFitted));
+          unfitted.push({ index: i, temperature });
+          return [];
+        }
+        const { k, alsoRight } = refit;
         runs.push({ index: i, k, alsoRight });
-        return { temperature, k: convert(k.value, k.unit, 's^-1'), standardError: convert(k.standardError, k.unit, 's^-1') };
+        pointIndex.push(i);
+        return [{ temperature, k: convert(k.value, k.unit, 's^-1'), standardError: convert(k.standardError, k.unit, 's^-1') }];
       }
       const measured = p.k!;
       parseUnit(measured.unit, 'first-order-rate', at('k.unit'));
       const se = measured.uncertainty === undefined ? undefined : convert(Number(measured.uncertainty), measured.unit, 's^-1');
-      return { temperature, k: convert(Number(measured.value), measured.unit, 's^-1'), standardError: se };
+      pointIndex.push(i);
+      return [{ temperature, k: convert(Number(measured.value), measured.unit, 's^-1'), standardError: se }];
     } catch (error) {
       if (error instanceof EngineError) throw new InputRejected([{ path: error.field?.startsWith('points[') ? error.field : at(p.run ? `run.${error.field ?? 'readings'}` : 'k'), message: error.message }]);
       throw error;
     }
   });
-  return { points: fitted, runs };
+  return { points: fitted, runs, pointIndex, unfitted };
 }
 
 /** The two fits of these points (per second, kelvin), in base units; undefined where they cannot be made. */
@@ -108,7 +176,13 @@ function pointPath(field: string | undefined, input: Point[]): string {
 }
 
 export function analyseTemperatures(settings: Settings, input: Point[]): TemperatureAnalysis {
-  const { points, runs } = pointsOf(input);
+  const dataNotes: DraftFinding[] = [];
+  const { points, runs, pointIndex, unfitted } = pointsOf(input, dataNotes);
+  // With fewer than two points left nothing can be graded: refused, with why each run gave no k.
+  if (points.length < 2 && unfitted.length > 0) {
+    const whyNot = dataNotes.filter((d) => d.code === 'run-not-fitted').map((d) => ({ path: d.path, message: d.message }));
+    throw new InputRejected([...whyNot, { path: 'points', message: `fewer than 2 points give a rate constant (${points.length}), and a line against 1/T needs 2` }]);
+  }
   const weighted = settings.fit === 'weighted';
   let arrhenius, eyring;
   try {
@@ -138,11 +212,14 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
   return {
     points,
     runs,
-    labels: input.map((p) => p.label),
+    labels: pointIndex.map((i) => input[i].label),
+    pointIndex,
+    unfitted,
     Ea: convertEstimate(arrhenius.Ea, settings.units.Ea),
     A: convertEstimate(arrhenius.A, settings.units.A),
     dH: convertEstimate(eyring.dH, settings.units.dH),
     dS: convertEstimate(eyring.dS, settings.units.dS),
+    dataNotes,
     slips,
   };
 }

@@ -1,0 +1,33 @@
+import type { Settings } from '../../../schemas/kinds/first-order-catalysis.ts';
+import { convert, rateUnitOf } from '../../engine/units.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { fmt } from '../format.ts';
+import { timeUnitImplausible } from '../time-unit-plausibility.ts';
+import type { RunAnalysis } from './run-analysis.ts';
+
+/**
+ * The k_obs a run at this concentration should have by the assignment's reference bands (k_N + k_A c
+ * with each at the ends of its band), per second; undefined without both bands.
+ */
+function expectedBand(settings: Settings, concentrationM: number): [number, number] | undefined {
+  const { kN, kA } = settings.reference ?? {};
+  if (!kN || !kA) return undefined;
+  const perSecond = (v: number, unit: string) => convert(v, unit, 's^-1');
+  const perMolarSecond = (v: number, unit: string) => convert(v, unit, 'M^-1 s^-1');
+  return [perSecond(kN.min, kN.unit) + perMolarSecond(kA.min, kA.unit) * concentrationM, perSecond(kN.max, kN.unit) + perMolarSecond(kA.max, kA.unit) * concentrationM];
+}
+
+/** A run's times that cannot fit their declared unit, judged by the reference bands of k_N and k_A. */
+export function runTimeUnitImplausible(a: RunAnalysis, settings: Settings): DraftFinding | undefined {
+  const band = expectedBand(settings, a.concentrationM);
+  if (!band || a.undetermined) return undefined;
+  return timeUnitImplausible({
+    path: `${a.path}.timeUnit`,
+    stage: 'readings',
+    what: `run "${a.label}"`,
+    where: `at ${fmt(a.concentrationM)} M`,
+    timeUnit: a.timeUnit,
+    kPerSecond: convert(a.expected.value, rateUnitOf(a.timeUnit), 's^-1'),
+    band,
+  });
+}

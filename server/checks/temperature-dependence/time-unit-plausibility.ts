@@ -1,0 +1,41 @@
+import type { Settings, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
+import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
+import { convert, parseUnit } from '../../engine/units.ts';
+import type { DraftFinding } from '../draft-finding.ts';
+import { inKelvin } from '../temperature-plausibility.ts';
+import { timeUnitImplausible } from '../time-unit-plausibility.ts';
+import type { TemperatureAnalysis } from './refit.ts';
+
+/**
+ * The k the reference bands of E_a and A allow at temperature T, per second: from the smallest A with
+ * the largest E_a to the largest A with the smallest (k = A e^(-E_a/RT), Arrhenius); undefined
+ * without both bands.
+ */
+function bandAt(settings: Settings, kelvin: number): [number, number] | undefined {
+  const { Ea, A } = settings.reference ?? {};
+  if (!Ea || !A) return undefined;
+  const joules = (v: number) => convert(v, Ea.unit, 'J mol^-1');
+  const perSecond = (v: number) => convert(v, A.unit, 's^-1');
+  const k = (a: number, e: number) => perSecond(a) * Math.exp(-joules(e) / (GAS_CONSTANT * kelvin));
+  return [k(A.min, Ea.max), k(A.max, Ea.min)];
+}
+
+/** Each point given as a run whose times cannot fit their declared unit, judged by the bands of E_a and A. */
+export function runTimeUnitDrafts(submission: Submission, analysis: Pick<TemperatureAnalysis, 'runs' | 'points' | 'pointIndex'>, settings: Settings): DraftFinding[] {
+  return analysis.runs.flatMap((run) => {
+    const point = analysis.points[analysis.pointIndex.indexOf(run.index)];
+    const band = bandAt(settings, point.temperature);
+    const input = submission.points[run.index];
+    if (!band || !input.run) return [];
+    const found = timeUnitImplausible({
+      path: `points[${run.index}].run.timeUnit`,
+      stage: 'runs',
+      what: `the run at ${input.label}`,
+      where: `at ${inKelvin(point.temperature)} K`,
+      timeUnit: parseUnit(input.run.timeUnit, 'time'),
+      kPerSecond: point.k,
+      band,
+    });
+    return found ? [found] : [];
+  });
+}
