@@ -13,6 +13,7 @@ export const apiErrors = {
   'unsupported-media-type': { status: 415, message: 'send application/json, text/csv or multipart/form-data' },
   'idempotency-mismatch': { status: 422, message: 'this Idempotency-Key was used with a different request' },
   'nothing-stored': { status: 422, message: 'no submission in the request is valid; nothing was stored' },
+  'beyond-rubric-item': { status: 422, message: "the points are beyond what the finding's rubric item has left; nothing was stored" },
   'database-unavailable': { status: 503, message: 'the database cannot be reached just now; nothing was changed, so send the request again shortly' },
   'internal': { status: 500, message: 'internal error' },
 } as const;

@@ -3,6 +3,7 @@ import { isStorableText, UNSTORABLE_TEXT } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
+import { overrideLimit } from '../checks/rubric-books.ts';
 import { gradeBatch, screenBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { insertSignalChoice, signalChoicesOf } from '../store/signal-choices.ts';
@@ -128,9 +129,15 @@ export const submissionRoutes: RouteSpec[] = [
       const submissionId = Number(params.submissionId);
       const { findingId, pointsLost, reason } = body as { findingId: string; pointsLost: number; reason: string };
       const [row] = await latestResults(db, [submissionId]);
-      const current = row && effectiveResult(row, await overridesOf(db, [submissionId])).findings.find((f) => f.id === findingId);
+      const result = row && effectiveResult(row, await overridesOf(db, [submissionId]));
+      const current = result?.findings.find((f) => f.id === findingId);
       if (!current) throw new ApiError('invalid-input', undefined, [{ path: 'body.findingId', message: 'no such finding in the latest result' }]);
-      if (pointsLost > row.maxScore) throw new ApiError('invalid-input', undefined, [{ path: 'body.pointsLost', message: `at most ${row.maxScore}` }]);
+      // Within what the finding's rubric item has left, so that the rows of every sheet add up to the score.
+      const limit = overrideLimit(result.items, result.maxScore, result.findings, findingId)!;
+      if (pointsLost > limit) {
+        const item = current.itemKey ?? current.rubricItem ?? 'of this finding';
+        throw new ApiError('beyond-rubric-item', undefined, [{ path: 'body.pointsLost', message: `points must be between 0 and ${limit}, what rubric item ${item} has left` }]);
+      }
       await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: staffIdOf(caller) });
       return { status: 201, body: await submissionView(db, submissionId) };
     },
