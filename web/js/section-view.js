@@ -143,7 +143,9 @@ export async function sectionView(place, failure) {
 
   function confirmRelease(pending, changed) {
     const results = plural(pending, 'result');
-    const which = changed === 0 ? '' : changed === pending ? ` All ${changed === 1 ? 'of it has' : `${changed} have`} changed since release: the students will see the new result in place of the one they were shown.` : ` ${pending - changed} not yet released, ${changed} changed since release (the students will see the new result in place of the one they were shown).`;
+    const instead = 'will see the new result in place of the one they were shown';
+    const which =
+      changed === 0 ? '' : changed === 1 && pending === 1 ? ` It has changed since release: the student ${instead}.` : changed === pending ? ` All ${changed} have changed since release: the students ${instead}.` : ` ${pending - changed} not yet released, ${changed} changed since release (those students ${instead}).`;
     askToConfirm(releaseArea, {
       question: `Release ${results} of this section to the students?${which} They will see their feedback sheets; overrides can still be made later and are released the same way.`,
       yes: `Release ${results}`,
