@@ -94,6 +94,12 @@ export async function releasesDue(db: Kysely<Database>, submissionIds: number[])
   return [...results.values()].flatMap((r) => (r.released === undefined || r.changedSinceRelease ? [r.nextRelease] : []));
 }
 
+/** What one submission's student was shown, beside its latest result; undefined when nothing was released. */
+export async function submissionRelease(db: Kysely<Database>, submissionId: number) {
+  const both = (await resultsAndReleases(db, [submissionId], false)).get(submissionId);
+  return both?.released && { at: both.released.releasedAt!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
+}
+
 /** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */
 export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
   return (await latestWithResults(db, sectionId, assignmentId)).flatMap(({ submission, result, released }) => {

@@ -4,6 +4,7 @@ import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
 import { overrideLimit } from '../checks/rubric-books.ts';
+import { submissionRelease } from '../grading/report-inputs.ts';
 import { gradeBatch, screenBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { insertSignalChoice, signalChoicesOf } from '../store/signal-choices.ts';
@@ -47,6 +48,8 @@ const SubmissionView = z.object({
   overrides: z.array(Override),
   /** Every choice to put a signal on the sheet or take it off, oldest first. */
   signalChoices: z.array(SignalChoice),
+  /** What the student was shown (null: nothing released yet), and whether the latest result differs from it. */
+  release: z.object({ at: z.date(), score: z.number().nullable(), changedSinceRelease: z.boolean() }).nullable(),
 });
 
 async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {
@@ -60,6 +63,7 @@ async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], sub
     result: row ? effectiveResult(row, overrides, choices) : null,
     overrides,
     signalChoices: choices.map(({ code, path, onSheet, by, at }) => ({ code, path, onSheet, by, at })),
+    release: (await submissionRelease(db, submissionId)) ?? null,
   };
 }
 

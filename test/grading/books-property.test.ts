@@ -150,7 +150,7 @@ describe('the books, over random findings, overrides and regrades', () => {
       let items = randomItems(random);
       let findings = randomFindings(random, items, withKeys);
       const overrides: OverrideRow[] = [];
-      const askedOf = (fs: Finding[]) => new Map(fs.map((f) => [f.id, overrides.findLast((o) => o.findingId === f.id)?.pointsAfter ?? f.pointsLost]));
+      const askedOf = (fs: Finding[]) => new Map(fs.map((f) => [f.id, [...overrides].reverse().find((o) => o.findingId === f.id)?.pointsAfter ?? f.pointsLost]));
       let result = effectiveResult(storedRow(items, findings, n), overrides);
       expectBooksHold(items, result, askedOf(findings));
       for (let step = 0; step < 6; step++) {

@@ -160,6 +160,7 @@ describe('books and releases through the API', () => {
     expect(changed.map((r) => r.studentId)).toEqual(['S-006']);
     expect(changed[0]).toMatchObject({ released: true, releasedScore: row.score, score: row.score! + finding.pointsLost });
     expect(Number((await gradebook()).get('S-006'))).toBe(row.score);
+    expect((await view(row.submissionId!)).release).toMatchObject({ score: row.score, changedSinceRelease: true });
     expect((await call(api.app, 'POST', `/v1/submissions/${row.submissionId}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
     expect((await table()).find((r) => r.studentId === 'S-006')).toMatchObject({ releasedScore: row.score! + finding.pointsLost, changedSinceRelease: false });
   });
