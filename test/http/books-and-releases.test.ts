@@ -164,4 +164,21 @@ describe('books and releases through the API', () => {
     expect((await call(api.app, 'POST', `/v1/submissions/${row.submissionId}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
     expect((await table()).find((r) => r.studentId === 'S-006')).toMatchObject({ releasedScore: row.score! + finding.pointsLost, changedSinceRelease: false });
   });
+
+  it('a signal put on the sheet carries over to the regraded result, and the student is not marked changed', async () => {
+    const [spread] = submissionsFor(['S-001'], 6);
+    // Two runs 2.5 degrees apart: the checker raises a temperature-spread signal (as in the API flow test).
+    spread.runs[0].temperatureC = 25;
+    spread.runs[1].temperatureC = 27.5;
+    const id = (await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [spread], 201)).body.stored[0].submissionId;
+    await call(api.app, 'POST', `/v1/submissions/${id}/signals`, s.taAToken, { code: 'temperature-spread', path: 'runs', onSheet: true }, 201);
+    expect((await call(api.app, 'POST', `/v1/submissions/${id}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
+    const before = await view(id);
+    await regradeAndWait(api.app, s.instructorToken, s.assignment.id, { sectionId: s.sectionA.id });
+    const after = await view(id);
+    expect(after.result.resultId).not.toBe(before.result.resultId);
+    expect(after.result.signals).toEqual([expect.objectContaining({ code: 'temperature-spread', path: 'runs', onSheet: true })]);
+    expect(after.release).toMatchObject({ score: before.result.score, changedSinceRelease: false });
+    expect((await table()).find((r) => r.studentId === 'S-001')).toMatchObject({ released: true, changedSinceRelease: false });
+  });
 });
