@@ -28,7 +28,7 @@ async function resultsAndReleases(db: Kysely<Database>, ids: number[], full: boo
   const releases = new Map((await latestReleases(db, ids)).map((r) => [r.submissionId, r]));
   const byId = new Map(latest.map((r) => [r.resultId, r]));
   const older = [...releases.values()].map((r) => r.resultId).filter((id) => !byId.has(id));
-  for (const r of await resultsByIds(db, older)) byId.set(r.resultId, full ? r : { ...r, settings: null, refit: null });
+  for (const r of await resultsByIds(db, older, !full)) byId.set(r.resultId, r);
   const out = new Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>();
   for (const row of latest) {
     const release = releases.get(row.submissionId);

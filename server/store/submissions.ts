@@ -199,10 +199,12 @@ export async function studentSubmissions(db: Kysely<Database>, sectionId: number
   return query.orderBy('submissions.assignment_id').orderBy('submissions.version').execute();
 }
 
-/** Results by their ids (those a release names), as `latestResults` reads them. */
-export async function resultsByIds(db: Kysely<Database>, resultIds: number[]): Promise<ResultRow[]> {
+/** Results by their ids (those a release names), as `latestResults` reads them; `summaries` leaves out refits and settings (null). */
+export async function resultsByIds(db: Kysely<Database>, resultIds: number[], summaries = false): Promise<ResultRow[]> {
   if (resultIds.length === 0) return [];
-  return db.selectFrom('results').select(resultColumns).where('results.id', 'in', resultIds).execute();
+  const query = db.selectFrom('results').where('results.id', 'in', resultIds);
+  if (!summaries) return query.select(resultColumns).execute();
+  return (await query.select(resultSummaryColumns).execute()).map((r) => ({ ...r, settings: null, refit: null }));
 }
 
 export async function overridesOf(db: Kysely<Database>, submissionIds: number[]) {
