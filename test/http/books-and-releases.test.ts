@@ -1,11 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { DRAFT_NOTE } from '../../reports/feedback-input.ts';
 import { call, openApi, regradeAndWait, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
+import { folded, pdfText } from '../support/pdf-reading.ts';
 
 interface Finding { id: string; pointsLost: number; rubricItem?: string; itemKey?: string }
 interface Item { item: string; count: number; each: number }
 interface Result { score: number; maxScore: number; items: Item[]; findings: Finding[] }
-interface Row { studentId: string; submissionId: number | null; score: number | null; released: boolean; releasedScore: number | null; changedSinceRelease: boolean }
+interface Row { studentId: string; submissionId: number | null; score: number | null; maxScore: number | null; released: boolean; releasedScore: number | null; changedSinceRelease: boolean }
 
 /** The test's own account of what a finding may be set to: its instance's worth (or its item's) less the other findings' points there. */
 function ownLimit(r: Result, target: Finding): number {
@@ -161,6 +163,14 @@ describe('books and releases through the API', () => {
     expect(changed[0]).toMatchObject({ released: true, releasedScore: row.score, score: row.score! + finding.pointsLost });
     expect(Number((await gradebook()).get('S-006'))).toBe(row.score);
     expect((await view(row.submissionId!)).release).toMatchObject({ score: row.score, changedSinceRelease: true });
+    // The sheet is still the released one; a TA previews the new one, marked as a draft.
+    const sheet = async (query: string) => folded(await pdfText((await api.app.inject({ method: 'GET', url: `/v1/submissions/${row.submissionId}/feedback.pdf${query}`, headers: { authorization: `Bearer ${s.taAToken}` } })).rawPayload));
+    const shown = await sheet('');
+    expect(shown).toContain(`${row.score} / ${row.maxScore} points`);
+    expect(shown).not.toContain(DRAFT_NOTE);
+    const preview = await sheet('?latest=true');
+    expect(preview).toContain(`${row.score! + finding.pointsLost} / ${row.maxScore} points`);
+    expect(preview).toContain(DRAFT_NOTE);
     expect((await call(api.app, 'POST', `/v1/submissions/${row.submissionId}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
     expect((await table()).find((r) => r.studentId === 'S-006')).toMatchObject({ releasedScore: row.score! + finding.pointsLost, changedSinceRelease: false });
   });
