@@ -46,7 +46,8 @@ export const reportRoutes: RouteSpec[] = [
     summary: "The section summary (PDF): score distribution, the class's k_N and k_A, how often each finding occurred, who needs attention",
     schema: { params, response: { 200: file } },
     async handler({ db, grader, scope, params: p }) {
-      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
+      // For the TAs, not the students: the latest results, released or not.
+      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId), 'latest');
       if (inputs.length === 0) throw new ApiError('not-found', 'no checked submissions in this section yet');
       const pdf = await grader.renderSummary({
         header: { course: inputs[0].header.course, section: inputs[0].header.section, assignment: inputs[0].header.assignment, gradedAt: new Date() },
