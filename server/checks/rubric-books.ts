@@ -51,9 +51,12 @@ function poolsOf(f: Priced, items: readonly RubricCount[] | undefined, maxScore:
   return { instance: f.itemKey !== undefined ? { key: `@${f.itemKey}`, worth: item.each } : whole, item: whole };
 }
 
-/** The points lost on a result's items: the maximum from its items (or as stored, without them). */
+/** The maximum: what the items are worth together, or as stored for a result that does not list them. */
+const maxOf = (items: readonly RubricCount[] | undefined, maxScore: number): number => (items ? tidy(items.reduce((sum, c) => sum + c.count * c.each, 0)) : maxScore);
+
+/** A result's books: each finding's points settled within its pools, in order; the rows, the points lost and the score. */
 export function settleBooks(items: readonly RubricCount[] | undefined, maxScore: number, findings: readonly Finding[]): Books {
-  const max = items ? tidy(items.reduce((sum, c) => sum + c.count * c.each, 0)) : maxScore;
+  const max = maxOf(items, maxScore);
   const spent = new Map<string, number>();
   const settled = findings.map((f) => {
     const { instance, item } = poolsOf(f, items, max);
@@ -80,11 +83,12 @@ export function overrideLimit(items: readonly RubricCount[] | undefined, maxScor
   const target = findings.find((f) => f.id === findingId);
   if (!target) return undefined;
   const others = settleBooks(items, maxScore, findings.filter((f) => f !== target)).findings;
-  const max = items ? tidy(items.reduce((sum, c) => sum + c.count * c.each, 0)) : maxScore;
+  const max = maxOf(items, maxScore);
   const { instance, item } = poolsOf(target, items, max);
-  const spentOn = (key: string) => others.reduce((sum, f) => {
-    const p = poolsOf(f, items, max);
-    return p.instance.key === key || p.item.key === key ? sum + f.pointsLost : sum;
-  }, 0);
+  const spentOn = (key: string) =>
+    others.reduce((sum, f) => {
+      const p = poolsOf(f, items, max);
+      return p.instance.key === key || p.item.key === key ? sum + f.pointsLost : sum;
+    }, 0);
   return tidy(Math.max(0, Math.min(instance.worth - spentOn(instance.key), item.worth - spentOn(item.key))));
 }
