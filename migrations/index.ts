@@ -3,6 +3,7 @@ import * as initial from './2026-12-02T1000-initial.ts';
 import * as sessions from './2026-12-02T2100-sessions.ts';
 import * as rosterStatus from './2026-12-02T2200-roster-status.ts';
 import * as signalChoices from './2026-12-02T2330-signal-choices.ts';
+import * as releases from './2026-12-05T1000-releases.ts';
 import * as studentIdCase from './2026-12-05T1100-student-id-case.ts';
 
 /**
@@ -15,5 +16,6 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02T2100-sessions': sessions,
   '2026-12-02T2200-roster-status': rosterStatus,
   '2026-12-02T2330-signal-choices': signalChoices,
+  '2026-12-05T1000-releases': releases,
   '2026-12-05T1100-student-id-case': studentIdCase,
 };

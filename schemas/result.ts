@@ -56,6 +56,8 @@ export const Finding = z.object({
   pointsLost: z.number().nonnegative(),
   /** The rubric item the points come from. */
   rubricItem: z.string().optional(),
+  /** The instance of the item, e.g. `k@runs[2]` (an item counted per run); its points are capped per instance. */
+  itemKey: z.string().optional(),
   /** Plain words, quoting the numbers, saying what to check. A likely cause, never a verdict. */
   message: z.string(),
 });

@@ -1,20 +1,14 @@
 import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
+import { settleBooks, type RubricRow } from '../../server/checks/rubric-books.ts';
 
 /**
- * The score taken apart by rubric item: what each item is worth for this submission (the checker's
- * maxScore rule) and the points its findings cost. An item never loses more than it is worth.
+ * The score taken apart by rubric item: the books' rows (what each item is worth for this submission
+ * and the points its findings cost, never more than it is worth) with the item's label.
  */
-export interface RubricLine {
-  item: string;
+export interface RubricLine extends RubricRow {
   /** With sub/superscript markup. */
   label: string;
-  /** Runs the item counts once for; 1 for the rate-law and presentation items. */
-  count: number;
-  each: number;
-  available: number;
-  lost: number;
-  earned: number;
 }
 
 type RubricItem = keyof Settings['rubric'];
@@ -44,36 +38,15 @@ function itemsOfOlderResult(settings: Settings, runs: number): Array<[RubricItem
 export function rubricBreakdown(settings: Settings, submission: Pick<Submission, 'runs'> | undefined, result: CheckResult): RubricLine[] {
   const r = settings.rubric;
   // The checker says what the maximum is made of; older results are read by the rule of their time.
-  const items: Array<[RubricItem, number]> = result.items
-    ? result.items.map((c) => [c.item as RubricItem, c.count])
-    : itemsOfOlderResult(settings, submission?.runs.length ?? 0);
+  const items = result.items ?? itemsOfOlderResult(settings, submission?.runs.length ?? 0).map(([item, count]) => ({ item, count, each: r[item] }));
+  return labelled(settleBooks(items, result.maxScore, result.findings).rows, RUBRIC_LABELS).filter((l) => l.each > 0 || l.lost > 0);
+}
 
-  const lostBy = new Map<string, number>();
-  for (const f of result.findings) {
-    if (f.pointsLost > 0) lostBy.set(f.rubricItem ?? '', (lostBy.get(f.rubricItem ?? '') ?? 0) + f.pointsLost);
-  }
-  const lines: RubricLine[] = items
-    .filter(([item]) => r[item] > 0 || (lostBy.get(item) ?? 0) > 0)
-    .map(([item, count]) => {
-      const available = r[item] * count;
-      const lost = Math.min(available, lostBy.get(item) ?? 0);
-      return { item, label: RUBRIC_LABELS[item], count, each: r[item], available, lost, earned: available - lost };
-    });
-  for (const [item, lost] of lostBy) {
-    if (!items.some(([known]) => known === item)) {
-      lines.push({ item, label: item === '' ? 'Other' : item, count: 1, each: 0, available: 0, lost, earned: 0 });
-    }
-  }
-  return lines;
+function labelled(rows: RubricRow[], labels: Readonly<Record<string, string>>): RubricLine[] {
+  return rows.map((row) => ({ ...row, label: labels[row.item] ?? row.item }));
 }
 
 /** Rubric lines from the checker's own account of the maximum (`result.items`), with the kind's labels. */
 export function rubricLinesOf(result: CheckResult, labels: Readonly<Record<string, string>>): RubricLine[] {
-  const lostBy = new Map<string, number>();
-  for (const f of result.findings) if (f.pointsLost > 0) lostBy.set(f.rubricItem ?? '', (lostBy.get(f.rubricItem ?? '') ?? 0) + f.pointsLost);
-  return (result.items ?? []).map(({ item, count, each }) => {
-    const available = each * count;
-    const lost = Math.min(available, lostBy.get(item) ?? 0);
-    return { item, label: labels[item] ?? item, count, each, available, lost, earned: available - lost };
-  });
+  return labelled(settleBooks(result.items ?? [], result.maxScore, result.findings).rows, labels);
 }

@@ -1,7 +1,7 @@
 import type { Finding } from '../../schemas/result.ts';
 
 /** A finding before scoring: what it would cost, and which rubric item (per run where it applies). */
-export interface DraftFinding extends Omit<Finding, 'id' | 'pointsLost'> {
+export interface DraftFinding extends Omit<Finding, 'id' | 'pointsLost' | 'itemKey'> {
   charge: number;
   /** The rubric item instance the points come from, e.g. `k@runs[2]`; caps apply per instance. */
   itemKey?: string;
@@ -30,6 +30,6 @@ export function scoreFindings(drafts: DraftFinding[], itemPoints: (itemKey: stri
       spent.set(itemKey, (spent.get(itemKey) ?? 0) + points);
     }
     if (charge > 0) for (const c of causes) if (systematic.has(c) && !chargedAt.has(c)) chargedAt.set(c, draft.path);
-    return { id: `${draft.code}@${draft.path}`, ...draft, message, pointsLost: points };
+    return { id: `${draft.code}@${draft.path}`, ...draft, ...(itemKey !== undefined && { itemKey }), message, pointsLost: points };
   });
 }

@@ -1,4 +1,5 @@
 import type { CheckResult, Finding, RubricCount, Signal } from '../../schemas/result.ts';
+import { settleBooks } from './rubric-books.ts';
 
 /** The points the rubric items are worth in all. */
 export function pointsOf(items: readonly RubricCount[]): number {
@@ -10,9 +11,8 @@ export function itemPoints(rubric: Readonly<Record<string, number>>, itemKey: st
   return rubric[itemKey.split('@')[0]] ?? 0;
 }
 
-/** A checked result: the maximum from the items, the score from the findings' points (never below zero). */
+/** A checked result: the maximum from the items, the score from the findings' points, kept by the books. */
 export function scoredResult(studentId: string, items: RubricCount[], findings: Finding[], refit: CheckResult['refit'], signals: Signal[]): Omit<CheckResult, 'engineVersion'> {
-  const max = pointsOf(items);
-  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
-  return { studentId, status: 'checked', score: Math.max(0, max - lost), maxScore: max, items, refit, findings, signals };
+  const books = settleBooks(items, pointsOf(items), findings);
+  return { studentId, status: 'checked', score: books.score, maxScore: books.maxScore, items, refit, findings: books.findings, signals };
 }

@@ -1,11 +1,13 @@
 import type { Finding, RubricCount, Signal } from '../../schemas/result.ts';
+import { settleBooks } from '../checks/rubric-books.ts';
 import type { SignalChoiceRow } from '../store/signal-choices.ts';
 import type { OverrideRow, ResultRow } from '../store/submissions.ts';
 
 /**
- * A stored result with the TAs' overrides applied: each finding's points are the latest override's,
- * the score is recomputed, and every override stays listed (the audit trail). Overrides are keyed by
- * submission and finding id, so they carry over to a regrade that finds the same thing.
+ * A stored result with the TAs' overrides applied: each finding's points are the latest override's
+ * (within what its rubric item has left, should a regrade have changed the item's worth), the score is
+ * recomputed by the books, and every override stays listed (the audit trail). Overrides are keyed by
+ * submission and finding id (code and place), so they carry over to a regrade that finds the same thing.
  */
 export interface EffectiveFinding extends Finding {
   override?: { pointsLost: number; reason: string; by: string; at: Date; originalPointsLost: number };
@@ -39,19 +41,20 @@ export function effectiveResult(row: ResultRow, overrides: OverrideRow[], choice
   const stored = row.findings as { findings: Finding[]; rejected: Array<{ path: string; message: string }>; items?: RubricCount[]; signals?: Signal[] };
   const latest = new Map<string, OverrideRow>();
   for (const o of overrides) if (o.submissionId === row.submissionId) latest.set(o.findingId, o);
-  const findings: EffectiveFinding[] = stored.findings.map((f) => {
+  const asked: EffectiveFinding[] = stored.findings.map((f) => {
     const o = latest.get(f.id);
     if (!o) return f;
     return { ...f, pointsLost: o.pointsAfter, override: { pointsLost: o.pointsAfter, reason: o.reason, by: o.by, at: o.at, originalPointsLost: f.pointsLost } };
   });
+  const books = settleBooks(stored.items, row.maxScore, asked);
+  const findings = books.findings as EffectiveFinding[];
   const onSheet = new Map<string, boolean>();
   for (const c of choices) if (c.submissionId === row.submissionId) onSheet.set(signalKey(c), c.onSheet);
-  const lost = findings.reduce((sum, f) => sum + f.pointsLost, 0);
   return {
     resultId: row.resultId,
     status: row.status,
-    score: row.score === null ? null : Math.max(0, row.maxScore - lost),
-    maxScore: row.maxScore,
+    score: row.score === null ? null : books.score,
+    maxScore: row.score === null ? row.maxScore : books.maxScore,
     engineVersion: row.engineVersion,
     settingsVersion: row.settingsVersion,
     gradedAt: row.gradedAt,

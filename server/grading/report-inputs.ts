@@ -3,70 +3,107 @@ import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings } from '../../reports/feedback-input.ts';
 import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
+import { latestReleases } from '../store/releases.ts';
 import { signalChoicesOf } from '../store/signal-choices.ts';
-import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, type SubmissionRow } from '../store/submissions.ts';
+import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, resultsByIds, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
-import { effectiveResult, type EffectiveResult } from './effective-result.ts';
+import type { EffectiveResult } from './effective-result.ts';
+import { resultAndRelease, type ResultAndRelease } from './released.ts';
 
 /**
  * What the reports are made from, read from the store: each submission's latest result with the
- * TAs' overrides applied (and, for sheets, the signals they chose to show), the settings that result used, and the names for the header.
+ * TAs' overrides applied (and, for sheets, the signals they chose to show), beside what its student
+ * was shown; the settings that result used, and the names for the header. Sheets and the gradebook
+ * show what was released, where something was, until a TA releases the new result.
  */
 function asCheckResult(studentId: string, r: EffectiveResult): CheckResult {
   return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, items: r.items, refit: r.refit as CheckResult['refit'], findings: r.findings, signals: r.signals, rejected: r.rejected, engineVersion: r.engineVersion };
 }
 
-async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], sectionId: number, assignmentId: number): Promise<FeedbackInput[]> {
-  if (rows.length === 0) return [];
-  const names = await reportNames(db, sectionId, assignmentId);
-  const ids = rows.map((r) => r.submissionId);
-  const results = new Map((await latestResults(db, ids)).map((r) => [r.submissionId, r]));
+/** Each submission's latest result and its latest release; `full` reads refits and settings too (for sheets). */
+async function resultsAndReleases(db: Kysely<Database>, ids: number[], full: boolean): Promise<Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>> {
+  const latest = await (full ? latestResults(db, ids) : latestResultSummaries(db, ids));
   const overrides = await overridesOf(db, ids);
   const choices = await signalChoicesOf(db, ids);
+  const releases = new Map((await latestReleases(db, ids)).map((r) => [r.submissionId, r]));
+  const byId = new Map(latest.map((r) => [r.resultId, r]));
+  const older = [...releases.values()].map((r) => r.resultId).filter((id) => !byId.has(id));
+  for (const r of await resultsByIds(db, older, !full)) byId.set(r.resultId, r);
+  const out = new Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>();
+  for (const row of latest) {
+    const release = releases.get(row.submissionId);
+    const releasedRow = release && byId.get(release.resultId);
+    out.set(row.submissionId, { row, releasedRow, ...resultAndRelease(row, release, releasedRow, overrides, choices) });
+  }
+  return out;
+}
+
+/** Which result a report shows: what the student was shown, or (a TA's preview) the latest. */
+export type Showing = 'released' | 'latest';
+
+async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], sectionId: number, assignmentId: number, showing: Showing): Promise<FeedbackInput[]> {
+  if (rows.length === 0) return [];
+  const names = await reportNames(db, sectionId, assignmentId);
+  const results = await resultsAndReleases(db, rows.map((r) => r.submissionId), true);
   // Results of one settings version share their parsed settings.
   const checkers = new Map<number, ReturnType<typeof assignmentOf>>();
   const out: FeedbackInput[] = [];
   for (const row of rows) {
-    const stored = results.get(row.submissionId);
-    if (!stored || stored.status !== 'checked') continue;
+    const both = results.get(row.submissionId);
+    if (!both) continue;
+    const useReleased = showing === 'released' && both.released !== undefined;
+    const [stored, shown] = useReleased ? [both.releasedRow!, both.released!] : [both.row, both.current];
+    if (stored.status !== 'checked') continue;
     const checker = checkers.get(stored.settingsVersion) ?? assignmentOf(stored.settings, 'settings');
     checkers.set(stored.settingsVersion, checker);
-    const result = asCheckResult(row.studentId, effectiveResult(stored, overrides, choices));
     out.push({
-      header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt, released: stored.releasedAt !== null },
+      header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt, released: useReleased || (both.released !== undefined && !both.changedSinceRelease) },
       settings: checker.settings as KindSettings,
       submission: checker.kind.submissionSchema.parse(row.payload),
-      result,
+      result: asCheckResult(row.studentId, shown),
     });
   }
   return out;
 }
 
-export async function submissionFeedback(db: Kysely<Database>, submissionId: number): Promise<FeedbackInput | undefined> {
+export async function submissionFeedback(db: Kysely<Database>, submissionId: number, showing: Showing = 'released'): Promise<FeedbackInput | undefined> {
   const row = await getSubmission(db, submissionId);
   if (!row) return undefined;
-  return (await feedbackInputs(db, [row], row.sectionId, row.assignmentId))[0];
+  return (await feedbackInputs(db, [row], row.sectionId, row.assignmentId, showing))[0];
 }
 
 /** Every checked student of a section (latest version each), in student-id order. */
-export async function sectionFeedback(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<FeedbackInput[]> {
-  return feedbackInputs(db, await latestSubmissions(db, assignmentId, sectionId), sectionId, assignmentId);
+export async function sectionFeedback(db: Kysely<Database>, sectionId: number, assignmentId: number, showing: Showing = 'released'): Promise<FeedbackInput[]> {
+  return feedbackInputs(db, await latestSubmissions(db, assignmentId, sectionId), sectionId, assignmentId, showing);
 }
 
-/** The latest submission of each student in a section, with its latest result, overrides applied. */
+/** The latest submission of each student in a section, with its latest result (overrides applied) and what was released of it. */
 export async function latestWithResults(db: Kysely<Database>, sectionId: number, assignmentId: number) {
   // Without payloads, refits and settings: a table of the section needs none of them.
   const rows = await latestSubmissionHeads(db, assignmentId, sectionId);
-  const ids = rows.map((r) => r.submissionId);
-  const results = new Map((await latestResultSummaries(db, ids)).map((r) => [r.submissionId, r]));
-  const overrides = await overridesOf(db, ids);
+  const results = await resultsAndReleases(db, rows.map((r) => r.submissionId), false);
   return rows.map((submission) => {
-    const row = results.get(submission.submissionId);
-    return { submission, result: row ? effectiveResult(row, overrides) : undefined };
+    const both = results.get(submission.submissionId);
+    return { submission, result: both?.current, released: both?.released, changedSinceRelease: both?.changedSinceRelease ?? false };
   });
 }
 
-/** Gradebook rows: every student's latest result, rejected ones included. */
+/** The releases due for these submissions: each whose latest result is not released yet, or changed since its release. */
+export async function releasesDue(db: Kysely<Database>, submissionIds: number[]) {
+  const results = await resultsAndReleases(db, submissionIds, false);
+  return [...results.values()].flatMap((r) => (r.released === undefined || r.changedSinceRelease ? [r.nextRelease] : []));
+}
+
+/** What one submission's student was shown, beside its latest result; undefined when nothing was released. */
+export async function submissionRelease(db: Kysely<Database>, submissionId: number) {
+  const both = (await resultsAndReleases(db, [submissionId], false)).get(submissionId);
+  return both?.released && { at: both.released.releasedAt!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
+}
+
+/** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */
 export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
-  return (await latestWithResults(db, sectionId, assignmentId)).flatMap(({ submission, result }) => (result ? [asCheckResult(submission.studentId, result)] : []));
+  return (await latestWithResults(db, sectionId, assignmentId)).flatMap(({ submission, result, released }) => {
+    const shown = released ?? result;
+    return shown ? [asCheckResult(submission.studentId, shown)] : [];
+  });
 }

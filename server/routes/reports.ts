@@ -18,10 +18,11 @@ export const reportRoutes: RouteSpec[] = [
     method: 'GET',
     url: '/v1/submissions/:submissionId/feedback.pdf',
     access: 'section',
-    summary: "A student's feedback sheet (PDF) for this submission's latest result, overrides applied",
-    schema: { params: z.object({ submissionId: IdParam }), response: { 200: file } },
-    async handler({ db, grader, params: p }) {
-      const input = await submissionFeedback(db, Number(p.submissionId));
+    summary:
+      "A student's feedback sheet (PDF): what the student was shown where a result was released, else the latest result marked as a draft; `latest=true` previews the latest result (overrides applied) before it is released",
+    schema: { params: z.object({ submissionId: IdParam }), querystring: z.object({ latest: z.enum(['true', 'false']).default('false') }), response: { 200: file } },
+    async handler({ db, grader, params: p, query }) {
+      const input = await submissionFeedback(db, Number(p.submissionId), query.latest === 'true' ? 'latest' : 'released');
       if (!input) throw new ApiError('not-found', 'this submission has no checked result to report');
       return { status: 200, body: await grader.renderSheet(input), contentType: 'application/pdf', headers: download(`${input.header.studentId}-v${input.header.version}.pdf`) };
     },
@@ -30,7 +31,7 @@ export const reportRoutes: RouteSpec[] = [
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/feedback.zip',
     access: 'section',
-    summary: "Every student's feedback sheet in one ZIP, streamed",
+    summary: "Every student's feedback sheet in one ZIP, streamed: what each student was shown, or the latest result (a draft) where nothing was released",
     schema: { params, response: { 200: file } },
     async handler({ db, grader, scope, params: p }) {
       const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
@@ -45,7 +46,8 @@ export const reportRoutes: RouteSpec[] = [
     summary: "The section summary (PDF): score distribution, the class's k_N and k_A, how often each finding occurred, who needs attention",
     schema: { params, response: { 200: file } },
     async handler({ db, grader, scope, params: p }) {
-      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
+      // For the TAs, not the students: the latest results, released or not.
+      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId), 'latest');
       if (inputs.length === 0) throw new ApiError('not-found', 'no checked submissions in this section yet');
       const pdf = await grader.renderSummary({
         header: { course: inputs[0].header.course, section: inputs[0].header.section, assignment: inputs[0].header.assignment, gradedAt: new Date() },

@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import { severityCounts } from '../../reports/result-summary.ts';
-import { latestWithResults } from '../grading/report-inputs.ts';
+import { latestWithResults, releasesDue } from '../grading/report-inputs.ts';
+import { insertReleases } from '../store/releases.ts';
 import { studentsWithoutSubmission } from '../store/students.ts';
-import { latestResults, releaseResults } from '../store/submissions.ts';
+import { latestSubmissionHeads } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { Enrolment, IdParam } from './schemas.ts';
@@ -22,7 +23,12 @@ const Row = z.object({
   warnings: z.number(),
   infos: z.number(),
   codes: z.array(z.string()),
+  /** Something was released to the student: they see `releasedScore` until a TA releases again. */
   released: z.boolean(),
+  /** The score the student was shown; null when nothing was released. */
+  releasedScore: z.number().nullable(),
+  /** Released, and the latest result (a regrade, an override) would show the student something else: `score` beside `releasedScore`. */
+  changedSinceRelease: z.boolean(),
 });
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
@@ -50,8 +56,10 @@ export const resultRoutes: RouteSpec[] = [
         infos: 0,
         codes: [],
         released: false,
+        releasedScore: null,
+        changedSinceRelease: false,
       }));
-      const submitted = rows.map(({ submission, result }) => ({
+      const submitted = rows.map(({ submission, result, released, changedSinceRelease }) => ({
         studentId: submission.studentId,
         submissionId: submission.submissionId,
         version: submission.version,
@@ -61,7 +69,9 @@ export const resultRoutes: RouteSpec[] = [
         maxScore: result?.maxScore ?? null,
         ...severityCounts(result?.findings ?? []),
         codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
-        released: result?.releasedAt != null,
+        released: released !== undefined,
+        releasedScore: released?.score ?? null,
+        changedSinceRelease,
       }));
       // One list in student-id order, submitted or not.
       const body = [...submitted, ...missing].sort((a, b) => (a.studentId < b.studentId ? -1 : a.studentId > b.studentId ? 1 : 0));
@@ -72,25 +82,28 @@ export const resultRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
     access: 'section',
-    summary: "Release the section's latest results to students: nothing is released without this TA action",
+    summary:
+      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override). Nothing is released without this TA action",
     schema: { params, response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, scope, params: p, caller }) {
-      const rows = await latestWithResults(db, scope.sectionId!, Number(p.assignmentId));
-      const ids = rows.flatMap((r) => (r.result ? [r.result.resultId] : []));
-      return { status: 200, body: { released: await releaseResults(db, ids, staffIdOf(caller)) } };
+      const latest = await latestSubmissionHeads(db, Number(p.assignmentId), scope.sectionId!);
+      const due = await releasesDue(db, latest.map((s) => s.submissionId));
+      await insertReleases(db, due, staffIdOf(caller));
+      return { status: 200, body: { released: due.length } };
     },
   },
   {
     method: 'POST',
     url: '/v1/submissions/:submissionId/release',
     access: 'section',
-    summary: "Release one student's latest result (this version's) to the student",
+    summary: "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since",
     schema: { params: z.object({ submissionId: IdParam }), response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, params, caller }) {
-      const [row] = await latestResults(db, [Number(params.submissionId)]);
-      return { status: 200, body: { released: row ? await releaseResults(db, [row.resultId], staffIdOf(caller)) : 0 } };
+      const due = await releasesDue(db, [Number(params.submissionId)]);
+      await insertReleases(db, due, staffIdOf(caller));
+      return { status: 200, body: { released: due.length } };
     },
   },
 ];

@@ -3,6 +3,8 @@ import { isStorableText, StudentId, UNSTORABLE_TEXT } from '../../schemas/common
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
+import { overrideLimit } from '../checks/rubric-books.ts';
+import { submissionRelease } from '../grading/report-inputs.ts';
 import { gradeBatch, screenBatch, storeBatch, type GradedBatch } from '../grading/submit-batch.ts';
 import { getAssignment } from '../store/assignments.ts';
 import { insertSignalChoice, signalChoicesOf } from '../store/signal-choices.ts';
@@ -46,6 +48,8 @@ const SubmissionView = z.object({
   overrides: z.array(Override),
   /** Every choice to put a signal on the sheet or take it off, oldest first. */
   signalChoices: z.array(SignalChoice),
+  /** What the student was shown (null: nothing released yet), and whether the latest result differs from it. */
+  release: z.object({ at: z.date(), score: z.number().nullable(), changedSinceRelease: z.boolean() }).nullable(),
 });
 
 async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {
@@ -59,6 +63,7 @@ async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], sub
     result: row ? effectiveResult(row, overrides, choices) : null,
     overrides,
     signalChoices: choices.map(({ code, path, onSheet, by, at }) => ({ code, path, onSheet, by, at })),
+    release: (await submissionRelease(db, submissionId)) ?? null,
   };
 }
 
@@ -128,9 +133,15 @@ export const submissionRoutes: RouteSpec[] = [
       const submissionId = Number(params.submissionId);
       const { findingId, pointsLost, reason } = body as { findingId: string; pointsLost: number; reason: string };
       const [row] = await latestResults(db, [submissionId]);
-      const current = row && effectiveResult(row, await overridesOf(db, [submissionId])).findings.find((f) => f.id === findingId);
+      const result = row && effectiveResult(row, await overridesOf(db, [submissionId]));
+      const current = result?.findings.find((f) => f.id === findingId);
       if (!current) throw new ApiError('invalid-input', undefined, [{ path: 'body.findingId', message: 'no such finding in the latest result' }]);
-      if (pointsLost > row.maxScore) throw new ApiError('invalid-input', undefined, [{ path: 'body.pointsLost', message: `at most ${row.maxScore}` }]);
+      // Within what the finding's rubric item has left, so that the rows of every sheet add up to the score.
+      const limit = overrideLimit(result.items, result.maxScore, result.findings, findingId)!;
+      if (pointsLost > limit) {
+        const item = current.itemKey ?? current.rubricItem ?? 'of this finding';
+        throw new ApiError('beyond-rubric-item', undefined, [{ path: 'body.pointsLost', message: `points must be between 0 and ${limit}, what rubric item ${item} has left` }]);
+      }
       await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: staffIdOf(caller) });
       return { status: 201, body: await submissionView(db, submissionId) };
     },

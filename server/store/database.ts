@@ -59,6 +59,15 @@ export interface Database {
     staff_id: Ref;
     created_at: Generated<Date>;
   };
+  releases: {
+    id: Generated<number>;
+    submission_id: Ref;
+    result_id: Ref;
+    overrides_through: Generated<number>;
+    choices_through: Generated<number>;
+    released_by: Ref | null;
+    released_at: Generated<Date>;
+  };
   signal_choices: {
     id: Generated<number>;
     submission_id: Ref;

@@ -199,16 +199,12 @@ export async function studentSubmissions(db: Kysely<Database>, sectionId: number
   return query.orderBy('submissions.assignment_id').orderBy('submissions.version').execute();
 }
 
-export async function releaseResults(db: Kysely<Database>, resultIds: number[], staffId: number): Promise<number> {
-  if (resultIds.length === 0) return 0;
-  const rows = await db
-    .updateTable('results')
-    .set({ released_at: sql<Date>`now()`, released_by: staffId })
-    .where('id', 'in', resultIds)
-    .where('released_at', 'is', null)
-    .returning('id')
-    .execute();
-  return rows.length;
+/** Results by their ids (those a release names), as `latestResults` reads them; `summaries` leaves out refits and settings (null). */
+export async function resultsByIds(db: Kysely<Database>, resultIds: number[], summaries = false): Promise<ResultRow[]> {
+  if (resultIds.length === 0) return [];
+  const query = db.selectFrom('results').where('results.id', 'in', resultIds);
+  if (!summaries) return query.select(resultColumns).execute();
+  return (await query.select(resultSummaryColumns).execute()).map((r) => ({ ...r, settings: null, refit: null }));
 }
 
 export async function overridesOf(db: Kysely<Database>, submissionIds: number[]) {

@@ -90,6 +90,21 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.getByRole('button', { name: 'Release 5 results' }).click();
     await page.getByText('5 results released to students.').waitFor();
 
+    // An override after the release: the student still sees the released result until one more release.
+    const results = `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/results`;
+    const rows = (await call(api.app, 'GET', results, s.taAToken, undefined, 200)).body as Array<{ studentId: string; submissionId: number | null; errors: number; score: number }>;
+    const later = rows.filter((r) => r.errors > 0).at(-1)!;
+    const charged = (await call(api.app, 'GET', `/v1/submissions/${later.submissionId}`, s.taAToken, undefined, 200)).body.result.findings.find((f: { pointsLost: number; override?: unknown }) => f.pointsLost > 0 && !f.override);
+    await call(api.app, 'POST', `/v1/submissions/${later.submissionId}/overrides`, s.taAToken, { findingId: charged.id, pointsLost: 0, reason: 'seen in the lab book' }, 201);
+    await page.reload();
+    await page.getByText(`1 student changed since release (they still see the released score): ${later.studentId}.`).waitFor();
+    await expect.poll(() => page.locator('tr', { hasText: later.studentId }).locator('.released-score').textContent()).toBe(`released ${later.score}`);
+    await page.getByRole('button', { name: 'Release results…' }).click();
+    await page.getByText('Release 1 result of this section to the students? It has changed since release').waitFor();
+    await page.getByRole('button', { name: 'Release 1 result' }).click();
+    await page.getByText('1 result released to students.').waitFor();
+    await expect.poll(() => page.locator('.changed-note').count()).toBe(0);
+
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Gradebook (CSV)' }).click()]);
     const csv = (await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, '');
     const lines = csv.trim().split('\r\n');

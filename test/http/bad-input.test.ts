@@ -427,11 +427,12 @@ const cases: Case[] = [
     detail: /no such finding in the latest result/,
   },
   {
-    name: 'an override taking more points than the submission is worth',
+    name: "an override taking more points than the finding's rubric item has left",
     request: (s, c) => ({ method: 'POST', url: `/v1/submissions/${c.submissionId}/overrides`, headers: auth(s.taAToken), payload: { findingId: c.findingId, pointsLost: c.maxScore + 1, reason: 'partial credit' } }),
-    status: 400,
-    code: 'invalid-input',
+    status: 422,
+    code: 'beyond-rubric-item',
     paths: ['body.pointsLost'],
+    detail: /^points must be between 0 and [\d.]+, what rubric item \S+ has left$/,
   },
   {
     name: 'an override without a reason',

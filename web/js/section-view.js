@@ -11,7 +11,12 @@ const STATUS_FILTERS = {
   'not-submitted': ['Not submitted', (r) => r.status === 'not-submitted'],
   withdrawn: ['Withdrawn', (r) => r.enrolment === 'withdrawn'],
   unreleased: ['Not yet released', (r) => r.submissionId !== null && !r.released],
+  changed: ['Changed since release', (r) => r.changedSinceRelease],
 };
+
+/** A release covers the results not yet released and those changed since (a regrade, an override). */
+const releaseDue = (r) => STATUS_FILTERS.unreleased[1](r) || r.changedSinceRelease;
+const plural = (n, word) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 const COLUMNS = [
   ['studentId', 'Student'],
@@ -119,17 +124,30 @@ export async function sectionView(place, failure) {
   }
 
   function drawRelease() {
-    const pending = rows.filter(STATUS_FILTERS.unreleased[1]).length;
+    const pending = rows.filter(releaseDue).length;
+    const changed = rows.filter(STATUS_FILTERS.changed[1]);
     const submitted = rows.some((r) => r.submissionId !== null);
     const label = pending > 0 ? 'Release results…' : submitted ? 'Every result is released' : 'Nothing to release yet';
-    const ask = h('button', { type: 'button', class: 'primary', disabled: pending === 0, onclick: () => confirmRelease(pending) }, label);
-    fill(releaseArea, ask);
+    const ask = h('button', { type: 'button', class: 'primary', disabled: pending === 0, onclick: () => confirmRelease(pending, changed.length) }, label);
+    // Students whose new result differs from what they were shown: named, and one click lists them.
+    const note = changed.length
+      ? h(
+          'p',
+          { class: 'changed-note' },
+          `${plural(changed.length, 'student')} changed since release (they still see the released score): ${changed.map((r) => r.studentId).join(', ')}. `,
+          h('button', { type: 'button', class: 'link', onclick: () => ((state.status = 'changed'), draw()) }, 'Show only them'),
+        )
+      : null;
+    fill(releaseArea, ask, note);
   }
 
-  function confirmRelease(pending) {
-    const results = `${pending} result${pending === 1 ? '' : 's'}`;
+  function confirmRelease(pending, changed) {
+    const results = plural(pending, 'result');
+    const instead = 'will see the new result in place of the one they were shown';
+    const which =
+      changed === 0 ? '' : changed === 1 && pending === 1 ? ` It has changed since release: the student ${instead}.` : changed === pending ? ` All ${changed} have changed since release: the students ${instead}.` : ` ${pending - changed} not yet released, ${changed} changed since release (those students ${instead}).`;
     askToConfirm(releaseArea, {
-      question: `Release ${results} of this section to the students? They will see their feedback sheets; overrides can still be made later and are released the same way.`,
+      question: `Release ${results} of this section to the students?${which} They will see their feedback sheets; overrides can still be made later and are released the same way.`,
       yes: `Release ${results}`,
       act: async () => {
         const { released } = await api('POST', `${base}/release`);
@@ -156,6 +174,8 @@ export async function sectionView(place, failure) {
   }
 
   function draw() {
+    // The filter is also set from the changed-since-release note: the select follows it.
+    statusSelect.value = state.status;
     drawHead();
     drawCounts();
     drawRelease();
@@ -170,11 +190,11 @@ export async function sectionView(place, failure) {
           h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
           h('td', {}, r.version ?? '–'),
           h('td', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
-          h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`),
+          h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}`) : null),
           h('td', { class: 'number' }, r.errors),
           h('td', { class: 'number' }, r.warnings),
           h('td', {}, r.codes.join(', ')),
-          h('td', {}, r.submissionId === null ? '' : r.released ? 'yes' : 'no'),
+          h('td', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : 'no'),
         ),
       ),
     );

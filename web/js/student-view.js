@@ -155,8 +155,16 @@ export async function studentView(place, submissionId, failure) {
         cancel: draw,
         failure,
       });
+    const release = view.release;
     releaseArea.append(
-      result?.releasedAt ? h('p', {}, `Released ${when(result.releasedAt)}.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, 'Release this result…'),
+      ...(release && !release.changedSinceRelease
+        ? [h('p', {}, `Released ${when(release.at)}.`)]
+        : release
+          ? [
+              h('p', { class: 'changed-note' }, `Released ${when(release.at)} with a score of ${num(release.score)}; changed since (a regrade or an override): the student still sees the released result.`),
+              h('button', { type: 'button', class: 'primary', onclick: askRelease }, 'Release the new result…'),
+            ]
+          : [h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, 'Release this result…')]),
     );
     fill(root,
       h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', h('a', { href: base }, `Section ${place.section.name} · ${place.assignment.title}`)),
