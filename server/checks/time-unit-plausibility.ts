@@ -27,13 +27,20 @@ export interface TimeUnitCheck {
   band: [number, number];
 }
 
+/** Times that cannot be in their declared unit: the finding, and the unit they were probably in. */
+export interface ImplausibleTimes {
+  draft: DraftFinding;
+  meant: string;
+}
+
 /**
  * A run whose k, in its declared time unit, lies outside the band by more than a factor of 30 while
  * the same readings with times 60 times longer or shorter put it inside: the times were probably in
- * another unit (seconds for minutes). A warning, no points: the k reported in the declared unit is
- * graded as ever. Undefined when the run's k is plausible or no such reading makes it so.
+ * another unit (seconds for minutes). A warning, no points: the run is then graded as if its times
+ * were in that unit, as a TA reads what was meant (the same as a temperature in degrees Celsius typed
+ * as kelvin). Undefined when the run's k is plausible or no named unit makes it so.
  */
-export function timeUnitImplausible(c: TimeUnitCheck): DraftFinding | undefined {
+export function timeUnitImplausible(c: TimeUnitCheck): ImplausibleTimes | undefined {
   const [low, high] = c.band;
   const k = c.kPerSecond;
   const inBand = (v: number) => v >= low && v <= high;
@@ -43,9 +50,10 @@ export function timeUnitImplausible(c: TimeUnitCheck): DraftFinding | undefined 
   if (m === undefined) return undefined;
   const declared = timeName(c.timeUnit.factor) ?? c.timeUnit.text;
   const meant = timeName(c.timeUnit.factor * m);
+  if (meant === undefined) return undefined;
   const unitHere = rateUnitOf(c.timeUnit);
   const here = (v: number) => fmt(convert(v, 's^-1', unitHere));
-  return {
+  const draft: DraftFinding = {
     code: 'time-unit-implausible',
     path: c.path,
     stage: c.stage,
@@ -54,7 +62,8 @@ export function timeUnitImplausible(c: TimeUnitCheck): DraftFinding | undefined 
     message:
       `With times in ${declared}, ${c.what} gives k = ${here(k)} ${unitHere}, more than ${FAR_OUTSIDE} times ${m > 1 ? 'above' : 'below'} ` +
       `the ${here(low)} to ${here(high)} ${unitHere} this experiment gives ${c.where}. ` +
-      `Read with times ${UNIT_STEP} times ${m > 1 ? 'longer' : 'shorter'}${meant ? ` (in ${meant})` : ''}, it lies inside: the times were probably ${meant ? `in ${meant}` : 'in another unit'}. ` +
-      'Your k is checked in the unit you declared; please check the time unit of this run.',
+      `Read with times ${UNIT_STEP} times ${m > 1 ? 'longer' : 'shorter'} (in ${meant}), it lies inside: the times were probably in ${meant}. ` +
+      `The run is checked as if its times were in ${meant}; please check the time unit of this run.`,
   };
+  return { draft, meant };
 }

@@ -43,6 +43,17 @@ describe('times that cannot fit their unit', () => {
     expect(found[0].message).toContain('the times were probably in s');
   });
 
+  it('the run is checked in the unit meant: its k per minute, right for minutes, costs nothing (as a TA reads it)', () => {
+    const labelledSeconds = run('R2', 0.2, 's', curve(kAt(0.2), minutes), { value: kAt(0.2), unit: 'min^-1' });
+    const result = checkSubmission(assignment, { studentId: 'U-04', runs: [runs[0], labelledSeconds, runs[2]], reported });
+    const plain = checkSubmission(assignment, { studentId: 'U-04', runs, reported });
+    // The fixture reports no SEs or ln F: those cost the same in both; nothing more is charged.
+    const charged = (r: typeof plain) => r.findings.filter((f) => f.pointsLost > 0).map((f) => `${f.code} ${f.path}`);
+    expect(charged(result)).toEqual(charged(plain));
+    expect(result.score).toBe(plain.score);
+    expect(result.findings.find((f) => f.code === 'time-unit-implausible')?.message).toContain('checked as if its times were in min');
+  });
+
   it('runs in their declared unit, and any run without reference bands, draw nothing', () => {
     expect(named(runs, 'time-unit-implausible')).toEqual([]);
     const seconds = run('R2', 0.2, 's', curve(kAt(0.2), minutes), { value: kAt(0.2), unit: 's^-1' });

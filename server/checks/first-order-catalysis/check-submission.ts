@@ -11,9 +11,9 @@ import { checkReadings } from './check-readings.ts';
 import { checkRateLaw, refitRateLaw } from './check-rate-law.ts';
 import { checkRunK } from './check-run-k.ts';
 import { checkSigFigs } from './check-sig-figs.ts';
-import { analyseRun, isFitted, type RunAnalysis, type UnfittedRun } from './run-analysis.ts';
+import { isFitted, type RunAnalysis, type UnfittedRun } from './run-analysis.ts';
 import { runTemperatureDraft } from './run-temperature.ts';
-import { runTimeUnitImplausible } from './time-unit-plausibility.ts';
+import { analyseRunsAsMeant } from './time-unit-plausibility.ts';
 import { theirUngradedK, unfittedRunDraft } from './unfitted-run.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
@@ -49,22 +49,20 @@ function runRefit(a: RunAnalysis | UnfittedRun, declaredUnit: string | undefined
   };
 }
 
-export function checkFirstOrderCatalysis(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
-  const analyses = submission.runs.map((run, i) => analyseRun(run, i, settings.fitModel));
+export function checkFirstOrderCatalysis(settings: Settings, submitted: Submission): Omit<CheckResult, 'engineVersion'> {
+  // Runs whose times cannot be in their declared unit are checked in the unit meant, as a TA reads them.
+  const { runs, analyses, drafts: timeUnitDrafts } = analyseRunsAsMeant(submitted.runs, settings);
+  const submission = { ...submitted, runs };
   const fitted = analyses.filter(isFitted);
   const unfitted = analyses.filter((a): a is UnfittedRun => !isFitted(a));
   // With no run fitted nothing can be graded: refused, with why each run gave no fit.
   if (fitted.length === 0) throw new InputRejected(unfitted.map((a) => ({ path: a.notFitted.path, message: `run "${a.label}" cannot be fitted: ${a.notFitted.message}` })));
-  const drafts: DraftFinding[] = unfitted.map(unfittedRunDraft);
+  const drafts: DraftFinding[] = [...unfitted.map(unfittedRunDraft), ...timeUnitDrafts];
   for (const [i, run] of submission.runs.entries()) {
     const temperature = runTemperatureDraft(run, i);
     if (temperature) drafts.push(temperature);
   }
-  for (const a of fitted) {
-    const timeUnit = runTimeUnitImplausible(a, settings);
-    if (timeUnit) drafts.push(timeUnit);
-    checkReadings(submission.runs[a.index], a, settings, drafts);
-  }
+  for (const a of fitted) checkReadings(submission.runs[a.index], a, settings, drafts);
   const studentKs = analyses.map((a) => {
     const run = submission.runs[a.index];
     // A k we cannot grade (no fit, or undetermined) still belongs in the student's line through their own k_obs.

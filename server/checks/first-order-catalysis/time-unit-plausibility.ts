@@ -1,9 +1,9 @@
-import type { Settings } from '../../../schemas/kinds/first-order-catalysis.ts';
+import type { Settings, SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
 import { convert, rateUnitOf } from '../../engine/units.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
-import { timeUnitImplausible } from '../time-unit-plausibility.ts';
-import type { RunAnalysis } from './run-analysis.ts';
+import { timeUnitImplausible, type ImplausibleTimes } from '../time-unit-plausibility.ts';
+import { analyseRun, isFitted, type RunAnalysis, type UnfittedRun } from './run-analysis.ts';
 
 /**
  * The k_obs a run at this concentration should have by the assignment's reference bands (k_N + k_A c
@@ -18,7 +18,7 @@ function expectedBand(settings: Settings, concentrationM: number): [number, numb
 }
 
 /** A run's times that cannot fit their declared unit, judged by the reference bands of k_N and k_A. */
-export function runTimeUnitImplausible(a: RunAnalysis, settings: Settings): DraftFinding | undefined {
+function runTimeUnitImplausible(a: RunAnalysis, settings: Settings): ImplausibleTimes | undefined {
   const band = expectedBand(settings, a.concentrationM);
   if (!band || a.undetermined) return undefined;
   return timeUnitImplausible({
@@ -30,4 +30,25 @@ export function runTimeUnitImplausible(a: RunAnalysis, settings: Settings): Draf
     kPerSecond: convert(a.expected.value, rateUnitOf(a.timeUnit), 's^-1'),
     band,
   });
+}
+
+/** The runs as checked: each analysed, and one whose times cannot be in their declared unit read in the unit meant. */
+export interface RunsAsMeant {
+  runs: SubmittedRun[];
+  analyses: Array<RunAnalysis | UnfittedRun>;
+  drafts: DraftFinding[];
+}
+
+export function analyseRunsAsMeant(runs: SubmittedRun[], settings: Settings): RunsAsMeant {
+  const asMeant = [...runs];
+  const drafts: DraftFinding[] = [];
+  const analyses = runs.map((run, i) => {
+    const a = analyseRun(run, i, settings.fitModel);
+    const implausible = isFitted(a) ? runTimeUnitImplausible(a, settings) : undefined;
+    if (!implausible) return a;
+    drafts.push(implausible.draft);
+    asMeant[i] = { ...run, timeUnit: implausible.meant };
+    return analyseRun(asMeant[i], i, settings.fitModel);
+  });
+  return { runs: asMeant, analyses, drafts };
 }

@@ -16,9 +16,9 @@ import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor }
 import { readReported } from '../reported-number.ts';
 import { temperatureCauses } from './causes.ts';
 import { checkRunKs } from './check-run-k.ts';
-import { activationOf, analyseTemperatures, type Activation, type TemperatureAnalysis } from './refit.ts';
+import { activationOf, type Activation, type TemperatureAnalysis } from './refit.ts';
 import { hasTwoPoints, twoPointsNote } from './two-points.ts';
-import { runTimeUnitDrafts } from './time-unit-plausibility.ts';
+import { analyseAsMeant } from './time-unit-plausibility.ts';
 import { theirUnfittedPoints } from './unfitted-points.ts';
 
 type Quantity = Exclude<keyof Activation, 'EaSE'>;
@@ -145,9 +145,10 @@ export function rubricCounts(settings: Settings, submission: Pick<Submission, 'p
   });
 }
 
-export function checkTemperatureDependence(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
-  const analysis = analyseTemperatures(settings, submission.points);
-  const drafts: DraftFinding[] = [...analysis.dataNotes, ...runTimeUnitDrafts(submission, analysis, settings)];
+export function checkTemperatureDependence(settings: Settings, submitted: Submission): Omit<CheckResult, 'engineVersion'> {
+  // Runs whose times cannot be in their declared unit are checked in the unit meant, as a TA reads them.
+  const { submission, analysis, drafts: timeUnitDrafts } = analyseAsMeant(settings, submitted);
+  const drafts: DraftFinding[] = [...analysis.dataNotes, ...timeUnitDrafts];
   const theirK = checkRunKs(submission, analysis, settings, drafts);
   // Their fits, where a run's k as they have it differs from ours or a run we could not fit has a k
   // of theirs: what their E_a and the rest follow from.

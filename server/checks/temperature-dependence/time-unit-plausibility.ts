@@ -3,8 +3,8 @@ import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
 import { convert, parseUnit } from '../../engine/units.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { inKelvin } from '../temperature-plausibility.ts';
-import { timeUnitImplausible } from '../time-unit-plausibility.ts';
-import type { TemperatureAnalysis } from './refit.ts';
+import { timeUnitImplausible, type ImplausibleTimes } from '../time-unit-plausibility.ts';
+import { analyseTemperatures, type TemperatureAnalysis } from './refit.ts';
 
 /**
  * The k the reference bands of E_a and A allow at temperature T, per second: from the smallest A with
@@ -21,7 +21,7 @@ function bandAt(settings: Settings, kelvin: number): [number, number] | undefine
 }
 
 /** Each point given as a run whose times cannot fit their declared unit, judged by the bands of E_a and A. */
-export function runTimeUnitDrafts(submission: Submission, analysis: Pick<TemperatureAnalysis, 'runs' | 'points' | 'pointIndex'>, settings: Settings): DraftFinding[] {
+function implausibleRunTimes(submission: Submission, analysis: TemperatureAnalysis, settings: Settings): Array<ImplausibleTimes & { index: number }> {
   return analysis.runs.flatMap((run) => {
     const point = analysis.points[analysis.pointIndex.indexOf(run.index)];
     const band = bandAt(settings, point.temperature);
@@ -36,6 +36,19 @@ export function runTimeUnitDrafts(submission: Submission, analysis: Pick<Tempera
       kPerSecond: point.k,
       band,
     });
-    return found ? [found] : [];
+    return found ? [{ ...found, index: run.index }] : [];
   });
+}
+
+/** The submission as checked: a run whose times cannot be in their declared unit read in the unit meant, and the findings that say so. */
+export function analyseAsMeant(settings: Settings, submitted: Submission): { submission: Submission; analysis: TemperatureAnalysis; drafts: DraftFinding[] } {
+  const analysis = analyseTemperatures(settings, submitted.points);
+  const implausible = implausibleRunTimes(submitted, analysis, settings);
+  if (implausible.length === 0) return { submission: submitted, analysis, drafts: [] };
+  const points = submitted.points.map((p, i) => {
+    const meant = implausible.find((found) => found.index === i)?.meant;
+    return meant && p.run ? { ...p, run: { ...p.run, timeUnit: meant } } : p;
+  });
+  const submission = { ...submitted, points };
+  return { submission, analysis: analyseTemperatures(settings, points), drafts: implausible.map((found) => found.draft) };
 }
