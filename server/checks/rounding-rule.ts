@@ -55,7 +55,14 @@ export function roundedFrom(reported: number, rounding: Rounding): RoundedValue 
   if (fineEnough(se)) return { agrees: near, coarse: () => false };
   const needed = firstFigurePlace(se);
   const zerosReach = finestPlace(rounding.written, reported) <= needed * (1 + 1e-9);
-  return { agrees: near, coarse: (reference) => !(zerosReach && Math.abs(reported - reference) <= 0.5 * needed * (1 + 1e-9)) };
+  // Too coarse a rounding is a matter of figures only while it keeps the reference's first figure:
+  // 66.5 written "100" (to the hundreds) is not 66.5 rounded, whose one figure gives 70; 96 is 100.
+  const keepsFirstFigure = (reference: number) =>
+    Math.abs(reported - reference) <= 0.5 * Math.min(place, firstFigurePlace(Math.abs(reference))) * (1 + 1e-9);
+  return {
+    agrees: (reference) => near(reference) && keepsFirstFigure(reference),
+    coarse: (reference) => !(zerosReach && Math.abs(reported - reference) <= 0.5 * needed * (1 + 1e-9)),
+  };
 }
 
 /** The finding for a value rounded right but more coarsely than its standard error allows. */

@@ -112,6 +112,21 @@ describe('a value rounded correctly is right', () => {
     expect(judge({ reported: 12000, expected: 12000.3, tolerance: { relative: 1e-6 }, rounding: roundingOf('12000', 8, undefined, 1) })).toEqual({ kind: 'right', drafts: [] });
   });
 
+  it('a value rounded too coarsely keeps at least its first figure: 66.5 written "100" is not 66.5 rounded, 96 is', () => {
+    const tolerance = { relative: 0.01 };
+    // E_a 66.5 ± 0.22: "100" reads to the hundreds (its zeros are not significant); 66.5 to one figure
+    // is 70, so "100" keeps none of its figures and is a wrong value, with no significant-figures finding.
+    const wrong = judge({ reported: 100, expected: 66.5, tolerance, rounding: roundingOf('100', 0.22, undefined, 1) });
+    expect(wrong.kind).toBe('unexplained');
+    expect(wrong.drafts.map((d) => d.code)).toEqual(['unexplained']);
+    // 96 to one figure is 100 (9.6 tens round up to 10 tens): a coarse rounding, |100 - 96| = 4 is within half of 10.
+    const coarse = judge({ reported: 100, expected: 96, tolerance, rounding: roundingOf('100', 0.22, undefined, 1) });
+    expect(coarse.kind).toBe('right');
+    expect(coarse.drafts.map((d) => d.code)).toEqual(['sig-figs']);
+    // 70 keeps the first figure of 66.5 (to one figure it is 70): a coarse rounding, not a wrong value.
+    expect(judge({ reported: 70, expected: 66.5, tolerance, rounding: roundingOf('70', 0.22, undefined, 1) }).drafts.map((d) => d.code)).toEqual(['sig-figs']);
+  });
+
   it('a standard error keeps at least its first figure: 0.000005 is 0.0000054 rounded, 0.00001 is not', () => {
     const tolerance = { relative: 0.25 };
     expect(judge({ reported: 0.000005, expected: 0.0000054, tolerance, rounding: roundingOfUncertainty(0.000005) }).kind).toBe('right');
