@@ -108,7 +108,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   }
   const roots: Candidate[] = [{ value: expected, causes: [], basis: 'the refit' }, ...(c.slips?.() ?? [])];
   if (carried) roots.push({ value: carried.value, causes: [], basis: `the value from ${carried.from}` });
-  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance?.() ?? tolerance, c.closeTolerance?.(), c.laterSlips);
+  const by = explain(reported, roots, c.factors, c.causes, c.causeTolerance?.() ?? tolerance, c.closeTolerance?.(), c.laterSlips, rounded?.reproduces);
   if (by && by.causes.length > 0) {
     const [code, ...also] = by.causes;
     const how = by.says.length ? ` ${by.says.join(' and ')}` : '';

@@ -96,7 +96,7 @@ function beatable(best: Expanded | undefined, cause: string, priority: readonly 
  * value alone, with one scaling, and with one scaling and the sign: at most two causes. Two scalings
  * at once are named only when one is the sign, which moves no magnitude, and a slip of method joins
  * only the scalings the kind's vocabulary allows. A candidate is built only when its value matches,
- * since almost none do.
+ * within the tolerance or, where `reproduces` says so, rounded to the digits written; almost none do.
  */
 export function explain(
   reported: number,
@@ -106,6 +106,7 @@ export function explain(
   tolerance: Tolerance,
   closeTolerance = tolerance,
   later?: LaterBases,
+  reproduces: (value: number) => boolean = () => false,
 ): Expanded | undefined {
   let best: Expanded | undefined;
   const offer = (b: Candidate, value: number, causes: string[], says: string[]) => {
@@ -117,7 +118,7 @@ export function explain(
   const consider = (b: Candidate) => {
     // A long-shot base and every scaling of it must match within the closer band.
     const band = b.longShot ? closeTolerance : tolerance;
-    const matches = (value: number) => Number.isFinite(value) && withinTolerance(reported, value, band);
+    const matches = (value: number) => Number.isFinite(value) && (withinTolerance(reported, value, band) || reproduces(value));
     if (matches(b.value)) offer(b, b.value, b.causes, []);
     for (const f of factors) {
       if (b.causes.length > 0 && !vocabulary.joinMethodSlips.has(f.cause)) continue;

@@ -39,6 +39,13 @@ export interface RoundedValue {
    * rests on them.
    */
   coarse: (reference: number) => boolean;
+  /**
+   * Whether a slip's value, rounded to the value's last written place, gives the value: a slip
+   * reproduces it to its digits (-0.00011 for +1.068e-4 with the sign reversed), keeping at least
+   * the slip value's first figure. Only where that place is at least as fine as the standard
+   * error's first figure: a value written too coarsely says too little to name a slip by.
+   */
+  reproduces: (candidate: number) => boolean;
 }
 
 /** The rule for `reported` (`rounding.written` in the comparison's unit); none without a standard error to measure the place by. */
@@ -49,13 +56,25 @@ export function roundedFrom(reported: number, rounding: Rounding): RoundedValue 
   // The factors 1 + 1e-9 absorb binary arithmetic: 0.014 - 0.0135 is not exactly 0.0005.
   const fineEnough = (x: number) => x > 0 && Number.isFinite(x) && place <= firstFigurePlace(x) * (1 + 1e-9);
   const near = (reference: number) => Math.abs(reported - reference) <= 0.5 * place * (1 + 1e-9);
-  if (uncertainty === 'itself') return { agrees: (reference) => fineEnough(Math.abs(reference)) && near(reference), coarse: () => false };
+  if (uncertainty === 'itself') {
+    const agrees = (reference: number) => fineEnough(Math.abs(reference)) && near(reference);
+    return { agrees, coarse: () => false, reproduces: agrees };
+  }
   const se = uncertainty.ours ? uncertainty.value * (1 + UNSEEN_SE_BAND) : uncertainty.value;
   if (!(se > 0) || !Number.isFinite(se)) return undefined;
-  if (fineEnough(se)) return { agrees: near, coarse: () => false };
+  // A slip's value must keep at least its first figure too: 0.00000 reproduces no slip's 1.8e-6.
+  if (fineEnough(se)) return { agrees: near, coarse: () => false, reproduces: (candidate) => fineEnough(Math.abs(candidate)) && near(candidate) };
   const needed = firstFigurePlace(se);
   const zerosReach = finestPlace(rounding.written, reported) <= needed * (1 + 1e-9);
-  return { agrees: near, coarse: (reference) => !(zerosReach && Math.abs(reported - reference) <= 0.5 * needed * (1 + 1e-9)) };
+  // Too coarse a rounding is a matter of figures only while it keeps the reference's first figure:
+  // 66.5 written "100" (to the hundreds) is not 66.5 rounded, whose one figure gives 70; 96 is 100.
+  const keepsFirstFigure = (reference: number) =>
+    Math.abs(reported - reference) <= 0.5 * Math.min(place, firstFigurePlace(Math.abs(reference))) * (1 + 1e-9);
+  return {
+    agrees: (reference) => near(reference) && keepsFirstFigure(reference),
+    coarse: (reference) => !(zerosReach && Math.abs(reported - reference) <= 0.5 * needed * (1 + 1e-9)),
+    reproduces: () => false,
+  };
 }
 
 /** The finding for a value rounded right but more coarsely than its standard error allows. */

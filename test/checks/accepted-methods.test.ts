@@ -33,6 +33,44 @@ describe('a run without x_inf, analysed by a method of the trade other than ours
   });
 });
 
+describe('the standard error of a Guggenheim fit, beside its k', () => {
+  // The same readings, no x_inf. The line ln|r_t - r_(t+D)| on t, worked here by closed-form least squares:
+  // slope = Sxy / Sxx, SE = sqrt(SSE / (m - 2) / Sxx) over the m pairs (common practice, no source).
+  const r = [32.4, 28.8, 25.5, 22.4, 19.6];
+  const guggenheim = (step: number) => {
+    const t = r.slice(0, r.length - step).map((_, i) => 10 * i);
+    const y = t.map((_, i) => Math.log(r[i] - r[i + step]));
+    const mt = t.reduce((s, v) => s + v, 0) / t.length;
+    const my = y.reduce((s, v) => s + v, 0) / y.length;
+    const sxx = t.reduce((s, v) => s + (v - mt) ** 2, 0);
+    const slope = t.reduce((s, v, i) => s + (v - mt) * (y[i] - my), 0) / sxx;
+    const sse = y.reduce((s, v, i) => s + (v - my - slope * (t[i] - mt)) ** 2, 0);
+    return { k: -slope, se: Math.sqrt(sse / (t.length - 2) / sxx) };
+  };
+  const d10 = guggenheim(1);
+  const d20 = guggenheim(2);
+  const withKAndSE = (k: number, se: number) =>
+    checkSubmission(assignment, {
+      studentId: 'G-02',
+      runs: [{ label: 'sucrose', catalyst: { value: 0.5, unit: 'M' }, timeUnit: 'min', readings: r.map((x, i) => [10 * i, x]), reported: { k: { value: k.toPrecision(3), uncertainty: se.toPrecision(2), unit: 'min^-1' } } }],
+    }).findings.filter((f) => f.path.startsWith('runs[0].reported.k') && f.severity === 'error');
+
+  it('is right at D = 10 min: k 8.16e-3 with the SE of its own slope, 5.1e-4 (the exponential fit\'s is 3.2e-4)', () => {
+    expect(d10.k.toPrecision(3)).toBe('0.00816');
+    expect(d10.se.toPrecision(2)).toBe('0.00051');
+    expect(withKAndSE(d10.k, d10.se)).toEqual([]);
+    // And at D = 20 min, the interval that pairs the first half with the second: 7.83e-3 with its own SE.
+    expect(withKAndSE(d20.k, d20.se)).toEqual([]);
+  });
+
+  it('but not the SE of one interval beside the k of another, nor an SE no fit gives', () => {
+    // D = 20's SE (1.8e-4) is far from D = 10's (5.1e-4) and from the exponential fit's (3.2e-4).
+    expect(Math.abs(d20.se / d10.se - 1)).toBeGreaterThan(0.5);
+    expect(withKAndSE(d10.k, d20.se).map((f) => f.path)).toEqual(['runs[0].reported.k.uncertainty']);
+    expect(withKAndSE(d10.k, 0.0009).map((f) => f.path)).toEqual(['runs[0].reported.k.uncertainty']);
+  });
+});
+
 describe('the standard error of the line through the origin, in both conventions in use', () => {
   // Invented run: x = 2 + 10 e^(-0.1 t) at t = 0..5 min with a little scatter, x_inf = 2. The line through
   // the origin is fitted to every (t, ln F), (0, 0) among them. Common spreadsheet functions (LINEST with

@@ -3,6 +3,7 @@ import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { checkValue, type ValueCheck } from '../../server/checks/check-value.ts';
 import type { DraftFinding } from '../../server/checks/draft-finding.ts';
+import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT } from '../../server/checks/explain.ts';
 import { firstOrderCauses } from '../../server/checks/first-order-catalysis/causes.ts';
 import { roundingOf, roundingOfUncertainty } from '../../server/checks/rounding-rule.ts';
 import { sigFigProblem } from '../../server/checks/sig-figs.ts';
@@ -112,10 +113,62 @@ describe('a value rounded correctly is right', () => {
     expect(judge({ reported: 12000, expected: 12000.3, tolerance: { relative: 1e-6 }, rounding: roundingOf('12000', 8, undefined, 1) })).toEqual({ kind: 'right', drafts: [] });
   });
 
+  it('a value rounded too coarsely keeps at least its first figure: 66.5 written "100" is not 66.5 rounded, 96 is', () => {
+    const tolerance = { relative: 0.01 };
+    // E_a 66.5 ± 0.22: "100" reads to the hundreds (its zeros are not significant); 66.5 to one figure
+    // is 70, so "100" keeps none of its figures and is a wrong value, with no significant-figures finding.
+    const wrong = judge({ reported: 100, expected: 66.5, tolerance, rounding: roundingOf('100', 0.22, undefined, 1) });
+    expect(wrong.kind).toBe('unexplained');
+    expect(wrong.drafts.map((d) => d.code)).toEqual(['unexplained']);
+    // 96 to one figure is 100 (9.6 tens round up to 10 tens): a coarse rounding, |100 - 96| = 4 is within half of 10.
+    const coarse = judge({ reported: 100, expected: 96, tolerance, rounding: roundingOf('100', 0.22, undefined, 1) });
+    expect(coarse.kind).toBe('right');
+    expect(coarse.drafts.map((d) => d.code)).toEqual(['sig-figs']);
+    // 70 keeps the first figure of 66.5 (to one figure it is 70): a coarse rounding, not a wrong value.
+    expect(judge({ reported: 70, expected: 66.5, tolerance, rounding: roundingOf('70', 0.22, undefined, 1) }).drafts.map((d) => d.code)).toEqual(['sig-figs']);
+  });
+
   it('a standard error keeps at least its first figure: 0.000005 is 0.0000054 rounded, 0.00001 is not', () => {
     const tolerance = { relative: 0.25 };
     expect(judge({ reported: 0.000005, expected: 0.0000054, tolerance, rounding: roundingOfUncertainty(0.000005) }).kind).toBe('right');
     expect(judge({ reported: 0.00001, expected: 0.0000054, tolerance, rounding: roundingOfUncertainty(0.00001) }).kind).toBe('unexplained');
+  });
+});
+
+describe('a slip named by the digits written', () => {
+  // k_N of the student's own k_obs 1.0684e-4 ± 0.00057 (the near-zero casebook cases); our refit 1.0681e-4.
+  // Written to the 1e-5 place, finer than the SE's first figure (1e-4). The factors are the rate law's for k_N.
+  const own = 1.0684e-4;
+  const rateLaw = (written: string, se = 0.00057) =>
+    judge({ reported: Number(written), expected: 1.0681e-4, carriedForward: { value: own, from: 'your own k_obs values' }, factors: [SIGN, LOG_BASE, ...TIME_UNIT, ...DECIMAL_SHIFT], rounding: roundingOf(written, se, undefined, 2) });
+  const code = (r: { drafts: DraftFinding[] }) => r.drafts.map((d) => d.code).join(',');
+
+  it('names the sign reversed for -0.00011: -1.0684e-4 rounded to 1e-5 is -0.00011, and 1.0684e-4 rounded is +0.00011', () => {
+    // |-0.00011 + 0.00010684| = 3.16e-6: within half of 1e-5, though not within 2 % of 1.0684e-4 (2.1e-6).
+    expect(code(rateLaw('-0.00011'))).toBe('sign-flipped');
+  });
+
+  it('names nothing where the slip does not give the digits: -0.00012 is 1.3e-5 from -1.0684e-4', () => {
+    expect(code(rateLaw('-0.00012'))).toBe('unexplained');
+  });
+
+  it('names nothing by rounding where the value is written more coarsely than its SE: -0.0001 beside an SE of 0.00001', () => {
+    // The place 1e-4 is coarser than the SE's first figure (1e-5); -0.0001 is 6.8e-6 from -1.0684e-4, outside 2 %.
+    expect(code(rateLaw('-0.0001', 0.00001))).toBe('unexplained');
+  });
+
+  it('names a slip for no more values on the 1e-5 grid than the slips\' values rounded there, each keeping its first figure', () => {
+    // Worked by hand from 1.0684e-4 (our 1.0681e-4 rounds alike): x(-1) -0.00011; / ln 10 = 4.640e-5 -> +-0.00005;
+    // / 10 = 1.068e-5 -> +-0.00001; / 60 = 1.78e-6, / 100, / 1000, / 3600 all round to 0.00000, which keeps no figure
+    // of them; x 10 and more lie off the grid. 0.00011 itself is right.
+    const named: string[] = [];
+    for (let i = -30; i <= 30; i++) {
+      const written = (i / 1e5).toFixed(5);
+      const r = rateLaw(written);
+      if (r.kind === 'explained') named.push(written);
+      else if (i !== 11) expect(r.kind, written).toBe('unexplained');
+    }
+    expect(named.sort()).toEqual(['-0.00001', '-0.00005', '-0.00011', '0.00001', '0.00005']);
   });
 });
 

@@ -114,6 +114,38 @@ describe('temperature dependence: each slip is named at its place', () => {
     expect(check({}, (v) => (v.dH *= 4.184))).toEqual(['energy-unit@reported.dH']);
   });
 
+  it('kilojoules converted to kilocalories the wrong way (x 4.184) and labelled kcal: named once, at E_a, its SE not charged again', () => {
+    // Read as kcal, 4.184 x E_a is 4.184^2 = 17.506 times the refit in kJ; the SE carries the same slip.
+    // 4.184 J per thermochemical calorie (its definition).
+    const v = studentValues();
+    const result = checkSubmission(assignment, {
+      studentId: 'T-01',
+      points,
+      reported: {
+        Ea: { value: ((v.Ea / 1000) * 4.184).toPrecision(4), uncertainty: (se * 4.184).toPrecision(2), unit: 'kcal mol^-1' },
+        A: { value: v.A.toPrecision(3), unit: 's^-1' },
+        dH: { value: (v.dH / 1000).toPrecision(4), unit: 'kJ/mol' },
+        dS: { value: v.dS.toPrecision(4), unit: 'J K^-1 mol^-1' },
+      },
+    });
+    expect(result.findings.map((f) => `${f.code}@${f.path} -${f.pointsLost}`)).toEqual(['energy-unit@reported.Ea -2', 'energy-unit@reported.Ea.uncertainty -0']);
+    expect(result.score).toBe(result.maxScore! - 2);
+  });
+
+  it('but the conversion the right way (/ 4.184) labelled kcal is right, and 4.184^2 times E_a labelled kJ is no calorie slip', () => {
+    const v = studentValues();
+    const withEa = (value: number, unit: string) =>
+      codesAt(
+        checkSubmission(assignment, {
+          studentId: 'T-01',
+          points,
+          reported: { Ea: { value: value.toPrecision(4), uncertainty: se.toPrecision(2), unit }, A: { value: v.A.toPrecision(3), unit: 's^-1' }, dH: { value: (v.dH / 1000).toPrecision(4), unit: 'kJ/mol' }, dS: { value: v.dS.toPrecision(4), unit: 'J K^-1 mol^-1' } },
+        }),
+      ).filter((c) => c.endsWith('@reported.Ea'));
+    expect(withEa(v.Ea / 1000 / 4.184, 'kcal mol^-1')).toEqual([]);
+    expect(withEa((v.Ea / 1000) * 4.184 * 4.184, 'kJ mol^-1')).not.toContain('energy-unit@reported.Ea');
+  });
+
   it("the slope's sign kept", () => {
     expect(check({}, (v) => (v.Ea = -v.Ea))).toEqual(['sign-flipped@reported.Ea']);
   });

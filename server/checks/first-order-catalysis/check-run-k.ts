@@ -11,6 +11,8 @@ import type { DraftFinding } from '../draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, RATE_CONSTANT_FACTORS, TIME_UNIT, type Candidate, type Expanded, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import type { LnFColumn } from './check-lnf-column.ts';
+import { withinTolerance } from '../tolerance.ts';
+import { guggenheimFits } from './guggenheim-fits.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 import { fitDefined, infinitySlipFits, methodSlipFits, WRONG_INFINITY, type SlipFit } from './slip-values.ts';
 
@@ -93,7 +95,12 @@ export function checkRunK(
   const candidates = () => uncertaintySlips(read.value, Number(reported.value), a, slipValues.method().map((s) => s.se));
   const written = reported.uncertainty;
   const uncertainty = read.uncertainty === undefined || written === undefined ? undefined : { value: read.uncertainty, written };
-  checkUncertainty(uncertainty, a, own, outcome, { values: slipValues, candidates }, settings, drafts);
+  // The SE of an accepted method's own fit, where k is that fit's to the digits written (as a long shot must be).
+  const kMatch = closeMatch(reported.value, read.value, tolerances.k);
+  const methodSEs = guggenheimFits(a)
+    .filter((fit) => withinTolerance(read.value, fit.value, kMatch))
+    .map((fit) => fit.standardError);
+  checkUncertainty(uncertainty, a, own, outcome, { values: slipValues, candidates }, methodSEs, settings, drafts);
   return { value: read.value, uncertainty: read.uncertainty };
 }
 
@@ -156,6 +163,8 @@ function checkUncertainty(
   kOutcome: ValueOutcome,
   /** Every slip's SE, and those that may explain this SE on their own. */
   slips: { values: SlipValues; candidates: () => Candidate[] },
+  /** The SEs of accepted methods' fits that give the student's k. */
+  methodSEs: number[],
   settings: Settings,
   drafts: DraftFinding[],
 ): void {
@@ -189,7 +198,7 @@ function checkUncertainty(
       reported: reported.value,
       unit: rateUnitOf(a.timeUnit),
       expected,
-      alsoRight: [...otherDegreesOfFreedom(a), ...(byK ? [byK.value] : [])],
+      alsoRight: [...otherDegreesOfFreedom(a), ...methodSEs, ...(byK ? [byK.value] : [])],
       carriedForward: own && { value: own.standardError, from: 'your own ln F column', quiet: kOutcome.kind === 'carried-forward' },
       slips: () => [...spread(), ...slips.candidates()],
       factors: uncertaintyFactors(kOutcome),

@@ -14,6 +14,7 @@ import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
 import { itemPoints, scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
+import { caloriesWrongWay } from './calories-wrong-way.ts';
 import { temperatureCauses } from './causes.ts';
 import { checkRunKs } from './check-run-k.ts';
 import { activationOf, type Activation, type TemperatureAnalysis } from './refit.ts';
@@ -78,7 +79,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
   const outcome = checkValue(
-    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: FACTORS[q], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]), rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, settings.rubric.sigFigs) },
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: [...FACTORS[q], ...caloriesWrongWay(reported.unit)], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]), rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, settings.rubric.sigFigs) },
     drafts,
   );
   // A value already found wrong needs no second warning about its size.
@@ -106,7 +107,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       alsoRight: scaledConvention(analysis, settings).map((factor) => factor * ours.standardError),
       carriedForward: theirs && { value: convert(theirs.EaSE, QUANTITIES.Ea.base, unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
       slips: () => slipCandidates(analysis, 'EaSE', unit),
-      factors: FACTORS.Ea.filter((f) => f !== SIGN),
+      factors: [...FACTORS.Ea.filter((f) => f !== SIGN), ...caloriesWrongWay(reported.unit)],
       causes: temperatureCauses,
       tolerance: settings.tolerances.uncertainty,
       causeTolerance: () => slipMatch(reported.uncertainty!, read.uncertainty!, settings.tolerances.uncertainty),
