@@ -2,26 +2,13 @@ import { describe, expect, it } from 'vitest';
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { Submission as TemperatureSubmission } from '../../schemas/kinds/temperature-dependence.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { gaussian as normal, seededRandom as seeded } from '../../server/demo/seeded-random.ts';
 
-// Careful students, made here independently of the demo generator and of the engine: invented runs,
-// each analysed as a careful student does (ln F, least squares in closed form written below), each
-// value rounded as common practice has it (no source): the standard error to 1 or 2 significant
-// figures, the value to the same decimal place. Such work is right, and must draw no charged finding.
-
-/** mulberry32, a small seeded generator (public domain), so that every run of the test sees the same students. */
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** A standard normal deviate (Box-Muller). */
-const normal = (random: () => number) => Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
+// Careful students, made here independently of the demo generator and of the engine (only the seeded
+// random numbers are shared): invented runs, each analysed as a careful student does (ln F, least
+// squares in closed form written below), each value rounded as common practice has it (no source):
+// the standard error to 1 or 2 significant figures, the value to the same decimal place. Such work
+// is right, and must draw no charged finding.
 
 /** Least squares of y on x in closed form: through the origin (n - 1 degrees of freedom) or with an intercept (n - 2). */
 function leastSquares(x: number[], y: number[], origin: boolean): { slope: number; seSlope: number; intercept: number; seIntercept: number } {
