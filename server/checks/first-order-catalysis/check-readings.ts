@@ -2,7 +2,7 @@ import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/fir
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
 import { molarForNormality } from './catalyst-unit.ts';
-import { findSuspectReading, robustScatter } from './suspect-readings.ts';
+import { findSuspectReading, robustScatter, type SuspectReading } from './suspect-readings.ts';
 import { compareTables, type TableSlip } from '../transcription.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -112,6 +112,16 @@ function withinScatterOfInfinity(a: RunAnalysis): (reading: number) => boolean {
   return (reading) => Math.abs(reading - infinity) <= PAST_INFINITY_SDS * scatter;
 }
 
+/** How a suspect reading is off: far from the curve, or turning the run back where it is named for that. */
+function whereOff(suspect: SuspectReading): string {
+  if (!suspect.turnsBack) return 'lies far from the curve through the other readings';
+  const { against, runRises } = suspect.turnsBack;
+  const run = runRises ? 'rise' : 'fall';
+  const back = runRises ? 'lower' : 'higher';
+  const how = against === 'before' ? `it is ${back} than the reading before it` : `the reading after it is ${back}`;
+  return `turns the run back: the readings ${run}, but ${how}, and it lies off the curve through the other readings`;
+}
+
 function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
   const classRuns = settings.classDataset?.runs;
   if (classRuns) {
@@ -153,7 +163,7 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
   // The analysis has fitted all readings with x_inf free already; where that failed, the run's own rate
   // is a close start for another try.
   const startK = a.expected.value > 0 ? a.expected.value : undefined;
-  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue });
+  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue, infinity: a.infinity });
   if (!suspect) return;
   const guess = suspect.intended
     ? ` It may have been meant as ${suspect.intended.value.toFixed(suspect.decimals)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`
@@ -167,6 +177,6 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
     expected: suspect.predicted,
     severity: 'warning',
     charge: 0,
-    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${suspect.reading}) lies far from the curve through the other readings (${suspect.predicted.toFixed(suspect.decimals)} expected).${guess} Your results were checked against your data as given.`,
+    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${suspect.reading}) ${whereOff(suspect)} (${suspect.predicted.toFixed(suspect.decimals)} expected).${guess} Your results were checked against your data as given.`,
   });
 }
