@@ -101,6 +101,25 @@ describe('a reading that turns the run back', () => {
     expect(tried).toBeGreaterThan(60);
     expect(named / tried).toBeGreaterThanOrEqual(0.9);
   });
+
+  it('is said to turn the run back, in the message of the finding', () => {
+    // The same runs checked whole (x_inf 9.400 given): a reading 5 SDs off is named by the turn-back
+    // rule alone, and the message says so in words a reader checks against the table (the readings
+    // fall; this one is higher than the one before it).
+    const assignment = parseAssignment(assignmentSettings({ fitModel: 'origin' }));
+    let said = 0;
+    for (let seed = 0; seed < 30; seed++) {
+      const random = seededRandom(seed);
+      const readings = curve.map((x) => Number((x + noise * gaussian(random)).toFixed(3)));
+      const j = 12 + (seed % 3);
+      readings[j] = Number((curve[j] + 5 * noise).toFixed(3));
+      if (!(readings[j] - readings[j - 1] > 3 * noise)) continue;
+      const submission = { studentId: 'S-1', runs: [{ label: 'run 1', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings: times.map((t, i): [number, number] => [t, readings[i]]), infinity: 9.4 }] };
+      const finding = checkSubmission(assignment, submission).findings.find((f) => f.code === 'suspect-reading' && f.path === `runs[0].readings[${j}]`);
+      if (finding?.message.includes('turns the run back: the readings fall, but it is higher than the reading before it')) said++;
+    }
+    expect(said).toBeGreaterThanOrEqual(10);
+  });
 });
 
 describe('a reading past x_inf', () => {
