@@ -182,9 +182,10 @@ interface Found {
  * the readings (see INFINITY_AGREES_SDS); x_inf is read on the same instrument once the reaction is
  * over, so it scatters as a reading does (common practice, no source). So far past the run that
  * e^(-k t) is 0 there for any k that moves the run by a part in a thousand, it bears on x_inf alone.
- * With it, the fit of all readings with x_inf fitted, if it converges.
+ * With it, the fit of all readings with x_inf fitted, if it converges. A run whose fit without x_inf
+ * leaves no reading for the screen (candidates) is spared the second fit.
  */
-function withMeasuredEnd(curve: Curve): { curve: Curve; all?: FirstOrderNonlinearFit } {
+function withMeasuredEnd(curve: Curve, floor: number): { curve: Curve; all?: FirstOrderNonlinearFit } {
   let free: FirstOrderNonlinearFit;
   try {
     free = curve.fitOfAll ?? fitFirstOrderNonlinear({ ...curve }, { infinity: 'fitted', initialK: curve.startK });
@@ -195,6 +196,7 @@ function withMeasuredEnd(curve: Curve): { curve: Curve; all?: FirstOrderNonlinea
   const measured = curve.infinity;
   const sd = Math.hypot(free.infinity.standardError, robustScatter(free.residuals));
   if (measured === undefined || !(Math.abs(measured - free.infinity.value) <= INFINITY_AGREES_SDS * sd)) return { curve, all: free };
+  if (candidates(free, curve.readings, floor).length === 0) return { curve, all: free };
   const first = curve.times[0];
   const last = curve.times[curve.times.length - 1];
   const extended = { ...curve, times: [...curve.times, last + 1e6 * (last - first)], readings: [...curve.readings, measured] };
@@ -211,7 +213,7 @@ function withMeasuredEnd(curve: Curve): { curve: Curve; all?: FirstOrderNonlinea
  * refitted without; when one reading is so far off that no fit of all converges, every reading is.
  */
 function mostSuspect(given: Curve, decimals: number, floor: number): Found | undefined {
-  const { curve, all } = withMeasuredEnd(given);
+  const { curve, all } = withMeasuredEnd(given, floor);
   // The measured x_inf, where it is among the readings, is never named itself.
   const tried = all ? candidates(all, given.readings, floor) : given.readings.map((_, i) => i);
   const initialK = all?.k.value;
