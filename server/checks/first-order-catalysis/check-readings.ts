@@ -2,7 +2,7 @@ import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/fir
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
 import { molarForNormality } from './catalyst-unit.ts';
-import { findSuspectReading, robustScatter, type SuspectReading } from './suspect-readings.ts';
+import { findSuspectReading, poolScatters, robustScatter, runScatter, type SuspectReading } from './suspect-readings.ts';
 import { compareTables, type TableSlip } from '../transcription.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -51,7 +51,7 @@ function transcriptionDraft(slip: TableSlip, a: RunAnalysis, charge: number): Dr
 // beyond 100 M, or below zero, is a slip in the value or its unit.
 const MAX_CONCENTRATION_M = 100;
 
-export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+export function checkReadings(run: SubmittedRun, a: RunAnalysis, analyses: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): void {
   if (!(a.concentrationM >= 0 && a.concentrationM <= MAX_CONCENTRATION_M)) {
     drafts.push({
       code: 'implausible',
@@ -78,7 +78,7 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
     drafts.push({ code: 'implausible', stage: 'readings', path: a.undetermined.path, severity: 'warning', charge: 0, message: a.undetermined.message });
   }
   const before = drafts.length;
-  compareReadings(run, a, settings, drafts);
+  compareReadings(run, a, analyses, settings, drafts);
   const named = new Set(drafts.slice(before).map((d) => d.path));
   const pastWithinNoise = withinScatterOfInfinity(a);
   for (const i of a.excluded) {
@@ -122,7 +122,7 @@ function whereOff(suspect: SuspectReading): string {
   return `turns the run back: the readings ${run}, but ${how}, and it lies off the curve through the other readings`;
 }
 
-function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+function compareReadings(run: SubmittedRun, a: RunAnalysis, analyses: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): void {
   const classRuns = settings.classDataset?.runs;
   if (classRuns) {
     const original = classRunFor(run, a.index, classRuns);
@@ -163,7 +163,9 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
   // The analysis has fitted all readings with x_inf free already; where that failed, the run's own rate
   // is a close start for another try.
   const startK = a.expected.value > 0 ? a.expected.value : undefined;
-  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue, infinity: a.infinity });
+  // The student's other runs, read on the same instrument, tell the scatter more surely than a dozen readings.
+  const otherRuns = poolScatters(analyses.flatMap((o) => (o !== a && o.ownEndValue ? [runScatter(o.ownEndValue)] : [])));
+  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue, infinity: a.infinity, otherRuns });
   if (!suspect) return;
   const guess = suspect.intended
     ? ` It may have been meant as ${suspect.intended.value.toFixed(suspect.decimals)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`

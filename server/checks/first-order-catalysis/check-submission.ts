@@ -47,7 +47,7 @@ function runRefit(a: RunAnalysis, declaredUnit: string | undefined, settings: Se
 export function checkFirstOrderCatalysis(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'> {
   const analyses = submission.runs.map((run, i) => analyseRun(run, i, settings.fitModel));
   const drafts: DraftFinding[] = [];
-  submission.runs.forEach((run, i) => checkReadings(run, analyses[i], settings, drafts));
+  submission.runs.forEach((run, i) => checkReadings(run, analyses[i], analyses, settings, drafts));
   const studentKs = submission.runs.map((run, i) => {
     const column = checkLnFColumn(run, analyses[i], analyses, settings, drafts);
     return checkRunK(run, analyses[i], analyses, column, settings, drafts);

@@ -15,11 +15,26 @@ import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
  * scatter of a reading shown more coarsely than it scatters is never called a slip. Where the student
  * measured x_inf and it agrees with the readings, it is one more reading, taken long after the run
  * (withMeasuredEnd): it pins the curve's end, so the curve extrapolates more tightly to the first reading.
+ * The scatter is pooled with the student's other runs where it agrees with theirs (pooledScatter).
  */
 const SUSPECT_SDS = 6;
 const REVERSAL_SDS = 3;
 /** A swap of two neighbouring digits that puts a reading within this many SDs of its miss of the curve explains it. */
 const ON_CURVE_SDS = 1.5;
+/**
+ * Where the curve is itself uncertain, its variance at the reading at least the scatter's (leverage 1
+ * or more: the first reading of a steep run), a reading SUSPECT_SDS SDs of scatter off is named when
+ * its miss is more than EXPLAINED_SDS of its own SDs and a swap explains it (ON_CURVE_SDS).
+ */
+const EXPLAINED_SDS = 3.5;
+const UNCERTAIN_CURVE_LEVERAGE = 1;
+/**
+ * A run's scatter within this factor of the student's other runs' is taken as the same instrument's,
+ * read the same way, and pooled with theirs: measured on a dozen readings alone it is often a third
+ * off, high enough to hide a slip or low enough to call honest scatter one. Beyond it the run's own
+ * is used (one run read more roughly, or more carefully, than the others).
+ */
+const SAME_SCATTER_RATIO = 2;
 const MIN_OFFSET_STEPS = 10;
 const SCREEN_MARGIN = 1.5;
 /** A normal distribution's SD over its median absolute deviation. */
@@ -73,6 +88,33 @@ interface Curve {
   fitOfAll?: FirstOrderNonlinearFit;
   /** The student's measured x_inf, if any. */
   infinity?: number;
+  /** The scatter of the student's other runs, pooled (runScatter, poolScatters). */
+  otherRuns?: Scatter;
+}
+
+/** A scatter measured about a fitted curve, with its degrees of freedom. */
+export interface Scatter {
+  sd: number;
+  dof: number;
+}
+
+/** The scatter of a run's readings about its fit with x_inf fitted (robustScatter). */
+export function runScatter(fit: FirstOrderNonlinearFit): Scatter {
+  return { sd: robustScatter(fit.residuals), dof: fit.residuals.length - CURVE_PARAMETERS };
+}
+
+/** Scatters pooled on their degrees of freedom (variances averaged); undefined when none is finite. */
+export function poolScatters(scatters: Scatter[]): Scatter | undefined {
+  const usable = scatters.filter((s) => s.sd > 0 && s.dof > 0);
+  const dof = usable.reduce((sum, s) => sum + s.dof, 0);
+  if (dof === 0) return undefined;
+  return { sd: Math.sqrt(usable.reduce((sum, s) => sum + s.dof * s.sd * s.sd, 0) / dof), dof };
+}
+
+/** A run's own scatter pooled with its other runs' where the two agree within SAME_SCATTER_RATIO. */
+function pooledScatter(own: Scatter, others: Scatter | undefined): number {
+  if (!others || !(own.sd < SAME_SCATTER_RATIO * others.sd && others.sd < SAME_SCATTER_RATIO * own.sd)) return own.sd;
+  return poolScatters([own, others])!.sd;
 }
 
 /** The curve without reading `skip`, started from the rate of the fit of all where there is one. */
@@ -159,7 +201,9 @@ function candidates(all: FirstOrderNonlinearFit, readings: number[], floor: numb
     const offset = Math.abs(r) / free;
     if (!(offset > floor / SCREEN_MARGIN)) continue;
     const scatter = Math.sqrt(Math.max(0, sse - (r * r) / free) / (all.dof - 1)) / SCREEN_MARGIN;
-    if (suspectBy(offset, scatter / Math.sqrt(free), reversalAt(readings, i, direction).size, scatter, floor / SCREEN_MARGIN)) out.push({ index: i, offset });
+    const spread = scatter / Math.sqrt(free);
+    const explainable = 1 / free - 1 >= UNCERTAIN_CURVE_LEVERAGE / SCREEN_MARGIN && offset > SUSPECT_SDS * scatter && offset > EXPLAINED_SDS * spread;
+    if (explainable || suspectBy(offset, spread, reversalAt(readings, i, direction).size, scatter, floor / SCREEN_MARGIN)) out.push({ index: i, offset });
   }
   return out
     .sort((a, b) => b.offset - a.offset || a.index - b.index)
@@ -230,13 +274,14 @@ function mostSuspect(given: Curve, decimals: number, floor: number): Found | und
     const origin = index === 0 ? curve.times[1] : curve.times[0];
     const predicted = fit.infinity.value + (fit.x0.value - fit.infinity.value) * Math.exp(-fit.k.value * (curve.times[index] - origin));
     const offset = Math.abs(curve.readings[index] - predicted);
-    const sd = robustScatter(fit.residuals);
+    const sd = pooledScatter(runScatter(fit), given.otherRuns);
     const leverage = leverageAt(curve.times, index, origin, fit);
     const direction = Math.sign(fit.infinity.value - fit.x0.value);
     const reversal = reversalAt(given.readings, index, direction);
     const spread = sd * Math.sqrt(1 + leverage);
     const explained = meantValue(given.readings[index], decimals, predicted, ON_CURVE_SDS * spread)?.slip === 'transposed-digits';
-    const rule = suspectBy(offset, spread, reversal.size, sd, floor);
+    const explains = explained && leverage >= UNCERTAIN_CURVE_LEVERAGE && offset > floor && offset > SUSPECT_SDS * sd && offset > EXPLAINED_SDS * spread;
+    const rule = suspectBy(offset, spread, reversal.size, sd, floor) ?? (explains ? 'far' : undefined);
     if (!rule) continue;
     const turnsBack = rule === 'turns-back' ? { against: reversal.against, runRises: direction > 0 } : undefined;
     // A reading next to a slip can look off the curve the slip pulls (most of all beside a first reading,
