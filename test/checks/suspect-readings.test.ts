@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findSuspectReading } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
+import { findSuspectReading, poolScatters } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { assignmentSettings } from '../../server/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
@@ -71,9 +71,31 @@ describe('small transpositions in any position (a corpus of our own, test/suppor
     expect(recall.namedSwap).toBeGreaterThanOrEqual(194);
   });
 
-  it('names no reading of 200 clean submissions of the same corpus (800 runs)', () => {
-    // Other seeds than the transposed ones, whose runs before the swap are the same.
-    expect(cleanSuspectWarnings(10_000, 200)).toMatchObject({ warnings: 0 });
+  it('names the changed reading in at least 99 % of 200 submissions whose every run scatters 0.006 deg', () => {
+    // The scatter of the issue's corpus: the smallest swap (0.054 deg) is 9 SDs, and a first reading
+    // of a steep run is predicted by the others only to 2 or 3 SDs.
+    const recall = transpositionRecall(0, 200, [0.006, 0.006]);
+    console.log(`small transpositions at 0.006 deg: ${recall.found}/200 found; missed ${JSON.stringify(recall.misses)}`);
+    expect(recall.found).toBeGreaterThanOrEqual(198);
+  });
+
+  it('names at most 2 readings of 200 clean submissions of the same corpus (800 runs)', () => {
+    // Other seeds than the transposed ones, whose runs before the swap are the same. Every warning here
+    // is a false alarm; the first reading of a steep run, named where a swap would put it on a curve
+    // that is itself uncertain, is one about once in a thousand runs (the bench measures 8,000), so
+    // the bound is a rate of 0.25 %, not none.
+    const clean = cleanSuspectWarnings(10_000, 200);
+    console.log(`clean transposition corpus: ${clean.warnings} suspect-reading warnings on ${clean.runs} runs`);
+    expect(clean.warnings).toBeLessThanOrEqual(2);
+  });
+});
+
+describe('poolScatters', () => {
+  it('averages the variances on their degrees of freedom', () => {
+    // Worked by hand: sqrt((10 * 0.003^2 + 10 * 0.006^2) / 20) = sqrt(22.5e-6) = 0.0047434.
+    expect(poolScatters([{ sd: 0.003, dof: 10 }, { sd: 0.006, dof: 10 }])!.sd).toBeCloseTo(0.0047434, 7);
+    expect(poolScatters([{ sd: 0.003, dof: 10 }, { sd: 0.006, dof: 10 }])!.dof).toBe(20);
+    expect(poolScatters([{ sd: Number.NaN, dof: 10 }])).toBeUndefined();
   });
 });
 
