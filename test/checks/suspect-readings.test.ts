@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findSuspectReading } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
+import { findSuspectReading, poolScatters } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
 import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
 import { assignmentSettings } from '../../server/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
@@ -71,9 +71,31 @@ describe('small transpositions in any position (a corpus of our own, test/suppor
     expect(recall.namedSwap).toBeGreaterThanOrEqual(194);
   });
 
-  it('names no reading of 200 clean submissions of the same corpus (800 runs)', () => {
-    // Other seeds than the transposed ones, whose runs before the swap are the same.
-    expect(cleanSuspectWarnings(10_000, 200)).toMatchObject({ warnings: 0 });
+  it('names the changed reading in at least 99 % of 200 submissions whose every run scatters 0.006 deg', () => {
+    // The scatter of the issue's corpus: the smallest swap (0.054 deg) is 9 SDs, and a first reading
+    // of a steep run is predicted by the others only to 2 or 3 SDs.
+    const recall = transpositionRecall(0, 200, [0.006, 0.006]);
+    console.log(`small transpositions at 0.006 deg: ${recall.found}/200 found; missed ${JSON.stringify(recall.misses)}`);
+    expect(recall.found).toBeGreaterThanOrEqual(198);
+  });
+
+  it('names at most 2 readings of 200 clean submissions of the same corpus (800 runs)', () => {
+    // Other seeds than the transposed ones, whose runs before the swap are the same. Every warning here
+    // is a false alarm; the first reading of a steep run, named where a swap would put it on a curve
+    // that is itself uncertain, is one about once in a thousand runs (the bench measures 8,000), so
+    // the bound is a rate of 0.25 %, not none.
+    const clean = cleanSuspectWarnings(10_000, 200);
+    console.log(`clean transposition corpus: ${clean.warnings} suspect-reading warnings on ${clean.runs} runs`);
+    expect(clean.warnings).toBeLessThanOrEqual(2);
+  });
+});
+
+describe('poolScatters', () => {
+  it('averages the variances on their degrees of freedom', () => {
+    // Worked by hand: sqrt((10 * 0.003^2 + 10 * 0.006^2) / 20) = sqrt(22.5e-6) = 0.0047434.
+    expect(poolScatters([{ sd: 0.003, dof: 10 }, { sd: 0.006, dof: 10 }])!.sd).toBeCloseTo(0.0047434, 7);
+    expect(poolScatters([{ sd: 0.003, dof: 10 }, { sd: 0.006, dof: 10 }])!.dof).toBe(20);
+    expect(poolScatters([{ sd: Number.NaN, dof: 10 }])).toBeUndefined();
   });
 });
 
@@ -100,6 +122,25 @@ describe('a reading that turns the run back', () => {
     }
     expect(tried).toBeGreaterThan(60);
     expect(named / tried).toBeGreaterThanOrEqual(0.9);
+  });
+
+  it('is said to turn the run back, in the message of the finding', () => {
+    // The same runs checked whole (x_inf 9.400 given): a reading 5 SDs off is named by the turn-back
+    // rule alone, and the message says so in words a reader checks against the table (the readings
+    // fall; this one is higher than the one before it).
+    const assignment = parseAssignment(assignmentSettings({ fitModel: 'origin' }));
+    let said = 0;
+    for (let seed = 0; seed < 30; seed++) {
+      const random = seededRandom(seed);
+      const readings = curve.map((x) => Number((x + noise * gaussian(random)).toFixed(3)));
+      const j = 12 + (seed % 3);
+      readings[j] = Number((curve[j] + 5 * noise).toFixed(3));
+      if (!(readings[j] - readings[j - 1] > 3 * noise)) continue;
+      const submission = { studentId: 'S-1', runs: [{ label: 'run 1', catalyst: { value: 0.1, unit: 'M' }, timeUnit: 'min', readings: times.map((t, i): [number, number] => [t, readings[i]]), infinity: 9.4 }] };
+      const finding = checkSubmission(assignment, submission).findings.find((f) => f.code === 'suspect-reading' && f.path === `runs[0].readings[${j}]`);
+      if (finding?.message.includes('turns the run back: the readings fall, but it is higher than the reading before it')) said++;
+    }
+    expect(said).toBeGreaterThanOrEqual(10);
   });
 });
 

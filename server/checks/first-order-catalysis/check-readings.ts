@@ -2,7 +2,7 @@ import type { RunData, Settings, SubmittedRun } from '../../../schemas/kinds/fir
 import type { DraftFinding } from '../draft-finding.ts';
 import { fmt } from '../format.ts';
 import { molarForNormality } from './catalyst-unit.ts';
-import { findSuspectReading, robustScatter } from './suspect-readings.ts';
+import { findSuspectReading, poolScatters, robustScatter, runScatter, type SuspectReading } from './suspect-readings.ts';
 import { compareTables, type TableSlip } from '../transcription.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 
@@ -51,7 +51,7 @@ function transcriptionDraft(slip: TableSlip, a: RunAnalysis, charge: number): Dr
 // beyond 100 M, or below zero, is a slip in the value or its unit.
 const MAX_CONCENTRATION_M = 100;
 
-export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+export function checkReadings(run: SubmittedRun, a: RunAnalysis, analyses: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): void {
   if (!(a.concentrationM >= 0 && a.concentrationM <= MAX_CONCENTRATION_M)) {
     drafts.push({
       code: 'implausible',
@@ -78,7 +78,7 @@ export function checkReadings(run: SubmittedRun, a: RunAnalysis, settings: Setti
     drafts.push({ code: 'implausible', stage: 'readings', path: a.undetermined.path, severity: 'warning', charge: 0, message: a.undetermined.message });
   }
   const before = drafts.length;
-  compareReadings(run, a, settings, drafts);
+  compareReadings(run, a, analyses, settings, drafts);
   const named = new Set(drafts.slice(before).map((d) => d.path));
   const pastWithinNoise = withinScatterOfInfinity(a);
   for (const i of a.excluded) {
@@ -112,7 +112,17 @@ function withinScatterOfInfinity(a: RunAnalysis): (reading: number) => boolean {
   return (reading) => Math.abs(reading - infinity) <= PAST_INFINITY_SDS * scatter;
 }
 
-function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, drafts: DraftFinding[]): void {
+/** How a suspect reading is off: far from the curve, or turning the run back where it is named for that. */
+function whereOff(suspect: SuspectReading): string {
+  if (!suspect.turnsBack) return 'lies far from the curve through the other readings';
+  const { against, runRises } = suspect.turnsBack;
+  const run = runRises ? 'rise' : 'fall';
+  const back = runRises ? 'lower' : 'higher';
+  const how = against === 'before' ? `it is ${back} than the reading before it` : `the reading after it is ${back}`;
+  return `turns the run back: the readings ${run}, but ${how}, and it lies off the curve through the other readings`;
+}
+
+function compareReadings(run: SubmittedRun, a: RunAnalysis, analyses: RunAnalysis[], settings: Settings, drafts: DraftFinding[]): void {
   const classRuns = settings.classDataset?.runs;
   if (classRuns) {
     const original = classRunFor(run, a.index, classRuns);
@@ -153,7 +163,9 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
   // The analysis has fitted all readings with x_inf free already; where that failed, the run's own rate
   // is a close start for another try.
   const startK = a.expected.value > 0 ? a.expected.value : undefined;
-  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue });
+  // The student's other runs, read on the same instrument, tell the scatter more surely than a dozen readings.
+  const otherRuns = poolScatters(analyses.flatMap((o) => (o !== a && o.ownEndValue ? [runScatter(o.ownEndValue)] : [])));
+  const suspect = findSuspectReading({ times: a.times, readings: a.readings, timeUnit: a.timeUnit.text, startK, fitOfAll: a.ownEndValue, infinity: a.infinity, otherRuns });
   if (!suspect) return;
   const guess = suspect.intended
     ? ` It may have been meant as ${suspect.intended.value.toFixed(suspect.decimals)} (${slipWords[suspect.intended.slip]}), which lies on the curve; this is a guess to check against the notebook.`
@@ -167,6 +179,6 @@ function compareReadings(run: SubmittedRun, a: RunAnalysis, settings: Settings, 
     expected: suspect.predicted,
     severity: 'warning',
     charge: 0,
-    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${suspect.reading}) lies far from the curve through the other readings (${suspect.predicted.toFixed(suspect.decimals)} expected).${guess} Your results were checked against your data as given.`,
+    message: `In run "${a.label}", the reading at t = ${fmt(a.times[suspect.index])} (${suspect.reading}) ${whereOff(suspect)} (${suspect.predicted.toFixed(suspect.decimals)} expected).${guess} Your results were checked against your data as given.`,
   });
 }

@@ -62,7 +62,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submitted: Submissi
     const temperature = runTemperatureDraft(run, i);
     if (temperature) drafts.push(temperature);
   }
-  for (const a of fitted) checkReadings(submission.runs[a.index], a, settings, drafts);
+  for (const a of fitted) checkReadings(submission.runs[a.index], a, fitted, settings, drafts);
   const studentKs = analyses.map((a) => {
     const run = submission.runs[a.index];
     // A k we cannot grade (no fit, or undetermined) still belongs in the student's line through their own k_obs.
