@@ -23,11 +23,11 @@ const Row = z.object({
   warnings: z.number(),
   infos: z.number(),
   codes: z.array(z.string()),
-  /** Something was released to the student: they see `releasedScore` until a TA releases again. */
+  /** Something was released to the student (of this version or an earlier one): they see `releasedScore` until a TA releases again. */
   released: z.boolean(),
   /** The score the student was shown; null when nothing was released. */
   releasedScore: z.number().nullable(),
-  /** Released, and the latest result (a regrade, an override) would show the student something else: `score` beside `releasedScore`. */
+  /** Released, and the latest result (a regrade, an override, a new version) would show the student something else: `score` beside `releasedScore`. */
   changedSinceRelease: z.boolean(),
 });
 
@@ -83,7 +83,7 @@ export const resultRoutes: RouteSpec[] = [
     url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
     access: 'section',
     summary:
-      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override). Nothing is released without this TA action",
+      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action",
     schema: { params, response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, scope, params: p, caller }) {

@@ -105,13 +105,14 @@ const submissionHeadColumns = [
 
 const submissionColumns = [...submissionHeadColumns, 'submissions.payload as payload'] as const;
 
+/** Submissions by their ids, in no particular order. */
+export async function submissionsByIds(db: Kysely<Database>, ids: number[]) {
+  if (ids.length === 0) return [];
+  return db.selectFrom('submissions').innerJoin('students', 'students.id', 'submissions.student_row_id').select(submissionColumns).where('submissions.id', 'in', ids).execute();
+}
+
 export async function getSubmission(db: Kysely<Database>, id: number) {
-  return db
-    .selectFrom('submissions')
-    .innerJoin('students', 'students.id', 'submissions.student_row_id')
-    .select(submissionColumns)
-    .where('submissions.id', '=', id)
-    .executeTakeFirst();
+  return (await submissionsByIds(db, [id])).at(0);
 }
 
 export type SubmissionRow = NonNullable<Awaited<ReturnType<typeof getSubmission>>>;

@@ -130,7 +130,7 @@ describe('books and releases through the API', () => {
     expect((await call(api.app, 'POST', `${url()}/release`, s.taAToken, undefined, 200)).body.released).toBe(0);
 
     // k now worth 3 a run: every maximum changes.
-    await call(api.app, 'PUT', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings: { ...s.settings, rubric: { ...s.settings.rubric, k: 3 } } }, 200);
+    await call(api.app, 'PATCH', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings: { rubric: { k: 3 } } }, 200);
     await regradeAndWait(api.app, s.instructorToken, s.assignment.id, { sectionId: s.sectionA.id });
     const after = await table();
     const book = await gradebook();
