@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { ApiError } from '../errors.ts';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults, releasesDue } from '../grading/report-inputs.ts';
 import { insertReleases } from '../store/releases.ts';
 import { studentsWithoutSubmission } from '../store/students.ts';
-import { latestSubmissionHeads } from '../store/submissions.ts';
+import { latestSubmissionHeads, versionAndLatest } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { Enrolment, IdParam } from './schemas.ts';
@@ -97,10 +98,18 @@ export const resultRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/submissions/:submissionId/release',
     access: 'section',
-    summary: "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since",
+    summary:
+      "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since; only the student's latest version can be released (409 otherwise)",
     schema: { params: z.object({ submissionId: IdParam }), response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, params, caller }) {
+      // A student sees their latest release: releasing an older version would take back a newer one.
+      const versions = (await versionAndLatest(db, Number(params.submissionId)))!;
+      if (versions.version < versions.latestVersion) {
+        throw new ApiError('conflict', `only the student's latest version can be released: this is version ${versions.version}, the latest ${versions.latestVersion}`, [
+          { path: 'params.submissionId', message: `version ${versions.version} of ${versions.latestVersion}` },
+        ]);
+      }
       const due = await releasesDue(db, [Number(params.submissionId)]);
       await insertReleases(db, due, staffIdOf(caller));
       return { status: 200, body: { released: due.length } };

@@ -111,6 +111,17 @@ export async function submissionsByIds(db: Kysely<Database>, ids: number[]) {
   return db.selectFrom('submissions').innerJoin('students', 'students.id', 'submissions.student_row_id').select(submissionColumns).where('submissions.id', 'in', ids).execute();
 }
 
+/** A submission's version beside the latest version its student submitted to the same assignment. */
+export async function versionAndLatest(db: Kysely<Database>, id: number) {
+  return db
+    .selectFrom('submissions as asked')
+    .innerJoin('submissions as other', (join) => join.onRef('other.student_row_id', '=', 'asked.student_row_id').onRef('other.assignment_id', '=', 'asked.assignment_id'))
+    .select((eb) => ['asked.version as version', eb.fn.max('other.version').as('latestVersion')])
+    .where('asked.id', '=', id)
+    .groupBy('asked.version')
+    .executeTakeFirst();
+}
+
 export async function getSubmission(db: Kysely<Database>, id: number) {
   return (await submissionsByIds(db, [id])).at(0);
 }

@@ -247,6 +247,11 @@ describe('books and releases through the API', () => {
     expect(preview).toContain('4 / 4 points');
     expect(preview).toContain(DRAFT_NOTE);
 
+    // Releasing version 1 again would hide a newer version's release later: refused, nothing stored.
+    const older = await call(api.app, 'POST', `/v1/submissions/${v1}/release`, s.taAToken, undefined, 409);
+    expect(older.body.error.details).toEqual([{ path: 'params.submissionId', message: 'version 1 of 2' }]);
+    expect(await row()).toMatchObject({ releasedScore: 2, changedSinceRelease: true });
+
     // The section release covers the new version; the student then sees 4 of 4.
     expect((await call(api.app, 'POST', `${here}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
     expect(await row()).toMatchObject({ submissionId: v2, score: 4, released: true, releasedScore: 4, changedSinceRelease: false });
