@@ -13,8 +13,9 @@ export interface ResultAndRelease {
   current: EffectiveResult;
   /** What the student sees, when something was released. */
   released?: EffectiveResult;
-  /** The version whose result was released (its submission id): this one or an earlier one of the same student. */
+  /** The version whose result was released (its submission id and number): this one or an earlier one of the same student. */
   releasedSubmissionId?: number;
+  releasedVersion?: number;
   /**
    * Released, and the latest result would show the student something else (score, findings or
    * points, signals on the sheet); a later version than the one released always would.
@@ -51,7 +52,7 @@ export function resultAndRelease(
     choices.filter((c) => c.id <= release.choicesThrough),
   );
   const changedSinceRelease = release.submissionId !== current.submissionId || asShown(now) !== asShown(released);
-  return { current: now, released: { ...released, releasedAt: release.releasedAt }, releasedSubmissionId: release.submissionId, changedSinceRelease, nextRelease };
+  return { current: now, released: { ...released, releasedAt: release.releasedAt }, releasedSubmissionId: release.submissionId, releasedVersion: release.version, changedSinceRelease, nextRelease };
 }
 
 /** A release of the latest result with everything done to it so far. */

@@ -91,7 +91,7 @@ export async function latestWithResults(db: Kysely<Database>, sectionId: number,
   const results = await resultsAndReleases(db, rows.map((r) => r.submissionId), false);
   return rows.map((submission) => {
     const both = results.get(submission.submissionId);
-    return { submission, result: both?.current, released: both?.released, changedSinceRelease: both?.changedSinceRelease ?? false };
+    return { submission, result: both?.current, released: both?.released, releasedVersion: both?.releasedVersion, changedSinceRelease: both?.changedSinceRelease ?? false };
   });
 }
 
@@ -104,7 +104,7 @@ export async function releasesDue(db: Kysely<Database>, submissionIds: number[])
 /** What one submission's student was shown, beside its latest result; undefined when nothing was released. */
 export async function submissionRelease(db: Kysely<Database>, submissionId: number) {
   const both = (await resultsAndReleases(db, [submissionId], false)).get(submissionId);
-  return both?.released && { at: both.released.releasedAt!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
+  return both?.released && { at: both.released.releasedAt!, version: both.releasedVersion!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
 }
 
 /** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */

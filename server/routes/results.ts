@@ -28,6 +28,8 @@ const Row = z.object({
   released: z.boolean(),
   /** The score the student was shown; null when nothing was released. */
   releasedScore: z.number().nullable(),
+  /** The version released: this row's or an earlier one; null when nothing was released. */
+  releasedVersion: z.number().nullable(),
   /** Released, and the latest result (a regrade, an override, a new version) would show the student something else: `score` beside `releasedScore`. */
   changedSinceRelease: z.boolean(),
 });
@@ -58,9 +60,10 @@ export const resultRoutes: RouteSpec[] = [
         codes: [],
         released: false,
         releasedScore: null,
+        releasedVersion: null,
         changedSinceRelease: false,
       }));
-      const submitted = rows.map(({ submission, result, released, changedSinceRelease }) => ({
+      const submitted = rows.map(({ submission, result, released, releasedVersion, changedSinceRelease }) => ({
         studentId: submission.studentId,
         submissionId: submission.submissionId,
         version: submission.version,
@@ -72,6 +75,7 @@ export const resultRoutes: RouteSpec[] = [
         codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
         released: released !== undefined,
         releasedScore: released?.score ?? null,
+        releasedVersion: releasedVersion ?? null,
         changedSinceRelease,
       }));
       // One list in student-id order, submitted or not.

@@ -13,7 +13,7 @@ export interface NewRelease {
 /**
  * What each given submission's student is shown for its assignment: the latest release of any of
  * their versions up to that one (a version never released shows nothing new), keyed by the given
- * submission; `submissionId` is the version released.
+ * submission; `submissionId` and `version` are the version released.
  */
 export async function latestReleases(db: Kysely<Database>, submissionIds: number[]) {
   if (submissionIds.length === 0) return [];
@@ -27,7 +27,7 @@ export async function latestReleases(db: Kysely<Database>, submissionIds: number
           .whereRef('shown.student_row_id', '=', 'asked.student_row_id')
           .whereRef('shown.assignment_id', '=', 'asked.assignment_id')
           .whereRef('shown.version', '<=', 'asked.version')
-          .select(['releases.id', 'releases.submission_id', 'releases.result_id', 'releases.overrides_through', 'releases.choices_through', 'releases.released_at'])
+          .select(['releases.id', 'releases.submission_id', 'shown.version', 'releases.result_id', 'releases.overrides_through', 'releases.choices_through', 'releases.released_at'])
           .orderBy('releases.id', 'desc')
           .limit(1)
           .as('release'),
@@ -37,6 +37,7 @@ export async function latestReleases(db: Kysely<Database>, submissionIds: number
       'asked.id as forSubmissionId',
       'release.id as id',
       'release.submission_id as submissionId',
+      'release.version as version',
       'release.result_id as resultId',
       'release.overrides_through as overridesThrough',
       'release.choices_through as choicesThrough',

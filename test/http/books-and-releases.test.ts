@@ -215,7 +215,7 @@ describe('books and releases through the API', () => {
     const assignment = (await call(api.app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Sucrose inversion (invented)', settings }, 201)).body;
     const here = `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}`;
     const get = (path: string) => api.app.inject({ method: 'GET', url: path, headers: { authorization: `Bearer ${s.taAToken}` } });
-    const row = async (): Promise<Row & { version: number }> => (await call(api.app, 'GET', `${here}/results`, s.taAToken, undefined, 200)).body.find((r: Row) => r.studentId === 'S-001');
+    const row = async (): Promise<Row & { version: number; releasedVersion: number | null }> => (await call(api.app, 'GET', `${here}/results`, s.taAToken, undefined, 200)).body.find((r: Row) => r.studentId === 'S-001');
     const bookLine = async () => (await get(`${here}/gradebook.csv`)).body.split('\r\n').find((l) => l.startsWith('S-001,'));
     const sheet = async (id: number, query = '') => folded(await pdfText((await get(`/v1/submissions/${id}/feedback.pdf${query}`)).rawPayload));
     const zipSheet = async () => folded(await pdfText((await unzip((await get(`${here}/feedback.zip`)).rawPayload)).find((e) => e.name === 'S-001.pdf')!.data));
@@ -232,15 +232,15 @@ describe('books and releases through the API', () => {
     expect((await view(v2)).result).toMatchObject({ score: 4, maxScore: 4 });
 
     // The student still sees version 1: the gradebook, the sheet and the ZIP; the row says it changed.
-    expect(await row()).toMatchObject({ submissionId: v2, version: 2, score: 4, released: true, releasedScore: 2, changedSinceRelease: true });
+    expect(await row()).toMatchObject({ submissionId: v2, version: 2, score: 4, released: true, releasedScore: 2, releasedVersion: 1, changedSinceRelease: true });
     expect(await bookLine()).toMatch(/^S-001,2,4,checked,1,\d+,\d+,sign-flipped$/);
     for (const shown of [await sheet(v2), await zipSheet()]) {
       expect(shown).toContain('version 1');
       expect(shown).toContain('2 / 4 points');
       expect(shown).not.toContain(DRAFT_NOTE);
     }
-    expect((await view(v2)).release).toMatchObject({ score: 2, changedSinceRelease: true });
-    expect((await view(v1)).release).toMatchObject({ score: 2, changedSinceRelease: false });
+    expect((await view(v2)).release).toMatchObject({ version: 1, score: 2, changedSinceRelease: true });
+    expect((await view(v1)).release).toMatchObject({ version: 1, score: 2, changedSinceRelease: false });
     // A TA previews version 2, marked as a draft.
     const preview = await sheet(v2, '?latest=true');
     expect(preview).toContain('version 2');
@@ -254,7 +254,7 @@ describe('books and releases through the API', () => {
 
     // The section release covers the new version; the student then sees 4 of 4.
     expect((await call(api.app, 'POST', `${here}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
-    expect(await row()).toMatchObject({ submissionId: v2, score: 4, released: true, releasedScore: 4, changedSinceRelease: false });
+    expect(await row()).toMatchObject({ submissionId: v2, score: 4, released: true, releasedScore: 4, releasedVersion: 2, changedSinceRelease: false });
     expect(await bookLine()).toMatch(/^S-001,4,4,checked,0,\d+,\d+,$/);
     const now = await sheet(v2);
     expect(now).toContain('version 2');
