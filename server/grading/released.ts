@@ -5,15 +5,21 @@ import { effectiveResult, signalKey, type EffectiveResult } from './effective-re
 
 /**
  * A submission's latest result beside what its student was shown: a release keeps the result it named
- * with the overrides and signal choices made until then, so neither a regrade nor a later override
- * changes what a student sees until a TA releases again.
+ * with the overrides and signal choices made until then, so neither a regrade, nor a later override,
+ * nor a new version changes what a student sees until a TA releases again.
  */
 export interface ResultAndRelease {
   /** The latest result with every override and choice so far. */
   current: EffectiveResult;
   /** What the student sees, when something was released. */
   released?: EffectiveResult;
-  /** Released, and the latest result would show the student something else (score, findings or points, signals on the sheet). */
+  /** The version whose result was released (its submission id and number): this one or an earlier one of the same student. */
+  releasedSubmissionId?: number;
+  releasedVersion?: number;
+  /**
+   * Released, and the latest result would show the student something else (score, findings or
+   * points, signals on the sheet); a later version than the one released always would.
+   */
   changedSinceRelease: boolean;
   /** What releasing it now would record. */
   nextRelease: NewRelease;
@@ -45,7 +51,8 @@ export function resultAndRelease(
     overrides.filter((o) => o.id <= release.overridesThrough),
     choices.filter((c) => c.id <= release.choicesThrough),
   );
-  return { current: now, released: { ...released, releasedAt: release.releasedAt }, changedSinceRelease: asShown(now) !== asShown(released), nextRelease };
+  const changedSinceRelease = release.submissionId !== current.submissionId || asShown(now) !== asShown(released);
+  return { current: now, released: { ...released, releasedAt: release.releasedAt }, releasedSubmissionId: release.submissionId, releasedVersion: release.version, changedSinceRelease, nextRelease };
 }
 
 /** A release of the latest result with everything done to it so far. */

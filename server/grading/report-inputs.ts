@@ -5,7 +5,7 @@ import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
 import { latestReleases } from '../store/releases.ts';
 import { signalChoicesOf } from '../store/signal-choices.ts';
-import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, resultsByIds, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
+import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, resultsByIds, submissionsByIds, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { EffectiveResult } from './effective-result.ts';
 import { resultAndRelease, type ResultAndRelease } from './released.ts';
@@ -20,14 +20,16 @@ function asCheckResult(studentId: string, r: EffectiveResult): CheckResult {
   return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, items: r.items, refit: r.refit as CheckResult['refit'], findings: r.findings, signals: r.signals, rejected: r.rejected, engineVersion: r.engineVersion };
 }
 
-/** Each submission's latest result and its latest release; `full` reads refits and settings too (for sheets). */
+/** Each submission's latest result and its student's latest release; `full` reads refits and settings too (for sheets). */
 async function resultsAndReleases(db: Kysely<Database>, ids: number[], full: boolean): Promise<Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>> {
   const latest = await (full ? latestResults(db, ids) : latestResultSummaries(db, ids));
-  const overrides = await overridesOf(db, ids);
-  const choices = await signalChoicesOf(db, ids);
-  const releases = new Map((await latestReleases(db, ids)).map((r) => [r.submissionId, r]));
+  const releases = new Map((await latestReleases(db, ids)).map((r) => [r.forSubmissionId, r]));
+  // A release of an earlier version keeps that version's overrides and choices.
+  const withReleased = [...new Set([...ids, ...[...releases.values()].map((r) => r.submissionId)])];
+  const overrides = await overridesOf(db, withReleased);
+  const choices = await signalChoicesOf(db, withReleased);
   const byId = new Map(latest.map((r) => [r.resultId, r]));
-  const older = [...releases.values()].map((r) => r.resultId).filter((id) => !byId.has(id));
+  const older = [...new Set([...releases.values()].map((r) => r.resultId))].filter((id) => !byId.has(id));
   for (const r of await resultsByIds(db, older, !full)) byId.set(r.resultId, r);
   const out = new Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>();
   for (const row of latest) {
@@ -45,6 +47,10 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
   if (rows.length === 0) return [];
   const names = await reportNames(db, sectionId, assignmentId);
   const results = await resultsAndReleases(db, rows.map((r) => r.submissionId), true);
+  // A release of an earlier version shows that version's values and number.
+  const submissions = new Map(rows.map((r) => [r.submissionId, r]));
+  const earlier = [...results.values()].flatMap((r) => (r.releasedSubmissionId !== undefined && !submissions.has(r.releasedSubmissionId) ? [r.releasedSubmissionId] : []));
+  for (const r of await submissionsByIds(db, [...new Set(earlier)])) submissions.set(r.submissionId, r);
   // Results of one settings version share their parsed settings.
   const checkers = new Map<number, ReturnType<typeof assignmentOf>>();
   const out: FeedbackInput[] = [];
@@ -54,12 +60,13 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
     const useReleased = showing === 'released' && both.released !== undefined;
     const [stored, shown] = useReleased ? [both.releasedRow!, both.released!] : [both.row, both.current];
     if (stored.status !== 'checked') continue;
+    const version = submissions.get(stored.submissionId)!;
     const checker = checkers.get(stored.settingsVersion) ?? assignmentOf(stored.settings, 'settings');
     checkers.set(stored.settingsVersion, checker);
     out.push({
-      header: { ...names, studentId: row.studentId, version: row.version, gradedAt: stored.gradedAt, released: useReleased || (both.released !== undefined && !both.changedSinceRelease) },
+      header: { ...names, studentId: row.studentId, version: version.version, gradedAt: stored.gradedAt, released: useReleased || (both.released !== undefined && !both.changedSinceRelease) },
       settings: checker.settings as KindSettings,
-      submission: checker.kind.submissionSchema.parse(row.payload),
+      submission: checker.kind.submissionSchema.parse(version.payload),
       result: asCheckResult(row.studentId, shown),
     });
   }
@@ -84,7 +91,7 @@ export async function latestWithResults(db: Kysely<Database>, sectionId: number,
   const results = await resultsAndReleases(db, rows.map((r) => r.submissionId), false);
   return rows.map((submission) => {
     const both = results.get(submission.submissionId);
-    return { submission, result: both?.current, released: both?.released, changedSinceRelease: both?.changedSinceRelease ?? false };
+    return { submission, result: both?.current, released: both?.released, releasedVersion: both?.releasedVersion, changedSinceRelease: both?.changedSinceRelease ?? false };
   });
 }
 
@@ -97,7 +104,7 @@ export async function releasesDue(db: Kysely<Database>, submissionIds: number[])
 /** What one submission's student was shown, beside its latest result; undefined when nothing was released. */
 export async function submissionRelease(db: Kysely<Database>, submissionId: number) {
   const both = (await resultsAndReleases(db, [submissionId], false)).get(submissionId);
-  return both?.released && { at: both.released.releasedAt!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
+  return both?.released && { at: both.released.releasedAt!, version: both.releasedVersion!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
 }
 
 /** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */

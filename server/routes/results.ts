@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { ApiError } from '../errors.ts';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults, releasesDue } from '../grading/report-inputs.ts';
 import { insertReleases } from '../store/releases.ts';
 import { studentsWithoutSubmission } from '../store/students.ts';
-import { latestSubmissionHeads } from '../store/submissions.ts';
+import { latestSubmissionHeads, versionAndLatest } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { Enrolment, IdParam } from './schemas.ts';
@@ -23,11 +24,13 @@ const Row = z.object({
   warnings: z.number(),
   infos: z.number(),
   codes: z.array(z.string()),
-  /** Something was released to the student: they see `releasedScore` until a TA releases again. */
+  /** Something was released to the student (of this version or an earlier one): they see `releasedScore` until a TA releases again. */
   released: z.boolean(),
   /** The score the student was shown; null when nothing was released. */
   releasedScore: z.number().nullable(),
-  /** Released, and the latest result (a regrade, an override) would show the student something else: `score` beside `releasedScore`. */
+  /** The version released: this row's or an earlier one; null when nothing was released. */
+  releasedVersion: z.number().nullable(),
+  /** Released, and the latest result (a regrade, an override, a new version) would show the student something else: `score` beside `releasedScore`. */
   changedSinceRelease: z.boolean(),
 });
 
@@ -57,9 +60,10 @@ export const resultRoutes: RouteSpec[] = [
         codes: [],
         released: false,
         releasedScore: null,
+        releasedVersion: null,
         changedSinceRelease: false,
       }));
-      const submitted = rows.map(({ submission, result, released, changedSinceRelease }) => ({
+      const submitted = rows.map(({ submission, result, released, releasedVersion, changedSinceRelease }) => ({
         studentId: submission.studentId,
         submissionId: submission.submissionId,
         version: submission.version,
@@ -71,6 +75,7 @@ export const resultRoutes: RouteSpec[] = [
         codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
         released: released !== undefined,
         releasedScore: released?.score ?? null,
+        releasedVersion: releasedVersion ?? null,
         changedSinceRelease,
       }));
       // One list in student-id order, submitted or not.
@@ -83,7 +88,7 @@ export const resultRoutes: RouteSpec[] = [
     url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
     access: 'section',
     summary:
-      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override). Nothing is released without this TA action",
+      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action",
     schema: { params, response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, scope, params: p, caller }) {
@@ -97,10 +102,18 @@ export const resultRoutes: RouteSpec[] = [
     method: 'POST',
     url: '/v1/submissions/:submissionId/release',
     access: 'section',
-    summary: "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since",
+    summary:
+      "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since; only the student's latest version can be released (409 otherwise)",
     schema: { params: z.object({ submissionId: IdParam }), response: { 200: z.object({ released: z.number() }) } },
     transactional: true,
     async handler({ db, params, caller }) {
+      // A student sees their latest release: releasing an older version would take back a newer one.
+      const versions = (await versionAndLatest(db, Number(params.submissionId)))!;
+      if (versions.version < versions.latestVersion) {
+        throw new ApiError('conflict', `only the student's latest version can be released: this is version ${versions.version}, the latest ${versions.latestVersion}`, [
+          { path: 'params.submissionId', message: `version ${versions.version} of ${versions.latestVersion}` },
+        ]);
+      }
       const due = await releasesDue(db, [Number(params.submissionId)]);
       await insertReleases(db, due, staffIdOf(caller));
       return { status: 200, body: { released: due.length } };

@@ -48,8 +48,8 @@ const SubmissionView = z.object({
   overrides: z.array(Override),
   /** Every choice to put a signal on the sheet or take it off, oldest first. */
   signalChoices: z.array(SignalChoice),
-  /** What the student was shown (null: nothing released yet), and whether the latest result differs from it. */
-  release: z.object({ at: z.date(), score: z.number().nullable(), changedSinceRelease: z.boolean() }).nullable(),
+  /** What the student was shown, of this version or an earlier one (null: nothing released yet), and whether this version's latest result differs from it. */
+  release: z.object({ at: z.date(), version: z.number(), score: z.number().nullable(), changedSinceRelease: z.boolean() }).nullable(),
 });
 
 async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {

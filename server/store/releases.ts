@@ -10,20 +10,40 @@ export interface NewRelease {
   choicesThrough: number;
 }
 
-/** The latest release of each of the given submissions (what its student sees). */
+/**
+ * What each given submission's student is shown for its assignment: the latest release of any of
+ * their versions up to that one (a version never released shows nothing new), keyed by the given
+ * submission; `submissionId` and `version` are the version released.
+ */
 export async function latestReleases(db: Kysely<Database>, submissionIds: number[]) {
   if (submissionIds.length === 0) return [];
   return db
-    .selectFrom('releases')
+    .selectFrom('submissions as asked')
+    .innerJoinLateral(
+      (eb) =>
+        eb
+          .selectFrom('releases')
+          .innerJoin('submissions as shown', 'shown.id', 'releases.submission_id')
+          .whereRef('shown.student_row_id', '=', 'asked.student_row_id')
+          .whereRef('shown.assignment_id', '=', 'asked.assignment_id')
+          .whereRef('shown.version', '<=', 'asked.version')
+          .select(['releases.id', 'releases.submission_id', 'shown.version', 'releases.result_id', 'releases.overrides_through', 'releases.choices_through', 'releases.released_at'])
+          .orderBy('releases.id', 'desc')
+          .limit(1)
+          .as('release'),
+      (join) => join.onTrue(),
+    )
     .select([
-      'releases.id as id',
-      'releases.submission_id as submissionId',
-      'releases.result_id as resultId',
-      'releases.overrides_through as overridesThrough',
-      'releases.choices_through as choicesThrough',
-      'releases.released_at as releasedAt',
+      'asked.id as forSubmissionId',
+      'release.id as id',
+      'release.submission_id as submissionId',
+      'release.version as version',
+      'release.result_id as resultId',
+      'release.overrides_through as overridesThrough',
+      'release.choices_through as choicesThrough',
+      'release.released_at as releasedAt',
     ])
-    .where('releases.id', 'in', (eb) => eb.selectFrom('releases as r').select((e) => e.fn.max('r.id').as('id')).where('r.submission_id', 'in', submissionIds).groupBy('r.submission_id'))
+    .where('asked.id', 'in', submissionIds)
     .execute();
 }
 

@@ -105,13 +105,25 @@ const submissionHeadColumns = [
 
 const submissionColumns = [...submissionHeadColumns, 'submissions.payload as payload'] as const;
 
-export async function getSubmission(db: Kysely<Database>, id: number) {
+/** Submissions by their ids, in no particular order. */
+export async function submissionsByIds(db: Kysely<Database>, ids: number[]) {
+  if (ids.length === 0) return [];
+  return db.selectFrom('submissions').innerJoin('students', 'students.id', 'submissions.student_row_id').select(submissionColumns).where('submissions.id', 'in', ids).execute();
+}
+
+/** A submission's version beside the latest version its student submitted to the same assignment. */
+export async function versionAndLatest(db: Kysely<Database>, id: number) {
   return db
-    .selectFrom('submissions')
-    .innerJoin('students', 'students.id', 'submissions.student_row_id')
-    .select(submissionColumns)
-    .where('submissions.id', '=', id)
+    .selectFrom('submissions as asked')
+    .innerJoin('submissions as other', (join) => join.onRef('other.student_row_id', '=', 'asked.student_row_id').onRef('other.assignment_id', '=', 'asked.assignment_id'))
+    .select((eb) => ['asked.version as version', eb.fn.max('other.version').as('latestVersion')])
+    .where('asked.id', '=', id)
+    .groupBy('asked.version')
     .executeTakeFirst();
+}
+
+export async function getSubmission(db: Kysely<Database>, id: number) {
+  return (await submissionsByIds(db, [id])).at(0);
 }
 
 export type SubmissionRow = NonNullable<Awaited<ReturnType<typeof getSubmission>>>;

@@ -191,6 +191,16 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     expect(view.body.result.signals).toEqual([expect.objectContaining({ code: 'temperature-spread', onSheet: true })]);
     await page.getByRole('button', { name: 'Take it off the sheet' }).click();
     await page.getByText(/: ta-a took it off the sheet$/).waitFor();
+    // S-004 was released (the first test) before this new version: the student still sees that one.
+    const shown = view.body.release as { version: number };
+    expect(shown.version).toBeLessThan(view.body.version);
+    await page.getByText(new RegExp(`^Version ${shown.version} released .*: the student still sees it until this version is released\\.$`)).waitFor();
+    // The released version's page says so and offers no release.
+    const history = (await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/students/S-004/history?assignmentId=${s.assignment.id}`, s.taAToken, undefined, 200)).body as Array<{ submissionId: number; version: number }>;
+    const earlier = history.find((v) => v.version === shown.version)!;
+    await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}/submission/${earlier.submissionId}`);
+    await page.getByText(/^Released /).waitFor();
+    expect(await page.getByRole('button', { name: /^Release/ }).count()).toBe(0);
     await page.close();
   });
 

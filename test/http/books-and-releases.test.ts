@@ -3,6 +3,7 @@ import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { DRAFT_NOTE } from '../../reports/feedback-input.ts';
 import { call, openApi, regradeAndWait, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
+import { unzip } from '../support/zip-entries.ts';
 
 interface Finding { id: string; pointsLost: number; rubricItem?: string; itemKey?: string }
 interface Item { item: string; count: number; each: number }
@@ -190,5 +191,74 @@ describe('books and releases through the API', () => {
     expect(after.result.signals).toEqual([expect.objectContaining({ code: 'temperature-spread', path: 'runs', onSheet: true })]);
     expect(after.release).toMatchObject({ score: before.result.score, changedSinceRelease: false });
     expect((await table()).find((r) => r.studentId === 'S-001')).toMatchObject({ released: true, changedSinceRelease: false });
+  });
+
+  it('a new version after a release shows the student the released version until a TA releases the new one', async () => {
+    // Worked by hand (test/casebook/cases/foc-sucrose-sign-flipped.json and foc-sucrose-origin-clean.json):
+    // sucrose inversion at 35 C, rotation 32.4, 28.8, 25.5, 22.4, 19.6 deg at 0-40 min, r_inf -11.1 deg;
+    // the through-origin ln F fit gives k = 8.698e-3 min^-1, SE 1.39e-5, so 0.008698 +/- 0.000014 is right.
+    const sucrose = (k: string) => ({
+      studentId: 'S-001',
+      runs: [
+        {
+          label: '0.5 M HCl',
+          catalyst: { value: 0.5, unit: 'M' },
+          timeUnit: 'min',
+          readings: [[0, 32.4], [10, 28.8], [20, 25.5], [30, 22.4], [40, 19.6]],
+          infinity: -11.1,
+          reported: { lnF: ['0.00000', '-0.08638', '-0.17271', '-0.26122', '-0.34850'], k: { value: k, uncertainty: '0.000014', unit: 'min^-1' } },
+        },
+      ],
+    });
+    // One run under the default rubric: ln F column 1 + k 2 + its SE 1 = 4 points.
+    const settings = { kind: 'first-order-catalysis', fitModel: 'origin', displayStep: 0.1 };
+    const assignment = (await call(api.app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Sucrose inversion (invented)', settings }, 201)).body;
+    const here = `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}`;
+    const get = (path: string) => api.app.inject({ method: 'GET', url: path, headers: { authorization: `Bearer ${s.taAToken}` } });
+    const row = async (): Promise<Row & { version: number; releasedVersion: number | null }> => (await call(api.app, 'GET', `${here}/results`, s.taAToken, undefined, 200)).body.find((r: Row) => r.studentId === 'S-001');
+    const bookLine = async () => (await get(`${here}/gradebook.csv`)).body.split('\r\n').find((l) => l.startsWith('S-001,'));
+    const sheet = async (id: number, query = '') => folded(await pdfText((await get(`/v1/submissions/${id}/feedback.pdf${query}`)).rawPayload));
+    const zipSheet = async () => folded(await pdfText((await unzip((await get(`${here}/feedback.zip`)).rawPayload)).find((e) => e.name === 'S-001.pdf')!.data));
+
+    // Version 1: the slope reported as k, its sign lost: k's 2 points, 4 - 2 = 2.
+    const v1 = (await call(api.app, 'POST', `${here}/submissions`, s.taAToken, [sucrose('-0.008698')], 201)).body.stored[0].submissionId;
+    const graded1 = (await view(v1)).result as Result;
+    expect(graded1.findings.filter((f) => f.pointsLost > 0).map((f) => [f.id, f.pointsLost])).toEqual([['sign-flipped@runs[0].reported.k', 2]]);
+    expect([graded1.score, graded1.maxScore]).toEqual([2, 4]);
+    expect((await call(api.app, 'POST', `/v1/submissions/${v1}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
+
+    // Version 2: the same work with k's sign right: nothing to charge, 4 of 4.
+    const v2 = (await call(api.app, 'POST', `${here}/submissions`, s.taAToken, [sucrose('0.008698')], 201)).body.stored[0].submissionId;
+    expect((await view(v2)).result).toMatchObject({ score: 4, maxScore: 4 });
+
+    // The student still sees version 1: the gradebook, the sheet and the ZIP; the row says it changed.
+    expect(await row()).toMatchObject({ submissionId: v2, version: 2, score: 4, released: true, releasedScore: 2, releasedVersion: 1, changedSinceRelease: true });
+    expect(await bookLine()).toMatch(/^S-001,2,4,checked,1,\d+,\d+,sign-flipped$/);
+    for (const shown of [await sheet(v2), await zipSheet()]) {
+      expect(shown).toContain('version 1');
+      expect(shown).toContain('2 / 4 points');
+      expect(shown).not.toContain(DRAFT_NOTE);
+    }
+    expect((await view(v2)).release).toMatchObject({ version: 1, score: 2, changedSinceRelease: true });
+    expect((await view(v1)).release).toMatchObject({ version: 1, score: 2, changedSinceRelease: false });
+    // A TA previews version 2, marked as a draft.
+    const preview = await sheet(v2, '?latest=true');
+    expect(preview).toContain('version 2');
+    expect(preview).toContain('4 / 4 points');
+    expect(preview).toContain(DRAFT_NOTE);
+
+    // Releasing version 1 again would hide a newer version's release later: refused, nothing stored.
+    const older = await call(api.app, 'POST', `/v1/submissions/${v1}/release`, s.taAToken, undefined, 409);
+    expect(older.body.error.details).toEqual([{ path: 'params.submissionId', message: 'version 1 of 2' }]);
+    expect(await row()).toMatchObject({ releasedScore: 2, changedSinceRelease: true });
+
+    // The section release covers the new version; the student then sees 4 of 4.
+    expect((await call(api.app, 'POST', `${here}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
+    expect(await row()).toMatchObject({ submissionId: v2, score: 4, released: true, releasedScore: 4, releasedVersion: 2, changedSinceRelease: false });
+    expect(await bookLine()).toMatch(/^S-001,4,4,checked,0,\d+,\d+,$/);
+    const now = await sheet(v2);
+    expect(now).toContain('version 2');
+    expect(now).toContain('4 / 4 points');
+    expect((await call(api.app, 'POST', `${here}/release`, s.taAToken, undefined, 200)).body.released).toBe(0);
   });
 });

@@ -190,7 +190,7 @@ export async function sectionView(place, failure) {
           h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
           h('td', {}, r.version ?? '–'),
           h('td', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
-          h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}`) : null),
+          h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}${r.releasedVersion === r.version ? '' : ` (version ${r.releasedVersion})`}`) : null),
           h('td', { class: 'number' }, r.errors),
           h('td', { class: 'number' }, r.warnings),
           h('td', {}, r.codes.join(', ')),

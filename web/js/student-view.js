@@ -156,15 +156,25 @@ export async function studentView(place, submissionId, failure) {
         failure,
       });
     const release = view.release;
+    // Only the latest version can be released: a student sees their latest release of any version.
+    const latestVersion = Math.max(...history.map((v) => v.version));
+    const releaseButton = (label) =>
+      view.version < latestVersion ? h('p', {}, `Version ${latestVersion} is the latest; only it can be released.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, label);
     releaseArea.append(
       ...(release && !release.changedSinceRelease
         ? [h('p', {}, `Released ${when(release.at)}.`)]
         : release
           ? [
-              h('p', { class: 'changed-note' }, `Released ${when(release.at)} with a score of ${num(release.score)}; changed since (a regrade or an override): the student still sees the released result.`),
-              h('button', { type: 'button', class: 'primary', onclick: askRelease }, 'Release the new result…'),
+              h(
+                'p',
+                { class: 'changed-note' },
+                release.version === view.version
+                  ? `Released ${when(release.at)} with a score of ${num(release.score)}; changed since (a regrade or an override): the student still sees the released result.`
+                  : `Version ${release.version} released ${when(release.at)} with a score of ${num(release.score)}: the student still sees it until this version is released.`,
+              ),
+              releaseButton('Release the new result…'),
             ]
-          : [h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, 'Release this result…')]),
+          : [releaseButton('Release this result…')]),
     );
     fill(root,
       h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', h('a', { href: base }, `Section ${place.section.name} · ${place.assignment.title}`)),
