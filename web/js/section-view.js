@@ -29,6 +29,11 @@ const COLUMNS = [
   ['released', 'Released'],
 ];
 
+const COLUMN_LABELS = Object.fromEntries(COLUMNS);
+
+/** A cell that carries its column's name, which the narrow layout shows beside the value. */
+const cell = (key, props, ...children) => h('td', { ...props, 'data-label': COLUMN_LABELS[key] }, ...children);
+
 const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted': 'not submitted', withdrawn: 'withdrawn' };
 
 const RELATION_WORDS = { identical: 'the same readings', offset: 'the same readings shifted by a constant', scaled: 'the same readings rescaled', edited: 'the same readings with a few cells changed' };
@@ -188,13 +193,13 @@ export async function sectionView(place, failure) {
           'tr',
           { class: r.submissionId === null ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
           h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
-          h('td', {}, r.version ?? '–'),
-          h('td', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
-          h('td', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}${r.releasedVersion === r.version ? '' : ` (version ${r.releasedVersion})`}`) : null),
-          h('td', { class: 'number' }, r.errors),
-          h('td', { class: 'number' }, r.warnings),
-          h('td', {}, r.codes.join(', ')),
-          h('td', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : 'no'),
+          cell('version', {}, r.version ?? '–'),
+          cell('status', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
+          cell('score', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}${r.releasedVersion === r.version ? '' : ` (version ${r.releasedVersion})`}`) : null),
+          cell('errors', { class: 'number' }, r.errors),
+          cell('warnings', { class: 'number' }, r.warnings),
+          cell('codes', {}, r.codes.join(', ')),
+          cell('released', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : 'no'),
         ),
       ),
     );
