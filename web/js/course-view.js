@@ -63,7 +63,7 @@ function newAssignment(course, failure, reload) {
 const ENROLMENT = [['enrolled', 'enrolled'], ['withdrawn', 'withdrawn'], ['removed', 'removed (kept in history)']];
 
 function rosterPanel(section, roster, failure) {
-  const list = h('table', { class: 'roster' });
+  const list = h('table', { class: 'roster cards' });
   const heading = h('h3', {});
   const draw = (rows) => {
     heading.textContent = `Section ${section.name}: ${rows.length} student${rows.length === 1 ? '' : 's'}`;
@@ -137,8 +137,8 @@ function staffPanel(course, staff, failure) {
           {},
           h('th', { scope: 'row' }, m.handle),
           h('td', {}, m.role === 'ta' ? 'teaching assistant' : 'instructor'),
-          h('td', {}, m.sectionIds.map((id) => sectionName.get(id) ?? id).join(', ')),
-          h('td', { class: 'number' }, m.liveTokens),
+          h('td', { 'data-label': 'Sections' }, m.sectionIds.map((id) => sectionName.get(id) ?? id).join(', ')),
+          h('td', { class: 'number', 'data-label': 'Live tokens' }, m.liveTokens),
           h(
             'td',
             {},
@@ -198,7 +198,7 @@ function staffPanel(course, staff, failure) {
   return h(
     'div',
     { class: 'panel' },
-    h('table', {}, h('caption', {}, 'Staff of the course'), h('thead', {}, h('tr', {}, ['Handle', 'Role', 'Sections', 'Live tokens', ''].map((t) => h('th', { scope: 'col' }, t)))), rows),
+    h('table', { class: 'staff cards' }, h('caption', {}, 'Staff of the course'), h('thead', {}, h('tr', {}, ['Handle', 'Role', 'Sections', 'Live tokens', ''].map((t) => h('th', { scope: 'col' }, t)))), rows),
     shown,
     h('form', { class: 'staff-add', onsubmit: addTa }, h('h3', {}, 'Add a teaching assistant'), h('label', { for: handleId }, 'Handle (letters, digits, dot, underscore or hyphen)'), handle, h('fieldset', {}, h('legend', {}, 'Sections they teach'), boxes), h('button', { type: 'submit' }, 'Add'), message),
   );

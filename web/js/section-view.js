@@ -245,6 +245,6 @@ export async function sectionView(place, failure) {
       search,
     ),
     shown,
-    h('div', { class: 'table-wrap' }, h('table', { class: 'results' }, h('caption', {}, 'Latest result of each student'), h('thead', {}, headRow), body)),
+    h('div', { class: 'table-wrap' }, h('table', { class: 'results cards' }, h('caption', {}, 'Latest result of each student'), h('thead', {}, headRow), body)),
   );
 }
