@@ -119,6 +119,14 @@ describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', ()
         return missed;
       }, scoreColumn);
       expect(unseen).toEqual([]);
+      // Shown as cards, the results are still a table to a screen reader: Chromium's own accessibility
+      // tree names each student as a row header (display changes once dropped table semantics in
+      // some browsers, common practice, no source).
+      const cdp = await context.newCDPSession(page);
+      const { nodes } = (await cdp.send('Accessibility.getFullAXTree')) as { nodes: Array<{ ignored: boolean; role?: { value: string }; name?: { value: string } }> };
+      const rowHeaders = nodes.filter((n) => !n.ignored && n.role?.value === 'rowheader').map((n) => n.name?.value);
+      expect(rowHeaders).toEqual(expect.arrayContaining(['S-001', 'S-002', 'S-003', 'S-004', 'S-005', 'S-006']));
+      await cdp.detach();
 
       await page.goto(`${origin}/${studentPath}`);
       await page.locator('li.finding').first().waitFor();
