@@ -8,7 +8,7 @@ import { launchChromium } from '../support/chromium.ts';
 
 /**
  * `npm run screenshots`: the README's pictures of the workspace, taken from the demo data (an
- * invented section) at 1280 px wide, into docs/.
+ * invented section) at 1280 px wide, and the results at 390 px (a phone), into docs/.
  */
 const out = await mkdtemp(join(tmpdir(), 'rateproof-shots-'));
 let token = '';
@@ -37,7 +37,12 @@ try {
   await page.getByRole('button', { name: 'Show it on the sheet' }).click();
   await page.getByText(/put it on the sheet$/).waitFor();
   await page.locator('section.signals').screenshot({ path: 'docs/workspace-signal.png' });
-  process.stdout.write('wrote docs/workspace-section.png, docs/workspace-student.png and docs/workspace-signal.png\n');
+  // The same results on a phone held upright: one card per student.
+  await page.setViewportSize({ width: 390, height: 844 });
+  await page.goBack();
+  await page.locator('table.results tbody tr').first().scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'docs/workspace-phone.png' });
+  process.stdout.write('wrote docs/workspace-section.png, docs/workspace-student.png, docs/workspace-signal.png and docs/workspace-phone.png\n');
 } finally {
   await browser.close();
   await app.close();
