@@ -302,7 +302,8 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
       run.readings = run.readings.map(([t, x]: [number, number]) => [t * 60, x]);
     }
     // One run's k made 1.5 times too large: a finding, and a dashed line 1.5 times as steep.
-    submission.runs[1].reported.k.value = String(Number(submission.runs[1].reported.k.value) * 1.5);
+    const slippedK = submission.runs[1].reported!.k!;
+    slippedK.value = String(Number(slippedK.value) * 1.5);
     const stored = await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`, s.taAToken, [submission], 201);
     const page = await browser.newPage();
     await signIn(page, s.taAToken);
