@@ -56,7 +56,7 @@ function frame(title, xLabel, yLabel, xs, ys, legendItems) {
   svg.append(s('clipPath', { id: clip }, s('rect', { x: PAD.left, y: PAD.top, width: W - PAD.left - PAD.right, height: PLOT_H - PAD.top - PAD.bottom })));
   const line = (l, cls, colour, dashed) =>
     s('line', { class: cls, x1: X(x0), y1: Y(l.intercept + l.slope * x0), x2: X(x1), y2: Y(l.intercept + l.slope * x1), stroke: colour, 'stroke-width': 1.5, 'stroke-dasharray': dashed ? DASH : undefined, 'clip-path': `url(#${clip})` });
-  return { svg, X, Y, line };
+  return { svg, X, Y, line, inside: (x, y) => x >= x0 && x <= x1 && y >= y0 && y <= y1 };
 }
 
 const KEY = (colour) => [
@@ -82,24 +82,25 @@ export function lnFPlot(runs, timeUnit) {
 /** series: plot-series.js's rateLawPlotSeries. */
 export function ratePlot(series) {
   const [ourColour, theirColour] = [MARKS[0], MARKS[1]];
+  // The student's values widen the axis only while near ours, so that a k off by a factor of 60 does not
+  // flatten the rest; the legend counts those beyond, and the table above gives them.
+  const ourKs = series.ours.map((p) => p.k);
+  const [lo, hi] = [Math.min(...ourKs, 0), Math.max(...ourKs)];
+  const near = (k) => k > lo - (hi - lo) && k < hi + (hi - lo);
+  const beyond = series.theirs.filter((p) => !near(p.k)).length;
   const items = [
     { label: 'refit k_obs', colour: ourColour, mark: 'dot' },
     { label: 'refit k_N + k_A c', colour: ourColour, mark: 'line' },
-    ...(series.theirs.length ? [{ label: 'student’s k_obs', colour: theirColour, mark: 'dot' }] : []),
+    ...(series.theirs.length ? [{ label: beyond ? `student’s k_obs (${beyond} off the plot)` : 'student’s k_obs', colour: theirColour, mark: 'dot' }] : []),
     ...(series.theirLine ? [{ label: 'student’s k_N + k_A c', colour: theirColour, mark: 'dash' }] : []),
   ];
-  // The student's values widen the axis only while near ours, so that a k off by a factor of 60 does not
-  // flatten the rest (those points fall outside, and are named in the table above).
-  const ourKs = series.ours.map((p) => p.k);
-  const [lo, hi] = [Math.min(...ourKs, 0), Math.max(...ourKs)];
-  const ks = [...ourKs, ...series.theirs.map((p) => p.k).filter((k) => k > lo - (hi - lo) && k < hi + (hi - lo))];
-  const { svg, X, Y, line } = frame('k_obs against the catalyst concentration', '[catalyst] / M', `k_obs / ${series.kUnit}`, series.ours.map((p) => p.c), [...ks, series.ourLine?.intercept ?? 0], items);
+  const { svg, X, Y, line, inside } = frame('k_obs against the catalyst concentration', '[catalyst] / M', `k_obs / ${series.kUnit}`, series.ours.map((p) => p.c), [...ourKs, ...series.theirs.map((p) => p.k).filter(near), series.ourLine?.intercept ?? 0], items);
   const g = s('g', { fill: ourColour });
   series.ours.forEach((p) => g.append(s('circle', { cx: X(p.c), cy: Y(p.k), r: 4 }, s('title', {}, `${p.label}: ${num(p.k)}`))));
   if (series.ourLine) g.append(line(series.ourLine, 'refit', ourColour, false));
-  const t = s('g', { fill: 'none', stroke: theirColour });
+  const t = s('g', { class: 'student', fill: theirColour });
   // The student's points a little to the right, so that one on ours stays visible.
-  series.theirs.forEach((p) => t.append(s('rect', { x: X(p.c) + 2, y: Y(p.k) - 3.5, width: 7, height: 7 }, s('title', {}, `${p.label}, student: ${num(p.k)}`))));
+  series.theirs.filter((p) => inside(p.c, p.k)).forEach((p) => t.append(s('circle', { cx: X(p.c) + 6, cy: Y(p.k), r: 3.5 }, s('title', {}, `${p.label}, student: ${num(p.k)}`))));
   if (series.theirLine) t.append(line(series.theirLine, 'student', theirColour, true));
   svg.append(g, t);
   return svg;
