@@ -82,7 +82,7 @@ export function drawRunPlots(doc: Doc, series: Array<RunSeries | undefined>): vo
     ...(anyStudent ? [{ kind: 'marker', shape: 'disc', color: COLOR.ink, label: 'your ln F column' } as const] : []),
     ...(anyOurs ? [{ kind: 'marker', shape: 'ring', color: COLOR.ink, label: 'ln F from your readings (no column given)' } as const] : []),
     { kind: 'line', style: OUR_LINE, label: 'refit line' },
-    { kind: 'line', style: THEIR_LINE, label: 'line with your k_{obs} (where it differs)' },
+    { kind: 'line', style: THEIR_LINE, label: 'line with your k_{obs} (runs with a finding)' },
     ...(drawable.some((s) => s.suspect.length > 0) ? [{ kind: 'marker', shape: 'diamond', color: COLOR.student, label: 'suspect reading' } as const] : []),
   ];
   moveTo(doc, doc.y + legend(doc, items, contentLeft(doc), doc.y, contentWidth(doc)) + 4);
