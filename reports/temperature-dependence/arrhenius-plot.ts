@@ -3,7 +3,7 @@ import { formatNumber } from '../format.ts';
 import { contentLeft, contentWidth, moveTo, sectionHeading, type Doc } from '../pdf/document.ts';
 import { legend, marker } from '../pdf/marks.ts';
 import { Plot, type Box } from '../pdf/plot.ts';
-import { drawRich } from '../pdf/rich-text.ts';
+import { drawRich, richWidth } from '../pdf/rich-text.ts';
 import { niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 import { OUR_LINE, THEIR_LINE } from '../feedback/run-plots.ts';
@@ -27,7 +27,7 @@ function crosses(plot: Plot, line: Line): boolean {
  * it, the two lines' values or why the student's is missing. The student's line widens the y range only
  * while near the data, so that a slip of a factor of 1000 does not flatten the points to a stripe.
  */
-function drawActivationPlot(doc: Doc, series: ActivationSeries, box: Box, title: string, yLabel: string, values: { ours: string; theirs?: string }): void {
+function drawActivationPlot(doc: Doc, series: ActivationSeries, box: Box, title: string, yLabel: string, describeLine: (line: Line) => string): void {
   const xs = series.points.map((p) => p.x);
   const [xMin, xMax] = [Math.min(...xs), Math.max(...xs)];
   const ys = [...series.points.map((p) => p.y), at(series.ourLine, xMin), at(series.ourLine, xMax)];
@@ -39,8 +39,14 @@ function drawActivationPlot(doc: Doc, series: ActivationSeries, box: Box, title:
   plot.line(series.ourLine.intercept, series.ourLine.slope, OUR_LINE);
   if (series.theirLine) plot.line(series.theirLine.intercept, series.theirLine.slope, THEIR_LINE);
   series.points.forEach((p) => marker(doc, 'disc', plot.sx(p.x), plot.sy(p.y), 4.5, COLOR.accent));
-  const lines = [values.ours, series.theirLine ? `${values.theirs}${crosses(plot, series.theirLine) ? '' : ': beyond the plotted range'}` : series.note].filter((l): l is string => l !== undefined);
-  lines.forEach((line, i) => drawRich(doc, line, plot.area.x, box.y + box.height + 1 + i * 10, { size: SIZE.tiny, color: COLOR.muted }));
+  const theirs = series.theirLine && `yours (dashed${crosses(plot, series.theirLine) ? '' : ', beyond the plot'}): ${describeLine(series.theirLine)}`;
+  const lines = [`refit: ${describeLine(series.ourLine)}`, theirs ?? series.note].filter((l): l is string => l !== undefined);
+  // Each line within the plot's width, made smaller where it would run on.
+  const room = box.x + box.width - plot.area.x;
+  lines.forEach((line, i) => {
+    const size = Math.min(SIZE.tiny, SIZE.tiny * (room / richWidth(doc, line, SIZE.tiny)));
+    drawRich(doc, line, plot.area.x, box.y + box.height + 1 + i * 10, { size, color: COLOR.muted });
+  });
 }
 
 /** The Arrhenius and Eyring plots side by side, each with our line and the student's. */
@@ -64,18 +70,11 @@ export function drawArrheniusPlot(doc: Doc, refit: Refit, reported: Submission['
   const plotTop = top + height + 4;
   const width = (contentWidth(doc) - GAP) / 2;
   const box = (i: number): Box => ({ x: contentLeft(doc) + i * (width + GAP), y: plotTop, width, height: HEIGHT });
-  const number = (v: number) => formatNumber(v);
   if (arrhenius) {
-    drawActivationPlot(doc, arrhenius, box(0), 'Arrhenius: ln k against 1/T', 'ln(k / s^{−1})', {
-      ours: `refit: slope ${number(arrhenius.ourLine.slope)}, ln(A / s^{−1}) = ${number(arrhenius.ourLine.intercept)}`,
-      theirs: arrhenius.theirLine && `yours (dashed): slope ${number(arrhenius.theirLine.slope)}, ln(A / s^{−1}) = ${number(arrhenius.theirLine.intercept)}`,
-    });
+    drawActivationPlot(doc, arrhenius, box(0), 'Arrhenius: ln k against 1/T', 'ln(k / s^{−1})', (line) => `slope ${formatNumber(line.slope)}, ln(A / s^{−1}) = ${formatNumber(line.intercept)}`);
   }
   if (eyring) {
-    drawActivationPlot(doc, eyring, box(arrhenius ? 1 : 0), 'Eyring: ln(k/T) against 1/T', 'ln[(k/T) / (s^{−1} K^{−1})]', {
-      ours: `refit: slope ${number(eyring.ourLine.slope)}, intercept ${number(eyring.ourLine.intercept)}`,
-      theirs: eyring.theirLine && `yours (dashed): slope ${number(eyring.theirLine.slope)}, intercept ${number(eyring.theirLine.intercept)}`,
-    });
+    drawActivationPlot(doc, eyring, box(arrhenius ? 1 : 0), 'Eyring: ln(k/T) against 1/T', 'ln[(k/T) / (s^{−1} K^{−1})]', (line) => `slope ${formatNumber(line.slope)}, intercept ${formatNumber(line.intercept)}`);
   }
   moveTo(doc, plotTop + HEIGHT + NOTE_HEIGHT);
 }
