@@ -56,7 +56,7 @@ function drawRunPlot(doc: Doc, series: RunSeries, box: Box): void {
   // Two short lines under the plot, each within its width: our k, then the student's (or why not drawn).
   const lines = [
     `refit k_{obs} = ${formatNumber(series.ourK)} ${perRun}`,
-    series.theirK !== undefined ? `your k_{obs} = ${formatNumber(series.theirK)} ${perRun} (dashed line)` : series.note,
+    series.theirK !== undefined ? `your k_{obs} = ${formatNumber(series.theirK)} ${perRun} (dashed line${series.theirLine && !plot.crosses(series.theirLine.intercept, series.theirLine.slope) ? ', beyond the plot' : ''})` : series.note,
   ].filter((line): line is string => line !== undefined);
   const room = box.x + box.width - plot.area.x;
   lines.forEach((line, i) => {

@@ -16,12 +16,6 @@ const NOTE_HEIGHT = 30;
 
 const at = (line: Line, x: number) => line.intercept + line.slope * x;
 
-/** Whether the line passes through the data area at all (a slip of 1000 in E_a takes it far off). */
-function crosses(plot: Plot, line: Line): boolean {
-  const ends = [at(line, plot.xAxis.min), at(line, plot.xAxis.max)];
-  return Math.max(...ends) >= plot.yAxis.min && Math.min(...ends) <= plot.yAxis.max;
-}
-
 /**
  * One plot of a series against 1000 K / T: the points, our line, the student's line (dashed) and, under
  * it, the two lines' values or why the student's is missing. The student's line widens the y range only
@@ -39,7 +33,7 @@ function drawActivationPlot(doc: Doc, series: ActivationSeries, box: Box, title:
   plot.line(series.ourLine.intercept, series.ourLine.slope, OUR_LINE);
   if (series.theirLine) plot.line(series.theirLine.intercept, series.theirLine.slope, THEIR_LINE);
   series.points.forEach((p) => marker(doc, 'disc', plot.sx(p.x), plot.sy(p.y), 4.5, COLOR.accent));
-  const theirs = series.theirLine && `yours (dashed${crosses(plot, series.theirLine) ? '' : ', beyond the plot'}): ${describeLine(series.theirLine)}`;
+  const theirs = series.theirLine && `yours (dashed${plot.crosses(series.theirLine.intercept, series.theirLine.slope) ? '' : ', beyond the plot'}): ${describeLine(series.theirLine)}`;
   const lines = [`refit: ${describeLine(series.ourLine)}`, theirs ?? series.note].filter((l): l is string => l !== undefined);
   // Each line within the plot's width, made smaller where it would run on.
   const room = box.x + box.width - plot.area.x;

@@ -15,7 +15,7 @@ describe('the student’s line on the sheet’s run plots', () => {
     for (const student of s.students) {
       const runsWithFinding = student.submission.runs.filter((_, i) => student.result.findings.some((f) => f.path.startsWith(`runs[${i}]`))).length;
       const flat = folded(await pdfText(await renderFeedbackSheet(feedbackInput(s.settings, student))));
-      const drawn = flat.split('(dashed line)').length - 1;
+      const drawn = flat.split('(dashed line').length - 1;
       total += drawn;
       // A run without a finding may still show a dashed line if its k differs beyond the tolerance
       // without being charged, which none of these slips makes.
