@@ -50,7 +50,7 @@ function plots(payload, refit, settings, findings) {
         'figure',
         { class: 'plots' },
         out,
-        h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, solid lines the refit k_obs, dashed lines the student’s k_obs (for a run with a finding, or where theirs differs); on the right, k_obs of each run against its catalyst concentration, with the refit line k_N + k_A [catalyst] and the student’s.'),
+        h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, solid lines the refit k_obs, dashed lines the student’s k_obs (for a run with a finding, or where theirs differs); in the second plot, k_obs of each run against its catalyst concentration, with the refit line k_N + k_A [catalyst] and the student’s.'),
         notes.length ? h('ul', { class: 'hint' }, notes.map((n) => h('li', {}, n))) : null,
       )
     : h('p', { class: 'hint' }, refit ? 'The plots of this kind of experiment are on the feedback sheet.' : 'No refit to plot.');
