@@ -56,7 +56,7 @@ function drawRunPlot(doc: Doc, series: RunSeries, box: Box): void {
   // Two short lines under the plot, each within its width: our k, then the student's (or why not drawn).
   const lines = [
     `refit k_{obs} = ${formatNumber(series.ourK)} ${perRun}`,
-    series.theirK !== undefined ? `your k_{obs} = ${formatNumber(series.theirK)} ${perRun} (dashed line)` : series.note,
+    series.theirK !== undefined ? `your k_{obs} = ${formatNumber(series.theirK)} ${perRun} (dashed line${series.theirLine && !plot.crosses(series.theirLine.intercept, series.theirLine.slope) ? ', beyond the plot' : ''})` : series.note,
   ].filter((line): line is string => line !== undefined);
   const room = box.x + box.width - plot.area.x;
   lines.forEach((line, i) => {
@@ -82,7 +82,7 @@ export function drawRunPlots(doc: Doc, series: Array<RunSeries | undefined>): vo
     ...(anyStudent ? [{ kind: 'marker', shape: 'disc', color: COLOR.ink, label: 'your ln F column' } as const] : []),
     ...(anyOurs ? [{ kind: 'marker', shape: 'ring', color: COLOR.ink, label: 'ln F from your readings (no column given)' } as const] : []),
     { kind: 'line', style: OUR_LINE, label: 'refit line' },
-    { kind: 'line', style: THEIR_LINE, label: 'line with your k_{obs} (where it differs)' },
+    { kind: 'line', style: THEIR_LINE, label: 'line with your k_{obs} (runs with a finding)' },
     ...(drawable.some((s) => s.suspect.length > 0) ? [{ kind: 'marker', shape: 'diamond', color: COLOR.student, label: 'suspect reading' } as const] : []),
   ];
   moveTo(doc, doc.y + legend(doc, items, contentLeft(doc), doc.y, contentWidth(doc)) + 4);

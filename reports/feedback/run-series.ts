@@ -4,8 +4,8 @@ import { convertUnit } from '../units.ts';
 
 /**
  * What the ln F plot of one run shows: the student's points (their ln F column where given, else ours),
- * our fitted line, and the student's line where their k differs from ours beyond the tolerance
- * (slope −k in the run's time unit). Times are counted from the first reading, as in the refit.
+ * our fitted line, and the student's line (slope −k in the run's time unit) where the run has a finding
+ * or their k differs from ours beyond the tolerance. Times are counted from the first reading, as in the refit.
  */
 export interface Line {
   intercept: number;
@@ -99,7 +99,8 @@ export function runSeries(settings: Settings, run: SubmittedRun, refitRun: RunRe
   if (theirK === undefined || theirInInstructor === undefined) {
     return { ...series, note: `your k is not drawn: its unit “${reported.unit}” could not be read` };
   }
-  if (withinTolerance(settings, theirInInstructor, instructor.value)) return series;
+  const hasFinding = findings.some((f) => f.path.startsWith(`runs[${index}]`));
+  if (!hasFinding && withinTolerance(settings, theirInInstructor, instructor.value)) return series;
   const intercept = settings.fitModel === 'intercept' && studentPoints ? centredIntercept(theirs, -theirK) : 0;
   return { ...series, theirK, theirLine: { slope: -theirK, intercept } };
 }

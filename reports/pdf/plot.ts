@@ -58,6 +58,12 @@ export class Plot {
     return x >= this.xAxis.min && x <= this.xAxis.max && y >= this.yAxis.min && y <= this.yAxis.max;
   }
 
+  /** Whether the line y = intercept + slope x passes through the data area at all. */
+  crosses(intercept: number, slope: number): boolean {
+    const ends = [intercept + slope * this.xAxis.min, intercept + slope * this.xAxis.max];
+    return Math.max(...ends) >= this.yAxis.min && Math.min(...ends) <= this.yAxis.max;
+  }
+
   /** Frame, grid, ticks, tick labels, axis labels and title. */
   drawFrame(): void {
     const { doc, area } = this;

@@ -59,7 +59,7 @@ export const temperatureDependenceReport: KindReport = {
       ];
     });
     drawTable(doc, [{ header: 'Quantity', weight: 0.8 }, { header: 'Reported', weight: 2 }, { header: 'Refit', weight: 2 }, { header: 'Tolerance', weight: 1.2 }], rows, { zebra: true, keepRows: rows.length });
-    drawArrheniusPlot(doc, refit);
+    drawArrheniusPlot(doc, refit, submission.reported);
   },
   summaryFacts: (settings) => [['Fit', (settings as Settings).fit === 'weighted' ? 'weighted by SE(ln k)' : 'ordinary least squares']],
   drawSummaryData: drawClassActivation,

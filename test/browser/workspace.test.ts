@@ -294,4 +294,49 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     expect((await page.request.get(`${origin}/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/results`)).status()).toBe(404);
     await page.close();
   });
+  it('draws the refit line of a run timed in seconds through its points, and the student’s line beside it', async () => {
+    const [submission] = generateSection(seededRandom(21), generateAssignment(seededRandom(21), { fitModel: 'origin' }), ['S-006']).submissions;
+    // The same readings timed in seconds; k stays reported per minute, the instructor's unit.
+    for (const run of submission.runs) {
+      run.timeUnit = 's';
+      run.readings = run.readings.map(([t, x]: [number, number]) => [t * 60, x]);
+    }
+    // One run's k made 1.5 times too large: a finding, and a dashed line 1.5 times as steep.
+    const slippedK = submission.runs[1].reported!.k!;
+    slippedK.value = String(Number(slippedK.value) * 1.5);
+    const stored = await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`, s.taAToken, [submission], 201);
+    const page = await browser.newPage();
+    await signIn(page, s.taAToken);
+    await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}/submission/${stored.body.stored[0].submissionId}`);
+    await page.locator('svg.plot g.run').first().waitFor();
+    expect(await page.locator('svg.plot .axes text.label').first().textContent()).toBe('t / s');
+    const runs = await page.locator('svg.plot g.run').evaluateAll((groups) =>
+      groups.map((g) => {
+        const line = (cls: string) => {
+          const l = g.querySelector(`line.${cls}`);
+          return l && ['x1', 'y1', 'x2', 'y2'].map((a) => Number(l.getAttribute(a)));
+        };
+        return { label: g.getAttribute('data-run'), points: [...g.querySelectorAll('circle')].map((c) => [Number(c.getAttribute('cx')), Number(c.getAttribute('cy'))]), refit: line('refit'), student: line('student') };
+      }),
+    );
+    expect(runs).toHaveLength(submission.runs.length);
+    // Each point within 4 px (of a 236 px high data area) of the refit line, read from the SVG itself:
+    // the line at the point's x, by linear interpolation between the line's ends.
+    const yAt = ([x1, y1, x2, y2]: number[], x: number) => y1 + ((y2 - y1) * (x - x1)) / (x2 - x1);
+    for (const run of runs) {
+      expect(run.points.length).toBeGreaterThan(3);
+      for (const [x, y] of run.points) expect(Math.abs(yAt(run.refit!, x) - y), `run ${run.label} at x = ${x}`).toBeLessThan(4);
+    }
+    // The run with the slip has the student's line, 1.5 times as steep as ours (both through the origin).
+    const slipped = runs[1];
+    const steepness = ([x1, y1, x2, y2]: number[]) => (y2 - y1) / (x2 - x1);
+    expect(steepness(slipped.student!) / steepness(slipped.refit!)).toBeCloseTo(1.5, 2);
+    // The legend lies below the data area, never over the points.
+    const [legendTop, areaBottom] = await page.locator('svg.plot').first().evaluate((svg) => [
+      Math.min(...[...svg.querySelectorAll('.legend text')].map((t) => (t as SVGGraphicsElement).getBBox().y)),
+      Math.max(...[...svg.querySelectorAll('clipPath rect')].map((r) => Number(r.getAttribute('y')) + Number(r.getAttribute('height')))),
+    ]);
+    expect(legendTop).toBeGreaterThan(areaBottom);
+    await page.close();
+  });
 });

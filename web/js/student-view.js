@@ -2,9 +2,7 @@ import { api } from './api.js';
 import { fill, h, marked, num, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { lnFPlot, ratePlot } from './plots.js';
-
-// Molar factors for the plot's concentration axis; other units leave the plot out rather than guess.
-const TO_MOLAR = { M: 1, N: 1, mM: 1e-3, mN: 1e-3, uM: 1e-6, 'µM': 1e-6 };
+import { rateLawPlotSeries, runPlotSeries } from './plot-series.js';
 
 function tolerance(tol, unit) {
   if (!tol) return '–';
@@ -39,25 +37,22 @@ function comparisonTable(payload, refit, settings) {
   );
 }
 
-function plots(payload, refit, settings) {
-  const runs = (payload.runs ?? []).map((run, i) => {
-    const fit = refit?.runs?.[i];
-    const t = run.readings.map((r) => Number(r[0]) - Number(run.readings[0][0]));
-    const lnF = fit?.lnF ?? [];
-    const k = fit?.k?.declared?.value ?? fit?.k?.instructor?.value;
-    // The intercept of the least-squares line with slope -k (0 for the origin model).
-    const pts = t.map((x, j) => [x, lnF[j]]).filter(([, y]) => Number.isFinite(y));
-    const intercept = fit?.model === 'intercept' && pts.length ? pts.reduce((a, [x, y]) => a + y + k * x, 0) / pts.length : 0;
-    return { label: run.label, t, lnF, k, intercept, timeUnit: run.timeUnit };
-  });
+function plots(payload, refit, settings, findings) {
+  const runs = (payload.runs ?? []).map((run, i) => runPlotSeries(run, refit?.runs?.[i], settings, findings, i)).filter((r) => r && r.points.length > 0);
   const out = [];
-  const withLnF = runs.filter((r) => r.lnF.length > 0);
   // One time unit on one axis: runs in another unit are left out of the plot, never rescaled silently.
-  if (withLnF.length) out.push(lnFPlot(withLnF.filter((r) => r.timeUnit === withLnF[0].timeUnit), withLnF[0].timeUnit));
-  const points = (payload.runs ?? []).map((run, i) => ({ label: run.label, c: Number(run.catalyst.value) * (TO_MOLAR[run.catalyst.unit.trim()] ?? NaN), k: refit?.runs?.[i]?.k?.instructor?.value }));
-  if (refit?.kN && refit?.kA && points.every((p) => Number.isFinite(p.c) && Number.isFinite(p.k))) out.push(ratePlot(points, refit.kN.value, refit.kA.value, settings?.units?.k ?? ''));
+  if (runs.length) out.push(lnFPlot(runs.filter((r) => r.timeUnit === runs[0].timeUnit), runs[0].timeUnit));
+  const law = refit?.kN && refit?.kA ? rateLawPlotSeries(payload, refit, settings) : undefined;
+  if (law) out.push(ratePlot(law));
+  const notes = [...runs.flatMap((r) => r.notes.map((n) => `Run ${r.label}: ${n}.`)), ...(law?.notes ?? []).map((n) => `Rate law: ${n}.`)];
   return out.length
-    ? h('figure', { class: 'plots' }, out, h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, lines the fitted k_obs; on the right, k_obs of each run against its catalyst concentration and the line k_N + k_A [catalyst].'))
+    ? h(
+        'figure',
+        { class: 'plots' },
+        out,
+        h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, solid lines the refit k_obs, dashed lines the student’s k_obs (for a run with a finding, or where theirs differs); in the second plot, k_obs of each run against its catalyst concentration, with the refit line k_N + k_A [catalyst] and the student’s.'),
+        notes.length ? h('ul', { class: 'hint' }, notes.map((n) => h('li', {}, n))) : null,
+      )
     : h('p', { class: 'hint' }, refit ? 'The plots of this kind of experiment are on the feedback sheet.' : 'No refit to plot.');
 }
 
@@ -198,7 +193,7 @@ export async function studentView(place, submissionId, failure) {
             h('ul', {}, result.signals.map(signalItem)),
           )
         : null,
-      h('section', {}, h('h2', {}, 'Reported and refitted'), comparisonTable(view.payload ?? {}, result?.refit, assignment.settings), plots(view.payload ?? {}, result?.refit, assignment.settings)),
+      h('section', {}, h('h2', {}, 'Reported and refitted'), comparisonTable(view.payload ?? {}, result?.refit, assignment.settings), plots(view.payload ?? {}, result?.refit, assignment.settings, findings)),
     );
   }
   draw();
