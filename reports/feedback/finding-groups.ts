@@ -1,8 +1,8 @@
 import type { Finding } from '../../schemas/result.ts';
 
 /**
- * The findings as a student reads them: one card per likely cause (the same code and causes in one
- * stage, wherever it recurs), and the values that only follow from the student's own earlier numbers
+ * The findings as a student reads them: one card per likely cause (the same code and causes, wherever
+ * it recurs, even in a later stage: the card stands under the stage where the cause first shows), and the values that only follow from the student's own earlier numbers
  * at no cost apart. A code that names no cause (`unexplained`, `implausible`, a refit note) stays one card per place.
  */
 export interface FindingCard {

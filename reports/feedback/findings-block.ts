@@ -29,8 +29,11 @@ function pointsText(points: number): string {
 // A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.kN`.
 const PATH = /\b(?:(?:runs|points)\[\d+\](?:\.[A-Za-z]+(?:\[\d+\])*)*|reported\.[A-Za-z]+(?:\.[A-Za-z]+)*)/g;
 
-/** A place in words for running text (which has no sub/superscripts): `k_{obs}` reads `k_obs`, as the messages write it. */
-const placeInProse = (describe: DescribePath, path: string) => describe(path).replace(/([_^])\{([^}]*)\}/g, '$1$2');
+/** A place in words for running text (which has no sub/superscripts): `k_{obs}` reads `k_obs`, as the messages write it; `ΔH^{‡}` reads `ΔH‡`. */
+const placeInProse = (describe: DescribePath, path: string) =>
+  describe(path)
+    .replace(/\^\{([^}]*)\}/g, '$1')
+    .replace(/_\{([^}]*)\}/g, '_$1');
 
 /** A checker message as the sheet prints it: numbers and units formatted, and any place it names in words. */
 export function sheetMessage(message: string, describe: DescribePath): string {
@@ -115,10 +118,11 @@ export function drawFindings(doc: Doc, result: CheckResult, stages: Stages, desc
     paragraph(doc, 'No findings: every value checked agrees with the refit from your data within the tolerances.');
     return;
   }
+  const groups = groupFindings(result.findings);
   for (const stage of stages) {
-    const findings = result.findings.filter((f) => f.stage === stage.id);
-    if (findings.length === 0) continue;
-    const { cards, followsFromOwn } = groupFindings(findings);
+    const cards = groups.cards.filter((c) => c.members[0].stage === stage.id);
+    const followsFromOwn = groups.followsFromOwn.filter((f) => f.stage === stage.id);
+    if (cards.length === 0 && followsFromOwn.length === 0) continue;
     ensureSpace(doc, 60);
     const y = doc.y + 2;
     drawRich(doc, stage.title, contentLeft(doc), y, { size: SIZE.subheading, bold: true, color: COLOR.accent });

@@ -27,18 +27,18 @@ describe('feedback sheets for every kind of slip', () => {
     const text = folded(raw);
     expect(text).toContain(submission.studentId);
     // Every finding shows: the first place of a cause with its message, every other place by name.
-    const describe = (path: string) => firstOrderCatalysisReport.describePath(path, submission).replace(/([_^])\{([^}]*)\}/g, '$1$2');
+    const describe = (path: string) => firstOrderCatalysisReport.describePath(path, submission).replace(/\^\{([^}]*)\}/g, '$1').replace(/_\{([^}]*)\}/g, '_$1');
     for (const f of result.findings) {
       const message = folded(printableMessage(f.message).slice(0, 50));
       if (!text.includes(message)) expect(text).toContain(folded(describe(f.path)));
     }
-    // One card per likely cause: a cause that recurs in a stage is one card; a value that only follows
+    // One card per likely cause: a cause that recurs, in any stage, is one card; a value that only follows
     // from the student's own numbers at no cost is a line, not a card. The rule as the sheet states it,
     // counted here by hand from the findings: codes naming no cause stay one card per place.
     const causes = new Set(
       result.findings
         .filter((f) => !(f.code === 'carried-forward' && f.pointsLost === 0))
-        .map((f, i) => (['unexplained', 'refit-note', 'implausible'].includes(f.code) ? `#${i}` : `${f.stage}:${[f.code, ...(f.alsoCodes ?? [])].join('+')}`)),
+        .map((f, i) => (['unexplained', 'refit-note', 'implausible'].includes(f.code) ? `#${i}` : [f.code, ...(f.alsoCodes ?? [])].join('+'))),
     );
     expect(text.match(/(Error|Warning|Info) · /g) ?? []).toHaveLength(causes.size);
     // The checker's paths stay in the JSON; the sheet names places in words.
