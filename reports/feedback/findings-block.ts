@@ -53,7 +53,9 @@ function valuesAt(f: Finding): string {
 function drawOverride(doc: Doc, f: Finding): void {
   const override = (f as OverriddenFinding).override;
   if (!override) return;
-  paragraph(doc, `Reviewed by a teaching assistant: the points were changed from ${pointsWord(override.originalPointsLost)} lost. Reason: ${override.reason}`, { indent: INDENT, gap: 4, bold: true });
+  // The reason is the TA's note for the audit trail unless the TA chose to show it to the student.
+  const reason = override.reasonShown ? ` Reason: ${override.reason}` : '';
+  paragraph(doc, `Reviewed by a teaching assistant: the points were changed from ${pointsWord(override.originalPointsLost)} lost.${reason}`, { indent: INDENT, gap: 4, bold: true });
 }
 
 /** One likely cause: where it first shows, its message, then every other place it shows. */
@@ -108,7 +110,7 @@ function drawFollowsFromOwn(doc: Doc, findings: Finding[], describe: DescribePat
 
 /** A finding whose points a TA changed, as the service passes it on (reports need not know the service). */
 interface OverriddenFinding extends Finding {
-  override?: { originalPointsLost: number; reason: string };
+  override?: { originalPointsLost: number; reason: string; reasonShown?: boolean };
 }
 
 /** The findings under each stage's heading, one card per likely cause, in the checker's order and words. */
