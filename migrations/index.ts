@@ -5,6 +5,7 @@ import * as rosterStatus from './2026-12-02T2200-roster-status.ts';
 import * as signalChoices from './2026-12-02T2330-signal-choices.ts';
 import * as releases from './2026-12-05T1000-releases.ts';
 import * as studentIdCase from './2026-12-05T1100-student-id-case.ts';
+import * as overrideReasonShown from './2026-12-05T1200-override-reason-shown.ts';
 
 /**
  * Every migration by name, applied in name order (names start with a timestamp). A static list rather
@@ -18,4 +19,5 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02T2330-signal-choices': signalChoices,
   '2026-12-05T1000-releases': releases,
   '2026-12-05T1100-student-id-case': studentIdCase,
+  '2026-12-05T1200-override-reason-shown': overrideReasonShown,
 };

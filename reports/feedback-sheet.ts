@@ -33,8 +33,9 @@ export async function renderFeedbackSheet(input: FeedbackInput): Promise<Buffer>
     if (result.status === 'checked') report.drawSheetData(doc, input);
   }
 
+  // The title last: the one-line footer may cut a long title (the header prints it whole), never the id.
   finish(doc, {
-    left: `Rateproof feedback · ${header.studentId} · ${header.assignment} · version ${header.version}`,
+    left: `Rateproof feedback · ${header.studentId} · version ${header.version} · ${header.assignment}`,
     invented: input.invented ? INVENTED_NOTE : undefined,
   });
   return bytes;

@@ -54,9 +54,12 @@ export function formatPoints(points: number): string {
   return withMinusSign(String(Number(points.toFixed(2))));
 }
 
+/** `^-1` or `^(-1)`; a bracket closes only one it opened, so `(… s^-1)` keeps its own. */
+const POWER = /\^(?:\(([-+]?\d+)\)|([-+]?\d+))/g;
+
 /** `min^-1` → `min⁻¹`, `dm^3` → `dm³`; other text unchanged. */
 export function prettyUnit(unit: string): string {
-  return unit.replace(/\^\(?([-+]?\d+)\)?/g, (_, e: string) => superscript(e)).replace(/\s+/g, ' ').trim();
+  return unit.replace(POWER, (_, inBrackets: string | undefined, bare: string | undefined) => superscript(inBrackets ?? bare ?? '')).replace(/\s+/g, ' ').trim();
 }
 
 /**
@@ -66,7 +69,7 @@ export function prettyUnit(unit: string): string {
 export function printableMessage(text: string): string {
   return text
     .replace(/(\d)e([-+]?\d+)\b/g, (_, d: string, e: string) => `${d} × 10${superscript(String(Number(e)))}`)
-    .replace(/\^\(?([-+]?\d+)\)?/g, (_, e: string) => superscript(e))
+    .replace(POWER, (_, inBrackets: string | undefined, bare: string | undefined) => superscript(inBrackets ?? bare ?? ''))
     .replace(/(^|[\s(=])-(?=[\d.])/g, `$1${MINUS}`);
 }
 

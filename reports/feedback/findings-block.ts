@@ -1,5 +1,6 @@
 import type { CheckResult, Finding } from '../../schemas/result.ts';
-import { formatPoints, printableMessage } from '../format.ts';
+import { formatNumber, formatPoints, prettyUnit, printableMessage } from '../format.ts';
+import { groupFindings, type FindingCard } from './finding-groups.ts';
 import { SEVERITY_WORD } from '../labels.ts';
 import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { marker, type MarkerShape } from '../pdf/marks.ts';
@@ -19,62 +20,120 @@ export const SEVERITY_STYLE: Record<Finding['severity'], { shape: MarkerShape; c
 
 const INDENT = 16;
 
-function pointsText(f: Finding): string {
-  if (f.pointsLost > 0) return `−${formatPoints(f.pointsLost)} ${f.pointsLost === 1 ? 'point' : 'points'}`;
-  return 'no points lost';
+const pointsWord = (points: number) => `${formatPoints(points)} ${points === 1 ? 'point' : 'points'}`;
+
+function pointsText(points: number): string {
+  return points > 0 ? `−${pointsWord(points)}` : 'no points lost';
 }
 
-function drawFinding(doc: Doc, f: Finding, describe: DescribePath): void {
+// A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.kN`.
+const PATH = /\b(?:(?:runs|points)\[\d+\](?:\.[A-Za-z]+(?:\[\d+\])*)*|reported\.[A-Za-z]+(?:\.[A-Za-z]+)*)/g;
+
+/** A place in words for running text (which has no sub/superscripts): `k_{obs}` reads `k_obs`, as the messages write it; `ΔH^{‡}` reads `ΔH‡`. */
+const placeInProse = (describe: DescribePath, path: string) =>
+  describe(path)
+    .replace(/\^\{([^}]*)\}/g, '$1')
+    .replace(/_\{([^}]*)\}/g, '_$1');
+
+/** A checker message as the sheet prints it: numbers and units formatted, and any place it names in words. */
+export function sheetMessage(message: string, describe: DescribePath): string {
+  return keepNumbersWhole(printableMessage(message.replace(PATH, (path) => placeInProse(describe, path))));
+}
+
+/** No line break inside a number: the spaces either side of × and ± do not break (U+00A0). */
+const keepNumbersWhole = (text: string): string => text.replace(/ ([±×]) /g, '\u00a0$1\u00a0');
+
+/** The values behind a further place of a card, where the checker gave them. */
+function valuesAt(f: Finding): string {
+  if (typeof f.reported !== 'number' || typeof f.expected !== 'number') return '';
+  const unit = f.unit ? ` ${prettyUnit(f.unit)}` : '';
+  return `: yours ${formatNumber(f.reported)}${unit}, the refit ${formatNumber(f.expected)}${unit}`;
+}
+
+function drawOverride(doc: Doc, f: Finding): void {
+  const override = (f as OverriddenFinding).override;
+  if (!override) return;
+  // The reason is the TA's note for the audit trail unless the TA chose to show it to the student.
+  const reason = override.reasonShown ? ` Reason: ${override.reason}` : '';
+  paragraph(doc, `Reviewed by a teaching assistant: the points were changed from ${pointsWord(override.originalPointsLost)} lost.${reason}`, { indent: INDENT, gap: 4, bold: true });
+}
+
+/** One likely cause: where it first shows, its message, then every other place it shows. */
+function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
+  const [first, ...others] = card.members;
   const left = contentLeft(doc);
   const width = contentWidth(doc);
   // The headline and at least three lines of its message stay together.
   ensureSpace(doc, 16 + 3 * 12);
   const y = doc.y;
-  const style = SEVERITY_STYLE[f.severity];
+  const style = SEVERITY_STYLE[card.severity];
   marker(doc, style.shape, left + 5, y + 5.5, 6.5, style.color);
-  const word = SEVERITY_WORD[f.severity];
   let x = left + INDENT;
-  x += drawRich(doc, word, x, y, { size: SIZE.body, bold: true, color: style.color });
-  x += drawRich(doc, `  ·  ${describe(f.path)}`, x, y, { size: SIZE.body, bold: true, color: COLOR.ink });
-  const codes = [f.code, ...(f.alsoCodes ?? [])].join(' + ') + (f.detail ? ` (${f.detail})` : '');
-  const right = pointsText(f);
-  const rightWidth = richWidth(doc, right, SIZE.small, f.pointsLost > 0);
-  drawRich(doc, right, left + width, y + 1, { size: SIZE.small, bold: f.pointsLost > 0, color: f.pointsLost > 0 ? COLOR.error : COLOR.muted, align: 'right' });
+  x += drawRich(doc, SEVERITY_WORD[card.severity], x, y, { size: SIZE.body, bold: true, color: style.color });
+  const where = others.length === 0 ? describe(first.path) : `${describe(first.path)} and ${others.length} more ${others.length === 1 ? 'place' : 'places'}`;
+  x += drawRich(doc, `  ·  ${where}`, x, y, { size: SIZE.body, bold: true, color: COLOR.ink });
+  const codes = [first.code, ...(first.alsoCodes ?? [])].join(' + ') + (first.detail ? ` (${first.detail})` : '');
+  const right = pointsText(card.pointsLost);
+  const rightWidth = richWidth(doc, right, SIZE.small, card.pointsLost > 0);
+  drawRich(doc, right, left + width, y + 1, { size: SIZE.small, bold: card.pointsLost > 0, color: card.pointsLost > 0 ? COLOR.error : COLOR.muted, align: 'right' });
   const codeRoom = left + width - rightWidth - 10 - (x + 8);
   if (richWidth(doc, codes, SIZE.tiny) <= codeRoom) drawRich(doc, codes, x + 8, y + 2, { size: SIZE.tiny, color: COLOR.muted });
   moveTo(doc, y + 13);
   if (richWidth(doc, codes, SIZE.tiny) > codeRoom) paragraph(doc, codes, { size: SIZE.tiny, color: COLOR.muted, indent: INDENT, gap: 1 });
-  const override = (f as OverriddenFinding).override;
-  paragraph(doc, printableMessage(f.message), { indent: INDENT, gap: override ? 2 : 7 });
-  if (override) {
-    const was = `${formatPoints(override.originalPointsLost)} ${override.originalPointsLost === 1 ? 'point' : 'points'}`;
-    paragraph(doc, `Reviewed by a teaching assistant: the points were changed from ${was} lost. Reason: ${override.reason}`, { indent: INDENT, gap: 7, bold: true });
+  paragraph(doc, sheetMessage(first.message, describe), { indent: INDENT, gap: 2 });
+  drawOverride(doc, first);
+  if (others.length > 0) {
+    const charged = others.filter((f) => f.pointsLost > 0).length;
+    const lead = charged === 0 ? 'The same likely cause also shows here, counted once (no further points lost):' : 'The same likely cause also shows here:';
+    paragraph(doc, lead, { indent: INDENT, gap: 1 });
+    for (const f of others) {
+      const cost = f.pointsLost > 0 ? ` (${pointsText(f.pointsLost)})` : '';
+      paragraph(doc, keepNumbersWhole(printableMessage(`•  ${placeInProse(describe, f.path)}${valuesAt(f)}${cost}`)), { indent: INDENT + 8, gap: 1 });
+      drawOverride(doc, f);
+    }
   }
+  doc.y += 7;
+}
+
+/** Values that only follow from the student's own earlier numbers at no cost: one short line. */
+function drawFollowsFromOwn(doc: Doc, findings: Finding[], describe: DescribePath): void {
+  if (findings.length === 0) return;
+  const places = findings.map((f) => placeInProse(describe, f.path));
+  const list = places.length === 1 ? places[0] : `${places.slice(0, -1).join(', ')} and ${places[places.length - 1]}`;
+  const verb = places.length === 1 ? 'follows' : 'follow';
+  paragraph(doc, `Follows from your own numbers: ${list} ${verb} correctly from your own earlier values, so the method earns its points; the difference was scored where it entered.`, {
+    size: SIZE.small,
+    color: COLOR.muted,
+    gap: 7,
+  });
 }
 
 /** A finding whose points a TA changed, as the service passes it on (reports need not know the service). */
 interface OverriddenFinding extends Finding {
-  override?: { originalPointsLost: number; reason: string };
+  override?: { originalPointsLost: number; reason: string; reasonShown?: boolean };
 }
 
-/** The findings under each stage's heading, in the checker's order and words. */
+/** The findings under each stage's heading, one card per likely cause, in the checker's order and words. */
 export function drawFindings(doc: Doc, result: CheckResult, stages: Stages, describe: DescribePath): void {
   sectionHeading(doc, 'Findings', 50);
   if (result.findings.length === 0) {
     paragraph(doc, 'No findings: every value checked agrees with the refit from your data within the tolerances.');
     return;
   }
+  const groups = groupFindings(result.findings);
   for (const stage of stages) {
-    const findings = result.findings.filter((f) => f.stage === stage.id);
-    if (findings.length === 0) continue;
+    const cards = groups.cards.filter((c) => c.members[0].stage === stage.id);
+    const followsFromOwn = groups.followsFromOwn.filter((f) => f.stage === stage.id);
+    if (cards.length === 0 && followsFromOwn.length === 0) continue;
     ensureSpace(doc, 60);
     const y = doc.y + 2;
     drawRich(doc, stage.title, contentLeft(doc), y, { size: SIZE.subheading, bold: true, color: COLOR.accent });
-    const count = `${findings.length} ${findings.length === 1 ? 'finding' : 'findings'}`;
+    const count = cards.length === 0 ? 'no points lost' : `${cards.length} ${cards.length === 1 ? 'finding' : 'findings'}`;
     drawRich(doc, count, contentLeft(doc) + contentWidth(doc), y + 1.5, { size: SIZE.small, color: COLOR.muted, align: 'right' });
     doc.save().moveTo(contentLeft(doc), y + 15).lineTo(contentLeft(doc) + contentWidth(doc), y + 15).lineWidth(0.4).strokeColor(COLOR.rule).stroke().restore();
     moveTo(doc, y + 20);
-    for (const f of findings) drawFinding(doc, f, describe);
+    for (const card of cards) drawCard(doc, card, describe);
+    drawFollowsFromOwn(doc, followsFromOwn, describe);
   }
 }
 
@@ -88,6 +147,6 @@ export function drawRejections(doc: Doc, result: CheckResult, describe: Describe
     marker(doc, 'square', contentLeft(doc) + 5, y + 5.5, 6.5, COLOR.error);
     drawRich(doc, `Error  ·  ${describe(r.path)}`, contentLeft(doc) + INDENT, y, { size: SIZE.body, bold: true, color: COLOR.ink });
     moveTo(doc, y + 13);
-    paragraph(doc, printableMessage(r.message), { indent: INDENT, gap: 7 });
+    paragraph(doc, sheetMessage(r.message, describe), { indent: INDENT, gap: 7 });
   }
 }

@@ -38,16 +38,18 @@ export function drawHeader(doc: Doc, header: FeedbackHeader, engineVersion: stri
   ];
   const gridTop = top + 58;
   const columnWidth = width / 3;
-  // Values may take two lines (a long course name); a third is cut with an ellipsis.
-  const rowHeight = 9 + 2 * (SIZE.body + 2.5) + 4;
+  // Values wrap (a long assignment title takes the lines it needs); each row is as tall as its tallest value.
+  doc.font(FONT.regular).fontSize(SIZE.body);
+  const valueHeight = ([, value]: [string, string]) => doc.heightOfString(value, { width: columnWidth - 12 });
+  const rowHeights = [facts.slice(0, 3), facts.slice(3)].map((row) => 9 + Math.max(SIZE.body + 2.5, ...row.map(valueHeight)) + 6);
   facts.forEach(([label, value], i) => {
     const x = left + (i % 3) * columnWidth;
-    const y = gridTop + Math.floor(i / 3) * rowHeight;
+    const y = gridTop + (i < 3 ? 0 : rowHeights[0]);
     doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(label.toUpperCase(), x, y, { lineBreak: false, characterSpacing: 0.5 });
-    doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOR.ink).text(value, x, y + 9, { width: columnWidth - 12, height: 2 * (SIZE.body + 2.5), ellipsis: true });
+    doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOR.ink).text(value, x, y + 9, { width: columnWidth - 12 });
   });
 
-  const noteTop = gridTop + 2 * rowHeight + 2;
+  const noteTop = gridTop + rowHeights[0] + rowHeights[1] + 2;
   const note = header.released === false ? `${LIKELY_CAUSES_NOTE} ${DRAFT_NOTE}` : LIKELY_CAUSES_NOTE;
   doc.font(FONT.regular).fontSize(SIZE.small);
   const noteHeight = doc.heightOfString(note, { width: width - 24 }) + 12;

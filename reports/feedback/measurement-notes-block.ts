@@ -1,9 +1,8 @@
 import type { CheckResult } from '../../schemas/result.ts';
-import { printableMessage } from '../format.ts';
 import { contentLeft, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawRich } from '../pdf/rich-text.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import type { DescribePath } from './findings-block.ts';
+import { sheetMessage, type DescribePath } from './findings-block.ts';
 
 /** The signals a TA chose to share with the student, as notes about the measurement; drawn only where there are some. */
 export function drawMeasurementNotes(doc: Doc, result: CheckResult, describe: DescribePath): void {
@@ -20,6 +19,6 @@ export function drawMeasurementNotes(doc: Doc, result: CheckResult, describe: De
     const y = doc.y;
     drawRich(doc, describe(s.path), contentLeft(doc), y, { size: SIZE.body, bold: true, color: COLOR.ink });
     moveTo(doc, y + 14);
-    paragraph(doc, printableMessage(s.message), { gap: 7 });
+    paragraph(doc, sheetMessage(s.message, describe), { gap: 7 });
   }
 }

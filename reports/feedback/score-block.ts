@@ -1,15 +1,13 @@
 import type { CheckResult } from '../../schemas/result.ts';
 import { formatPoints } from '../format.ts';
-import { severityCounts } from '../result-summary.ts';
 import { contentLeft, contentWidth, ensureSpace, moveTo, sectionHeading, type Doc } from '../pdf/document.ts';
 import { FONT } from '../pdf/fonts.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 import type { RubricLine } from './rubric-breakdown.ts';
+import { cardCounts, countsInWords } from './finding-groups.ts';
 
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
-
-/** The score in large type with a bar, the count of findings, and the rubric items it is made of. */
+/** The score in large type with a bar, the findings counted as the sheet shows them, and the rubric items it is made of. */
 export function drawScore(doc: Doc, result: CheckResult, lines: RubricLine[]): void {
   sectionHeading(doc, 'Score', 120);
   const left = contentLeft(doc);
@@ -26,9 +24,8 @@ export function drawScore(doc: Doc, result: CheckResult, lines: RubricLine[]): v
   const fraction = result.maxScore > 0 ? Math.max(0, Math.min(1, score / result.maxScore)) : 0;
   doc.save().roundedRect(barX, top + 6, barWidth, 9, 4.5).fill(COLOR.grid).restore();
   if (fraction > 0) doc.save().roundedRect(barX, top + 6, Math.max(9, barWidth * fraction), 9, 4.5).fill(COLOR.accent).restore();
-  const counts = severityCounts(result.findings);
   doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.ink);
-  doc.text(`${Math.round(fraction * 100)} % of the points · ${plural(counts.errors, 'error')} · ${plural(counts.warnings, 'warning')} · ${counts.infos} info`, barX, top + 20, { lineBreak: false });
+  doc.text(`${Math.round(fraction * 100)} % of the points · ${countsInWords(cardCounts(result.findings))}`, barX, top + 20, { lineBreak: false });
   moveTo(doc, top + 38);
 
   ensureSpace(doc, 40);

@@ -1,11 +1,11 @@
 import { contentBottom, contentLeft, contentWidth, type Doc } from './document.ts';
 import { FONT } from './fonts.ts';
-import { drawRich, isRich } from './rich-text.ts';
+import { drawRich, richWidth } from './rich-text.ts';
 import { COLOR, SIZE } from './theme.ts';
 
 /**
  * A simple ruled table: a header row (repeated after a page break), wrapped cells, optional zebra
- * shading and bold rows. Cells with sub/superscript markup (`k_{obs}`) are drawn on one line.
+ * shading and bold rows. Cells may carry sub/superscript markup (`k_{obs}`).
  */
 export interface Column {
   header: string;
@@ -34,30 +34,18 @@ export function drawTable(doc: Doc, columns: Column[], rows: string[][], options
   const starts = widths.map((_, i) => left + widths.slice(0, i).reduce((a, b) => a + b, 0));
   const tableWidth = contentWidth(doc);
 
-  // A cell on one line (most are) is measured and drawn without pdfkit's line wrapper, which is slow.
-  const oneLine = (text: string, i: number, bold: boolean): boolean => {
-    if (text.includes('\n')) return false;
-    doc.font(bold ? FONT.bold : FONT.regular).fontSize(size);
-    return doc.widthOfString(text) <= widths[i] - 2 * PAD_X;
-  };
-  const cellHeight = (text: string, i: number, bold: boolean): number => {
-    if (isRich(text) || oneLine(text, i, bold)) return size + 2;
-    doc.font(bold ? FONT.bold : FONT.regular).fontSize(size);
-    return doc.heightOfString(text || ' ', { width: widths[i] - 2 * PAD_X, lineGap: 1 });
-  };
-  const rowHeight = (cells: string[], bold: boolean) => Math.max(...cells.map((c, i) => cellHeight(c, i, bold))) + 2 * PAD_Y;
+  // Cells are laid out here, not by pdfkit's wrapper (slow, and blind to numbers): a line breaks only
+  // at a space that is not part of a number (`1.9 × 10⁻⁷`, `0.03 ± 0.002`), and a cell whose longest
+  // unbreakable piece is wider than its column is set smaller rather than broken inside it.
+  const layout = (text: string, i: number, bold: boolean): CellLayout => layoutCell(doc, text, widths[i] - 2 * PAD_X, size, bold);
+  const rowHeight = (cells: string[], bold: boolean) => Math.max(...cells.map((c, i) => layout(c, i, bold).height)) + 2 * PAD_Y;
 
-  const drawCells = (cells: string[], y: number, height: number, bold: boolean, color: string) => {
+  const drawCells = (cells: string[], y: number, bold: boolean, color: string) => {
     cells.forEach((text, i) => {
       const column = columns[i];
-      const width = widths[i] - 2 * PAD_X;
-      if (isRich(text) || oneLine(text, i, bold)) {
-        const anchor = column.align === 'right' ? starts[i] + widths[i] - PAD_X : column.align === 'center' ? starts[i] + widths[i] / 2 : starts[i] + PAD_X;
-        drawRich(doc, text, anchor, y + PAD_Y, { size, color, bold, align: column.align ?? 'left' });
-      } else {
-        doc.font(bold ? FONT.bold : FONT.regular).fontSize(size).fillColor(color);
-        doc.text(text, starts[i] + PAD_X, y + PAD_Y, { width, align: column.align ?? 'left', lineGap: 1, height: height });
-      }
+      const anchor = column.align === 'right' ? starts[i] + widths[i] - PAD_X : column.align === 'center' ? starts[i] + widths[i] / 2 : starts[i] + PAD_X;
+      const cell = layout(text, i, bold);
+      cell.lines.forEach((line, n) => drawRich(doc, line, anchor, y + PAD_Y + n * cell.lineHeight, { size: cell.size, color, bold, align: column.align ?? 'left' }));
     });
   };
 
@@ -66,7 +54,7 @@ export function drawTable(doc: Doc, columns: Column[], rows: string[][], options
     const height = rowHeight(headers, true);
     const y = doc.y;
     doc.save().rect(left, y, tableWidth, height).fill(COLOR.panel).restore();
-    drawCells(headers, y, height, true, COLOR.ink);
+    drawCells(headers, y, true, COLOR.ink);
     doc.save().moveTo(left, y + height).lineTo(left + tableWidth, y + height).lineWidth(0.8).strokeColor(COLOR.muted).stroke().restore();
     doc.y = y + height;
   };
@@ -83,11 +71,49 @@ export function drawTable(doc: Doc, columns: Column[], rows: string[][], options
     }
     const y = doc.y;
     if (options.zebra && index % 2 === 1) doc.save().rect(left, y, tableWidth, height).fill('#f8f9fb').restore();
-    drawCells(cells, y, height, bold, COLOR.ink);
+    drawCells(cells, y, bold, COLOR.ink);
     doc.save().moveTo(left, y + height).lineTo(left + tableWidth, y + height).lineWidth(0.3).strokeColor(COLOR.rule).stroke().restore();
     doc.y = y + height;
   });
   doc.x = left;
   doc.y += 6;
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOR.ink);
+}
+
+interface CellLayout {
+  lines: string[];
+  size: number;
+  lineHeight: number;
+  height: number;
+}
+
+/** A space that joins the parts of one number: either side of ± or ×. */
+const JOINED = /(?<=[±×]) | (?=[±×])/g;
+const SMALLEST = 0.72;
+
+/** The pieces a cell may break between: its lines as written, then spaces outside numbers. */
+function pieces(line: string): string[] {
+  const marked = line.replace(JOINED, '\u0000');
+  return marked.split(' ').filter((p) => p !== '').map((p) => p.replace(/\u0000/g, ' '));
+}
+
+export function layoutCell(doc: Doc, text: string, width: number, size: number, bold: boolean): CellLayout {
+  const written = text.split('\n').map(pieces);
+  const widest = Math.max(0, ...written.flat().map((p) => richWidth(doc, p, size, bold)));
+  // Shrunk to fit the widest piece, never below a legible size (a wider piece then runs into the padding).
+  const cellSize = widest > width ? Math.max(SMALLEST * size, (size * width) / widest) : size;
+  const lines: string[] = [];
+  for (const words of written) {
+    let line = '';
+    for (const word of words) {
+      const next = line === '' ? word : `${line} ${word}`;
+      if (line !== '' && richWidth(doc, next, cellSize, bold) > width) {
+        lines.push(line);
+        line = word;
+      } else line = next;
+    }
+    lines.push(line);
+  }
+  const lineHeight = cellSize + 2;
+  return { lines, size: cellSize, lineHeight, height: lines.length * lineHeight };
 }

@@ -10,7 +10,7 @@ import type { OverrideRow, ResultRow } from '../store/submissions.ts';
  * submission and finding id (code and place), so they carry over to a regrade that finds the same thing.
  */
 export interface EffectiveFinding extends Finding {
-  override?: { pointsLost: number; reason: string; by: string; at: Date; originalPointsLost: number };
+  override?: { pointsLost: number; reason: string; reasonShown: boolean; by: string; at: Date; originalPointsLost: number };
 }
 
 export interface EffectiveResult {
@@ -44,7 +44,7 @@ export function effectiveResult(row: ResultRow, overrides: OverrideRow[], choice
   const asked: EffectiveFinding[] = stored.findings.map((f) => {
     const o = latest.get(f.id);
     if (!o) return f;
-    return { ...f, pointsLost: o.pointsAfter, override: { pointsLost: o.pointsAfter, reason: o.reason, by: o.by, at: o.at, originalPointsLost: f.pointsLost } };
+    return { ...f, pointsLost: o.pointsAfter, override: { pointsLost: o.pointsAfter, reason: o.reason, reasonShown: o.reasonShown, by: o.by, at: o.at, originalPointsLost: f.pointsLost } };
   });
   const books = settleBooks(stored.items, row.maxScore, asked);
   const findings = books.findings as EffectiveFinding[];

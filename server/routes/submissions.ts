@@ -32,6 +32,8 @@ const Override = z.object({
   pointsBefore: z.number(),
   pointsAfter: z.number(),
   reason: z.string(),
+  /** The reason is printed on the student's sheet (else it stays in the audit trail only). */
+  reasonShown: z.boolean(),
   by: z.string(),
   at: z.date(),
 });
@@ -125,13 +127,13 @@ export const submissionRoutes: RouteSpec[] = [
     summary: "Override a finding's points with a written reason; kept as an audit trail and carried over to regrades",
     schema: {
       params: z.object({ submissionId: IdParam }),
-      body: z.object({ findingId: z.string().min(1).max(300).refine(isStorableText, UNSTORABLE_TEXT), pointsLost: z.number().min(0).max(1000), reason: z.string().trim().min(3, 'say why, in a few words').max(2000).refine(isStorableText, UNSTORABLE_TEXT) }),
+      body: z.object({ findingId: z.string().min(1).max(300).refine(isStorableText, UNSTORABLE_TEXT), pointsLost: z.number().min(0).max(1000), reason: z.string().trim().min(3, 'say why, in a few words').max(2000).refine(isStorableText, UNSTORABLE_TEXT), showReason: z.boolean().default(false) }),
       response: { 201: SubmissionView },
     },
     transactional: true,
     async handler({ db, params, body, caller }) {
       const submissionId = Number(params.submissionId);
-      const { findingId, pointsLost, reason } = body as { findingId: string; pointsLost: number; reason: string };
+      const { findingId, pointsLost, reason, showReason } = body as { findingId: string; pointsLost: number; reason: string; showReason: boolean };
       const [row] = await latestResults(db, [submissionId]);
       const result = row && effectiveResult(row, await overridesOf(db, [submissionId]));
       const current = result?.findings.find((f) => f.id === findingId);
@@ -142,7 +144,7 @@ export const submissionRoutes: RouteSpec[] = [
         const item = current.itemKey ?? current.rubricItem ?? 'of this finding';
         throw new ApiError('beyond-rubric-item', undefined, [{ path: 'body.pointsLost', message: `points must be between 0 and ${limit}, what rubric item ${item} has left` }]);
       }
-      await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, staffId: staffIdOf(caller) });
+      await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, reasonShown: showReason, staffId: staffIdOf(caller) });
       return { status: 201, body: await submissionView(db, submissionId) };
     },
   },

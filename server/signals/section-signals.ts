@@ -6,7 +6,7 @@ export type { SectionSignals } from './section-report.ts';
 /** `submissions`: the section's latest valid submissions, as their schema read them; the kind says what to compare. */
 export function sectionSignals(settings: { kind: string }, submissions: unknown[]): SectionSignals {
   const kind = kindFor(settings.kind);
-  if (!kind?.sectionSignals) return nothingCompared(`the kind ${settings.kind} has no signals across a section`);
+  if (!kind?.sectionSignals) return nothingCompared('signals across a section are not worked out for this kind of experiment');
   return kind.sectionSignals(settings, submissions);
 }
 

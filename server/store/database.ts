@@ -56,6 +56,8 @@ export interface Database {
     points_before: number;
     points_after: number;
     reason: string;
+    /** The reason is printed on the student's sheet; false keeps it in the audit trail only. */
+    reason_shown: Generated<boolean>;
     staff_id: Ref;
     created_at: Generated<Date>;
   };

@@ -231,6 +231,7 @@ export async function overridesOf(db: Kysely<Database>, submissionIds: number[])
       'overrides.points_before as pointsBefore',
       'overrides.points_after as pointsAfter',
       'overrides.reason as reason',
+      'overrides.reason_shown as reasonShown',
       'staff.handle as by',
       'overrides.created_at as at',
     ])
@@ -243,11 +244,11 @@ export type OverrideRow = Awaited<ReturnType<typeof overridesOf>>[number];
 
 export async function insertOverride(
   db: Kysely<Database>,
-  o: { submissionId: number; findingId: string; pointsBefore: number; pointsAfter: number; reason: string; staffId: number },
+  o: { submissionId: number; findingId: string; pointsBefore: number; pointsAfter: number; reason: string; reasonShown: boolean; staffId: number },
 ) {
   return db
     .insertInto('overrides')
-    .values({ submission_id: o.submissionId, finding_id: o.findingId, points_before: o.pointsBefore, points_after: o.pointsAfter, reason: o.reason, staff_id: o.staffId })
+    .values({ submission_id: o.submissionId, finding_id: o.findingId, points_before: o.pointsBefore, points_after: o.pointsAfter, reason: o.reason, reason_shown: o.reasonShown, staff_id: o.staffId })
     .returning('id')
     .executeTakeFirstOrThrow();
 }

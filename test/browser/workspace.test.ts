@@ -79,8 +79,9 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await finding.getByText('Change the points of this finding').click();
     await finding.getByLabel('Points lost').fill('0');
     await finding.getByLabel('Reason (kept in the audit trail)').fill('the slip is only in the summary table');
+    await finding.getByLabel('Show the reason to the student (on the feedback sheet)').check();
     await finding.getByRole('button', { name: 'Save the change' }).click();
-    await page.getByText(/changed [\d.]+ to 0 points lost: “the slip is only in the summary table”/).waitFor();
+    await page.getByText(/changed [\d.]+ to 0 points lost: “the slip is only in the summary table” \(shown to the student\)/).waitFor();
     expect(await page.locator('li.finding.error').first().locator('code').first().textContent()).toBe(code);
 
     // Release the section, after a confirmation that says how many.

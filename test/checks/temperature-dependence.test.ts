@@ -150,6 +150,20 @@ describe('temperature dependence: each slip is named at its place', () => {
     expect(check({}, (v) => (v.Ea = -v.Ea))).toEqual(['sign-flipped@reported.Ea']);
   });
 
+  it('a reversed ΔS‡ is named as a slip in the intercept, E_a as one in the slope', () => {
+    // ΔS‡ = R (intercept − ln(k_B/h)) and E_a = −R × slope (the Eyring and Arrhenius forms: common practice, no source).
+    const v = studentValues();
+    v.dS = -v.dS;
+    const result = submit(v, Number(se.toPrecision(2)));
+    const dS = result.findings.find((f) => f.path === 'reported.dS')!;
+    expect(dS.code).toBe('sign-flipped');
+    expect(dS.message).toContain('intercept');
+    expect(dS.message).not.toContain('slope');
+    const w = studentValues();
+    w.Ea = -w.Ea;
+    expect(submit(w, Number(se.toPrecision(2))).findings.find((f) => f.path === 'reported.Ea')!.message).toContain('slope of ln k against 1/T');
+  });
+
   it('1000/T read as 1/T', () => {
     expect(check({ xScale: 1000 }, (v) => ((v.A = studentValues().A), (v.dS = studentValues().dS)))).toEqual(['reciprocal-scale@reported.Ea', 'reciprocal-scale@reported.dH']);
   });

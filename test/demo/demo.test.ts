@@ -58,4 +58,24 @@ describe('npm run demo', () => {
     expect(files.filter((f) => /^B-\d\d\.pdf$/.test(f))).toHaveLength(24);
     expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv']));
   });
+
+  it('prints each slip of a sheet once, places in words and numbers whole', async () => {
+    const sheets = async (sub: string) => (await readdir(join(dir, 'out', sub))).filter((f) => /^B-\d\d\.pdf$/.test(f)).map((f) => join(dir, 'out', sub, f));
+    // One at a time: pdf.js serves one document at once reliably.
+    for (const file of [...(await sheets('')), ...(await sheets('temperature-dependence'))]) {
+      const text = await pdfText(await readFile(file));
+      // The checker's paths (`runs[0].reported.k`) stay in the JSON.
+      expect(folded(text)).not.toMatch(/runs\[|points\[|reported\.[A-Za-z]/);
+      // No number broken across lines: none ends in ± or ×, none starts with one or with a power of ten.
+      for (const line of text.split(/\n|\f/)) expect(line).not.toMatch(/[±×]\s*$|^\s*([±×] |10[⁻⁰¹²³⁴⁵⁶⁷⁸⁹])/);
+    }
+    // B-17 made two slips (the demo's table says which): a time unit in every run, and a wrong end value
+    // in one. Each is one card; the time unit's other seven places are listed under its first.
+    const b17 = folded(await pdfText(await readFile(join(dir, 'out', 'B-17.pdf'))));
+    expect(lines.find((l) => l.startsWith('B-17'))).toMatch(/time-unit, wrong-infinity/);
+    expect(b17.match(/time-unit/g)).toHaveLength(1);
+    expect(b17).toMatch(/Error · Run “[^”]+”, kobs and 7 more places/);
+    expect(b17).toContain('2 findings cost points');
+    expect(b17).not.toContain('Counted once');
+  });
 });

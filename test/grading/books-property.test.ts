@@ -162,7 +162,7 @@ describe('the books, over random findings, overrides and regrades', () => {
           close(limit, own);
           const points = random() < 0.6 ? Math.round(random() * own * 4) / 4 : own + 0.25 + Math.floor(random() * 8) / 4;
           if (points <= limit + EPS) {
-            overrides.push({ id: overrides.length + 1, submissionId: 1, findingId: target.id, pointsBefore: target.pointsLost, pointsAfter: points, reason: 'test', by: 'ta', at: new Date(0) });
+            overrides.push({ id: overrides.length + 1, submissionId: 1, findingId: target.id, pointsBefore: target.pointsLost, pointsAfter: points, reason: 'test', reasonShown: false, by: 'ta', at: new Date(0) });
             const before = result;
             result = effectiveResult(storedRow(items, findings, n), overrides);
             // The finding costs what was set; and where every finding cost what was asked of it (no regrade

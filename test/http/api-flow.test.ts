@@ -116,11 +116,16 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(after.body.result.settingsVersion).toBe(2);
     const again = after.body.result.findings.find((f: { id: string }) => f.id === finding.id);
     expect(again).toMatchObject({ pointsLost: 1, override: { originalPointsLost: 3, reason: 'sign slip only in the summary table', by: 'ta-a' } });
-    // The student's sheet shows the changed points and the reason, not who changed them.
-    const sheet = await api.app.inject({ method: 'GET', url: `/v1/submissions/${id}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
-    const text = folded(await pdfText(sheet.rawPayload));
-    expect(text).toContain('Reviewed by a teaching assistant: the points were changed from 3 points lost. Reason: sign slip only in the summary table');
-    expect(text).not.toContain('ta-a');
+    // The student's sheet shows the changed points, never who changed them; the reason stays in the
+    // audit trail until a TA ticks "show the reason to the student".
+    const sheetText = async () => folded(await pdfText((await api.app.inject({ method: 'GET', url: `/v1/submissions/${id}/feedback.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } })).rawPayload));
+    const kept = await sheetText();
+    expect(kept).toContain('Reviewed by a teaching assistant: the points were changed from 3 points lost.');
+    expect(kept).not.toContain('sign slip only in the summary table');
+    expect(kept).not.toContain('ta-a');
+    const shown = await call(api.app, 'POST', `/v1/submissions/${id}/overrides`, s.taAToken, { findingId: finding.id, pointsLost: 1, reason: 'sign slip only in the summary table', showReason: true }, 201);
+    expect(shown.body.overrides.map((o: { reasonShown: boolean }) => o.reasonShown)).toEqual([false, true]);
+    expect(await sheetText()).toContain('Reviewed by a teaching assistant: the points were changed from 3 points lost. Reason: sign slip only in the summary table');
   });
 
   it("a signal reaches the student's sheet only when a TA puts it there, and leaves it when taken off; every choice is kept", async () => {

@@ -71,7 +71,7 @@ describe('a kind registered in one line', () => {
 
     const view = (await call(app, 'GET', `/v1/submissions/${stored.stored[2].submissionId}`, s.taAToken, undefined, 200)).body;
     expect(view.result.findings).toEqual([expect.objectContaining({ id: 'intercept-for-slope@reported.k', code: 'intercept-for-slope', stage: 'line' })]);
-    const overridden = (await call(app, 'POST', `/v1/submissions/${view.submissionId}/overrides`, s.taAToken, { findingId: 'intercept-for-slope@reported.k', pointsLost: 1, reason: 'half credit for the line' }, 201)).body;
+    const overridden = (await call(app, 'POST', `/v1/submissions/${view.submissionId}/overrides`, s.taAToken, { findingId: 'intercept-for-slope@reported.k', pointsLost: 1, reason: 'half credit for the line', showReason: true }, 201)).body;
     expect(overridden.result.score).toBe(1);
 
     const sheet = await pdf(`/v1/submissions/${view.submissionId}/feedback.pdf`);
@@ -92,7 +92,7 @@ describe('a kind registered in one line', () => {
     expect((await unzip(zip.rawPayload)).map((e) => e.name).filter((n) => n.endsWith('.pdf'))).toHaveLength(3);
 
     const signals = (await call(app, 'GET', `${url}/signals`, s.taAToken, undefined, 200)).body;
-    expect(signals.notCompared).toBe(`the kind ${ZERO_ORDER} has no signals across a section`);
+    expect(signals.notCompared).toBe('signals across a section are not worked out for this kind of experiment');
     expect((await call(app, 'POST', `${url}/release`, s.taAToken, undefined, 200)).body.released).toBe(3);
   });
 

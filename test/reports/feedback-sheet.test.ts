@@ -4,6 +4,7 @@ import { INVENTED_NOTE, LIKELY_CAUSES_NOTE } from '../../reports/feedback-input.
 import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
 import { formatNumber, formatPoints, printableMessage } from '../../reports/format.ts';
 import { readRefit } from '../../reports/refit.ts';
+import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
 import { feedbackInput, section, type Section, type Student } from './fixtures.ts';
 import { folded, pageCount, pdfFonts, pdfText } from '../support/pdf-reading.ts';
 
@@ -37,9 +38,15 @@ describe('renderFeedbackSheet', () => {
   it('prints every finding in the checker’s words, with its severity in text', async () => {
     const { result } = student('S-002');
     const { flat } = await render('S-002');
-    for (const f of result.findings) expect(flat).toContain(folded(printableMessage(f.message).slice(0, 60)));
+    // A log-base slip: the first run's ln F column carries the message; the k_obs values that follow from
+    // it at no cost are named in one line, not as cards (hand-read from the slip the generator makes).
+    for (const f of result.findings.filter((x) => x.code !== 'carried-forward')) {
+      const place = firstOrderCatalysisReport.describePath(f.path, student('S-002').submission).replace(/_\{([^}]*)\}/g, '_$1');
+      expect(flat.includes(folded(printableMessage(f.message).slice(0, 60))) || flat.includes(place)).toBe(true);
+    }
     expect(flat).toContain('log10');
-    for (const word of ['Error', 'Warning', 'Info']) expect(flat).toContain(`${word} · `);
+    expect(flat).toContain('Error · ');
+    expect(flat).toMatch(/Follows from your own numbers: Run “[^”]+”, k_obs/);
     expect(flat).toMatch(/−1 point/);
   });
 
@@ -121,5 +128,33 @@ describe('renderFeedbackSheet', () => {
     expect(flat).toContain('Readings match the class data');
     expect(flat).toContain('with an intercept');
     for (const f of students[0].result.findings) expect(flat).toContain(folded(printableMessage(f.message).slice(0, 60)));
+  });
+
+  it('prints a long assignment title whole in the header, wrapped, not cut', async () => {
+    const input = feedbackInput(s.settings, student('S-001'));
+    // Invented title, long enough to need three lines in its column.
+    const title = 'Acid-catalysed first-order kinetics of an invented ester hydrolysis, four catalyst concentrations, polarimetry';
+    const text = folded(await pdfText(await renderFeedbackSheet({ ...input, header: { ...input.header, assignment: title } })));
+    expect(text).toContain(title);
+    expect(text.split('\f')[0]).not.toMatch(/polarimetry…|hydrolysis…/);
+  });
+
+  it('names the places of a time-unit slip in every run in words, on one card (hand-made result)', async () => {
+    const { submission, result } = student('S-001');
+    // Invented: the same cause at two runs, charged at the first and counted once at the second, as the checker scores a habit.
+    const slip = (run: number, points: number) => ({
+      id: `time-unit@runs[${run}].reported.k`, code: 'time-unit', stage: 'run', path: `runs[${run}].reported.k`, severity: 'error' as const, pointsLost: points,
+      reported: 0.0005, expected: 0.03, unit: 'min^-1',
+      message: `k_obs is 0.0005 min^-1; the refit gives 0.03 min^-1 (5e-4 min^-1).${points === 0 ? ' Counted once: the same likely cause was already scored at runs[0].reported.k.' : ''}`,
+    });
+    const findings = [slip(0, 2), slip(1, 0)];
+    const pdf = await renderFeedbackSheet({ ...feedbackInput(s.settings, student('S-001')), result: { ...result, findings } });
+    const text = folded(await pdfText(pdf));
+    expect(text.match(/Error · /g)).toHaveLength(1);
+    expect(text).toContain(`Error · ${firstOrderCatalysisReport.describePath('runs[0].reported.k', submission).replace(/_\{([^}]*)\}/g, '$1')} and 1 more place`);
+    expect(text).toContain(`${firstOrderCatalysisReport.describePath('runs[1].reported.k', submission).replace(/_\{([^}]*)\}/g, '_$1')}: yours`);
+    expect(text).toContain('(5 × 10⁻⁴ min⁻¹).');
+    expect(text).toContain('1 finding cost points');
+    expect(text).not.toMatch(/runs\[|reported\.[a-z]/);
   });
 });

@@ -77,4 +77,10 @@ describe('printableMessage', () => {
   it('leaves hyphenated words alone', () => {
     expect(printableMessage('a log-base slip in run A-2')).toBe('a log-base slip in run A-2');
   });
+  it('keeps the bracket that closes a unit in brackets, and reads a bracketed exponent', () => {
+    // The bracket after s^-1 belongs to the sentence, not to the exponent (hand-written expectation).
+    expect(printableMessage('matches the refit (5.314e-4 s^-1) divided by 60')).toBe('matches the refit (5.314 × 10⁻⁴ s⁻¹) divided by 60');
+    expect(printableMessage('the refit (0.02 min^-1)')).toBe('the refit (0.02 min⁻¹)');
+    expect(prettyUnit('M^(-1) min^-1')).toBe('M⁻¹ min⁻¹');
+  });
 });

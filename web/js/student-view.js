@@ -66,9 +66,9 @@ export async function studentView(place, submissionId, failure) {
   ]);
   const root = h('div', { class: 'student-view' });
 
-  async function override(findingId, pointsLost, reason, message) {
+  async function override(findingId, pointsLost, reason, showReason, message) {
     try {
-      view = await api('POST', `/v1/submissions/${submissionId}/overrides`, { findingId, pointsLost, reason });
+      view = await api('POST', `/v1/submissions/${submissionId}/overrides`, { findingId, pointsLost, reason, showReason });
       draw();
       root.querySelector('[role=status]')?.focus();
     } catch (error) {
@@ -108,13 +108,15 @@ export async function studentView(place, submissionId, failure) {
     const key = f.id.replace(/[^A-Za-z0-9]/g, '-');
     const points = h('input', { id: `points-${key}`, type: 'number', min: '0', step: '0.5', value: String(f.pointsLost), required: true });
     const reason = h('textarea', { id: `reason-${key}`, rows: '2', required: true, minlength: '3' });
+    const showReason = h('input', { id: `show-reason-${key}`, type: 'checkbox' });
     const form = h(
       'form',
-      { class: 'override', onsubmit: (e) => (e.preventDefault(), override(f.id, Number(points.value), reason.value, message)) },
+      { class: 'override', onsubmit: (e) => (e.preventDefault(), override(f.id, Number(points.value), reason.value, showReason.checked, message)) },
       h('label', { for: `points-${key}` }, 'Points lost'),
       points,
       h('label', { for: `reason-${key}` }, 'Reason (kept in the audit trail)'),
       reason,
+      h('label', { class: 'check', for: `show-reason-${key}` }, showReason, ' Show the reason to the student (on the feedback sheet)'),
       h('button', { type: 'submit' }, 'Save the change'),
       message,
     );
@@ -124,7 +126,7 @@ export async function studentView(place, submissionId, failure) {
       h('p', { class: 'finding-head' }, h('span', { class: `badge ${f.severity}` }, f.severity), ' ', h('code', {}, f.code), ' · ', h('span', {}, `${num(f.pointsLost)} point${f.pointsLost === 1 ? '' : 's'} lost`), f.override ? h('span', { class: 'overridden' }, ` (changed from ${num(f.override.originalPointsLost)} by ${f.override.by})`) : null),
       h('p', {}, f.message),
       h('p', { class: 'hint' }, h('code', {}, f.path)),
-      trail.length ? h('ul', { class: 'trail' }, trail.map((o) => h('li', {}, `${when(o.at)}: ${o.by} changed ${num(o.pointsBefore)} to ${num(o.pointsAfter)} points lost: “${o.reason}”`))) : null,
+      trail.length ? h('ul', { class: 'trail' }, trail.map((o) => h('li', {}, `${when(o.at)}: ${o.by} changed ${num(o.pointsBefore)} to ${num(o.pointsAfter)} points lost: “${o.reason}”${o.reasonShown ? ' (shown to the student)' : ''}`))) : null,
       h('details', {}, h('summary', {}, 'Change the points of this finding'), form),
     );
   }

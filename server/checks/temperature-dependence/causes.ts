@@ -18,3 +18,22 @@ export const temperatureCauses: CauseVocabulary = {
   joinMethodSlips: new Set(['sign-flipped', 'energy-unit']),
   systematic: new Set(['sign-flipped', 'log-base', 'temperature-scale', 'gas-constant', 'energy-unit', 'reciprocal-scale', 'eyring-form', 'time-unit']),
 };
+
+/**
+ * A reversed sign in this kind's words for each quantity: E_a and ΔH‡ come from a slope (minus R times
+ * it), ΔS‡ from the Eyring intercept, so "the sign of the slope" would send a student to the wrong place.
+ */
+const SIGN_FLIPPED: Readonly<Record<string, { what: string; check: string }>> = {
+  Ea: { what: 'the sign of the slope was kept (E_a is minus R times the slope of ln k against 1/T)', check: 'the sign of the reported value' },
+  dH: { what: 'the sign of the slope was kept (ΔH‡ is minus R times the slope of ln(k/T) against 1/T)', check: 'the sign of the reported value' },
+  dS: {
+    what: 'the sign was lost in working ΔS‡ out from the intercept of the Eyring plot (ΔS‡ = R × (intercept − ln(k_B/h)), negative when the intercept is below 23.760)',
+    check: 'the intercept of ln(k/T) against 1/T and the sign of ΔS‡ worked out from it',
+  },
+};
+
+/** The causes in words for one quantity: the kind's, with the sign slip named where that quantity comes from. */
+export function causesOf(quantity: string): CauseVocabulary {
+  const sign = SIGN_FLIPPED[quantity];
+  return sign ? { ...temperatureCauses, texts: { ...temperatureCauses.texts, 'sign-flipped': sign } } : temperatureCauses;
+}

@@ -15,7 +15,7 @@ import { itemPoints, scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import { caloriesWrongWay } from './calories-wrong-way.ts';
-import { temperatureCauses } from './causes.ts';
+import { causesOf, temperatureCauses } from './causes.ts';
 import { checkRunKs } from './check-run-k.ts';
 import { activationOf, type Activation, type TemperatureAnalysis } from './refit.ts';
 import { hasTwoPoints, twoPointsNote } from './two-points.ts';
@@ -79,7 +79,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const read = readReported(reported, unitKind, unit, unit, { path, what: label, stage }, drafts);
   const ours = analysis[q];
   const outcome = checkValue(
-    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: [...FACTORS[q], ...caloriesWrongWay(reported.unit)], causes: temperatureCauses, tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]), rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, settings.rubric.sigFigs) },
+    { what: label, path, stage, rubricItem: q, itemKey: q, charge, reported: read.value, unit, expected: ours.value, carriedForward: theirs && { value: convert(theirs[q], QUANTITIES[q].base, unit), from: FROM_THEIR_K }, slips: () => slipCandidates(analysis, q, unit), factors: [...FACTORS[q], ...caloriesWrongWay(reported.unit)], causes: causesOf(q), tolerance: settings.tolerances[q], causeTolerance: () => slipMatch(reported.value, read.value, settings.tolerances[q]), rounding: roundingOf(reported.value, read.uncertainty, ours.standardError, settings.rubric.sigFigs) },
     drafts,
   );
   // A value already found wrong needs no second warning about its size.
