@@ -39,7 +39,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(table.body[0]).toMatchObject({ version: 1, status: 'checked', score: 22, maxScore: 22, released: false });
     expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, status: 'not-submitted', enrolment: 'enrolled', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false });
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv`, headers: { authorization: `Bearer ${s.taAToken}` } });
-    expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,');
+    expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,,Acid catalysis (invented)');
   });
 
   it('a dry run lists what would be refused and stores nothing', async () => {
@@ -208,6 +208,14 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(summary.rawPayload.subarray(0, 5).toString()).toBe('%PDF-');
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv?bom=true`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(csv.body.startsWith('\uFEFFstudent_id,score,max_score')).toBe(true);
+    // Each download is named for its course, section and assignment (names from the fixture, made safe by hand).
+    const place = 'Physical_chemistry_lab_invented-A-Acid_catalysis_invented';
+    expect([pdf, zip, summary, csv].map((r) => r.headers['content-disposition'])).toEqual([
+      `attachment; filename="${place}-${table.body[0].studentId}-v${table.body[0].version}-feedback.pdf"`,
+      `attachment; filename="${place}-feedback.zip"`,
+      `attachment; filename="${place}-summary.pdf"`,
+      `attachment; filename="${place}-gradebook.csv"`,
+    ]);
     expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
   });
 
@@ -225,7 +233,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       ['S-102', 'not-submitted', 'enrolled'],
     ]);
     const csv = await api.app.inject({ method: 'GET', url: `${bUrl}/gradebook.csv`, headers: { authorization: `Bearer ${s.taBToken}` } });
-    expect(csv.body.split('\r\n').slice(1, 3)).toEqual(['S-101,,,withdrawn,0,0,0,', 'S-102,,,not-submitted,0,0,0,']);
+    expect(csv.body.split('\r\n').slice(1, 3)).toEqual(['S-101,,,withdrawn,0,0,0,,Acid catalysis (invented)', 'S-102,,,not-submitted,0,0,0,,Acid catalysis (invented)']);
     const refused = await call(api.app, 'POST', `${bUrl}/submissions`, s.taBToken, submissionsFor(['S-101', 'S-103'], 22), 422);
     expect(refused.body.error.details.map((d: { message: string }) => d.message)).toEqual(['withdrawn from this section; enrol them again to accept work', "not on this section's roster"]);
     // The removed student's work is still in their history; enrolling again brings them back.
