@@ -53,6 +53,24 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     return pageErrors;
   }
 
+  it('shows a first visitor the sign-in page, and a TA their home page, with no console error and no failed request', async () => {
+    const page = await browser.newPage();
+    const problems: string[] = [];
+    page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
+    page.on('pageerror', (e) => problems.push(`script: ${String(e)}`));
+    page.on('requestfailed', (r) => problems.push(`failed: ${r.url()}`));
+    page.on('response', (r) => r.status() >= 400 && problems.push(`${r.status()}: ${r.url()}`));
+    await page.goto(origin);
+    await page.getByLabel('Staff token').waitFor();
+    await page.reload();
+    await page.getByLabel('Staff token').waitFor();
+    await page.getByLabel('Staff token').fill(s.taAToken);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('link', { name: s.assignment.title }).waitFor();
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
   it('takes a TA from sign-in through upload, review, override and release to the gradebook and sign-out', async () => {
     const context = await browser.newContext({ acceptDownloads: true });
     const page = await context.newPage();
@@ -106,11 +124,13 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await expect.poll(() => page.locator('.changed-note').count()).toBe(0);
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Gradebook (CSV)' }).click()]);
+    // Saved under the name the service gives (course, section and assignment of the fixture, made safe by hand).
+    expect(download.suggestedFilename()).toBe('Physical_chemistry_lab_invented-A-Acid_catalysis_invented-gradebook.csv');
     const csv = (await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, '');
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('student_id,score,max_score,status,errors,warnings,infos,main_codes');
+    expect(lines[0]).toBe('student_id,score,max_score,status,errors,warnings,infos,main_codes,assignment');
     expect(lines.slice(1).map((l) => l.split(',')[0]).sort()).toEqual([...ids, 'S-006']);
-    expect(lines.find((l) => l.startsWith('S-006,'))).toBe('S-006,,,not-submitted,0,0,0,');
+    expect(lines.find((l) => l.startsWith('S-006,'))).toBe(`S-006,,,not-submitted,0,0,0,,${s.assignment.title}`);
 
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.getByLabel('Staff token').waitFor();
