@@ -111,6 +111,28 @@ describe('rateproof: arguments', () => {
     },
   );
 
+  // Common practice, no source: `--help` and `-h` print the usage on stdout and exit 0 (a request, not a mistake).
+  it.each([[['--help']], [['-h']], [['help']], [['check', '--help']], [['check', '--assignment', 'a.json', '-h']], [['serve', '--help']], [['demo', '-h']]])(
+    '%j: the usage on stdout, exit 0, nothing run',
+    async (argv) => {
+      const result = await rateproof(...argv);
+      expect([result.code, result.stderr]).toEqual([0, '']);
+      expect(result.stdout).toMatch(new RegExp(`^usage: rateproof ${argv[0].startsWith('-') || argv[0] === 'help' ? 'check' : argv[0]}`));
+    },
+  );
+
+  it('a subcommand\'s --help shows its own usage', async () => {
+    expect((await rateproof('serve', '--help')).stdout).toContain('DATABASE_URL');
+    expect((await rateproof('demo', '--help')).stdout).toContain('instructor token');
+    expect((await rateproof('check', '--help')).stdout).not.toContain('rateproof serve');
+  });
+
+  it('serve and demo refuse an argument they do not take: usage on stderr, exit 2', async () => {
+    const result = await rateproof('demo', 'somewhere');
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(/^rateproof: unexpected argument 'somewhere'\nusage: rateproof demo/);
+  });
+
   it('--reported only goes with a CSV file', async () => {
     const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), '--reported', file('reported.csv'));
     expect(result.code).toBe(2);
