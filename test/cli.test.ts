@@ -8,7 +8,7 @@ import { caught } from './support/thrown.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CheckResult } from '../schemas/result.ts';
 import { run } from '../server/cli.ts';
-import { filePosition } from '../server/cli/json-batches.ts';
+import { filePosition } from '../server/input/json-position.ts';
 import { generateSection } from '../server/demo/generated-section.ts';
 import { seededRandom } from '../server/demo/seeded-random.ts';
 import { generateAssignment } from '../server/demo/submission-generator.ts';

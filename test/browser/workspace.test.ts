@@ -139,6 +139,28 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await context.close();
   });
 
+  it('lists an upload\'s problems by submission counted from 1 with its line, and malformed JSON with its line', async () => {
+    const page = await browser.newPage();
+    await signIn(page, s.taAToken);
+    await page.getByRole('link', { name: s.assignment.title }).click();
+    await page.getByText('Add submissions').click();
+    const bad = JSON.parse(await readFile(batchFile, 'utf8')).slice(0, 2);
+    bad[1].runs[0].timeUnit = 'fortnights';
+    // Pretty-printed: the second submission starts on the line after the first one's closing brace, counted here.
+    const text = JSON.stringify(bad, null, 2);
+    const line = text.slice(0, text.indexOf('\n  {', 2) + 1).split('\n').length;
+    const badFile = join(tmpdir(), `rateproof-bad-${process.pid}.json`);
+    await writeFile(badFile, text);
+    await page.locator('#upload-files').setInputFiles(badFile);
+    await page.getByRole('button', { name: 'Check files' }).click();
+    await expect.poll(() => page.locator('table.problems tbody td').first().textContent()).toBe(`submission 2, line ${line}`);
+    await writeFile(badFile, '[\n  {"studentId": "S-001",\n  }\n]');
+    await page.locator('#upload-files').setInputFiles(badFile);
+    await page.getByRole('button', { name: 'Check files' }).click();
+    await page.getByText(/not valid JSON: .* at line 3 column 3/).waitFor();
+    await page.close();
+  });
+
   it('can be used by keyboard alone: sign in, open a section, sort and filter', async () => {
     const page = await browser.newPage();
     await page.goto(origin);

@@ -23,8 +23,8 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     const res = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [good1, good2, bad, stranger], 201);
     expect(res.body.stored.map((x: { studentId: string; version: number }) => [x.studentId, x.version])).toEqual([['S-001', 1], ['S-002', 1]]);
     expect(res.body.rejected).toEqual([
-      { at: '[2]', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
-      { at: '[3]', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" },
+      { at: 'submission 3, line 1', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
+      { at: 'submission 4, line 1', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" },
     ]);
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     // Every roster student has a row: a gradebook drops no one who has not submitted.
@@ -46,7 +46,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     const [good, bad] = submissionsFor(['S-005', 'S-006'], 11);
     (bad.runs[0].readings[1] as unknown[])[0] = 'soon';
     const res = await call(api.app, 'POST', `${url()}/submissions?dryRun=true`, s.taAToken, [good, bad], 200);
-    expect(res.body).toEqual({ dryRun: true, valid: 1, rejected: [{ at: '[1]', studentId: 'S-006', path: 'runs[0].readings[1][0]', message: expect.any(String) }] });
+    expect(res.body).toEqual({ dryRun: true, valid: 1, rejected: [{ at: 'submission 2, line 1', studentId: 'S-006', path: 'runs[0].readings[1][0]', message: expect.any(String) }] });
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     expect(table.body.find((r: { studentId: string }) => r.studentId === 'S-005').status).toBe('not-submitted');
   });
@@ -61,7 +61,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       payload: `--${boundary}\r\nContent-Disposition: form-data; name="readings"; filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n${readings}\r\n--${boundary}--\r\n`,
     });
     expect(res.statusCode, res.body).toBe(200);
-    expect(res.json()).toEqual({ dryRun: true, valid: 0, rejected: [{ at: 'submission 1', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" }] });
+    expect(res.json()).toEqual({ dryRun: true, valid: 0, rejected: [{ at: 'submission 1, readings line 2', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" }] });
   });
 
   it('a resubmission is a new version; the old one stays readable', async () => {
