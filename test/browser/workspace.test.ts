@@ -154,10 +154,11 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.locator('#upload-files').setInputFiles(badFile);
     await page.getByRole('button', { name: 'Check files' }).click();
     await expect.poll(() => page.locator('table.problems tbody td').first().textContent()).toBe(`submission 2, line ${line}`);
-    await writeFile(badFile, '[\n  {"studentId": "S-001",\n  }\n]');
-    await page.locator('#upload-files').setInputFiles(badFile);
+    const malformedFile = join(tmpdir(), `rateproof-malformed-${process.pid}.json`);
+    await writeFile(malformedFile, '[\n  {"studentId": "S-001",\n  }\n]');
+    await page.locator('#upload-files').setInputFiles(malformedFile);
     await page.getByRole('button', { name: 'Check files' }).click();
-    await page.getByText(/not valid JSON: .* at line 3 column 3/).waitFor();
+    await expect.poll(() => page.locator('.upload-outcome').textContent()).toMatch(/not valid JSON: .* at line 3 column 3/);
     await page.close();
   });
 
