@@ -22,3 +22,29 @@ export class UniqueNames {
     return candidate;
   }
 }
+
+/** The longest part a document name keeps of each name it is made from. */
+const PART_LENGTH = 60;
+
+/**
+ * One part of a document's name: runs of characters other than letters, digits, `.`, `_` and `-`
+ * become one `_`, and `_`, `.`, `-` at either end are dropped. With `ascii`, accents are taken off
+ * first and only ASCII letters count (for the plain `filename=`); without, any script's letters stay
+ * (for RFC 6266's `filename*`).
+ */
+function namePart(text: string, ascii: boolean): string {
+  const letters = ascii ? text.normalize('NFKD').replace(/[\u0300-\u036f]/g, '') : text.normalize('NFC');
+  const unsafe = ascii ? /[^A-Za-z0-9._-]+/g : /[^\p{L}\p{N}._-]+/gu;
+  const trimmed = letters.replace(unsafe, '_').replace(/^[._-]+|[._-]+$/g, '');
+  return [...trimmed].slice(0, PART_LENGTH).join('').replace(/[._-]+$/, '') || 'unnamed';
+}
+
+/**
+ * A downloaded document's name, said by what it is for: `<course>-<section>-<assignment>-gradebook.csv`,
+ * or with the student's id and version before the last word for a sheet. `ascii` is the name every
+ * client can save; `unicode` keeps letters such as é, for clients that read `filename*`.
+ */
+export function documentName(parts: readonly string[], what: string, extension: string): { ascii: string; unicode: string } {
+  const join = (ascii: boolean) => `${[...parts.map((p) => namePart(p, ascii)), what].join('-')}${extension}`;
+  return { ascii: join(true), unicode: join(false) };
+}

@@ -9,17 +9,21 @@ import { mainErrorCodes, severityCounts } from './result-summary.ts';
  * instructor's decision, which a blank cell would take away.
  *
  * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the codes of
- * the errors that cost points, most costly first, `;`-joined). A rejected result has an empty score.
+ * the errors that cost points, most costly first, `;`-joined), assignment (its title, the same on
+ * every row, so that gradebooks pasted together still say which is which; last, so that the columns
+ * before it stay where they were). A rejected result has an empty score.
  *
  * - RFC 4180: fields with a comma, a double quote, CR or LF are quoted, quotes doubled; lines end CRLF.
  * - UTF-8; with `bom: true` a byte-order mark first, which Excel needs to read UTF-8.
  * - Formula injection: a spreadsheet runs a cell that starts with `=`, `+`, `-`, `@`, tab or CR as a
- *   formula. Every text cell (student_id, status, main_codes) that starts with one of them gets a
+ *   formula. Every text cell (student_id, status, main_codes, assignment) that starts with one of them gets a
  *   leading `'`, which spreadsheets show as text. Number cells are written by us from numbers and are
  *   never prefixed: a negative number stays a number (-2 is data, not a formula). No cell of ours is
  *   negative today, but a prefixed number would stop being one in every spreadsheet.
  */
 export interface GradebookOptions {
+  /** The assignment's title, written on every row. */
+  assignment: string;
   bom?: boolean;
   /** Roster students with no submission, and whether each has withdrawn. */
   notSubmitted?: ReadonlyArray<{ studentId: string; withdrawn: boolean }>;
@@ -27,7 +31,7 @@ export interface GradebookOptions {
   withdrawn?: ReadonlySet<string>;
 }
 
-export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes'] as const;
+export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes', 'assignment'] as const;
 
 const FORMULA_START = /^[=+\-@\t\r]/;
 
@@ -68,9 +72,10 @@ function notSubmittedRow(student: { studentId: string; withdrawn: boolean }): Ce
   return [{ text: student.studentId }, { number: null }, { number: null }, { text: status }, { number: 0 }, { number: 0 }, { number: 0 }, { text: '' }];
 }
 
-export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions = {}): string {
+export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions): string {
   const withdrawn = options.withdrawn ?? new Set<string>();
   const rows = [...results.map((r) => row(r, withdrawn)), ...(options.notSubmitted ?? []).map(notSubmittedRow)];
-  const lines = [GRADEBOOK_COLUMNS.join(','), ...rows.map((r) => r.map(cellText).join(','))];
+  const assignment: Cell = { text: options.assignment };
+  const lines = [GRADEBOOK_COLUMNS.join(','), ...rows.map((r) => [...r, assignment].map(cellText).join(','))];
   return `${options.bom ? '\uFEFF' : ''}${lines.join('\r\n')}\r\n`;
 }

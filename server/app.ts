@@ -20,6 +20,8 @@ import { routes } from './routes/index.ts';
 import { ErrorResponse } from './routes/schemas.ts';
 import type { RouteContext, RouteSpec } from './routes/route-spec.ts';
 import { jsonDepth, MAX_JSON_DEPTH } from './routes/json-depth.ts';
+import { arrayElementLines, filePosition } from './input/json-position.ts';
+import { jsonElementLines } from './routes/json-element-lines.ts';
 import { decodeUtf8 } from './routes/utf8.ts';
 import { validationDetails } from './routes/validation-details.ts';
 import type { Store } from './store/connection.ts';
@@ -138,16 +140,19 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
 
   // Bodies are decoded strictly: text that is not UTF-8 is refused, never read with replacement characters.
   app.removeContentTypeParser(['application/json', 'text/plain']);
-  app.addContentTypeParser('application/json', { parseAs: 'buffer' }, (_req, body, done) => {
+  app.addContentTypeParser('application/json', { parseAs: 'buffer' }, (req, body, done) => {
+    let text = '';
     try {
-      const text = decodeUtf8(body as Buffer, 'body');
+      text = decodeUtf8(body as Buffer, 'body');
       if (jsonDepth(text) > MAX_JSON_DEPTH) {
         return done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `nested more than ${MAX_JSON_DEPTH} levels deep` }]), undefined);
       }
-      done(null, text.trim() === '' ? undefined : JSON.parse(text));
+      const value = text.trim() === '' ? undefined : JSON.parse(text);
+      if (Array.isArray(value)) jsonElementLines.set(req, arrayElementLines(text));
+      done(null, value);
     } catch (error) {
       if (error instanceof ApiError) return done(error, undefined);
-      done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `not valid JSON: ${(error as Error).message}` }]), undefined);
+      done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `not valid JSON: ${filePosition((error as Error).message, text)}` }]), undefined);
     }
   });
   app.addContentTypeParser(['text/csv', 'text/plain'], { parseAs: 'buffer' }, (_req, body, done) => {

@@ -8,7 +8,7 @@ import { caught } from './support/thrown.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CheckResult } from '../schemas/result.ts';
 import { run } from '../server/cli.ts';
-import { filePosition } from '../server/cli/json-batches.ts';
+import { filePosition } from '../server/input/json-position.ts';
 import { generateSection } from '../server/demo/generated-section.ts';
 import { seededRandom } from '../server/demo/seeded-random.ts';
 import { generateAssignment } from '../server/demo/submission-generator.ts';
@@ -110,6 +110,28 @@ describe('rateproof: arguments', () => {
       expect(result.stdout).toBe('');
     },
   );
+
+  // Common practice, no source: `--help` and `-h` print the usage on stdout and exit 0 (a request, not a mistake).
+  it.each([[['--help']], [['-h']], [['help']], [['check', '--help']], [['check', '--assignment', 'a.json', '-h']], [['serve', '--help']], [['demo', '-h']]])(
+    '%j: the usage on stdout, exit 0, nothing run',
+    async (argv) => {
+      const result = await rateproof(...argv);
+      expect([result.code, result.stderr]).toEqual([0, '']);
+      expect(result.stdout).toMatch(new RegExp(`^usage: rateproof ${argv[0].startsWith('-') || argv[0] === 'help' ? 'check' : argv[0]}`));
+    },
+  );
+
+  it('a subcommand\'s --help shows its own usage', async () => {
+    expect((await rateproof('serve', '--help')).stdout).toContain('DATABASE_URL');
+    expect((await rateproof('demo', '--help')).stdout).toContain('instructor token');
+    expect((await rateproof('check', '--help')).stdout).not.toContain('rateproof serve');
+  });
+
+  it('serve and demo refuse an argument they do not take: usage on stderr, exit 2', async () => {
+    const result = await rateproof('demo', 'somewhere');
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(/^rateproof: unexpected argument 'somewhere'\nusage: rateproof demo/);
+  });
 
   it('--reported only goes with a CSV file', async () => {
     const result = await rateproof('check', '--assignment', file('assignment.json'), file('one.json'), '--reported', file('reported.csv'));
@@ -265,9 +287,9 @@ describe('rateproof check --out DIR', () => {
     for (const pdf of ['s-01.pdf', 's-03.pdf', 'summary.pdf']) expect((await readFile(join(out, pdf))).subarray(0, 5).toString()).toBe('%PDF-');
     const gradebook = await readFile(join(out, 'gradebook.csv'), 'utf8');
     expect(gradebook.split('\r\n').slice(0, 4)).toEqual([
-      '\uFEFFstudent_id,score,max_score,status,errors,warnings,infos,main_codes',
+      '\uFEFFstudent_id,score,max_score,status,errors,warnings,infos,main_codes,assignment',
       expect.stringMatching(/^s-01,[\d.]+,[\d.]+,checked,/),
-      's-02,,0,rejected,0,0,0,',
+      's-02,,0,rejected,0,0,0,,assignment',
       expect.stringMatching(/^s-03,[\d.]+,[\d.]+,checked,/),
     ]);
   });

@@ -5,7 +5,7 @@
  * element is found when its batch is parsed, and parseBatch names its line and column in the file.
  */
 
-import { jsonErrorPosition } from './json-error-position.ts';
+import { at, filePosition } from '../input/json-position.ts';
 
 export interface JsonBatch {
   /** Whole elements: for an array with the commas between them, for JSON Lines one per line. */
@@ -17,8 +17,6 @@ export interface JsonBatch {
 
 /** A document that cannot be read: the reason, at a line and column of the file. */
 export class JsonLayoutError extends Error {}
-
-const at = (line: number, column: number) => `at line ${line} column ${column}`;
 
 const OPEN_BRACKET = 0x5b;
 const CLOSE_BRACKET = 0x5d;
@@ -54,20 +52,6 @@ export function parseBatch(batch: JsonBatch, jsonLines: boolean): unknown[] {
     // The bracket added in front is no part of the file: positions after it count from the batch's start.
     throw new JsonLayoutError(filePosition((error as Error).message, text, batch, 1));
   }
-}
-
-/**
- * JSON.parse says `at position 57`, or for an unexpected token quotes the text around it; a person
- * editing the file wants the reason, the line and the column.
- */
-export function filePosition(message: string, text: string, start: { line: number; column: number } = { line: 1, column: 1 }, skip = 0): string {
-  const stated = /^(.*?) in JSON at position (\d+)/.exec(message);
-  const reason = stated ? stated[1] : message.replace(/, (".*"|\.\.\.".*") is not valid JSON$/s, '');
-  const position = stated ? Number(stated[2]) : jsonErrorPosition(text);
-  if (position < 0) return reason;
-  const before = text.slice(skip, Math.max(skip, position)).split('\n');
-  const last = before[before.length - 1].length;
-  return `${reason} ${at(start.line + before.length - 1, before.length === 1 ? start.column + last : last + 1)}`;
 }
 
 export class JsonBatcher {

@@ -2,7 +2,7 @@ import type { Assignment } from '../checks/check.ts';
 import type { ExperimentKind } from '../checks/experiment-kind.ts';
 import { parseAssignment, SettingsError } from '../checks/check.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
-import { filePosition } from './json-batches.ts';
+import { filePosition } from '../input/json-position.ts';
 import type { CliIo } from './cli-io.ts';
 
 export async function readText(path: string, io: CliIo): Promise<string> {

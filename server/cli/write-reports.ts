@@ -56,7 +56,7 @@ export async function writeReports(
     }
     await writing.done();
   }
-  await save('gradebook.csv', gradebookCsv(results, { bom: true }));
+  await save('gradebook.csv', gradebookCsv(results, { assignment: header.assignment, bom: true }));
   const { renderSectionSummary } = await import('../../reports/section-summary.ts');
   const { sectionSignals } = await import('../signals/section-signals.ts');
   const submissionsRead = sheets.map((s) => s.input.submission);

@@ -72,8 +72,11 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     for (const row of secondKind) write(row);
     write(`\nwrote ${inputs.length} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/, and those of the second assignment to ${outDir}/temperature-dependence/`);
     write(`the demo database stays in ${dataDir}. To open the workspace on it:`);
-    write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with the TA token`);
-    write(`TA token (section ${section.id}, assignment ${assignment.id}): ${taToken}`);
+    write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with one of these tokens:`);
+    write(`instructor token (demo-instructor): ${instructorToken}`);
+    write(`  opens the course page (assignments, settings, rosters, staff and their tokens) and every section's results, students and downloads`);
+    write(`TA token (demo-ta): ${taToken}`);
+    write(`  opens the results of ${section.name} for both assignments, each student's page (findings, overrides, release) and the downloads; not the course page`);
   } finally {
     await app.close();
     await store.close();

@@ -30,6 +30,6 @@ export async function writeSectionDocuments(
       invented: true,
     }),
   );
-  await writeFile(join(dir, 'gradebook.csv'), gradebookCsv(await sectionResults(db, place.sectionId, place.assignmentId), { bom: true }));
+  await writeFile(join(dir, 'gradebook.csv'), gradebookCsv(await sectionResults(db, place.sectionId, place.assignmentId), { assignment: place.title, bom: true }));
   return inputs;
 }

@@ -13,6 +13,8 @@ export interface CsvRowError {
 
 export interface CsvSubmissions {
   submissions: unknown[];
+  /** Where each submission starts: the 1-based line of its first row in the main file. */
+  lines: number[];
   rowErrors: CsvRowError[];
 }
 

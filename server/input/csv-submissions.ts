@@ -53,7 +53,9 @@ export function parseSubmissionsCsv(readingsText: string, reportedText?: string)
   const readings = readTable(readingsText, READINGS_COLUMNS);
   const rowErrors: CsvRowError[] = readings.errors.map((e) => ({ file: 'readings', ...e }));
   const drafts = new Map<string, SubmissionDraft>();
+  const lines = new Map<string, number>();
   for (const row of readings.rows) {
+    if (!lines.has(row.cell('student_id'))) lines.set(row.cell('student_id'), row.line);
     const error = addReading(drafts, row, readings.decimalComma);
     if (error) rowErrors.push({ file: 'readings', row: row.line, message: error });
   }
@@ -66,7 +68,7 @@ export function parseSubmissionsCsv(readingsText: string, reportedText?: string)
     }
   }
   const decimalComma = readings.decimalComma;
-  return { submissions: [...drafts.values()].map((draft) => toSubmission(draft, decimalComma)), rowErrors };
+  return { submissions: [...drafts.values()].map((draft) => toSubmission(draft, decimalComma)), lines: [...drafts.keys()].map((id) => lines.get(id)!), rowErrors };
 }
 
 /** Files the row under its student and run; returns a message when the run's values disagree. */

@@ -37,7 +37,9 @@ export function parseTemperatureCsv(pointsText: string, reportedText?: string): 
   const drafts = new Map<string, Draft>();
   const points = readTable(pointsText, POINT_COLUMNS);
   const rowErrors: CsvRowError[] = points.errors.map((e) => ({ file: 'points', ...e }));
+  const lines = new Map<string, number>();
   for (const row of points.rows) {
+    if (!lines.has(row.cell('student_id'))) lines.set(row.cell('student_id'), row.line);
     const error = addPointRow(drafts, row, points.decimalComma);
     if (error) rowErrors.push({ file: 'points', row: row.line, message: error });
   }
@@ -54,7 +56,7 @@ export function parseTemperatureCsv(pointsText: string, reportedText?: string): 
     points: [...p.values()].map((point) => toPoint(point, points.decimalComma)),
     ...(Object.keys(r).length > 0 && { reported: r }),
   }));
-  return { submissions, rowErrors };
+  return { submissions, lines: [...drafts.keys()].map((id) => lines.get(id)!), rowErrors };
 }
 
 /** Files a row under its student and point; returns a message when the point's rows disagree. */

@@ -29,14 +29,14 @@ export const isCsvUpload = (body: unknown): body is CsvUpload => typeof body ===
  * The submissions in an upload, read by the kind's CSV layout in file order; a file the layout does
  * not have, a missing one, or a structural problem in one is a 400 naming the file (and line).
  */
-export async function submissionsFromCsv(kind: ExperimentKind, upload: CsvUpload): Promise<unknown[]> {
+export async function submissionsFromCsv(kind: ExperimentKind, upload: CsvUpload): Promise<{ submissions: unknown[]; lines: number[]; file: string }> {
   const layout = kind.csvLayout;
   if (!layout) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: `the kind ${kind.kind} has no CSV layout: send the submissions as a JSON array` }]);
   const problems = layoutProblems(layout, Object.keys(upload.csvFiles));
   if (problems.length > 0) throw new ApiError('invalid-input', undefined, problems);
-  const { submissions, rowErrors } = await layout.read(upload.csvFiles);
+  const { submissions, lines, rowErrors } = await layout.read(upload.csvFiles);
   if (rowErrors.length > 0) {
     throw new ApiError('invalid-input', 'the CSV cannot be read', rowErrors.map((e) => ({ path: `${e.file} line ${e.row}`, message: e.message })));
   }
-  return submissions;
+  return { submissions, lines, file: layout.main };
 }

@@ -1,17 +1,20 @@
 import { z } from 'zod';
+import { documentName } from '../../reports/file-names.ts';
 import { gradebookCsv } from '../../reports/gradebook-csv.ts';
 import { sectionZip } from '../../reports/section-zip.ts';
 import { ApiError } from '../errors.ts';
 import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
+import { reportNames } from '../store/names.ts';
 import { studentsWithoutSubmission, withdrawnStudents } from '../store/students.ts';
+import { attachment } from './download-header.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 const file = z.any().describe('a file');
 
-/** `attachment` with a plain ASCII name: ids are already letters, digits and . _ - */
-const download = (name: string) => ({ 'content-disposition': `attachment; filename="${name}"` });
+/** The course, section and assignment a download is named after, in that order. */
+const placeOf = (names: { course: string; section: string; assignment: string }) => [names.course, names.section, names.assignment];
 
 export const reportRoutes: RouteSpec[] = [
   {
@@ -24,7 +27,7 @@ export const reportRoutes: RouteSpec[] = [
     async handler({ db, grader, params: p, query }) {
       const input = await submissionFeedback(db, Number(p.submissionId), query.latest === 'true' ? 'latest' : 'released');
       if (!input) throw new ApiError('not-found', 'this submission has no checked result to report');
-      return { status: 200, body: await grader.renderSheet(input), contentType: 'application/pdf', headers: download(`${input.header.studentId}-v${input.header.version}.pdf`) };
+      return { status: 200, body: await grader.renderSheet(input), contentType: 'application/pdf', headers: attachment(documentName([...placeOf(input.header), input.header.studentId, `v${input.header.version}`], 'feedback', '.pdf')) };
     },
   },
   {
@@ -34,9 +37,11 @@ export const reportRoutes: RouteSpec[] = [
     summary: "Every student's feedback sheet in one ZIP, streamed: what each student was shown, or the latest result (a draft) where nothing was released",
     schema: { params, response: { 200: file } },
     async handler({ db, grader, scope, params: p }) {
-      const inputs = await sectionFeedback(db, scope.sectionId!, Number(p.assignmentId));
+      const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
+      const inputs = await sectionFeedback(db, sectionId, assignmentId);
       const sheets = grader.renderSheets(inputs.map((input) => ({ name: input.header.studentId, input })));
-      return { status: 200, body: sectionZip(sheets), contentType: 'application/zip', headers: download(`feedback-section-${scope.sectionId}.zip`) };
+      const name = documentName(placeOf(await reportNames(db, sectionId, assignmentId)), 'feedback', '.zip');
+      return { status: 200, body: sectionZip(sheets), contentType: 'application/zip', headers: attachment(name) };
     },
   },
   {
@@ -56,7 +61,7 @@ export const reportRoutes: RouteSpec[] = [
         submissions: inputs.map((i) => i.submission),
         signals: await grader.sectionSignals(inputs[0].settings, inputs.map((i) => i.submission)),
       });
-      return { status: 200, body: pdf, contentType: 'application/pdf', headers: download(`summary-section-${scope.sectionId}.pdf`) };
+      return { status: 200, body: pdf, contentType: 'application/pdf', headers: attachment(documentName(placeOf(inputs[0].header), 'summary', '.pdf')) };
     },
   },
   {
@@ -69,8 +74,9 @@ export const reportRoutes: RouteSpec[] = [
       const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
       const notSubmitted = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map((s) => ({ studentId: s.studentId, withdrawn: s.status === 'withdrawn' }));
       const withdrawn = new Set(await withdrawnStudents(db, sectionId));
-      const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { bom: query.bom === 'true', notSubmitted, withdrawn });
-      return { status: 200, body: csv, contentType: 'text/csv; charset=utf-8', headers: download(`gradebook-section-${scope.sectionId}.csv`) };
+      const names = await reportNames(db, sectionId, assignmentId);
+      const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { assignment: names.assignment, bom: query.bom === 'true', notSubmitted, withdrawn });
+      return { status: 200, body: csv, contentType: 'text/csv; charset=utf-8', headers: attachment(documentName(placeOf(names), 'gradebook', '.csv')) };
     },
   },
 ];

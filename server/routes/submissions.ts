@@ -10,6 +10,7 @@ import { getAssignment } from '../store/assignments.ts';
 import { insertSignalChoice, signalChoicesOf } from '../store/signal-choices.ts';
 import { getSubmission, insertOverride, latestResults, overridesOf, studentSubmissions } from '../store/submissions.ts';
 import { signalCodes } from '../../schemas/result.ts';
+import { jsonElementLines } from './json-element-lines.ts';
 import { filesFromMultipart, isCsvUpload, submissionsFromCsv } from './multipart-csv.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
@@ -94,9 +95,12 @@ export const submissionRoutes: RouteSpec[] = [
       const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
       // Stored settings that no longer validate are the server's problem, named before any checking.
       const { kind } = assignmentOf(assignment.settings, 'settings');
-      const submissions = isCsvUpload(body) ? await submissionsFromCsv(kind, body) : body;
+      const csv = isCsvUpload(body) ? await submissionsFromCsv(kind, body) : undefined;
+      const submissions = csv ? csv.submissions : body;
       if (!Array.isArray(submissions)) throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a JSON array of submissions, or multipart CSV files' }]);
-      return gradeBatch(grader, assignment, submissions.map((submission, i) => ({ at: request.isMultipart() ? `submission ${i + 1}` : `[${i}]`, submission })));
+      // Counted from 1, as a person reads a file, with the line where the submission starts.
+      const lines = csv ? csv.lines.map((line) => `${csv.file} line ${line}`) : (jsonElementLines.get(request) ?? []).map((line) => `line ${line}`);
+      return gradeBatch(grader, assignment, submissions.map((submission, i) => ({ at: `submission ${i + 1}${lines[i] ? `, ${lines[i]}` : ''}`, submission })));
     },
     async handler({ db, scope, caller, prepared, query }) {
       if (query.dryRun === 'true') {
@@ -105,7 +109,7 @@ export const submissionRoutes: RouteSpec[] = [
       }
       const outcome = await storeBatch(db, prepared as GradedBatch, { sectionId: scope.sectionId!, staffId: staffIdOf(caller) });
       if (outcome.stored.length === 0) {
-        throw new ApiError('nothing-stored', undefined, outcome.rejected.map((r) => ({ path: `${r.at}.${r.path}`, message: r.message })));
+        throw new ApiError('nothing-stored', undefined, outcome.rejected.map((r) => ({ path: `${r.at}: ${r.path}`, message: r.message })));
       }
       return { status: 201, body: outcome };
     },

@@ -53,6 +53,24 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     return pageErrors;
   }
 
+  it('shows a first visitor the sign-in page, and a TA their home page, with no console error and no failed request', async () => {
+    const page = await browser.newPage();
+    const problems: string[] = [];
+    page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
+    page.on('pageerror', (e) => problems.push(`script: ${String(e)}`));
+    page.on('requestfailed', (r) => problems.push(`failed: ${r.url()}`));
+    page.on('response', (r) => r.status() >= 400 && problems.push(`${r.status()}: ${r.url()}`));
+    await page.goto(origin);
+    await page.getByLabel('Staff token').waitFor();
+    await page.reload();
+    await page.getByLabel('Staff token').waitFor();
+    await page.getByLabel('Staff token').fill(s.taAToken);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('link', { name: s.assignment.title }).waitFor();
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
   it('takes a TA from sign-in through upload, review, override and release to the gradebook and sign-out', async () => {
     const context = await browser.newContext({ acceptDownloads: true });
     const page = await context.newPage();
@@ -107,17 +125,42 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await expect.poll(() => page.locator('.changed-note').count()).toBe(0);
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Gradebook (CSV)' }).click()]);
+    // Saved under the name the service gives (course, section and assignment of the fixture, made safe by hand).
+    expect(download.suggestedFilename()).toBe('Physical_chemistry_lab_invented-A-Acid_catalysis_invented-gradebook.csv');
     const csv = (await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, '');
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('student_id,score,max_score,status,errors,warnings,infos,main_codes');
+    expect(lines[0]).toBe('student_id,score,max_score,status,errors,warnings,infos,main_codes,assignment');
     expect(lines.slice(1).map((l) => l.split(',')[0]).sort()).toEqual([...ids, 'S-006']);
-    expect(lines.find((l) => l.startsWith('S-006,'))).toBe('S-006,,,not-submitted,0,0,0,');
+    expect(lines.find((l) => l.startsWith('S-006,'))).toBe(`S-006,,,not-submitted,0,0,0,,${s.assignment.title}`);
 
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.getByLabel('Staff token').waitFor();
     expect((await page.request.get(`${origin}/v1/me`)).status()).toBe(401);
     expect(pageErrors).toEqual([]);
     await context.close();
+  });
+
+  it('lists an upload\'s problems by submission counted from 1 with its line, and malformed JSON with its line', async () => {
+    const page = await browser.newPage();
+    await signIn(page, s.taAToken);
+    await page.getByRole('link', { name: s.assignment.title }).click();
+    await page.getByText('Add submissions').click();
+    const bad = JSON.parse(await readFile(batchFile, 'utf8')).slice(0, 2);
+    bad[1].runs[0].timeUnit = 'fortnights';
+    // Pretty-printed: the second submission starts on the line after the first one's closing brace, counted here.
+    const text = JSON.stringify(bad, null, 2);
+    const line = text.slice(0, text.indexOf('\n  {', 2) + 1).split('\n').length;
+    const badFile = join(tmpdir(), `rateproof-bad-${process.pid}.json`);
+    await writeFile(badFile, text);
+    await page.locator('#upload-files').setInputFiles(badFile);
+    await page.getByRole('button', { name: 'Check files' }).click();
+    await expect.poll(() => page.locator('table.problems tbody td').first().textContent()).toBe(`submission 2, line ${line}`);
+    const malformedFile = join(tmpdir(), `rateproof-malformed-${process.pid}.json`);
+    await writeFile(malformedFile, '[\n  {"studentId": "S-001",\n  }\n]');
+    await page.locator('#upload-files').setInputFiles(malformedFile);
+    await page.getByRole('button', { name: 'Check files' }).click();
+    await expect.poll(() => page.locator('.upload-outcome').textContent()).toMatch(/not valid JSON: .* at line 3 column 3/);
+    await page.close();
   });
 
   it('can be used by keyboard alone: sign in, open a section, sort and filter', async () => {

@@ -2,7 +2,9 @@ import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildApp } from '../../server/app.ts';
 import { runDemo } from '../../server/demo/run-demo.ts';
+import { openStore } from '../../server/store/connection.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 
 describe('npm run demo', () => {
@@ -77,5 +79,31 @@ describe('npm run demo', () => {
     expect(b17).toMatch(/Error · Run “[^”]+”, kobs and 7 more places/);
     expect(b17).toContain('2 findings cost points');
     expect(b17).not.toContain('Counted once');
+  });
+
+  it('ends with an instructor token and a TA token, each opening what it says on the demo database', async () => {
+    const token = (who: string) => new RegExp(`^${who} token \\(demo-[a-z]+\\): (\\S+)$`).exec(lines.find((l) => l.startsWith(`${who} token`)) ?? '')?.[1];
+    const [instructor, ta] = [token('instructor'), token('TA')];
+    expect(instructor).toBeDefined();
+    expect(ta).toBeDefined();
+    const store = openStore({ dataDir: join(dir, 'out', 'database') });
+    const app = await buildApp({ config: { dataDir: join(dir, 'out', 'database'), host: '127.0.0.1', port: 0, bodyLimitBytes: 1 << 20, logLevel: 'silent' }, store });
+    try {
+      const me = async (t: string) => (await app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: `Bearer ${t}` } })).json();
+      const [asInstructor, asTa] = [await me(instructor!), await me(ta!)];
+      expect([asInstructor.role, asTa.role]).toEqual(['instructor', 'ta']);
+      // The TA opens the section's results for both assignments; the instructor the course page as well.
+      const [course] = asTa.courses;
+      expect(course.assignments).toHaveLength(2);
+      for (const a of course.assignments) {
+        const results = await app.inject({ method: 'GET', url: `/v1/sections/${course.sections[0].id}/assignments/${a.id}/results`, headers: { authorization: `Bearer ${ta}` } });
+        expect(results.statusCode).toBe(200);
+      }
+      const staff = (t: string) => app.inject({ method: 'GET', url: `/v1/courses/${course.id}/staff`, headers: { authorization: `Bearer ${t}` } });
+      expect([(await staff(instructor!)).statusCode, (await staff(ta!)).statusCode]).toEqual([200, 403]);
+    } finally {
+      await app.close();
+      await store.close();
+    }
   });
 });

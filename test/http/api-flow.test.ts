@@ -23,8 +23,8 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     const res = await call(api.app, 'POST', `${url()}/submissions`, s.taAToken, [good1, good2, bad, stranger], 201);
     expect(res.body.stored.map((x: { studentId: string; version: number }) => [x.studentId, x.version])).toEqual([['S-001', 1], ['S-002', 1]]);
     expect(res.body.rejected).toEqual([
-      { at: '[2]', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
-      { at: '[3]', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" },
+      { at: 'submission 3, line 1', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
+      { at: 'submission 4, line 1', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" },
     ]);
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     // Every roster student has a row: a gradebook drops no one who has not submitted.
@@ -39,14 +39,14 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(table.body[0]).toMatchObject({ version: 1, status: 'checked', score: 22, maxScore: 22, released: false });
     expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, status: 'not-submitted', enrolment: 'enrolled', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false });
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv`, headers: { authorization: `Bearer ${s.taAToken}` } });
-    expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,');
+    expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,,Acid catalysis (invented)');
   });
 
   it('a dry run lists what would be refused and stores nothing', async () => {
     const [good, bad] = submissionsFor(['S-005', 'S-006'], 11);
     (bad.runs[0].readings[1] as unknown[])[0] = 'soon';
     const res = await call(api.app, 'POST', `${url()}/submissions?dryRun=true`, s.taAToken, [good, bad], 200);
-    expect(res.body).toEqual({ dryRun: true, valid: 1, rejected: [{ at: '[1]', studentId: 'S-006', path: 'runs[0].readings[1][0]', message: expect.any(String) }] });
+    expect(res.body).toEqual({ dryRun: true, valid: 1, rejected: [{ at: 'submission 2, line 1', studentId: 'S-006', path: 'runs[0].readings[1][0]', message: expect.any(String) }] });
     const table = await call(api.app, 'GET', `${url()}/results`, s.taAToken, undefined, 200);
     expect(table.body.find((r: { studentId: string }) => r.studentId === 'S-005').status).toBe('not-submitted');
   });
@@ -61,7 +61,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       payload: `--${boundary}\r\nContent-Disposition: form-data; name="readings"; filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n${readings}\r\n--${boundary}--\r\n`,
     });
     expect(res.statusCode, res.body).toBe(200);
-    expect(res.json()).toEqual({ dryRun: true, valid: 0, rejected: [{ at: 'submission 1', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" }] });
+    expect(res.json()).toEqual({ dryRun: true, valid: 0, rejected: [{ at: 'submission 1, readings line 2', studentId: 'S-999', path: 'studentId', message: "not on this section's roster" }] });
   });
 
   it('a resubmission is a new version; the old one stays readable', async () => {
@@ -213,6 +213,14 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect(summary.rawPayload.subarray(0, 5).toString()).toBe('%PDF-');
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv?bom=true`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(csv.body.startsWith('\uFEFFstudent_id,score,max_score')).toBe(true);
+    // Each download is named for its course, section and assignment (names from the fixture, made safe by hand).
+    const place = 'Physical_chemistry_lab_invented-A-Acid_catalysis_invented';
+    expect([pdf, zip, summary, csv].map((r) => r.headers['content-disposition'])).toEqual([
+      `attachment; filename="${place}-${table.body[0].studentId}-v${table.body[0].version}-feedback.pdf"`,
+      `attachment; filename="${place}-feedback.zip"`,
+      `attachment; filename="${place}-summary.pdf"`,
+      `attachment; filename="${place}-gradebook.csv"`,
+    ]);
     expect(csv.body.split('\r\n').filter((l) => l !== '')).toHaveLength(table.body.length + 1);
   });
 
@@ -230,7 +238,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
       ['S-102', 'not-submitted', 'enrolled'],
     ]);
     const csv = await api.app.inject({ method: 'GET', url: `${bUrl}/gradebook.csv`, headers: { authorization: `Bearer ${s.taBToken}` } });
-    expect(csv.body.split('\r\n').slice(1, 3)).toEqual(['S-101,,,withdrawn,0,0,0,', 'S-102,,,not-submitted,0,0,0,']);
+    expect(csv.body.split('\r\n').slice(1, 3)).toEqual(['S-101,,,withdrawn,0,0,0,,Acid catalysis (invented)', 'S-102,,,not-submitted,0,0,0,,Acid catalysis (invented)']);
     const refused = await call(api.app, 'POST', `${bUrl}/submissions`, s.taBToken, submissionsFor(['S-101', 'S-103'], 22), 422);
     expect(refused.body.error.details.map((d: { message: string }) => d.message)).toEqual(['withdrawn from this section; enrol them again to accept work', "not on this section's roster"]);
     // The removed student's work is still in their history; enrolling again brings them back.

@@ -96,60 +96,60 @@ const cases: Case[] = [
   {
     name: 'a string for a reading time t',
     request: submit(() => [broken('S-001', (s) => (s.runs[0].readings[2][0] = '2'))]),
-    ...perSubmission('[0].runs[0].readings[2][0]', /expected number, received string/),
+    ...perSubmission('submission 1, line 1: runs[0].readings[2][0]', /expected number, received string/),
   },
   {
     name: 'a number for studentId',
     request: submit(() => [broken('S-001', (s) => (s.studentId = 1))]),
-    ...perSubmission('[0].studentId', /expected string, received number/),
+    ...perSubmission('submission 1, line 1: studentId', /expected string, received number/),
   },
   {
     name: '"NaN" as text for a reading',
     request: submit(() => [broken('S-001', (s) => (s.runs[0].readings[2][1] = 'NaN'))]),
-    ...perSubmission('[0].runs[0].readings[2][1]', /number/),
+    ...perSubmission('submission 1, line 1: runs[0].readings[2][1]', /number/),
   },
   {
     name: '"NaN" as text in the reported ln F column',
     request: submit(() => [broken('S-001', (s) => (s.runs[2].reported.lnF[4] = 'NaN'))]),
     status: 422,
     code: 'nothing-stored',
-    paths: ['[0].runs[2].reported.lnF[4]', '[0].runs[2].reported.lnF[4]'],
+    paths: ['submission 1, line 1: runs[2].reported.lnF[4]', 'submission 1, line 1: runs[2].reported.lnF[4]'],
     detail: /a number such as/,
   },
   {
     name: 'a negative time that goes back',
     request: submit(() => [broken('S-001', (s) => (s.runs[1].readings[5][0] = -3))]),
-    ...perSubmission('[0].runs[1].readings[5][0]', /time -3 comes before the time above it, 4/),
+    ...perSubmission('submission 1, line 1: runs[1].readings[5][0]', /time -3 comes before the time above it, 4/),
   },
   {
     name: 'a repeated time with a different reading',
     request: submit(() => [broken('S-001', (s) => (s.runs[3].readings[7][0] = s.runs[3].readings[6][0]))]),
-    ...perSubmission('[0].runs[3].readings[7][0]', /time 6 is repeated with a different reading/),
+    ...perSubmission('submission 1, line 1: runs[3].readings[7][0]', /time 6 is repeated with a different reading/),
   },
   {
     name: 'empty runs',
     request: submit(() => [broken('S-001', (s) => (s.runs = []))]),
-    ...perSubmission('[0].runs', /at least one run/),
+    ...perSubmission('submission 1, line 1: runs', /at least one run/),
   },
   {
     name: 'fewer than 3 readings in a run',
     request: submit(() => [broken('S-001', (s) => (s.runs[0].readings = s.runs[0].readings.slice(0, 2)))]),
-    ...perSubmission('[0].runs[0].readings', /at least 3 readings/),
+    ...perSubmission('submission 1, line 1: runs[0].readings', /at least 3 readings/),
   },
   {
     name: 'an unknown time unit ("fortnights")',
     request: submit(() => [broken('S-001', (s) => (s.runs[1].timeUnit = 'fortnights'))]),
-    ...perSubmission('[0].runs[1].timeUnit', /unknown unit "fortnights"/),
+    ...perSubmission('submission 1, line 1: runs[1].timeUnit', /unknown unit "fortnights"/),
   },
   {
     name: 'a concentration unit given as the time unit',
     request: submit(() => [broken('S-001', (s) => (s.runs[0].timeUnit = 'mM'))]),
-    ...perSubmission('[0].runs[0].timeUnit', /not a time unit/),
+    ...perSubmission('submission 1, line 1: runs[0].timeUnit', /not a time unit/),
   },
   {
     name: 'an unknown catalyst unit',
     request: submit(() => [broken('S-001', (s) => (s.runs[2].catalyst.unit = 'furlongs'))]),
-    ...perSubmission('[0].runs[2].catalyst.unit', /unknown unit "furlongs"/),
+    ...perSubmission('submission 1, line 1: runs[2].catalyst.unit', /unknown unit "furlongs"/),
   },
   {
     name: 'every submission of a batch invalid, each for its own reason, with an Idempotency-Key',
@@ -159,13 +159,13 @@ const cases: Case[] = [
     ),
     status: 422,
     code: 'nothing-stored',
-    paths: ['[0].runs[0].timeUnit', '[1].runs[1].catalyst.value', '[2].studentId'],
+    paths: ['submission 1, line 1: runs[0].timeUnit', 'submission 2, line 1: runs[1].catalyst.value', 'submission 3, line 1: studentId'],
     detail: /unknown unit "fortnights"/,
   },
   {
     name: 'an unknown time unit in a multipart CSV upload',
     request: submitMultipart(() => ({ readings: readingsCsv('S-001').replace(/,min,/g, ',fortnights,') })),
-    ...perSubmission('submission 1.runs[0].timeUnit', /unknown unit "fortnights"/),
+    ...perSubmission('submission 1, readings line 2: runs[0].timeUnit', /unknown unit "fortnights"/),
   },
 
   // --- the request as a whole
@@ -225,12 +225,12 @@ const cases: Case[] = [
   {
     name: 'a NUL character in a run label',
     request: submit(() => [broken('S-001', (s) => (s.runs[1].label = 'run\u0000B'))]),
-    ...perSubmission('[0].runs[1].label', /NUL character or an unpaired surrogate/),
+    ...perSubmission('submission 1, line 1: runs[1].label', /NUL character or an unpaired surrogate/),
   },
   {
     name: 'an unpaired surrogate in a reported unit',
     request: submit(() => [broken('S-001', (s) => (s.reported.kA.unit = 'M^-1 \ud800min^-1'))]),
-    ...perSubmission('[0].reported.kA.unit', /NUL character or an unpaired surrogate/),
+    ...perSubmission('submission 1, line 1: reported.kA.unit', /NUL character or an unpaired surrogate/),
   },
   {
     name: 'an unpaired surrogate in a section name',
@@ -542,12 +542,25 @@ describe('malformed requests on PostgreSQL', () => {
     const res = await call(api.app, 'POST', submissionsUrl(s), s.taAToken, batch, 201);
     expect(res.body.stored).toEqual([expect.objectContaining({ studentId: 'S-006', version: 1, status: 'checked' })]);
     expect(res.body.rejected).toEqual([
-      { at: '[0]', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
-      { at: '[2]', studentId: 'S-004', path: 'runs[1].timeUnit', message: expect.stringContaining('unknown unit "fortnights"') },
-      { at: '[3]', studentId: 'S-101', path: 'studentId', message: "not on this section's roster" },
+      { at: 'submission 1, line 1', studentId: 'S-003', path: 'runs[0].readings[2][1]', message: expect.stringContaining('number') },
+      { at: 'submission 3, line 1', studentId: 'S-004', path: 'runs[1].timeUnit', message: expect.stringContaining('unknown unit "fortnights"') },
+      { at: 'submission 4, line 1', studentId: 'S-101', path: 'studentId', message: "not on this section's roster" },
     ]);
     // Exactly one submission and its result were added; nothing else changed.
     expect(await counts()).toEqual({ ...before, submissions: before.submissions + 1, results: before.results + 1 });
+  });
+
+  it('numbers a batch file\'s problems from 1 with the line each submission starts on, and names the line of malformed JSON', async () => {
+    const batch = [submissionsFor(['S-005'], 8)[0], broken('S-003', (x) => (x.runs[0].timeUnit = 'fortnights'))];
+    // Pretty-printed as an editor would: the second submission's opening brace is on the line counted here by hand.
+    const text = JSON.stringify(batch, null, 2);
+    const secondLine = text.slice(0, text.indexOf('\n  {', 2) + 1).split('\n').length;
+    const headers = { ...auth(s.taAToken), 'content-type': 'application/json' };
+    const res = await api.app.inject({ method: 'POST', url: `${submissionsUrl(s)}?dryRun=true`, headers, payload: text });
+    expect(res.json().rejected).toEqual([{ at: `submission 2, line ${secondLine}`, studentId: 'S-003', path: 'runs[0].timeUnit', message: expect.stringContaining('fortnights') }]);
+    const malformed = await api.app.inject({ method: 'POST', url: submissionsUrl(s), headers, payload: '[\n  {"studentId": "S-001",\n  }\n]' });
+    expect(malformed.statusCode).toBe(400);
+    expect(malformed.json().error.details).toEqual([{ path: 'body', message: expect.stringMatching(/^not valid JSON: .* at line 3 column 3$/) }]);
   });
 
   it('a batch where one submission has text that cannot be stored stores the others, and unknown fields are left out', async () => {
@@ -556,7 +569,7 @@ describe('malformed requests on PostgreSQL', () => {
     const [clean] = submissionsFor(['S-001'], 7);
     const extra = { ...clean, comment: 'a field the contract does not have \u0000', runs: clean.runs.map((r, i) => (i === 0 ? { ...r, colour: 'blue' } : r)) };
     const res = await call(api.app, 'POST', submissionsUrl(s), s.taAToken, [withNul, extra], 201);
-    expect(res.body.rejected).toEqual([{ at: '[0]', studentId: 'S-002', path: 'runs[0].timeUnit', message: expect.stringContaining('NUL character') }]);
+    expect(res.body.rejected).toEqual([{ at: 'submission 1, line 1', studentId: 'S-002', path: 'runs[0].timeUnit', message: expect.stringContaining('NUL character') }]);
     expect(res.body.stored).toEqual([expect.objectContaining({ studentId: 'S-001', status: 'checked' })]);
     const view = await call(api.app, 'GET', `/v1/submissions/${res.body.stored[0].submissionId}`, s.taAToken, undefined, 200);
     expect(view.body.payload).not.toHaveProperty('comment');

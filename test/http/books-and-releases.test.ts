@@ -233,7 +233,7 @@ describe('books and releases through the API', () => {
 
     // The student still sees version 1: the gradebook, the sheet and the ZIP; the row says it changed.
     expect(await row()).toMatchObject({ submissionId: v2, version: 2, score: 4, released: true, releasedScore: 2, releasedVersion: 1, changedSinceRelease: true });
-    expect(await bookLine()).toMatch(/^S-001,2,4,checked,1,\d+,\d+,sign-flipped$/);
+    expect(await bookLine()).toMatch(/^S-001,2,4,checked,1,\d+,\d+,sign-flipped,Sucrose inversion \(invented\)$/);
     for (const shown of [await sheet(v2), await zipSheet()]) {
       expect(shown).toContain('version 1');
       expect(shown).toContain('2 / 4 points');
@@ -255,7 +255,7 @@ describe('books and releases through the API', () => {
     // The section release covers the new version; the student then sees 4 of 4.
     expect((await call(api.app, 'POST', `${here}/release`, s.taAToken, undefined, 200)).body.released).toBe(1);
     expect(await row()).toMatchObject({ submissionId: v2, score: 4, released: true, releasedScore: 4, releasedVersion: 2, changedSinceRelease: false });
-    expect(await bookLine()).toMatch(/^S-001,4,4,checked,0,\d+,\d+,$/);
+    expect(await bookLine()).toMatch(/^S-001,4,4,checked,0,\d+,\d+,,Sucrose inversion \(invented\)$/);
     const now = await sheet(v2);
     expect(now).toContain('version 2');
     expect(now).toContain('4 / 4 points');

@@ -52,6 +52,15 @@ describe('workspace sessions', () => {
     expect(other.statusCode).toBe(404);
   });
 
+  it('answers the page\'s session probe with 200 and whether the cookie is a live session', async () => {
+    const probe = (cookie?: string) => api.app.inject({ method: 'GET', url: '/v1/session', headers: cookie ? { cookie } : {} });
+    const none = await probe();
+    expect([none.statusCode, none.json()]).toEqual([200, { signedIn: false }]);
+    expect((await probe(`${SESSION_COOKIE}=not-a-session`)).json()).toEqual({ signedIn: false });
+    const { cookie } = await signIn(s.taAToken);
+    expect((await probe(cookie)).json()).toEqual({ signedIn: true });
+  });
+
   it('refuses the admin token, a wrong token and an empty one, each with its reason', async () => {
     expect((await signIn(ADMIN_TOKEN)).res.statusCode).toBe(403);
     const wrong = await signIn('rp_not-a-real-token');

@@ -36,6 +36,11 @@ describe('readings file', () => {
     expect(Submission.safeParse(submissions[0]).success).toBe(true);
   });
 
+  it('says on which line each submission starts: its first row, counting the header as line 1', () => {
+    // s-01 first appears on line 2, s-02 on line 5 (counted by hand in the text above).
+    expect(parseSubmissionsCsv(comma).lines).toEqual([2, 5]);
+  });
+
   it('reads semicolons with decimal commas, a BOM, CRLF, free column order and any header case', () => {
     const text = '\uFEFFX;T;Time_Unit;Catalyst_Unit;Catalyst;Run;Student_ID;Temperature_C\r\n10,5;0;min;M;0,05;A;s-01;25,0\r\n9,5;1;min;M;0,05;A;s-01;25\r\n8,6;2;min;M;0,05;A;s-01;\r\n';
     const { submissions, rowErrors } = parseSubmissionsCsv(text);
@@ -102,7 +107,7 @@ describe('readings file', () => {
 
 describe('structural problems', () => {
   it('reports an empty file', () => {
-    expect(parseSubmissionsCsv('\uFEFF\n  \n')).toEqual({ submissions: [], rowErrors: [{ file: 'readings', row: 1, message: 'the file is empty' }] });
+    expect(parseSubmissionsCsv('\uFEFF\n  \n')).toEqual({ submissions: [], lines: [], rowErrors: [{ file: 'readings', row: 1, message: 'the file is empty' }] });
   });
 
   it('reports a header with no rows below it', () => {
@@ -115,6 +120,7 @@ describe('structural problems', () => {
     const text = 'student_id,run,catalyst,time_unit,t\ns-01,A,0.05,min,0\ns-01,A,0.05,min,1\n';
     expect(parseSubmissionsCsv(text)).toEqual({
       submissions: [],
+      lines: [],
       rowErrors: [
         { file: 'readings', row: 1, message: 'missing column "catalyst_unit"' },
         { file: 'readings', row: 1, message: 'missing column "x"' },

@@ -59,7 +59,7 @@ describe('the temperature-dependence kind through the service and the command', 
     expect(summary).toContain('The class’s activation parameters');
     expect(summary).toContain('FIT ordinary least squares');
     const gradebook = (await call(api.app, 'GET', `${url}/gradebook.csv`, s.taAToken, undefined, 200)).body as string;
-    expect(gradebook.replace(/^\uFEFF/, '').split('\r\n')[2]).toBe('S-002,0,2,checked,1,0,0,gas-constant');
+    expect(gradebook.replace(/^\uFEFF/, '').split('\r\n')[2]).toBe('S-002,0,2,checked,1,0,0,gas-constant,Activation energy (invented)');
   });
 
   it('takes its CSV layout as a multipart upload: a points file and a reported file', async () => {

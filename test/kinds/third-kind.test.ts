@@ -87,7 +87,7 @@ describe('a kind registered in one line', () => {
     expect(summary).toContain('intercept-for-slope');
 
     const gradebook = (await call(app, 'GET', `${url}/gradebook.csv`, s.taAToken, undefined, 200)).body as string;
-    expect(gradebook.replace(/^\uFEFF/, '').split('\r\n').slice(1, 4)).toEqual(['S-001,2,2,checked,0,0,0,', 'S-002,0,2,checked,1,0,0,sign-flipped', 'S-003,1,2,checked,1,0,0,intercept-for-slope']);
+    expect(gradebook.replace(/^\uFEFF/, '').split('\r\n').slice(1, 4)).toEqual(['S-001,2,2,checked,0,0,0,,Zero order (invented)', 'S-002,0,2,checked,1,0,0,sign-flipped,Zero order (invented)', 'S-003,1,2,checked,1,0,0,intercept-for-slope,Zero order (invented)']);
     const zip = await app.inject({ method: 'GET', url: `${url}/feedback.zip`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect((await unzip(zip.rawPayload)).map((e) => e.name).filter((n) => n.endsWith('.pdf'))).toHaveLength(3);
 

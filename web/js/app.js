@@ -82,15 +82,14 @@ function context(sectionId, assignmentId) {
 async function route() {
   try {
     if (!me) {
-      try {
-        me = await api('GET', '/v1/me');
-        setCsrfToken(me.csrfToken);
-      } catch (error) {
-        if (!(error instanceof ApiFailure) || error.status !== 401) throw error;
+      // The probe answers 200 either way, so a visitor not yet signed in sees no failed request.
+      if (!(await api('GET', '/v1/session')).signedIn) {
         fill(who);
         show(signInView(route));
         return;
       }
+      me = await api('GET', '/v1/me');
+      setCsrfToken(me.csrfToken);
     }
     header();
     const c = /^#\/course\/(\d+)$/.exec(location.hash);

@@ -48,7 +48,7 @@ export function uploadPanel(base, refresh, failure) {
     } catch (error) {
       progress.hidden = true;
       if (error instanceof ApiFailure && error.status < 500 && error.status !== 401) {
-        fill(outcome, h('p', { class: 'form-error', role: 'alert' }, error.message), problems(error.details.map((d) => ({ at: '', studentId: null, path: d.path, message: d.message }))));
+        fill(outcome, h('p', { class: 'form-error', role: 'alert' }, error.message), problems(error.details.map(detailRow)));
       } else failure(error);
     }
   }
@@ -79,6 +79,12 @@ export function uploadPanel(base, refresh, failure) {
     chosen,
   );
   return h('details', { class: 'panel upload' }, h('summary', {}, 'Add submissions'), zone, h('div', { class: 'row' }, check, progress), outcome);
+}
+
+/** A refused batch names each problem `submission 2, line 14: runs[0].timeUnit`: the place, then the field. */
+function detailRow(d) {
+  const place = /^(submission \d+[^:]*): (.*)$/.exec(d.path);
+  return { at: place ? place[1] : '', studentId: null, path: place ? place[2] : d.path, message: d.message };
 }
 
 function problems(list) {
