@@ -8,6 +8,7 @@ import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { generateAssignment } from '../../server/demo/submission-generator.ts';
 import { call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
 import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
+import { signIn as signInAt, watchProblems } from '../support/workspace-page.ts';
 
 if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
 
@@ -18,8 +19,8 @@ const SHOTS = process.env.SCREENSHOT_DIR ?? join(tmpdir(), 'rateproof-phone-shot
 const WIDTHS = [390, 1280];
 
 /**
- * Every workspace page at a phone's width and a laptop's: no page is wider than the window (no
- * sideways scroll of the page itself), and on the phone the results table shows each student's id and
+ * Every workspace page at a phone's width and a laptop's: no console error or failed request, no page
+ * wider than the window (no sideways scroll of the page itself), and on the phone the results table shows each student's id and
  * score without scrolling. Screenshots of each page at each width are written for a person to look at.
  */
 describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', () => {
@@ -48,12 +49,7 @@ describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', ()
     await api?.close();
   });
 
-  async function signIn(page: Page, token: string) {
-    await page.goto(origin);
-    await page.getByLabel('Staff token').fill(token);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByText(/^Signed in as/).waitFor();
-  }
+  const signIn = (page: Page, token: string) => signInAt(page, origin, token);
 
   /**
    * The page's own width against the window's: more means the whole page scrolls sideways. The
@@ -88,8 +84,8 @@ describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', ()
     it(`at ${width} px: sign-in, sections, results, one student's result and the course page fit the window`, async () => {
       const context = await browser.newContext({ viewport: { width, height: 844 } });
       const page = await context.newPage();
-      const pageErrors: string[] = [];
-      page.on('pageerror', (e) => pageErrors.push(String(e)));
+      // Nothing a person following the README should meet: no console or script error, no failed request.
+      const problems = watchProblems(page);
 
       await page.goto(origin);
       await page.getByLabel('Staff token').waitFor();
@@ -139,14 +135,14 @@ describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', ()
       await checkAndShoot(page, 'student', width);
 
       const instructor = await context.newPage();
-      instructor.on('pageerror', (e) => pageErrors.push(String(e)));
+      watchProblems(instructor, problems);
       await context.clearCookies();
       await signIn(instructor, s.instructorToken);
       await instructor.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
       await instructor.getByRole('heading', { name: 'Staff' }).waitFor();
       await checkAndShoot(instructor, 'course', width);
 
-      expect(pageErrors).toEqual([]);
+      expect(problems).toEqual([]);
       await context.close();
     });
   }

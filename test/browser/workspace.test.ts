@@ -8,6 +8,7 @@ import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { generateAssignment } from '../../server/demo/submission-generator.ts';
 import { call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
 import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
+import { signIn as signInAt, watchProblems } from '../support/workspace-page.ts';
 
 if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
 
@@ -38,12 +39,7 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await api?.close();
   });
 
-  async function signIn(page: Page, token: string) {
-    await page.goto(origin);
-    await page.getByLabel('Staff token').fill(token);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByText(/^Signed in as/).waitFor();
-  }
+  const signIn = (page: Page, token: string) => signInAt(page, origin, token);
 
   /** Signs in, collecting the page's script errors from the start (each test expects none). */
   async function signInWatchingErrors(page: Page, token: string): Promise<string[]> {
@@ -55,11 +51,7 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
 
   it('shows a first visitor the sign-in page, and a TA their home page, with no console error and no failed request', async () => {
     const page = await browser.newPage();
-    const problems: string[] = [];
-    page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
-    page.on('pageerror', (e) => problems.push(`script: ${String(e)}`));
-    page.on('requestfailed', (r) => problems.push(`failed: ${r.url()}`));
-    page.on('response', (r) => r.status() >= 400 && problems.push(`${r.status()}: ${r.url()}`));
+    const problems = watchProblems(page);
     await page.goto(origin);
     await page.getByLabel('Staff token').waitFor();
     await page.reload();

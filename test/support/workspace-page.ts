@@ -1,0 +1,21 @@
+import type { Page } from 'playwright-core';
+
+/** Signs in on the workspace at `origin` with a staff token, as a person does. */
+export async function signIn(page: Page, origin: string, token: string): Promise<void> {
+  await page.goto(origin);
+  await page.getByLabel('Staff token').fill(token);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByText(/^Signed in as/).waitFor();
+}
+
+/**
+ * Collects what a person following the README should never meet on a page: a console error, a script
+ * error, a failed request or an answer of 400 and above. The list is filled as the page is used.
+ */
+export function watchProblems(page: Page, problems: string[] = []): string[] {
+  page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
+  page.on('pageerror', (e) => problems.push(`script: ${String(e)}`));
+  page.on('requestfailed', (r) => problems.push(`failed: ${r.url()}`));
+  page.on('response', (r) => r.status() >= 400 && problems.push(`${r.status()}: ${r.url()}`));
+  return problems;
+}
