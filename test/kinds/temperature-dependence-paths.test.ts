@@ -54,7 +54,8 @@ describe('the temperature-dependence kind through the service and the command', 
     const sheet = await pdf(`/v1/submissions/${view.submissionId}/feedback.pdf`);
     expect(sheet).toContain('Arrhenius: Ea and A');
     expect(sheet).toContain('gas-constant');
-    expect(sheet).toContain('Arrhenius plot: ln k against 1/T');
+    expect(sheet).toContain('Arrhenius: ln k against 1/T');
+    expect(sheet).toContain('Eyring: ln(k/T) against 1/T');
     const summary = await pdf(`${url}/summary.pdf`);
     expect(summary).toContain('The class’s activation parameters');
     expect(summary).toContain('FIT ordinary least squares');
