@@ -38,40 +38,43 @@ export function drawTable(doc: Doc, columns: Column[], rows: string[][], options
   // at a space that is not part of a number (`1.9 × 10⁻⁷`, `0.03 ± 0.002`), and a cell whose longest
   // unbreakable piece is wider than its column is set smaller rather than broken inside it.
   const layout = (text: string, i: number, bold: boolean): CellLayout => layoutCell(doc, text, widths[i] - 2 * PAD_X, size, bold);
-  const rowHeight = (cells: string[], bold: boolean) => Math.max(...cells.map((c, i) => layout(c, i, bold).height)) + 2 * PAD_Y;
+  // Each row is laid out once: its height and its drawing read the same layouts.
+  const layRow = (cells: string[], bold: boolean): CellLayout[] => cells.map((c, i) => layout(c, i, bold));
+  const rowHeight = (laid: CellLayout[]) => Math.max(...laid.map((cell) => cell.height)) + 2 * PAD_Y;
 
-  const drawCells = (cells: string[], y: number, bold: boolean, color: string) => {
-    cells.forEach((text, i) => {
+  const drawCells = (laid: CellLayout[], y: number, bold: boolean, color: string) => {
+    laid.forEach((cell, i) => {
       const column = columns[i];
       const anchor = column.align === 'right' ? starts[i] + widths[i] - PAD_X : column.align === 'center' ? starts[i] + widths[i] / 2 : starts[i] + PAD_X;
-      const cell = layout(text, i, bold);
       cell.lines.forEach((line, n) => drawRich(doc, line, anchor, y + PAD_Y + n * cell.lineHeight, { size: cell.size, color, bold, align: column.align ?? 'left' }));
     });
   };
 
+  const headerLaid = layRow(columns.map((c) => c.header), true);
+  const headerHeight = rowHeight(headerLaid);
   const header = () => {
-    const headers = columns.map((c) => c.header);
-    const height = rowHeight(headers, true);
+    const height = headerHeight;
     const y = doc.y;
     doc.save().rect(left, y, tableWidth, height).fill(COLOR.panel).restore();
-    drawCells(headers, y, true, COLOR.ink);
+    drawCells(headerLaid, y, true, COLOR.ink);
     doc.save().moveTo(left, y + height).lineTo(left + tableWidth, y + height).lineWidth(0.8).strokeColor(COLOR.muted).stroke().restore();
     doc.y = y + height;
   };
 
-  const keep = (options.keepRows ?? 2) * (size + 2 * PAD_Y + 2) + rowHeight(columns.map((c) => c.header), true);
+  const keep = (options.keepRows ?? 2) * (size + 2 * PAD_Y + 2) + headerHeight;
   if (doc.y + keep > contentBottom(doc)) doc.addPage();
   header();
   rows.forEach((cells, index) => {
     const bold = options.boldRows?.has(index) ?? false;
-    const height = rowHeight(cells, bold);
+    const laid = layRow(cells, bold);
+    const height = rowHeight(laid);
     if (doc.y + height > contentBottom(doc)) {
       doc.addPage();
       header();
     }
     const y = doc.y;
     if (options.zebra && index % 2 === 1) doc.save().rect(left, y, tableWidth, height).fill('#f8f9fb').restore();
-    drawCells(cells, y, bold, COLOR.ink);
+    drawCells(laid, y, bold, COLOR.ink);
     doc.save().moveTo(left, y + height).lineTo(left + tableWidth, y + height).lineWidth(0.3).strokeColor(COLOR.rule).stroke().restore();
     doc.y = y + height;
   });
