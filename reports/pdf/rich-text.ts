@@ -34,8 +34,6 @@ export function plainRich(text: string): string {
   return parseRich(text).map((s) => s.text).join('');
 }
 
-export const isRich = (text: string): boolean => /[_^]\{/.test(text);
-
 export interface RichOptions {
   size: number;
   color?: string;
