@@ -96,10 +96,13 @@ export function checkRunK(
   const written = reported.uncertainty;
   const uncertainty = read.uncertainty === undefined || written === undefined ? undefined : { value: read.uncertainty, written };
   // The SE of an accepted method's own fit, where k is that fit's to the digits written (as a long shot must be).
-  const kMatch = closeMatch(reported.value, read.value, tolerances.k);
-  const methodSEs = guggenheimFits(a)
-    .filter((fit) => withinTolerance(read.value, fit.value, kMatch))
-    .map((fit) => fit.standardError);
+  // Fitted only for an SE to judge: a run without x_inf is refitted at every interval.
+  const kMatch = uncertainty && closeMatch(reported.value, read.value, tolerances.k);
+  const methodSEs = kMatch
+    ? guggenheimFits(a)
+        .filter((fit) => withinTolerance(read.value, fit.value, kMatch))
+        .map((fit) => fit.standardError)
+    : [];
   checkUncertainty(uncertainty, a, own, outcome, { values: slipValues, candidates }, methodSEs, settings, drafts);
   return { value: read.value, uncertainty: read.uncertainty };
 }
