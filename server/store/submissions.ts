@@ -1,6 +1,7 @@
 import { sql, type Kysely } from 'kysely';
 import { inParts } from '../in-parts.ts';
 import type { Database } from './database.ts';
+import { idKey } from './students.ts';
 
 /** Submissions are immutable versions; results are appended (a regrade adds one); overrides are an audit trail. */
 
@@ -206,7 +207,7 @@ export async function studentSubmissions(db: Kysely<Database>, sectionId: number
     .innerJoin('students', 'students.id', 'submissions.student_row_id')
     .select(submissionColumns)
     .where('students.section_id', '=', sectionId)
-    .where(sql`lower(students.student_id)`, '=', studentId.toLowerCase());
+    .where(sql`lower(students.student_id)`, '=', idKey(studentId));
   if (assignmentId !== undefined) query = query.where('submissions.assignment_id', '=', assignmentId);
   return query.orderBy('submissions.assignment_id').orderBy('submissions.version').execute();
 }
