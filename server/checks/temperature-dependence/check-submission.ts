@@ -1,9 +1,7 @@
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Settings, Submission } from '../../../schemas/kinds/temperature-dependence.ts';
 import type { CheckResult, RubricCount } from '../../../schemas/result.ts';
-import { EngineError } from '../../engine/engine-error.ts';
 import { GAS_CONSTANT } from '../../engine/physical-constants.ts';
-import { fitArrhenius } from '../../engine/temperature-dependence.ts';
 import { convert, type UnitKind } from '../../engine/units.ts';
 import { slipMatch } from '../cause-tolerance.ts';
 import { checkRounding } from '../sig-figs.ts';
@@ -104,7 +102,7 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
       reported: read.uncertainty,
       unit,
       expected: ours.standardError,
-      alsoRight: scaledConvention(analysis, settings).map((factor) => factor * ours.standardError),
+      alsoRight: scaledConvention(analysis).map((factor) => factor * ours.standardError),
       carriedForward: theirs && { value: convert(theirs.EaSE, QUANTITIES.Ea.base, unit), from: FROM_THEIR_K, quiet: outcome.kind === 'carried-forward' },
       slips: () => slipCandidates(analysis, 'EaSE', unit),
       factors: [...FACTORS.Ea.filter((f) => f !== SIGN), ...caloriesWrongWay(reported.unit)],
@@ -122,15 +120,8 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
  * refit's), or scaled by the scatter about the line (times the square root of the reduced chi-square).
  * Both are right; this is the factor from the one to the other.
  */
-function scaledConvention(analysis: TemperatureAnalysis, settings: Settings): number[] {
-  if (settings.fit !== 'weighted') return [];
-  try {
-    return [Math.sqrt(fitArrhenius(analysis.points, { kUnit: 's^-1', weighted: true }).line.reducedChiSquared)];
-  } catch (error) {
-    // The refit itself was made from these points: a weighted fit that fails here has nothing to add.
-    if (error instanceof EngineError) return [];
-    throw error;
-  }
+function scaledConvention(analysis: TemperatureAnalysis): number[] {
+  return analysis.reducedChiSquared === undefined ? [] : [Math.sqrt(analysis.reducedChiSquared)];
 }
 
 /**

@@ -35,6 +35,8 @@ export interface TemperatureAnalysis {
   A: Estimate;
   dH: Estimate;
   dS: Estimate;
+  /** The weighted Arrhenius fit's reduced chi-square (undefined for an ordinary fit): how far its points scatter beyond their SEs. */
+  reducedChiSquared?: number;
   /** Findings on the data: temperatures outside the plausible range (the refit uses what was probably meant), runs that gave no k. */
   dataNotes: DraftFinding[];
   /** What the same data give with one slip of method each: what a student who made it reports. */
@@ -219,6 +221,7 @@ export function analyseTemperatures(settings: Settings, input: Point[]): Tempera
     A: convertEstimate(arrhenius.A, settings.units.A),
     dH: convertEstimate(eyring.dH, settings.units.dH),
     dS: convertEstimate(eyring.dS, settings.units.dS),
+    reducedChiSquared: weighted ? ln.reducedChiSquared : undefined,
     dataNotes,
     slips,
   };
