@@ -60,7 +60,7 @@ function register(app: FastifyInstance, spec: RouteSpec, options: AppOptions, se
     method: spec.method,
     url: spec.url,
     // Every route may answer with the common error body; the OpenAPI document says so.
-    schema: { ...spec.schema, response: { ...errorResponses, ...spec.schema.response }, summary: spec.summary, security: [{ bearer: [] }] },
+    schema: { ...spec.schema, response: { ...errorResponses, ...spec.schema.response }, summary: spec.summary, security: [{ bearer: [] }], 'x-access': spec.access },
     // 401, then 404 or 403, come before any complaint about the body.
     async preValidation(request) {
       const caller = await callerOf(request, options.store, options.config);

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 /** The only reader of process.env: validated once, at start-up. */
-const ConfigSchema = z.object({
+export const ConfigSchema = z.object({
   DATABASE_URL: z
     .string()
     .regex(/^postgres(ql)?:\/\//, 'a postgres:// connection URL')
