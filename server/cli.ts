@@ -33,7 +33,7 @@ const SERVE = {
   synopsis: 'rateproof serve',
   text: `  serve   serve the API (/v1) and the workspace (/) until stopped; set up by environment variables:
           DATABASE_URL (unset: embedded PostgreSQL in RATEPROOF_DATA_DIR, default ./data), HOST and PORT
-          (default 127.0.0.1:3000), RATEPROOF_ADMIN_TOKEN and the others listed in the README
+          (default 127.0.0.1:3000), RATEPROOF_ADMIN_TOKEN and the others listed in docs/operations.md
 `,
 };
 
@@ -75,7 +75,7 @@ async function demo(): Promise<number> {
   return 0;
 }
 
-/** Serves the API until stopped; configuration comes from the environment (README). */
+/** Serves the API until stopped; configuration comes from the environment (docs/operations.md). */
 async function serve(): Promise<number> {
   const { serve: start } = await import('./main.ts');
   await start();
