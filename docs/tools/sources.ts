@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { buildApp } from '../../server/app.ts';
-import { ConfigSchema } from '../../server/config.ts';
+import { ConfigSchema, readConfig } from '../../server/config.ts';
 import { apiErrors } from '../../server/errors.ts';
 import { openStore } from '../../server/store/connection.ts';
 import { jsonSchemas } from '../../schemas/json-schemas.ts';
@@ -13,13 +13,14 @@ import type { JsonSchema } from './schema-fields.ts';
  * the only places that know where; the renderers take plain data.
  */
 
-/** The OpenAPI document of an app built as the tests build it: an embedded store (never opened), no workers. */
+/**
+ * The OpenAPI document of an app built as the tests build it: the default configuration, an embedded
+ * store in memory (never queried), checking in the calling thread.
+ */
 export async function openApiDocument(): Promise<OpenApiDocument> {
-  const store = openStore({ dataDir: 'memory://' });
-  const app = await buildApp({
-    config: { dataDir: 'memory://', host: '127.0.0.1', port: 0, bodyLimitBytes: 5 * 1024 * 1024, logLevel: 'silent', workers: 0 },
-    store,
-  });
+  const config = readConfig({ RATEPROOF_DATA_DIR: 'memory://', RATEPROOF_WORKERS: '0', LOG_LEVEL: 'silent' });
+  const store = openStore({ dataDir: config.dataDir });
+  const app = await buildApp({ config, store });
   try {
     await app.ready();
     return app.swagger() as unknown as OpenApiDocument;
