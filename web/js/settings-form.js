@@ -4,7 +4,6 @@ import { fill, h } from './dom.js';
 /**
  * @import { Failure } from './api.js'
  * @import { Tolerance } from '../../schemas/common.ts'
- * @import { Rejection } from '../../schemas/result.ts'
  * @import { Assignment } from '../../schemas/api/assignments.ts'
  * @import { Rubric, Settings, SettingsInput, Tolerances } from '../../schemas/kinds/first-order-catalysis.ts'
  */
@@ -54,7 +53,10 @@ const RUBRIC = [
   ['sigFigs', 'Rounding, once'],
 ];
 
-/** The schema's defaults, which a new assignment's form starts from. @satisfies {SettingsInput} */
+/**
+ * The schema's defaults, which a new assignment's form starts from.
+ * @satisfies {SettingsInput}
+ */
 const DEFAULTS = {
   kind: 'first-order-catalysis',
   fitModel: 'origin',
@@ -123,7 +125,7 @@ function jsonForm({ courseId, assignment, done, failure }, kind) {
       done(/** @type {Assignment} */ (saved));
     } catch (error) {
       if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
-      fill(messages, error.details.map((/** @type {Rejection} */ d) => h('li', {}, `${d.path.replace(/^body\.(settings\.)?/, '')}: ${d.message}`)));
+      fill(messages, error.details.map((d) => h('li', {}, `${d.path.replace(/^body\.(settings\.)?/, '')}: ${d.message}`)));
     }
   }
   return h(
