@@ -6,34 +6,11 @@ import { createAssignment, getAssignment, replaceSettings } from '../store/assig
 import { getSection } from '../store/courses.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam, Name } from './schemas.ts';
-
-const Assignment = z.object({
-  id: z.number(),
-  courseId: z.number(),
-  title: z.string(),
-  kind: z.string(),
-  /** The kind's stages, in order, as findings are grouped (titles with sub/superscript markup: k_{obs}). */
-  stages: z.array(z.object({ id: z.string(), title: z.string() })),
-  settings: z.unknown(),
-  settingsVersion: z.number(),
-  createdAt: z.date(),
-});
+import { Assignment, RegradeProgressView } from '../../schemas/api/assignments.ts';
 
 /** A stored assignment with what its kind says about how findings are grouped. */
 const withStages = <T extends { kind: string }>(assignment: T) => ({ ...assignment, stages: stagesOf(assignment.kind) });
 const Settings = z.record(z.string(), z.unknown());
-const RegradeProgressView = z.object({
-  regradeId: z.string(),
-  assignmentId: z.number(),
-  sectionId: z.number().nullable(),
-  total: z.number(),
-  done: z.number(),
-  status: z.enum(['running', 'finished', 'failed']),
-  error: z.string().optional(),
-  startedAt: z.date(),
-  finishedAt: z.date().optional(),
-});
-
 export const assignmentRoutes: RouteSpec[] = [
   {
     method: 'POST',

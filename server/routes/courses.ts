@@ -5,10 +5,10 @@ import { createToken, revokeTokens } from '../store/tokens.ts';
 import { mayManage } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam, Name } from './schemas.ts';
+import { IssuedToken, RevokedTokens, Staff, StaffMember } from '../../schemas/api/courses.ts';
 
 const Course = z.object({ id: z.number(), name: z.string(), createdAt: z.date() });
 const Section = z.object({ id: z.number(), courseId: z.number(), name: z.string() });
-const Staff = z.object({ id: z.number(), courseId: z.number(), handle: z.string(), role: z.enum(['instructor', 'ta']), sectionIds: z.array(z.number()) });
 
 export const courseRoutes: RouteSpec[] = [
   {
@@ -84,7 +84,7 @@ export const courseRoutes: RouteSpec[] = [
     url: '/v1/courses/:courseId/staff',
     access: 'instructor',
     summary: "The course's staff: role, the sections each TA teaches, and how many live tokens each holds",
-    schema: { params: z.object({ courseId: IdParam }), response: { 200: z.array(Staff.extend({ liveTokens: z.number() })) } },
+    schema: { params: z.object({ courseId: IdParam }), response: { 200: z.array(StaffMember) } },
     async handler({ db, scope }) {
       return { status: 200, body: await listStaff(db, scope.courseId!) };
     },
@@ -94,7 +94,7 @@ export const courseRoutes: RouteSpec[] = [
     url: '/v1/staff/:staffId/tokens',
     access: 'instructor',
     summary: "Issue an API token for a staff member (an instructor's only as the admin); it is shown once and stored only as a hash",
-    schema: { params: z.object({ staffId: IdParam }), response: { 201: z.object({ token: z.string() }) } },
+    schema: { params: z.object({ staffId: IdParam }), response: { 201: IssuedToken } },
     transactional: true,
     async handler({ db, params, caller }) {
       mayManage(caller, (await getStaff(db, Number(params.staffId)))!.role);
@@ -106,7 +106,7 @@ export const courseRoutes: RouteSpec[] = [
     url: '/v1/staff/:staffId/tokens/revoke',
     access: 'instructor',
     summary: "Revoke every token of a staff member (an instructor's only as the admin); their requests answer 401 from then on",
-    schema: { params: z.object({ staffId: IdParam }), response: { 200: z.object({ revoked: z.number() }) } },
+    schema: { params: z.object({ staffId: IdParam }), response: { 200: RevokedTokens } },
     transactional: true,
     async handler({ db, params, caller }) {
       mayManage(caller, (await getStaff(db, Number(params.staffId)))!.role);

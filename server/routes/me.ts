@@ -4,25 +4,9 @@ import { getStaff, listCourses, listSections } from '../store/courses.ts';
 import type { Caller } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { csrfTokenOf, readSessionCookie } from './session-cookie.ts';
+import { Me } from '../../schemas/api/me.ts';
 
 const CourseListing = z.object({ id: z.number(), name: z.string(), createdAt: z.date() });
-
-const Me = z.object({
-  role: z.enum(['admin', 'instructor', 'ta']),
-  staffId: z.number().optional(),
-  handle: z.string().optional(),
-  /** What the caller may open: the course, the sections they grade, its assignments. */
-  courses: z.array(
-    z.object({
-      id: z.number(),
-      name: z.string(),
-      sections: z.array(z.object({ id: z.number(), name: z.string() })),
-      assignments: z.array(z.object({ id: z.number(), title: z.string(), kind: z.string() })),
-    }),
-  ),
-  /** Under a session cookie: the token the page sends with each change (header x-csrf-token). */
-  csrfToken: z.string().optional(),
-});
 
 const courseIdsOf = (caller: Caller) => (caller.kind === 'admin' ? undefined : [caller.courseId]);
 

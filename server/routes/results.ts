@@ -7,32 +7,8 @@ import { studentsWithoutSubmission } from '../store/students.ts';
 import { latestSubmissionHeads, versionAndLatest } from '../store/submissions.ts';
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
-import { Enrolment, IdParam } from './schemas.ts';
-
-const Row = z.object({
-  studentId: z.string(),
-  /** Null for a roster student who has not submitted. */
-  submissionId: z.number().nullable(),
-  version: z.number().nullable(),
-  /** `checked`, `rejected`, `not-submitted`, or `withdrawn` (score kept when they submitted); null while a result is missing. */
-  status: z.string().nullable(),
-  /** On the roster: `enrolled` or `withdrawn` (removed students are left out). */
-  enrolment: Enrolment,
-  score: z.number().nullable(),
-  maxScore: z.number().nullable(),
-  errors: z.number(),
-  warnings: z.number(),
-  infos: z.number(),
-  codes: z.array(z.string()),
-  /** Something was released to the student (of this version or an earlier one): they see `releasedScore` until a TA releases again. */
-  released: z.boolean(),
-  /** The score the student was shown; null when nothing was released. */
-  releasedScore: z.number().nullable(),
-  /** The version released: this row's or an earlier one; null when nothing was released. */
-  releasedVersion: z.number().nullable(),
-  /** Released, and the latest result (a regrade, an override, a new version) would show the student something else: `score` beside `releasedScore`. */
-  changedSinceRelease: z.boolean(),
-});
+import { IdParam } from './schemas.ts';
+import { Released, ResultRow } from '../../schemas/api/results.ts';
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 
@@ -42,7 +18,7 @@ export const resultRoutes: RouteSpec[] = [
     url: '/v1/sections/:sectionId/assignments/:assignmentId/results',
     access: 'section',
     summary: "A section's results: one row per roster student (latest version, or not submitted), with counts by severity and the codes found",
-    schema: { params, response: { 200: z.array(Row) } },
+    schema: { params, response: { 200: z.array(ResultRow) } },
     async handler({ db, scope, params: p }) {
       const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
       const rows = await latestWithResults(db, sectionId, assignmentId);
@@ -89,7 +65,7 @@ export const resultRoutes: RouteSpec[] = [
     access: 'section',
     summary:
       "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action",
-    schema: { params, response: { 200: z.object({ released: z.number() }) } },
+    schema: { params, response: { 200: Released } },
     transactional: true,
     async handler({ db, scope, params: p, caller }) {
       const latest = await latestSubmissionHeads(db, Number(p.assignmentId), scope.sectionId!);
@@ -104,7 +80,7 @@ export const resultRoutes: RouteSpec[] = [
     access: 'section',
     summary:
       "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since; only the student's latest version can be released (409 otherwise)",
-    schema: { params: z.object({ submissionId: IdParam }), response: { 200: z.object({ released: z.number() }) } },
+    schema: { params: z.object({ submissionId: IdParam }), response: { 200: Released } },
     transactional: true,
     async handler({ db, params, caller }) {
       // A student sees their latest release: releasing an older version would take back a newer one.

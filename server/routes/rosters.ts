@@ -4,28 +4,12 @@ import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { addToRoster, idKey, listRoster, rosterRows, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
 import type { RouteSpec } from './route-spec.ts';
-import { Enrolment, IdParam } from './schemas.ts';
-
-const RosterStudent = z.object({
-  studentId: z.string(),
-  displayName: z.string().nullable(),
-  status: Enrolment,
-  /** Every change of enrolment: to what, by whom (null for the admin), when. */
-  history: z.array(z.object({ status: Enrolment, by: z.string().nullable(), at: z.date() })),
-});
+import { IdParam } from './schemas.ts';
+import { Enrolment, RosterAdded, RosterStudent } from '../../schemas/api/rosters.ts';
 
 const Entry = z.object({ studentId: StudentId, displayName: Text(200).optional() });
 const MAX_STUDENTS = 5000;
 const RosterBody = z.union([z.object({ students: z.array(Entry).min(1, 'at least one student').max(MAX_STUDENTS, 'at most 5,000 students in one request') }), z.string()]);
-const RosterAdded = z.object({
-  /** Students new to the roster. */
-  added: z.number(),
-  /** Students withdrawn or removed before, enrolled again. */
-  reenrolled: z.number(),
-  /** Students listed who were already enrolled: nothing changed for them but a display name given. */
-  alreadyEnrolled: z.number(),
-});
-
 /** A roster entry with where in the request its id was given, for messages. */
 type Placed = RosterEntry & { at: string };
 

@@ -11,6 +11,3 @@ export const ErrorResponse = z.object({
   }),
 });
 export const Name = Text(200);
-
-/** A roster student's enrolment: never deleted, only withdrawn or removed. */
-export const Enrolment = z.enum(['enrolled', 'withdrawn', 'removed']);

@@ -5,11 +5,10 @@ import { ApiError } from '../errors.ts';
 import type { Store } from '../store/connection.ts';
 import { createSession, endSession, sessionCaller } from '../store/sessions.ts';
 import { tokenCaller } from './caller.ts';
+import { Session, SessionState } from '../../schemas/api/session.ts';
 import { csrfMatches, csrfTokenOf, readSessionCookie, SESSION_HOURS, sessionCookieHeader } from './session-cookie.ts';
 
 const SignIn = z.object({ token: z.string().min(1, 'the token is empty').max(500) });
-const Session = z.object({ expiresAt: z.date(), csrfToken: z.string() });
-const SessionState = z.object({ signedIn: z.boolean() });
 
 /**
  * The workspace's sign-in and sign-out: a staff token is exchanged once for an HttpOnly session

@@ -15,45 +15,7 @@ import { filesFromMultipart, isCsvUpload, submissionsFromCsv } from './multipart
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
-
-const Stored = z.object({
-  studentId: z.string(),
-  submissionId: z.number(),
-  version: z.number(),
-  status: z.string(),
-  score: z.number().nullable(),
-  maxScore: z.number(),
-});
-const Rejected = z.object({ at: z.string(), studentId: z.string().nullable(), path: z.string(), message: z.string() });
-const Result = z.looseObject({ resultId: z.number(), score: z.number().nullable(), maxScore: z.number(), findings: z.array(z.unknown()) });
-const Override = z.object({
-  id: z.number(),
-  submissionId: z.number(),
-  findingId: z.string(),
-  pointsBefore: z.number(),
-  pointsAfter: z.number(),
-  reason: z.string(),
-  /** The reason is printed on the student's sheet (else it stays in the audit trail only). */
-  reasonShown: z.boolean(),
-  by: z.string(),
-  at: z.date(),
-});
-const SignalChoice = z.object({ code: z.string(), path: z.string(), onSheet: z.boolean(), by: z.string(), at: z.date() });
-const SubmissionView = z.object({
-  submissionId: z.number(),
-  assignmentId: z.number(),
-  studentId: z.string(),
-  sectionId: z.number(),
-  version: z.number(),
-  submittedAt: z.date(),
-  payload: z.unknown(),
-  result: Result.nullable(),
-  overrides: z.array(Override),
-  /** Every choice to put a signal on the sheet or take it off, oldest first. */
-  signalChoices: z.array(SignalChoice),
-  /** What the student was shown, of this version or an earlier one (null: nothing released yet), and whether this version's latest result differs from it. */
-  release: z.object({ at: z.date(), version: z.number(), score: z.number().nullable(), changedSinceRelease: z.boolean() }).nullable(),
-});
+import { BatchChecked, BatchStored, ResultView, SubmissionView } from '../../schemas/api/submissions.ts';
 
 async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {
   const s = (await getSubmission(db, submissionId))!;
@@ -84,8 +46,8 @@ export const submissionRoutes: RouteSpec[] = [
       // A dry run checks the batch and lists what would be refused, storing nothing.
       querystring: z.object({ dryRun: z.enum(['true', 'false']).default('false') }),
       response: {
-        201: z.object({ stored: z.array(Stored), rejected: z.array(Rejected) }),
-        200: z.object({ dryRun: z.literal(true), valid: z.number(), rejected: z.array(Rejected) }),
+        201: BatchStored,
+        200: BatchChecked,
       },
     },
     readBody: async (request) => (request.isMultipart() ? filesFromMultipart(request) : request.body),
@@ -183,7 +145,7 @@ export const submissionRoutes: RouteSpec[] = [
     schema: {
       params: z.object({ sectionId: IdParam, studentId: StudentId }),
       querystring: z.object({ assignmentId: IdParam.optional() }),
-      response: { 200: z.array(z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: Result.nullable() })) },
+      response: { 200: z.array(z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: ResultView.nullable() })) },
     },
     async handler({ db, scope, params, query }) {
       const rows = await studentSubmissions(db, scope.sectionId!, params.studentId, query.assignmentId as number | undefined);

@@ -6,23 +6,35 @@ import { signInView } from './sign-in.js';
 import { studentView } from './student-view.js';
 
 /**
+ * @import { Children } from './dom.js'
+ * @import { Place } from './section-view.js'
+ * @import { Me } from '../../schemas/api/me.ts'
+ * @import { SessionState } from '../../schemas/api/session.ts'
+ */
+
+/**
  * The workspace: one page, its place kept in the address (#/section/1/assignment/2, and
  * /submission/7 for one student), so the browser's back button and bookmarks work.
  */
-const main = document.getElementById('main');
-const who = document.getElementById('who');
+
+// Both are in index.html, which loads this module.
+const main = /** @type {HTMLElement} */ (document.getElementById('main'));
+const who = /** @type {HTMLElement} */ (document.getElementById('who'));
+/** @type {Me | null} */
 let me = null;
 
+/** @param {...Children} nodes */
 function show(...nodes) {
   fill(main, ...nodes);
 }
 
+/** @param {unknown} error */
 function failure(error) {
   if (error instanceof ApiFailure && error.status === 401) {
     me = null;
     return route();
   }
-  show(h('p', { class: 'form-error', role: 'alert' }, error.message));
+  show(h('p', { class: 'form-error', role: 'alert' }, error instanceof Error ? error.message : String(error)));
 }
 
 async function signOut() {
@@ -36,19 +48,23 @@ async function signOut() {
   }
 }
 
-function header() {
-  const role = { ta: 'teaching assistant', instructor: 'instructor', admin: 'administrator' }[me.role];
-  fill(who, h('span', {}, `Signed in as ${me.handle ?? 'admin'} (${role})`), h('button', { type: 'button', class: 'quiet', onclick: signOut }, 'Sign out'));
+/** @param {Me} caller */
+function header(caller) {
+  const role = { ta: 'teaching assistant', instructor: 'instructor', admin: 'administrator' }[caller.role];
+  fill(who, h('span', {}, `Signed in as ${caller.handle ?? 'admin'} (${role})`), h('button', { type: 'button', class: 'quiet', onclick: signOut }, 'Sign out'));
 }
 
-/** The courses, sections and assignments the caller may open. */
-function home() {
-  const list = me.courses.map((course) =>
+/**
+ * The courses, sections and assignments the caller may open.
+ * @param {Me} caller
+ */
+function home(caller) {
+  const list = caller.courses.map((course) =>
     h(
       'section',
       { class: 'panel' },
       h('h2', {}, course.name),
-      me.role === 'instructor' ? h('p', {}, h('a', { href: `#/course/${course.id}` }, 'Manage the course: assignments, rosters, staff')) : null,
+      caller.role === 'instructor' ? h('p', {}, h('a', { href: `#/course/${course.id}` }, 'Manage the course: assignments, rosters, staff')) : null,
       course.sections.length === 0
         ? h('p', { class: 'hint' }, 'No section of this course is assigned to you.')
         : h(
@@ -70,8 +86,14 @@ function home() {
   show(h('h1', {}, 'Your sections'), ...list);
 }
 
-function context(sectionId, assignmentId) {
-  for (const course of me.courses) {
+/**
+ * @param {Me} caller
+ * @param {number} sectionId
+ * @param {number} assignmentId
+ * @returns {Place | undefined}
+ */
+function context(caller, sectionId, assignmentId) {
+  for (const course of caller.courses) {
     const section = course.sections.find((s) => s.id === sectionId);
     const assignment = course.assignments.find((a) => a.id === assignmentId);
     if (section && assignment) return { course, section, assignment };
@@ -83,15 +105,15 @@ async function route() {
   try {
     if (!me) {
       // The probe answers 200 either way, so a visitor not yet signed in sees no failed request.
-      if (!(await api('GET', '/v1/session')).signedIn) {
+      if (!(/** @type {SessionState} */ (await api('GET', '/v1/session'))).signedIn) {
         fill(who);
         show(signInView(route));
         return;
       }
-      me = await api('GET', '/v1/me');
+      me = /** @type {Me} */ (await api('GET', '/v1/me'));
       setCsrfToken(me.csrfToken);
     }
-    header();
+    header(me);
     const c = /^#\/course\/(\d+)$/.exec(location.hash);
     const course = c && me.role === 'instructor' && me.courses.find((x) => x.id === Number(c[1]));
     if (course) {
@@ -101,8 +123,8 @@ async function route() {
       return;
     }
     const m = /^#\/section\/(\d+)\/assignment\/(\d+)(?:\/submission\/(\d+))?$/.exec(location.hash);
-    const place = m && context(Number(m[1]), Number(m[2]));
-    if (!place) return home();
+    const place = m && context(me, Number(m[1]), Number(m[2]));
+    if (!m || !place) return home(me);
     if (m[3]) show(await studentView(place, Number(m[3]), failure));
     else show(await sectionView(place, failure));
     // Focus moves to the new content for keyboard and screen-reader users; the page starts at its top.

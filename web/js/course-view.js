@@ -1,14 +1,27 @@
-import { api } from './api.js';
+import { api, ApiFailure } from './api.js';
 import { fill, h, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { settingsForm } from './settings-form.js';
 
-/** An instructor's course: assignments (settings, regrades), each section's roster, and the staff. */
+/**
+ * @import { Failure } from './api.js'
+ * @import { Assignment, RegradeProgressView } from '../../schemas/api/assignments.ts'
+ * @import { IssuedToken, RevokedTokens, StaffMember } from '../../schemas/api/courses.ts'
+ * @import { MyCourse } from '../../schemas/api/me.ts'
+ * @import { Enrolment, RosterAdded, RosterStudent } from '../../schemas/api/rosters.ts'
+ */
+
+/**
+ * An instructor's course: assignments (settings, regrades), each section's roster, and the staff.
+ * @param {MyCourse} course
+ * @param {Failure} failure
+ * @param {() => unknown} reload after a new assignment, which the caller's listing must name
+ */
 export async function courseView(course, failure, reload) {
   const [assignments, staff, rosters] = await Promise.all([
-    Promise.all(course.assignments.map((a) => api('GET', `/v1/assignments/${a.id}`))),
-    api('GET', `/v1/courses/${course.id}/staff`),
-    Promise.all(course.sections.map((s) => api('GET', `/v1/sections/${s.id}/roster`))),
+    Promise.all(course.assignments.map((a) => /** @type {Promise<Assignment>} */ (api('GET', `/v1/assignments/${a.id}`)))),
+    /** @type {Promise<StaffMember[]>} */ (api('GET', `/v1/courses/${course.id}/staff`)),
+    Promise.all(course.sections.map((s) => /** @type {Promise<RosterStudent[]>} */ (api('GET', `/v1/sections/${s.id}/roster`)))),
   ]);
   return h(
     'div',
@@ -21,6 +34,10 @@ export async function courseView(course, failure, reload) {
   );
 }
 
+/**
+ * @param {Assignment} assignment
+ * @param {Failure} failure
+ */
 function assignmentPanel(assignment, failure) {
   const progress = h('div', { class: 'regrade', 'aria-live': 'polite' });
   const status = h('p', { class: 'hint' }, `Settings version ${assignment.settingsVersion}.`);
@@ -28,26 +45,33 @@ function assignmentPanel(assignment, failure) {
     assignment = saved;
     status.textContent = `Settings version ${saved.settingsVersion} saved ${when(new Date().toISOString())}. Regrade to apply it to stored work.`;
   } }));
+  /** @type {HTMLButtonElement} */
   const regrade = h('button', { type: 'button', onclick: () => startRegrade(assignment, progress, regrade, failure) }, 'Regrade every submission');
   return h('article', { class: 'panel' }, h('h3', {}, assignment.title), status, edit, h('div', { class: 'row' }, regrade, progress));
 }
 
+/**
+ * @param {Assignment} assignment
+ * @param {Element} area
+ * @param {HTMLButtonElement} button
+ * @param {Failure} failure
+ */
 async function startRegrade(assignment, area, button, failure) {
   button.disabled = true;
   const bar = h('progress', { max: '1', value: '0', 'aria-label': 'Regrade progress' });
   const text = h('span', {}, 'Starting…');
   fill(area, bar, ' ', text);
   try {
-    let run = await api('POST', `/v1/assignments/${assignment.id}/regrade`, {});
+    let run = /** @type {RegradeProgressView} */ (await api('POST', `/v1/assignments/${assignment.id}/regrade`, {}));
     while (run.status === 'running') {
-      bar.max = String(Math.max(run.total, 1));
-      bar.value = String(run.done);
+      bar.max = Math.max(run.total, 1);
+      bar.value = run.done;
       text.textContent = `${run.done} of ${run.total} regraded`;
       await new Promise((r) => setTimeout(r, 400));
-      run = await api('GET', `/v1/assignments/${assignment.id}/regrades/${run.regradeId}`);
+      run = /** @type {RegradeProgressView} */ (await api('GET', `/v1/assignments/${assignment.id}/regrades/${run.regradeId}`));
     }
-    bar.max = String(Math.max(run.total, 1));
-    bar.value = String(run.done);
+    bar.max = Math.max(run.total, 1);
+    bar.value = run.done;
     text.textContent = run.status === 'finished' ? `Regrade finished: ${run.done} of ${run.total} submissions regraded.` : `Regrade stopped: ${run.error ?? 'unknown reason'}. Results stored before it stopped stay; starting again is safe.`;
   } catch (error) {
     failure(error);
@@ -56,15 +80,27 @@ async function startRegrade(assignment, area, button, failure) {
   }
 }
 
+/**
+ * @param {MyCourse} course
+ * @param {Failure} failure
+ * @param {() => unknown} reload
+ */
 function newAssignment(course, failure, reload) {
   return h('details', { class: 'panel' }, h('summary', {}, 'New assignment'), settingsForm({ courseId: course.id, failure, done: () => reload() }));
 }
 
+/** @type {[Enrolment, string][]} */
 const ENROLMENT = [['enrolled', 'enrolled'], ['withdrawn', 'withdrawn'], ['removed', 'removed (kept in history)']];
 
+/**
+ * @param {MyCourse['sections'][number]} section
+ * @param {RosterStudent[]} roster
+ * @param {Failure} failure
+ */
 function rosterPanel(section, roster, failure) {
   const list = h('table', { class: 'roster cards' });
   const heading = h('h3', {});
+  /** @param {RosterStudent[]} rows */
   const draw = (rows) => {
     heading.textContent = `Section ${section.name}: ${rows.length} student${rows.length === 1 ? '' : 's'}`;
     fill(
@@ -76,12 +112,13 @@ function rosterPanel(section, roster, failure) {
         {},
         rows.map((r) => {
           const last = r.history[r.history.length - 1];
+          /** @type {HTMLSelectElement} */
           const choose = h(
             'select',
             { 'aria-label': `Enrolment of ${r.studentId}`, onchange: async () => {
               try {
                 await api('PUT', `/v1/sections/${section.id}/roster/${encodeURIComponent(r.studentId)}`, { status: choose.value });
-                draw(await api('GET', `/v1/sections/${section.id}/roster`));
+                draw(/** @type {RosterStudent[]} */ (await api('GET', `/v1/sections/${section.id}/roster`)));
               } catch (error) {
                 failure(error);
               }
@@ -98,19 +135,20 @@ function rosterPanel(section, roster, failure) {
   const ids = h('textarea', { id: idsId, rows: '3', 'aria-describedby': `${idsId}-message` });
   const message = h('p', { id: `${idsId}-message`, class: 'form-error', role: 'alert' });
   const done = h('p', { role: 'status', class: 'hint' });
+  /** @param {Event} e */
   const add = async (e) => {
     e.preventDefault();
     message.textContent = '';
     done.textContent = '';
     try {
       // The box's text as it is: the service reads one id per line and names any line that is not one.
-      const { added, reenrolled, alreadyEnrolled } = await api('POST', `/v1/sections/${section.id}/roster`, ids.value, 'text/plain');
+      const { added, reenrolled, alreadyEnrolled } = /** @type {RosterAdded} */ (await api('POST', `/v1/sections/${section.id}/roster`, ids.value, 'text/plain'));
       ids.value = '';
-      draw(await api('GET', `/v1/sections/${section.id}/roster`));
+      draw(/** @type {RosterStudent[]} */ (await api('GET', `/v1/sections/${section.id}/roster`)));
       const counts = [`${added} student${added === 1 ? '' : 's'} added`, reenrolled ? `${reenrolled} enrolled again` : '', alreadyEnrolled ? `${alreadyEnrolled} already enrolled` : ''];
       done.textContent = `${counts.filter(Boolean).join('; ')}.`;
     } catch (error) {
-      if (error.status >= 400 && error.status < 500 && error.status !== 401) message.textContent = [`${error.message}.`, ...error.details.map((d) => `${d.path.replace(/^body /, '').replace(/^line/, 'Line')}: ${d.message}.`)].join(' ');
+      if (error instanceof ApiFailure && error.status >= 400 && error.status < 500 && error.status !== 401) message.textContent = [`${error.message}.`, ...error.details.map((d) => `${d.path.replace(/^body /, '').replace(/^line/, 'Line')}: ${d.message}.`)].join(' ');
       else failure(error);
     }
   };
@@ -124,10 +162,16 @@ function rosterPanel(section, roster, failure) {
   );
 }
 
+/**
+ * @param {MyCourse} course
+ * @param {StaffMember[]} staff
+ * @param {Failure} failure
+ */
 function staffPanel(course, staff, failure) {
   const sectionName = new Map(course.sections.map((s) => [s.id, s.name]));
   const rows = h('tbody');
   const shown = h('div', { 'aria-live': 'polite' });
+  /** @param {StaffMember[]} members */
   const draw = (members) =>
     fill(
       rows,
@@ -153,22 +197,24 @@ function staffPanel(course, staff, failure) {
         ),
       ),
     );
-  const refresh = async () => draw(await api('GET', `/v1/courses/${course.id}/staff`));
+  const refresh = async () => draw(/** @type {StaffMember[]} */ (await api('GET', `/v1/courses/${course.id}/staff`)));
+  /** @param {StaffMember} member */
   async function issue(member) {
     try {
-      const { token } = await api('POST', `/v1/staff/${member.id}/tokens`);
+      const { token } = /** @type {IssuedToken} */ (await api('POST', `/v1/staff/${member.id}/tokens`));
       fill(shown, h('p', { role: 'status' }, `Token for ${member.handle}, shown this once (give it to them; it is stored only as a hash): `, h('code', { class: 'token' }, token)));
       await refresh();
     } catch (error) {
       failure(error);
     }
   }
+  /** @param {StaffMember} member */
   function revoke(member) {
     askToConfirm(shown, {
       question: `Revoke every token of ${member.handle}? Their requests and browser sessions stop working at once.`,
       yes: `Revoke every token of ${member.handle}`,
       act: async () => {
-        const { revoked } = await api('POST', `/v1/staff/${member.id}/tokens/revoke`);
+        const { revoked } = /** @type {RevokedTokens} */ (await api('POST', `/v1/staff/${member.id}/tokens/revoke`));
         fill(shown, h('p', { role: 'status' }, `${revoked} token${revoked === 1 ? '' : 's'} of ${member.handle} revoked; their sessions are ended.`));
         await refresh();
       },
@@ -180,18 +226,20 @@ function staffPanel(course, staff, failure) {
 
   const handleId = `staff-handle-${course.id}`;
   const handle = h('input', { id: handleId, type: 'text', 'aria-describedby': `${handleId}-message` });
-  const boxes = course.sections.map((s) => h('label', { class: 'check' }, h('input', { type: 'checkbox', value: String(s.id) }), ` Section ${s.name}`));
+  const checks = course.sections.map((s) => h('input', { type: 'checkbox', value: String(s.id) }));
+  const boxes = course.sections.map((s, i) => h('label', { class: 'check' }, checks[i], ` Section ${s.name}`));
   const message = h('p', { id: `${handleId}-message`, class: 'form-error', role: 'alert' });
+  /** @param {Event} e */
   const addTa = async (e) => {
     e.preventDefault();
     message.textContent = '';
-    const sectionIds = boxes.map((b) => b.querySelector('input')).filter((i) => i.checked).map((i) => Number(i.value));
+    const sectionIds = checks.filter((i) => i.checked).map((i) => Number(i.value));
     try {
       await api('POST', `/v1/courses/${course.id}/staff`, { handle: handle.value, role: 'ta', sectionIds });
       handle.value = '';
       await refresh();
     } catch (error) {
-      if (error.status === 400 || error.status === 409) message.textContent = [error.message, ...error.details.map((d) => `${d.path.replace('body.', '')}: ${d.message}`)].join(' ');
+      if (error instanceof ApiFailure && (error.status === 400 || error.status === 409)) message.textContent = [error.message, ...error.details.map((d) => `${d.path.replace('body.', '')}: ${d.message}`)].join(' ');
       else failure(error);
     }
   };

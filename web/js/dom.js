@@ -2,6 +2,28 @@
  * Building the page without HTML strings: every text, student-supplied or not, enters the document
  * as a text node or an attribute value, so a label like <img src=x onerror=...> is shown, never run.
  */
+
+/**
+ * A listener as a method's type, so that one written for a particular event (a DragEvent) is accepted.
+ * @typedef {{ listen(event: Event): unknown }['listen']} Listener
+ */
+/**
+ * Attributes (true for one present without a value; null, undefined and false for none), and `on…` listeners.
+ * @typedef {{ [name: string]: string | number | boolean | null | undefined | Listener }} Props
+ */
+/** @typedef {Node | string | number | null | undefined | false} Child */
+/**
+ * A child, or a list of them (a list within the list is flattened too).
+ * @typedef {Child | (Child | Child[])[]} Children
+ */
+
+/**
+ * @template {keyof HTMLElementTagNameMap} K
+ * @param {K} tag
+ * @param {Props} [props]
+ * @param {...Children} children
+ * @returns {HTMLElementTagNameMap[K]}
+ */
 export function h(tag, props = {}, ...children) {
   const el = document.createElement(tag);
   setProps(el, props);
@@ -11,6 +33,13 @@ export function h(tag, props = {}, ...children) {
 
 const SVG = 'http://www.w3.org/2000/svg';
 
+/**
+ * @template {keyof SVGElementTagNameMap} K
+ * @param {K} tag
+ * @param {Props} [props]
+ * @param {...Children} children
+ * @returns {SVGElementTagNameMap[K]}
+ */
 export function s(tag, props = {}, ...children) {
   const el = document.createElementNS(SVG, tag);
   setProps(el, props);
@@ -18,22 +47,36 @@ export function s(tag, props = {}, ...children) {
   return el;
 }
 
+/**
+ * @param {Element} el
+ * @param {Props} props
+ */
 function setProps(el, props) {
   for (const [key, value] of Object.entries(props)) {
     if (value === undefined || value === null || value === false) continue;
-    if (key.startsWith('on')) el.addEventListener(key.slice(2), value);
-    else if (key === 'class') el.setAttribute('class', value);
+    if (key.startsWith('on')) el.addEventListener(key.slice(2), /** @type {Listener} */ (value));
+    else if (key === 'class') el.setAttribute('class', String(value));
     else el.setAttribute(key, value === true ? '' : String(value));
   }
 }
 
-/** Replaces an element's children, skipping null, undefined and false (replaceChildren would print them). */
+/**
+ * Replaces an element's children, skipping null, undefined and false (replaceChildren would print them).
+ * @template {Element} E
+ * @param {E} el
+ * @param {...Children} children
+ * @returns {E}
+ */
 export function fill(el, ...children) {
   el.replaceChildren();
   append(el, children);
   return el;
 }
 
+/**
+ * @param {Element} el
+ * @param {Children[]} children
+ */
 function append(el, children) {
   for (const child of children.flat(Infinity)) {
     if (child === null || child === undefined || child === false) continue;
@@ -41,7 +84,10 @@ function append(el, children) {
   }
 }
 
-/** A number as people read it: up to 4 significant figures, exponent form for the very small or large. */
+/**
+ * A number as people read it: up to 4 significant figures, exponent form for the very small or large.
+ * @param {number | null | undefined} value
+ */
 export function num(value) {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
   if (value === 0) return '0';
@@ -51,14 +97,19 @@ export function num(value) {
   return `${mantissa}×10${[...String(Number(exponent))].map((c) => SUPERSCRIPT[c]).join('')}`;
 }
 
+/** @type {Record<string, string>} */
 const SUPERSCRIPT = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
 
+/** @param {string} iso */
 export function when(iso) {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? '' : d.toLocaleString();
 }
 
-/** Text with `_{sub}` and `^{sup}` markup as text nodes and sub/sup elements (never as HTML). */
+/**
+ * Text with `_{sub}` and `^{sup}` markup as text nodes and sub/sup elements (never as HTML).
+ * @param {string} text
+ */
 export function marked(text) {
   return text.split(/([_^]\{[^}]*\})/).filter((part) => part !== '').map((part) => {
     const m = /^([_^])\{([^}]*)\}$/.exec(part);

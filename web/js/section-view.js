@@ -3,6 +3,20 @@ import { fill, h, num } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { uploadPanel } from './upload-panel.js';
 
+/**
+ * @import { Failure } from './api.js'
+ * @import { Props, Children } from './dom.js'
+ * @import { MyCourse } from '../../schemas/api/me.ts'
+ * @import { Released, ResultRow } from '../../schemas/api/results.ts'
+ * @import { RunMatch, SectionSignals } from '../../schemas/api/signals.ts'
+ */
+/**
+ * The section and assignment a view shows, and their course, as the caller's listing names them.
+ * @typedef {{ course: MyCourse, section: MyCourse['sections'][number], assignment: MyCourse['assignments'][number] }} Place
+ */
+/** @typedef {'studentId' | 'version' | 'status' | 'score' | 'errors' | 'warnings' | 'codes' | 'released'} Column */
+
+/** @type {Record<string, [label: string, keep: (row: ResultRow) => boolean]>} */
 const STATUS_FILTERS = {
   all: ['Every student', () => true],
   errors: ['With errors', (r) => r.errors > 0],
@@ -14,10 +28,18 @@ const STATUS_FILTERS = {
   changed: ['Changed since release', (r) => r.changedSinceRelease],
 };
 
-/** A release covers the results not yet released and those changed since (a regrade, an override). */
+/**
+ * A release covers the results not yet released and those changed since (a regrade, an override).
+ * @param {ResultRow} r
+ */
 const releaseDue = (r) => STATUS_FILTERS.unreleased[1](r) || r.changedSinceRelease;
+/**
+ * @param {number} n
+ * @param {string} word
+ */
 const plural = (n, word) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
+/** @type {[Column, string][]} */
 const COLUMNS = [
   ['studentId', 'Student'],
   ['version', 'Version'],
@@ -31,14 +53,24 @@ const COLUMNS = [
 
 const COLUMN_LABELS = Object.fromEntries(COLUMNS);
 
-/** A cell that carries its column's name, which the narrow layout shows beside the value. */
+/**
+ * A cell that carries its column's name, which the narrow layout shows beside the value.
+ * @param {Column} key
+ * @param {Props} props
+ * @param {...Children} children
+ */
 const cell = (key, props, ...children) => h('td', { ...props, 'data-label': COLUMN_LABELS[key] }, ...children);
 
+/** @type {Record<string, string>} */
 const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted': 'not submitted', withdrawn: 'withdrawn' };
 
+/** @type {Record<RunMatch['relation'], string>} */
 const RELATION_WORDS = { identical: 'the same readings', offset: 'the same readings shifted by a constant', scaled: 'the same readings rescaled', edited: 'the same readings with a few cells changed' };
 
-/** Signals across the section, shown only when there are some, worded as prompts for review. */
+/**
+ * Signals across the section, shown only when there are some, worded as prompts for review.
+ * @param {SectionSignals} signals
+ */
 function signalsPanel(signals) {
   if (signals.pairs.length === 0 && signals.smooth.length === 0) return null;
   const alike = signals.pairs.length
@@ -85,37 +117,50 @@ function signalsPanel(signals) {
   );
 }
 
-/** One section's results for one assignment: every roster student, filters, counts, release, files. */
+/**
+ * One section's results for one assignment: every roster student, filters, counts, release, files.
+ * @param {Place} place
+ * @param {Failure} failure
+ */
 export async function sectionView(place, failure) {
   const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
+  /** @type {{ status: string, code: string, search: string, sort: Column, descending: boolean }} */
   const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
-  let rows = await api('GET', `${base}/results`);
+  let rows = /** @type {ResultRow[]} */ (await api('GET', `${base}/results`));
   // The signals compare every pair of students, which takes longer than the table: the table is drawn
   // first and the signals panel fills in when they arrive.
   const signalsSlot = h('div', { 'aria-live': 'polite' });
   const loadSignals = () =>
     api('GET', `${base}/signals`).then(
-      (signals) => fill(signalsSlot, signalsPanel(signals)),
+      (signals) => fill(signalsSlot, signalsPanel(/** @type {SectionSignals} */ (signals))),
       () => fill(signalsSlot, h('p', { class: 'hint' }, 'The signals for review could not be loaded; reload the page to try again.')),
     );
   loadSignals();
 
   const body = h('tbody');
   const shown = h('p', { class: 'hint', 'aria-live': 'polite' });
+  /** @type {HTMLSelectElement} */
   const codeSelect = h('select', { id: 'filter-code', onchange: () => ((state.code = codeSelect.value), draw()) });
   const counts = h('div', { class: 'code-counts' });
   const releaseArea = h('div', { class: 'release' });
   const headRow = h('tr');
 
+  /**
+   * @param {ResultRow} a
+   * @param {ResultRow} b
+   */
   const compare = (a, b) => {
     const key = state.sort;
     const x = key === 'codes' ? a.codes.length : a[key];
     const y = key === 'codes' ? b.codes.length : b[key];
-    const order = x === y ? 0 : x === null ? 1 : y === null ? -1 : x < y ? -1 : 1;
+    // A column holds words, numbers, or yes and no (false before true, as 0 before 1).
+    const before = typeof x === 'string' && typeof y === 'string' ? x < y : Number(x) < Number(y);
+    const order = x === y ? 0 : x === null ? 1 : y === null ? -1 : before ? -1 : 1;
     return state.descending ? -order : order;
   };
 
   function drawCounts() {
+    /** @type {Map<string, number>} */
     const byCode = new Map();
     for (const r of rows) for (const c of r.codes) byCode.set(c, (byCode.get(c) ?? 0) + 1);
     const codes = [...byCode.entries()].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1));
@@ -146,6 +191,10 @@ export async function sectionView(place, failure) {
     fill(releaseArea, ask, note);
   }
 
+  /**
+   * @param {number} pending
+   * @param {number} changed
+   */
   function confirmRelease(pending, changed) {
     const results = plural(pending, 'result');
     const instead = 'will see the new result in place of the one they were shown';
@@ -155,8 +204,8 @@ export async function sectionView(place, failure) {
       question: `Release ${results} of this section to the students?${which} They will see their feedback sheets; overrides can still be made later and are released the same way.`,
       yes: `Release ${results}`,
       act: async () => {
-        const { released } = await api('POST', `${base}/release`);
-        rows = await api('GET', `${base}/results`);
+        const { released } = /** @type {Released} */ (await api('POST', `${base}/release`));
+        rows = /** @type {ResultRow[]} */ (await api('GET', `${base}/results`));
         draw();
         releaseArea.append(h('p', { role: 'status' }, `${released} result${released === 1 ? '' : 's'} released to students.`));
       },
@@ -194,7 +243,7 @@ export async function sectionView(place, failure) {
           { class: r.submissionId === null ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
           h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
           cell('version', {}, r.version ?? '–'),
-          cell('status', {}, STATUS_WORDS[r.status] ?? r.status ?? '–'),
+          cell('status', {}, r.status === null ? '–' : (STATUS_WORDS[r.status] ?? r.status)),
           cell('score', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}${r.releasedVersion === r.version ? '' : ` (version ${r.releasedVersion})`}`) : null),
           cell('errors', { class: 'number' }, r.errors),
           cell('warnings', { class: 'number' }, r.warnings),
@@ -206,10 +255,12 @@ export async function sectionView(place, failure) {
     shown.textContent = `Showing ${visible.length} of ${rows.length} students on the roster.`;
   }
 
+  /** @type {HTMLSelectElement} */
   const statusSelect = h('select', { id: 'filter-status', onchange: () => ((state.status = statusSelect.value), draw()) }, Object.entries(STATUS_FILTERS).map(([value, [label]]) => h('option', { value }, label)));
+  /** @type {HTMLInputElement} */
   const search = h('input', { id: 'filter-student', type: 'search', oninput: () => ((state.search = search.value), draw()) });
   const refresh = async () => {
-    rows = await api('GET', `${base}/results`);
+    rows = /** @type {ResultRow[]} */ (await api('GET', `${base}/results`));
     draw();
     loadSignals();
   };

@@ -2,17 +2,35 @@ import { api, ApiFailure } from './api.js';
 import { fill, h } from './dom.js';
 
 /**
+ * @import { Failure } from './api.js'
+ * @import { Tolerance } from '../../schemas/common.ts'
+ * @import { Assignment } from '../../schemas/api/assignments.ts'
+ * @import { Rubric, Settings, SettingsInput, Tolerances } from '../../schemas/kinds/first-order-catalysis.ts'
+ */
+/** @typedef {[value: string, label: string][]} Choices */
+/**
+ * @typedef {object} SettingsFormOptions
+ * @property {Assignment} [assignment] to edit
+ * @property {number} [courseId] where a new assignment goes
+ * @property {(saved: Assignment) => void} done
+ * @property {Failure} failure
+ */
+
+/**
  * An assignment's settings as a form. The service validates them with the same schema as the API and
  * its messages appear beside the fields they name. Parts the form does not show (a class dataset,
  * reference bands) are kept as they are.
  */
+/** @type {Record<'fitModel' | 'rateLawFit' | 'weightedErrors', Choices>} */
 const CHOICES = {
   fitModel: [['origin', 'ln F = -k t (through the origin)'], ['intercept', 'ln F = a - k t (with an intercept)']],
   rateLawFit: [['ordinary', 'ordinary least squares'], ['weighted', 'weighted by 1/SE² of each k_obs']],
   weightedErrors: [['either', 'either convention'], ['absolute', 'SEs of k_obs taken as absolute'], ['scaled', 'scaled by the scatter about the line']],
 };
+/** @type {['k' | 'kN' | 'kA', string][]} */
 const UNITS = [['k', 'k_obs'], ['kN', 'k_N'], ['kA', 'k_A']];
 // [key, label, kind]: relative tolerances are shown in per cent, absolute ones in the quantity's unit.
+/** @type {[keyof Tolerances, string, 'relative' | 'absolute'][]} */
 const TOLERANCES = [
   ['reading', 'Readings (deg)', 'absolute'],
   ['lnF', 'ln F entries', 'absolute'],
@@ -22,6 +40,7 @@ const TOLERANCES = [
   ['kA', 'k_A', 'relative'],
   ['rateLawUncertainty', 'SEs of k_N and k_A', 'relative'],
 ];
+/** @type {[keyof Rubric, string][]} */
 const RUBRIC = [
   ['readings', 'Readings, per run (with a class dataset)'],
   ['lnF', 'ln F column, per run'],
@@ -34,6 +53,10 @@ const RUBRIC = [
   ['sigFigs', 'Rounding, once'],
 ];
 
+/**
+ * The schema's defaults, which a new assignment's form starts from.
+ * @satisfies {SettingsInput}
+ */
 const DEFAULTS = {
   kind: 'first-order-catalysis',
   fitModel: 'origin',
@@ -50,7 +73,10 @@ const BOOLEAN = new Set(['temperature.required']);
 
 let formCount = 0;
 
-/** The kinds of experiment an assignment can be, with their names in words. */
+/**
+ * The kinds of experiment an assignment can be, with their names in words.
+ * @type {Choices}
+ */
 const KINDS = [
   ['first-order-catalysis', 'First-order runs and the catalysis rate law'],
   ['temperature-dependence', 'Rate constants at several temperatures (Arrhenius, Eyring)'],
@@ -60,22 +86,28 @@ const KINDS = [
  * `assignment` to edit, or undefined for a new one in `courseId`; `done(saved)` after a save, `failure`
  * for what the form cannot show. The first kind has a form of fields; any other kind's settings are
  * edited as JSON, which the service validates and answers field by field.
+ * @param {SettingsFormOptions} options
  */
 export function settingsForm(options) {
   if (options.assignment) return options.assignment.kind === DEFAULTS.kind ? catalysisForm(options) : jsonForm(options, options.assignment.kind);
   const holder = h('div', {});
+  /** @type {HTMLSelectElement} */
   const kind = h('select', { id: `kind-${++formCount}`, onchange: () => show() }, KINDS.map(([value, text]) => h('option', { value }, text)));
   const show = () => fill(holder, kind.value === DEFAULTS.kind ? catalysisForm(options) : jsonForm(options, kind.value));
   show();
   return h('div', {}, h('div', { class: 'field' }, h('label', { for: kind.id }, 'Kind of experiment'), kind), holder);
 }
 
-/** Settings as JSON text, saved as they are; the service's messages are listed by field. */
+/**
+ * Settings as JSON text, saved as they are; the service's messages are listed by field.
+ * @param {SettingsFormOptions} options
+ * @param {string} kind
+ */
 function jsonForm({ courseId, assignment, done, failure }, kind) {
   const n = ++formCount;
   const text = h('textarea', { id: `json-${n}`, rows: '12', class: 'json-settings', spellcheck: 'false' });
   text.value = JSON.stringify(assignment?.settings ?? { kind }, null, 2);
-  const title = assignment ? null : h('input', { id: `title-${n}`, type: 'text', required: true });
+  const title = h('input', { id: `title-${n}`, type: 'text', required: true });
   const messages = h('ul', { class: 'form-error', role: 'alert' });
   async function save() {
     fill(messages);
@@ -83,14 +115,14 @@ function jsonForm({ courseId, assignment, done, failure }, kind) {
     try {
       settings = JSON.parse(text.value);
     } catch (error) {
-      fill(messages, h('li', {}, `The settings are not valid JSON: ${error.message}`));
+      fill(messages, h('li', {}, `The settings are not valid JSON: ${/** @type {SyntaxError} */ (error).message}`));
       return text.focus();
     }
     try {
       const saved = assignment
         ? await api('PUT', `/v1/assignments/${assignment.id}/settings`, { settings })
         : await api('POST', `/v1/courses/${courseId}/assignments`, { title: title.value, settings });
-      done(saved);
+      done(/** @type {Assignment} */ (saved));
     } catch (error) {
       if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
       fill(messages, error.details.map((d) => h('li', {}, `${d.path.replace(/^body\.(settings\.)?/, '')}: ${d.message}`)));
@@ -99,20 +131,31 @@ function jsonForm({ courseId, assignment, done, failure }, kind) {
   return h(
     'form',
     { class: 'settings', novalidate: true, onsubmit: (e) => (e.preventDefault(), save()) },
-    title ? h('div', { class: 'field' }, h('label', { for: title.id }, 'Title'), title) : null,
+    assignment ? null : h('div', { class: 'field' }, h('label', { for: title.id }, 'Title'), title),
     h('div', { class: 'field' }, h('label', { for: text.id }, 'Settings (JSON; the README lists the fields of each kind)'), text),
     h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
     messages,
   );
 }
 
+/** @param {SettingsFormOptions} options */
 function catalysisForm({ courseId, assignment, done, failure }) {
   const n = ++formCount;
-  const current = { ...DEFAULTS, ...(assignment?.settings ?? {}) };
+  // Stored settings were parsed by the kind's schema, so every setting with a default is there.
+  const current = { ...DEFAULTS, .../** @type {Partial<Settings>} */ (assignment?.settings ?? {}) };
+  /** @type {Map<string, HTMLInputElement | HTMLSelectElement>} */
   const fields = new Map();
+  /** @type {Map<string, HTMLSpanElement>} */
   const messages = new Map();
+  /** @param {string} path */
   const id = (path) => `f${n}-${path.replace(/\./g, '-')}`;
 
+  /**
+   * @param {string} path
+   * @param {string} label
+   * @param {HTMLInputElement | HTMLSelectElement} control
+   * @param {string} [hint]
+   */
   function field(path, label, control, hint) {
     control.id = id(path);
     const message = h('span', { class: 'form-error', id: `${id(path)}-message`, role: 'alert' });
@@ -121,10 +164,28 @@ function catalysisForm({ courseId, assignment, done, failure }) {
     messages.set(path, message);
     return h('div', { class: 'field' }, h('label', { for: control.id }, label), control, hint ? h('span', { class: 'hint' }, hint) : null, message);
   }
+  /**
+   * @param {string} path
+   * @param {string} label
+   * @param {Choices} options
+   * @param {string} value
+   */
   const select = (path, label, options, value) => field(path, label, h('select', {}, options.map(([v, text]) => h('option', { value: v, selected: v === value }, text))));
+  /**
+   * @param {string} path
+   * @param {string} label
+   * @param {number | undefined} value
+   * @param {string} [hint]
+   */
   const number = (path, label, value, hint) => field(path, label, h('input', { type: 'number', step: 'any', value: value === undefined ? '' : String(value) }), hint);
 
-  const title = assignment ? null : field('title', 'Title', h('input', { type: 'text', required: true }));
+  const titleInput = h('input', { type: 'text', required: true });
+  const title = assignment ? null : field('title', 'Title', titleInput);
+  const summary = h('p', { class: 'form-error', role: 'alert' });
+  /**
+   * @param {keyof Tolerances} key
+   * @returns {Tolerance}
+   */
   const tol = (key) => current.tolerances?.[key] ?? DEFAULTS.tolerances[key];
   const form = h(
     'form',
@@ -153,10 +214,12 @@ function catalysisForm({ courseId, assignment, done, failure }) {
     h('fieldset', {}, h('legend', {}, 'Rubric points'), RUBRIC.map(([key, label]) => number(`rubric.${key}`, label, current.rubric?.[key] ?? DEFAULTS.rubric[key]))),
     h('p', { class: 'hint' }, 'A class dataset and reference bands, where set, are kept as they are (the API edits them). Saving changes no result until you regrade.'),
     h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
-    h('p', { class: 'form-error', role: 'alert', 'data-role': 'summary' }),
+    summary,
   );
 
   function read() {
+    // Walked by the fields' paths (`tolerances.k.relative`), so indexed by name.
+    /** @type {Record<string, any>} */
     const settings = structuredClone(current);
     for (const [path, control] of fields) {
       if (path === 'title') continue;
@@ -180,13 +243,12 @@ function catalysisForm({ courseId, assignment, done, failure }) {
 
   async function save() {
     for (const m of messages.values()) m.textContent = '';
-    const summary = form.querySelector('[data-role=summary]');
     summary.textContent = '';
     try {
       const saved = assignment
         ? await api('PUT', `/v1/assignments/${assignment.id}/settings`, { settings: read() })
-        : await api('POST', `/v1/courses/${courseId}/assignments`, { title: fields.get('title').value, settings: read() });
-      done(saved);
+        : await api('POST', `/v1/courses/${courseId}/assignments`, { title: titleInput.value, settings: read() });
+      done(/** @type {Assignment} */ (saved));
     } catch (error) {
       if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
       const unplaced = [];
@@ -197,7 +259,8 @@ function catalysisForm({ courseId, assignment, done, failure }) {
         else unplaced.push(`${path}: ${d.message}`);
       }
       summary.textContent = `The settings were not saved: ${error.details.length} field${error.details.length === 1 ? '' : 's'} to correct${unplaced.length ? ` (${unplaced.join('; ')})` : ''}.`;
-      fields.get(error.details.map((d) => d.path.replace(/^body\.(settings\.)?/, '')).find((p) => fields.has(p)))?.focus();
+      const first = error.details.map((d) => d.path.replace(/^body\.(settings\.)?/, '')).find((p) => fields.has(p));
+      if (first) fields.get(first)?.focus();
     }
   }
   return form;

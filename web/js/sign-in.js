@@ -1,7 +1,12 @@
 import { api, ApiFailure, setCsrfToken } from './api.js';
 import { h } from './dom.js';
 
-/** The sign-in form: the token goes to the service once and is not kept by the page. */
+/** @import { Session } from '../../schemas/api/session.ts' */
+
+/**
+ * The sign-in form: the token goes to the service once and is not kept by the page.
+ * @param {() => unknown} onSignedIn
+ */
 export function signInView(onSignedIn) {
   const message = h('p', { class: 'form-error', role: 'alert', id: 'sign-in-error' });
   const input = h('input', { id: 'token', name: 'token', type: 'password', autocomplete: 'off', required: true, 'aria-describedby': 'token-help sign-in-error' });
@@ -13,7 +18,7 @@ export function signInView(onSignedIn) {
         event.preventDefault();
         message.textContent = '';
         try {
-          const session = await api('POST', '/v1/session', { token: input.value });
+          const session = /** @type {Session} */ (await api('POST', '/v1/session', { token: input.value }));
           input.value = '';
           setCsrfToken(session.csrfToken);
           onSignedIn();

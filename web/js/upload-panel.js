@@ -2,17 +2,29 @@ import { ApiFailure, upload } from './api.js';
 import { fill, h } from './dom.js';
 
 /**
+ * @import { Failure } from './api.js'
+ * @import { Rejection } from '../../schemas/result.ts'
+ * @import { BatchChecked, BatchRejection, BatchStored } from '../../schemas/api/submissions.ts'
+ */
+
+/**
  * Adding submissions: choose or drop a JSON batch, or the readings and reported CSV files; the batch
  * is checked first (nothing stored) and its problems listed by place, field and reason; then stored.
+ * @param {string} base the URL of the section's assignment
+ * @param {() => Promise<unknown>} refresh
+ * @param {Failure} failure
  */
 export function uploadPanel(base, refresh, failure) {
+  /** @type {File[]} */
   let files = [];
   const chosen = h('p', { class: 'hint', id: 'upload-chosen' }, 'No files chosen.');
   const progress = h('progress', { max: '1', value: '0', hidden: true, 'aria-label': 'Upload progress' });
   const outcome = h('div', { class: 'upload-outcome', 'aria-live': 'polite' });
-  const input = h('input', { id: 'upload-files', type: 'file', multiple: true, accept: '.json,.csv,application/json,text/csv', onchange: () => choose([...input.files]) });
+  /** @type {HTMLInputElement} */
+  const input = h('input', { id: 'upload-files', type: 'file', multiple: true, accept: '.json,.csv,application/json,text/csv', onchange: () => choose([...(input.files ?? [])]) });
   const check = h('button', { type: 'button', class: 'primary', disabled: true, onclick: () => send(true) }, 'Check files');
 
+  /** @param {File[]} list */
   function choose(list) {
     files = list.filter((f) => /\.(json|csv)$/i.test(f.name));
     chosen.textContent = files.length ? `Chosen: ${files.map((f) => f.name).join(', ')}` : 'Choose a .json batch, or readings and reported .csv files.';
@@ -20,7 +32,10 @@ export function uploadPanel(base, refresh, failure) {
     fill(outcome);
   }
 
-  /** The request body: a JSON batch as it is, CSV files as the multipart upload the API reads. */
+  /**
+   * The request body: a JSON batch as it is, CSV files as the multipart upload the API reads.
+   * @returns {Promise<{ data: string | FormData, type: string | undefined }>}
+   */
   async function body() {
     const json = files.find((f) => /\.json$/i.test(f.name));
     if (json) return { data: await json.text(), type: 'application/json' };
@@ -32,6 +47,7 @@ export function uploadPanel(base, refresh, failure) {
     return { data: form, type: undefined };
   }
 
+  /** @param {boolean} dryRun */
   async function send(dryRun) {
     progress.hidden = false;
     progress.value = 0;
@@ -40,9 +56,10 @@ export function uploadPanel(base, refresh, failure) {
       const { data, type } = await body();
       const answer = await upload(`${base}/submissions${dryRun ? '?dryRun=true' : ''}`, data, type, (f) => (progress.value = f));
       progress.hidden = true;
-      if (dryRun) showCheck(answer);
+      if (dryRun) showCheck(/** @type {BatchChecked} */ (answer));
       else {
-        fill(outcome, h('p', { role: 'status' }, `Stored ${answer.stored.length} submission${answer.stored.length === 1 ? '' : 's'}; ${answer.rejected.length} problem${answer.rejected.length === 1 ? '' : 's'} left out.`));
+        const { stored, rejected } = /** @type {BatchStored} */ (answer);
+        fill(outcome, h('p', { role: 'status' }, `Stored ${stored.length} submission${stored.length === 1 ? '' : 's'}; ${rejected.length} problem${rejected.length === 1 ? '' : 's'} left out.`));
         await refresh();
       }
     } catch (error) {
@@ -53,6 +70,7 @@ export function uploadPanel(base, refresh, failure) {
     }
   }
 
+  /** @param {BatchChecked} answer */
   function showCheck(answer) {
     const store = h('button', { type: 'button', class: 'primary', onclick: () => send(false) }, `Store ${answer.valid} submission${answer.valid === 1 ? '' : 's'}`);
     fill(outcome,
@@ -62,16 +80,17 @@ export function uploadPanel(base, refresh, failure) {
     );
   }
 
+  /** @type {HTMLDivElement} */
   const zone = h(
     'div',
     {
       class: 'drop-zone',
       ondragover: (e) => (e.preventDefault(), zone.classList.add('over')),
       ondragleave: () => zone.classList.remove('over'),
-      ondrop: (e) => {
+      ondrop: (/** @type {DragEvent} */ e) => {
         e.preventDefault();
         zone.classList.remove('over');
-        choose([...e.dataTransfer.files]);
+        choose([...(e.dataTransfer?.files ?? [])]);
       },
     },
     h('label', { for: 'upload-files' }, 'Choose files, or drop them here'),
@@ -81,12 +100,17 @@ export function uploadPanel(base, refresh, failure) {
   return h('details', { class: 'panel upload' }, h('summary', {}, 'Add submissions'), zone, h('div', { class: 'row' }, check, progress), outcome);
 }
 
-/** A refused batch names each problem `submission 2, line 14: runs[0].timeUnit`: the place, then the field. */
+/**
+ * A refused batch names each problem `submission 2, line 14: runs[0].timeUnit`: the place, then the field.
+ * @param {Rejection} d
+ * @returns {BatchRejection}
+ */
 function detailRow(d) {
   const place = /^(submission \d+[^:]*): (.*)$/.exec(d.path);
   return { at: place ? place[1] : '', studentId: null, path: place ? place[2] : d.path, message: d.message };
 }
 
+/** @param {BatchRejection[]} list */
 function problems(list) {
   return h(
     'table',

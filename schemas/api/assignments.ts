@@ -1,0 +1,29 @@
+import { z } from 'zod';
+import type { AsJson } from './as-json.ts';
+
+export const Assignment = z.object({
+  id: z.number(),
+  courseId: z.number(),
+  title: z.string(),
+  kind: z.string(),
+  /** The kind's stages, in order, as findings are grouped (titles with sub/superscript markup: k_{obs}). */
+  stages: z.array(z.object({ id: z.string(), title: z.string() })),
+  settings: z.unknown(),
+  settingsVersion: z.number(),
+  createdAt: z.date(),
+});
+export type Assignment = AsJson<z.infer<typeof Assignment>>;
+
+/** How far a regrade is. */
+export const RegradeProgressView = z.object({
+  regradeId: z.string(),
+  assignmentId: z.number(),
+  sectionId: z.number().nullable(),
+  total: z.number(),
+  done: z.number(),
+  status: z.enum(['running', 'finished', 'failed']),
+  error: z.string().optional(),
+  startedAt: z.date(),
+  finishedAt: z.date().optional(),
+});
+export type RegradeProgressView = AsJson<z.infer<typeof RegradeProgressView>>;

@@ -1,0 +1,33 @@
+import { z } from 'zod';
+import { Enrolment } from './rosters.ts';
+
+/** One roster student's latest result for an assignment, or their not having submitted. */
+export const ResultRow = z.object({
+  studentId: z.string(),
+  /** Null for a roster student who has not submitted. */
+  submissionId: z.number().nullable(),
+  version: z.number().nullable(),
+  /** `checked`, `rejected`, `not-submitted`, or `withdrawn` (score kept when they submitted); null while a result is missing. */
+  status: z.string().nullable(),
+  /** On the roster: `enrolled` or `withdrawn` (removed students are left out). */
+  enrolment: Enrolment,
+  score: z.number().nullable(),
+  maxScore: z.number().nullable(),
+  errors: z.number(),
+  warnings: z.number(),
+  infos: z.number(),
+  codes: z.array(z.string()),
+  /** Something was released to the student (of this version or an earlier one): they see `releasedScore` until a TA releases again. */
+  released: z.boolean(),
+  /** The score the student was shown; null when nothing was released. */
+  releasedScore: z.number().nullable(),
+  /** The version released: this row's or an earlier one; null when nothing was released. */
+  releasedVersion: z.number().nullable(),
+  /** Released, and the latest result (a regrade, an override, a new version) would show the student something else: `score` beside `releasedScore`. */
+  changedSinceRelease: z.boolean(),
+});
+export type ResultRow = z.infer<typeof ResultRow>;
+
+/** How many results a release made visible to students. */
+export const Released = z.object({ released: z.number() });
+export type Released = z.infer<typeof Released>;
