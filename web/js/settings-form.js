@@ -132,7 +132,7 @@ function jsonForm({ courseId, assignment, done, failure }, kind) {
     'form',
     { class: 'settings', novalidate: true, onsubmit: (e) => (e.preventDefault(), save()) },
     assignment ? null : h('div', { class: 'field' }, h('label', { for: title.id }, 'Title'), title),
-    h('div', { class: 'field' }, h('label', { for: text.id }, 'Settings (JSON; the README lists the fields of each kind)'), text),
+    h('div', { class: 'field' }, h('label', { for: text.id }, 'Settings (JSON; docs/kinds/ lists the fields of each kind)'), text),
     h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
     messages,
   );
