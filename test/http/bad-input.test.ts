@@ -7,7 +7,7 @@ import { call, openApi, seedCourse, submissionsFor, type Api, type Seed } from '
 /**
  * Malformed requests, one per row: each is answered with a 4xx whose body is
  * `{ error: { code, message, details? } }` naming the field at fault, and leaves every table as it was.
- * On a PostgreSQL server only (DATABASE_URL, else testcontainers).
+ * On the database TEST_DATABASE chooses (docs/testing.md).
  */
 
 const TABLES = [

@@ -5,10 +5,10 @@ import { migrateToLatest } from '../../server/store/migrate.ts';
 import { databaseTarget } from './database-target.ts';
 
 /**
- * A fresh, migrated database for one test file. `postgres` asks for a PostgreSQL server where one is
- * given (database-target.ts): DATABASE_URL (a new database is created on that server and dropped
- * afterwards), else a testcontainers PostgreSQL where a Docker engine is configured, else the embedded
- * engine. `pglite` always gives the embedded engine, in memory.
+ * A fresh, migrated database for one test file. `postgres` gives the one TEST_DATABASE chooses
+ * (database-target.ts): the server in DATABASE_URL (a new database is created on it and dropped
+ * afterwards), a testcontainers PostgreSQL, or the embedded engine. `pglite` always gives the embedded
+ * engine, in memory.
  */
 export interface TestDatabase {
   store: Store;
@@ -44,7 +44,7 @@ async function inContainer(): Promise<TestDatabase> {
     container = await new PostgreSqlContainer('postgres:15').start();
   } catch (error) {
     throw new Error(
-      `a Docker engine is configured but no PostgreSQL container started: unset DOCKER_HOST to test on the embedded engine, or set DATABASE_URL (${(error as Error).message})`,
+      `TEST_DATABASE=container, but no PostgreSQL container started: is a Docker engine running? TEST_DATABASE=embedded tests without one (${(error as Error).message})`,
     );
   }
   const db = await onServer(container.getConnectionUri());
@@ -65,6 +65,6 @@ async function embedded(): Promise<TestDatabase> {
 
 export async function openTestDatabase(engine: 'postgres' | 'pglite' = 'postgres'): Promise<TestDatabase> {
   const target = engine === 'pglite' ? ({ kind: 'embedded' } as const) : databaseTarget();
-  if (target.kind === 'server') return onServer(target.url);
+  if (target.kind === 'url') return onServer(target.url);
   return target.kind === 'container' ? inContainer() : embedded();
 }
