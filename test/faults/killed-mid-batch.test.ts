@@ -1,9 +1,9 @@
-import { randomBytes } from 'node:crypto';
 import type { FastifyInstance } from 'fastify';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ADMIN_TOKEN, seedCourse, submissionsFor, type Seed } from '../support/api-fixture.ts';
 import { serve } from '../support/serve-process.ts';
+import { scratchDatabase } from '../support/test-database.ts';
 
 /**
  * The service process killed (SIGKILL) while a batch's transaction is open on a PostgreSQL server: the
@@ -39,8 +39,8 @@ interface Backend {
 }
 
 describe.skipIf(NO_SERVER)('the service killed (SIGKILL) while a batch’s transaction is open', () => {
-  const name = `rateproof_kill_${randomBytes(6).toString('hex')}`;
   let url: string;
+  let drop = async () => {};
   /** The test's own connections to the service's database: one reads pg_stat_activity (which a
    * transaction would see frozen at its first read) and the tables, one holds a lock. */
   let admin: pg.Client;
@@ -53,13 +53,7 @@ describe.skipIf(NO_SERVER)('the service killed (SIGKILL) while a batch’s trans
   };
 
   beforeAll(async () => {
-    const server = new pg.Client({ connectionString: SERVER });
-    await server.connect();
-    await server.query(`CREATE DATABASE ${name}`);
-    await server.end();
-    const target = new URL(SERVER!);
-    target.pathname = `/${name}`;
-    url = target.toString();
+    ({ url, drop } = await scratchDatabase(SERVER!, 'rateproof_kill'));
     admin = new pg.Client({ connectionString: url });
     await admin.connect();
     locker = new pg.Client({ connectionString: url });
@@ -71,10 +65,7 @@ describe.skipIf(NO_SERVER)('the service killed (SIGKILL) while a batch’s trans
     await Promise.all(services.map((service) => service.exited));
     await locker?.end();
     await admin?.end();
-    const server = new pg.Client({ connectionString: SERVER });
-    await server.connect();
-    await server.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-    await server.end();
+    await drop();
   });
 
   /** The service's backend that is inside a transaction that has written, and waits for a lock. */

@@ -15,24 +15,33 @@ export interface TestDatabase {
   close(): Promise<void>;
 }
 
-async function onServer(url: string): Promise<TestDatabase> {
-  const name = `rateproof_test_${randomBytes(6).toString('hex')}`;
-  const admin = new pg.Client({ connectionString: url });
-  await admin.connect();
-  await admin.query(`CREATE DATABASE ${name}`);
-  await admin.end();
-  const target = new URL(url);
+/** A new, empty database on the PostgreSQL server at `serverUrl`, with its URL; `drop` removes it. */
+export async function scratchDatabase(serverUrl: string, prefix = 'rateproof_test'): Promise<{ url: string; drop(): Promise<void> }> {
+  const name = `${prefix}_${randomBytes(6).toString('hex')}`;
+  const onServer = async (statement: string) => {
+    const admin = new pg.Client({ connectionString: serverUrl });
+    await admin.connect();
+    try {
+      await admin.query(statement);
+    } finally {
+      await admin.end();
+    }
+  };
+  await onServer(`CREATE DATABASE ${name}`);
+  const target = new URL(serverUrl);
   target.pathname = `/${name}`;
-  const store = openStore({ databaseUrl: target.toString() });
+  return { url: target.toString(), drop: () => onServer(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`) };
+}
+
+async function onServer(url: string): Promise<TestDatabase> {
+  const scratch = await scratchDatabase(url);
+  const store = openStore({ databaseUrl: scratch.url });
   await migrateToLatest(store.db);
   return {
     store,
     async close() {
       await store.close();
-      const c = new pg.Client({ connectionString: url });
-      await c.connect();
-      await c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-      await c.end();
+      await scratch.drop();
     },
   };
 }
