@@ -27,9 +27,19 @@ describe('absurd magnitudes', () => {
     expect(codesAt(sub)).toContain('implausible runs[2].catalyst.value');
   });
 
-  it('a k a thousand times off is still read as a slip of units, not as absurd', () => {
+  // Hand-written verdicts: a k_obs scaled by a factor a common slip gives is named by that slip, at the
+  // run's k only, and costs the rubric's points for one k (2 by default); the other values are right.
+  // The maximum, 22, is 4 runs x (ln F 1 + k 2 + its SE 1) + k_N 2 + its SE 1 + k_A 2 + its SE 1.
+  it.each([
+    { factor: 60, named: 'sixty', code: 'time-unit', says: 'multiplied by 60' },
+    { factor: 3600, named: 'three thousand six hundred', code: 'time-unit', says: 'multiplied by 3600' },
+    { factor: 1000, named: 'a thousand', code: 'decimal-shift', says: 'multiplied by 1000' },
+  ])('a k $named times off is read as a slip ($code), not as absurd', ({ factor, code, says }) => {
     const [sub] = submissionsFor(['S-001'], 3);
-    sub.runs[0].reported!.k!.value = Number(sub.runs[0].reported!.k!.value) * 60;
-    expect(codesAt(sub)).toContain('time-unit runs[0].reported.k');
+    sub.runs[0].reported!.k!.value = Number(sub.runs[0].reported!.k!.value) * factor;
+    const result = checkSubmission(assignment, sub);
+    expect(result.findings.map((f) => [f.code, f.path, f.severity, f.pointsLost])).toEqual([[code, 'runs[0].reported.k', 'error', 2]]);
+    expect(result.findings[0].message).toContain(says);
+    expect([result.score, result.maxScore]).toEqual([20, 22]);
   });
 });

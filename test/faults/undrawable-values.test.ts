@@ -25,6 +25,7 @@ describe('stored results with absurd values still give a feedback sheet each, an
   afterAll(async () => api?.close());
 
   it('each feedback PDF is a 200 that names the absurd value', async () => {
+    expect(stored.map((x) => x.studentId)).toEqual(['S-001', 'S-002', 'S-003']);
     for (const { studentId, submissionId } of stored) {
       const res = await api.app.inject({ method: 'GET', url: `/v1/submissions/${submissionId}/feedback.pdf`, headers: bearer(s.taAToken) });
       expect(res.statusCode, res.body).toBe(200);

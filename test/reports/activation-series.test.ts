@@ -48,6 +48,7 @@ describe('the sheet’s Arrhenius and Eyring plots', () => {
 
   it('draws our Eyring line through points on ln(k/T) = ln(k_B/h) + ΔS‡/R − ΔH‡/(R T)', () => {
     const series = eyringSeries(refit(eyringK), { dH: { value: '47.5', unit: 'kJ mol^-1' }, dS: { value: '-60', unit: 'J K^-1 mol^-1' } })!;
+    expect(series.points).toHaveLength(temperatures.length);
     for (const p of series.points) expect(at(series.ourLine, p.x)).toBeCloseTo(p.y, 6);
     expect(series.ourLine.slope).toBeCloseTo(-dH / (1000 * R), 9);
     // ΔS‡ with its sign flipped moves the intercept by 2 × 60 / R, the slope unchanged.

@@ -40,7 +40,12 @@ describe('renderFeedbackSheet', () => {
     const { flat } = await render('S-002');
     // A log-base slip: the first run's ln F column carries the message; the k_obs values that follow from
     // it at no cost are named in one line, not as cards (hand-read from the slip the generator makes).
-    for (const f of result.findings.filter((x) => x.code !== 'carried-forward')) {
+    const cards = result.findings.filter((x) => x.code !== 'carried-forward');
+    // Hand-read from the slip: log10 in each of the 4 runs' columns, one finding a column; and the
+    // student's k_A, ours divided by ln 10, below the reference band's 0.1 M^-1 min^-1: a warning.
+    expect(Number(student('S-002').submission.reported!.kA!.value)).toBeLessThan(0.1);
+    expect(cards.map((f) => [f.code, f.path])).toEqual([...[0, 1, 2, 3].map((i) => ['log-base', `runs[${i}].reported.lnF`]), ['implausible', 'reported.kA']]);
+    for (const f of cards) {
       const place = firstOrderCatalysisReport.describePath(f.path, student('S-002').submission).replace(/_\{([^}]*)\}/g, '_$1');
       expect(flat.includes(folded(printableMessage(f.message).slice(0, 60))) || flat.includes(place)).toBe(true);
     }

@@ -5,34 +5,43 @@ import { migrateToLatest } from '../../server/store/migrate.ts';
 import { databaseTarget } from './database-target.ts';
 
 /**
- * A fresh, migrated database for one test file. `postgres` asks for a PostgreSQL server where one is
- * given (database-target.ts): DATABASE_URL (a new database is created on that server and dropped
- * afterwards), else a testcontainers PostgreSQL where a Docker engine is configured, else the embedded
- * engine. `pglite` always gives the embedded engine, in memory.
+ * A fresh, migrated database for one test file. `postgres` gives the one TEST_DATABASE chooses
+ * (database-target.ts): the server in DATABASE_URL (a new database is created on it and dropped
+ * afterwards), a testcontainers PostgreSQL, or the embedded engine. `pglite` always gives the embedded
+ * engine, in memory.
  */
 export interface TestDatabase {
   store: Store;
   close(): Promise<void>;
 }
 
-async function onServer(url: string): Promise<TestDatabase> {
-  const name = `rateproof_test_${randomBytes(6).toString('hex')}`;
-  const admin = new pg.Client({ connectionString: url });
-  await admin.connect();
-  await admin.query(`CREATE DATABASE ${name}`);
-  await admin.end();
-  const target = new URL(url);
+/** A new, empty database on the PostgreSQL server at `serverUrl`, with its URL; `drop` removes it. */
+export async function scratchDatabase(serverUrl: string, prefix = 'rateproof_test'): Promise<{ url: string; drop(): Promise<void> }> {
+  const name = `${prefix}_${randomBytes(6).toString('hex')}`;
+  const onServer = async (statement: string) => {
+    const admin = new pg.Client({ connectionString: serverUrl });
+    await admin.connect();
+    try {
+      await admin.query(statement);
+    } finally {
+      await admin.end();
+    }
+  };
+  await onServer(`CREATE DATABASE ${name}`);
+  const target = new URL(serverUrl);
   target.pathname = `/${name}`;
-  const store = openStore({ databaseUrl: target.toString() });
+  return { url: target.toString(), drop: () => onServer(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`) };
+}
+
+async function onServer(url: string): Promise<TestDatabase> {
+  const scratch = await scratchDatabase(url);
+  const store = openStore({ databaseUrl: scratch.url });
   await migrateToLatest(store.db);
   return {
     store,
     async close() {
       await store.close();
-      const c = new pg.Client({ connectionString: url });
-      await c.connect();
-      await c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-      await c.end();
+      await scratch.drop();
     },
   };
 }
@@ -44,7 +53,7 @@ async function inContainer(): Promise<TestDatabase> {
     container = await new PostgreSqlContainer('postgres:15').start();
   } catch (error) {
     throw new Error(
-      `a Docker engine is configured but no PostgreSQL container started: unset DOCKER_HOST to test on the embedded engine, or set DATABASE_URL (${(error as Error).message})`,
+      `TEST_DATABASE=container, but no PostgreSQL container started: is a Docker engine running? TEST_DATABASE=embedded tests without one (${(error as Error).message})`,
     );
   }
   const db = await onServer(container.getConnectionUri());
@@ -65,6 +74,6 @@ async function embedded(): Promise<TestDatabase> {
 
 export async function openTestDatabase(engine: 'postgres' | 'pglite' = 'postgres'): Promise<TestDatabase> {
   const target = engine === 'pglite' ? ({ kind: 'embedded' } as const) : databaseTarget();
-  if (target.kind === 'server') return onServer(target.url);
+  if (target.kind === 'url') return onServer(target.url);
   return target.kind === 'container' ? inContainer() : embedded();
 }
