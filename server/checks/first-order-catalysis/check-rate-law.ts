@@ -96,14 +96,22 @@ const CONSTANTS: Constant[] = [
   { name: 'kA', label: 'k_A', unitKind: 'second-order-rate' },
 ];
 
+function missingUncertainty(c: Constant, path: string, item: 'kNUncertainty' | 'kAUncertainty', charge: number, drafts: DraftFinding[]): void {
+  if (charge > 0) {
+    drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage: 'rate-law', rubricItem: item, itemKey: item, severity: 'error', charge, message: `The standard error of ${c.label} is missing.` });
+  }
+}
+
 function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: RateLawRefit, settings: Settings, drafts: DraftFinding[]): void {
   const path = `reported.${c.name}`;
   const { rubric, tolerances } = settings;
   const uncertaintyItem = c.name === 'kN' ? 'kNUncertainty' : 'kAUncertainty';
   if (!reported) {
+    // An absent value has no standard error either: both rubric items are unearned.
     if (rubric[c.name] > 0) {
       drafts.push({ code: 'missing-value', path, stage: 'rate-law', rubricItem: c.name, itemKey: c.name, severity: 'error', charge: rubric[c.name], message: `${c.label} is missing.` });
     }
+    missingUncertainty(c, path, uncertaintyItem, rubric[uncertaintyItem], drafts);
     return;
   }
   const unit = settings.units[c.name];
@@ -132,9 +140,7 @@ function checkConstant(c: Constant, reported: ReportedValue | undefined, refit: 
     drafts,
   );
   if (read.uncertainty === undefined) {
-    if (rubric[uncertaintyItem] > 0) {
-      drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage: 'rate-law', rubricItem: uncertaintyItem, itemKey: uncertaintyItem, severity: 'error', charge: rubric[uncertaintyItem], message: `The standard error of ${c.label} is missing.` });
-    }
+    missingUncertainty(c, path, uncertaintyItem, rubric[uncertaintyItem], drafts);
   } else {
     const spread: Candidate[] = [{ value: (ours.ci95[1] - ours.ci95[0]) / 2, causes: ['uncertainty-kind'], basis: 'the half-width of the 95 % confidence interval', detail: '95 % confidence half-width' }];
     const weightedFit = refit.weightedFit;

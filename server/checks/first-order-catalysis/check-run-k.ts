@@ -44,7 +44,9 @@ export function checkRunK(
   // No rate constant to mark against (a finding on the run says why): k and its uncertainty are not graded.
   if (a.undetermined) return undefined;
   if (!reported) {
+    // An absent value has no standard error either: both rubric items are unearned.
     missing(path, what, 'k', `k@${a.path}`, rubric.k, drafts);
+    missing(`${path}.uncertainty`, `The standard error of ${what}`, 'kUncertainty', `kUncertainty@${a.path}`, rubric.kUncertainty, drafts);
     return undefined;
   }
   const unit = rateUnitOf(a.timeUnit);

@@ -69,8 +69,12 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
   const { label, stage, unitKind } = QUANTITIES[q];
   const path = `reported.${q}`;
   const charge = settings.rubric[q];
+  const asksSE = q === 'Ea' && settings.rubric.EaUncertainty > 0 && seDefined;
+  const missingSE = () => drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage, rubricItem: 'EaUncertainty', itemKey: 'EaUncertainty', severity: 'error', charge: settings.rubric.EaUncertainty, message: `The standard error of ${label} is missing.` });
   if (!reported) {
     if (charge > 0) drafts.push({ code: 'missing-value', path, stage, rubricItem: q, itemKey: q, severity: 'error', charge, message: `${label} is missing.` });
+    // An absent value has no standard error either: both rubric items are unearned.
+    if (asksSE) missingSE();
     return;
   }
   const unit = settings.units[q];
@@ -86,9 +90,9 @@ function checkQuantity(q: Quantity, reported: ReportedValue | undefined, analysi
     const outside = outsideBand(band, read.value, unit, { label, path, stage, advice: 'It agrees with the refit of your data, so this may be right; it is worth checking the temperatures and the rate constants.' });
     if (outside) drafts.push(outside);
   }
-  if (q !== 'Ea' || settings.rubric.EaUncertainty === 0 || !seDefined) return;
+  if (!asksSE) return;
   if (read.uncertainty === undefined) {
-    drafts.push({ code: 'missing-value', path: `${path}.uncertainty`, stage, rubricItem: 'EaUncertainty', itemKey: 'EaUncertainty', severity: 'error', charge: settings.rubric.EaUncertainty, message: `The standard error of ${label} is missing.` });
+    missingSE();
     return;
   }
   checkValue(
