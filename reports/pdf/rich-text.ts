@@ -1,9 +1,9 @@
+import type { Doc } from './doc-type.ts';
 import { FONT } from './fonts.ts';
 
 /**
  * One-line labels with real sub- and superscripts: `k_{obs}`, `α_{∞}`, `x^{2}`. Unicode superscripts
- * (⁻¹) need no markup; subscript letters mostly have no Unicode form, hence the markup. Typed with
- * pdfkit's own document, as fonts.ts is, because document.ts draws with these: imports run one way.
+ * (⁻¹) need no markup; subscript letters mostly have no Unicode form, hence the markup.
  */
 
 type Shift = 'base' | 'sub' | 'sup';
@@ -43,7 +43,7 @@ export interface RichOptions {
 
 const sizeOf = (segment: Segment, size: number) => (segment.shift === 'base' ? size : size * SCRIPT_SCALE);
 
-export function richWidth(doc: PDFKit.PDFDocument, text: string, size: number, bold = false): number {
+export function richWidth(doc: Doc, text: string, size: number, bold = false): number {
   doc.font(bold ? FONT.bold : FONT.regular);
   return parseRich(text).reduce((width, s) => width + doc.fontSize(sizeOf(s, size)).widthOfString(s.text), 0);
 }
@@ -52,7 +52,7 @@ export function richWidth(doc: PDFKit.PDFDocument, text: string, size: number, b
  * Draws `text` with its top at `y`; `x` is its left, centre or right end by `align`. Returns the width.
  * The text cursor (doc.x, doc.y) is left where it was: labels never push the flow of the page.
  */
-export function drawRich(doc: PDFKit.PDFDocument, text: string, x: number, y: number, options: RichOptions): number {
+export function drawRich(doc: Doc, text: string, x: number, y: number, options: RichOptions): number {
   const { size } = options;
   const saved = { x: doc.x, y: doc.y };
   const width = richWidth(doc, text, size, options.bold);
