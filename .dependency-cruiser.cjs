@@ -2,9 +2,9 @@
  * The import map's rules: no circles, and each layer imports only the layers below it. Checked by
  * test/house/import-layers.test.ts (so in `npm test`) and by `npm run deps`.
  *
- * From the ground up: engine, schemas, input, config and errors; signals; checks; reports; the kinds
- * registry; batches; store; pool; grading; routes and HTTP; the app, the command and the demo.
- * web/ is the browser's and apart.
+ * At the ground: engine, schemas, input, config and errors. Above them signals, then checks, reports,
+ * the kinds registry, batches and the pool, each on the one before; the store beside those; grading
+ * on both; routes and HTTP on grading; the app, the command and the demo on top. web/ is apart.
  */
 
 // Every path of ours; a rule below forbids those of them a layer may not import.
