@@ -1,5 +1,5 @@
 import type { CheckResult } from '../schemas/result.ts';
-import type { SectionSignals } from '../server/signals/section-signals.ts';
+import type { SectionSignals } from '../server/signals/section-report.ts';
 
 /** Any kind's parsed settings: the kind's report reads the rest. */
 export interface KindSettings {

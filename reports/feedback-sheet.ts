@@ -1,11 +1,11 @@
 import type { FeedbackInput } from './feedback-input.ts';
+import type { DrawnKind } from './kind-report.ts';
 import { INVENTED_NOTE } from './feedback-input.ts';
 import { drawFindings, drawRejections } from './feedback/findings-block.ts';
 import { drawHeader } from './feedback/header-block.ts';
 import { drawMeasurementNotes } from './feedback/measurement-notes-block.ts';
 import { drawScore } from './feedback/score-block.ts';
 import { collect, createDocument, finish } from './pdf/document.ts';
-import { reportFor, stagesOf } from '../server/checks/kinds.ts';
 
 export type { FeedbackHeader, FeedbackInput } from './feedback-input.ts';
 
@@ -15,20 +15,20 @@ export type { FeedbackHeader, FeedbackInput } from './feedback-input.ts';
  * part (for the first kind: reported against refit values, ln F against t per run, k_obs against
  * [catalyst], residuals where a reading looks suspect). Pure: data in, bytes out.
  */
-export async function renderFeedbackSheet(input: FeedbackInput): Promise<Buffer> {
+export async function renderFeedbackSheet(input: FeedbackInput, kind: DrawnKind): Promise<Buffer> {
   const { header, settings, submission, result } = input;
   const gradedAt = new Date(header.gradedAt);
   const doc = createDocument({ title: `Feedback sheet ${header.studentId}`, date: Number.isNaN(gradedAt.getTime()) ? new Date(0) : gradedAt });
   const bytes = collect(doc);
 
-  const report = await reportFor(settings.kind);
+  const { report } = kind;
   const describe = (path: string) => report.describePath(path, submission);
   drawHeader(doc, header, result.engineVersion);
   if (result.status === 'rejected') {
     drawRejections(doc, result, describe);
   } else {
     drawScore(doc, result, report.rubricBreakdown(settings, submission, result));
-    drawFindings(doc, result, stagesOf(settings.kind), describe);
+    drawFindings(doc, result, kind.stages, describe);
     drawMeasurementNotes(doc, result, describe);
     if (result.status === 'checked') report.drawSheetData(doc, input);
   }

@@ -20,3 +20,10 @@ export interface KindReport {
   /** The summary's part on the class's values. */
   drawSummaryData(doc: Doc, input: SectionSummaryInput): void;
 }
+
+/** A kind as the documents draw it: its report, and from its checker the stages and finding codes, in order. */
+export interface DrawnKind {
+  report: KindReport;
+  stages: ReadonlyArray<{ id: string; title: string }>;
+  findingCodes: readonly string[];
+}

@@ -11,9 +11,8 @@ import { codeCounts } from './summary/code-counts.ts';
 import { drawScoreHistogram } from './summary/histogram.ts';
 import { percentBins, spread } from './summary/stats.ts';
 import { drawSignals } from './summary/signals-block.ts';
-import type { KindReport } from './kind-report.ts';
+import type { DrawnKind, KindReport } from './kind-report.ts';
 import { plainRich } from './pdf/rich-text.ts';
-import { kindFor, reportFor } from '../server/checks/kinds.ts';
 
 export type { SectionSummaryInput, SummaryHeader } from './feedback-input.ts';
 
@@ -67,8 +66,8 @@ function drawScores(doc: Doc, input: SectionSummaryInput): void {
   drawScoreHistogram(doc, percentBins(fractions));
 }
 
-function drawCodes(doc: Doc, input: SectionSummaryInput): void {
-  const counts = codeCounts(input.results, kindFor(input.settings.kind)?.findingCodes);
+function drawCodes(doc: Doc, input: SectionSummaryInput, findingCodes: readonly string[]): void {
+  const counts = codeCounts(input.results, findingCodes);
   const checked = input.results.filter((r) => r.status === 'checked').length;
   sectionHeading(doc, 'How often each finding occurred', 80);
   if (counts.length === 0) {
@@ -115,16 +114,16 @@ function drawAttention(doc: Doc, input: SectionSummaryInput): void {
  * the first kind, k_N and k_A against the reference band), how often each finding occurred, who most needs a TA's attention (ids only), and
  * the section's signals for review where they are given.
  */
-export async function renderSectionSummary(input: SectionSummaryInput): Promise<Buffer> {
+export async function renderSectionSummary(input: SectionSummaryInput, kind: DrawnKind): Promise<Buffer> {
   const gradedAt = new Date(input.header.gradedAt);
   const doc = createDocument({ title: `Section summary ${input.header.section}`, date: Number.isNaN(gradedAt.getTime()) ? new Date(0) : gradedAt });
   const bytes = collect(doc);
-  const report = await reportFor(input.settings.kind);
+  const { report } = kind;
   drawHeader(doc, input, report);
   drawScores(doc, input);
   drawAttention(doc, input);
   report.drawSummaryData(doc, input);
-  drawCodes(doc, input);
+  drawCodes(doc, input, kind.findingCodes);
   if (input.signals || input.results.some((r) => (r.signals ?? []).length > 0)) {
     const submissions = new Map((input.submissions ?? []).map((s) => [(s as { studentId?: string }).studentId, s]));
     drawSignals(doc, input.signals, input.results, (path, studentId) => plainRich(report.describePath(path, submissions.get(studentId ?? undefined))));

@@ -1,9 +1,10 @@
 import PDFDocument from 'pdfkit';
+import type { Doc } from './doc-type.ts';
 import { registerFonts, FONT } from './fonts.ts';
 import { drawRich } from './rich-text.ts';
 import { COLOR, PAGE, SIZE } from './theme.ts';
 
-export type Doc = PDFKit.PDFDocument;
+export type { Doc } from './doc-type.ts';
 
 export interface DocumentOptions {
   title: string;

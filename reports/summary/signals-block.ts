@@ -1,5 +1,5 @@
 import type { CheckResult } from '../../schemas/result.ts';
-import type { SectionSignals } from '../../server/signals/section-signals.ts';
+import type { SectionSignals } from '../../server/signals/section-report.ts';
 import { formatNumber } from '../format.ts';
 import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';

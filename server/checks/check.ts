@@ -3,7 +3,6 @@ import type { CheckResult, Rejection } from '../../schemas/result.ts';
 import type { ExperimentKind } from './experiment-kind.ts';
 import { InputRejected } from './input-rejected.ts';
 import { EngineError } from '../engine/engine-error.ts';
-import { kindFor } from './kinds.ts';
 import { ENGINE_VERSION } from './version.ts';
 
 /** Assignment settings that failed validation; `issues` name each field and the reason. */
@@ -26,20 +25,6 @@ export function pathText(path: ReadonlyArray<PropertyKey>): string {
 
 export function issuesOf(error: z.ZodError): Rejection[] {
   return error.issues.map((issue) => ({ path: pathText(issue.path) || '(root)', message: issue.message }));
-}
-
-/** Validates assignment settings (their `kind` chooses the schema) and fills defaults. */
-export function parseAssignment(input: unknown): Assignment {
-  const kindName = typeof input === 'object' && input !== null ? (input as { kind?: unknown }).kind : undefined;
-  const kind = typeof kindName === 'string' ? kindFor(kindName) : undefined;
-  if (!kind) {
-    throw new SettingsError([{ path: 'kind', message: `unknown experiment kind ${JSON.stringify(kindName)}` }]);
-  }
-  const parsed = kind.settingsSchema.safeParse(input);
-  if (!parsed.success) throw new SettingsError(issuesOf(parsed.error));
-  const issues = kind.settingsIssues(parsed.data);
-  if (issues.length > 0) throw new SettingsError(issues);
-  return { kind, settings: parsed.data };
 }
 
 function rejected(studentId: string | null, maxScore: number, rejections: Rejection[]): CheckResult {

@@ -1,4 +1,5 @@
-import { decimalsOf, slipBetween } from './digit-slips.ts';
+import { slipBetween } from './digit-slips.ts';
+import { decimalsOf } from '../engine/decimal-places.ts';
 
 /**
  * Cell-by-cell comparison of a student's copy of a data table with the table handed out: which cells

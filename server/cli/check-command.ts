@@ -5,14 +5,14 @@ import { checkBatch } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 import { WorkerTaskError } from '../pool/worker-pool.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkJsonBatch, formatResults, type CheckedBatch, type ResultOutput } from './check-json-batch.ts';
+import { checkJsonBatch, formatResults, type CheckedBatch, type ResultOutput } from '../batches/check-json-batch.ts';
 import { fileErrorReason, InputError, isFileError, UsageError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { parseOptions } from './parse-options.ts';
 import { InFlight } from './in-flight.ts';
-import { JsonBatcher, JsonLayoutError, type JsonBatch } from './json-batches.ts';
+import { JsonBatcher, JsonLayoutError, type JsonBatch } from '../batches/json-batches.ts';
 import { readAssignment, readCsvSubmissions } from './read-input.ts';
-import { renderTable, type TableEntry } from './results-table.ts';
+import { renderTable, type TableEntry } from '../../reports/results-table.ts';
 
 /**
  * `rateproof check`: grades a submissions file offline. A JSON or JSON Lines file is read as a stream
@@ -88,7 +88,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 
 /** --signals FILE: the section's signals as JSON, from the submissions the checker could read. */
 async function writeSignals(path: string, settings: unknown, submissions: unknown[], results: CheckResult[], say: boolean, io: CliIo): Promise<void> {
-  const { sectionSignals } = await import('../signals/section-signals.ts');
+  const { sectionSignals } = await import('../../kinds/section-signals.ts');
   const checked = submissions.filter((_, i) => results[i]?.status === 'checked');
   const section = sectionSignals(settings as { kind: string }, checked);
   // Each student's own signals (per run and per submission) beside the section's.

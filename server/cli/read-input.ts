@@ -1,6 +1,7 @@
 import type { Assignment } from '../checks/check.ts';
 import type { ExperimentKind } from '../checks/experiment-kind.ts';
-import { parseAssignment, SettingsError } from '../checks/check.ts';
+import { SettingsError } from '../checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import { filePosition } from '../input/json-position.ts';
 import type { CliIo } from './cli-io.ts';

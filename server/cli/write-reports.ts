@@ -47,19 +47,19 @@ export async function writeReports(
   if (pool) {
     await Promise.all(sheets.map(async ({ name, input }) => save(name, await pool.run('render-sheet', input))));
   } else {
-    const { renderSheetOrReason } = await import('../../reports/sheet-or-reason.ts');
+    const { feedbackSheetOrReason } = await import('../../kinds/documents.ts');
     // Each sheet is written while the next is drawn, a few at most in flight.
     const writing = new InFlight(WRITES_IN_FLIGHT);
     for (const { name, input } of sheets) {
-      const bytes = await renderSheetOrReason(input);
+      const bytes = await feedbackSheetOrReason(input);
       await writing.add(() => save(name, bytes));
     }
     await writing.done();
   }
   await save('gradebook.csv', gradebookCsv(results, { assignment: header.assignment, bom: true }));
-  const { renderSectionSummary } = await import('../../reports/section-summary.ts');
-  const { sectionSignals } = await import('../signals/section-signals.ts');
+  const { sectionSummary } = await import('../../kinds/documents.ts');
+  const { sectionSignals } = await import('../../kinds/section-signals.ts');
   const submissionsRead = sheets.map((s) => s.input.submission);
-  await save('summary.pdf', await renderSectionSummary({ header, settings, results, submissions: submissionsRead, signals: sectionSignals(settings, submissionsRead) }));
+  await save('summary.pdf', await sectionSummary({ header, settings, results, submissions: submissionsRead, signals: sectionSignals(settings, submissionsRead) }));
   return sheets.length;
 }

@@ -2,12 +2,11 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Kysely } from 'kysely';
 import type { FeedbackInput } from '../../reports/feedback-input.ts';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
 import { gradebookCsv } from '../../reports/gradebook-csv.ts';
-import { renderSectionSummary } from '../../reports/section-summary.ts';
 import { sectionFeedback, sectionResults } from '../grading/report-inputs.ts';
 import type { Database } from '../store/database.ts';
-import { sectionSignals } from '../signals/section-signals.ts';
+import { feedbackSheet, sectionSummary } from '../../kinds/documents.ts';
+import { sectionSignals } from '../../kinds/section-signals.ts';
 
 /** One assignment of the demo section as a TA downloads it: every sheet, the summary and the gradebook, in `dir`. */
 export async function writeSectionDocuments(
@@ -17,11 +16,11 @@ export async function writeSectionDocuments(
 ): Promise<FeedbackInput[]> {
   await mkdir(dir, { recursive: true });
   const inputs = await sectionFeedback(db, place.sectionId, place.assignmentId);
-  for (const input of inputs) await writeFile(join(dir, `${input.header.studentId}.pdf`), await renderFeedbackSheet({ ...input, invented: true }));
+  for (const input of inputs) await writeFile(join(dir, `${input.header.studentId}.pdf`), await feedbackSheet({ ...input, invented: true }));
   const submissions = inputs.map((i) => i.submission);
   await writeFile(
     join(dir, 'summary.pdf'),
-    await renderSectionSummary({
+    await sectionSummary({
       header: { course: place.courseName, section: place.sectionName, assignment: place.title, gradedAt: new Date() },
       settings: inputs[0].settings,
       results: inputs.map((i) => i.result),

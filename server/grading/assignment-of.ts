@@ -1,4 +1,5 @@
-import { parseAssignment, SettingsError, type Assignment } from '../checks/check.ts';
+import { SettingsError, type Assignment } from '../checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { ApiError } from '../errors.ts';
 
 /** Validated settings, or a 400 naming each field under `prefix`. */

@@ -1,7 +1,7 @@
 import type { FeedbackInput, SectionSummaryInput } from '../../reports/feedback-input.ts';
 import type { SectionSignals } from '../signals/section-report.ts';
-import type { GradedForStore } from './graded-for-store.ts';
-import { inParts } from '../in-parts.ts';
+import type { GradedForStore } from '../batches/graded-for-store.ts';
+import { inParts } from '../store/in-parts.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 
 /**

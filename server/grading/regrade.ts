@@ -3,7 +3,7 @@ import type { Kysely } from 'kysely';
 import type { AssignmentRow } from '../store/assignments.ts';
 import type { Database } from '../store/database.ts';
 import { insertResults, latestSubmissions } from '../store/submissions.ts';
-import { inParts } from '../in-parts.ts';
+import { inParts } from '../store/in-parts.ts';
 import { isDatabaseUnavailable } from '../store/unavailable.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { Grader } from './grader.ts';

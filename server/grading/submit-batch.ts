@@ -1,7 +1,7 @@
 import type { Kysely } from 'kysely';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { Database } from '../store/database.ts';
-import type { GradedForStore } from './graded-for-store.ts';
+import type { GradedForStore } from '../batches/graded-for-store.ts';
 import type { Grader } from './grader.ts';
 import { rosterRows } from '../store/students.ts';
 import { storeGraded } from '../store/submissions.ts';

@@ -3,11 +3,11 @@
  * worker that only checks never loads the PDF code. Inputs and outputs cross threads by structured clone.
  */
 export const tasks = {
-  'check-json-batch': () => import('../cli/check-json-batch.ts').then((m) => m.checkJsonBatch),
-  'grade-for-store': () => import('../grading/graded-for-store.ts').then((m) => m.gradeForStore),
-  'render-sheet': () => import('../../reports/sheet-or-reason.ts').then((m) => m.renderSheetOrReason),
-  'render-summary': () => import('../../reports/section-summary.ts').then((m) => m.renderSectionSummary),
-  'section-signals': () => import('../signals/section-signals.ts').then((m) => m.sectionSignalsTask),
+  'check-json-batch': () => import('../batches/check-json-batch.ts').then((m) => m.checkJsonBatch),
+  'grade-for-store': () => import('../batches/graded-for-store.ts').then((m) => m.gradeForStore),
+  'render-sheet': () => import('../../kinds/documents.ts').then((m) => m.feedbackSheetOrReason),
+  'render-summary': () => import('../../kinds/documents.ts').then((m) => m.sectionSummary),
+  'section-signals': () => import('../../kinds/section-signals.ts').then((m) => m.sectionSignalsTask),
 };
 
 export type TaskName = keyof typeof tasks;

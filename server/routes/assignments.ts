@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { newSettings, patchedSettings, replacedSettings } from '../grading/settings-update.ts';
-import { stagesOf } from '../checks/kinds.ts';
+import { stagesOf } from '../../kinds/registry.ts';
 import { createAssignment, getAssignment, replaceSettings } from '../store/assignments.ts';
 import { getSection } from '../store/courses.ts';
 import type { RouteSpec } from './route-spec.ts';

@@ -1,5 +1,5 @@
 import { sql, type Kysely } from 'kysely';
-import { inParts } from '../in-parts.ts';
+import { inParts } from './in-parts.ts';
 import type { Database } from './database.ts';
 
 /** What a TA released of one submission: the result, and the last override and signal choice it included. */

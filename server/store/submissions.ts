@@ -1,5 +1,5 @@
 import { sql, type Kysely } from 'kysely';
-import { inParts } from '../in-parts.ts';
+import { inParts } from './in-parts.ts';
 import type { Database } from './database.ts';
 import { idKey } from './students.ts';
 

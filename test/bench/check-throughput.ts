@@ -1,7 +1,8 @@
 import { readFile } from 'node:fs/promises';
 import { findingCodes, type FindingCode } from '../../schemas/kinds/first-order-catalysis.ts';
 import { corpus } from './corpus.ts';
-import { checkBatch, checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkBatch, checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import {
   atExpectedPath,

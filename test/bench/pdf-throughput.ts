@@ -1,4 +1,4 @@
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { feedbackSheet } from '../../kinds/documents.ts';
 import { slipCodes } from '../../server/demo/submission-generator.ts';
 import { feedbackInput, section } from '../reports/fixtures.ts';
 
@@ -14,13 +14,13 @@ export async function benchPdfs(): Promise<{ pdfsPerSecond: number; milliseconds
   const slips = Array.from({ length: STUDENTS }, (_, i) => (i % 3 === 0 ? undefined : slipCodes.filter((c) => c !== 'transcription')[i % (slipCodes.length - 1)]));
   const { settings, students } = section(2024, slips, { reference: true });
   const inputs = students.map((s) => feedbackInput(settings, s));
-  for (const input of inputs.slice(0, 5)) await renderFeedbackSheet(input); // warm-up (font parsing, JIT)
+  for (const input of inputs.slice(0, 5)) await feedbackSheet(input); // warm-up (font parsing, JIT)
 
   let count = 0;
   let bytes = 0;
   const start = process.hrtime.bigint();
   while (process.hrtime.bigint() - start < BigInt(SECONDS * 1e9)) {
-    const pdf = await renderFeedbackSheet(inputs[count % inputs.length]);
+    const pdf = await feedbackSheet(inputs[count % inputs.length]);
     bytes += pdf.length;
     count += 1;
   }

@@ -1,6 +1,7 @@
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
-import { sectionSignals } from '../../server/signals/section-signals.ts';
+import { sectionSignals } from '../../kinds/section-signals.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { computedReadings, ownRunsSection } from '../support/own-runs-section.ts';
 import { conditionRun, type RunCondition } from '../support/run-conditions.ts';

@@ -4,7 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { findingCodes as catalysisCodes } from '../../schemas/kinds/first-order-catalysis.ts';
 import { findingCodes as temperatureCodes } from '../../schemas/kinds/temperature-dependence.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 /**
  * The casebook: hand-worked submissions, each with the verdict a careful TA would give, worked out

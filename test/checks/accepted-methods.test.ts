@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 // Published worked example (a textbook-style problem on a public chemistry question-and-answer site, as
 // recorded in test/reference/kinetics-check-values.md): sucrose inversion in 0.5 M HCl at 35 C, rotation

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { Submission as TemperatureSubmission } from '../../schemas/kinds/temperature-dependence.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { gaussian as normal, seededRandom as seeded } from '../../server/demo/seeded-random.ts';
 
 // Careful students, made here independently of the demo generator and of the engine (only the seeded

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { FindingCode } from '../../schemas/kinds/first-order-catalysis.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 

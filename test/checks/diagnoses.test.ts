@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Refit, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { fitLine, fitThroughOrigin } from '../../server/engine/linear-fit.ts';
 import { acid, handMadeSubmission, readingsFor, recomputeRateLaw } from '../support/hand-made-section.ts';
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { cleanCase, isFound, slipCase, slipCodes, type ExpectedFinding } from '../../server/demo/submission-generator.ts';
 
 /**

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 /**
  * Invented, noise-free runs as in run-not-fitted.test.ts: x(t) = 5 + 15 e^(-k t), k_obs = 0.01 + 0.1 c

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 // Invented run: x(t) = 6.35 + 15.0 e^(-0.08 t), a reading a minute for 15 minutes, to 0.001 deg, with
 // x_inf recorded as 6.35. The student copied x_inf as 6.53 (two neighbouring digits swapped) and

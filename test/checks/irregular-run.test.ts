@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { fitGuggenheim } from '../../server/engine/guggenheim.ts';
 import { fitFirstOrderNonlinear } from '../../server/engine/first-order-nonlinear.ts';
 import { assignmentSettings } from '../../server/demo/submission-generator.ts';

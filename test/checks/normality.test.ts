@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { molarForNormality } from '../../server/checks/first-order-catalysis/catalyst-unit.ts';
 
 // Invented runs: x(t) = 5 + 15 e^(-k t), k = 0.02 + 0.2 [H+] per min, to 0.001 deg, a reading a

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { checkValue, type ValueCheck } from '../../server/checks/check-value.ts';
 import type { DraftFinding } from '../../server/checks/draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT } from '../../server/checks/explain.ts';

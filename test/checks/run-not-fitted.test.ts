@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 /**
  * Invented, noise-free runs: x(t) = x_inf + (x_0 - x_inf) e^(-k t) with x_0 = 20, x_inf = 5, a reading

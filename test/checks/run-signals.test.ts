@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { cleanCase } from '../../server/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 import { syntheticReadings } from '../../server/demo/synthetic-run.ts';

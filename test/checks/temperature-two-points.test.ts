@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 /**
  * Two temperatures (invented): k = 1.00e-3 s^-1 at 298.15 K and 2.70e-3 s^-1 at 308.15 K. A line

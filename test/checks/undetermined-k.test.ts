@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { assignmentSettings } from '../../server/demo/submission-generator.ts';
 import { submissionsFor } from '../support/api-fixture.ts';
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 // Invented exact data: three readings that halve (or quarter, or eighth) every minute towards x_inf = 0,
 // so ln F lies exactly on a line through the origin, every run's k_obs has standard error 0, and weights

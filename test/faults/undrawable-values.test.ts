@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { renderSheetOrReason } from '../../reports/sheet-or-reason.ts';
+import { feedbackSheetOrReason } from '../../kinds/documents.ts';
 import { feedbackInput, section } from '../reports/fixtures.ts';
 import { bearer, openApi, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
@@ -44,12 +44,12 @@ describe('stored results with absurd values still give a feedback sheet each, an
   });
 });
 
-describe('renderSheetOrReason', () => {
+describe('feedbackSheetOrReason', () => {
   it('puts a page that says why in place of a sheet that cannot be drawn', async () => {
     const { settings, students } = section(5, [undefined]);
     const input = feedbackInput(settings, students[0]);
     const broken = { ...input, result: { ...input.result, findings: null as never } };
-    const text = folded(await pdfText(await renderSheetOrReason(broken)));
+    const text = folded(await pdfText(await feedbackSheetOrReason(broken)));
     expect(text).toContain('This sheet could not be drawn');
     expect(text).toContain(students[0].submission.studentId);
   });

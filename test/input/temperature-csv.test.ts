@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { parseTemperatureCsv } from '../../server/input/temperature-csv.ts';
 
 /** The CSV layout of the temperature-dependence kind, on invented rows. */

@@ -5,14 +5,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp } from '../../server/app.ts';
 import { run } from '../../server/cli.ts';
 import type { ExperimentKind } from '../../server/checks/experiment-kind.ts';
-import { registerKind } from '../../server/checks/kinds.ts';
+import { registerKind } from '../../kinds/registry.ts';
 import { sharedFindingCodes } from '../../schemas/result.ts';
 import { call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
 import { unzip } from '../support/zip-entries.ts';
 import { ZERO_ORDER, zeroOrderKind, zeroOrderReport, zeroOrderSubmission } from '../support/zero-order-kind.ts';
-import { kindFor } from '../../server/checks/kinds.ts';
+import { kindFor } from '../../kinds/registry.ts';
 
 /**
  * A third kind, registered here in the test suite only, runs through the API and the command with

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { Settings } from '../../schemas/kinds/first-order-catalysis.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { rubricBreakdown } from '../../reports/feedback/rubric-breakdown.ts';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { feedbackSheet } from '../../kinds/documents.ts';
 import { printableMessage } from '../../reports/format.ts';
 import { slipCase, slipCodes, type SlipCode } from '../../server/demo/submission-generator.ts';
 import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
@@ -106,7 +107,7 @@ describe('feedback sheets for every kind of slip', () => {
     const lines = rubricBreakdown(settings, submission, result);
     expect(lines.reduce((sum, l) => sum + l.available, 0)).toBeCloseTo(result.maxScore, 9);
     expect(lines.reduce((sum, l) => sum + l.earned, 0)).toBeCloseTo(result.score!, 9);
-    const pdf = await renderFeedbackSheet(feedbackInput(settings, { submission, result }));
+    const pdf = await feedbackSheet(feedbackInput(settings, { submission, result }));
     const raw = await pdfText(pdf);
     const text = folded(raw);
     expect(text).toContain(submission.studentId);

@@ -1,7 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { INVENTED_NOTE, LIKELY_CAUSES_NOTE } from '../../reports/feedback-input.ts';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { feedbackSheet } from '../../kinds/documents.ts';
 import { formatNumber, formatPoints, printableMessage } from '../../reports/format.ts';
 import { readRefit } from '../../reports/refit.ts';
 import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
@@ -17,12 +18,12 @@ beforeAll(() => {
 });
 
 async function render(id: string, invented = true) {
-  const pdf = await renderFeedbackSheet(feedbackInput(s.settings, student(id), invented));
+  const pdf = await feedbackSheet(feedbackInput(s.settings, student(id), invented));
   const text = await pdfText(pdf);
   return { pdf, text, flat: folded(text) };
 }
 
-describe('renderFeedbackSheet', () => {
+describe('feedbackSheet', () => {
   it('prints the id, the score, the refit values as formatted, and the likely-cause note', async () => {
     const { result } = student('S-002');
     const { pdf, text, flat } = await render('S-002');
@@ -93,20 +94,20 @@ describe('renderFeedbackSheet', () => {
     const refit = structuredClone(result.refit) as { runs: Array<Record<string, unknown>> };
     refit.runs[0].halfLife = { value: 20, standardError: 1, ci95: [18, Infinity], unit: 'min' };
     const roundTripped = JSON.parse(JSON.stringify({ ...result, refit }));
-    const text = await pdfText(await renderFeedbackSheet(feedbackInput(s.settings, { submission, result: roundTripped })));
+    const text = await pdfText(await feedbackSheet(feedbackInput(s.settings, { submission, result: roundTripped })));
     expect(text).toContain(formatNumber(readRefit(result)!.runs[0].k!.instructor.value));
     expect(folded(text)).toContain('ln F against t, run by run');
   });
 
   it('gives the same bytes for the same input', async () => {
     const input = feedbackInput(s.settings, student('S-003'));
-    expect((await renderFeedbackSheet(input)).equals(await renderFeedbackSheet(structuredClone(input)))).toBe(true);
+    expect((await feedbackSheet(input)).equals(await feedbackSheet(structuredClone(input)))).toBe(true);
   });
 
   it('renders sheets concurrently with the same bytes as one at a time (fonts and caches are shared)', async () => {
     const inputs = s.students.map((x) => feedbackInput(s.settings, x));
-    const together = await Promise.all(inputs.map((input) => renderFeedbackSheet(input)));
-    for (const [i, input] of inputs.entries()) expect(together[i].equals(await renderFeedbackSheet(input))).toBe(true);
+    const together = await Promise.all(inputs.map((input) => feedbackSheet(input)));
+    for (const [i, input] of inputs.entries()) expect(together[i].equals(await feedbackSheet(input))).toBe(true);
   });
 
   it('explains a rejected submission instead of scoring it', async () => {
@@ -114,7 +115,7 @@ describe('renderFeedbackSheet', () => {
     broken.runs[0].readings = broken.runs[0].readings.slice(0, 2);
     const result = checkSubmission(parseAssignment(s.settings), broken);
     expect(result.status).toBe('rejected');
-    const pdf = await renderFeedbackSheet({ ...feedbackInput(s.settings, { submission: broken, result }), invented: true });
+    const pdf = await feedbackSheet({ ...feedbackInput(s.settings, { submission: broken, result }), invented: true });
     const flat = folded(await pdfText(pdf));
     expect(flat).toContain('S-099');
     expect(flat).toContain('Not checked');
@@ -127,7 +128,7 @@ describe('renderFeedbackSheet', () => {
   it('renders a class-dataset assignment with the intercept model and a transcription slip', async () => {
     const other = section(11, ['transcription'], { classDataset: true, fitModel: 'intercept' });
     const { settings, students } = other;
-    const pdf = await renderFeedbackSheet(feedbackInput(settings, students[0]));
+    const pdf = await feedbackSheet(feedbackInput(settings, students[0]));
     const flat = folded(await pdfText(pdf));
     expect(students[0].result.findings.map((f) => f.code)).toContain('transcription');
     expect(flat).toContain('Readings match the class data');
@@ -139,7 +140,7 @@ describe('renderFeedbackSheet', () => {
     const input = feedbackInput(s.settings, student('S-001'));
     // Invented title, long enough to need three lines in its column.
     const title = 'Acid-catalysed first-order kinetics of an invented ester hydrolysis, four catalyst concentrations, polarimetry';
-    const text = folded(await pdfText(await renderFeedbackSheet({ ...input, header: { ...input.header, assignment: title } })));
+    const text = folded(await pdfText(await feedbackSheet({ ...input, header: { ...input.header, assignment: title } })));
     expect(text).toContain(title);
     expect(text.split('\f')[0]).not.toMatch(/polarimetry…|hydrolysis…/);
   });
@@ -153,7 +154,7 @@ describe('renderFeedbackSheet', () => {
       message: `k_obs is 0.0005 min^-1; the refit gives 0.03 min^-1 (5e-4 min^-1).${points === 0 ? ' Counted once: the same likely cause was already scored at runs[0].reported.k.' : ''}`,
     });
     const findings = [slip(0, 2), slip(1, 0)];
-    const pdf = await renderFeedbackSheet({ ...feedbackInput(s.settings, student('S-001')), result: { ...result, findings } });
+    const pdf = await feedbackSheet({ ...feedbackInput(s.settings, student('S-001')), result: { ...result, findings } });
     const text = folded(await pdfText(pdf));
     expect(text.match(/Error · /g)).toHaveLength(1);
     expect(text).toContain(`Error · ${firstOrderCatalysisReport.describePath('runs[0].reported.k', submission).replace(/_\{([^}]*)\}/g, '$1')} and 1 more place`);

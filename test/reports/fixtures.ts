@@ -1,6 +1,7 @@
 import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import type { FeedbackInput } from '../../reports/feedback-input.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { generateAssignment, generateSubmission, inject, type AssignmentOptions, type SlipCode } from '../../server/demo/submission-generator.ts';

@@ -4,8 +4,7 @@
 //   pdftoppm -png -r 90 -f 1 -l 1 -singlefile OUT_DIR/S-009.pdf docs/feedback-sheet-page1
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
-import { renderSectionSummary } from '../../reports/section-summary.ts';
+import { feedbackSheet, sectionSummary } from '../../kinds/documents.ts';
 import { feedbackInput, GRADED_AT, section } from './fixtures.ts';
 
 const out = process.argv[2] ?? '/tmp/rateproof-samples';
@@ -13,11 +12,11 @@ mkdirSync(out, { recursive: true });
 const slips = [undefined, 'log-base', 'suspect-reading', 'concentration-unit', 'sign-flipped', 'time-unit', 'unit-unrecognised', 'missing-value', 'decimal-shift', 'fit-model', 'half-life-for-rate', 'uncertainty-kind', 'sig-figs', 'swapped-axes', 'wrong-infinity', 'unexplained', 'implausible'] as const;
 const s = section(7, [...slips], { reference: true });
 for (const student of s.students) {
-  writeFileSync(join(out, `${student.submission.studentId}.pdf`), await renderFeedbackSheet(feedbackInput(s.settings, student)));
+  writeFileSync(join(out, `${student.submission.studentId}.pdf`), await feedbackSheet(feedbackInput(s.settings, student)));
 }
 writeFileSync(
   join(out, 'summary.pdf'),
-  await renderSectionSummary({
+  await sectionSummary({
     header: { course: 'Kinetics laboratory (invented)', section: 'Thursday B', assignment: 'Mutarotation kinetics', gradedAt: GRADED_AT },
     settings: s.settings,
     results: s.students.map((x) => x.result),

@@ -2,12 +2,12 @@ import { describe, expect, it } from 'vitest';
 import type { CheckResult } from '../../schemas/result.ts';
 import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
 import { formatNumber } from '../../reports/format.ts';
-import { renderSectionSummary } from '../../reports/section-summary.ts';
+import { sectionSummary } from '../../kinds/documents.ts';
 import { needAttention } from '../../reports/summary/attention.ts';
 import { classValues } from '../../reports/summary/class-values.ts';
 import { codeCounts } from '../../reports/summary/code-counts.ts';
 import { percentBins, spread } from '../../reports/summary/stats.ts';
-import { sectionSignals } from '../../server/signals/section-signals.ts';
+import { sectionSignals } from '../../kinds/section-signals.ts';
 import { GRADED_AT, section } from './fixtures.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 
@@ -49,7 +49,7 @@ describe('section summary figures', () => {
   });
 });
 
-describe('renderSectionSummary', () => {
+describe('sectionSummary', () => {
   it('lists the section signals for review, worded as prompts, when they are given', async () => {
     // One student hands in another's readings shifted by a constant.
     const copy = structuredClone(submissions[0]);
@@ -58,13 +58,13 @@ describe('renderSectionSummary', () => {
     const all = [...submissions, copy];
     const signals = sectionSignals(s.settings, all);
     expect(signals.pairs.map((p) => p.students)).toEqual([[submissions[0].studentId, 'S-099']]);
-    const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results, submissions: all, signals })));
+    const text = folded(await pdfText(await sectionSummary({ header, settings: s.settings, results, submissions: all, signals })));
     expect(text).toContain('For review: how the data were measured, and patterns across the section');
     expect(text).toContain('No signals about how any student’s runs were measured.');
     expect(text).toContain('not findings: no points depend on them');
     expect(text).toContain(`${submissions[0].studentId} and S-099`);
     expect(text).toContain('shifted by a constant');
-    const without = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results, submissions })));
+    const without = folded(await pdfText(await sectionSummary({ header, settings: s.settings, results, submissions })));
     expect(without).not.toContain('For review');
   });
 
@@ -72,13 +72,13 @@ describe('renderSectionSummary', () => {
     const flagged = results.map((r, i) =>
       i === 1 ? { ...r, signals: [{ code: 'end-value' as const, path: 'runs[2].infinity', message: 'm', evidence: {} }, { code: 'temperature-spread' as const, path: 'runs', message: 'm', evidence: {} }] } : r,
     );
-    const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results: flagged, submissions })));
+    const text = folded(await pdfText(await sectionSummary({ header, settings: s.settings, results: flagged, submissions })));
     expect(text).toContain('For review: how the data were measured');
     expect(text).toContain(`${flagged[1].studentId} end-value (Run “${submissions[1].runs[2].label}”, end value x∞), temperature-spread (All runs)`);
   });
 
   it('prints the section, the spread of k_A, the codes and the ids needing attention', async () => {
-    const pdf = await renderSectionSummary({ header, settings: s.settings, results, submissions, invented: true });
+    const pdf = await sectionSummary({ header, settings: s.settings, results, submissions, invented: true });
     const text = folded(await pdfText(pdf));
     expect(text).toContain('Thursday B');
     expect(text).toContain('Score distribution');
@@ -93,10 +93,10 @@ describe('renderSectionSummary', () => {
   });
 
   it('works without submissions, and with nothing checked', async () => {
-    const text = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results })));
+    const text = folded(await pdfText(await sectionSummary({ header, settings: s.settings, results })));
     expect(text).toContain('not given for this summary');
     expect(text).not.toContain(INVENTED_NOTE);
-    const none = folded(await pdfText(await renderSectionSummary({ header, settings: s.settings, results: [] })));
+    const none = folded(await pdfText(await sectionSummary({ header, settings: s.settings, results: [] })));
     expect(none).toContain('No submission could be checked.');
   });
 });

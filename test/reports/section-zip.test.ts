@@ -1,7 +1,7 @@
 import { buffer } from 'node:stream/consumers';
 import { describe, expect, it } from 'vitest';
 import { sectionZip, type ZipEntry } from '../../reports/section-zip.ts';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { feedbackSheet } from '../../kinds/documents.ts';
 import { feedbackInput, section } from './fixtures.ts';
 import { unzip } from '../support/zip-entries.ts';
 
@@ -10,7 +10,7 @@ describe('sectionZip', () => {
     const s = section(3, [undefined, 'log-base', 'sign-flipped']);
     async function* sheets(): AsyncGenerator<ZipEntry> {
       for (const student of s.students) {
-        yield { name: student.submission.studentId, pdf: await renderFeedbackSheet(feedbackInput(s.settings, student)) };
+        yield { name: student.submission.studentId, pdf: await feedbackSheet(feedbackInput(s.settings, student)) };
       }
     }
     const entries = await unzip(await buffer(sectionZip(sheets())));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { feedbackSheet } from '../../kinds/documents.ts';
 import { feedbackInput, section } from './fixtures.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 
@@ -14,7 +14,7 @@ describe('the student’s line on the sheet’s run plots', () => {
     let total = 0;
     for (const student of s.students) {
       const runsWithFinding = student.submission.runs.filter((_, i) => student.result.findings.some((f) => f.path.startsWith(`runs[${i}]`))).length;
-      const flat = folded(await pdfText(await renderFeedbackSheet(feedbackInput(s.settings, student))));
+      const flat = folded(await pdfText(await feedbackSheet(feedbackInput(s.settings, student))));
       const drawn = flat.split('(dashed line').length - 1;
       total += drawn;
       // A run without a finding may still show a dashed line if its k differs beyond the tolerance

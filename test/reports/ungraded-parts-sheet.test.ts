@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { checkSubmission, parseAssignment } from '../../server/checks/check.ts';
-import { renderFeedbackSheet } from '../../reports/feedback-sheet.ts';
+import { checkSubmission } from '../../server/checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
+import { feedbackSheet } from '../../kinds/documents.ts';
 import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { feedbackInput } from './fixtures.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
@@ -13,7 +14,7 @@ async function sheetText(settings: unknown, submission: unknown): Promise<string
   const assignment = parseAssignment(settings);
   const result = stored(checkSubmission(assignment, submission));
   const input = feedbackInput(assignment.settings as Settings, { submission: submission as Submission, result });
-  return folded(await pdfText(await renderFeedbackSheet(input)));
+  return folded(await pdfText(await feedbackSheet(input)));
 }
 
 describe('sheets for work with parts that cannot be graded', () => {

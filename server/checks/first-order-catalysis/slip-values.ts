@@ -1,7 +1,8 @@
 import { EngineError } from '../../engine/engine-error.ts';
 import { slopeOnly, type LineModel } from '../../engine/linear-fit.ts';
 import type { Candidate } from '../explain.ts';
-import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
+import { oneSlipCopies, type SlipKind } from '../digit-slips.ts';
+import { decimalsOf } from '../../engine/decimal-places.ts';
 import { fmt } from '../format.ts';
 import type { RunAnalysis } from './run-analysis.ts';
 

@@ -1,7 +1,8 @@
 import { inverseNormalMatrix } from '../../engine/covariance.ts';
 import { EngineError } from '../../engine/engine-error.ts';
 import { fitFirstOrderNonlinear, type FirstOrderNonlinearFit } from '../../engine/first-order-nonlinear.ts';
-import { decimalsOf, oneSlipCopies, type SlipKind } from '../digit-slips.ts';
+import { oneSlipCopies, type SlipKind } from '../digit-slips.ts';
+import { decimalsOf } from '../../engine/decimal-places.ts';
 
 /**
  * Readings far off the curve through the others, on a student's own data (no class table to copy

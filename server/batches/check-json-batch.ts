@@ -1,8 +1,8 @@
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkAndRead } from '../checks/check.ts';
-import { assignmentOfJson } from '../checks/check-settings-batch.ts';
+import { assignmentOfJson } from './check-settings-batch.ts';
 import { parseBatch, type JsonBatch } from './json-batches.ts';
-import { tableEntry, type TableEntry } from './results-table.ts';
+import { tableEntry, type TableEntry } from '../../reports/results-table.ts';
 
 /** How the command prints results: a table, a JSON array, JSON Lines, or the results themselves (for --out). */
 export type ResultOutput = 'table' | 'json' | 'jsonl' | 'results';

@@ -1,5 +1,5 @@
-import type { CheckResult } from '../../schemas/result.ts';
-import { severityCounts } from '../../reports/result-summary.ts';
+import type { CheckResult } from '../schemas/result.ts';
+import { severityCounts } from './result-summary.ts';
 
 /** One submission's part of the table: its row, then its findings or reasons for rejection. */
 export interface TableEntry {

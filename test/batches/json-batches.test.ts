@@ -1,6 +1,6 @@
 import { caught } from '../support/thrown.ts';
 import { describe, expect, it } from 'vitest';
-import { JsonBatcher, JsonLayoutError, parseBatch } from '../../server/cli/json-batches.ts';
+import { JsonBatcher, JsonLayoutError, parseBatch } from '../../server/batches/json-batches.ts';
 
 /** Feeds `text` in pieces of `pieceSize` bytes and parses every batch, as the command does. */
 function elements(text: string, options: { pieceSize?: number; batchBytes?: number; jsonLines?: boolean } = {}) {

@@ -1,7 +1,5 @@
-import { kindFor } from '../checks/kinds.ts';
-import { nothingCompared, type SectionSignals } from './section-report.ts';
-
-export type { SectionSignals } from './section-report.ts';
+import { kindFor } from './registry.ts';
+import { nothingCompared, type SectionSignals } from '../server/signals/section-report.ts';
 
 /** `submissions`: the section's latest valid submissions, as their schema read them; the kind says what to compare. */
 export function sectionSignals(settings: { kind: string }, submissions: unknown[]): SectionSignals {

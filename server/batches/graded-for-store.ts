@@ -1,5 +1,5 @@
 import type { CheckResult, Rejection } from '../../schemas/result.ts';
-import { checkSettingsBatch } from '../checks/check-settings-batch.ts';
+import { checkSettingsBatch } from './check-settings-batch.ts';
 
 /**
  * A checked submission in the form the store keeps it: the submission as read and the result's refit

@@ -1,4 +1,5 @@
-import { checkAndRead, parseAssignment, type Assignment, type CheckedSubmission } from './check.ts';
+import { checkAndRead, type Assignment, type CheckedSubmission } from '../checks/check.ts';
+import { parseAssignment } from '../../kinds/parse-assignment.ts';
 
 // A worker is sent the same settings with every batch of an assignment: parse them once.
 const parsed = new Map<string, Assignment>();
