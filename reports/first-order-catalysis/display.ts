@@ -22,7 +22,7 @@ function lnFPlot(runs: RunSeries[]): DisplayPlot {
   const tMax = Math.max(...runs.flatMap((r) => [...r.points, ...r.ours].map((p) => p.t)));
   const data = runs.flatMap((r) => [...r.points.map((p) => p.y), at(r.ourLine, 0), at(r.ourLine, tMax)]);
   const theirs = runs.flatMap((r) => (r.theirLine ? [at(r.theirLine, 0), at(r.theirLine, tMax)] : []));
-  const axes = { x: displayAxis(`t / ${timeUnit}`, [0, tMax], { includeZero: true, pad: 0 }), y: displayAxis('ln F', nearValues(data, theirs), { pad: 0.03 }) };
+  const axes = { x: displayAxis(`t / ${timeUnit}`, [0, tMax], { includeZero: true, pad: 0 }), y: displayAxis('ln F', nearValues(data, theirs), { includeZero: true, pad: 0.03 }) };
   const notes = runs.flatMap((r) => {
     const perTime = `${prettyUnit(r.timeUnit)}⁻¹`;
     if (r.theirLine) {

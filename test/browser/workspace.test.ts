@@ -84,15 +84,17 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     // A student with slips: the findings say they are likely causes; one is overridden with a reason.
     await page.locator('tr.has-errors a').first().click();
     await page.getByText('likely cause read from the numbers, for you to review: not a verdict').waitFor();
+    // One card per cause; each of its places opens, for the TA, its path and the form to change its points.
     const finding = page.locator('li.finding.error').first();
-    const code = (await finding.locator('code').first().textContent())!;
-    await finding.getByText('Change the points of this finding').click();
-    await finding.getByLabel('Points lost').fill('0');
-    await finding.getByLabel('Reason (kept in the audit trail)').fill('the slip is only in the summary table');
-    await finding.getByLabel('Show the reason to the student (on the feedback sheet)').check();
-    await finding.getByRole('button', { name: 'Save the change' }).click();
+    const code = (await finding.locator('.finding-head code').textContent())!;
+    const place = finding.locator('details.place-detail').first();
+    await place.locator('summary').click();
+    await place.getByLabel('Points lost').fill('0');
+    await place.getByLabel('Reason (kept in the audit trail)').fill('the slip is only in the summary table');
+    await place.getByLabel('Show the reason to the student (on the feedback sheet)').check();
+    await place.getByRole('button', { name: 'Save the change' }).click();
     await page.getByText(/changed [\d.]+ to 0 points lost: “the slip is only in the summary table” \(shown to the student\)/).waitFor();
-    expect(await page.locator('li.finding.error').first().locator('code').first().textContent()).toBe(code);
+    expect(await page.locator('li.finding.error').first().locator('.finding-head code').textContent()).toBe(code);
 
     // Release the section, after a confirmation that says how many.
     await page.getByRole('link', { name: /^Section A/ }).click();
