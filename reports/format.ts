@@ -60,7 +60,7 @@ export function formatEstimate(value: number, uncertainty: number | undefined, f
   // The decimal place of the uncertainty's second figure: 10^place.
   const place = Math.floor(Math.log10(rounded)) - 1;
   const power = Math.floor(Math.log10(Math.max(Math.abs(value), rounded)));
-  if (power >= -3 && power < 5 && place >= -6) {
+  if (power >= -3 && power < 5 && place >= -MOST_DECIMALS) {
     // Past the decimal point toFixed rounds to the place; before it (an SE of 2600), the value is rounded to it.
     const toPlace = (x: number) => (place > 0 ? (Math.round(x / 10 ** place) * 10 ** place).toFixed(0) : x.toFixed(-place));
     return withMinusSign(`${toPlace(value)} ± ${toPlace(rounded)}`);

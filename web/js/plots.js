@@ -14,13 +14,13 @@ import { s } from './dom.js';
  */
 const W = 520;
 const PLOT_H = 290;
-const PAD = { left: 64, right: 16, top: 16, bottom: 48 };
-const LEGEND_ROW = 18;
+const PAD = { left: 68, right: 16, top: 16, bottom: 50 };
+const LEGEND_ROW = 20;
 const COLOURS = ['#1d5c63', '#b5542b', '#5b4a91', '#3f7f3a', '#8a6d1f', '#7a3050'];
 const INK = '#444';
 const DASH = '6 4';
-/** Roughly the width of a character of the key's 12 px text, to lay the key out in rows. */
-const CHAR_WIDTH = 6.4;
+/** Roughly the width of a character of the key's 13 px text, to lay the key out in rows. */
+const CHAR_WIDTH = 7;
 
 /** @param {number | undefined} group */
 const colourOf = (group) => (group === undefined ? INK : COLOURS[group % COLOURS.length]);

@@ -207,7 +207,7 @@ export async function studentView(place, submissionId, failure) {
       h('p', { class: 'score', role: 'status', tabindex: '-1' }, result ? (result.status === 'checked' ? `Score ${num(result.score)} of ${num(result.maxScore)}` : 'Refused by the checker: the data could not be graded') : 'Not graded yet'),
       h('p', { class: 'caution' }, 'Each cause named below is a likely cause read from the numbers, for you to review: not a verdict. You can change the points of any finding, with a reason; nothing reaches the student until you release it.'),
       display.rejected.length ? h('ul', { class: 'rejected' }, display.rejected.map((r) => h('li', {}, h('strong', {}, ...marked(r.place)), ': ', ...marked(r.message), h('details', {}, h('summary', {}, 'Path'), h('code', {}, r.path))))) : null,
-      display.counts ? h('p', { class: 'counts' }, display.counts) : null,
+      display.counts && display.stages.length ? h('p', { class: 'counts' }, display.counts) : null,
       display.stages.map((stage) =>
         h('section', { class: 'stage' }, h('h2', {}, ...marked(stage.title)), stage.cards.length ? h('ul', { class: 'findings' }, stage.cards.map(findingCard)) : null, stage.followsFromOwn ? followsFromOwn(stage.followsFromOwn) : null),
       ),
