@@ -44,8 +44,8 @@ function svgMarked(text) {
 /** The text a reader of the markup sees: `k_{obs}` → `kobs`. @param {string} text */
 const plain = (text) => text.replace(/[_^]\{([^}]*)\}/g, '$1');
 
-/** @param {number} x @param {number} y @param {string} colour */
-const diamond = (x, y, colour) => s('path', { d: `M ${x} ${y - 5} L ${x + 5} ${y} L ${x} ${y + 5} L ${x - 5} ${y} Z`, fill: 'none', stroke: colour, 'stroke-width': 1.6 });
+/** A hollow diamond centred at (x, y), so that a disc under it stays visible. @param {number} x @param {number} y @param {string} colour */
+const diamond = (x, y, colour) => s('path', { class: 'point', transform: `translate(${x} ${y})`, d: 'M 0 -5 L 5 0 L 0 5 L -5 0 Z', fill: 'none', stroke: colour, 'stroke-width': 1.6 });
 
 /**
  * The key in rows below the axes, each entry as wide as its label.
@@ -96,10 +96,14 @@ export function drawPlot(plot) {
   const clip = `clip-${Math.random().toString(36).slice(2)}`;
   svg.append(s('clipPath', { id: clip }, s('rect', { x: left, y: Y(plot.y.max), width: X(plot.x.max) - left, height: bottom - Y(plot.y.max) })));
   const inside = (/** @type {[number, number]} */ [x, y]) => x >= plot.x.min && x <= plot.x.max && y >= plot.y.min && y <= plot.y.max;
+  // One element per group (a run, or the refit and the student), holding its points and lines.
+  const groups = plot.groups.map((name, i) => s('g', { class: 'group', 'data-group': name, 'data-index': i }));
   for (const series of plot.series) {
     const colour = colourOf(series.group);
-    const g = s('g', { class: `series ${series.owner}`, 'data-owner': series.owner, 'data-group': plot.groups[series.group] ?? '' });
-    for (const p of (series.points ?? []).filter(inside)) g.append(series.owner === 'student' ? diamond(X(p[0]), Y(p[1]), colour) : s('circle', { cx: X(p[0]), cy: Y(p[1]), r: 3.2, fill: colour }));
+    const g = groups[series.group] ?? svg;
+    for (const p of (series.points ?? []).filter(inside)) {
+      g.append(series.owner === 'student' ? diamond(X(p[0]), Y(p[1]), colour) : s('circle', { class: 'point', cx: X(p[0]), cy: Y(p[1]), r: 3.2, fill: colour }));
+    }
     const l = series.line;
     if (l) {
       g.append(
@@ -117,7 +121,7 @@ export function drawPlot(plot) {
         }),
       );
     }
-    svg.append(g);
   }
+  svg.append(...groups);
   return svg;
 }
