@@ -17,9 +17,10 @@ import { stagesOf } from '../../server/checks/kinds.ts';
 function display(settings: unknown, submission: unknown, report: KindReport) {
   const assignment = parseAssignment(settings);
   const parsed = assignment.kind.submissionSchema.parse(submission);
-  const input = { header: { course: 'C', section: 'S', assignment: 'A', studentId: 'H-01', version: 1, gradedAt: '2025-03-04T14:30:00Z' }, settings: assignment.settings as { kind: string }, submission: parsed, result: checkSubmission(assignment, submission) };
+  const kindSettings = assignment.settings as { kind: string };
+  const input = { header: { course: 'C', section: 'S', assignment: 'A', studentId: 'H-01', version: 1, gradedAt: '2025-03-04T14:30:00Z' }, settings: kindSettings, submission: parsed, result: checkSubmission(assignment, submission) };
   // What the route answers must pass the route's response schema.
-  return SubmissionDisplay.parse(checkedDisplay(input, { describe: (path) => report.describePath(path, parsed), stages: stagesOf(assignment.settings.kind), kindDisplay: report.display }));
+  return SubmissionDisplay.parse(checkedDisplay(input, { describe: (path) => report.describePath(path, parsed), stages: stagesOf(kindSettings.kind), kindDisplay: report.display }));
 }
 
 describe('numbers as written by hand', () => {
