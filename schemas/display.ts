@@ -25,8 +25,10 @@ const Card = z.object({
   pointsLost: z.number(),
   /** Where the cause first shows, and how many more places. */
   where: Rich,
-  /** The code (and the codes found with it), with its detail. */
+  /** The code, and the codes found with it: `log-base + sign-flipped`. */
   codes: z.string(),
+  /** What the checker saw, where it says (`x_{∞} taken as 0.09455, …`), else empty. */
+  detail: Rich,
   message: Rich,
   /** Every place, the first where the cause entered. */
   places: z.array(Place),

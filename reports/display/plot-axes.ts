@@ -10,17 +10,6 @@ export function displayAxis(label: string, values: number[], options: AxisOption
   return { label: axisLabel(label, axis), min: axis.min, max: axis.max, ticks: axis.ticks.map((at) => ({ at, label: tickLabel(axis, at) })) };
 }
 
-/**
- * The values an axis spans: the data's always, the student's only while within the data's span of
- * it, so that a value off by a factor of 60 does not flatten the data to a stripe.
- */
-export function nearValues(data: number[], theirs: number[]): number[] {
-  const finite = data.filter(Number.isFinite);
-  const [low, high] = [Math.min(...finite), Math.max(...finite)];
-  const span = high - low || 1;
-  return [...finite, ...theirs.filter((y) => y > low - span && y < high + span)];
-}
-
 const at = (line: { intercept: number; slope: number }, x: number) => line.intercept + line.slope * x;
 
 /** Whether a line passes through the plotted area (else the page would show none of it). */

@@ -2,7 +2,7 @@ import type { DisplayPlace, DisplayStage, KindDisplay, SubmissionDisplay } from 
 import type { Finding } from '../../schemas/result.ts';
 import type { FeedbackInput } from '../feedback-input.ts';
 import { cardCounts, countsInWords, groupFindings } from '../feedback/finding-groups.ts';
-import { cardCodes, cardWhere, followsFromOwnText, richMessage, valuesAt, type DescribePath } from '../feedback/finding-text.ts';
+import { cardWhere, followsFromOwnText, richMessage, valuesAt, type DescribePath } from '../feedback/finding-text.ts';
 import { printableMessage } from '../format.ts';
 
 /**
@@ -37,7 +37,8 @@ function stagesOf(findings: Finding[], parts: DisplayParts): DisplayStage[] {
           severity: card.severity,
           pointsLost: card.pointsLost,
           where: cardWhere(card, parts.describe),
-          codes: cardCodes(card.members[0]),
+          codes: [card.members[0].code, ...(card.members[0].alsoCodes ?? [])].join(' + '),
+          detail: card.members[0].detail ? richMessage(card.members[0].detail, parts.describe) : '',
           message: richMessage(card.members[0].message, parts.describe),
           places: card.members.map((f) => place(f, parts.describe)),
         })),

@@ -1,7 +1,8 @@
 import type { DisplayPlot, KindDisplay } from '../../schemas/display.ts';
 import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { FeedbackInput } from '../feedback-input.ts';
-import { crosses, displayAxis, inside, nearValues } from '../display/plot-axes.ts';
+import { crosses, displayAxis, inside } from '../display/plot-axes.ts';
+import { nearValues } from '../pdf/scale.ts';
 import { rateLawSeries, type RateLawSeries } from '../feedback/rate-law-series.ts';
 import { runTitle } from '../feedback/run-plots.ts';
 import { allRunSeries, type Line, type RunSeries } from '../feedback/run-series.ts';

@@ -1,6 +1,7 @@
 import type { DisplayPlot, KindDisplay } from '../../schemas/display.ts';
 import type { Refit, Settings, Submission } from '../../schemas/kinds/temperature-dependence.ts';
-import { crosses, displayAxis, nearValues } from '../display/plot-axes.ts';
+import { crosses, displayAxis } from '../display/plot-axes.ts';
+import { nearValues } from '../pdf/scale.ts';
 import type { FeedbackInput } from '../feedback-input.ts';
 import type { Line } from '../feedback/run-series.ts';
 import { formatNumber } from '../format.ts';

@@ -6,7 +6,7 @@ import { drawPlot } from './plots.js';
 /**
  * @typedef {import('./plots.js').Plot} Plot
  * @typedef {{ findingId: string, code: string, path: string, place: string, values: string, pointsLost: number }} Place
- * @typedef {{ severity: 'error' | 'warning' | 'info', pointsLost: number, where: string, codes: string, message: string, places: Place[] }} Card
+ * @typedef {{ severity: 'error' | 'warning' | 'info', pointsLost: number, where: string, codes: string, detail: string, message: string, places: Place[] }} Card
  * @typedef {{ id: string, title: string, cards: Card[], followsFromOwn: { text: string, places: Place[] } | null }} Stage
  * @typedef {{ caption: string, note: string, columns: Array<{ header: string, numeric: boolean }>, rows: string[][] }} Table
  * @typedef {{ counts: string | null, stages: Stage[], rejected: Array<{ place: string, path: string, message: string }>, comparison: Table | null, plots: Plot[] }} Display
@@ -143,6 +143,7 @@ export async function studentView(place, submissionId, failure) {
       'li',
       { class: `finding ${card.severity}` },
       h('p', { class: 'finding-head' }, h('span', { class: `badge ${card.severity}` }, card.severity), ' ', h('span', {}, ...marked(card.where)), ' · ', h('code', {}, card.codes), ' · ', h('span', { class: 'cost' }, pointsText(card.pointsLost))),
+      card.detail ? h('p', { class: 'hint detail' }, ...marked(card.detail)) : null,
       h('p', {}, ...marked(card.message)),
       others.length
         ? [
