@@ -44,9 +44,31 @@ export function formatReported(value: NumberLike | undefined | null): string {
   return withMinusSign(text.replace(/e([-+]?\d+)$/i, (_, e: string) => ` × 10${superscript(String(Number(e)))}`));
 }
 
-/** value ± uncertainty; the uncertainty to 2 significant figures. */
+/** Decimals a power-of-ten form may carry before the value ± SE is written figure by figure instead. */
+const MOST_DECIMALS = 8;
+
+/**
+ * value ± uncertainty as a result is written by hand: the uncertainty to 2 significant figures and the
+ * value to the same decimal place, `−141.0 ± 2.6`, or with one power of ten for both,
+ * `(8.857 ± 0.026) × 10⁻⁶`. Without an uncertainty (or with one of 0), `figures` significant figures.
+ */
 export function formatEstimate(value: number, uncertainty: number | undefined, figures = 4): string {
-  return uncertainty === undefined ? formatNumber(value, figures) : `${formatNumber(value, figures)} ± ${formatNumber(uncertainty, 2)}`;
+  if (uncertainty === undefined) return formatNumber(value, figures);
+  const se = Math.abs(uncertainty);
+  if (!Number.isFinite(value) || !Number.isFinite(se) || se === 0) return `${formatNumber(value, figures)} ± ${formatNumber(se, 2)}`;
+  const rounded = Number(se.toPrecision(2));
+  // The decimal place of the uncertainty's second figure: 10^place.
+  const place = Math.floor(Math.log10(rounded)) - 1;
+  const power = Math.floor(Math.log10(Math.max(Math.abs(value), rounded)));
+  if (power >= -3 && power < 5 && place >= -MOST_DECIMALS) {
+    // Past the decimal point toFixed rounds to the place; before it (an SE of 2600), the value is rounded to it.
+    const toPlace = (x: number) => (place > 0 ? (Math.round(x / 10 ** place) * 10 ** place).toFixed(0) : x.toFixed(-place));
+    return withMinusSign(`${toPlace(value)} ± ${toPlace(rounded)}`);
+  }
+  const decimals = Math.max(0, power - place);
+  if (decimals > MOST_DECIMALS) return `${formatNumber(value, figures)} ± ${formatNumber(se, 2)}`;
+  const scale = 10 ** power;
+  return `(${withMinusSign((value / scale).toFixed(decimals))} ± ${(rounded / scale).toFixed(decimals)}) × 10${superscript(String(power))}`;
 }
 
 /** Points as the checker counts them: at most 2 decimals, no trailing zeros. */

@@ -1,3 +1,4 @@
+import type { KindDisplay } from '../schemas/display.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import type { FeedbackInput, SectionSummaryInput } from './feedback-input.ts';
 import type { RubricLine } from './feedback/rubric-breakdown.ts';
@@ -15,6 +16,8 @@ export interface KindReport {
   rubricBreakdown(settings: unknown, submission: unknown, result: CheckResult): RubricLine[];
   /** The sheet after the findings of a checked result: reported against refit values, plots. */
   drawSheetData(doc: Doc, input: FeedbackInput): void;
+  /** The same values and plots for the workspace's student page, as data the page draws. */
+  display(input: FeedbackInput): KindDisplay;
   /** Facts for the summary's header beside course, section and assignment: [label, value]. */
   summaryFacts(settings: unknown): Array<[string, string]>;
   /** The summary's part on the class's values. */

@@ -1,5 +1,6 @@
 import type { CheckResult, Finding } from '../../schemas/result.ts';
-import { formatNumber, formatPoints, prettyUnit, printableMessage } from '../format.ts';
+import { printableMessage } from '../format.ts';
+import { cardCodes, cardWhere, followsFromOwnText, keepNumbersWhole, placeInProse, pointsText, pointsWord, sheetMessage, valuesAt, type DescribePath } from './finding-text.ts';
 import { groupFindings, type FindingCard } from './finding-groups.ts';
 import { SEVERITY_WORD } from '../labels.ts';
 import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
@@ -7,8 +8,7 @@ import { marker, type MarkerShape } from '../pdf/marks.ts';
 import { drawRich, richWidth } from '../pdf/rich-text.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 
-/** A finding's place in words (the kind's), and the kind's stages in order with their titles. */
-export type DescribePath = (path: string) => string;
+/** The kind's stages in order with their titles. */
 export type Stages = ReadonlyArray<{ id: string; title: string }>;
 
 /** Severity in words and in shape, never by colour alone. */
@@ -19,36 +19,6 @@ export const SEVERITY_STYLE: Record<Finding['severity'], { shape: MarkerShape; c
 };
 
 const INDENT = 16;
-
-const pointsWord = (points: number) => `${formatPoints(points)} ${points === 1 ? 'point' : 'points'}`;
-
-function pointsText(points: number): string {
-  return points > 0 ? `−${pointsWord(points)}` : 'no points lost';
-}
-
-// A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.kN`.
-const PATH = /\b(?:(?:runs|points)\[\d+\](?:\.[A-Za-z]+(?:\[\d+\])*)*|reported\.[A-Za-z]+(?:\.[A-Za-z]+)*)/g;
-
-/** A place in words for running text (which has no sub/superscripts): `k_{obs}` reads `k_obs`, as the messages write it; `ΔH^{‡}` reads `ΔH‡`. */
-const placeInProse = (describe: DescribePath, path: string) =>
-  describe(path)
-    .replace(/\^\{([^}]*)\}/g, '$1')
-    .replace(/_\{([^}]*)\}/g, '_$1');
-
-/** A checker message as the sheet prints it: numbers and units formatted, and any place it names in words. */
-export function sheetMessage(message: string, describe: DescribePath): string {
-  return keepNumbersWhole(printableMessage(message.replace(PATH, (path) => placeInProse(describe, path))));
-}
-
-/** No line break inside a number: the spaces either side of × and ± do not break (U+00A0). */
-const keepNumbersWhole = (text: string): string => text.replace(/ ([±×]) /g, '\u00a0$1\u00a0');
-
-/** The values behind a further place of a card, where the checker gave them. */
-function valuesAt(f: Finding): string {
-  if (typeof f.reported !== 'number' || typeof f.expected !== 'number') return '';
-  const unit = f.unit ? ` ${prettyUnit(f.unit)}` : '';
-  return `: yours ${formatNumber(f.reported)}${unit}, the refit ${formatNumber(f.expected)}${unit}`;
-}
 
 function drawOverride(doc: Doc, f: Finding): void {
   const override = (f as OverriddenFinding).override;
@@ -70,9 +40,9 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
   marker(doc, style.shape, left + 5, y + 5.5, 6.5, style.color);
   let x = left + INDENT;
   x += drawRich(doc, SEVERITY_WORD[card.severity], x, y, { size: SIZE.body, bold: true, color: style.color });
-  const where = others.length === 0 ? describe(first.path) : `${describe(first.path)} and ${others.length} more ${others.length === 1 ? 'place' : 'places'}`;
+  const where = cardWhere(card, describe);
   x += drawRich(doc, `  ·  ${where}`, x, y, { size: SIZE.body, bold: true, color: COLOR.ink });
-  const codes = [first.code, ...(first.alsoCodes ?? [])].join(' + ') + (first.detail ? ` (${first.detail})` : '');
+  const codes = cardCodes(first);
   const right = pointsText(card.pointsLost);
   const rightWidth = richWidth(doc, right, SIZE.small, card.pointsLost > 0);
   drawRich(doc, right, left + width, y + 1, { size: SIZE.small, bold: card.pointsLost > 0, color: card.pointsLost > 0 ? COLOR.error : COLOR.muted, align: 'right' });
@@ -98,10 +68,7 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
 /** Values that only follow from the student's own earlier numbers at no cost: one short line. */
 function drawFollowsFromOwn(doc: Doc, findings: Finding[], describe: DescribePath): void {
   if (findings.length === 0) return;
-  const places = findings.map((f) => placeInProse(describe, f.path));
-  const list = places.length === 1 ? places[0] : `${places.slice(0, -1).join(', ')} and ${places[places.length - 1]}`;
-  const verb = places.length === 1 ? 'follows' : 'follow';
-  paragraph(doc, `Follows from your own numbers: ${list} ${verb} correctly from your own earlier values, so the method earns its points; the difference was scored where it entered.`, {
+  paragraph(doc, followsFromOwnText(findings, (path) => placeInProse(describe, path)), {
     size: SIZE.small,
     color: COLOR.muted,
     gap: 7,

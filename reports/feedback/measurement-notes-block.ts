@@ -2,7 +2,7 @@ import type { CheckResult } from '../../schemas/result.ts';
 import { contentLeft, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawRich } from '../pdf/rich-text.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import { sheetMessage, type DescribePath } from './findings-block.ts';
+import { sheetMessage, type DescribePath } from './finding-text.ts';
 
 /** The signals a TA chose to share with the student, as notes about the measurement; drawn only where there are some. */
 export function drawMeasurementNotes(doc: Doc, result: CheckResult, describe: DescribePath): void {

@@ -3,7 +3,7 @@ import { contentLeft, contentWidth, moveTo, sectionHeading, type Doc } from '../
 import { errorBar, legend, marker, type LegendItem } from '../pdf/marks.ts';
 import { Plot } from '../pdf/plot.ts';
 import { drawRich } from '../pdf/rich-text.ts';
-import { niceAxis } from '../pdf/scale.ts';
+import { nearValues, niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 import type { Line } from './run-series.ts';
 import type { RateLawSeries } from './rate-law-series.ts';
@@ -26,13 +26,8 @@ export function drawRateLawPlot(doc: Doc, series: RateLawSeries): void {
   ];
   // The student's values widen the range only while they stay near the data (see the run plots), so a
   // k off by a factor of 60 does not flatten the rest; what lies beyond is said in words.
-  const low = Math.min(...ys);
-  const high = Math.max(...ys);
-  const span = high - low || 1;
-  const near = (y: number) => y > low - span && y < high + span;
   const theirYs = [...series.theirs.map((p) => p.k), ...(series.theirLine ? [series.theirLine.intercept, series.theirLine.intercept + series.theirLine.slope * cMax] : [])];
-  ys.push(...theirYs.filter(near));
-  const plot = new Plot(doc, { x: contentLeft(doc), y: top, width: contentWidth(doc), height: HEIGHT }, niceAxis([0, cMax], { includeZero: true, pad: 0 }), niceAxis(ys, { pad: 0.05 }), {
+  const plot = new Plot(doc, { x: contentLeft(doc), y: top, width: contentWidth(doc), height: HEIGHT }, niceAxis([0, cMax], { includeZero: true, pad: 0 }), niceAxis(nearValues(ys, theirYs), { pad: 0.05 }), {
     x: '[catalyst] / M',
     y: `k_{obs} / ${prettyUnit(series.kUnit)}`,
   });

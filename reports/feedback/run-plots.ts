@@ -3,7 +3,7 @@ import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeadi
 import { legend, marker, type LegendItem } from '../pdf/marks.ts';
 import { Plot, type Box, type LineStyle } from '../pdf/plot.ts';
 import { drawRich, richWidth } from '../pdf/rich-text.ts';
-import { niceAxis } from '../pdf/scale.ts';
+import { nearValues, niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 import type { Line, RunSeries } from './run-series.ts';
 
@@ -26,14 +26,8 @@ const at = (line: Line, t: number) => line.intercept + line.slope * t;
  * times the data's span, so that a line off by a factor of 60 does not flatten the data to a stripe.
  */
 function yValues(series: RunSeries, tMax: number): number[] {
-  const values = [...series.points.map((p) => p.y), at(series.ourLine, 0), at(series.ourLine, tMax)];
-  const span = Math.max(...values) - Math.min(...values) || 1;
-  if (series.theirLine) {
-    for (const y of [at(series.theirLine, 0), at(series.theirLine, tMax)]) {
-      if (y > Math.min(...values) - span && y < Math.max(...values) + span) values.push(y);
-    }
-  }
-  return values;
+  const theirs = series.theirLine ? [at(series.theirLine, 0), at(series.theirLine, tMax)] : [];
+  return nearValues([...series.points.map((p) => p.y), at(series.ourLine, 0), at(series.ourLine, tMax)], theirs);
 }
 
 function drawRunPlot(doc: Doc, series: RunSeries, box: Box): void {

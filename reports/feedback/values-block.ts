@@ -2,22 +2,14 @@ import type { Refit, Settings, Submission } from '../../schemas/kinds/first-orde
 import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import { valueRows } from './values-table.ts';
-
-const MODEL_WORDS = { origin: 'through the origin', intercept: 'with an intercept' } as const;
+import { valueRows, valuesNote } from './values-table.ts';
 
 /** Reported against refit, per run and for the rate law, with units and tolerances. */
 export function drawValues(doc: Doc, settings: Settings, submission: Submission, refit: Refit): void {
   const rows = valueRows(settings, submission, refit);
   if (rows.length === 0) return;
   sectionHeading(doc, 'Your values and the refit', 90);
-  paragraph(
-    doc,
-    `Refit: our own fit of your readings, ln F against t ${MODEL_WORDS[settings.fitModel]} as the assignment asks, then ` +
-      `each run’s rate constant against the catalyst concentration (${settings.rateLawFit} least squares); values ± standard error (SE). ` +
-      'Difference: (yours − refit) / refit. A value within its tolerance of the refit counts as agreeing.',
-    { size: SIZE.small, color: COLOR.muted },
-  );
+  paragraph(doc, valuesNote(settings, 'your'), { size: SIZE.small, color: COLOR.muted });
   drawTable(
     doc,
     [

@@ -75,3 +75,14 @@ export function valueRows(settings: Settings, submission: Submission, refit: Ref
   if (refit.kA || submission.reported?.kA) rows.push(lawRow('k_{A}', submission.reported?.kA, refit.kA, ownDiffers(refit.kA, own?.kA), t.kA));
   return rows;
 }
+
+const MODEL_WORDS = { origin: 'through the origin', intercept: 'with an intercept' } as const;
+
+/** How the table reads, for the student (`your`) or for a TA (`the student’s`). */
+export function valuesNote(settings: Settings, whose: 'your' | 'the student’s'): string {
+  return (
+    `Refit: our own fit of ${whose} readings, ln F against t ${MODEL_WORDS[settings.fitModel]} as the assignment asks, then ` +
+    `each run’s rate constant against the catalyst concentration (${settings.rateLawFit} least squares); values ± standard error (SE). ` +
+    `Difference: (${whose === 'your' ? 'yours' : 'reported'} − refit) / refit. A value within its tolerance of the refit counts as agreeing.`
+  );
+}

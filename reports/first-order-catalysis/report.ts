@@ -9,6 +9,7 @@ import { drawRunPlots } from '../feedback/run-plots.ts';
 import { allRunSeries } from '../feedback/run-series.ts';
 import { drawValues } from '../feedback/values-block.ts';
 import { readRefit } from '../refit.ts';
+import { firstOrderCatalysisDisplay } from './display.ts';
 import { drawRateConstants } from './summary-rate-constants.ts';
 
 /**
@@ -31,6 +32,7 @@ export const firstOrderCatalysisReport: KindReport = {
     if (law) drawRateLawPlot(doc, law);
     drawResidualPlots(doc, runs);
   },
+  display: firstOrderCatalysisDisplay,
   summaryFacts: (settings) => [['Fit asked for', `ln F against t ${(settings as Settings).fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`]],
   drawSummaryData: drawRateConstants,
 };

@@ -67,3 +67,14 @@ export function tickLabel(axis: Axis, value: number): string {
 export function axisLabel(label: string, axis: Axis): string {
   return axis.power === 0 ? label : `${label}  (×10${superscript(String(axis.power))})`;
 }
+
+/**
+ * The values an axis spans: the data's always, the student's only while within the data's span of
+ * it, so that a value off by a factor of 60 does not flatten the data to a stripe.
+ */
+export function nearValues(data: number[], theirs: number[]): number[] {
+  const finite = data.filter(Number.isFinite);
+  const [low, high] = [Math.min(...finite), Math.max(...finite)];
+  const span = high - low || 1;
+  return [...finite, ...theirs.filter((y) => y > low - span && y < high + span)];
+}

@@ -4,7 +4,7 @@ import { contentLeft, contentWidth, moveTo, sectionHeading, type Doc } from '../
 import { legend, marker } from '../pdf/marks.ts';
 import { Plot, type Box } from '../pdf/plot.ts';
 import { drawRich, richWidth } from '../pdf/rich-text.ts';
-import { niceAxis } from '../pdf/scale.ts';
+import { nearValues, niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 import { OUR_LINE, THEIR_LINE } from '../feedback/run-plots.ts';
 import type { Line } from '../feedback/run-series.ts';
@@ -24,10 +24,8 @@ const at = (line: Line, x: number) => line.intercept + line.slope * x;
 function drawActivationPlot(doc: Doc, series: ActivationSeries, box: Box, title: string, yLabel: string, describeLine: (line: Line) => string): void {
   const xs = series.points.map((p) => p.x);
   const [xMin, xMax] = [Math.min(...xs), Math.max(...xs)];
-  const ys = [...series.points.map((p) => p.y), at(series.ourLine, xMin), at(series.ourLine, xMax)];
-  const [low, high] = [Math.min(...ys), Math.max(...ys)];
-  const span = high - low || 1;
-  if (series.theirLine) ys.push(...[at(series.theirLine, xMin), at(series.theirLine, xMax)].filter((y) => y > low - span && y < high + span));
+  const theirYs = series.theirLine ? [at(series.theirLine, xMin), at(series.theirLine, xMax)] : [];
+  const ys = nearValues([...series.points.map((p) => p.y), at(series.ourLine, xMin), at(series.ourLine, xMax)], theirYs);
   const plot = new Plot(doc, box, niceAxis(xs, { pad: 0.05 }), niceAxis(ys, { pad: 0.08 }), { title, x: '1000 K / T', y: yLabel });
   plot.drawFrame();
   plot.line(series.ourLine.intercept, series.ourLine.slope, OUR_LINE);

@@ -1,11 +1,11 @@
 import type { Refit, Settings, Submission } from '../../schemas/kinds/temperature-dependence.ts';
-import type { ReportedValue } from '../../schemas/common.ts';
-import { formatEstimate, formatReported, formatTolerance, prettyUnit } from '../format.ts';
 import type { KindReport } from '../kind-report.ts';
 import { rubricLinesOf } from '../feedback/rubric-breakdown.ts';
 import { drawArrheniusPlot } from './arrhenius-plot.ts';
 import { drawClassActivation } from './class-activation.ts';
+import { temperatureDependenceDisplay } from './display.ts';
 import { SYMBOLS } from './symbols.ts';
+import { VALUE_COLUMNS, valueRows } from './value-rows.ts';
 import { paragraph, sectionHeading } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
@@ -16,6 +16,8 @@ const RUBRIC_LABELS: Record<keyof Settings['rubric'], string> = {
   EaUncertainty: `Standard error of ${SYMBOLS.Ea}`,
   sigFigs: 'Significant figures',
 };
+
+const WEIGHTS: Record<(typeof VALUE_COLUMNS)[number], number> = { Quantity: 0.8, Reported: 2, Refit: 2, Difference: 0.9, Tolerance: 1.2 };
 
 function describe(path: string, submission: Submission | undefined): string {
   const top = /^reported\.(Ea|A|dH|dS)(\.uncertainty|\.unit)?$/.exec(path);
@@ -45,22 +47,11 @@ export const temperatureDependenceReport: KindReport = {
     if (!refit) return;
     sectionHeading(doc, 'Reported and refitted', 80);
     paragraph(doc, 'The refit is our own straight-line fit of your rate constants against 1/T (temperatures in kelvin, k per second for Eyring), with its standard error.', { size: SIZE.small, color: COLOR.muted });
-    const rows = (Object.keys(SYMBOLS) as Array<keyof typeof SYMBOLS>).map((q) => {
-      const reported: ReportedValue | undefined = submission.reported?.[q];
-      return [
-        SYMBOLS[q],
-        reported ? `${formatReported(reported.value)}${reported.uncertainty === undefined ? '' : ` ± ${formatReported(reported.uncertainty)}`} ${prettyUnit(reported.unit)}` : '—',
-        // Two temperatures give an exact line, whose standard errors are not defined (null after JSON).
-        Number.isFinite(refit[q].standardError)
-          ? `${formatEstimate(refit[q].value, refit[q].standardError)} ${prettyUnit(refit[q].unit)}`
-          : `${formatEstimate(refit[q].value, undefined)} ${prettyUnit(refit[q].unit)} (SE not defined with two points)`,
-        // An absolute tolerance is in the quantity's unit.
-        `${formatTolerance(settings.tolerances[q])}${settings.tolerances[q].relative === undefined ? ` ${prettyUnit(settings.units[q])}` : ''}`,
-      ];
-    });
-    drawTable(doc, [{ header: 'Quantity', weight: 0.8 }, { header: 'Reported', weight: 2 }, { header: 'Refit', weight: 2 }, { header: 'Tolerance', weight: 1.2 }], rows, { zebra: true, keepRows: rows.length });
+    const rows = valueRows(settings, submission, refit);
+    drawTable(doc, VALUE_COLUMNS.map((header) => ({ header, weight: WEIGHTS[header], align: header === 'Difference' ? ('right' as const) : undefined })), rows, { zebra: true, keepRows: rows.length });
     drawArrheniusPlot(doc, refit, submission.reported);
   },
+  display: temperatureDependenceDisplay,
   summaryFacts: (settings) => [['Fit', (settings as Settings).fit === 'weighted' ? 'weighted by SE(ln k)' : 'ordinary least squares']],
   drawSummaryData: drawClassActivation,
 };

@@ -84,15 +84,17 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     // A student with slips: the findings say they are likely causes; one is overridden with a reason.
     await page.locator('tr.has-errors a').first().click();
     await page.getByText('likely cause read from the numbers, for you to review: not a verdict').waitFor();
+    // One card per cause; each of its places opens, for the TA, its path and the form to change its points.
     const finding = page.locator('li.finding.error').first();
-    const code = (await finding.locator('code').first().textContent())!;
-    await finding.getByText('Change the points of this finding').click();
-    await finding.getByLabel('Points lost').fill('0');
-    await finding.getByLabel('Reason (kept in the audit trail)').fill('the slip is only in the summary table');
-    await finding.getByLabel('Show the reason to the student (on the feedback sheet)').check();
-    await finding.getByRole('button', { name: 'Save the change' }).click();
+    const code = (await finding.locator('.finding-head code').textContent())!;
+    const place = finding.locator('details.place-detail').first();
+    await place.locator('summary').click();
+    await place.getByLabel('Points lost').fill('0');
+    await place.getByLabel('Reason (kept in the audit trail)').fill('the slip is only in the summary table');
+    await place.getByLabel('Show the reason to the student (on the feedback sheet)').check();
+    await place.getByRole('button', { name: 'Save the change' }).click();
     await page.getByText(/changed [\d.]+ to 0 points lost: “the slip is only in the summary table” \(shown to the student\)/).waitFor();
-    expect(await page.locator('li.finding.error').first().locator('code').first().textContent()).toBe(code);
+    expect(await page.locator('li.finding.error').first().locator('.finding-head code').textContent()).toBe(code);
 
     // Release the section, after a confirmation that says how many.
     await page.getByRole('link', { name: /^Section A/ }).click();
@@ -196,7 +198,8 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     const page = await browser.newPage();
     await signIn(page, s.taAToken);
     await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}/submission/${stored.body.stored[0].submissionId}`);
-    await page.getByText('k_obs, run <img src=x onerror="window.__hostile=1">').waitFor();
+    // The label as text in the table's Run column (and the plot's key), quoted as the sheet quotes it.
+    await page.locator('table.comparison td').getByText('“<img src=x onerror="window.__hostile=1">”', { exact: true }).waitFor();
     expect(await page.evaluate(() => (window as unknown as { __hostile?: number }).__hostile)).toBeUndefined();
     expect(await page.locator('main img').count()).toBe(0);
     // One student's result released on its own, after a question naming the student and version.
@@ -344,15 +347,18 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     const page = await browser.newPage();
     await signIn(page, s.taAToken);
     await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${s.assignment.id}/submission/${stored.body.stored[0].submissionId}`);
-    await page.locator('svg.plot g.run').first().waitFor();
+    await page.locator('svg.plot g.group').first().waitFor();
     expect(await page.locator('svg.plot .axes text.label').first().textContent()).toBe('t / s');
-    const runs = await page.locator('svg.plot g.run').evaluateAll((groups) =>
+    // The first plot is ln F against t, one group (colour) per run: its points (discs, or diamonds for
+    // the student's own ln F column, placed by a translation) and lines.
+    const runs = await page.locator('svg.plot').first().locator('g.group').evaluateAll((groups) =>
       groups.map((g) => {
         const line = (cls: string) => {
           const l = g.querySelector(`line.${cls}`);
           return l && ['x1', 'y1', 'x2', 'y2'].map((a) => Number(l.getAttribute(a)));
         };
-        return { label: g.getAttribute('data-run'), points: [...g.querySelectorAll('circle')].map((c) => [Number(c.getAttribute('cx')), Number(c.getAttribute('cy'))]), refit: line('refit'), student: line('student') };
+        const centre = (p: Element) => (p.tagName === 'circle' ? [Number(p.getAttribute('cx')), Number(p.getAttribute('cy'))] : /translate\(([-\d.e]+) ([-\d.e]+)\)/.exec(p.getAttribute('transform')!)!.slice(1).map(Number));
+        return { label: g.getAttribute('data-group'), points: [...g.querySelectorAll('.point')].map(centre), refit: line('refit-line'), student: line('student-line') };
       }),
     );
     expect(runs).toHaveLength(submission.runs.length);

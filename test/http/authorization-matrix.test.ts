@@ -57,6 +57,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
     body: submissionsFor(['S-002'], unique()),
   }),
   'GET /v1/submissions/:submissionId': (f) => ({ url: `/v1/submissions/${f.submissionId}` }),
+  'GET /v1/submissions/:submissionId/display': (f) => ({ url: `/v1/submissions/${f.submissionId}/display` }),
   'POST /v1/submissions/:submissionId/overrides': (f) => ({ url: `/v1/submissions/${f.submissionId}/overrides`, body: { findingId: f.findingId, pointsLost: 1, reason: 'checked by hand' } }),
   'POST /v1/submissions/:submissionId/signals': (f) => ({ url: `/v1/submissions/${f.submissionId}/signals`, body: { code: 'temperature-spread', path: 'runs', onSheet: true } }),
   'GET /v1/sections/:sectionId/students/:studentId/history': (f) => ({ url: `/v1/sections/${f.sectionA.id}/students/S-001/history` }),

@@ -90,6 +90,10 @@ export const zeroOrderReport: KindReport = {
     sectionHeading(doc, 'The zero-order line', 40);
     paragraph(doc, `Refit k = ${refit.k.value.toPrecision(4)} ± ${refit.k.standardError.toPrecision(2)}`);
   },
+  display(input) {
+    const refit = input.result.refit as { k: { value: number; standardError: number } };
+    return { comparison: { caption: 'The zero-order line', note: '', columns: [{ header: 'Refit k', numeric: true }], rows: [[`${refit.k.value.toPrecision(4)} ± ${refit.k.standardError.toPrecision(2)}`]] }, plots: [] };
+  },
   summaryFacts: (settings) => [['Tolerance on k', `${(settings as Settings).tolerance * 100} %`]],
   drawSummaryData(doc, input) {
     const ks = input.results.flatMap((r) => (r.refit ? [(r.refit as { k: { value: number } }).k.value] : []));

@@ -85,16 +85,17 @@ function append(el, children) {
 }
 
 /**
- * A number as people read it: up to 4 significant figures, exponent form for the very small or large.
+ * A number the page prints itself (scores, points, a signal's figures; a submission's values come
+ * formatted by the server) in the sheets' style: up to 4 significant figures, the minus sign, × 10ⁿ.
  * @param {number | null | undefined} value
  */
 export function num(value) {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
   if (value === 0) return '0';
   const a = Math.abs(value);
-  if (a >= 1e-3 && a < 1e5) return String(Number(value.toPrecision(4)));
+  if (a >= 1e-3 && a < 1e5) return String(Number(value.toPrecision(4))).replace('-', '\u2212');
   const [mantissa, exponent] = value.toExponential(3).split('e');
-  return `${mantissa}×10${[...String(Number(exponent))].map((c) => SUPERSCRIPT[c]).join('')}`;
+  return `${mantissa.replace('-', '\u2212')}\u00a0×\u00a010${[...String(Number(exponent))].map((c) => SUPERSCRIPT[c]).join('')}`;
 }
 
 /** @type {Record<string, string>} */

@@ -1,107 +1,127 @@
-import { num, s } from './dom.js';
+import { s } from './dom.js';
 
 /**
- * Plots drawn in the page, as SVG: ln F against t for every run, and k_obs against the catalyst
- * concentration; on each our line (solid) and the student's (dashed). The legend sits below the axes,
- * never over the points.
+ * A plot the server describes (GET /v1/submissions/{id}/display), drawn as SVG: its axes with the ticks
+ * it is sent, each series' points and straight lines (the refit's solid, the student's dashed), and the
+ * key below the axes, never over the points. Any kind's plots: the page knows none of them.
+ *
+ * @typedef {{ at: number, label: string }} Tick
+ * @typedef {{ label: string, min: number, max: number, ticks: Tick[] }} Axis
+ * @typedef {{ intercept: number, slope: number }} Line
+ * @typedef {{ group: number, owner: 'refit' | 'student', points?: Array<[number, number]>, line?: Line }} Series
+ * @typedef {{ label: string, mark: 'disc' | 'diamond' | 'line' | 'dash', group?: number }} LegendItem
+ * @typedef {{ title: string, x: Axis, y: Axis, groups: string[], series: Series[], legend: LegendItem[], notes: string[] }} Plot
  */
 const W = 520;
-const PLOT_H = 300;
-const PAD = { left: 64, right: 16, top: 16, bottom: 48 };
-const LEGEND_ROW = 18;
-const LEGEND_COLUMNS = 3;
-const MARKS = ['#1d5c63', '#b5542b', '#5b4a91', '#3f7f3a', '#8a6d1f', '#7a3050'];
+const PLOT_H = 290;
+const PAD = { left: 68, right: 16, top: 16, bottom: 50 };
+const LEGEND_ROW = 20;
+const COLOURS = ['#1d5c63', '#b5542b', '#5b4a91', '#3f7f3a', '#8a6d1f', '#7a3050'];
+const INK = '#444';
 const DASH = '6 4';
+/** Roughly the width of a character of the key's 13 px text, to lay the key out in rows. */
+const CHAR_WIDTH = 7;
 
-function ticks(lo, hi) {
-  const step = 10 ** Math.floor(Math.log10((hi - lo) / 4 || 1));
-  const nice = [1, 2, 5, 10].map((m) => m * step).find((st) => (hi - lo) / st <= 6) ?? step * 10;
-  const out = [];
-  for (let v = Math.ceil(lo / nice) * nice; v <= hi + nice * 1e-9; v += nice) out.push(Number(v.toPrecision(12)));
-  return out;
+/** @param {number | undefined} group */
+const colourOf = (group) => (group === undefined ? INK : COLOURS[group % COLOURS.length]);
+
+/**
+ * Text with the sheets' `_{sub}` and `^{sup}` markup as SVG tspans (SVG has no sub or sup element).
+ * @param {string} text
+ * @returns {Array<string | SVGElement>}
+ */
+function svgMarked(text) {
+  return text
+    .split(/([_^]\{[^}]*\})/)
+    .filter((part) => part !== '')
+    .map((part) => {
+      const m = /^([_^])\{([^}]*)\}$/.exec(part);
+      // A tspan after a shifted one starts back on the baseline.
+      return m ? s('tspan', { 'baseline-shift': m[1] === '_' ? 'sub' : 'super', 'font-size': '75%' }, m[2]) : s('tspan', { 'baseline-shift': 'baseline' }, part);
+    });
 }
 
-/** legendItems: [{ label, colour, mark: 'dot' | 'line' | 'dash' }], drawn in rows below the x-axis label. */
-function frame(title, xLabel, yLabel, xs, ys, legendItems) {
-  const finite = (v) => v.filter(Number.isFinite);
-  const [x0, x1] = [Math.min(...finite(xs), 0), Math.max(...finite(xs))];
-  const [y0, y1] = [Math.min(...finite(ys), 0), Math.max(...finite(ys), 0)];
-  const spanX = x1 - x0 || 1;
-  const spanY = y1 - y0 || 1;
-  const X = (x) => PAD.left + ((x - x0) / spanX) * (W - PAD.left - PAD.right);
-  const Y = (y) => PLOT_H - PAD.bottom - ((y - y0) / spanY) * (PLOT_H - PAD.top - PAD.bottom);
-  const height = PLOT_H + Math.ceil(legendItems.length / LEGEND_COLUMNS) * LEGEND_ROW + 4;
-  const svg = s('svg', { viewBox: `0 0 ${W} ${height}`, role: 'img', 'aria-label': title, class: 'plot' }, s('title', {}, title));
-  const axes = s('g', { class: 'axes' });
-  axes.append(s('line', { x1: PAD.left, y1: Y(y0), x2: W - PAD.right, y2: Y(y0) }), s('line', { x1: PAD.left, y1: PAD.top, x2: PAD.left, y2: PLOT_H - PAD.bottom }));
-  for (const t of ticks(x0, x1)) axes.append(s('line', { x1: X(t), x2: X(t), y1: Y(y0), y2: Y(y0) + 4 }), s('text', { x: X(t), y: Y(y0) + 16, 'text-anchor': 'middle' }, num(t)));
-  for (const t of ticks(y0, y1)) axes.append(s('line', { x1: PAD.left - 4, x2: PAD.left, y1: Y(t), y2: Y(t) }), s('text', { x: PAD.left - 6, y: Y(t) + 4, 'text-anchor': 'end' }, num(t)));
-  axes.append(s('text', { x: (PAD.left + W - PAD.right) / 2, y: PLOT_H - 8, 'text-anchor': 'middle', class: 'label' }, xLabel));
-  axes.append(s('text', { x: 14, y: (PAD.top + PLOT_H - PAD.bottom) / 2, transform: `rotate(-90 14 ${(PAD.top + PLOT_H - PAD.bottom) / 2})`, 'text-anchor': 'middle', class: 'label' }, yLabel));
-  svg.append(axes);
-  const legend = s('g', { class: 'legend' });
-  const column = (W - PAD.left) / LEGEND_COLUMNS;
-  legendItems.forEach((item, i) => {
-    const x = PAD.left + (i % LEGEND_COLUMNS) * column;
-    const y = PLOT_H + 8 + Math.floor(i / LEGEND_COLUMNS) * LEGEND_ROW;
+/** The text a reader of the markup sees: `k_{obs}` → `kobs`. @param {string} text */
+const plain = (text) => text.replace(/[_^]\{([^}]*)\}/g, '$1');
+
+/** A hollow diamond centred at (x, y), so that a disc under it stays visible. @param {number} x @param {number} y @param {string} colour */
+const diamond = (x, y, colour) => s('path', { class: 'point', transform: `translate(${x} ${y})`, d: 'M 0 -5 L 5 0 L 0 5 L -5 0 Z', fill: 'none', stroke: colour, 'stroke-width': 1.6 });
+
+/**
+ * The key in rows below the axes, each entry as wide as its label.
+ * @param {LegendItem[]} items
+ */
+function legend(items) {
+  const g = s('g', { class: 'legend' });
+  let [x, row] = [PAD.left, 0];
+  for (const item of items) {
+    const width = 28 + plain(item.label).length * CHAR_WIDTH + 14;
+    if (x + width > W && x > PAD.left) [x, row] = [PAD.left, row + 1];
+    const y = PLOT_H + 8 + row * LEGEND_ROW;
+    const colour = colourOf(item.group);
     const key =
-      item.mark === 'dot'
-        ? s('circle', { cx: x + 9, cy: y, r: 3.5, fill: item.colour })
-        : s('line', { x1: x, x2: x + 18, y1: y, y2: y, stroke: item.colour, 'stroke-width': 1.8, 'stroke-dasharray': item.mark === 'dash' ? DASH : undefined });
-    legend.append(key, s('text', { x: x + 24, y: y + 4, fill: item.colour }, item.label));
-  });
-  svg.append(legend);
-  // Lines are clipped to the plotting area, as a fitted line may leave it.
+      item.mark === 'disc'
+        ? s('circle', { cx: x + 9, cy: y, r: 3.5, fill: colour })
+        : item.mark === 'diamond'
+          ? diamond(x + 9, y, colour)
+          : s('line', { x1: x, x2: x + 18, y1: y, y2: y, stroke: colour, 'stroke-width': 1.8, 'stroke-dasharray': item.mark === 'dash' ? DASH : undefined });
+    g.append(key, s('text', { x: x + 24, y: y + 4, fill: colour }, ...svgMarked(item.label)));
+    x += width;
+  }
+  return { g, rows: row + 1 };
+}
+
+/**
+ * @param {Plot} plot
+ * @returns {SVGSVGElement}
+ */
+export function drawPlot(plot) {
+  const X = (/** @type {number} */ x) => PAD.left + ((x - plot.x.min) / (plot.x.max - plot.x.min || 1)) * (W - PAD.left - PAD.right);
+  const Y = (/** @type {number} */ y) => PLOT_H - PAD.bottom - ((y - plot.y.min) / (plot.y.max - plot.y.min || 1)) * (PLOT_H - PAD.top - PAD.bottom);
+  const key = legend(plot.legend);
+  const height = PLOT_H + key.rows * LEGEND_ROW + 4;
+  const svg = /** @type {SVGSVGElement} */ (s('svg', { viewBox: `0 0 ${W} ${height}`, role: 'img', 'aria-label': plain(plot.title), class: 'plot' }, s('title', {}, plain(plot.title))));
+  const axes = s('g', { class: 'axes' });
+  const [bottom, left] = [Y(plot.y.min), X(plot.x.min)];
+  axes.append(s('line', { x1: left, y1: bottom, x2: X(plot.x.max), y2: bottom }), s('line', { x1: left, y1: Y(plot.y.max), x2: left, y2: bottom }));
+  for (const t of plot.x.ticks) axes.append(s('line', { x1: X(t.at), x2: X(t.at), y1: bottom, y2: bottom + 4 }), s('text', { x: X(t.at), y: bottom + 16, 'text-anchor': 'middle' }, t.label));
+  for (const t of plot.y.ticks) axes.append(s('line', { x1: left - 4, x2: left, y1: Y(t.at), y2: Y(t.at) }), s('text', { x: left - 6, y: Y(t.at) + 4, 'text-anchor': 'end' }, t.label));
+  const middleY = (PAD.top + PLOT_H - PAD.bottom) / 2;
+  axes.append(
+    s('text', { x: (PAD.left + W - PAD.right) / 2, y: PLOT_H - 10, 'text-anchor': 'middle', class: 'label' }, ...svgMarked(plot.x.label)),
+    s('text', { x: 14, y: middleY, transform: `rotate(-90 14 ${middleY})`, 'text-anchor': 'middle', class: 'label' }, ...svgMarked(plot.y.label)),
+  );
+  svg.append(axes, key.g);
+  // Lines are clipped to the axes, as a fitted line may leave them; points outside are left out (the notes count them).
   const clip = `clip-${Math.random().toString(36).slice(2)}`;
-  svg.append(s('clipPath', { id: clip }, s('rect', { x: PAD.left, y: PAD.top, width: W - PAD.left - PAD.right, height: PLOT_H - PAD.top - PAD.bottom })));
-  const line = (l, cls, colour, dashed) =>
-    s('line', { class: cls, x1: X(x0), y1: Y(l.intercept + l.slope * x0), x2: X(x1), y2: Y(l.intercept + l.slope * x1), stroke: colour, 'stroke-width': 1.5, 'stroke-dasharray': dashed ? DASH : undefined, 'clip-path': `url(#${clip})` });
-  return { svg, X, Y, line, inside: (x, y) => x >= x0 && x <= x1 && y >= y0 && y <= y1 };
-}
-
-const KEY = (colour) => [
-  { label: 'refit line', colour, mark: 'line' },
-  { label: 'student’s line', colour, mark: 'dash' },
-];
-
-/** runs: the series of plot-series.js's runPlotSeries, all in one time unit. */
-export function lnFPlot(runs, timeUnit) {
-  const items = [...runs.map((run, i) => ({ label: run.label, colour: MARKS[i % MARKS.length], mark: 'dot' })), ...(runs.some((r) => r.theirLine) ? KEY('#444') : KEY('#444').slice(0, 1))];
-  const { svg, X, Y, line } = frame('ln F against t for each run', `t / ${timeUnit}`, 'ln F', runs.flatMap((r) => r.points.map((p) => p.t)), runs.flatMap((r) => r.points.map((p) => p.y)), items);
-  runs.forEach((run, i) => {
-    const colour = MARKS[i % MARKS.length];
-    const g = s('g', { class: 'run', 'data-run': run.label, fill: colour });
-    run.points.forEach((p) => g.append(s('circle', { cx: X(p.t), cy: Y(p.y), r: 3 })));
-    if (run.ourLine) g.append(line(run.ourLine, 'refit', colour, false));
-    if (run.theirLine) g.append(line(run.theirLine, 'student', colour, true));
-    svg.append(g);
-  });
-  return svg;
-}
-
-/** series: plot-series.js's rateLawPlotSeries. */
-export function ratePlot(series) {
-  const [ourColour, theirColour] = [MARKS[0], MARKS[1]];
-  // The student's values widen the axis only while near ours, so that a k off by a factor of 60 does not
-  // flatten the rest; the legend counts those beyond, and the table above gives them.
-  const ourKs = series.ours.map((p) => p.k);
-  const [lo, hi] = [Math.min(...ourKs, 0), Math.max(...ourKs)];
-  const near = (k) => k > lo - (hi - lo) && k < hi + (hi - lo);
-  const beyond = series.theirs.filter((p) => !near(p.k)).length;
-  const items = [
-    { label: 'refit k_obs', colour: ourColour, mark: 'dot' },
-    { label: 'refit k_N + k_A c', colour: ourColour, mark: 'line' },
-    ...(series.theirs.length ? [{ label: beyond ? `student’s k_obs (${beyond} off the plot)` : 'student’s k_obs', colour: theirColour, mark: 'dot' }] : []),
-    ...(series.theirLine ? [{ label: 'student’s k_N + k_A c', colour: theirColour, mark: 'dash' }] : []),
-  ];
-  const { svg, X, Y, line, inside } = frame('k_obs against the catalyst concentration', '[catalyst] / M', `k_obs / ${series.kUnit}`, series.ours.map((p) => p.c), [...ourKs, ...series.theirs.map((p) => p.k).filter(near), series.ourLine?.intercept ?? 0], items);
-  const g = s('g', { fill: ourColour });
-  series.ours.forEach((p) => g.append(s('circle', { cx: X(p.c), cy: Y(p.k), r: 4 }, s('title', {}, `${p.label}: ${num(p.k)}`))));
-  if (series.ourLine) g.append(line(series.ourLine, 'refit', ourColour, false));
-  const t = s('g', { class: 'student', fill: theirColour });
-  // The student's points a little to the right, so that one on ours stays visible.
-  series.theirs.filter((p) => inside(p.c, p.k)).forEach((p) => t.append(s('circle', { cx: X(p.c) + 6, cy: Y(p.k), r: 3.5 }, s('title', {}, `${p.label}, student: ${num(p.k)}`))));
-  if (series.theirLine) t.append(line(series.theirLine, 'student', theirColour, true));
-  svg.append(g, t);
+  svg.append(s('clipPath', { id: clip }, s('rect', { x: left, y: Y(plot.y.max), width: X(plot.x.max) - left, height: bottom - Y(plot.y.max) })));
+  const inside = (/** @type {[number, number]} */ [x, y]) => x >= plot.x.min && x <= plot.x.max && y >= plot.y.min && y <= plot.y.max;
+  // One element per group (a run, or the refit and the student), holding its points and lines.
+  const groups = plot.groups.map((name, i) => s('g', { class: 'group', 'data-group': name, 'data-index': i }));
+  for (const series of plot.series) {
+    const colour = colourOf(series.group);
+    const g = groups[series.group] ?? svg;
+    for (const p of (series.points ?? []).filter(inside)) {
+      g.append(series.owner === 'student' ? diamond(X(p[0]), Y(p[1]), colour) : s('circle', { class: 'point', cx: X(p[0]), cy: Y(p[1]), r: 3.2, fill: colour }));
+    }
+    const l = series.line;
+    if (l) {
+      g.append(
+        s('line', {
+          class: series.owner === 'student' ? 'student-line' : 'refit-line',
+          'data-owner': series.owner,
+          x1: X(plot.x.min),
+          y1: Y(l.intercept + l.slope * plot.x.min),
+          x2: X(plot.x.max),
+          y2: Y(l.intercept + l.slope * plot.x.max),
+          stroke: colour,
+          'stroke-width': 1.6,
+          'stroke-dasharray': series.owner === 'student' ? DASH : undefined,
+          'clip-path': `url(#${clip})`,
+        }),
+      );
+    }
+  }
+  svg.append(...groups);
   return svg;
 }

@@ -1,74 +1,70 @@
 import { api } from './api.js';
 import { fill, h, marked, num, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
-import { lnFPlot, ratePlot } from './plots.js';
-import { rateLawPlotSeries, runPlotSeries } from './plot-series.js';
+import { drawPlot } from './plots.js';
 
-function tolerance(tol, unit) {
-  if (!tol) return '–';
-  const parts = [];
-  if (tol.relative !== undefined) parts.push(`${num(tol.relative * 100)} %`);
-  if (tol.absolute !== undefined) parts.push(`${num(tol.absolute)}${unit ? ` ${unit}` : ''}`);
-  return `± ${parts.join(' or ')}`;
+/**
+ * @typedef {import('./plots.js').Plot} Plot
+ * @typedef {{ findingId: string, code: string, path: string, place: string, values: string, pointsLost: number }} Place
+ * @typedef {{ severity: 'error' | 'warning' | 'info', pointsLost: number, where: string, codes: string, detail: string, message: string, places: Place[] }} Card
+ * @typedef {{ id: string, title: string, cards: Card[], followsFromOwn: { text: string, places: Place[] } | null }} Stage
+ * @typedef {{ caption: string, note: string, columns: Array<{ header: string, numeric: boolean }>, rows: string[][] }} Table
+ * @typedef {{ counts: string | null, stages: Stage[], rejected: Array<{ place: string, path: string, message: string }>, comparison: Table | null, plots: Plot[] }} Display
+ */
+
+/** `−1 point`, `no points lost`, as the sheet writes a card's cost. @param {number} points */
+const pointsText = (points) => (points > 0 ? `−${num(points)} ${points === 1 ? 'point' : 'points'}` : 'no points lost');
+
+/**
+ * A cell as the server formatted it: markup as sub/sup, one line per line of the cell; a number cell
+ * never wraps inside a number.
+ * @param {string} text
+ */
+const cellLines = (text) => text.split('\n').map((line) => h('span', { class: 'line' }, ...marked(line)));
+
+/** The sheet's table of reported against refitted values. @param {Table} table */
+function comparisonTable(table) {
+  return [
+    h('p', { class: 'hint' }, ...marked(table.note)),
+    h(
+      'div',
+      { class: 'table-wrap' },
+      h(
+        'table',
+        { class: 'comparison' },
+        h('caption', {}, table.caption),
+        h('thead', {}, h('tr', {}, table.columns.map((c) => h('th', { scope: 'col', class: c.numeric ? 'number' : undefined }, c.header)))),
+        h('tbody', {}, table.rows.map(([first, ...cells]) => h('tr', {}, h('th', { scope: 'row' }, ...cellLines(first)), cells.map((c, i) => h('td', { class: table.columns[i + 1]?.numeric ? 'number' : undefined }, ...cellLines(c)))))),
+      ),
+    ),
+  ];
 }
 
-const SYMBOLS = { kN: 'k_N', kA: 'k_A', Ea: 'E_a', A: 'A', dH: 'ΔH‡', dS: 'ΔS‡' };
-
-const valueText = (v, unit) => (v ? `${v.value}${v.uncertainty !== undefined ? ` ± ${v.uncertainty}` : ''} ${v.unit ?? unit ?? ''}`.trim() : 'not given');
-// A fit through two points has no standard error (null): its value is shown alone.
-const estimateText = (e) => (e ? (typeof e.standardError === 'number' ? `${num(e.value)} ± ${num(e.standardError)} ${e.unit}` : `${num(e.value)} ${e.unit} (SE not defined)`) : '–');
-
-/** Reported against refit, with the tolerance each is judged by. */
-function comparisonTable(payload, refit, settings) {
-  const rows = (payload.runs ?? []).map((run, i) => [`k_obs, run ${run.label}`, valueText(run.reported?.k), estimateText(refit?.runs?.[i]?.k?.instructor), tolerance(settings?.tolerances?.k)]);
-  // Every value reported for the submission as a whole beside the refit's value of the same name
-  // (k_N and k_A, E_a and A, ...), whatever the kind.
-  const isEstimate = (e) => e && typeof e.value === 'number';
-  // In the order of SYMBOLS (a stored payload's keys may come back in another order), then any other.
-  const known = Object.keys(SYMBOLS).filter((key) => payload.reported?.[key] || isEstimate(refit?.[key]));
-  const keys = [...known, ...Object.keys(payload.reported ?? {}).filter((key) => !known.includes(key))];
-  for (const key of keys) rows.push([SYMBOLS[key] ?? key, valueText(payload.reported?.[key]), estimateText(isEstimate(refit?.[key]) ? refit[key] : undefined), tolerance(settings?.tolerances?.[key], settings?.units?.[key])]);
-  return h(
-    'table',
-    { class: 'comparison' },
-    h('caption', {}, 'Reported values against the refit from the student’s own readings'),
-    h('thead', {}, h('tr', {}, ['Quantity', 'Reported', 'Refit', 'Tolerance'].map((t) => h('th', { scope: 'col' }, t)))),
-    h('tbody', {}, rows.map(([q, ...cells]) => h('tr', {}, h('th', { scope: 'row' }, q), cells.map((c) => h('td', {}, c))))),
-  );
-}
-
-function plots(payload, refit, settings, findings) {
-  const runs = (payload.runs ?? []).map((run, i) => runPlotSeries(run, refit?.runs?.[i], settings, findings, i)).filter((r) => r && r.points.length > 0);
-  const out = [];
-  // One time unit on one axis: runs in another unit are left out of the plot, never rescaled silently.
-  if (runs.length) out.push(lnFPlot(runs.filter((r) => r.timeUnit === runs[0].timeUnit), runs[0].timeUnit));
-  const law = refit?.kN && refit?.kA ? rateLawPlotSeries(payload, refit, settings) : undefined;
-  if (law) out.push(ratePlot(law));
-  const notes = [...runs.flatMap((r) => r.notes.map((n) => `Run ${r.label}: ${n}.`)), ...(law?.notes ?? []).map((n) => `Rate law: ${n}.`)];
-  return out.length
+/** Each plot with the notes under it (the lines' values, or why one is missing). @param {Plot[]} plots */
+function plotFigures(plots) {
+  return plots.length
     ? h(
-        'figure',
+        'div',
         { class: 'plots' },
-        out,
-        h('figcaption', { class: 'hint' }, 'Drawn from the refit of the student’s own readings: points are ln F of each reading, solid lines the refit k_obs, dashed lines the student’s k_obs (for a run with a finding, or where theirs differs); in the second plot, k_obs of each run against its catalyst concentration, with the refit line k_N + k_A [catalyst] and the student’s.'),
-        notes.length ? h('ul', { class: 'hint' }, notes.map((n) => h('li', {}, n))) : null,
+        plots.map((plot) => h('figure', { class: 'plot-figure' }, drawPlot(plot), plot.notes.length ? h('figcaption', {}, h('ul', { class: 'hint' }, plot.notes.map((n) => h('li', {}, ...marked(n))))) : null)),
+        h('p', { class: 'hint' }, 'Drawn as on the feedback sheet, from the refit of the student’s own data: solid lines are the refit, dashed lines the student’s own values.'),
       )
-    : h('p', { class: 'hint' }, refit ? 'The plots of this kind of experiment are on the feedback sheet.' : 'No refit to plot.');
+    : null;
 }
 
 /** One student's latest result: findings by stage, overrides, the comparison, the plots, the versions. */
 export async function studentView(place, submissionId, failure) {
   const base = `#/section/${place.section.id}/assignment/${place.assignment.id}`;
-  let view = await api('GET', `/v1/submissions/${submissionId}`);
-  const [history, assignment] = await Promise.all([
-    api('GET', `/v1/sections/${place.section.id}/students/${encodeURIComponent(view.studentId)}/history?assignmentId=${place.assignment.id}`),
-    api('GET', `/v1/assignments/${place.assignment.id}`),
-  ]);
+  const displayUrl = `/v1/submissions/${submissionId}/display`;
+  let [view, /** @type {Display} */ display] = await Promise.all([api('GET', `/v1/submissions/${submissionId}`), api('GET', displayUrl)]);
+  const history = await api('GET', `/v1/sections/${place.section.id}/students/${encodeURIComponent(view.studentId)}/history?assignmentId=${place.assignment.id}`);
   const root = h('div', { class: 'student-view' });
 
   async function override(findingId, pointsLost, reason, showReason, message) {
     try {
       view = await api('POST', `/v1/submissions/${submissionId}/overrides`, { findingId, pointsLost, reason, showReason });
+      // The cards' points come with the display, made again from the result with the override.
+      display = await api('GET', displayUrl);
       draw();
       root.querySelector('[role=status]')?.focus();
     } catch (error) {
@@ -102,16 +98,23 @@ export async function studentView(place, submissionId, failure) {
     );
   }
 
-  function findingCard(f) {
-    const trail = view.overrides.filter((o) => o.findingId === f.id);
+  /**
+   * One place of a card, for the TA: the checker's code and path, the override trail and the form to
+   * change its points.
+   * @param {Place} p
+   * @param {boolean} alone whether the card has this place only
+   */
+  function placeDetail(p, alone) {
+    const f = (view.result?.findings ?? []).find((x) => x.id === p.findingId);
+    const trail = view.overrides.filter((o) => o.findingId === p.findingId);
     const message = h('p', { class: 'form-error', role: 'alert' });
-    const key = f.id.replace(/[^A-Za-z0-9]/g, '-');
-    const points = h('input', { id: `points-${key}`, type: 'number', min: '0', step: '0.5', value: String(f.pointsLost), required: true });
+    const key = p.findingId.replace(/[^A-Za-z0-9]/g, '-');
+    const points = h('input', { id: `points-${key}`, type: 'number', min: '0', step: '0.5', value: String(p.pointsLost), required: true });
     const reason = h('textarea', { id: `reason-${key}`, rows: '2', required: true, minlength: '3' });
     const showReason = h('input', { id: `show-reason-${key}`, type: 'checkbox' });
     const form = h(
       'form',
-      { class: 'override', onsubmit: (e) => (e.preventDefault(), override(f.id, Number(points.value), reason.value, showReason.checked, message)) },
+      { class: 'override', onsubmit: (/** @type {Event} */ e) => (e.preventDefault(), override(p.findingId, Number(points.value), reason.value, showReason.checked, message)) },
       h('label', { for: `points-${key}` }, 'Points lost'),
       points,
       h('label', { for: `reason-${key}` }, 'Reason (kept in the audit trail)'),
@@ -120,20 +123,45 @@ export async function studentView(place, submissionId, failure) {
       h('button', { type: 'submit' }, 'Save the change'),
       message,
     );
+    return [
+      f?.override ? h('p', { class: 'overridden' }, ...(alone ? [] : [...marked(p.place), ': ']), `${pointsText(p.pointsLost)} (changed from ${num(f.override.originalPointsLost)} by ${f.override.by})`) : null,
+      trail.length ? h('ul', { class: 'trail' }, trail.map((o) => h('li', {}, `${when(o.at)}: ${o.by} changed ${num(o.pointsBefore)} to ${num(o.pointsAfter)} points lost: “${o.reason}”${o.reasonShown ? ' (shown to the student)' : ''}`))) : null,
+      h(
+        'details',
+        { class: 'place-detail' },
+        h('summary', {}, ...(alone ? ['Change the points of this finding'] : ['Change the points at ', ...marked(p.place)])),
+        h('p', { class: 'hint' }, h('code', {}, p.code), ' at ', h('code', { class: 'path' }, p.path)),
+        form,
+      ),
+    ];
+  }
+
+  /** One likely cause, as the sheet shows it, with every place it shows. @param {Card} card */
+  function findingCard(card) {
+    const [first, ...others] = card.places;
     return h(
       'li',
-      { class: `finding ${f.severity}` },
-      h('p', { class: 'finding-head' }, h('span', { class: `badge ${f.severity}` }, f.severity), ' ', h('code', {}, f.code), ' · ', h('span', {}, `${num(f.pointsLost)} point${f.pointsLost === 1 ? '' : 's'} lost`), f.override ? h('span', { class: 'overridden' }, ` (changed from ${num(f.override.originalPointsLost)} by ${f.override.by})`) : null),
-      h('p', {}, f.message),
-      h('p', { class: 'hint' }, h('code', {}, f.path)),
-      trail.length ? h('ul', { class: 'trail' }, trail.map((o) => h('li', {}, `${when(o.at)}: ${o.by} changed ${num(o.pointsBefore)} to ${num(o.pointsAfter)} points lost: “${o.reason}”${o.reasonShown ? ' (shown to the student)' : ''}`))) : null,
-      h('details', {}, h('summary', {}, 'Change the points of this finding'), form),
+      { class: `finding ${card.severity}` },
+      h('p', { class: 'finding-head' }, h('span', { class: `badge ${card.severity}` }, card.severity), ' ', h('span', {}, ...marked(card.where)), ' · ', h('code', {}, card.codes), ' · ', h('span', { class: 'cost' }, pointsText(card.pointsLost))),
+      card.detail ? h('p', { class: 'hint detail' }, ...marked(card.detail)) : null,
+      h('p', {}, ...marked(card.message)),
+      others.length
+        ? [
+            h('p', {}, others.every((p) => p.pointsLost === 0) ? 'The same likely cause also shows here, counted once (no further points lost):' : 'The same likely cause also shows here:'),
+            h('ul', { class: 'places' }, others.map((p) => h('li', {}, ...marked(p.place), p.values ? h('span', { class: 'values' }, ': ', ...marked(p.values)) : null, p.pointsLost > 0 ? ` (${pointsText(p.pointsLost)})` : null))),
+          ]
+        : null,
+      card.places.map((p) => placeDetail(p, card.places.length === 1 && p === first)),
     );
+  }
+
+  /** Values that only follow from the student's own numbers at no cost: one line; the places for the TA. @param {NonNullable<Stage['followsFromOwn']>} follows */
+  function followsFromOwn(follows) {
+    return h('div', { class: 'follows' }, h('p', { class: 'hint' }, ...marked(follows.text)), follows.places.map((p) => placeDetail(p, false)));
   }
 
   function draw() {
     const result = view.result;
-    const findings = result?.findings ?? [];
     const versions = h(
       'select',
       { id: 'version', onchange: (e) => (location.hash = `${base}/submission/${e.target.value}`) },
@@ -179,13 +207,12 @@ export async function studentView(place, submissionId, failure) {
       h('div', { class: 'toolbar' }, h('div', {}, h('label', { for: 'version' }, 'Version '), versions), releaseArea, h('nav', { class: 'downloads', 'aria-label': 'Downloads' }, h('a', { href: `/v1/submissions/${submissionId}/feedback.pdf`, download: '' }, 'Feedback sheet (PDF)'))),
       h('p', { class: 'score', role: 'status', tabindex: '-1' }, result ? (result.status === 'checked' ? `Score ${num(result.score)} of ${num(result.maxScore)}` : 'Refused by the checker: the data could not be graded') : 'Not graded yet'),
       h('p', { class: 'caution' }, 'Each cause named below is a likely cause read from the numbers, for you to review: not a verdict. You can change the points of any finding, with a reason; nothing reaches the student until you release it.'),
-      result?.status === 'rejected' ? h('ul', {}, (result.rejected ?? []).map((r) => h('li', {}, h('code', {}, r.path), ` ${r.message}`))) : null,
-      // The kind's stages, in its order; a finding of a stage the kind no longer names still shows, last.
-      ...[...assignment.stages, ...[...new Set(findings.map((f) => f.stage))].filter((id) => !assignment.stages.some((s) => s.id === id)).map((id) => ({ id, title: id }))].map(({ id, title }) => {
-        const here = findings.filter((f) => f.stage === id);
-        return here.length ? h('section', { class: 'stage' }, h('h2', {}, ...marked(title)), h('ul', { class: 'findings' }, here.map(findingCard))) : null;
-      }),
-      findings.length === 0 && result?.status === 'checked' ? h('p', {}, 'No findings: every checked value agrees with the refit.') : null,
+      display.rejected.length ? h('ul', { class: 'rejected' }, display.rejected.map((r) => h('li', {}, h('strong', {}, ...marked(r.place)), ': ', ...marked(r.message), h('details', {}, h('summary', {}, 'Path'), h('code', {}, r.path))))) : null,
+      display.counts && display.stages.length ? h('p', { class: 'counts' }, display.counts) : null,
+      display.stages.map((stage) =>
+        h('section', { class: 'stage' }, h('h2', {}, ...marked(stage.title)), stage.cards.length ? h('ul', { class: 'findings' }, stage.cards.map(findingCard)) : null, stage.followsFromOwn ? followsFromOwn(stage.followsFromOwn) : null),
+      ),
+      display.stages.length === 0 && result?.status === 'checked' ? h('p', {}, 'No findings: every checked value agrees with the refit.') : null,
       result?.signals?.length
         ? h(
             'section',
@@ -195,7 +222,7 @@ export async function studentView(place, submissionId, failure) {
             h('ul', {}, result.signals.map(signalItem)),
           )
         : null,
-      h('section', {}, h('h2', {}, 'Reported and refitted'), comparisonTable(view.payload ?? {}, result?.refit, assignment.settings), plots(view.payload ?? {}, result?.refit, assignment.settings, findings)),
+      display.comparison || display.plots.length ? h('section', {}, h('h2', {}, 'Reported and refitted'), display.comparison ? comparisonTable(display.comparison) : null, plotFigures(display.plots)) : null,
     );
   }
   draw();
