@@ -1,8 +1,7 @@
 import { z } from 'zod';
-import { getAssignment } from '../store/assignments.ts';
+import { defineRoute } from '../http/route-table.ts';
+import { IdParam } from '../http/schemas.ts';
 import { latestSubmissions } from '../store/submissions.ts';
-import type { RouteSpec } from './route-spec.ts';
-import { IdParam } from './schemas.ts';
 
 const RunMatch = z.object({ runs: z.tuple([z.number(), z.number()]), relation: z.enum(['identical', 'offset', 'scaled', 'edited']), matchingCells: z.number(), cells: z.number() });
 const SectionSignals = z.object({
@@ -15,18 +14,20 @@ const SectionSignals = z.object({
   smooth: z.array(z.object({ studentId: z.string(), run: z.number(), label: z.string(), residualSD: z.number(), step: z.number(), sectionMedianSD: z.number(), instrumentNoise: z.number().optional() })),
 });
 
-export const signalRoutes: RouteSpec[] = [
-  {
+/** Stored settings name their kind, which says how a section's data are compared. */
+const StoredSettings = z.looseObject({ kind: z.string() });
+
+export const signalRoutes = [
+  defineRoute({
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/signals',
     access: 'section',
     summary:
       "What the section's data say beyond the arithmetic: submissions whose readings look alike (the same, offset, rescaled, reordered or a few cells edited) or whose reported k are written alike, and runs smoother than the instrument reads. Prompts for a TA's review, never findings",
     schema: { params: z.object({ sectionId: IdParam, assignmentId: IdParam }), response: { 200: SectionSignals } },
-    async handler({ db, grader, scope, params }) {
-      const assignment = (await getAssignment(db, Number(params.assignmentId)))!;
-      const rows = await latestSubmissions(db, assignment.id, scope.sectionId!);
-      return { status: 200, body: await grader.sectionSignals(assignment.settings as { kind: string }, rows.map((row) => row.payload)) };
+    async handler({ db, server, scope }) {
+      const rows = await latestSubmissions(db, scope.assignment.id, scope.section.id);
+      return server.grader.sectionSignals(StoredSettings.parse(scope.assignment.settings), rows.map((row) => row.payload));
     },
-  },
+  }),
 ];

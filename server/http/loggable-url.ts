@@ -1,5 +1,4 @@
 import type { FastifyRequest } from 'fastify';
-import { routes } from './index.ts';
 
 /**
  * A request's URL as the log may keep it: no student id, whichever route it reached. A URL that
@@ -8,10 +7,15 @@ import { routes } from './index.ts';
  * of the route table, every other segment being `:redacted`. The query string is left out, its values
  * being as free as the path's.
  */
-const ROUTE_WORDS = new Set(['v1', 'session', 'docs', 'openapi.json', 'health', 'web', ...routes.flatMap((r) => r.url.split('/').filter((p) => p && !p.startsWith(':')))]);
 const INTERNAL_ID = /^\d{1,10}$/;
+const OTHER_WORDS = ['v1', 'session', 'docs', 'openapi.json', 'health', 'web'];
 
-export function loggableUrl(request: Pick<FastifyRequest, 'url'> & { routeOptions?: { url?: string }; params?: unknown }): string {
+/** The words of a route table's URLs and of the app's other paths: what a logged URL may keep. */
+export function urlWords(routes: ReadonlyArray<{ url: string }>): ReadonlySet<string> {
+  return new Set([...OTHER_WORDS, ...routes.flatMap((r) => r.url.split('/').filter((p) => p && !p.startsWith(':')))]);
+}
+
+export function loggableUrl(request: Pick<FastifyRequest, 'url'> & { routeOptions?: { url?: string }; params?: unknown }, words: ReadonlySet<string>): string {
   const pattern = request.routeOptions?.url;
   const params = (request.params ?? {}) as Record<string, unknown>;
   if (pattern) {
@@ -23,6 +27,6 @@ export function loggableUrl(request: Pick<FastifyRequest, 'url'> & { routeOption
   const path = request.url.split('?')[0];
   return path
     .split('/')
-    .map((segment) => (segment === '' || INTERNAL_ID.test(segment) || ROUTE_WORDS.has(segment) ? segment : ':redacted'))
+    .map((segment) => (segment === '' || INTERNAL_ID.test(segment) || words.has(segment) ? segment : ':redacted'))
     .join('/');
 }
