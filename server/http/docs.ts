@@ -5,12 +5,12 @@ import fp from 'fastify-plugin';
 import { jsonSchemaTransform } from 'fastify-type-provider-zod';
 
 /**
- * swagger-ui's own policy (its scripts and styles from this origin, its few inline ones by hash),
- * without `upgrade-insecure-requests`, which would send a service run over plain HTTP on a campus
- * network to an HTTPS port it does not have.
+ * swagger-ui's own policy (its scripts and styles from this origin, any inline ones by hash) without
+ * `upgrade-insecure-requests`, which would send a service run over plain HTTP on a campus network to
+ * an HTTPS port it does not have, and without the outside validator, which is switched off.
  */
 export function docsPolicy(header: string): string {
-  return header.replace(/\s*upgrade-insecure-requests;?/, '').trim();
+  return header.replace(/\s*upgrade-insecure-requests;?/, '').replace(' validator.swagger.io', '').trim();
 }
 
 /** The OpenAPI document at `/openapi.json` and swagger-ui at `/docs`, under a Content-Security-Policy of its own. */
@@ -22,6 +22,6 @@ export const docsPlugin = fp(async (app: FastifyInstance) => {
     },
     transform: jsonSchemaTransform,
   });
-  await app.register(fastifySwaggerUi, { routePrefix: '/docs', staticCSP: true, transformStaticCSP: docsPolicy });
+  await app.register(fastifySwaggerUi, { routePrefix: '/docs', staticCSP: true, transformStaticCSP: docsPolicy, uiConfig: { validatorUrl: null } });
   app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
 }, { name: 'rateproof-docs' });
