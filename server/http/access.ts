@@ -1,6 +1,5 @@
 import { ApiError } from '../errors.ts';
 import type { StaffCaller } from '../store/tokens.ts';
-import type { Scope } from './scope.ts';
 
 /**
  * Who may call a route:
@@ -18,7 +17,13 @@ export type Caller = StaffCaller | { kind: 'admin' };
 
 const notFound = () => new ApiError('not-found');
 
-export function authorize(caller: Caller, access: Access, scope: Scope): void {
+/** Where the URL's ids lie: the course, and the section where one of them names it. */
+export interface Place {
+  courseId?: number;
+  sectionId?: number;
+}
+
+export function authorize(caller: Caller, access: Access, scope: Place): void {
   if (access === 'signed-in' || access === 'public') return;
   if (caller.kind === 'admin') {
     if (access === 'admin' || access === 'instructor') return;

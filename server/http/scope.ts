@@ -6,7 +6,7 @@ import { getAssignment } from '../store/assignments.ts';
 import { getCourse, getSection, getStaff } from '../store/courses.ts';
 import type { Database } from '../store/database.ts';
 import { getSubmission } from '../store/submissions.ts';
-import { authorize } from './access.ts';
+import { authorize, type Place } from './access.ts';
 import { parseId } from './schemas.ts';
 
 type Row<T extends (...args: never[]) => Promise<unknown>> = NonNullable<Awaited<ReturnType<T>>>;
@@ -34,10 +34,7 @@ interface RowOfParam {
  * has one) and checked to exist and to belong together: the course and section they lie in decide
  * who may call.
  */
-export interface Scope extends Partial<ScopeRows> {
-  courseId?: number;
-  sectionId?: number;
-}
+export interface Scope extends Partial<ScopeRows>, Place {}
 
 /** The scope a handler sees: the row of each id its URL carries, none of them optional. */
 export type ScopeOf<Params> = { [K in keyof Params & keyof RowOfParam as RowOfParam[K]]: ScopeRows[RowOfParam[K]] };

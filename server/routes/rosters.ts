@@ -35,7 +35,7 @@ function rosterFromCsv(text: string): Placed[] {
   try {
     rows = parse(text, { columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()), skip_empty_lines: true, trim: true, bom: true });
   } catch (error) {
-    throw new ApiError('invalid-input', undefined, [{ path: 'body', message: `not a readable CSV: ${(error as Error).message}` }]);
+    throw new ApiError('invalid-input', undefined, [{ path: 'body', message: `not a readable CSV: ${error instanceof Error ? error.message : String(error)}` }]);
   }
   if (rows.length === 0 || !('student_id' in rows[0])) {
     throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a header row with a student_id column is required' }]);

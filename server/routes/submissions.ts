@@ -104,7 +104,7 @@ export const submissionRoutes = [
     async handler({ db, scope, caller, prepared, query }, reply) {
       if (query.dryRun === 'true') {
         const { toStore, rejected } = await screenBatch(db, prepared, scope.section.id);
-        return { dryRun: true as const, valid: toStore.length, rejected };
+        return reply.send({ dryRun: true, valid: toStore.length, rejected });
       }
       const outcome = await storeBatch(db, prepared, { sectionId: scope.section.id, staffId: staffIdOf(caller) });
       if (outcome.stored.length === 0) {
