@@ -21,7 +21,9 @@ export function loggableUrl(request: Pick<FastifyRequest, 'url'> & { routeOption
   if (pattern) {
     return pattern.replace(/:(\w+)/g, (whole, name: string) => {
       const value = params[name];
-      return name !== 'studentId' && typeof value === 'string' && INTERNAL_ID.test(value) ? value : whole;
+      // Read before validation, an id is the URL's text; after, the number it was parsed to.
+      const id = typeof value === 'number' ? String(value) : value;
+      return name !== 'studentId' && typeof id === 'string' && INTERNAL_ID.test(id) ? id : whole;
     });
   }
   const path = request.url.split('?')[0];
