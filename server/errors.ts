@@ -1,3 +1,5 @@
+import { z } from 'zod';
+
 /**
  * Every error the API returns: a code, an HTTP status and a message; `details` name each field and
  * the reason. The HTTP layer maps these to responses; anything else is a 500 with no internals.
@@ -20,6 +22,13 @@ export const apiErrors = {
 } as const;
 
 export type ApiErrorCode = keyof typeof apiErrors;
+
+/** The codes, in the order above: the OpenAPI document's enum of `error.code`. */
+export const errorCodes = Object.keys(apiErrors) as [ApiErrorCode, ...ApiErrorCode[]];
+export const ErrorCode = z.enum(errorCodes);
+
+/** Each code with its status and default message, for a generated table of the API's errors. */
+export const errorCatalogue: Array<{ code: ApiErrorCode; status: number; message: string }> = errorCodes.map((code) => ({ code, ...apiErrors[code] }));
 
 export interface ErrorDetail {
   path: string;

@@ -13,7 +13,8 @@ export interface EffectiveFinding extends Finding {
   override?: { pointsLost: number; reason: string; reasonShown: boolean; by: string; at: Date; originalPointsLost: number };
 }
 
-export interface EffectiveResult {
+/** A type, not an interface, so that it fits the loose result schema of the responses. */
+export type EffectiveResult = {
   resultId: number;
   status: string;
   score: number | null;
@@ -32,7 +33,7 @@ export interface EffectiveResult {
    * TA put on the student's sheet (their latest choice) carry `onSheet: true`.
    */
   signals: Signal[];
-}
+};
 
 /** How a choice names its signal: a signal is one code at one place. */
 export const signalKey = (s: { code: string; path: string }): string => `${s.code} ${s.path}`;

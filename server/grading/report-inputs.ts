@@ -4,8 +4,8 @@ import type { FeedbackInput, KindSettings } from '../../reports/feedback-input.t
 import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
 import { latestReleases } from '../store/releases.ts';
-import { signalChoicesOf } from '../store/signal-choices.ts';
-import { getSubmission, latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, resultsByIds, submissionsByIds, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
+import { signalChoicesOf, type SignalChoiceRow } from '../store/signal-choices.ts';
+import { latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, resultsByIds, submissionsByIds, type OverrideRow, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { EffectiveResult } from './effective-result.ts';
 import { resultAndRelease, type ResultAndRelease } from './released.ts';
@@ -20,8 +20,15 @@ function asCheckResult(studentId: string, r: EffectiveResult): CheckResult {
   return { studentId, status: r.status as CheckResult['status'], score: r.score, maxScore: r.maxScore, items: r.items, refit: r.refit as CheckResult['refit'], findings: r.findings, signals: r.signals, rejected: r.rejected, engineVersion: r.engineVersion };
 }
 
+type Standing = ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow };
+
 /** Each submission's latest result and its student's latest release; `full` reads refits and settings too (for sheets). */
-async function resultsAndReleases(db: Kysely<Database>, ids: number[], full: boolean): Promise<Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>> {
+async function resultsAndReleases(db: Kysely<Database>, ids: number[], full: boolean): Promise<Map<number, Standing>> {
+  return (await readResultsAndReleases(db, ids, full)).results;
+}
+
+/** The same, with the overrides and signal choices it read. */
+async function readResultsAndReleases(db: Kysely<Database>, ids: number[], full: boolean): Promise<{ results: Map<number, Standing>; overrides: OverrideRow[]; choices: SignalChoiceRow[] }> {
   const latest = await (full ? latestResults(db, ids) : latestResultSummaries(db, ids));
   const releases = new Map((await latestReleases(db, ids)).map((r) => [r.forSubmissionId, r]));
   // A release of an earlier version keeps that version's overrides and choices.
@@ -31,13 +38,13 @@ async function resultsAndReleases(db: Kysely<Database>, ids: number[], full: boo
   const byId = new Map(latest.map((r) => [r.resultId, r]));
   const older = [...new Set([...releases.values()].map((r) => r.resultId))].filter((id) => !byId.has(id));
   for (const r of await resultsByIds(db, older, !full)) byId.set(r.resultId, r);
-  const out = new Map<number, ResultAndRelease & { row: ResultRow; releasedRow?: ResultRow }>();
+  const out = new Map<number, Standing>();
   for (const row of latest) {
     const release = releases.get(row.submissionId);
     const releasedRow = release && byId.get(release.resultId);
     out.set(row.submissionId, { row, releasedRow, ...resultAndRelease(row, release, releasedRow, overrides, choices) });
   }
-  return out;
+  return { results: out, overrides, choices };
 }
 
 /** Which result a report shows: what the student was shown, or (a TA's preview) the latest. */
@@ -73,9 +80,8 @@ async function feedbackInputs(db: Kysely<Database>, rows: SubmissionRow[], secti
   return out;
 }
 
-export async function submissionFeedback(db: Kysely<Database>, submissionId: number, showing: Showing = 'released'): Promise<FeedbackInput | undefined> {
-  const row = await getSubmission(db, submissionId);
-  if (!row) return undefined;
+/** One submission's sheet, from its row as the request read it. */
+export async function submissionFeedback(db: Kysely<Database>, row: SubmissionRow, showing: Showing = 'released'): Promise<FeedbackInput | undefined> {
   return (await feedbackInputs(db, [row], row.sectionId, row.assignmentId, showing))[0];
 }
 
@@ -101,10 +107,24 @@ export async function releasesDue(db: Kysely<Database>, submissionIds: number[])
   return [...results.values()].flatMap((r) => (r.released === undefined || r.changedSinceRelease ? [r.nextRelease] : []));
 }
 
-/** What one submission's student was shown, beside its latest result; undefined when nothing was released. */
-export async function submissionRelease(db: Kysely<Database>, submissionId: number) {
-  const both = (await resultsAndReleases(db, [submissionId], false)).get(submissionId);
-  return both?.released && { at: both.released.releasedAt!, version: both.releasedVersion!, score: both.released.score, changedSinceRelease: both.changedSinceRelease };
+/**
+ * One submission as a TA reviews it, each part read once: its latest result with the overrides and
+ * signal choices applied, those overrides and choices themselves, and what its student was shown
+ * (undefined when nothing was released).
+ */
+export async function submissionStanding(db: Kysely<Database>, submissionId: number) {
+  const { results, overrides, choices } = await readResultsAndReleases(db, [submissionId], true);
+  const both = results.get(submissionId);
+  const releasedAt = both?.released?.releasedAt;
+  const release = both?.released && releasedAt && both.releasedVersion !== undefined
+    ? { at: releasedAt, version: both.releasedVersion, score: both.released.score, changedSinceRelease: both.changedSinceRelease }
+    : undefined;
+  return {
+    current: both?.current,
+    overrides: overrides.filter((o) => o.submissionId === submissionId),
+    choices: choices.filter((c) => c.submissionId === submissionId),
+    release,
+  };
 }
 
 /** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */

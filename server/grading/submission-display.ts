@@ -3,7 +3,7 @@ import { checkedDisplay, rejectedDisplay } from '../../reports/display/submissio
 import type { SubmissionDisplay } from '../../schemas/display.ts';
 import { reportFor, stagesOf } from '../../kinds/registry.ts';
 import type { Database } from '../store/database.ts';
-import { getSubmission, latestResults } from '../store/submissions.ts';
+import { latestResults, type SubmissionRow } from '../store/submissions.ts';
 import { submissionFeedback } from './report-inputs.ts';
 
 const NOTHING: SubmissionDisplay = { counts: null, stages: [], rejected: [], comparison: null, plots: [] };
@@ -12,16 +12,15 @@ const NOTHING: SubmissionDisplay = { counts: null, stages: [], rejected: [], com
  * The workspace's student page for a submission's latest result (the TAs' overrides applied), made
  * from what its sheet is made from: a refused result shows its problems in words, an ungraded one nothing.
  */
-export async function submissionDisplay(db: Kysely<Database>, submissionId: number): Promise<SubmissionDisplay> {
-  const input = await submissionFeedback(db, submissionId, 'latest');
+export async function submissionDisplay(db: Kysely<Database>, submission: SubmissionRow): Promise<SubmissionDisplay> {
+  const input = await submissionFeedback(db, submission, 'latest');
   if (input) {
     const report = await reportFor(input.settings.kind);
     return checkedDisplay(input, { describe: (path) => report.describePath(path, input.submission), stages: stagesOf(input.settings.kind), kindDisplay: report.display });
   }
-  const [row] = await latestResults(db, [submissionId]);
+  const [row] = await latestResults(db, [submission.submissionId]);
   const rejected = (row?.findings as { rejected?: Array<{ path: string; message: string }> } | undefined)?.rejected ?? [];
   if (!row || rejected.length === 0) return NOTHING;
   const report = await reportFor((row.settings as { kind: string }).kind);
-  const payload = (await getSubmission(db, submissionId))?.payload;
-  return rejectedDisplay(rejected, (path) => report.describePath(path, payload));
+  return rejectedDisplay(rejected, (path) => report.describePath(path, submission.payload));
 }

@@ -1,13 +1,25 @@
+import type { RouteSpec } from '../http/route-table.ts';
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
 import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
 import { resultRoutes } from './results.ts';
-import { signalRoutes } from './signals.ts';
 import { rosterRoutes } from './rosters.ts';
-import type { RouteSpec } from './route-spec.ts';
+import { sessionRoutes } from './sessions.ts';
+import { signalRoutes } from './signals.ts';
 import { submissionDisplayRoutes } from './submission-display.ts';
 import { submissionRoutes } from './submissions.ts';
 
-/** Every route of the API, registered explicitly in this order. */
-export const routes: RouteSpec[] = [...meRoutes, ...courseRoutes, ...rosterRoutes, ...assignmentRoutes, ...submissionRoutes, ...submissionDisplayRoutes, ...resultRoutes, ...signalRoutes, ...reportRoutes];
+/** Every route of the API, registered explicitly in this order; a new resource's routes are one more spread. */
+export const routes: RouteSpec[] = [
+  ...sessionRoutes,
+  ...meRoutes,
+  ...courseRoutes,
+  ...rosterRoutes,
+  ...assignmentRoutes,
+  ...submissionRoutes,
+  ...submissionDisplayRoutes,
+  ...resultRoutes,
+  ...signalRoutes,
+  ...reportRoutes,
+];

@@ -1,23 +1,24 @@
 import { z } from 'zod';
+import type { Caller } from '../http/access.ts';
+import { defineRoute } from '../http/route-table.ts';
+import { csrfTokenOf, readSessionCookie } from '../http/session-cookie.ts';
 import { listAssignments } from '../store/assignments.ts';
 import { getStaff, listCourses, listSections } from '../store/courses.ts';
-import type { Caller } from './access.ts';
-import type { RouteSpec } from './route-spec.ts';
-import { csrfTokenOf, readSessionCookie } from './session-cookie.ts';
 import { Me } from '../../schemas/api/me.ts';
 
 const CourseListing = z.object({ id: z.number(), name: z.string(), createdAt: z.date() });
 
 const courseIdsOf = (caller: Caller) => (caller.kind === 'admin' ? undefined : [caller.courseId]);
 
-export const meRoutes: RouteSpec[] = [
-  {
+export const meRoutes = [
+  defineRoute({
     method: 'GET',
     url: '/v1/me',
     access: 'signed-in',
     summary: 'Who is calling, and the courses, sections and assignments they may open',
     schema: { response: { 200: Me } },
-    async handler({ db, caller, request }) {
+    async handler(request) {
+      const { db, caller } = request;
       const courses = await listCourses(db, courseIdsOf(caller));
       const listed = await Promise.all(
         courses.map(async (course) => {
@@ -32,18 +33,19 @@ export const meRoutes: RouteSpec[] = [
         }),
       );
       const session = readSessionCookie(request);
-      const who = caller.kind === 'admin' ? { role: 'admin' as const } : { role: caller.role, staffId: caller.staffId, handle: (await getStaff(db, caller.staffId))!.handle };
-      return { status: 200, body: { ...who, courses: listed, ...(session && !request.headers.authorization ? { csrfToken: csrfTokenOf(session) } : {}) } };
+      const staff = caller.kind === 'staff' ? await getStaff(db, caller.staffId) : undefined;
+      const who = caller.kind === 'staff' && staff ? { role: caller.role, staffId: caller.staffId, handle: staff.handle } : { role: 'admin' } as const;
+      return { ...who, courses: listed, ...(session && !request.headers.authorization ? { csrfToken: csrfTokenOf(session) } : {}) };
     },
-  },
-  {
+  }),
+  defineRoute({
     method: 'GET',
     url: '/v1/courses',
     access: 'signed-in',
     summary: 'The courses the caller may open (every course, for the admin)',
     schema: { response: { 200: z.array(CourseListing) } },
     async handler({ db, caller }) {
-      return { status: 200, body: await listCourses(db, courseIdsOf(caller)) };
+      return listCourses(db, courseIdsOf(caller));
     },
-  },
+  }),
 ];

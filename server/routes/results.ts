@@ -2,25 +2,25 @@ import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { latestWithResults, releasesDue } from '../grading/report-inputs.ts';
+import { staffIdOf } from '../http/access.ts';
+import { defineRoute } from '../http/route-table.ts';
+import { IdParam } from '../http/schemas.ts';
 import { insertReleases } from '../store/releases.ts';
 import { studentsWithoutSubmission } from '../store/students.ts';
 import { latestSubmissionHeads, versionAndLatest } from '../store/submissions.ts';
-import { staffIdOf } from './access.ts';
-import type { RouteSpec } from './route-spec.ts';
-import { IdParam } from './schemas.ts';
 import { Released, ResultRow } from '../../schemas/api/results.ts';
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 
-export const resultRoutes: RouteSpec[] = [
-  {
+export const resultRoutes = [
+  defineRoute({
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/results',
     access: 'section',
     summary: "A section's results: one row per roster student (latest version, or not submitted), with counts by severity and the codes found",
     schema: { params, response: { 200: z.array(ResultRow) } },
-    async handler({ db, scope, params: p }) {
-      const [sectionId, assignmentId] = [scope.sectionId!, Number(p.assignmentId)];
+    async handler({ db, scope }) {
+      const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
       const rows = await latestWithResults(db, sectionId, assignmentId);
       const missing = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map(({ studentId, status }) => ({
         studentId,
@@ -56,10 +56,10 @@ export const resultRoutes: RouteSpec[] = [
       }));
       // One list in student-id order, submitted or not.
       const body = [...submitted, ...missing].sort((a, b) => (a.studentId < b.studentId ? -1 : a.studentId > b.studentId ? 1 : 0));
-      return { status: 200, body };
+      return body;
     },
-  },
-  {
+  }),
+  defineRoute({
     method: 'POST',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
     access: 'section',
@@ -67,14 +67,14 @@ export const resultRoutes: RouteSpec[] = [
       "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action",
     schema: { params, response: { 200: Released } },
     transactional: true,
-    async handler({ db, scope, params: p, caller }) {
-      const latest = await latestSubmissionHeads(db, Number(p.assignmentId), scope.sectionId!);
+    async handler({ db, scope, caller }) {
+      const latest = await latestSubmissionHeads(db, scope.assignment.id, scope.section.id);
       const due = await releasesDue(db, latest.map((s) => s.submissionId));
       await insertReleases(db, due, staffIdOf(caller));
-      return { status: 200, body: { released: due.length } };
+      return { released: due.length };
     },
-  },
-  {
+  }),
+  defineRoute({
     method: 'POST',
     url: '/v1/submissions/:submissionId/release',
     access: 'section',
@@ -82,17 +82,18 @@ export const resultRoutes: RouteSpec[] = [
       "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since; only the student's latest version can be released (409 otherwise)",
     schema: { params: z.object({ submissionId: IdParam }), response: { 200: Released } },
     transactional: true,
-    async handler({ db, params, caller }) {
+    async handler({ db, scope, caller }) {
+      const { submissionId } = scope.submission;
       // A student sees their latest release: releasing an older version would take back a newer one.
-      const versions = (await versionAndLatest(db, Number(params.submissionId)))!;
-      if (versions.version < versions.latestVersion) {
+      const versions = await versionAndLatest(db, submissionId);
+      if (versions && versions.version < versions.latestVersion) {
         throw new ApiError('conflict', `only the student's latest version can be released: this is version ${versions.version}, the latest ${versions.latestVersion}`, [
           { path: 'params.submissionId', message: `version ${versions.version} of ${versions.latestVersion}` },
         ]);
       }
-      const due = await releasesDue(db, [Number(params.submissionId)]);
+      const due = await releasesDue(db, [submissionId]);
       await insertReleases(db, due, staffIdOf(caller));
-      return { status: 200, body: { released: due.length } };
+      return { released: due.length };
     },
-  },
+  }),
 ];

@@ -2,9 +2,9 @@ import { parse } from 'csv-parse/sync';
 import { z } from 'zod';
 import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
+import { defineRoute } from '../http/route-table.ts';
+import { IdParam } from '../http/schemas.ts';
 import { addToRoster, idKey, listRoster, rosterRows, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
-import type { RouteSpec } from './route-spec.ts';
-import { IdParam } from './schemas.ts';
 import { Enrolment, RosterAdded, RosterStudent } from '../../schemas/api/rosters.ts';
 
 const Entry = z.object({ studentId: StudentId, displayName: Text(200).optional() });
@@ -19,7 +19,7 @@ function rosterFromCsv(text: string): Placed[] {
   try {
     rows = parse(text, { columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()), skip_empty_lines: true, trim: true, bom: true });
   } catch (error) {
-    throw new ApiError('invalid-input', undefined, [{ path: 'body', message: `not a readable CSV: ${(error as Error).message}` }]);
+    throw new ApiError('invalid-input', undefined, [{ path: 'body', message: `not a readable CSV: ${error instanceof Error ? error.message : String(error)}` }]);
   }
   if (rows.length === 0 || !('student_id' in rows[0])) {
     throw new ApiError('invalid-input', undefined, [{ path: 'body', message: 'a header row with a student_id column is required' }]);
@@ -53,51 +53,55 @@ function rosterFromLines(text: string): Placed[] {
   return entries;
 }
 
-function entriesOf(body: unknown, contentType: string | undefined): Placed[] {
-  if (typeof body !== 'string') return (body as { students: RosterEntry[] }).students.map((e, i) => ({ ...e, at: `body.students[${i}].studentId` }));
+function entriesOf(body: z.output<typeof RosterBody>, contentType: string | undefined): Placed[] {
+  if (typeof body !== 'string') return body.students.map((e, i) => ({ ...e, at: `body.students[${i}].studentId` }));
   return contentType?.startsWith('text/plain') ? rosterFromLines(body) : rosterFromCsv(body);
 }
 
-export const rosterRoutes: RouteSpec[] = [
-  {
+const InSection = z.object({ sectionId: IdParam });
+
+export const rosterRoutes = [
+  defineRoute({
     method: 'POST',
     url: '/v1/sections/:sectionId/roster',
     access: 'instructor',
     summary:
       'Add students to a section roster: JSON, text/csv (a student_id column, display_name optional) or text/plain (one id per line). Ids are compared without regard to case; a student may be in one section per course. Answers how many were added, enrolled again and already enrolled',
-    schema: { params: z.object({ sectionId: IdParam }), body: RosterBody, response: { 200: RosterAdded } },
+    schema: { params: InSection, body: RosterBody, response: { 200: RosterAdded } },
     transactional: true,
-    async handler({ db, scope, body, caller, request }) {
-      const entries = entriesOf(body, request.headers['content-type']);
+    async handler({ db, scope, body, caller, headers }) {
+      const { section } = scope;
+      const entries = entriesOf(body, headers['content-type']);
       const firstAt = new Map<string, Placed>();
       for (const e of entries) {
         const first = firstAt.get(idKey(e.studentId));
         if (first) throw new ApiError('invalid-input', undefined, [{ path: e.at, message: `${e.studentId} is listed twice (as ${first.studentId} at ${first.at}; ids are compared without regard to case)` }]);
         firstAt.set(idKey(e.studentId), e);
       }
-      const onRoster = await rosterRows(db, scope.sectionId!, entries.map((e) => e.studentId));
-      const otherCase = entries.filter((e) => onRoster.has(e.studentId) && onRoster.get(e.studentId)!.studentId !== e.studentId);
-      if (otherCase.length > 0) {
-        throw new ApiError('conflict', 'a student id differs only in case from one on the roster: the same student', otherCase.map((e) => ({ path: e.at, message: `already on this roster as ${onRoster.get(e.studentId)!.studentId}` })));
-      }
-      const elsewhere = await studentsElsewhere(db, scope.courseId!, scope.sectionId!, entries.map((e) => e.studentId));
+      const onRoster = await rosterRows(db, section.id, entries.map((e) => e.studentId));
+      const otherCase = entries.flatMap((e) => {
+        const stored = onRoster.get(e.studentId);
+        return stored && stored.studentId !== e.studentId ? [{ path: e.at, message: `already on this roster as ${stored.studentId}` }] : [];
+      });
+      if (otherCase.length > 0) throw new ApiError('conflict', 'a student id differs only in case from one on the roster: the same student', otherCase);
+      const elsewhere = await studentsElsewhere(db, section.courseId, section.id, entries.map((e) => e.studentId));
       if (elsewhere.length > 0) {
         throw new ApiError('conflict', 'a student may be in one section per course', elsewhere.map((s) => ({ path: s.studentId, message: `already on the roster of section ${s.sectionId}` })));
       }
-      return { status: 200, body: await addToRoster(db, scope.courseId!, scope.sectionId!, entries, caller.kind === 'staff' ? caller.staffId : null) };
+      return addToRoster(db, section, entries, onRoster, caller.kind === 'staff' ? caller.staffId : null);
     },
-  },
-  {
+  }),
+  defineRoute({
     method: 'GET',
     url: '/v1/sections/:sectionId/roster',
     access: 'section',
     summary: "A section's roster",
-    schema: { params: z.object({ sectionId: IdParam }), response: { 200: z.array(RosterStudent) } },
+    schema: { params: InSection, response: { 200: z.array(RosterStudent) } },
     async handler({ db, scope }) {
-      return { status: 200, body: await listRoster(db, scope.sectionId!) };
+      return listRoster(db, scope.section.id);
     },
-  },
-  {
+  }),
+  defineRoute({
     method: 'PUT',
     url: '/v1/sections/:sectionId/roster/:studentId',
     access: 'instructor',
@@ -105,10 +109,10 @@ export const rosterRoutes: RouteSpec[] = [
     schema: { params: z.object({ sectionId: IdParam, studentId: StudentId }), body: z.object({ status: Enrolment }), response: { 200: RosterStudent } },
     transactional: true,
     async handler({ db, scope, params, body, caller }) {
-      const { status } = body as { status: z.infer<typeof Enrolment> };
-      const row = await setEnrolment(db, scope.sectionId!, params.studentId, status, caller.kind === 'staff' ? caller.staffId : null);
-      if (!row) throw new ApiError('not-found', `${params.studentId} is not on this section's roster`);
-      return { status: 200, body: (await listRoster(db, scope.sectionId!, params.studentId))[0] };
+      const row = await setEnrolment(db, scope.section.id, params.studentId, body.status, caller.kind === 'staff' ? caller.staffId : null);
+      const [student] = row ? await listRoster(db, scope.section.id, params.studentId) : [];
+      if (!student) throw new ApiError('not-found', `${params.studentId} is not on this section's roster`);
+      return student;
     },
-  },
+  }),
 ];

@@ -38,9 +38,10 @@ export interface RosterAdded {
  * recorded. A display name given replaces the one kept; none given keeps it. The entries must spell
  * each id as the roster does (see `rosterRows`), which the caller checks.
  */
-export async function addToRoster(db: Kysely<Database>, courseId: number, sectionId: number, entries: RosterEntry[], staffId: number | null): Promise<RosterAdded> {
+/** Adds students to a section's roster; `before` is what `rosterRows` read of them in the same transaction. */
+export async function addToRoster(db: Kysely<Database>, section: { id: number; courseId: number }, entries: RosterEntry[], before: RosterRows, staffId: number | null): Promise<RosterAdded> {
   if (entries.length === 0) return { added: 0, reenrolled: 0, alreadyEnrolled: 0 };
-  const before = await rosterRows(db, sectionId, entries.map((e) => e.studentId));
+  const [courseId, sectionId] = [section.courseId, section.id];
   const rows = await db
     .insertInto('students')
     .values(entries.map((e) => ({ course_id: courseId, section_id: sectionId, student_id: e.studentId, display_name: e.displayName ?? null })))
@@ -86,7 +87,9 @@ export async function listRoster(db: Kysely<Database>, sectionId: number, studen
  * Row ids, enrolment and the roster's own spelling of the given pseudonymous ids on a section's
  * roster, keyed by the ids as given: an id matches the roster's student whatever its case.
  */
-export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: string[]): Promise<Map<string, { id: number; status: EnrolmentStatus; studentId: string }>> {
+export type RosterRows = Map<string, { id: number; status: EnrolmentStatus; studentId: string }>;
+
+export async function rosterRows(db: Kysely<Database>, sectionId: number, ids: string[]): Promise<RosterRows> {
   if (ids.length === 0) return new Map();
   const rows = await db
     .selectFrom('students')

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Access } from '../../server/routes/access.ts';
+import type { Access } from '../../server/http/access.ts';
 import { routes } from '../../server/routes/index.ts';
 import { ADMIN_TOKEN, call, openApi, regradeAndWait, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 
@@ -17,6 +17,8 @@ const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
   course: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
   section: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 404, 'no-token': 401, 'bad-token': 401 },
   'signed-in': { admin: 'ok', instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
+  // Signing in and out: whatever the Authorization header says, the body's token (or the cookie) decides.
+  public: { admin: 'ok', instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 'ok', 'bad-token': 'ok' },
 };
 
 interface Fixture extends Seed {
@@ -31,6 +33,10 @@ const unique = () => ++n;
 
 /** A valid request for each route, pointing into section A of the seeded course. */
 const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> = {
+  'GET /v1/session': () => ({ url: '/v1/session' }),
+  'POST /v1/session': (f) => ({ url: '/v1/session', body: { token: f.taAToken } }),
+  // Without a session cookie, signing out has nothing to end and clears the cookie all the same.
+  'DELETE /v1/session': () => ({ url: '/v1/session' }),
   'GET /v1/me': () => ({ url: '/v1/me' }),
   'GET /v1/courses': () => ({ url: '/v1/courses' }),
   'POST /v1/courses': () => ({ url: '/v1/courses', body: { name: `Course ${unique()}` } }),

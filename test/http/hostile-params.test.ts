@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { routes } from '../../server/routes/index.ts';
-import { SESSION_COOKIE } from '../../server/routes/session-cookie.ts';
+import { SESSION_COOKIE } from '../../server/http/session-cookie.ts';
 import { bearer, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
 
 /**

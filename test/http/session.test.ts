@@ -1,6 +1,6 @@
 import type { FastifyRequest } from 'fastify';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { SESSION_COOKIE, sessionCookieHeader } from '../../server/routes/session-cookie.ts';
+import { SESSION_COOKIE, sessionCookieHeader } from '../../server/http/session-cookie.ts';
 import { ADMIN_TOKEN, call, openApi, seedCourse, submissionsFor, type Api, type Seed } from '../support/api-fixture.ts';
 
 /** The workspace's sign-in: a token exchanged for an HttpOnly session cookie, changes guarded by x-csrf-token. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { documentName } from '../../reports/file-names.ts';
-import { attachment } from '../../server/routes/download-header.ts';
+import { attachment } from '../../server/http/download-header.ts';
 
 // Expected names worked by hand from the rule: letters, digits, '.', '_' and '-' kept; any other run
 // of characters one '_'; parts joined by '-'. Header syntax: RFC 6266 §4.1 and RFC 5987 (ext-value).

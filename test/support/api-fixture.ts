@@ -38,7 +38,7 @@ export async function openApi(engine: 'postgres' | 'pglite' = 'postgres'): Promi
 export const bearer = (token: string) => ({ authorization: `Bearer ${token}` });
 
 /** Sends a request and returns status and parsed JSON; throws with the body when the status is not `expect`. */
-export async function call(app: FastifyInstance, method: 'GET' | 'POST' | 'PUT' | 'PATCH', url: string, token: string | undefined, payload?: unknown, expect?: number) {
+export async function call(app: FastifyInstance, method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE', url: string, token: string | undefined, payload?: unknown, expect?: number) {
   const res = await app.inject({ method, url, headers: token ? bearer(token) : {}, ...(payload === undefined ? {} : { payload: payload as object }) });
   const body = res.headers['content-type']?.toString().includes('json') ? res.json() : res.body;
   if (expect !== undefined && res.statusCode !== expect) throw new Error(`${method} ${url}: expected ${expect}, got ${res.statusCode}: ${res.body}`);

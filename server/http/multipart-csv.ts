@@ -1,5 +1,6 @@
-import type {} from '@fastify/multipart';
-import type { FastifyRequest } from 'fastify';
+import fastifyMultipart from '@fastify/multipart';
+import type { FastifyInstance, FastifyRequest } from 'fastify';
+import fp from 'fastify-plugin';
 import type { ExperimentKind } from '../checks/experiment-kind.ts';
 import { ApiError } from '../errors.ts';
 import { layoutProblems } from '../input/csv-layout.ts';
@@ -10,10 +11,17 @@ export interface CsvUpload {
   csvFiles: Record<string, string>;
 }
 
+declare module 'fastify' {
+  interface FastifyRequest {
+    /** The files of a multipart upload, read by `readUpload` on a route that takes one; null otherwise. */
+    upload: CsvUpload | null;
+  }
+}
+
 // More files than any layout has is no upload to read.
 const MAX_FILES = 8;
 
-export async function filesFromMultipart(request: FastifyRequest): Promise<CsvUpload> {
+async function filesFromMultipart(request: FastifyRequest): Promise<CsvUpload> {
   const csvFiles: Record<string, string> = {};
   for await (const part of request.parts()) {
     if (part.type !== 'file') continue;
@@ -23,7 +31,15 @@ export async function filesFromMultipart(request: FastifyRequest): Promise<CsvUp
   return { csvFiles };
 }
 
-export const isCsvUpload = (body: unknown): body is CsvUpload => typeof body === 'object' && body !== null && 'csvFiles' in body;
+/** preHandler hook of a route that takes CSV files: reads a multipart upload into `request.upload`. */
+export async function readUpload(request: FastifyRequest): Promise<void> {
+  if (request.isMultipart()) request.upload = await filesFromMultipart(request);
+}
+
+export const uploadPlugin = fp(async (app: FastifyInstance, options: { fileSize: number }) => {
+  app.decorateRequest('upload', null);
+  await app.register(fastifyMultipart, { limits: { fileSize: options.fileSize, files: 2 } });
+}, { name: 'rateproof-upload' });
 
 /**
  * The submissions in an upload, read by the kind's CSV layout in file order; a file the layout does

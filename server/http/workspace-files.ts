@@ -2,6 +2,7 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { extname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { FastifyInstance } from 'fastify';
+import fp from 'fastify-plugin';
 
 /**
  * The browser workspace: the files under web/, read once at start-up and served from memory at `/`
@@ -18,7 +19,7 @@ const TYPES: Record<string, string> = {
   '.svg': 'image/svg+xml',
 };
 
-/** web/ beside server/ in the sources, two levels further up from the compiled dist/server/routes/. */
+/** web/ beside server/ in the sources, two levels further up from the compiled dist/server/http/. */
 function webFolder(): string {
   const here = fileURLToPath(new URL('.', import.meta.url));
   const found = [join(here, '../../web'), join(here, '../../../web')].find((dir) => existsSync(join(dir, 'index.html')));
@@ -36,7 +37,7 @@ function filesUnder(dir: string, root = dir): Map<string, { body: Buffer; type: 
   return out;
 }
 
-export function registerWorkspaceFiles(app: FastifyInstance): void {
+export const workspaceFilesPlugin = fp(async (app: FastifyInstance) => {
   const files = filesUnder(webFolder());
   const index = files.get('/web/index.html')!;
   const headers = {
@@ -52,4 +53,4 @@ export function registerWorkspaceFiles(app: FastifyInstance): void {
     if (!file) return reply.callNotFound();
     return reply.headers(headers).type(file.type).send(file.body);
   });
-}
+}, { name: 'rateproof-workspace-files' });

@@ -1,4 +1,5 @@
-import type { FastifyRequest } from 'fastify';
+import type { FastifyInstance, FastifyRequest } from 'fastify';
+import fp from 'fastify-plugin';
 import type { Config } from '../config.ts';
 import { ApiError } from '../errors.ts';
 import type { Store } from '../store/connection.ts';
@@ -8,7 +9,17 @@ import type { Caller } from './access.ts';
 import { sameSecret } from './same-secret.ts';
 import { csrfMatches, readSessionCookie } from './session-cookie.ts';
 
+declare module 'fastify' {
+  interface FastifyRequest {
+    /** Who sent the request; settled before anything else on every route but the public ones. */
+    caller: Caller;
+  }
+}
+
 const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** `Authorization: Bearer <token>`; the scheme's name is case-insensitive (RFC 9110 section 11.1, RFC 6750). */
+const BEARER = /^bearer +(\S+) *$/i;
 
 /** The admin or staff token of `Authorization: Bearer`, if the request carries one. */
 export async function tokenCaller(token: string, store: Store, config: Config): Promise<Caller | undefined> {
@@ -21,8 +32,7 @@ export async function tokenCaller(token: string, store: Store, config: Config): 
  * Under a cookie, a change needs the page's `x-csrf-token` as well, which another site cannot know.
  */
 export async function callerOf(request: FastifyRequest, store: Store, config: Config): Promise<Caller> {
-  const header = request.headers.authorization;
-  const token = header?.startsWith('Bearer ') ? header.slice(7).trim() : undefined;
+  const token = BEARER.exec(request.headers.authorization ?? '')?.[1];
   if (token) {
     const caller = await tokenCaller(token, store, config);
     if (!caller) throw new ApiError('unauthenticated', 'the API token is not valid');
@@ -37,3 +47,13 @@ export async function callerOf(request: FastifyRequest, store: Store, config: Co
   }
   return caller;
 }
+
+/** preValidation hook: 401 (or 403 for a change without the page's CSRF token) before anything else is read. */
+export async function identifyCaller(request: FastifyRequest): Promise<void> {
+  request.caller = await callerOf(request, request.server.store, request.server.config);
+}
+
+/** `request.caller`, set by `identifyCaller` on the routes that need one. */
+export const callerPlugin = fp(async (app: FastifyInstance) => {
+  app.decorateRequest<Caller | null>('caller', null);
+}, { name: 'rateproof-caller' });

@@ -1,0 +1,35 @@
+import { z } from 'zod';
+import { Text } from '../../schemas/common.ts';
+import { ErrorCode } from '../errors.ts';
+
+/**
+ * An id in a URL, written as the database writes it: digits without a sign, a leading zero, a point
+ * or an exponent, so that `1e0`, `01` and `1.0` are no id (and never open record 1).
+ */
+export const ID_PATTERN = /^[1-9][0-9]{0,14}$/;
+
+/** The largest id the store's integer keys hold; a longer one names nothing. */
+const MAX_ID = 2147483647;
+
+/** The id a URL segment names, or undefined when it is not one. */
+export function parseId(text: unknown): number | undefined {
+  if (typeof text !== 'string' || !ID_PATTERN.test(text)) return undefined;
+  const id = Number(text);
+  return id <= MAX_ID ? id : undefined;
+}
+
+/** Shapes shared by several routes' schemas. */
+export const IdParam = z
+  .string()
+  .regex(ID_PATTERN, 'an id: digits, without a leading zero')
+  .transform((text, ctx) => parseId(text) ?? (ctx.addIssue({ code: 'custom', message: `at most ${MAX_ID}` }), z.NEVER));
+
+export const ErrorResponse = z.object({
+  error: z.object({
+    code: ErrorCode,
+    message: z.string(),
+    details: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+  }),
+});
+export const Name = Text(200);
+

@@ -1,0 +1,27 @@
+import type { FastifyInstance } from 'fastify';
+import fp from 'fastify-plugin';
+import type { Config } from '../config.ts';
+import type { Grader } from '../grading/grader.ts';
+import type { Regrades } from '../grading/regrade.ts';
+import type { Store } from '../store/connection.ts';
+
+/** What the routes work with, on the app: `request.server.grader` and so on. */
+export interface Services {
+  config: Config;
+  store: Store;
+  /** Checking and drawing, done off the event loop. */
+  grader: Grader;
+  /** Regrades running in the background, and how far each is. */
+  regrades: Regrades;
+}
+
+declare module 'fastify' {
+  interface FastifyInstance extends Services {}
+}
+
+export const servicesPlugin = fp(async (app: FastifyInstance, services: Services) => {
+  app.decorate('config', services.config);
+  app.decorate('store', services.store);
+  app.decorate('grader', services.grader);
+  app.decorate('regrades', services.regrades);
+}, { name: 'rateproof-services' });
