@@ -15,7 +15,7 @@ import { filesFromMultipart, isCsvUpload, submissionsFromCsv } from './multipart
 import { staffIdOf } from './access.ts';
 import type { RouteSpec } from './route-spec.ts';
 import { IdParam } from './schemas.ts';
-import { BatchChecked, BatchStored, ResultView, SubmissionView } from '../../schemas/api/submissions.ts';
+import { BatchChecked, BatchStored, SubmissionVersion, SubmissionView } from '../../schemas/api/submissions.ts';
 
 async function submissionView(db: Parameters<RouteSpec['handler']>[0]['db'], submissionId: number) {
   const s = (await getSubmission(db, submissionId))!;
@@ -145,7 +145,7 @@ export const submissionRoutes: RouteSpec[] = [
     schema: {
       params: z.object({ sectionId: IdParam, studentId: StudentId }),
       querystring: z.object({ assignmentId: IdParam.optional() }),
-      response: { 200: z.array(z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: ResultView.nullable() })) },
+      response: { 200: z.array(SubmissionVersion) },
     },
     async handler({ db, scope, params, query }) {
       const rows = await studentSubmissions(db, scope.sectionId!, params.studentId, query.assignmentId as number | undefined);
