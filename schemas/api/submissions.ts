@@ -56,3 +56,7 @@ export const SubmissionView = z.object({
   release: z.object({ at: z.date(), version: z.number(), score: z.number().nullable(), changedSinceRelease: z.boolean() }).nullable(),
 });
 export type SubmissionView = AsJson<z.infer<typeof SubmissionView>>;
+
+/** One version of a student's submission, with its latest result as overridden. */
+export const SubmissionVersion = z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: ResultView.nullable() });
+export type SubmissionVersion = AsJson<z.infer<typeof SubmissionVersion>>;

@@ -15,7 +15,7 @@ import { IdParam } from '../http/schemas.ts';
 import type { Database } from '../store/database.ts';
 import { insertSignalChoice } from '../store/signal-choices.ts';
 import { insertOverride, latestResults, overridesOf, studentSubmissions, type SubmissionRow } from '../store/submissions.ts';
-import { BatchChecked, BatchStored, ResultView, SubmissionView } from '../../schemas/api/submissions.ts';
+import { BatchChecked, BatchStored, ResultView, SubmissionVersion, SubmissionView } from '../../schemas/api/submissions.ts';
 
 /** A submission as a TA reviews it, from its row as the request read it; its results, overrides, choices and release each read once. */
 async function submissionView(db: Kysely<Database>, submission: SubmissionRow) {
@@ -144,7 +144,7 @@ export const submissionRoutes = [
     schema: {
       params: z.object({ sectionId: IdParam, studentId: StudentId }),
       querystring: z.object({ assignmentId: IdParam.optional() }),
-      response: { 200: z.array(z.object({ submissionId: z.number(), assignmentId: z.number(), version: z.number(), submittedAt: z.date(), result: ResultView.nullable() })) },
+      response: { 200: z.array(SubmissionVersion) },
     },
     async handler({ db, scope, params, query }) {
       const rows = await studentSubmissions(db, scope.section.id, params.studentId, query.assignmentId);

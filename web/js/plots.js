@@ -5,12 +5,8 @@ import { s } from './dom.js';
  * it is sent, each series' points and straight lines (the refit's solid, the student's dashed), and the
  * key below the axes, never over the points. Any kind's plots: the page knows none of them.
  *
- * @typedef {{ at: number, label: string }} Tick
- * @typedef {{ label: string, min: number, max: number, ticks: Tick[] }} Axis
- * @typedef {{ intercept: number, slope: number }} Line
- * @typedef {{ group: number, owner: 'refit' | 'student', points?: Array<[number, number]>, line?: Line }} Series
- * @typedef {{ label: string, mark: 'disc' | 'diamond' | 'line' | 'dash', group?: number }} LegendItem
- * @typedef {{ title: string, x: Axis, y: Axis, groups: string[], series: Series[], legend: LegendItem[], notes: string[] }} Plot
+ * @import { DisplayPlot } from '../../schemas/display.ts'
+ * @typedef {DisplayPlot['legend'][number]} LegendItem
  */
 const W = 520;
 const PLOT_H = 290;
@@ -72,7 +68,7 @@ function legend(items) {
 }
 
 /**
- * @param {Plot} plot
+ * @param {DisplayPlot} plot
  * @returns {SVGSVGElement}
  */
 export function drawPlot(plot) {

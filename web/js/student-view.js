@@ -1,15 +1,21 @@
-import { api } from './api.js';
+import { api, ApiFailure } from './api.js';
 import { fill, h, marked, num, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { drawPlot } from './plots.js';
 
 /**
- * @typedef {import('./plots.js').Plot} Plot
- * @typedef {{ findingId: string, code: string, path: string, place: string, values: string, pointsLost: number }} Place
- * @typedef {{ severity: 'error' | 'warning' | 'info', pointsLost: number, where: string, codes: string, detail: string, message: string, places: Place[] }} Card
- * @typedef {{ id: string, title: string, cards: Card[], followsFromOwn: { text: string, places: Place[] } | null }} Stage
- * @typedef {{ caption: string, note: string, columns: Array<{ header: string, numeric: boolean }>, rows: string[][] }} Table
- * @typedef {{ counts: string | null, stages: Stage[], rejected: Array<{ place: string, path: string, message: string }>, comparison: Table | null, plots: Plot[] }} Display
+ * @import { Failure } from './api.js'
+ * @import { Place } from './section-view.js'
+ * @import { DisplayPlace, DisplayPlot, DisplayStage, DisplayTable, SubmissionDisplay } from '../../schemas/display.ts'
+ * @import { CheckResult, Finding, Signal } from '../../schemas/result.ts'
+ * @import { SubmissionVersion, SubmissionView } from '../../schemas/api/submissions.ts'
+ */
+/**
+ * A result as the service sends it, with the TAs' overrides applied. The schema lets a check result's
+ * fields through unnamed; these are the ones the page reads.
+ * @typedef {{ status: CheckResult['status'], score: number | null, maxScore: number, findings: Array<Finding & { override?: { originalPointsLost: number, by: string } }>, signals?: Signal[] }} Result
+ * @typedef {Omit<SubmissionView, 'result'> & { result: Result | null }} View
+ * @typedef {DisplayStage['cards'][number]} Card
  */
 
 /** `−1 point`, `no points lost`, as the sheet writes a card's cost. @param {number} points */
@@ -22,7 +28,7 @@ const pointsText = (points) => (points > 0 ? `−${num(points)} ${points === 1 ?
  */
 const cellLines = (text) => text.split('\n').map((line) => h('span', { class: 'line' }, ...marked(line)));
 
-/** The sheet's table of reported against refitted values. @param {Table} table */
+/** The sheet's table of reported against refitted values. @param {DisplayTable} table */
 function comparisonTable(table) {
   return [
     h('p', { class: 'hint' }, ...marked(table.note)),
@@ -40,7 +46,7 @@ function comparisonTable(table) {
   ];
 }
 
-/** Each plot with the notes under it (the lines' values, or why one is missing). @param {Plot[]} plots */
+/** Each plot with the notes under it (the lines' values, or why one is missing). @param {DisplayPlot[]} plots */
 function plotFigures(plots) {
   return plots.length
     ? h(
@@ -52,36 +58,55 @@ function plotFigures(plots) {
     : null;
 }
 
-/** One student's latest result: findings by stage, overrides, the comparison, the plots, the versions. */
+/**
+ * One student's latest result: findings by stage, overrides, the comparison, the plots, the versions.
+ * @param {Place} place
+ * @param {number} submissionId
+ * @param {Failure} failure
+ */
 export async function studentView(place, submissionId, failure) {
   const base = `#/section/${place.section.id}/assignment/${place.assignment.id}`;
   const displayUrl = `/v1/submissions/${submissionId}/display`;
-  let [view, /** @type {Display} */ display] = await Promise.all([api('GET', `/v1/submissions/${submissionId}`), api('GET', displayUrl)]);
-  const history = await api('GET', `/v1/sections/${place.section.id}/students/${encodeURIComponent(view.studentId)}/history?assignmentId=${place.assignment.id}`);
+  const [viewBody, displayBody] = await Promise.all([api('GET', `/v1/submissions/${submissionId}`), api('GET', displayUrl)]);
+  let view = /** @type {View} */ (viewBody);
+  let display = /** @type {SubmissionDisplay} */ (displayBody);
+  const history = /** @type {SubmissionVersion[]} */ (await api('GET', `/v1/sections/${place.section.id}/students/${encodeURIComponent(view.studentId)}/history?assignmentId=${place.assignment.id}`));
   const root = h('div', { class: 'student-view' });
 
+  /**
+   * @param {string} findingId
+   * @param {number} pointsLost
+   * @param {string} reason
+   * @param {boolean} showReason
+   * @param {HTMLElement} message where a refusal is shown
+   */
   async function override(findingId, pointsLost, reason, showReason, message) {
     try {
-      view = await api('POST', `/v1/submissions/${submissionId}/overrides`, { findingId, pointsLost, reason, showReason });
+      view = /** @type {View} */ (await api('POST', `/v1/submissions/${submissionId}/overrides`, { findingId, pointsLost, reason, showReason }));
       // The cards' points come with the display, made again from the result with the override.
-      display = await api('GET', displayUrl);
+      display = /** @type {SubmissionDisplay} */ (await api('GET', displayUrl));
       draw();
-      root.querySelector('[role=status]')?.focus();
+      /** @type {HTMLElement | null} */ (root.querySelector('[role=status]'))?.focus();
     } catch (error) {
-      if (error.status === 400) message.textContent = error.details.map((d) => `${d.path.replace('body.', '')}: ${d.message}`).join('; ') || error.message;
+      if (error instanceof ApiFailure && error.status === 400) message.textContent = error.details.map((d) => `${d.path.replace('body.', '')}: ${d.message}`).join('; ') || error.message;
       else failure(error);
     }
   }
 
+  /**
+   * @param {Signal} sig
+   * @param {boolean} onSheet
+   */
   async function chooseSignal(sig, onSheet) {
     try {
-      view = await api('POST', `/v1/submissions/${submissionId}/signals`, { code: sig.code, path: sig.path, onSheet });
+      view = /** @type {View} */ (await api('POST', `/v1/submissions/${submissionId}/signals`, { code: sig.code, path: sig.path, onSheet }));
       draw();
     } catch (error) {
       failure(error);
     }
   }
 
+  /** @param {Signal} sig */
   function signalItem(sig) {
     const trail = view.signalChoices.filter((c) => c.code === sig.code && c.path === sig.path);
     return h(
@@ -101,7 +126,7 @@ export async function studentView(place, submissionId, failure) {
   /**
    * One place of a card, for the TA: the checker's code and path, the override trail and the form to
    * change its points.
-   * @param {Place} p
+   * @param {DisplayPlace} p
    * @param {boolean} alone whether the card has this place only
    */
   function placeDetail(p, alone) {
@@ -155,7 +180,7 @@ export async function studentView(place, submissionId, failure) {
     );
   }
 
-  /** Values that only follow from the student's own numbers at no cost: one line; the places for the TA. @param {NonNullable<Stage['followsFromOwn']>} follows */
+  /** Values that only follow from the student's own numbers at no cost: one line; the places for the TA. @param {NonNullable<DisplayStage['followsFromOwn']>} follows */
   function followsFromOwn(follows) {
     return h('div', { class: 'follows' }, h('p', { class: 'hint' }, ...marked(follows.text)), follows.places.map((p) => placeDetail(p, false)));
   }
@@ -164,7 +189,7 @@ export async function studentView(place, submissionId, failure) {
     const result = view.result;
     const versions = h(
       'select',
-      { id: 'version', onchange: (e) => (location.hash = `${base}/submission/${e.target.value}`) },
+      { id: 'version', onchange: () => { location.hash = `${base}/submission/${versions.value}`; } },
       history.map((v) => h('option', { value: String(v.submissionId), selected: v.submissionId === submissionId }, `version ${v.version}, ${when(v.submittedAt)}${v.result ? `, ${v.result.score ?? '–'} / ${v.result.maxScore}` : ''}`)),
     );
     const releaseArea = h('div', { class: 'release' });
@@ -174,7 +199,7 @@ export async function studentView(place, submissionId, failure) {
         yes: 'Release to the student',
         act: async () => {
           await api('POST', `/v1/submissions/${submissionId}/release`);
-          view = await api('GET', `/v1/submissions/${submissionId}`);
+          view = /** @type {View} */ (await api('GET', `/v1/submissions/${submissionId}`));
           draw();
         },
         cancel: draw,
@@ -183,7 +208,7 @@ export async function studentView(place, submissionId, failure) {
     const release = view.release;
     // Only the latest version can be released: a student sees their latest release of any version.
     const latestVersion = Math.max(...history.map((v) => v.version));
-    const releaseButton = (label) =>
+    const releaseButton = (/** @type {string} */ label) =>
       view.version < latestVersion ? h('p', {}, `Version ${latestVersion} is the latest; only it can be released.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, label);
     releaseArea.append(
       ...(release && !release.changedSinceRelease
