@@ -29,19 +29,10 @@ function pointsText(points: number): string {
 // A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.kN`.
 const PATH = /\b(?:(?:runs|points)\[\d+\](?:\.[A-Za-z]+(?:\[\d+\])*)*|reported\.[A-Za-z]+(?:\.[A-Za-z]+)*)/g;
 
-/** A place in words for running text (which has no sub/superscripts): `k_{obs}` reads `k_obs`, as the messages write it; `ΔH^{‡}` reads `ΔH‡`. */
-const placeInProse = (describe: DescribePath, path: string) =>
-  describe(path)
-    .replace(/\^\{([^}]*)\}/g, '$1')
-    .replace(/_\{([^}]*)\}/g, '_$1');
-
-/** A checker message as the sheet prints it: numbers and units formatted, and any place it names in words. */
+/** A checker message as the sheet prints it: numbers, units and symbols formatted, and any place it names in words (a paragraph breaks no number). */
 export function sheetMessage(message: string, describe: DescribePath): string {
-  return keepNumbersWhole(printableMessage(message.replace(PATH, (path) => placeInProse(describe, path))));
+  return printableMessage(message).replace(PATH, (path) => describe(path));
 }
-
-/** No line break inside a number: the spaces either side of × and ± do not break (U+00A0). */
-const keepNumbersWhole = (text: string): string => text.replace(/ ([±×]) /g, '\u00a0$1\u00a0');
 
 /** The values behind a further place of a card, where the checker gave them. */
 function valuesAt(f: Finding): string {
@@ -72,7 +63,7 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
   x += drawRich(doc, SEVERITY_WORD[card.severity], x, y, { size: SIZE.body, bold: true, color: style.color });
   const where = others.length === 0 ? describe(first.path) : `${describe(first.path)} and ${others.length} more ${others.length === 1 ? 'place' : 'places'}`;
   x += drawRich(doc, `  ·  ${where}`, x, y, { size: SIZE.body, bold: true, color: COLOR.ink });
-  const codes = [first.code, ...(first.alsoCodes ?? [])].join(' + ') + (first.detail ? ` (${first.detail})` : '');
+  const codes = [first.code, ...(first.alsoCodes ?? [])].join(' + ') + (first.detail ? ` (${printableMessage(first.detail)})` : '');
   const right = pointsText(card.pointsLost);
   const rightWidth = richWidth(doc, right, SIZE.small, card.pointsLost > 0);
   drawRich(doc, right, left + width, y + 1, { size: SIZE.small, bold: card.pointsLost > 0, color: card.pointsLost > 0 ? COLOR.error : COLOR.muted, align: 'right' });
@@ -88,7 +79,7 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
     paragraph(doc, lead, { indent: INDENT, gap: 1 });
     for (const f of others) {
       const cost = f.pointsLost > 0 ? ` (${pointsText(f.pointsLost)})` : '';
-      paragraph(doc, keepNumbersWhole(printableMessage(`•  ${placeInProse(describe, f.path)}${valuesAt(f)}${cost}`)), { indent: INDENT + 8, gap: 1 });
+      paragraph(doc, `•  ${describe(f.path)}${printableMessage(`${valuesAt(f)}${cost}`)}`, { indent: INDENT + 8, gap: 1 });
       drawOverride(doc, f);
     }
   }
@@ -98,7 +89,7 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
 /** Values that only follow from the student's own earlier numbers at no cost: one short line. */
 function drawFollowsFromOwn(doc: Doc, findings: Finding[], describe: DescribePath): void {
   if (findings.length === 0) return;
-  const places = findings.map((f) => placeInProse(describe, f.path));
+  const places = findings.map((f) => describe(f.path));
   const list = places.length === 1 ? places[0] : `${places.slice(0, -1).join(', ')} and ${places[places.length - 1]}`;
   const verb = places.length === 1 ? 'follows' : 'follow';
   paragraph(doc, `Follows from your own numbers: ${list} ${verb} correctly from your own earlier values, so the method earns its points; the difference was scored where it entered.`, {

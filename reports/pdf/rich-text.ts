@@ -1,4 +1,4 @@
-import type { Doc } from './document.ts';
+import type { Doc } from './doc-type.ts';
 import { FONT } from './fonts.ts';
 
 /**
