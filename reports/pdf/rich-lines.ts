@@ -3,12 +3,15 @@ import { richWidth } from './rich-text.ts';
 
 /**
  * Line breaking for text with sub/superscript markup, shared by paragraphs and table cells: a line
- * breaks only at a space that is not part of a number (`1.9 × 10⁻⁷`, `0.03 ± 0.002`; a no-break space
- * never breaks) nor inside markup (`_{…}`).
+ * breaks only at a space that is not part of a quantity (`1.9 × 10⁻⁷ min⁻¹`, `0.03 ± 0.002`; a no-break
+ * space never breaks) nor inside markup (`_{…}`).
  */
 
-/** A space that joins the parts of one number (either side of ± or ×), or stands inside markup. */
-const JOINED = /(?<=[±×]) | (?=[±×])| (?=[^{]*\})/g;
+/**
+ * A space that joins: the parts of one number (either side of ± or ×), a number and the word after it
+ * (`87.2 kJ`), a unit power and what stands before it (`kJ mol⁻¹`), or a space inside markup.
+ */
+const JOINED = /(?<=[±×]) | (?=[±×])|(?<=\d) (?=[A-Za-zµ°])| (?=\S*[⁻⁰¹²³⁴⁵⁶⁷⁸⁹])| (?=[^{]*\})/g;
 
 /** The pieces a line may break between. */
 export function unbreakablePieces(line: string): string[] {
