@@ -1,11 +1,16 @@
+import type { FeedbackHeader } from './feedback-input.ts';
+
 /**
  * File names for per-student documents: `<id>.pdf`. Ids are constrained by the schema (letters,
  * digits, `.`, `_`, `-`), but a name is made safe here anyway: any other character becomes `_`, a
  * leading dot is dropped, and a repeated name gets `-2`, `-3`, ... before its extension.
  */
+// Most file systems take 255 bytes; a document name is ASCII, with room left for `-2` and the extension.
+const NAME_LENGTH = 240;
+
 export function safeFileName(name: string, extension = '.pdf'): string {
   const base = name.endsWith(extension) ? name.slice(0, -extension.length) : name;
-  const safe = base.replace(/[^A-Za-z0-9._-]/g, '_').replace(/^\.+/, '').slice(0, 100) || 'unnamed';
+  const safe = base.replace(/[^A-Za-z0-9._-]/g, '_').replace(/^\.+/, '').slice(0, NAME_LENGTH) || 'unnamed';
   return `${safe}${extension}`;
 }
 
@@ -47,4 +52,9 @@ function namePart(text: string, ascii: boolean): string {
 export function documentName(parts: readonly string[], what: string, extension: string): { ascii: string; unicode: string } {
   const join = (ascii: boolean) => `${[...parts.map((p) => namePart(p, ascii)), what].join('-')}${extension}`;
   return { ascii: join(true), unicode: join(false) };
+}
+
+/** A student's sheet as it downloads alone and as it is named in the section's ZIP: `<course>-<section>-<assignment>-<id>-v<version>-feedback.pdf`. */
+export function sheetDocumentName(header: Pick<FeedbackHeader, 'course' | 'section' | 'assignment' | 'studentId' | 'version'>): { ascii: string; unicode: string } {
+  return documentName([header.course, header.section, header.assignment, header.studentId, `v${header.version}`], 'feedback', '.pdf');
 }

@@ -85,14 +85,40 @@ export function prettyUnit(unit: string): string {
 }
 
 /**
- * A checker message as printed: unit exponents as superscripts (`min^-1` → `min⁻¹`), numbers in
- * e-notation as powers of ten, and the minus sign before a negative number. Words stay as written.
+ * The symbols the checkers write in their messages, in the plain form the JSON keeps (`k_obs`, `x_inf`),
+ * and the subscript each prints with. A list, not a pattern: a column name such as `temperature_c` in a
+ * message is a name to type, not a symbol.
  */
-export function printableMessage(text: string): string {
+const SYMBOL = /\b([kxE])_(obs|inf|0|t|N|A|B|a)\b/g;
+const subscriptOf = (sub: string) => (sub === 'inf' ? '∞' : sub);
+
+/** Numbers and unit exponents as printed, in any text: `min^-1` → `min⁻¹`, `1.0e-5` → `1.0 × 10⁻⁵`, the minus sign. */
+function printableNumbers(text: string): string {
   return text
     .replace(/(\d)e([-+]?\d+)\b/g, (_, d: string, e: string) => `${d} × 10${superscript(String(Number(e)))}`)
     .replace(POWER, (_, inBrackets: string | undefined, bare: string | undefined) => superscript(inBrackets ?? bare ?? ''))
     .replace(/(^|[\s(=])-(?=[\d.])/g, `$1${MINUS}`);
+}
+
+/**
+ * A checker message as the documents print it: unit exponents as superscripts (`min^-1` → `min⁻¹`),
+ * numbers in e-notation as powers of ten, the minus sign before a negative number, and each symbol with
+ * its subscript in rich-text markup (`k_obs` → `k_{obs}`, `x_inf` → `x_{∞}`, `ΔH‡` → `ΔH^{‡}`), as the
+ * headings print them, and quotes as the sheets' own (“0.05 M”). Words stay as written.
+ */
+export function printableMessage(text: string): string {
+  return printableNumbers(text)
+    .replace(SYMBOL, (_, base: string, sub: string) => `${base}_{${subscriptOf(sub)}}`)
+    .replace(/Δ([HS])‡/g, 'Δ$1^{‡}')
+    .replace(/"([^"\n]*)"/g, '“$1”');
+}
+
+/**
+ * A checker message for a terminal, which has no subscripts: as printed, but each symbol keeps its
+ * underscore (`k_obs`, `x_∞`).
+ */
+export function terminalMessage(text: string): string {
+  return printableNumbers(text).replace(SYMBOL, (_, base: string, sub: string) => `${base}_${subscriptOf(sub)}`);
 }
 
 /** `±1 %`, `±0.002`, or both (the larger applies, as the checker reads a tolerance). */

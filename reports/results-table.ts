@@ -1,4 +1,5 @@
 import type { CheckResult } from '../schemas/result.ts';
+import { terminalMessage } from './format.ts';
 import { severityCounts } from './result-summary.ts';
 
 /** One submission's part of the table: its row, then its findings or reasons for rejection. */
@@ -20,7 +21,7 @@ export function tableEntry(r: CheckResult): TableEntry {
       String(counts.infos),
       [...new Set(r.findings.map((f) => f.code))].join(', '),
     ],
-    details: [...r.findings.map((f) => [f.severity, f.path, f.message]), ...(r.rejected ?? []).map((x) => ['rejected', x.path, x.message])],
+    details: [...r.findings.map((f) => [f.severity, f.path, terminalMessage(f.message)]), ...(r.rejected ?? []).map((x) => ['rejected', x.path, terminalMessage(x.message)])],
   };
 }
 

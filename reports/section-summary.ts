@@ -12,7 +12,6 @@ import { drawScoreHistogram } from './summary/histogram.ts';
 import { percentBins, spread } from './summary/stats.ts';
 import { drawSignals } from './summary/signals-block.ts';
 import type { DrawnKind, KindReport } from './kind-report.ts';
-import { plainRich } from './pdf/rich-text.ts';
 
 export type { SectionSummaryInput, SummaryHeader } from './feedback-input.ts';
 
@@ -126,7 +125,7 @@ export async function renderSectionSummary(input: SectionSummaryInput, kind: Dra
   drawCodes(doc, input, kind.findingCodes);
   if (input.signals || input.results.some((r) => (r.signals ?? []).length > 0)) {
     const submissions = new Map((input.submissions ?? []).map((s) => [(s as { studentId?: string }).studentId, s]));
-    drawSignals(doc, input.signals, input.results, (path, studentId) => plainRich(report.describePath(path, submissions.get(studentId ?? undefined))));
+    drawSignals(doc, input.signals, input.results, (path, studentId) => report.describePath(path, submissions.get(studentId ?? undefined)));
   }
   finish(doc, {
     left: `Rateproof section summary · ${input.header.section} · ${input.header.assignment} · ${formatPoints(input.results.length)} students`,

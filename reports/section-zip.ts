@@ -3,18 +3,20 @@ import type { PassThrough, Readable } from 'node:stream';
 // (buffer-crc32), streaming output and ZIP64 for large archives; it works on Node 20 as it is. archiver
 // would also do, but brings a dozen dependencies (async, readable-stream, glob ...) for features not used here.
 import { ZipFile } from 'yazl';
-import { UniqueNames } from './file-names.ts';
+import type { FeedbackHeader } from './feedback-input.ts';
+import { sheetDocumentName, UniqueNames } from './file-names.ts';
 
 export interface ZipEntry {
-  /** The file's name, usually the student id: `S-001` or `S-001.pdf` both give `S-001.pdf`. */
-  name: string;
+  /** The sheet's header, which names its entry as the sheet downloads alone (`sheetDocumentName`). */
+  input: { header: FeedbackHeader };
   pdf: Buffer;
 }
 
 /**
  * A ZIP of feedback PDFs, streamed as the entries arrive: each is stored without recompression (a PDF's
  * streams are already deflated), so it is written at once and the next entry is pulled only when the
- * reader has taken the output (backpressure). Names are made safe and unique (`S-001-2.pdf` for a repeat).
+ * reader has taken the output (backpressure). Each entry is named for what it is, as the sheet downloads
+ * alone (`<course>-<section>-<assignment>-<id>-v<version>-feedback.pdf`), and unique (`…-feedback-2.pdf` for a repeat).
  * An error from `entries` destroys the stream with that error.
  */
 export function sectionZip(entries: AsyncIterable<ZipEntry> | Iterable<ZipEntry>): Readable {
@@ -37,7 +39,7 @@ export function sectionZip(entries: AsyncIterable<ZipEntry> | Iterable<ZipEntry>
     try {
       for await (const entry of entries) {
         if (output.destroyed) return;
-        zip.addBuffer(entry.pdf, names.take(entry.name), { compress: false });
+        zip.addBuffer(entry.pdf, names.take(sheetDocumentName(entry.input.header).ascii), { compress: false });
         if (output.writableNeedDrain) await waitForReader();
         if (output.destroyed) return;
       }

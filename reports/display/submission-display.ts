@@ -2,7 +2,7 @@ import type { DisplayPlace, DisplayStage, KindDisplay, SubmissionDisplay } from 
 import type { Finding } from '../../schemas/result.ts';
 import type { FeedbackInput } from '../feedback-input.ts';
 import { cardCounts, countsInWords, groupFindings } from '../feedback/finding-groups.ts';
-import { cardWhere, followsFromOwnText, richMessage, valuesAt, type DescribePath } from '../feedback/finding-text.ts';
+import { cardWhere, followsFromOwnText, sheetMessage, valuesAt, type DescribePath } from '../feedback/finding-text.ts';
 import { printableMessage } from '../format.ts';
 
 /**
@@ -38,8 +38,8 @@ function stagesOf(findings: Finding[], parts: DisplayParts): DisplayStage[] {
           pointsLost: card.pointsLost,
           where: cardWhere(card, parts.describe),
           codes: [card.members[0].code, ...(card.members[0].alsoCodes ?? [])].join(' + '),
-          detail: card.members[0].detail ? richMessage(card.members[0].detail, parts.describe) : '',
-          message: richMessage(card.members[0].message, parts.describe),
+          detail: card.members[0].detail ? sheetMessage(card.members[0].detail, parts.describe) : '',
+          message: sheetMessage(card.members[0].message, parts.describe),
           places: card.members.map((f) => place(f, parts.describe)),
         })),
         followsFromOwn: follows.length ? { text: followsFromOwnText(follows, parts.describe), places: follows.map((f) => place(f, parts.describe)) } : null,
@@ -61,5 +61,5 @@ export function checkedDisplay(input: FeedbackInput, parts: DisplayParts): Submi
 
 /** A refused submission's page: each problem's place in words, nothing else to show. */
 export function rejectedDisplay(rejected: ReadonlyArray<{ path: string; message: string }>, describe: DescribePath): SubmissionDisplay {
-  return { counts: null, stages: [], rejected: rejected.map((r) => ({ place: describe(r.path), path: r.path, message: richMessage(r.message, describe) })), comparison: null, plots: [] };
+  return { counts: null, stages: [], rejected: rejected.map((r) => ({ place: describe(r.path), path: r.path, message: sheetMessage(r.message, describe) })), comparison: null, plots: [] };
 }

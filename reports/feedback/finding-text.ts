@@ -13,33 +13,9 @@ export type DescribePath = (path: string) => string;
 // A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.kN`.
 const PATH = /\b(?:(?:runs|points)\[\d+\](?:\.[A-Za-z]+(?:\[\d+\])*)*|reported\.[A-Za-z]+(?:\.[A-Za-z]+)*)/g;
 
-/** A place in words for running text (which has no sub/superscripts): `k_{obs}` reads `k_obs`, as the messages write it; `ΔH^{‡}` reads `ΔH‡`. */
-export const placeInProse = (describe: DescribePath, path: string) =>
-  describe(path)
-    .replace(/\^\{([^}]*)\}/g, '$1')
-    .replace(/_\{([^}]*)\}/g, '_$1');
-
-/** No line break inside a number: the spaces either side of × and ± do not break (U+00A0). */
-export const keepNumbersWhole = (text: string): string => text.replace(/ ([±×]) /g, '\u00a0$1\u00a0');
-
-/** A checker message as the sheet prints it: numbers and units formatted, and any place it names in words. */
+/** A checker message as a sheet or the page prints it: numbers, units and symbols formatted (sub/superscript markup), and any place it names in words. */
 export function sheetMessage(message: string, describe: DescribePath): string {
-  return keepNumbersWhole(printableMessage(message.replace(PATH, (path) => placeInProse(describe, path))));
-}
-
-// The symbols the checker's messages write in plain text, as the sheets' markup writes them.
-const PROSE_SYMBOLS = /\b([kxE])_(obs|N|A|a|inf|0|t)\b/g;
-
-/**
- * A checker message for a page, which has sub/superscripts in running text: as the sheet prints it,
- * with places and symbols in markup (`k_obs` → `k_{obs}`, `x_inf` → `x_{∞}`).
- */
-export function richMessage(message: string, describe: DescribePath): string {
-  const marked = (text: string) => text.replace(PROSE_SYMBOLS, (_, base: string, sub: string) => `${base}_{${sub === 'inf' ? '∞' : sub}}`);
-  // Places are put in after the symbols, so that markup in a place is not read twice.
-  const parts = message.split(PATH);
-  const places = message.match(PATH) ?? [];
-  return keepNumbersWhole(printableMessage(parts.map((part, i) => marked(part) + (i < places.length ? describe(places[i]) : '')).join('')));
+  return printableMessage(message).replace(PATH, (path) => describe(path));
 }
 
 /** The values behind a further place of a card, where the checker gave them. */
@@ -62,7 +38,7 @@ export function cardWhere(card: FindingCard, describe: DescribePath): string {
 }
 
 /** The code, the codes found with it, and its detail: `log-base + sign-flipped (transposed-digits)`. */
-export const cardCodes = (f: Finding): string => [f.code, ...(f.alsoCodes ?? [])].join(' + ') + (f.detail ? ` (${f.detail})` : '');
+export const cardCodes = (f: Finding): string => [f.code, ...(f.alsoCodes ?? [])].join(' + ') + (f.detail ? ` (${printableMessage(f.detail)})` : '');
 
 /** The one line for values that follow from the student's own earlier numbers at no cost. */
 export function followsFromOwnText(findings: Finding[], place: DescribePath): string {

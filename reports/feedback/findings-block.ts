@@ -1,6 +1,6 @@
 import type { CheckResult, Finding } from '../../schemas/result.ts';
 import { printableMessage } from '../format.ts';
-import { cardCodes, cardWhere, followsFromOwnText, keepNumbersWhole, placeInProse, pointsText, pointsWord, sheetMessage, valuesAt, type DescribePath } from './finding-text.ts';
+import { cardCodes, cardWhere, followsFromOwnText, pointsText, pointsWord, sheetMessage, valuesAt, type DescribePath } from './finding-text.ts';
 import { groupFindings, type FindingCard } from './finding-groups.ts';
 import { SEVERITY_WORD } from '../labels.ts';
 import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
@@ -58,7 +58,7 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
     paragraph(doc, lead, { indent: INDENT, gap: 1 });
     for (const f of others) {
       const cost = f.pointsLost > 0 ? ` (${pointsText(f.pointsLost)})` : '';
-      paragraph(doc, keepNumbersWhole(printableMessage(`•  ${placeInProse(describe, f.path)}${valuesAt(f)}${cost}`)), { indent: INDENT + 8, gap: 1 });
+      paragraph(doc, `•  ${describe(f.path)}${printableMessage(`${valuesAt(f)}${cost}`)}`, { indent: INDENT + 8, gap: 1 });
       drawOverride(doc, f);
     }
   }
@@ -68,7 +68,7 @@ function drawCard(doc: Doc, card: FindingCard, describe: DescribePath): void {
 /** Values that only follow from the student's own earlier numbers at no cost: one short line. */
 function drawFollowsFromOwn(doc: Doc, findings: Finding[], describe: DescribePath): void {
   if (findings.length === 0) return;
-  paragraph(doc, followsFromOwnText(findings, (path) => placeInProse(describe, path)), {
+  paragraph(doc, followsFromOwnText(findings, describe), {
     size: SIZE.small,
     color: COLOR.muted,
     gap: 7,

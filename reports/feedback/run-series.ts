@@ -1,6 +1,7 @@
 import type { Refit, RunRefit, Settings, SubmittedRun } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { Finding } from '../../schemas/result.ts';
 import { convertUnit } from '../units.ts';
+import { prettyUnit } from '../format.ts';
 
 /**
  * What the ln F plot of one run shows: the student's points (their ln F column where given, else ours),
@@ -97,7 +98,7 @@ export function runSeries(settings: Settings, run: SubmittedRun, refitRun: RunRe
   const theirK = convertUnit(value, reported.unit, perTime);
   const theirInInstructor = convertUnit(value, reported.unit, instructor.unit);
   if (theirK === undefined || theirInInstructor === undefined) {
-    return { ...series, note: `your k is not drawn: its unit “${reported.unit}” could not be read` };
+    return { ...series, note: `your k is not drawn: its unit “${prettyUnit(reported.unit)}” could not be read` };
   }
   const hasFinding = findings.some((f) => f.path.startsWith(`runs[${index}]`));
   if (!hasFinding && withinTolerance(settings, theirInInstructor, instructor.value)) return series;

@@ -1,6 +1,7 @@
 import PDFDocument from 'pdfkit';
 import type { Doc } from './doc-type.ts';
 import { registerFonts, FONT } from './fonts.ts';
+import { richLines } from './rich-lines.ts';
 import { drawRich } from './rich-text.ts';
 import { COLOR, PAGE, SIZE } from './theme.ts';
 
@@ -69,20 +70,29 @@ export function sectionHeading(doc: Doc, title: string, keepWith = 60): void {
 }
 
 /**
- * Plain wrapped text over the content width (less `indent`), advancing the cursor. At least three
- * lines stay with what comes before; the rest flows onto the next page as pdfkit wraps it.
+ * Wrapped text over the content width (less `indent`), advancing the cursor; sub/superscript markup
+ * (`k_{obs}`) prints as in labels. At least three lines stay with what comes before; the rest flows
+ * onto the next page line by line.
  */
 export function paragraph(doc: Doc, text: string, options: { size?: number; color?: string; bold?: boolean; indent?: number; gap?: number } = {}): void {
   const indent = options.indent ?? 0;
   const size = options.size ?? SIZE.body;
-  doc.font(options.bold ? FONT.bold : FONT.regular).fontSize(size).fillColor(options.color ?? COLOR.ink);
-  // Measuring the paragraph first would wrap it twice; three lines' room is all that is needed.
-  ensureSpace(doc, 3 * (size * 1.17 + 1.5));
-  doc.text(text, contentLeft(doc) + indent, doc.y, { width: contentWidth(doc) - indent, lineGap: 1.5 });
+  const bold = options.bold ?? false;
+  doc.font(bold ? FONT.bold : FONT.regular).fontSize(size);
+  // As pdfkit spaces the lines of its own wrapped text.
+  const lineHeight = doc.currentLineHeight(true) + LINE_GAP;
+  ensureSpace(doc, 3 * lineHeight);
+  for (const line of richLines(doc, text, contentWidth(doc) - indent, size, bold, true)) {
+    ensureSpace(doc, lineHeight);
+    drawRich(doc, line, contentLeft(doc) + indent, doc.y, { size, bold, color: options.color ?? COLOR.ink });
+    doc.y += lineHeight;
+  }
   doc.fillColor(COLOR.ink).font(FONT.regular).fontSize(SIZE.body);
   doc.x = contentLeft(doc);
   doc.y += options.gap ?? 4;
 }
+
+const LINE_GAP = 1.5;
 
 export interface FooterLines {
   left: string;

@@ -1,5 +1,6 @@
 import { contentBottom, contentLeft, contentWidth, type Doc } from './document.ts';
 import { FONT } from './fonts.ts';
+import { richLines, unbreakablePieces } from './rich-lines.ts';
 import { drawRich, richWidth } from './rich-text.ts';
 import { COLOR, SIZE } from './theme.ts';
 
@@ -90,33 +91,13 @@ interface CellLayout {
   height: number;
 }
 
-/** A space that joins the parts of one number: either side of ± or ×. */
-const JOINED = /(?<=[±×]) | (?=[±×])/g;
 const SMALLEST = 0.72;
 
-/** The pieces a cell may break between: its lines as written, then spaces outside numbers. */
-function pieces(line: string): string[] {
-  const marked = line.replace(JOINED, '\u0000');
-  return marked.split(' ').filter((p) => p !== '').map((p) => p.replace(/\u0000/g, ' '));
-}
-
 export function layoutCell(doc: Doc, text: string, width: number, size: number, bold: boolean): CellLayout {
-  const written = text.split('\n').map(pieces);
-  const widest = Math.max(0, ...written.flat().map((p) => richWidth(doc, p, size, bold)));
+  const widest = Math.max(0, ...text.split('\n').flatMap(unbreakablePieces).map((p) => richWidth(doc, p, size, bold)));
   // Shrunk to fit the widest piece, never below a legible size (a wider piece then runs into the padding).
   const cellSize = widest > width ? Math.max(SMALLEST * size, (size * width) / widest) : size;
-  const lines: string[] = [];
-  for (const words of written) {
-    let line = '';
-    for (const word of words) {
-      const next = line === '' ? word : `${line} ${word}`;
-      if (line !== '' && richWidth(doc, next, cellSize, bold) > width) {
-        lines.push(line);
-        line = word;
-      } else line = next;
-    }
-    lines.push(line);
-  }
+  const lines = richLines(doc, text, width, cellSize, bold);
   const lineHeight = cellSize + 2;
   return { lines, size: cellSize, lineHeight, height: lines.length * lineHeight };
 }

@@ -5,7 +5,7 @@ import { paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 
-/** A signal's place in a student's submission, in plain words. */
+/** A signal's place in a student's submission, in words (sub/superscript markup allowed: the table draws it). */
 export type SignalPlace = (path: string, studentId: string | null) => string;
 
 const RELATION = { identical: 'the same', offset: 'shifted by a constant', scaled: 'rescaled', edited: 'a few cells changed' } as const;

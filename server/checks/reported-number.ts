@@ -37,10 +37,28 @@ export function readReported(
     });
     from = fallbackUnit;
   }
+  return inUnit(reported, from, into);
+}
+
+/** The value and its uncertainty (kept positive) converted from `from` into `into`; throws EngineError for a unit that cannot be read. */
+function inUnit(reported: ReportedValue, from: string, into: string): ReadValue {
   const f = convert(1, from, into);
   return {
     value: Number(reported.value) * f,
     uncertainty: reported.uncertainty === undefined ? undefined : Math.abs(Number(reported.uncertainty) * f),
     unit: into,
   };
+}
+
+/**
+ * A reported value in `into` where its own unit can be read, else none: for values that are not
+ * graded (a k we have no k of ours for) but still enter the student's own line or fit, so no finding.
+ */
+export function readableIn(reported: ReportedValue, into: string): ReadValue | undefined {
+  try {
+    return inUnit(reported, reported.unit, into);
+  } catch (error) {
+    if (error instanceof EngineError) return undefined;
+    throw error;
+  }
 }

@@ -7,7 +7,7 @@ import type { Access } from './access.ts';
 import { identifyCaller } from './caller.ts';
 import { keepIdempotent, replayIdempotent } from './idempotency.ts';
 import { readUpload } from './multipart-csv.ts';
-import { ErrorResponse } from './schemas.ts';
+import { errorResponseAt } from './schemas.ts';
 import { resolveScope, type ScopeOf } from './scope.ts';
 import { openTransaction } from './transaction.ts';
 
@@ -73,8 +73,8 @@ export function defineRoute<S extends RouteSchema, Prepared = undefined>(route: 
   return route as unknown as RouteSpec;
 }
 
-/** Every route may answer with the common error body, at each status an error code has; the OpenAPI document says so. */
-const errorResponses = Object.fromEntries([...new Set(Object.values(apiErrors).map((e) => e.status))].map((status) => [status, ErrorResponse]));
+/** Every route may answer with the common error body, at each status an error code has, listing that status's codes; the OpenAPI document says so. */
+const errorResponses = Object.fromEntries([...new Set(Object.values(apiErrors).map((e) => e.status))].map((status) => [status, errorResponseAt(status)]));
 
 const prepareHook = (prepare: NonNullable<RouteSpec['prepare']>) =>
   async function prepareBeforeTransaction(request: FastifyRequest): Promise<void> {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { Text } from '../../schemas/common.ts';
-import { ErrorCode } from '../errors.ts';
+import { errorCatalogue, type ApiErrorCode } from '../errors.ts';
 
 /**
  * An id in a URL, written as the database writes it: digits without a sign, a leading zero, a point
@@ -24,12 +24,19 @@ export const IdParam = z
   .regex(ID_PATTERN, 'an id: digits, without a leading zero')
   .transform((text, ctx) => parseId(text) ?? (ctx.addIssue({ code: 'custom', message: `at most ${MAX_ID}` }), z.NEVER));
 
-export const ErrorResponse = z.object({
-  error: z.object({
-    code: ErrorCode,
-    message: z.string(),
-    details: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
-  }),
-});
+const errorBody = (code: z.ZodType) =>
+  z.object({
+    error: z.object({
+      code,
+      message: z.string(),
+      details: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+    }),
+  });
+
+/** The error body at one HTTP status, its `code` an enum of the codes that answer with that status. */
+export function errorResponseAt(status: number) {
+  const codes = errorCatalogue.filter((e) => e.status === status).map((e) => e.code);
+  return errorBody(z.enum(codes as [ApiErrorCode, ...ApiErrorCode[]]));
+}
 export const Name = Text(200);
 

@@ -1,4 +1,5 @@
-import { numberOrText, numberText, readTable, type Row } from './csv-table.ts';
+import { fileRows } from './csv-rows.ts';
+import { numberOrText, numberText, type Row } from './csv-table.ts';
 
 /**
  * The CSV layout of `first-order-catalysis` submissions: a readings file, one row per reading, and
@@ -8,7 +9,7 @@ import { numberOrText, numberText, readTable, type Row } from './csv-table.ts';
  * Only the layout itself (columns, field counts, agreement of a run's values) is checked here.
  */
 
-import type { CsvRowError, CsvSubmissions } from './csv-layout.ts';
+import type { CsvSubmissions } from './csv-layout.ts';
 
 
 // Required columns, lower case. Optional ones: infinity, lnf and temperature_c in the readings file,
@@ -50,25 +51,12 @@ interface SubmissionDraft {
 
 /** Parses a readings file and, when given, a reported-values file into Submission-shaped objects. */
 export function parseSubmissionsCsv(readingsText: string, reportedText?: string): CsvSubmissions {
-  const readings = readTable(readingsText, READINGS_COLUMNS);
-  const rowErrors: CsvRowError[] = readings.errors.map((e) => ({ file: 'readings', ...e }));
   const drafts = new Map<string, SubmissionDraft>();
-  const lines = new Map<string, number>();
-  for (const row of readings.rows) {
-    if (!lines.has(row.cell('student_id'))) lines.set(row.cell('student_id'), row.line);
-    const error = addReading(drafts, row, readings.decimalComma);
-    if (error) rowErrors.push({ file: 'readings', row: row.line, message: error });
-  }
-  if (reportedText !== undefined) {
-    const reported = readTable(reportedText, REPORTED_COLUMNS);
-    rowErrors.push(...reported.errors.map((e) => ({ file: 'reported' as const, ...e })));
-    for (const row of reported.rows) {
-      const error = addReported(drafts, row, reported.decimalComma);
-      if (error) rowErrors.push({ file: 'reported', row: row.line, message: error });
-    }
-  }
-  const decimalComma = readings.decimalComma;
-  return { submissions: [...drafts.values()].map((draft) => toSubmission(draft, decimalComma)), lines: [...drafts.keys()].map((id) => lines.get(id)!), rowErrors };
+  const { firstLine, rowErrors, decimalComma } = fileRows(
+    { file: 'readings', text: readingsText, columns: READINGS_COLUMNS, add: (row, comma) => addReading(drafts, row, comma) },
+    reportedText === undefined ? undefined : { file: 'reported', text: reportedText, columns: REPORTED_COLUMNS, add: (row, comma) => addReported(drafts, row, comma) },
+  );
+  return { submissions: [...drafts.values()].map((draft) => toSubmission(draft, decimalComma)), lines: [...drafts.keys()].map((id) => firstLine.get(id)!), rowErrors };
 }
 
 /** Files the row under its student and run; returns a message when the run's values disagree. */

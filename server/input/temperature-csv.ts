@@ -1,5 +1,6 @@
-import type { CsvRowError, CsvSubmissions } from './csv-layout.ts';
-import { numberOrText, numberText, readTable, type Row } from './csv-table.ts';
+import type { CsvSubmissions } from './csv-layout.ts';
+import { fileRows } from './csv-rows.ts';
+import { numberOrText, numberText, type Row } from './csv-table.ts';
 
 /**
  * The CSV layout of `temperature-dependence` submissions: a points file and optionally a reported-values
@@ -35,28 +36,16 @@ interface Draft {
 
 export function parseTemperatureCsv(pointsText: string, reportedText?: string): CsvSubmissions {
   const drafts = new Map<string, Draft>();
-  const points = readTable(pointsText, POINT_COLUMNS);
-  const rowErrors: CsvRowError[] = points.errors.map((e) => ({ file: 'points', ...e }));
-  const lines = new Map<string, number>();
-  for (const row of points.rows) {
-    if (!lines.has(row.cell('student_id'))) lines.set(row.cell('student_id'), row.line);
-    const error = addPointRow(drafts, row, points.decimalComma);
-    if (error) rowErrors.push({ file: 'points', row: row.line, message: error });
-  }
-  if (reportedText !== undefined) {
-    const reported = readTable(reportedText, REPORTED_COLUMNS);
-    rowErrors.push(...reported.errors.map((e) => ({ file: 'reported', ...e })));
-    for (const row of reported.rows) {
-      const error = addReported(drafts, row, reported.decimalComma);
-      if (error) rowErrors.push({ file: 'reported', row: row.line, message: error });
-    }
-  }
+  const { firstLine, rowErrors, decimalComma } = fileRows(
+    { file: 'points', text: pointsText, columns: POINT_COLUMNS, add: (row, comma) => addPointRow(drafts, row, comma) },
+    reportedText === undefined ? undefined : { file: 'reported', text: reportedText, columns: REPORTED_COLUMNS, add: (row, comma) => addReported(drafts, row, comma) },
+  );
   const submissions = [...drafts.values()].map(({ studentId, points: p, reported: r }) => ({
     studentId,
-    points: [...p.values()].map((point) => toPoint(point, points.decimalComma)),
+    points: [...p.values()].map((point) => toPoint(point, decimalComma)),
     ...(Object.keys(r).length > 0 && { reported: r }),
   }));
-  return { submissions, lines: [...drafts.keys()].map((id) => lines.get(id)!), rowErrors };
+  return { submissions, lines: [...drafts.keys()].map((id) => firstLine.get(id)!), rowErrors };
 }
 
 /** Files a row under its student and point; returns a message when the point's rows disagree. */

@@ -40,7 +40,7 @@ export const reportRoutes = [
     async handler({ db, server, scope }, reply) {
       const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
       const inputs = await sectionFeedback(db, sectionId, assignmentId);
-      const sheets = server.grader.renderSheets(inputs.map((input) => ({ name: input.header.studentId, input })));
+      const sheets = server.grader.renderSheets(inputs.map((input) => ({ input })));
       const name = documentName(placeOf(await reportNames(db, sectionId, assignmentId)), 'feedback', '.zip');
       return reply.type('application/zip').headers(attachment(name)).send(sectionZip(sheets));
     },

@@ -70,17 +70,6 @@ describe('the generators, on hand-written inputs with hand-written expected text
         },
       },
     };
-    const withCodes: OpenApiDocument = {
-      components: { schemas: { ErrorCode: { type: 'string', enum: ['not-found'] } } },
-      paths: {
-        '/v1/x': {
-          get: {
-            responses: { '200': {}, '404': { content: { 'application/json': { schema: { properties: { error: { properties: { code: { $ref: '#/components/schemas/ErrorCode' } } } } } } } } },
-          },
-        },
-      },
-    };
-    expect(endpointTable(withCodes).split('\n')[2]).toBe('| `GET /v1/x` |  | no token asked |  | 200; errors: 404 not-found |');
     expect(endpointTable(document).split('\n')[2]).toBe('| `POST /v1/things/{id}` | Make a thing | `instructor` | application/json: {name} | 201; errors: 400, 404 |');
     expect(errorTable([{ code: 'b', status: 404, message: 'm' }, { code: 'a', status: 400, message: 'n' }]).split('\n').slice(2)).toEqual(['| `a` | 400 | n |', '| `b` | 404 | m |']);
   });

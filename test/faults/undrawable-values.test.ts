@@ -39,7 +39,8 @@ describe('stored results with absurd values still give a feedback sheet each, an
     const res = await api.app.inject({ method: 'GET', url: `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/feedback.zip`, headers: bearer(s.taAToken) });
     expect(res.statusCode).toBe(200);
     const entries = await unzip(res.rawPayload);
-    expect(entries.map((e) => e.name).sort()).toEqual(['S-001.pdf', 'S-002.pdf', 'S-003.pdf']);
+    // Named for what each is, from the fixture's course, section and assignment (hand-written).
+    expect(entries.map((e) => e.name).sort()).toEqual([1, 2, 3].map((n) => `Physical_chemistry_lab_invented-A-Acid_catalysis_invented-S-00${n}-v1-feedback.pdf`));
     for (const e of entries) expect(e.data.subarray(0, 5).toString()).toBe('%PDF-');
   });
 });

@@ -208,7 +208,9 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     expect([pdf.statusCode, pdf.headers['content-type'], pdf.rawPayload.subarray(0, 5).toString()]).toEqual([200, 'application/pdf', '%PDF-']);
     const zip = await api.app.inject({ method: 'GET', url: `${url()}/feedback.zip`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(zip.statusCode).toBe(200);
-    expect(await zipEntryNames(zip.rawPayload)).toEqual(table.body.filter((r: { status: string }) => r.status === 'checked').map((r: { studentId: string }) => `${r.studentId}.pdf`));
+    // Each entry named as the sheet downloads alone: the fixture's course, section and assignment, the id and version (hand-written).
+    const checked = table.body.filter((r: { status: string }) => r.status === 'checked');
+    expect(await zipEntryNames(zip.rawPayload)).toEqual(checked.map((r: { studentId: string; version: number }) => `Physical_chemistry_lab_invented-A-Acid_catalysis_invented-${r.studentId}-v${r.version}-feedback.pdf`));
     const summary = await api.app.inject({ method: 'GET', url: `${url()}/summary.pdf`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(summary.rawPayload.subarray(0, 5).toString()).toBe('%PDF-');
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv?bom=true`, headers: { authorization: `Bearer ${s.taAToken}` } });

@@ -218,7 +218,7 @@ describe('books and releases through the API', () => {
     const row = async (): Promise<Row & { version: number; releasedVersion: number | null }> => (await call(api.app, 'GET', `${here}/results`, s.taAToken, undefined, 200)).body.find((r: Row) => r.studentId === 'S-001');
     const bookLine = async () => (await get(`${here}/gradebook.csv`)).body.split('\r\n').find((l) => l.startsWith('S-001,'));
     const sheet = async (id: number, query = '') => folded(await pdfText((await get(`/v1/submissions/${id}/feedback.pdf${query}`)).rawPayload));
-    const zipSheet = async () => folded(await pdfText((await unzip((await get(`${here}/feedback.zip`)).rawPayload)).find((e) => e.name === 'S-001.pdf')!.data));
+    const zipSheet = async () => folded(await pdfText((await unzip((await get(`${here}/feedback.zip`)).rawPayload)).find((e) => /^Physical_chemistry_lab_invented-A-Sucrose_inversion_invented-S-001-v\d+-feedback\.pdf$/.test(e.name))!.data));
 
     // Version 1: the slope reported as k, its sign lost: k's 2 points, 4 - 2 = 2.
     const v1 = (await call(api.app, 'POST', `${here}/submissions`, s.taAToken, [sucrose('-0.008698')], 201)).body.stored[0].submissionId;

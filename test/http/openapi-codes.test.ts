@@ -7,7 +7,7 @@ import { openApi, type Api } from '../support/api-fixture.ts';
 
 /**
  * The error codes are declared once (server/errors.ts) and the OpenAPI document lists them: every
- * route's error responses carry the enum of every code, at every status a code has; and every code
+ * route's error responses carry, at every status a code has, the enum of that status's codes; and every code
  * the server's source throws is one of the enum. The source is read as text, apart from the
  * compiler's view of it, so a code built some other way than the errors module would show here.
  */
@@ -33,7 +33,7 @@ describe('error codes, declared once and documented', () => {
     for (const e of errorCatalogue) expect(e.status, e.code).toBeGreaterThanOrEqual(400);
   });
 
-  it('every route of the table is in the OpenAPI document, and each error response lists every code', () => {
+  it('every route of the table is in the OpenAPI document, and each error response lists the codes of its status', () => {
     const statuses = [...new Set(errorCatalogue.map((e) => String(e.status)))];
     let checked = 0;
     for (const route of routes) {
@@ -42,7 +42,8 @@ describe('error codes, declared once and documented', () => {
       expect(operation, `${route.method} ${route.url}`).toBeDefined();
       for (const status of statuses) {
         const schema = operation.responses[status]?.content?.['application/json']?.schema;
-        expect(schema?.properties?.error?.properties?.code?.enum, `${route.method} ${route.url} ${status}`).toEqual(errorCodes);
+        const ofStatus = errorCatalogue.filter((e) => String(e.status) === status).map((e) => e.code);
+        expect(schema?.properties?.error?.properties?.code?.enum, `${route.method} ${route.url} ${status}`).toEqual(ofStatus);
         checked++;
       }
     }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatNumber, formatPercent, formatReported, formatTolerance, prettyUnit, printableMessage } from '../../reports/format.ts';
+import { formatNumber, formatPercent, formatReported, formatTolerance, prettyUnit, printableMessage, terminalMessage } from '../../reports/format.ts';
 import { convertUnit } from '../../reports/units.ts';
 import { niceAxis, tickLabel } from '../../reports/pdf/scale.ts';
 import { parseRich, plainRich } from '../../reports/pdf/rich-text.ts';
@@ -71,8 +71,17 @@ describe('plot scales and labels', () => {
 describe('printableMessage', () => {
   it('prints unit exponents as superscripts, e-notation as powers of ten and the minus sign', () => {
     expect(printableMessage('k_obs is -0.154 min^-1; the refit gives 1.044e-5 M^-1 min^-1 (x = -2)')).toBe(
-      'k_obs is \u22120.154 min⁻¹; the refit gives 1.044 × 10⁻⁵ M⁻¹ min⁻¹ (x = \u22122)',
+      'k_{obs} is \u22120.154 min⁻¹; the refit gives 1.044 × 10⁻⁵ M⁻¹ min⁻¹ (x = \u22122)',
     );
+  });
+  it('gives the symbols their subscripts (markup) and the quotes their curls; a column name keeps its underscore', () => {
+    // Hand-written: the printed forms of the symbols the checkers write.
+    expect(printableMessage('x_inf of run "0.05 M" differs from x_0; E_a, k_N, k_A, ln(k_B/h), ΔH‡ and ΔS‡; column temperature_c')).toBe(
+      'x_{∞} of run “0.05 M” differs from x_{0}; E_{a}, k_{N}, k_{A}, ln(k_{B}/h), ΔH^{‡} and ΔS^{‡}; column temperature_c',
+    );
+  });
+  it('writes the symbols for a terminal with their underscores, infinity as ∞', () => {
+    expect(terminalMessage('x_inf is 9.4; k_obs is 2e-3 min^-1')).toBe('x_∞ is 9.4; k_obs is 2 × 10⁻³ min⁻¹');
   });
   it('leaves hyphenated words alone', () => {
     expect(printableMessage('a log-base slip in run A-2')).toBe('a log-base slip in run A-2');

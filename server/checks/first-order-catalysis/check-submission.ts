@@ -16,7 +16,7 @@ import { runTemperatureDraft } from './run-temperature.ts';
 import { analyseRunsAsMeant } from './time-unit-plausibility.ts';
 import { theirUngradedK, unfittedRunDraft } from './unfitted-run.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
-import { itemPoints, scoredResult } from '../scored-result.ts';
+import { scoredResult } from '../scored-result.ts';
 import { rateLawGradable, rubricCounts } from './scoring.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
@@ -96,7 +96,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submitted: Submissi
   checkRateLaw(submission, rateLaw, settings, drafts);
   checkSigFigs(submission, settings, drafts);
 
-  const findings = scoreFindings(drafts, (key) => itemPoints(settings.rubric, key), firstOrderCauses.systematic);
+  const findings = scoreFindings(drafts, firstOrderCauses.systematic);
   const items = rubricCounts(settings, submission, { kRuns: undetermined.length, unfittedRuns: unfitted.map((a) => a.index), rateLaw: rateLawLeftOut });
   const refit: Refit = {
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),

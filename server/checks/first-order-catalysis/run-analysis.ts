@@ -9,6 +9,7 @@ import { fitGuggenheim } from '../../engine/guggenheim.ts';
 import { convert, parseUnit, type Unit } from '../../engine/units.ts';
 import { fmt } from '../format.ts';
 import { InputRejected } from '../input-rejected.ts';
+import { whyRunNotFitted } from '../run-not-fitted.ts';
 import { molarForNormality } from './catalyst-unit.ts';
 
 /** A run whose data give no fit at all: a finding on the run, and the rest of the submission is graded. */
@@ -91,14 +92,10 @@ function placeOf(runPath: string, error: EngineError): string {
   return m ? `${runPath}.readings[${m[2]}][${m[1] === 'times' ? 0 : 1}]` : `${runPath}.${field === 'infinity' ? 'infinity' : 'readings'}`;
 }
 
-/** Why a run's data give no fit, in words a student can act on. */
+/** Why a run's data give no fit, in words a student can act on; too few readings for the ln F line is this kind's own. */
 function whyNotFitted(run: SubmittedRun, error: EngineError): string {
-  if (error.code === 'too-few-points' && run.infinity === undefined) {
-    return `it has ${run.readings.length} readings and no x_inf: the exponential fit then finds x_0, x_inf and k together and needs at least 4 readings (with x_inf measured, 3 would do)`;
-  }
-  if (error.code === 'too-few-points') return `fewer than 3 of its readings lie on x_0's side of x_inf = ${fmt(run.infinity!)}, and ln F needs 3 to fit a line (${error.message})`;
-  if (error.code === 'no-convergence') return 'the exponential fit with x_inf fitted did not converge on these readings (they may not follow a first-order curve)';
-  return error.message;
+  if (error.code === 'too-few-points' && run.infinity !== undefined) return `fewer than 3 of its readings lie on x_0's side of x_inf = ${fmt(run.infinity)}, and ln F needs 3 to fit a line (${error.message})`;
+  return whyRunNotFitted(run, error);
 }
 
 function parseAt<T>(path: string, parse: () => T): T {

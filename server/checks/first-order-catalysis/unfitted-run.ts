@@ -1,7 +1,8 @@
 import type { SubmittedRun } from '../../../schemas/kinds/first-order-catalysis.ts';
-import { EngineError } from '../../engine/engine-error.ts';
-import { convert, rateUnitOf } from '../../engine/units.ts';
+import { rateUnitOf } from '../../engine/units.ts';
 import type { DraftFinding } from '../draft-finding.ts';
+import { readableIn } from '../reported-number.ts';
+import { runNotFittedDraft } from '../run-not-fitted.ts';
 import type { StudentK } from './check-run-k.ts';
 import type { UnfittedRun } from './run-analysis.ts';
 
@@ -10,16 +11,12 @@ import type { UnfittedRun } from './run-analysis.ts';
  * well as the run allowed). Its ln F column, k and SE leave the maximum; the rest is graded.
  */
 export function unfittedRunDraft(a: UnfittedRun): DraftFinding {
-  return {
-    code: 'run-not-fitted',
-    path: a.notFitted.path,
-    stage: 'run',
-    severity: 'warning',
-    charge: 0,
-    message:
-      `Run "${a.label}" cannot be fitted: ${a.notFitted.message}. Its k_obs (and ln F column) are not graded and are left out of the maximum; ` +
-      'the other runs and the rate law are graded without it.',
-  };
+  return runNotFittedDraft(
+    { path: a.notFitted.path, stage: 'run' },
+    `Run "${a.label}"`,
+    a.notFitted.message,
+    'Its k_obs (and ln F column) are not graded and are left out of the maximum; the other runs and the rate law are graded without it.',
+  );
 }
 
 /**
@@ -27,13 +24,5 @@ export function unfittedRunDraft(a: UnfittedRun): DraftFinding {
  * rate unit, for the line through their own k_obs; none if its unit cannot be read.
  */
 export function theirUngradedK(run: SubmittedRun, a: Pick<UnfittedRun, 'timeUnit'>): StudentK | undefined {
-  const k = run.reported?.k;
-  if (!k) return undefined;
-  try {
-    const f = convert(1, k.unit, rateUnitOf(a.timeUnit));
-    return { value: Number(k.value) * f, uncertainty: k.uncertainty === undefined ? undefined : Math.abs(Number(k.uncertainty) * f) };
-  } catch (error) {
-    if (error instanceof EngineError) return undefined;
-    throw error;
-  }
+  return run.reported?.k && readableIn(run.reported.k, rateUnitOf(a.timeUnit));
 }

@@ -9,7 +9,7 @@ import { checkValue } from '../check-value.ts';
 import { roundingOf, roundingOfUncertainty } from '../rounding-rule.ts';
 import { outsideBand } from '../reference-band.ts';
 import { scoreFindings, type DraftFinding } from '../draft-finding.ts';
-import { itemPoints, scoredResult } from '../scored-result.ts';
+import { scoredResult } from '../scored-result.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT, type Candidate, type Factor } from '../explain.ts';
 import { readReported } from '../reported-number.ts';
 import { caloriesWrongWay } from './calories-wrong-way.ts';
@@ -164,7 +164,7 @@ export function checkTemperatureDependence(settings: Settings, submitted: Submis
     settings.rubric.sigFigs,
     drafts,
   );
-  const findings = scoreFindings(drafts, (key) => itemPoints(settings.rubric, key), temperatureCauses.systematic);
+  const findings = scoreFindings(drafts, temperatureCauses.systematic);
   const refit = {
     Ea: analysis.Ea,
     A: analysis.A,

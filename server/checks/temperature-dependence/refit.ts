@@ -11,6 +11,7 @@ import { convertEstimate } from '../convert-estimate.ts';
 import { fmt } from '../format.ts';
 import type { DraftFinding } from '../draft-finding.ts';
 import { InputRejected } from '../input-rejected.ts';
+import { runNotFittedDraft, whyRunNotFitted } from '../run-not-fitted.ts';
 import { implausibleTemperature, implausibleTemperatureDraft, inKelvin } from '../temperature-plausibility.ts';
 
 /** The four values of the two fits in base units (J mol^-1, s^-1, J mol^-1, J K^-1 mol^-1), and the standard error of E_a. */
@@ -70,8 +71,7 @@ function refitRun(run: PointRun): { k: Estimate; alsoRight: number[] } | { notFi
     exponential = fitFirstOrderNonlinear(data, { infinity: run.infinity === undefined ? 'fitted' : 'fixed' });
   } catch (error) {
     if (!(error instanceof EngineError) || UNIT_ERRORS.has(error.code)) throw error;
-    const few = error.code === 'too-few-points' && run.infinity === undefined;
-    return { notFitted: few ? `it has ${run.readings.length} readings and no x_inf, and the exponential fit then needs at least 4` : error.message, field: error.field === 'infinity' ? 'infinity' : 'readings' };
+    return { notFitted: whyRunNotFitted(run, error), field: error.field === 'infinity' ? 'infinity' : 'readings' };
   }
   const alsoRight: number[] = [];
   if (run.infinity !== undefined) {
@@ -106,14 +106,7 @@ function kelvinOf(p: Point, i: number, notes: DraftFinding[]): number {
 
 /** The finding on a point given as a run whose readings give no k: it leaves the fit, which the rest still makes. */
 function unfittedRunDraft(p: Point, path: string, why: string): DraftFinding {
-  return {
-    code: 'run-not-fitted',
-    path,
-    stage: 'runs',
-    severity: 'warning',
-    charge: 0,
-    message: `The run at ${p.label} cannot be fitted: ${why}. Its k is not graded, and the point is left out of the fits of E_a and the rest, which are made from the other points.`,
-  };
+  return runNotFittedDraft({ path, stage: 'runs' }, `The run at ${p.label}`, why, 'Its k is not graded, and the point is left out of the fits of E_a and the rest, which are made from the other points.');
 }
 
 /**

@@ -1,7 +1,6 @@
 import type { Submission } from '../../../schemas/kinds/temperature-dependence.ts';
-import { EngineError } from '../../engine/engine-error.ts';
 import type { TemperaturePoint } from '../../engine/temperature-dependence.ts';
-import { convert } from '../../engine/units.ts';
+import { readableIn } from '../reported-number.ts';
 import type { TemperatureAnalysis } from './refit.ts';
 
 /**
@@ -11,14 +10,8 @@ import type { TemperatureAnalysis } from './refit.ts';
  */
 export function theirUnfittedPoints(submission: Submission, analysis: Pick<TemperatureAnalysis, 'unfitted'>): TemperaturePoint[] {
   return analysis.unfitted.flatMap(({ index, temperature }) => {
-    const k = submission.points[index].run?.reported?.k;
-    if (!k) return [];
-    try {
-      const se = k.uncertainty === undefined ? undefined : Math.abs(convert(Number(k.uncertainty), k.unit, 's^-1'));
-      return [{ temperature, k: convert(Number(k.value), k.unit, 's^-1'), standardError: se }];
-    } catch (error) {
-      if (error instanceof EngineError) return [];
-      throw error;
-    }
+    const reported = submission.points[index].run?.reported?.k;
+    const k = reported && readableIn(reported, 's^-1');
+    return k ? [{ temperature, k: k.value, standardError: k.uncertainty }] : [];
   });
 }
