@@ -5,6 +5,7 @@ import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { rubricBreakdown } from '../../reports/feedback/rubric-breakdown.ts';
 import { feedbackSheet } from '../../kinds/documents.ts';
 import { printableMessage } from '../../reports/format.ts';
+import { plainRich } from '../../reports/pdf/rich-text.ts';
 import { slipCase, slipCodes, type SlipCode } from '../../server/demo/submission-generator.ts';
 import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
 import { feedbackInput } from './fixtures.ts';
@@ -112,9 +113,9 @@ describe('feedback sheets for every kind of slip', () => {
     const text = folded(raw);
     expect(text).toContain(submission.studentId);
     // Every finding shows: the first place of a cause with its message, every other place by name.
-    const describe = (path: string) => firstOrderCatalysisReport.describePath(path, submission).replace(/\^\{([^}]*)\}/g, '$1').replace(/_\{([^}]*)\}/g, '_$1');
+    const describe = (path: string) => plainRich(firstOrderCatalysisReport.describePath(path, submission));
     for (const f of result.findings) {
-      const message = folded(printableMessage(f.message).slice(0, 50));
+      const message = folded(plainRich(printableMessage(f.message)).slice(0, 50));
       if (!text.includes(message)) expect(text).toContain(folded(describe(f.path)));
     }
     // One card per likely cause: a cause that recurs, in any stage, is one card; a value that only follows
