@@ -37,7 +37,7 @@ export const firstOrderCatalysisDescription: KindDescription = {
         'tolerances.rateLawUncertainty': 'SEs of k_{N} and k_{A}',
         displayStep: 'Display step of a reading',
         instrumentNoise: { label: 'Stated noise of one reading (SD)', help: 'optional: leave empty to compare with the section alone' },
-        'temperature.maxSpread': { label: 'Largest spread of run temperatures', unit: 'degC' },
+        'temperature.maxSpread': { label: 'Largest spread of run temperatures', unit: '°C' },
         'temperature.required': 'Each run records its temperature',
         'rubric.readings': 'Readings, per run (with a class dataset)',
         'rubric.lnF': 'ln F column, per run',

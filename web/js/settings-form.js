@@ -116,7 +116,7 @@ function controlsOf(field, value, id) {
       /** @type {HTMLInputElement} */
       const input = h('input', { id, type: 'number', step: 'any', min: '0', value: relative ? shown(start.relative, 100) : shown(start.absolute) });
       /** @type {HTMLSelectElement} */
-      const how = h('select', { 'aria-label': `${plain(field.label)}: relative or absolute` }, h('option', { value: 'relative', selected: relative }, '% of the value'), h('option', { value: 'absolute', selected: !relative }, field.unit ? `absolute, ${plain(field.unit)}` : 'absolute'));
+      const how = h('select', { 'aria-label': `${plain(field.label)}: relative or absolute` }, h('option', { value: 'relative', selected: relative }, '% of value'), h('option', { value: 'absolute', selected: !relative }, 'absolute'));
       const read = () => (how.value === 'relative' ? { relative: numberOf(input, 100) } : { absolute: numberOf(input) });
       return { controls: [h('span', { class: 'tolerance' }, input, how)], control: { field, focus: input, read } };
     }
@@ -147,7 +147,9 @@ function kindForm({ courseId, assignment, done, failure }, kind) {
     const message = h('span', { class: 'form-error', id: `${id(path)}-message`, role: 'alert' });
     described.setAttribute('aria-describedby', message.id);
     messages.set(path, message);
-    return h('div', { class: 'field' }, h('label', { for: id(path) }, marked(label)), ...inputs, hint ? h('span', { class: 'hint' }, hint) : null, message);
+    // A yes-or-no reads as the box and its words on one line.
+    const labelled = described instanceof HTMLInputElement && described.type === 'checkbox' ? [h('label', { class: 'check' }, ...inputs, ' ', marked(label))] : [h('label', { for: id(path) }, marked(label)), ...inputs];
+    return h('div', { class: 'field' }, ...labelled, hint ? h('span', { class: 'hint' }, hint) : null, message);
   }
 
   /** @param {FormField} field */
@@ -155,8 +157,12 @@ function kindForm({ courseId, assignment, done, failure }, kind) {
     const { controls: inputs, control } = controlsOf(field, valueAt(assignment?.settings, field.name), id(field.name));
     controls.push(control);
     const unit = field.type === 'number' && field.unit ? `, ${field.unit}` : '';
-    const help = [field.help, field.type === 'number' && field.optional && !field.help ? 'optional' : undefined].filter(Boolean).join('; ');
-    return fieldBox(field.name, `${field.label}${unit}`, inputs, help || undefined, control.focus);
+    const absoluteIn = field.type === 'tolerance' && field.unit ? `absolute in ${field.unit}` : undefined;
+    const help = [field.help, field.type === 'number' && field.optional && !field.help ? 'optional' : undefined, absoluteIn].filter(Boolean).join('; ');
+    const box = fieldBox(field.name, `${field.label}${unit}`, inputs, help || undefined, control.focus);
+    // A choice worded at length takes two columns, so that it reads whole.
+    if (field.type === 'select' && Math.max(...field.options.map((o) => plain(o.label).length)) > 24) box.classList.add('wide');
+    return box;
   }
 
   /** @type {HTMLInputElement} */
