@@ -83,6 +83,7 @@ describe.skipIf(!chromiumPresent)('every kind in the workspace', () => {
     await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${assignment.id}`);
     await page.getByText('Add submissions').click();
     for (const file of description.upload.csv ?? []) await page.locator('.csv-columns').getByText(`${file.name}.csv`, { exact: true }).waitFor();
+    await page.locator('details.upload').screenshot({ path: join(SHOTS, `upload-${kind}.png`) });
     await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${assignment.id}/submission/${stored[0].submissionId}`);
     await page.locator('svg.plot').first().waitFor();
     expect(await page.locator('table.comparison tbody tr').count()).toBeGreaterThan(0);
