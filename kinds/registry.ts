@@ -1,4 +1,5 @@
 import type { DrawnKind, KindReport } from '../reports/kind-report.ts';
+import type { KindDescription } from '../schemas/api/kinds.ts';
 import type { ExperimentKind } from '../server/checks/experiment-kind.ts';
 import { firstOrderCatalysis } from '../server/checks/first-order-catalysis/kind.ts';
 import { temperatureDependence } from '../server/checks/temperature-dependence/kind.ts';
@@ -46,4 +47,9 @@ export async function drawnKind(name: string): Promise<DrawnKind> {
 /** Its stages, in order, with their titles. */
 export function stagesOf(name: string): ExperimentKind['stages'] {
   return kinds.get(name)?.checker.stages ?? [];
+}
+
+/** Every kind as the workspace draws it, in the order they were registered. */
+export async function kindDescriptions(): Promise<KindDescription[]> {
+  return Promise.all([...kinds.values()].map(async (kind) => (await kind.report()).description));
 }

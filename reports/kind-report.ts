@@ -1,3 +1,4 @@
+import type { KindDescription } from '../schemas/api/kinds.ts';
 import type { KindDisplay } from '../schemas/display.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import type { FeedbackInput, SectionSummaryInput } from './feedback-input.ts';
@@ -10,6 +11,8 @@ import type { Doc } from './pdf/document.ts';
  * the same for every kind. Settings and submissions arrive as the kind's schemas parsed them.
  */
 export interface KindReport {
+  /** What the workspace draws the kind's settings form, upload panel and signals panel from. */
+  description: KindDescription;
   /** A finding's or signal's place in words, with sub/superscript markup: `runs[2].reported.k` → Run “0.20 M”: k_{obs}. */
   describePath(path: string, submission: unknown): string;
   /** The score taken apart by rubric item. */

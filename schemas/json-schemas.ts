@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import * as firstOrderCatalysis from './kinds/first-order-catalysis.ts';
 import * as temperatureDependence from './kinds/temperature-dependence.ts';
+import { KindList } from './api/kinds.ts';
 import { CheckResult } from './result.ts';
 import { fastPathAsExact } from './common.ts';
 
@@ -14,5 +15,6 @@ export function jsonSchemas(): Record<string, unknown> {
       ]),
     ),
     'check-result.schema.json': z.toJSONSchema(CheckResult, { io: 'output' }),
+    'kinds.schema.json': z.toJSONSchema(KindList, { io: 'output' }),
   };
 }

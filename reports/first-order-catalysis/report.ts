@@ -9,6 +9,7 @@ import { drawRunPlots } from '../feedback/run-plots.ts';
 import { allRunSeries } from '../feedback/run-series.ts';
 import { drawValues } from '../feedback/values-block.ts';
 import { readRefit } from '../refit.ts';
+import { firstOrderCatalysisDescription } from './description.ts';
 import { firstOrderCatalysisDisplay } from './display.ts';
 import { drawRateConstants } from './summary-rate-constants.ts';
 
@@ -17,6 +18,7 @@ import { drawRateConstants } from './summary-rate-constants.ts';
  * run, k_obs against [catalyst] and residuals on the sheet; the class's k_N and k_A in the summary.
  */
 export const firstOrderCatalysisReport: KindReport = {
+  description: firstOrderCatalysisDescription,
   // A refused submission may not have the shape of one; its places are then named as written.
   describePath: (path, submission) => describePath(path, Array.isArray((submission as Partial<Submission> | undefined)?.runs) ? (submission as Submission) : undefined),
   rubricBreakdown: (settings, submission, result) => rubricBreakdown(settings as Settings, submission as Submission, result),

@@ -3,6 +3,7 @@ import type { KindReport } from '../kind-report.ts';
 import { rubricLinesOf } from '../feedback/rubric-breakdown.ts';
 import { drawArrheniusPlot } from './arrhenius-plot.ts';
 import { drawClassActivation } from './class-activation.ts';
+import { temperatureDependenceDescription } from './description.ts';
 import { temperatureDependenceDisplay } from './display.ts';
 import { SYMBOLS } from './symbols.ts';
 import { VALUE_COLUMNS, valueRows } from './value-rows.ts';
@@ -38,6 +39,7 @@ function describe(path: string, submission: Submission | undefined): string {
  * plot on the sheet; the class's activation energies in the summary.
  */
 export const temperatureDependenceReport: KindReport = {
+  description: temperatureDependenceDescription,
   describePath: (path, submission) => describe(path, Array.isArray((submission as Partial<Submission> | undefined)?.points) ? (submission as Submission) : undefined),
   rubricBreakdown: (_settings, _submission, result) => rubricLinesOf(result, RUBRIC_LABELS),
   drawSheetData(doc, input) {

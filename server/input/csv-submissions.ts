@@ -14,8 +14,8 @@ import type { CsvSubmissions } from './csv-layout.ts';
 
 // Required columns, lower case. Optional ones: infinity, lnf and temperature_c in the readings file,
 // uncertainty in the reported file. Any other column is ignored, so a spreadsheet may keep notes.
-const READINGS_COLUMNS = ['student_id', 'run', 'catalyst', 'catalyst_unit', 'time_unit', 't', 'x'];
-const REPORTED_COLUMNS = ['student_id', 'run', 'quantity', 'value', 'unit'];
+export const READINGS_COLUMNS = ['student_id', 'run', 'catalyst', 'catalyst_unit', 'time_unit', 't', 'x'];
+export const REPORTED_COLUMNS = ['student_id', 'run', 'quantity', 'value', 'unit'];
 
 /** Values that belong to a run rather than to a reading; they may repeat on each row or appear once. */
 const RUN_COLUMNS = ['catalyst', 'catalyst_unit', 'time_unit', 'infinity', 'temperature_c'] as const;

@@ -11,8 +11,8 @@ import { numberOrText, numberText, type Row } from './csv-table.ts';
  * - Reported: `student_id, quantity, value, unit` (optionally `uncertainty`), quantity one of Ea, A,
  *   dH, dS, or `k` with the run's `label` for the k a student found from that run.
  */
-const POINT_COLUMNS = ['student_id', 'label', 'temperature', 'temperature_unit'];
-const REPORTED_COLUMNS = ['student_id', 'quantity', 'value', 'unit'];
+export const POINT_COLUMNS = ['student_id', 'label', 'temperature', 'temperature_unit'];
+export const REPORTED_COLUMNS = ['student_id', 'quantity', 'value', 'unit'];
 const QUANTITIES = ['Ea', 'A', 'dH', 'dS'];
 
 interface ReportedText {

@@ -1,6 +1,7 @@
 import type { RouteSpec } from '../http/route-table.ts';
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
+import { kindRoutes } from './kinds.ts';
 import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
 import { resultRoutes } from './results.ts';
@@ -14,6 +15,7 @@ import { submissionRoutes } from './submissions.ts';
 export const routes: RouteSpec[] = [
   ...sessionRoutes,
   ...meRoutes,
+  ...kindRoutes,
   ...courseRoutes,
   ...rosterRoutes,
   ...assignmentRoutes,

@@ -249,7 +249,8 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
     const panel = page.locator('article', { has: page.getByRole('heading', { name: s.assignment.title }) });
     await panel.getByText('Edit the settings').click();
-    const k = panel.getByLabel('k_obs, %', { exact: true });
+    // The tolerance on k_obs, relative, shown in per cent.
+    const k = panel.locator('fieldset', { has: page.locator('legend', { hasText: 'Tolerances' }) }).getByLabel('kobs', { exact: true });
     await k.fill('-5');
     await panel.getByRole('button', { name: 'Save the settings' }).click();
     const beside = panel.locator(`#${await k.getAttribute('id')}-message`);
@@ -298,7 +299,7 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     await page.close();
   });
 
-  it('lets an instructor create an assignment of the second kind and edit its settings as JSON, with the messages by field', async () => {
+  it('lets an instructor create an assignment of the second kind and edit its settings in its form, with the messages by field', async () => {
     const page = await browser.newPage();
     const pageErrors = await signInWatchingErrors(page, s.instructorToken);
     await page.getByRole('link', { name: 'Manage the course: assignments, rosters, staff' }).click();
@@ -309,13 +310,16 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     const panel = page.locator('article', { has: page.getByRole('heading', { name: 'Activation energy (invented)' }) });
     await panel.waitFor();
     await panel.getByText('Edit the settings').click();
-    const json = panel.getByLabel(/^Settings \(JSON/);
-    const settings = JSON.parse(await json.inputValue());
-    expect(settings).toMatchObject({ kind: 'temperature-dependence', fit: 'ordinary' });
-    await json.fill(JSON.stringify({ ...settings, tolerances: { ...settings.tolerances, Ea: { relative: -1 } } }));
+    // The schema's defaults, as the form shows them: E_a within 2 % (from the kind's settings schema).
+    const tolerances = panel.locator('fieldset', { has: page.locator('legend', { hasText: 'Tolerances' }) });
+    const ea = tolerances.getByLabel('Ea', { exact: true });
+    expect(await ea.inputValue()).toBe('2');
+    await ea.fill('-1');
     await panel.getByRole('button', { name: 'Save the settings' }).click();
-    await panel.getByText(/^tolerances\.Ea\.relative: /).waitFor();
-    await json.fill(JSON.stringify({ ...settings, fit: 'weighted' }));
+    await panel.getByText('The settings were not saved: 1 field to correct.').waitFor();
+    expect(await tolerances.locator('.form-error').filter({ hasText: /\S/ }).count()).toBe(1);
+    await ea.fill('2');
+    await panel.getByLabel('ln k against 1/T').selectOption('weighted');
     await panel.getByRole('button', { name: 'Save the settings' }).click();
     await panel.getByText(/^Settings version 2 saved/).waitFor();
     expect(pageErrors).toEqual([]);

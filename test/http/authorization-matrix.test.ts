@@ -38,6 +38,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   // Without a session cookie, signing out has nothing to end and clears the cookie all the same.
   'DELETE /v1/session': () => ({ url: '/v1/session' }),
   'GET /v1/me': () => ({ url: '/v1/me' }),
+  'GET /v1/kinds': () => ({ url: '/v1/kinds' }),
   'GET /v1/courses': () => ({ url: '/v1/courses' }),
   'POST /v1/courses': () => ({ url: '/v1/courses', body: { name: `Course ${unique()}` } }),
   'GET /v1/courses/:courseId': (f) => ({ url: `/v1/courses/${f.course.id}` }),

@@ -4,6 +4,7 @@ import type { ExperimentKind } from '../../server/checks/experiment-kind.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
 import type { KindReport } from '../../reports/kind-report.ts';
 import { paragraph, sectionHeading } from '../../reports/pdf/document.ts';
+import { settingsForm } from '../../reports/display/settings-form.ts';
 
 /**
  * A tiny experiment kind that exists only in the test suite, to show that a kind is one registration
@@ -79,6 +80,14 @@ export const zeroOrderKind: ExperimentKind<Settings, Submission> = {
 
 /** Its parts of the documents: one line of values on the sheet, one in the summary. */
 export const zeroOrderReport: KindReport = {
+  description: {
+    kind: ZERO_ORDER,
+    title: 'A zero-order line',
+    quantities: [{ id: 'k', label: 'rate constant', symbol: 'k', unit: 'M s^-1' }],
+    settings: { form: settingsForm(Settings, { groups: [{ label: 'Grading', keys: ['tolerance', 'points'] }], kept: [], words: { tolerance: 'Tolerance on k (a share)', points: 'Points for k' } }) },
+    upload: { json: true },
+    signals: { unit: 'line', reportedValue: 'reported k', codes: [] },
+  },
   describePath: (path) => (path === 'reported.k' ? 'k of the line' : path),
   rubricBreakdown: (settings, _submission, result) => {
     const each = (settings as Settings).points;

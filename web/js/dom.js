@@ -117,3 +117,6 @@ export function marked(text) {
     return m ? h(m[1] === '_' ? 'sub' : 'sup', {}, m[2]) : part;
   });
 }
+
+/** The text a reader of the markup sees, where no element can carry it (an option, a title): `x_{0}` → `x0`. @param {string} text */
+export const plain = (text) => text.replace(/[_^]\{([^}]*)\}/g, '$1');

@@ -1,4 +1,4 @@
-import { s } from './dom.js';
+import { plain, s } from './dom.js';
 
 /**
  * A plot the server describes (GET /v1/submissions/{id}/display), drawn as SVG: its axes with the ticks
@@ -36,9 +36,6 @@ function svgMarked(text) {
       return m ? s('tspan', { 'baseline-shift': m[1] === '_' ? 'sub' : 'super', 'font-size': '75%' }, m[2]) : s('tspan', { 'baseline-shift': 'baseline' }, part);
     });
 }
-
-/** The text a reader of the markup sees: `k_{obs}` → `kobs`. @param {string} text */
-const plain = (text) => text.replace(/[_^]\{([^}]*)\}/g, '$1');
 
 /** A hollow diamond centred at (x, y), so that a disc under it stays visible. @param {number} x @param {number} y @param {string} colour */
 const diamond = (x, y, colour) => s('path', { class: 'point', transform: `translate(${x} ${y})`, d: 'M 0 -5 L 5 0 L 0 5 L -5 0 Z', fill: 'none', stroke: colour, 'stroke-width': 1.6 });

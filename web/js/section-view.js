@@ -1,6 +1,7 @@
 import { api } from './api.js';
-import { fill, h, num } from './dom.js';
+import { fill, h, marked, num } from './dom.js';
 import { askToConfirm } from './confirm.js';
+import { kindDescription } from './kinds.js';
 import { uploadPanel } from './upload-panel.js';
 
 /**
@@ -9,6 +10,7 @@ import { uploadPanel } from './upload-panel.js';
  * @import { MyCourse } from '../../schemas/api/me.ts'
  * @import { Released, ResultRow } from '../../schemas/api/results.ts'
  * @import { RunMatch, SectionSignals } from '../../schemas/api/signals.ts'
+ * @import { KindDescription } from '../../schemas/api/kinds.ts'
  */
 /**
  * The section and assignment a view shows, and their course, as the caller's listing names them.
@@ -68,10 +70,18 @@ const STATUS_WORDS = { checked: 'checked', rejected: 'refused', 'not-submitted':
 const RELATION_WORDS = { identical: 'the same readings', offset: 'the same readings shifted by a constant', scaled: 'the same readings rescaled', edited: 'the same readings with a few cells changed' };
 
 /**
- * Signals across the section, shown only when there are some, worded as prompts for review.
- * @param {SectionSignals} signals
+ * The words of a kind the service no longer describes: the signals still read, in general terms.
+ * @type {KindDescription['signals']}
  */
-function signalsPanel(signals) {
+const GENERAL_WORDS = { unit: 'part', reportedValue: 'reported value', codes: [] };
+
+/**
+ * Signals across the section, shown only when there are some, worded as prompts for review in the
+ * kind's words (what a compared unit is called, which value is compared digit by digit).
+ * @param {SectionSignals} signals
+ * @param {KindDescription['signals']} words
+ */
+function signalsPanel(signals, words) {
   if (signals.pairs.length === 0 && signals.smooth.length === 0) return null;
   const alike = signals.pairs.length
     ? [
@@ -85,9 +95,9 @@ function signalsPanel(signals) {
               'li',
               {},
               `${p.students[0]} and ${p.students[1]}: `,
-              p.runs.length ? `${p.runs.length} run${p.runs.length === 1 ? '' : 's'} with ${[...new Set(p.runs.map((r) => RELATION_WORDS[r.relation]))].join(', ')}` : '',
+              p.runs.length ? `${plural(p.runs.length, words.unit)} with ${[...new Set(p.runs.map((r) => RELATION_WORDS[r.relation]))].join(', ')}` : '',
               p.runs.length && p.sameReportedK.length ? '; ' : '',
-              p.sameReportedK.length ? `${p.sameReportedK.length} reported k written alike to every digit` : '',
+              p.sameReportedK.length ? [`${p.sameReportedK.length} `, marked(words.reportedValue), ' written alike to every digit'] : '',
               '.',
             ),
           ),
@@ -102,7 +112,7 @@ function signalsPanel(signals) {
           'ul',
           {},
           signals.smooth.map((r) =>
-            h('li', {}, `${r.studentId}, run ${r.label}: the readings scatter ${num(r.residualSD)} about the curve, no more than rounding to ${num(r.step)} alone gives; the section's runs scatter ${num(r.sectionMedianSD)} (median).`),
+            h('li', {}, `${r.studentId}, ${words.unit} ${r.label}: the readings scatter ${num(r.residualSD)} about the curve, no more than rounding to ${num(r.step)} alone gives; the section's runs scatter ${num(r.sectionMedianSD)} (median).`),
           ),
         ),
       ]
@@ -124,6 +134,7 @@ function signalsPanel(signals) {
  */
 export async function sectionView(place, failure) {
   const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
+  const kind = await kindDescription(place.assignment.kind);
   /** @type {{ status: string, code: string, search: string, sort: Column, descending: boolean }} */
   const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
   let rows = /** @type {ResultRow[]} */ (await api('GET', `${base}/results`));
@@ -132,7 +143,7 @@ export async function sectionView(place, failure) {
   const signalsSlot = h('div', { 'aria-live': 'polite' });
   const loadSignals = () =>
     api('GET', `${base}/signals`).then(
-      (signals) => fill(signalsSlot, signalsPanel(/** @type {SectionSignals} */ (signals))),
+      (signals) => fill(signalsSlot, signalsPanel(/** @type {SectionSignals} */ (signals), kind?.signals ?? GENERAL_WORDS)),
       () => fill(signalsSlot, h('p', { class: 'hint' }, 'The signals for review could not be loaded; reload the page to try again.')),
     );
   loadSignals();
@@ -282,7 +293,7 @@ export async function sectionView(place, failure) {
         h('a', { href: `${base}/feedback.zip`, download: '' }, 'Every feedback sheet (ZIP)'),
       ),
     ),
-    uploadPanel(base, refresh, failure),
+    uploadPanel(base, kind?.upload ?? { json: true }, refresh, failure),
     signalsSlot,
     counts,
     h(

@@ -1,13 +1,12 @@
 import { api, ApiFailure } from './api.js';
-import { fill, h } from './dom.js';
+import { fill, h, marked, plain } from './dom.js';
+import { kinds } from './kinds.js';
 
 /**
  * @import { Failure } from './api.js'
- * @import { Tolerance } from '../../schemas/common.ts'
  * @import { Assignment } from '../../schemas/api/assignments.ts'
- * @import { Rubric, Settings, SettingsInput, Tolerances } from '../../schemas/kinds/first-order-catalysis.ts'
+ * @import { FormField, KindDescription } from '../../schemas/api/kinds.ts'
  */
-/** @typedef {[value: string, label: string][]} Choices */
 /**
  * @typedef {object} SettingsFormOptions
  * @property {Assignment} [assignment] to edit
@@ -15,231 +14,189 @@ import { fill, h } from './dom.js';
  * @property {(saved: Assignment) => void} done
  * @property {Failure} failure
  */
-
 /**
- * An assignment's settings as a form. The service validates them with the same schema as the API and
- * its messages appear beside the fields they name. Parts the form does not show (a class dataset,
- * reference bands) are kept as they are.
+ * A field's controls and how its value is read back into the settings.
+ * @typedef {{ field: FormField, focus: HTMLElement, read: () => unknown }} Control
  */
-/** @type {Record<'fitModel' | 'rateLawFit' | 'weightedErrors', Choices>} */
-const CHOICES = {
-  fitModel: [['origin', 'ln F = -k t (through the origin)'], ['intercept', 'ln F = a - k t (with an intercept)']],
-  rateLawFit: [['ordinary', 'ordinary least squares'], ['weighted', 'weighted by 1/SE² of each k_obs']],
-  weightedErrors: [['either', 'either convention'], ['absolute', 'SEs of k_obs taken as absolute'], ['scaled', 'scaled by the scatter about the line']],
-};
-/** @type {['k' | 'kN' | 'kA', string][]} */
-const UNITS = [['k', 'k_obs'], ['kN', 'k_N'], ['kA', 'k_A']];
-// [key, label, kind]: relative tolerances are shown in per cent, absolute ones in the quantity's unit.
-/** @type {[keyof Tolerances, string, 'relative' | 'absolute'][]} */
-const TOLERANCES = [
-  ['reading', 'Readings (deg)', 'absolute'],
-  ['lnF', 'ln F entries', 'absolute'],
-  ['k', 'k_obs', 'relative'],
-  ['kUncertainty', 'SE of k_obs', 'relative'],
-  ['kN', 'k_N', 'relative'],
-  ['kA', 'k_A', 'relative'],
-  ['rateLawUncertainty', 'SEs of k_N and k_A', 'relative'],
-];
-/** @type {[keyof Rubric, string][]} */
-const RUBRIC = [
-  ['readings', 'Readings, per run (with a class dataset)'],
-  ['lnF', 'ln F column, per run'],
-  ['k', 'k_obs, per run'],
-  ['kUncertainty', 'SE of k_obs, per run'],
-  ['kN', 'k_N'],
-  ['kNUncertainty', 'SE of k_N'],
-  ['kA', 'k_A'],
-  ['kAUncertainty', 'SE of k_A'],
-  ['sigFigs', 'Rounding, once'],
-];
-
-/**
- * The schema's defaults, which a new assignment's form starts from.
- * @satisfies {SettingsInput}
- */
-const DEFAULTS = {
-  kind: 'first-order-catalysis',
-  fitModel: 'origin',
-  rateLawFit: 'ordinary',
-  weightedErrors: 'either',
-  units: { k: 'min^-1', kN: 'min^-1', kA: 'M^-1 min^-1' },
-  tolerances: { reading: { absolute: 0.0005 }, lnF: { absolute: 0.002 }, k: { relative: 0.01 }, kUncertainty: { relative: 0.25 }, kN: { relative: 0.02 }, kA: { relative: 0.02 }, rateLawUncertainty: { relative: 0.25 } },
-  rubric: { readings: 1, lnF: 1, k: 2, kUncertainty: 1, kN: 2, kNUncertainty: 1, kA: 2, kAUncertainty: 1, sigFigs: 0 },
-};
-
-/** Settings that may be left out (empty means unset), and those that are yes or no. */
-const OPTIONAL = new Set(['instrumentNoise']);
-const BOOLEAN = new Set(['temperature.required']);
 
 let formCount = 0;
 
 /**
- * The kinds of experiment an assignment can be, with their names in words.
- * @type {Choices}
- */
-const KINDS = [
-  ['first-order-catalysis', 'First-order runs and the catalysis rate law'],
-  ['temperature-dependence', 'Rate constants at several temperatures (Arrhenius, Eyring)'],
-];
-
-/**
+ * An assignment's settings as a form drawn from its kind's description, which the service makes from
+ * the kind's settings schema. The service validates the settings with the same schema as the API and
+ * its messages appear beside the fields they name. Parts the form does not show (a class dataset,
+ * reference bands) are kept as they are.
  * `assignment` to edit, or undefined for a new one in `courseId`; `done(saved)` after a save, `failure`
- * for what the form cannot show. The first kind has a form of fields; any other kind's settings are
- * edited as JSON, which the service validates and answers field by field.
+ * for what the form cannot show.
  * @param {SettingsFormOptions} options
  */
 export function settingsForm(options) {
-  if (options.assignment) return options.assignment.kind === DEFAULTS.kind ? catalysisForm(options) : jsonForm(options, options.assignment.kind);
-  const holder = h('div', {});
-  /** @type {HTMLSelectElement} */
-  const kind = h('select', { id: `kind-${++formCount}`, onchange: () => show() }, KINDS.map(([value, text]) => h('option', { value }, text)));
-  const show = () => fill(holder, kind.value === DEFAULTS.kind ? catalysisForm(options) : jsonForm(options, kind.value));
-  show();
-  return h('div', {}, h('div', { class: 'field' }, h('label', { for: kind.id }, 'Kind of experiment'), kind), holder);
+  const holder = h('div', {}, h('p', { class: 'hint' }, 'Loading the kinds of experiment…'));
+  kinds().then((list) => {
+    if (options.assignment) {
+      const kind = list.find((k) => k.kind === options.assignment?.kind);
+      fill(holder, kind ? kindForm(options, kind) : h('p', { class: 'form-error' }, 'The service no longer knows this kind of experiment; its settings cannot be edited here.'));
+      return;
+    }
+    const form = h('div', {});
+    /** @type {HTMLSelectElement} */
+    const choice = h('select', { id: `kind-${++formCount}`, onchange: () => show() }, list.map((k) => h('option', { value: k.kind }, k.title)));
+    const show = () => fill(form, kindForm(options, list[choice.selectedIndex]));
+    show();
+    fill(holder, h('div', { class: 'field kind-choice' }, h('label', { for: choice.id }, 'Kind of experiment'), choice), form);
+  }, options.failure);
+  return holder;
 }
 
 /**
- * Settings as JSON text, saved as they are; the service's messages are listed by field.
- * @param {SettingsFormOptions} options
- * @param {string} kind
+ * The value at a dotted path of the settings, if there is one.
+ * @param {unknown} settings
+ * @param {string} path
+ * @returns {unknown}
  */
-function jsonForm({ courseId, assignment, done, failure }, kind) {
-  const n = ++formCount;
-  const text = h('textarea', { id: `json-${n}`, rows: '12', class: 'json-settings', spellcheck: 'false' });
-  text.value = JSON.stringify(assignment?.settings ?? { kind }, null, 2);
-  const title = h('input', { id: `title-${n}`, type: 'text', required: true });
-  const messages = h('ul', { class: 'form-error', role: 'alert' });
-  async function save() {
-    fill(messages);
-    let settings;
-    try {
-      settings = JSON.parse(text.value);
-    } catch (error) {
-      fill(messages, h('li', {}, `The settings are not valid JSON: ${/** @type {SyntaxError} */ (error).message}`));
-      return text.focus();
-    }
-    try {
-      const saved = assignment
-        ? await api('PUT', `/v1/assignments/${assignment.id}/settings`, { settings })
-        : await api('POST', `/v1/courses/${courseId}/assignments`, { title: title.value, settings });
-      done(/** @type {Assignment} */ (saved));
-    } catch (error) {
-      if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
-      fill(messages, error.details.map((d) => h('li', {}, `${d.path.replace(/^body\.(settings\.)?/, '')}: ${d.message}`)));
-    }
-  }
-  return h(
-    'form',
-    { class: 'settings', novalidate: true, onsubmit: (e) => (e.preventDefault(), save()) },
-    assignment ? null : h('div', { class: 'field' }, h('label', { for: title.id }, 'Title'), title),
-    h('div', { class: 'field' }, h('label', { for: text.id }, 'Settings (JSON; docs/kinds/ lists the fields of each kind)'), text),
-    h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
-    messages,
-  );
+function valueAt(settings, path) {
+  /** @type {any} */
+  let at = settings;
+  for (const part of path.split('.')) at = at && typeof at === 'object' ? at[part] : undefined;
+  return at;
 }
 
-/** @param {SettingsFormOptions} options */
-function catalysisForm({ courseId, assignment, done, failure }) {
+/**
+ * A number as the input shows it: a share in per cent without binary noise (0.07 → 7).
+ * @param {number | undefined} value
+ * @param {number} [scale]
+ */
+const shown = (value, scale = 1) => (value === undefined || value === null ? '' : String(Number((value * scale).toPrecision(12))));
+
+/**
+ * A number input's value for the settings: empty or unreadable is sent as it is, for the schema to name.
+ * @param {HTMLInputElement} input
+ * @param {number} [scale]
+ */
+function numberOf(input, scale = 1) {
+  if (input.value.trim() === '') return null;
+  return Number(input.value) / scale;
+}
+
+/**
+ * The controls of one field, with the value it starts from.
+ * @param {FormField} field
+ * @param {unknown} value the stored value, undefined for a new assignment
+ * @param {string} id
+ * @returns {{ controls: HTMLElement[], control: Control }}
+ */
+function controlsOf(field, value, id) {
+  switch (field.type) {
+    case 'select': {
+      /** @type {HTMLSelectElement} */
+      const select = h('select', { id }, field.options.map((o) => h('option', { value: o.value, selected: o.value === (value ?? field.default) }, plain(o.label))));
+      return { controls: [select], control: { field, focus: select, read: () => select.value } };
+    }
+    case 'boolean': {
+      /** @type {HTMLInputElement} */
+      const box = h('input', { id, type: 'checkbox', checked: Boolean(value ?? field.default) });
+      return { controls: [box], control: { field, focus: box, read: () => box.checked } };
+    }
+    case 'text': {
+      /** @type {HTMLInputElement} */
+      const input = h('input', { id, type: 'text', value: typeof value === 'string' ? value : field.default });
+      return { controls: [input], control: { field, focus: input, read: () => input.value } };
+    }
+    case 'number': {
+      const start = typeof value === 'number' ? value : field.default;
+      /** @type {HTMLInputElement} */
+      const input = h('input', { id, type: 'number', step: 'any', value: shown(start), ...(field.max !== undefined && { max: String(field.max) }), ...(field.min !== undefined && !field.minExclusive && { min: String(field.min) }) });
+      // An optional setting left empty is sent as null: not set (a PUT states every setting the assignment has).
+      return { controls: [input], control: { field, focus: input, read: () => numberOf(input) } };
+    }
+    case 'tolerance': {
+      // A tolerance is kept whole: relative or absolute, the other part replaced, not merged.
+      const start = /** @type {{ relative?: number, absolute?: number } | undefined} */ (value) ?? field.default;
+      const relative = start.relative !== undefined;
+      /** @type {HTMLInputElement} */
+      const input = h('input', { id, type: 'number', step: 'any', min: '0', value: relative ? shown(start.relative, 100) : shown(start.absolute) });
+      /** @type {HTMLSelectElement} */
+      const how = h('select', { 'aria-label': `${plain(field.label)}: relative or absolute` }, h('option', { value: 'relative', selected: relative }, '% of value'), h('option', { value: 'absolute', selected: !relative }, 'absolute'));
+      const read = () => (how.value === 'relative' ? { relative: numberOf(input, 100) } : { absolute: numberOf(input) });
+      return { controls: [h('span', { class: 'tolerance' }, input, how)], control: { field, focus: input, read } };
+    }
+  }
+}
+
+/**
+ * @param {SettingsFormOptions} options
+ * @param {KindDescription} kind
+ */
+function kindForm({ courseId, assignment, done, failure }, kind) {
   const n = ++formCount;
-  // Stored settings were parsed by the kind's schema, so every setting with a default is there.
-  const current = { ...DEFAULTS, .../** @type {Partial<Settings>} */ (assignment?.settings ?? {}) };
-  /** @type {Map<string, HTMLInputElement | HTMLSelectElement>} */
-  const fields = new Map();
-  /** @type {Map<string, HTMLSpanElement>} */
-  const messages = new Map();
   /** @param {string} path */
   const id = (path) => `f${n}-${path.replace(/\./g, '-')}`;
+  /** @type {Control[]} */
+  const controls = [];
+  /** @type {Map<string, HTMLSpanElement>} */
+  const messages = new Map();
 
   /**
    * @param {string} path
    * @param {string} label
-   * @param {HTMLInputElement | HTMLSelectElement} control
+   * @param {HTMLElement[]} inputs
    * @param {string} [hint]
+   * @param {HTMLElement} [described] the control the label and message belong to
    */
-  function field(path, label, control, hint) {
-    control.id = id(path);
+  function fieldBox(path, label, inputs, hint, described = inputs[0]) {
     const message = h('span', { class: 'form-error', id: `${id(path)}-message`, role: 'alert' });
-    control.setAttribute('aria-describedby', message.id);
-    fields.set(path, control);
+    described.setAttribute('aria-describedby', message.id);
     messages.set(path, message);
-    return h('div', { class: 'field' }, h('label', { for: control.id }, label), control, hint ? h('span', { class: 'hint' }, hint) : null, message);
+    // A yes-or-no reads as the box and its words on one line.
+    const labelled = described instanceof HTMLInputElement && described.type === 'checkbox' ? [h('label', { class: 'check' }, ...inputs, ' ', marked(label))] : [h('label', { for: id(path) }, marked(label)), ...inputs];
+    return h('div', { class: 'field' }, ...labelled, hint ? h('span', { class: 'hint' }, hint) : null, message);
   }
-  /**
-   * @param {string} path
-   * @param {string} label
-   * @param {Choices} options
-   * @param {string} value
-   */
-  const select = (path, label, options, value) => field(path, label, h('select', {}, options.map(([v, text]) => h('option', { value: v, selected: v === value }, text))));
-  /**
-   * @param {string} path
-   * @param {string} label
-   * @param {number | undefined} value
-   * @param {string} [hint]
-   */
-  const number = (path, label, value, hint) => field(path, label, h('input', { type: 'number', step: 'any', value: value === undefined ? '' : String(value) }), hint);
 
-  const titleInput = h('input', { type: 'text', required: true });
-  const title = assignment ? null : field('title', 'Title', titleInput);
+  /** @param {FormField} field */
+  function fieldOf(field) {
+    const { controls: inputs, control } = controlsOf(field, valueAt(assignment?.settings, field.name), id(field.name));
+    controls.push(control);
+    const unit = field.type === 'number' && field.unit ? `, ${field.unit}` : '';
+    const absoluteIn = field.type === 'tolerance' && field.unit ? `absolute in ${field.unit}` : undefined;
+    const help = [field.help, field.type === 'number' && field.optional && !field.help ? 'optional' : undefined, absoluteIn].filter(Boolean).join('; ');
+    const box = fieldBox(field.name, `${field.label}${unit}`, inputs, help || undefined, control.focus);
+    // A choice worded at length takes two columns, so that it reads whole.
+    if (field.type === 'select' && Math.max(...field.options.map((o) => plain(o.label).length)) > 24) box.classList.add('wide');
+    return box;
+  }
+
+  /** @type {HTMLInputElement} */
+  const titleInput = h('input', { id: id('title'), type: 'text', required: true });
   const summary = h('p', { class: 'form-error', role: 'alert' });
-  /**
-   * @param {keyof Tolerances} key
-   * @returns {Tolerance}
-   */
-  const tol = (key) => current.tolerances?.[key] ?? DEFAULTS.tolerances[key];
   const form = h(
     'form',
     { class: 'settings', novalidate: true, onsubmit: (e) => (e.preventDefault(), save()) },
-    title,
-    h('fieldset', {}, h('legend', {}, 'Fits'), select('fitModel', 'ln F against t', CHOICES.fitModel, current.fitModel), select('rateLawFit', 'k_obs against [catalyst]', CHOICES.rateLawFit, current.rateLawFit), select('weightedErrors', 'Right SEs of a weighted fit', CHOICES.weightedErrors, current.weightedErrors)),
-    h('fieldset', {}, h('legend', {}, 'Units values are reported in'), UNITS.map(([key, label]) => field(`units.${key}`, label, h('input', { type: 'text', value: current.units?.[key] ?? DEFAULTS.units[key] })))),
-    h(
-      'fieldset',
-      {},
-      h('legend', {}, 'Tolerances'),
-      TOLERANCES.map(([key, label, kind]) => {
-        const value = tol(key)[kind];
-        return kind === 'relative' ? number(`tolerances.${key}.relative`, `${label}, %`, value === undefined ? undefined : Number((value * 100).toPrecision(12))) : number(`tolerances.${key}.absolute`, label, value);
-      }),
-    ),
-    h(
-      'fieldset',
-      {},
-      h('legend', {}, 'The instrument (for signals to review, never points)'),
-      number('displayStep', 'Display step of a reading', current.displayStep ?? 0.001),
-      number('instrumentNoise', 'Stated noise of one reading (SD)', current.instrumentNoise, 'optional: leave empty to compare with the section alone'),
-      number('temperature.maxSpread', 'Largest spread of run temperatures, degC', current.temperature?.maxSpread ?? 1),
-      select('temperature.required', 'Each run records its temperature', [['false', 'optional'], ['true', 'required']], String(current.temperature?.required ?? false)),
-    ),
-    h('fieldset', {}, h('legend', {}, 'Rubric points'), RUBRIC.map(([key, label]) => number(`rubric.${key}`, label, current.rubric?.[key] ?? DEFAULTS.rubric[key]))),
-    h('p', { class: 'hint' }, 'A class dataset and reference bands, where set, are kept as they are (the API edits them). Saving changes no result until you regrade.'),
+    assignment ? null : fieldBox('title', 'Title', [titleInput]),
+    kind.settings.form.map((group) => h('fieldset', {}, h('legend', {}, group.label), group.help ? h('p', { class: 'hint' }, group.help) : null, group.fields.map(fieldOf))),
+    h('p', { class: 'hint' }, [kind.settings.note, 'Saving changes no result until you regrade.'].filter(Boolean).join(' ')),
     h('button', { type: 'submit', class: 'primary' }, assignment ? 'Save the settings' : 'Create the assignment'),
     summary,
   );
 
   function read() {
-    // Walked by the fields' paths (`tolerances.k.relative`), so indexed by name.
+    // Walked by the fields' paths (`tolerances.k`), so indexed by name.
     /** @type {Record<string, any>} */
-    const settings = structuredClone(current);
-    for (const [path, control] of fields) {
-      if (path === 'title') continue;
-      const parts = path.split('.');
+    const settings = { ...structuredClone(assignment?.settings ?? {}), kind: kind.kind };
+    for (const { field, read: value } of controls) {
+      const parts = field.name.split('.');
       let target = settings;
       for (const p of parts.slice(0, -1)) target = target[p] = { ...(target[p] ?? {}) };
-      const last = parts[parts.length - 1];
-      // An optional setting left empty is sent as null: not set (a PUT must state every setting the assignment has).
-      if (OPTIONAL.has(path) && control.value.trim() === '') target[last] = null;
-      else if (BOOLEAN.has(path)) target[last] = control.value === 'true';
-      else if (control.type === 'number') {
-        // An empty or unreadable number is sent as it is, for the schema to name.
-        const value = control.value.trim() === '' ? null : Number(control.value);
-        target[last] = value !== null && parts[0] === 'tolerances' && last === 'relative' ? value / 100 : value;
-      } else target[last] = control.value;
+      target[parts[parts.length - 1]] = value();
     }
-    // A tolerance kept whole: the other part of it is replaced, not merged.
-    for (const [key, , kind] of TOLERANCES) settings.tolerances[key] = { [kind]: settings.tolerances[key][kind] };
     return settings;
   }
+
+  /**
+   * The field a message of the service belongs to: the one whose path is the message's or holds it
+   * (`tolerances.k.relative` belongs to the tolerance `tolerances.k`).
+   * @param {string} path
+   */
+  const fieldFor = (path) => [...messages.keys()].filter((name) => path === name || path.startsWith(`${name}.`)).sort((a, b) => b.length - a.length)[0];
 
   async function save() {
     for (const m of messages.values()) m.textContent = '';
@@ -252,15 +209,20 @@ function catalysisForm({ courseId, assignment, done, failure }) {
     } catch (error) {
       if (!(error instanceof ApiFailure) || (error.status !== 400 && error.status !== 422)) return failure(error);
       const unplaced = [];
+      /** @type {string | undefined} */
+      let first;
       for (const d of error.details) {
         const path = d.path.replace(/^body\.(settings\.)?/, '');
-        const message = messages.get(path);
-        if (message) message.textContent = d.message;
-        else unplaced.push(`${path}: ${d.message}`);
+        const name = fieldFor(path);
+        const message = name === undefined ? undefined : messages.get(name);
+        if (message) {
+          message.textContent = d.message;
+          first ??= name;
+        } else unplaced.push(`${path}: ${d.message}`);
       }
       summary.textContent = `The settings were not saved: ${error.details.length} field${error.details.length === 1 ? '' : 's'} to correct${unplaced.length ? ` (${unplaced.join('; ')})` : ''}.`;
-      const first = error.details.map((d) => d.path.replace(/^body\.(settings\.)?/, '')).find((p) => fields.has(p));
-      if (first) fields.get(first)?.focus();
+      if (first === 'title') titleInput.focus();
+      else controls.find((c) => c.field.name === first)?.focus.focus();
     }
   }
   return form;

@@ -1,6 +1,7 @@
 import { api, ApiFailure } from './api.js';
 import { fill, h, marked, num, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
+import { kindDescription } from './kinds.js';
 import { drawPlot } from './plots.js';
 
 /**
@@ -67,7 +68,9 @@ function plotFigures(plots) {
 export async function studentView(place, submissionId, failure) {
   const base = `#/section/${place.section.id}/assignment/${place.assignment.id}`;
   const displayUrl = `/v1/submissions/${submissionId}/display`;
-  const [viewBody, displayBody] = await Promise.all([api('GET', `/v1/submissions/${submissionId}`), api('GET', displayUrl)]);
+  const [viewBody, displayBody, kind] = await Promise.all([api('GET', `/v1/submissions/${submissionId}`), api('GET', displayUrl), kindDescription(place.assignment.kind)]);
+  // The kind's words for its signals; a kind the service no longer describes shows the codes alone.
+  const signalWords = new Map((kind?.signals.codes ?? []).map((c) => [c.code, c.label]));
   let view = /** @type {View} */ (viewBody);
   let display = /** @type {SubmissionDisplay} */ (displayBody);
   const history = /** @type {SubmissionVersion[]} */ (await api('GET', `/v1/sections/${place.section.id}/students/${encodeURIComponent(view.studentId)}/history?assignmentId=${place.assignment.id}`));
@@ -112,7 +115,7 @@ export async function studentView(place, submissionId, failure) {
     return h(
       'li',
       { class: sig.onSheet ? 'signal on-sheet' : 'signal' },
-      h('p', {}, h('code', {}, sig.code), ' ', sig.message),
+      h('p', {}, signalWords.has(sig.code) ? [h('strong', {}, signalWords.get(sig.code)), ' '] : null, h('code', {}, sig.code), ' ', sig.message),
       h(
         'p',
         { class: 'signal-choice' },
@@ -242,7 +245,7 @@ export async function studentView(place, submissionId, failure) {
         ? h(
             'section',
             { class: 'panel signals' },
-            h('h2', {}, 'For review: how the runs were measured'),
+            h('h2', {}, `For review: how the ${kind?.signals.unit ?? 'part'}s were measured`),
             h('p', { class: 'hint' }, 'What the readings suggest about the measurement. Prompts to look and ask, not findings: no points depend on them, and one reaches the student’s sheet only if you show it there.'),
             h('ul', {}, result.signals.map(signalItem)),
           )

@@ -5,45 +5,61 @@ import { fill, h } from './dom.js';
  * @import { Failure } from './api.js'
  * @import { Rejection } from '../../schemas/result.ts'
  * @import { BatchChecked, BatchRejection, BatchStored } from '../../schemas/api/submissions.ts'
+ * @import { KindDescription } from '../../schemas/api/kinds.ts'
  */
 
 /**
- * Adding submissions: choose or drop a JSON batch, or the readings and reported CSV files; the batch
- * is checked first (nothing stored) and its problems listed by place, field and reason; then stored.
+ * The CSV file a chosen file is: the one whose name its name holds (`points-week3.csv` is `points`),
+ * the longest such name first; else the required file.
+ * @param {NonNullable<KindDescription['upload']['csv']>} csv
+ * @param {File} file
+ */
+function csvFileOf(csv, file) {
+  const name = file.name.toLowerCase();
+  const named = [...csv].sort((a, b) => b.name.length - a.name.length).find((c) => name.includes(c.name.toLowerCase()));
+  return named ?? csv.find((c) => c.required) ?? csv[0];
+}
+
+/**
+ * Adding submissions: choose or drop a JSON batch, or the kind's CSV files; the batch is checked first
+ * (nothing stored) and its problems listed by place, field and reason; then stored. The files a kind
+ * takes come from its description.
  * @param {string} base the URL of the section's assignment
+ * @param {KindDescription['upload']} accepted
  * @param {() => Promise<unknown>} refresh
  * @param {Failure} failure
  */
-export function uploadPanel(base, refresh, failure) {
+export function uploadPanel(base, accepted, refresh, failure) {
+  const csv = accepted.csv ?? [];
+  const taken = csv.length ? /\.(json|csv)$/i : /\.json$/i;
+  const wanted = csv.length ? `Choose a .json batch, or ${csv.map((c) => `${c.required ? 'the' : 'a'} ${c.name} .csv`).join(' and ')}.` : 'Choose a .json batch.';
   /** @type {File[]} */
   let files = [];
   const chosen = h('p', { class: 'hint', id: 'upload-chosen' }, 'No files chosen.');
   const progress = h('progress', { max: '1', value: '0', hidden: true, 'aria-label': 'Upload progress' });
   const outcome = h('div', { class: 'upload-outcome', 'aria-live': 'polite' });
   /** @type {HTMLInputElement} */
-  const input = h('input', { id: 'upload-files', type: 'file', multiple: true, accept: '.json,.csv,application/json,text/csv', onchange: () => choose([...(input.files ?? [])]) });
+  const input = h('input', { id: 'upload-files', type: 'file', multiple: true, accept: csv.length ? '.json,.csv,application/json,text/csv' : '.json,application/json', onchange: () => choose([...(input.files ?? [])]) });
   const check = h('button', { type: 'button', class: 'primary', disabled: true, onclick: () => send(true) }, 'Check files');
 
   /** @param {File[]} list */
   function choose(list) {
-    files = list.filter((f) => /\.(json|csv)$/i.test(f.name));
-    chosen.textContent = files.length ? `Chosen: ${files.map((f) => f.name).join(', ')}` : 'Choose a .json batch, or readings and reported .csv files.';
+    files = list.filter((f) => taken.test(f.name));
+    chosen.textContent = files.length ? `Chosen: ${files.map((f) => f.name).join(', ')}` : wanted;
     check.disabled = files.length === 0;
     fill(outcome);
   }
 
   /**
-   * The request body: a JSON batch as it is, CSV files as the multipart upload the API reads.
+   * The request body: a JSON batch as it is, CSV files as the multipart upload the API reads, each
+   * under the name of the kind's file it is.
    * @returns {Promise<{ data: string | FormData, type: string | undefined }>}
    */
   async function body() {
     const json = files.find((f) => /\.json$/i.test(f.name));
     if (json) return { data: await json.text(), type: 'application/json' };
     const form = new FormData();
-    const reported = files.find((f) => /report/i.test(f.name));
-    const readings = files.find((f) => f !== reported);
-    if (readings) form.append('readings', readings, readings.name);
-    if (reported) form.append('reported', reported, reported.name);
+    for (const file of files) form.append(csvFileOf(csv, file).name, file, file.name);
     return { data: form, type: undefined };
   }
 
@@ -96,6 +112,7 @@ export function uploadPanel(base, refresh, failure) {
     h('label', { for: 'upload-files' }, 'Choose files, or drop them here'),
     input,
     chosen,
+    csv.length ? h('ul', { class: 'hint csv-columns' }, csv.map((c) => h('li', {}, h('strong', {}, `${c.name}.csv`), c.required ? '' : ' (optional)', ': ', h('code', {}, c.columns.join(', ')), c.optionalColumns.length ? [', and where needed ', h('code', {}, c.optionalColumns.join(', '))] : ''))) : null,
   );
   return h('details', { class: 'panel upload' }, h('summary', {}, 'Add submissions'), zone, h('div', { class: 'row' }, check, progress), outcome);
 }

@@ -1,0 +1,16 @@
+import { kindDescriptions } from '../../kinds/registry.ts';
+import { KindList } from '../../schemas/api/kinds.ts';
+import { defineRoute } from '../http/route-table.ts';
+
+export const kindRoutes = [
+  defineRoute({
+    method: 'GET',
+    url: '/v1/kinds',
+    access: 'signed-in',
+    summary: "The experiment kinds an assignment can be, as the workspace draws them: each kind's quantities with their symbols, its settings form's fields with defaults and bounds, the files an upload takes and the words of its signals",
+    schema: { response: { 200: KindList } },
+    async handler() {
+      return kindDescriptions();
+    },
+  }),
+];
