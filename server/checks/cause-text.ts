@@ -16,7 +16,7 @@ export interface CauseVocabulary {
 
 /** The words for the shared codes, the same in every kind. */
 export const sharedCauseTexts: CauseVocabulary['texts'] = {
-  'sign-flipped': { what: 'the sign of the slope was kept (k is minus the slope)', check: 'the sign of the reported value' },
+  'sign-flipped': { what: 'the sign was reversed on the way (a minus sign lost or added, as when a slope is kept where minus the slope is needed)', check: 'the sign of the reported value' },
   'log-base': { what: 'log10 was used where the natural logarithm ln is needed', check: 'which logarithm the spreadsheet used (LOG10 or LN)' },
   'decimal-shift': { what: 'the decimal point moved when the value was copied', check: 'the value as copied from your calculation' },
 };
