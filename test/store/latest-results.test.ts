@@ -14,7 +14,7 @@ import { openTestDatabase, type TestDatabase } from '../support/test-database.ts
  * a regrade added, which release and override were made), not computed by the store's code.
  */
 const graded = (score: number): StoredResult => ({ engineVersion: 'test', status: 'checked', score, maxScore: 10, refitJson: null, findingsJson: JSON.stringify({ findings: [], rejected: [] }) });
-const with_ = { settings: {}, settingsVersion: 1 };
+const gradedWith = { settings: {}, settingsVersion: 1 };
 
 describe('latest results of a section', () => {
   let database: TestDatabase;
@@ -39,7 +39,7 @@ describe('latest results of a section', () => {
   afterAll(async () => database?.close());
 
   const store = (items: Array<[string, number]>) =>
-    db.transaction().execute((trx) => storeGraded(trx, assignment, staff, with_, items.map(([id, score]) => ({ studentRowId: row[id], payloadJson: '{}', result: graded(score) }))));
+    db.transaction().execute((trx) => storeGraded(trx, assignment, staff, gradedWith, items.map(([id, score]) => ({ studentRowId: row[id], payloadJson: '{}', result: graded(score) }))));
   const page = async () => new Map((await sectionLatestResults(db, section, assignment)).map((s) => [s.studentId, s]));
 
   it('shows each student the latest version (two in one batch included) and nothing for one who submitted nothing', async () => {
@@ -55,8 +55,8 @@ describe('latest results of a section', () => {
   it('a regrade of the latest version shows at once; a regrade of an earlier one changes nothing', async () => {
     const versions = await sql<{ id: number; version: number }>`select id, version from submissions where student_row_id = ${row['Q-01']} order by version`.execute(db);
     const [first, second] = versions.rows;
-    await db.transaction().execute((trx) => insertResults(trx, with_, [{ submissionId: second.id, result: graded(8) }]));
-    await db.transaction().execute((trx) => insertResults(trx, with_, [{ submissionId: first.id, result: graded(1) }]));
+    await db.transaction().execute((trx) => insertResults(trx, gradedWith, [{ submissionId: second.id, result: graded(8) }]));
+    await db.transaction().execute((trx) => insertResults(trx, gradedWith, [{ submissionId: first.id, result: graded(1) }]));
     const q01 = (await page()).get('Q-01')!.latest!;
     expect(q01.submission.version).toBe(2);
     expect(q01.result.score).toBe(8);
