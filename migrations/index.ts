@@ -6,6 +6,7 @@ import * as signalChoices from './2026-12-02T2330-signal-choices.ts';
 import * as releases from './2026-12-05T1000-releases.ts';
 import * as studentIdCase from './2026-12-05T1100-student-id-case.ts';
 import * as overrideReasonShown from './2026-12-05T1200-override-reason-shown.ts';
+import * as latestResults from './2026-12-05T1400-latest-results.ts';
 
 /**
  * Every migration by name, applied in name order (names start with a timestamp). A static list rather
@@ -20,4 +21,5 @@ export const migrations: Record<string, Migration> = {
   '2026-12-05T1000-releases': releases,
   '2026-12-05T1100-student-id-case': studentIdCase,
   '2026-12-05T1200-override-reason-shown': overrideReasonShown,
+  '2026-12-05T1400-latest-results': latestResults,
 };

@@ -2,10 +2,11 @@ import type { Kysely } from 'kysely';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings } from '../../reports/feedback-input.ts';
 import type { Database } from '../store/database.ts';
+import { sectionLatestResults } from '../store/latest-results.ts';
 import { reportNames } from '../store/names.ts';
 import { latestReleases } from '../store/releases.ts';
 import { signalChoicesOf, type SignalChoiceRow } from '../store/signal-choices.ts';
-import { latestResults, latestResultSummaries, latestSubmissionHeads, latestSubmissions, overridesOf, resultsByIds, submissionsByIds, type OverrideRow, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
+import { latestResults, latestResultSummaries, latestSubmissions, overridesOf, resultsByIds, submissionsByIds, type OverrideRow, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { EffectiveResult } from './effective-result.ts';
 import { resultAndRelease, type ResultAndRelease } from './released.ts';
@@ -90,14 +91,16 @@ export async function sectionFeedback(db: Kysely<Database>, sectionId: number, a
   return feedbackInputs(db, await latestSubmissions(db, assignmentId, sectionId), sectionId, assignmentId, showing);
 }
 
-/** The latest submission of each student in a section, with its latest result (overrides applied) and what was released of it. */
-export async function latestWithResults(db: Kysely<Database>, sectionId: number, assignmentId: number) {
-  // Without payloads, refits and settings: a table of the section needs none of them.
-  const rows = await latestSubmissionHeads(db, assignmentId, sectionId);
-  const results = await resultsAndReleases(db, rows.map((r) => r.submissionId), false);
-  return rows.map((submission) => {
-    const both = results.get(submission.submissionId);
-    return { submission, result: both?.current, released: both?.released, releasedVersion: both?.releasedVersion, changedSinceRelease: both?.changedSinceRelease ?? false };
+/**
+ * Every roster student of a section in student-id order: their latest version with its latest result
+ * (overrides applied) and what was released of it, or no `submission` when they submitted nothing.
+ * One read of the store (latest-results.ts).
+ */
+export async function sectionStandings(db: Kysely<Database>, sectionId: number, assignmentId: number) {
+  return (await sectionLatestResults(db, sectionId, assignmentId)).map(({ studentId, enrolment, latest }) => {
+    if (!latest) return { studentId, enrolment };
+    const both = resultAndRelease(latest.result, latest.release, latest.releasedRow, latest.overrides, latest.choices);
+    return { studentId, enrolment, submission: latest.submission, result: both.current, released: both.released, releasedVersion: both.releasedVersion, changedSinceRelease: both.changedSinceRelease };
   });
 }
 
@@ -129,8 +132,8 @@ export async function submissionStanding(db: Kysely<Database>, submissionId: num
 
 /** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */
 export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
-  return (await latestWithResults(db, sectionId, assignmentId)).flatMap(({ submission, result, released }) => {
-    const shown = released ?? result;
-    return shown ? [asCheckResult(submission.studentId, shown)] : [];
+  return (await sectionStandings(db, sectionId, assignmentId)).flatMap((s) => {
+    if (!s.submission) return [];
+    return [asCheckResult(s.studentId, s.released ?? s.result)];
   });
 }

@@ -1,16 +1,18 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { severityCounts } from '../../reports/result-summary.ts';
-import { latestWithResults, releasesDue } from '../grading/report-inputs.ts';
+import { releasesDue, sectionStandings } from '../grading/report-inputs.ts';
 import { staffIdOf } from '../http/access.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { IdParam } from '../http/schemas.ts';
 import { insertReleases } from '../store/releases.ts';
-import { studentsWithoutSubmission } from '../store/students.ts';
 import { latestSubmissionHeads, versionAndLatest } from '../store/submissions.ts';
 import { Released, ResultRow } from '../../schemas/api/results.ts';
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
+
+/** A roster student without a submission: nothing to count. */
+const NOT_SUBMITTED = { submissionId: null, version: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false };
 
 export const resultRoutes = [
   defineRoute({
@@ -21,42 +23,29 @@ export const resultRoutes = [
     schema: { params, response: { 200: z.array(ResultRow) } },
     async handler({ db, scope }) {
       const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
-      const rows = await latestWithResults(db, sectionId, assignmentId);
-      const missing = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map(({ studentId, status }) => ({
-        studentId,
-        submissionId: null,
-        version: null,
-        status: status === 'withdrawn' ? 'withdrawn' : 'not-submitted',
-        enrolment: status,
-        score: null,
-        maxScore: null,
-        errors: 0,
-        warnings: 0,
-        infos: 0,
-        codes: [],
-        released: false,
-        releasedScore: null,
-        releasedVersion: null,
-        changedSinceRelease: false,
-      }));
-      const submitted = rows.map(({ submission, result, released, releasedVersion, changedSinceRelease }) => ({
-        studentId: submission.studentId,
-        submissionId: submission.submissionId,
-        version: submission.version,
-        status: submission.enrolment === 'withdrawn' ? 'withdrawn' : (result?.status ?? null),
-        enrolment: submission.enrolment,
-        score: result?.score ?? null,
-        maxScore: result?.maxScore ?? null,
-        ...severityCounts(result?.findings ?? []),
-        codes: [...new Set(result?.findings.map((f) => f.code) ?? [])],
-        released: released !== undefined,
-        releasedScore: released?.score ?? null,
-        releasedVersion: releasedVersion ?? null,
-        changedSinceRelease,
-      }));
-      // One list in student-id order, submitted or not.
-      const body = [...submitted, ...missing].sort((a, b) => (a.studentId < b.studentId ? -1 : a.studentId > b.studentId ? 1 : 0));
-      return body;
+      // One list in student-id order (code-unit order, as before), submitted or not.
+      const rows = (await sectionStandings(db, sectionId, assignmentId)).map((row) => {
+        if (!row.submission) {
+          return { ...NOT_SUBMITTED, studentId: row.studentId, status: row.enrolment === 'withdrawn' ? 'withdrawn' : 'not-submitted', enrolment: row.enrolment };
+        }
+        const { submission, result, released, releasedVersion, changedSinceRelease } = row;
+        return {
+          studentId: submission.studentId,
+          submissionId: submission.submissionId,
+          version: submission.version,
+          status: submission.enrolment === 'withdrawn' ? 'withdrawn' : result.status,
+          enrolment: submission.enrolment,
+          score: result.score,
+          maxScore: result.maxScore,
+          ...severityCounts(result.findings),
+          codes: [...new Set(result.findings.map((f) => f.code))],
+          released: released !== undefined,
+          releasedScore: released?.score ?? null,
+          releasedVersion: releasedVersion ?? null,
+          changedSinceRelease,
+        };
+      });
+      return rows.sort((a, b) => (a.studentId < b.studentId ? -1 : a.studentId > b.studentId ? 1 : 0));
     },
   }),
   defineRoute({

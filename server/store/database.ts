@@ -61,6 +61,8 @@ export interface Database {
     staff_id: Ref;
     created_at: Generated<Date>;
   };
+  /** Each student's latest version of an assignment and that version's latest result, kept with every result stored. */
+  latest_results: { assignment_id: Ref; student_row_id: Ref; submission_id: Ref; version: number; result_id: Ref };
   releases: {
     id: Generated<number>;
     submission_id: Ref;

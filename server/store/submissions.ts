@@ -73,7 +73,7 @@ const ROWS_PER_INSERT = 1000;
 export async function insertResults(db: Kysely<Database>, gradedWith: GradedWith, items: Array<{ submissionId: number; result: StoredResult }>): Promise<void> {
   const settings = JSON.stringify(gradedWith.settings);
   for (const chunk of inParts(items, ROWS_PER_INSERT)) {
-    await db
+    const stored = await db
       .insertInto('results')
       .values(
         chunk.map(({ submissionId, result }) => ({
@@ -88,8 +88,43 @@ export async function insertResults(db: Kysely<Database>, gradedWith: GradedWith
           findings: result.findingsJson,
         })),
       )
+      .returning('id')
       .execute();
+    await recordLatestResults(db, stored.map((r) => r.id));
   }
+}
+
+/**
+ * Records new results in `latest_results` where they are their student's latest (a later version, or a
+ * regrade of the latest), in the transaction that stored them: the results page reads a section through
+ * it by key (latest-results.ts) rather than searching every version and result.
+ */
+async function recordLatestResults(db: Kysely<Database>, resultIds: number[]): Promise<void> {
+  if (resultIds.length === 0) return;
+  await db
+    .insertInto('latest_results')
+    .columns(['assignment_id', 'student_row_id', 'submission_id', 'version', 'result_id'])
+    .expression((eb) =>
+      eb
+        .selectFrom('results')
+        .innerJoin('submissions', 'submissions.id', 'results.submission_id')
+        // One row per student: two versions of one student in one batch would otherwise update a row twice.
+        .distinctOn(['submissions.assignment_id', 'submissions.student_row_id'])
+        .select(['submissions.assignment_id', 'submissions.student_row_id', 'submissions.id', 'submissions.version', 'results.id as result_id'])
+        .where('results.id', 'in', resultIds)
+        .orderBy('submissions.assignment_id')
+        .orderBy('submissions.student_row_id')
+        .orderBy('submissions.version', 'desc')
+        .orderBy('results.id', 'desc'),
+    )
+    .onConflict((oc) =>
+      oc
+        .columns(['assignment_id', 'student_row_id'])
+        .doUpdateSet({ submission_id: sql.ref('excluded.submission_id'), version: sql.ref('excluded.version'), result_id: sql.ref('excluded.result_id') })
+        // A regrade of an earlier version, committed after a newer version was stored, leaves the newer one.
+        .where(sql<boolean>`(excluded.version, excluded.result_id) > (latest_results.version, latest_results.result_id)`),
+    )
+    .execute();
 }
 
 /** A submission version without its payload: what a table of a section's results needs. */

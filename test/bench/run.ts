@@ -45,6 +45,9 @@ await benchBulkSubmit();
 const { benchConcurrentLoad } = await import('./concurrent-load.ts');
 await benchConcurrentLoad();
 
+const { benchResultsUnderLoad, printResultsUnderLoad } = await import('./results-under-load.ts');
+printResultsUnderLoad(await benchResultsUnderLoad());
+
 const { benchSignalRates } = await import('./signal-rates.ts');
 benchSignalRates();
 
