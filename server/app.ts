@@ -1,5 +1,4 @@
 import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
-import { sql } from 'kysely';
 import { serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
 import type { Config } from './config.ts';
 import { poolGrader, type Grader } from './grading/grader.ts';
@@ -9,18 +8,20 @@ import { sameThreadPool } from './pool/same-thread-pool.ts';
 import { bodyParsersPlugin } from './http/body-parsers.ts';
 import { callerPlugin } from './http/caller.ts';
 import { docsPlugin } from './http/docs.ts';
-import { errorHandlerPlugin, frameworkErrors, MAX_PATH_PARAM, RETRY_AFTER_SECONDS } from './http/error-handler.ts';
+import { errorHandlerPlugin, frameworkErrors, MAX_PATH_PARAM } from './http/error-handler.ts';
 import { idempotencyPlugin } from './http/idempotency.ts';
 import { loggableUrl, urlWords } from './http/loggable-url.ts';
+import { metricsPlugin } from './http/metrics.ts';
 import { uploadPlugin } from './http/multipart-csv.ts';
+import { probesPlugin } from './http/probes.ts';
 import { routeTablePlugin } from './http/route-table.ts';
 import { scopePlugin } from './http/scope.ts';
 import { servicesPlugin } from './http/services.ts';
 import { transactionPlugin } from './http/transaction.ts';
 import { workspaceFilesPlugin } from './http/workspace-files.ts';
+import { serviceMetrics } from './metrics/service-metrics.ts';
 import { routes } from './routes/index.ts';
 import type { Store } from './store/connection.ts';
-import { isDatabaseUnavailable } from './store/unavailable.ts';
 
 export interface AppOptions {
   config: Config;
@@ -54,7 +55,8 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   const workers = options.config.workers;
   const pool = options.grader ? undefined : workers === 0 ? sameThreadPool() : createWorkerPool(workers);
   const grader = options.grader ?? poolGrader(pool!);
-  const regrades = new Regrades(grader);
+  const metrics = serviceMetrics({ store: options.store, pool });
+  const regrades = new Regrades(grader, metrics.regradeWatch);
   app.addHook('onClose', async () => {
     // Regrades under way finish first: they need the workers and the database.
     await regrades.idle();
@@ -69,18 +71,9 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   await app.register(transactionPlugin);
   await app.register(scopePlugin);
   await app.register(idempotencyPlugin);
+  await app.register(metricsPlugin, { metrics, token: options.config.metricsToken });
   await app.register(docsPlugin);
-
-  // Ready when the database answers; 503 while it is away, so that a load balancer sends no traffic.
-  app.get('/health', { schema: { hide: true } }, async (_request, reply) => {
-    try {
-      await sql`select 1`.execute(options.store.db);
-      return { ok: true, database: options.store.engine };
-    } catch (error) {
-      if (!isDatabaseUnavailable(error)) throw error;
-      return reply.code(503).header('retry-after', RETRY_AFTER_SECONDS).send({ ok: false, database: options.store.engine, reason: 'the database cannot be reached' });
-    }
-  });
+  await app.register(probesPlugin);
 
   await app.register(routeTablePlugin, { routes });
   await app.register(workspaceFilesPlugin);

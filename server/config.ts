@@ -11,6 +11,8 @@ export const ConfigSchema = z.object({
   PORT: z.string().trim().regex(/^\d+$/, 'a port number').transform(Number).pipe(z.number().max(65535)).default(3000),
   /** Creates courses and their first instructors; at least 24 characters when set. */
   RATEPROOF_ADMIN_TOKEN: z.string().min(24, 'at least 24 characters').optional(),
+  /** Lets any address read /metrics with it; unset, /metrics answers only this machine. At least 24 characters when set. */
+  RATEPROOF_METRICS_TOKEN: z.string().min(24, 'at least 24 characters').optional(),
   RATEPROOF_BODY_LIMIT_MB: z.string().trim().regex(/^\d+(\.\d+)?$/, 'a number of megabytes').transform(Number).pipe(z.number().positive().max(100)).default(5),
   /** `always` behind a proxy that ends TLS: the session cookie is then marked Secure although the service hears http. */
   RATEPROOF_SECURE_COOKIE: z.enum(['auto', 'always']).default('auto'),
@@ -25,6 +27,8 @@ export interface Config {
   host: string;
   port: number;
   adminToken?: string;
+  /** Who may read /metrics from another machine (a bearer token); unset, only this machine may. */
+  metricsToken?: string;
   bodyLimitBytes: number;
   logLevel: z.infer<typeof ConfigSchema>['LOG_LEVEL'];
   /** Worker threads for checking and drawing (0: the service's own thread); unset: one per core. */
@@ -52,6 +56,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     host: c.HOST,
     port: c.PORT,
     adminToken: c.RATEPROOF_ADMIN_TOKEN,
+    metricsToken: c.RATEPROOF_METRICS_TOKEN,
     bodyLimitBytes: Math.round(c.RATEPROOF_BODY_LIMIT_MB * 1024 * 1024),
     logLevel: c.LOG_LEVEL,
     secureCookie: c.RATEPROOF_SECURE_COOKIE,

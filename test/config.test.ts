@@ -22,6 +22,7 @@ describe('readConfig', () => {
       host: '127.0.0.1',
       port: 3000,
       adminToken: undefined,
+      metricsToken: undefined,
       bodyLimitBytes: 5 * 1024 * 1024,
       logLevel: 'info',
       secureCookie: 'auto',
@@ -36,6 +37,7 @@ describe('readConfig', () => {
       HOST: '0.0.0.0',
       PORT: '8080',
       RATEPROOF_ADMIN_TOKEN: TOKEN_24,
+      RATEPROOF_METRICS_TOKEN: `metrics-${TOKEN_24}`,
       RATEPROOF_BODY_LIMIT_MB: '12',
       LOG_LEVEL: 'warn',
       RATEPROOF_SECURE_COOKIE: 'always',
@@ -47,6 +49,7 @@ describe('readConfig', () => {
       host: '0.0.0.0',
       port: 8080,
       adminToken: TOKEN_24,
+      metricsToken: `metrics-${TOKEN_24}`,
       bodyLimitBytes: 12 * 1024 * 1024,
       logLevel: 'warn',
       secureCookie: 'always',
@@ -99,6 +102,12 @@ describe('readConfig', () => {
       // The token itself never appears in the message.
       expect(error.message).not.toContain(token);
     });
+  });
+
+  it('names RATEPROOF_METRICS_TOKEN when it is shorter than 24 characters, without quoting it', () => {
+    const error = configError({ RATEPROOF_METRICS_TOKEN: 'short-token' });
+    expect(error.message).toMatch(/^\s*RATEPROOF_METRICS_TOKEN: at least 24 characters$/m);
+    expect(error.message).not.toContain('short-token');
   });
 
   describe('the body limit and the log level', () => {

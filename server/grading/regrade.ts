@@ -22,6 +22,12 @@ export interface RegradeProgress {
   finishedAt?: Date;
 }
 
+/** Told when a regrade starts and ends (the metrics count them). */
+export interface RegradeWatch {
+  started(): void;
+  ended(job: Readonly<RegradeProgress>): void;
+}
+
 // Each part is checked in the workers and stored in a transaction of its own, so that progress shows
 // and no transaction holds thousands of rows.
 const PART = 500;
@@ -36,13 +42,17 @@ export class Regrades {
   private readonly jobs = new Map<string, RegradeProgress>();
   private readonly running = new Set<Promise<void>>();
 
-  constructor(private readonly grader: Grader) {}
+  constructor(
+    private readonly grader: Grader,
+    private readonly watch?: RegradeWatch,
+  ) {}
 
   async start(db: Kysely<Database>, assignment: AssignmentRow, sectionId?: number): Promise<RegradeProgress> {
     assignmentOf(assignment.settings, 'settings');
     const latest = await latestSubmissions(db, assignment.id, sectionId);
     const job: RegradeProgress = { regradeId: randomUUID(), assignmentId: assignment.id, sectionId: sectionId ?? null, total: latest.length, done: 0, status: 'running', startedAt: new Date() };
     this.keep(job);
+    this.watch?.started();
     const work = this.run(db, assignment, latest, job).finally(() => this.running.delete(work));
     this.running.add(work);
     return { ...job };
@@ -77,6 +87,7 @@ export class Regrades {
       job.error = isDatabaseUnavailable(error) ? 'the database could not be reached; start the regrade again' : 'an internal error stopped it; start the regrade again';
     } finally {
       job.finishedAt = new Date();
+      this.watch?.ended(job);
     }
   }
 }

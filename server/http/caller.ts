@@ -21,6 +21,9 @@ const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
 /** `Authorization: Bearer <token>`; the scheme's name is case-insensitive (RFC 9110 section 11.1, RFC 6750). */
 const BEARER = /^bearer +(\S+) *$/i;
 
+/** The token of a request's `Authorization: Bearer`, if it carries one. */
+export const bearerToken = (request: FastifyRequest): string | undefined => BEARER.exec(request.headers.authorization ?? '')?.[1];
+
 /** The admin or staff token of `Authorization: Bearer`, if the request carries one. */
 export async function tokenCaller(token: string, store: Store, config: Config): Promise<Caller | undefined> {
   if (config.adminToken && sameSecret(token, config.adminToken)) return { kind: 'admin' };
@@ -32,7 +35,7 @@ export async function tokenCaller(token: string, store: Store, config: Config): 
  * Under a cookie, a change needs the page's `x-csrf-token` as well, which another site cannot know.
  */
 export async function callerOf(request: FastifyRequest, store: Store, config: Config): Promise<Caller> {
-  const token = BEARER.exec(request.headers.authorization ?? '')?.[1];
+  const token = bearerToken(request);
   if (token) {
     const caller = await tokenCaller(token, store, config);
     if (!caller) throw new ApiError('unauthenticated', 'the API token is not valid');

@@ -8,7 +8,7 @@ import type { FastifyRequest } from 'fastify';
  * being as free as the path's.
  */
 const INTERNAL_ID = /^\d{1,10}$/;
-const OTHER_WORDS = ['v1', 'session', 'docs', 'openapi.json', 'health', 'web'];
+const OTHER_WORDS = ['v1', 'session', 'docs', 'openapi.json', 'health', 'ready', 'metrics', 'web'];
 
 /** The words of a route table's URLs and of the app's other paths: what a logged URL may keep. */
 export function urlWords(routes: ReadonlyArray<{ url: string }>): ReadonlySet<string> {

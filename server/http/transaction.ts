@@ -38,15 +38,19 @@ export const transactionPlugin = fp(async (app: FastifyInstance) => {
   app.addHook('onRequest', async (request) => {
     request.db = app.store.db;
   });
-  app.addHook('onSend', async (request, reply, payload) => {
-    await settle(request, reply.statusCode < 400);
-    return payload;
-  });
-  app.addHook('onResponse', async (request) => {
+  // A rollback that fails (the connection lost with the database) leaves the reply as it was: the
+  // server drops an open transaction with its connection, so nothing is stored either way.
+  const rollBack = async (request: FastifyRequest) => {
     try {
       await settle(request, false);
     } catch (error) {
       request.log.error({ error: { name: (error as Error).name } }, 'a transaction could not be rolled back');
     }
+  };
+  app.addHook('onSend', async (request, reply, payload) => {
+    if (reply.statusCode < 400) await settle(request, true);
+    else await rollBack(request);
+    return payload;
   });
+  app.addHook('onResponse', rollBack);
 }, { name: 'rateproof-transaction', dependencies: ['rateproof-services'] });

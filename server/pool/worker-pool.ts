@@ -10,7 +10,18 @@ import type { TaskName, TaskInput, TaskOutput } from './tasks.ts';
 export interface WorkerPool {
   run<N extends TaskName>(name: N, input: TaskInput<N>): Promise<TaskOutput<N>>;
   readonly size: number;
+  /** How the pool is used just now (read by the metrics). */
+  use(): PoolUse;
   close(): Promise<void>;
+}
+
+export interface PoolUse {
+  /** Threads started (they start on demand, up to `size`). */
+  threads: number;
+  /** Tasks being worked on. */
+  busy: number;
+  /** Tasks waiting for a free thread. */
+  queued: number;
 }
 
 interface Job {
@@ -94,6 +105,7 @@ export function createWorkerPool(size = availableParallelism()): WorkerPool {
 
   return {
     size,
+    use: () => ({ threads: slots.length, busy: slots.filter((s) => s.job).length, queued: queue.length }),
     run(name, input) {
       if (closed) return Promise.reject(new Error('the worker pool is closed'));
       return new Promise((resolve, reject) => {

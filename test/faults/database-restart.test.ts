@@ -31,7 +31,7 @@ describe.skipIf(ownPostgresMissing)('the service through a restart of its Postgr
     await postgres?.destroy();
   });
 
-  it('answers 503 with Retry-After while it is away (never 500), says so at /health, recovers by itself, and loses no confirmed grade', async () => {
+  it('answers 503 with Retry-After while it is away (never 500), says so at /ready (alive at /health throughout), recovers by itself, and loses no confirmed grade', async () => {
     const url = `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`;
     const statuses: number[] = [];
     const confirmed: number[] = [];
@@ -53,16 +53,18 @@ describe.skipIf(ownPostgresMissing)('the service through a restart of its Postgr
     // The loaders have stored something before the server goes away.
     await vi.waitFor(() => expect(confirmed.length).toBeGreaterThan(0), { timeout: 30_000 });
     await postgres.stop();
-    // /health notices it is away by itself (its answer is the condition waited on, then checked).
+    // /ready notices it is away by itself (its answer is the condition waited on, then checked).
     const away = await vi.waitFor(
       async () => {
-        const res = await app.inject({ method: 'GET', url: '/health' });
+        const res = await app.inject({ method: 'GET', url: '/ready' });
         expect(res.statusCode).toBe(503);
         return res;
       },
       { timeout: 30_000, interval: 100 },
     );
-    expect(away.json()).toMatchObject({ ok: false });
+    expect(away.json()).toMatchObject({ ready: false, reason: 'the database cannot be reached' });
+    // The process itself still answers: a supervisor has no reason to restart it.
+    expect((await app.inject({ method: 'GET', url: '/health' })).statusCode).toBe(200);
     const during = await app.inject({ method: 'GET', url: `${url.replace('/submissions', '/results')}`, headers: bearer(s.taAToken) });
     expect(during.statusCode).toBe(503);
     // A batch sent while it is away: refused whole, with the code a client retries on. (The loaders
@@ -71,7 +73,7 @@ describe.skipIf(ownPostgresMissing)('the service through a restart of its Postgr
     expect([batch.statusCode, batch.headers['retry-after'], batch.json().error.code]).toEqual([503, '5', 'database-unavailable']);
 
     await postgres.start();
-    await vi.waitFor(async () => expect((await app.inject({ method: 'GET', url: '/health' })).statusCode).toBe(200), { timeout: 30_000, interval: 200 });
+    await vi.waitFor(async () => expect((await app.inject({ method: 'GET', url: '/ready' })).statusCode).toBe(200), { timeout: 30_000, interval: 200 });
     // After it is back, a loader's batch is stored again.
     const after = statuses.length;
     await vi.waitFor(() => expect(statuses.slice(after)).toContain(201), { timeout: 30_000 });

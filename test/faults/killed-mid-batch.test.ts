@@ -149,8 +149,8 @@ describe.skipIf(NO_SERVER)('the service killed (SIGKILL) while a batch’s trans
     // killed batch left none behind.
     const second = start();
     const again = overHttp(await second.listening);
-    const health = await again.inject({ method: 'GET', url: '/health' });
-    expect(health.statusCode).toBe(200);
+    const ready = await again.inject({ method: 'GET', url: '/ready' });
+    expect(ready.statusCode).toBe(200);
     const res = await submit(again);
     expect(res.statusCode).toBe(201);
     expect(res.json().stored).toHaveLength(1500);
