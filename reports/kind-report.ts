@@ -1,7 +1,7 @@
 import type { KindDisplay } from '../schemas/display.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import type { FeedbackInput, SectionSummaryInput } from './feedback-input.ts';
-import type { RubricLine } from './feedback/rubric-breakdown.ts';
+import type { RubricLine } from './feedback/rubric-lines.ts';
 import type { Doc } from './pdf/document.ts';
 
 /**

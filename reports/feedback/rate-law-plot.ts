@@ -5,9 +5,8 @@ import { Plot } from '../pdf/plot.ts';
 import { drawRich } from '../pdf/rich-text.ts';
 import { nearValues, niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import type { Line } from './run-series.ts';
+import { OUR_LINE, THEIR_LINE, type Line } from './plot-lines.ts';
 import type { RateLawSeries } from './rate-law-series.ts';
-import { OUR_LINE, THEIR_LINE } from './run-plots.ts';
 
 const HEIGHT = 200;
 

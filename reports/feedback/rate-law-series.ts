@@ -1,6 +1,6 @@
 import type { Refit, Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import { convertUnit } from '../units.ts';
-import type { Line } from './run-series.ts';
+import type { Line } from './plot-lines.ts';
 
 /**
  * What the k_obs against [catalyst] plot shows, all in the instructor's units with [catalyst] in M:

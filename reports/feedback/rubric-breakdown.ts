@@ -1,15 +1,7 @@
 import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import { settleBooks, type RubricRow } from '../../server/checks/rubric-books.ts';
-
-/**
- * The score taken apart by rubric item: the books' rows (what each item is worth for this submission
- * and the points its findings cost, never more than it is worth) with the item's label.
- */
-export interface RubricLine extends RubricRow {
-  /** With sub/superscript markup. */
-  label: string;
-}
+import { settleBooks } from '../../server/checks/rubric-books.ts';
+import { labelled, type RubricLine } from './rubric-lines.ts';
 
 type RubricItem = keyof Settings['rubric'];
 
@@ -40,13 +32,4 @@ export function rubricBreakdown(settings: Settings, submission: Pick<Submission,
   // The checker says what the maximum is made of; older results are read by the rule of their time.
   const items = result.items ?? itemsOfOlderResult(settings, submission?.runs.length ?? 0).map(([item, count]) => ({ item, count, each: r[item] }));
   return labelled(settleBooks(items, result.maxScore, result.findings).rows, RUBRIC_LABELS).filter((l) => l.each > 0 || l.lost > 0);
-}
-
-function labelled(rows: RubricRow[], labels: Readonly<Record<string, string>>): RubricLine[] {
-  return rows.map((row) => ({ ...row, label: labels[row.item] ?? row.item }));
-}
-
-/** Rubric lines from the checker's own account of the maximum (`result.items`), with the kind's labels. */
-export function rubricLinesOf(result: CheckResult, labels: Readonly<Record<string, string>>): RubricLine[] {
-  return labelled(settleBooks(result.items ?? [], result.maxScore, result.findings).rows, labels);
 }

@@ -1,14 +1,12 @@
 import { formatNumber, prettyUnit } from '../format.ts';
 import { contentLeft, contentWidth, ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../pdf/document.ts';
 import { legend, marker, type LegendItem } from '../pdf/marks.ts';
-import { Plot, type Box, type LineStyle } from '../pdf/plot.ts';
+import { Plot, type Box } from '../pdf/plot.ts';
 import { drawRich, richWidth } from '../pdf/rich-text.ts';
 import { nearValues, niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import type { Line, RunSeries } from './run-series.ts';
-
-export const OUR_LINE: LineStyle = { color: COLOR.accent, width: 1.2 };
-export const THEIR_LINE: LineStyle = { color: COLOR.student, width: 1.2, dash: [4, 2.5] };
+import { OUR_LINE, THEIR_LINE, type Line } from './plot-lines.ts';
+import type { RunSeries } from './run-series.ts';
 
 const PLOT_HEIGHT = 168;
 const NOTE_HEIGHT = 26;

@@ -2,17 +2,13 @@ import type { Refit, RunRefit, Settings, SubmittedRun } from '../../schemas/kind
 import type { Finding } from '../../schemas/result.ts';
 import { convertUnit } from '../units.ts';
 import { prettyUnit } from '../format.ts';
+import type { Line } from './plot-lines.ts';
 
 /**
  * What the ln F plot of one run shows: the student's points (their ln F column where given, else ours),
  * our fitted line, and the student's line (slope −k in the run's time unit) where the run has a finding
  * or their k differs from ours beyond the tolerance. Times are counted from the first reading, as in the refit.
  */
-export interface Line {
-  intercept: number;
-  slope: number;
-}
-
 export interface Point {
   t: number;
   y: number;

@@ -1,6 +1,6 @@
 import type { Refit, Submission } from '../../schemas/kinds/temperature-dependence.ts';
 import { GAS_CONSTANT, LN_KB_OVER_H } from '../../server/engine/physical-constants.ts';
-import type { Line } from '../feedback/run-series.ts';
+import type { Line } from '../feedback/plot-lines.ts';
 import { convertUnit } from '../units.ts';
 
 /**

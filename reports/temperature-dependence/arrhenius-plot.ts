@@ -6,8 +6,7 @@ import { Plot, type Box } from '../pdf/plot.ts';
 import { drawRich, richWidth } from '../pdf/rich-text.ts';
 import { nearValues, niceAxis } from '../pdf/scale.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import { OUR_LINE, THEIR_LINE } from '../feedback/run-plots.ts';
-import type { Line } from '../feedback/run-series.ts';
+import { OUR_LINE, THEIR_LINE, type Line } from '../feedback/plot-lines.ts';
 import { arrheniusSeries, eyringSeries, type ActivationSeries } from './activation-series.ts';
 
 const HEIGHT = 190;

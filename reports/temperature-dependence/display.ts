@@ -3,7 +3,7 @@ import type { Refit, Settings, Submission } from '../../schemas/kinds/temperatur
 import { crosses, displayAxis } from '../display/plot-axes.ts';
 import { nearValues } from '../pdf/scale.ts';
 import type { FeedbackInput } from '../feedback-input.ts';
-import type { Line } from '../feedback/run-series.ts';
+import type { Line } from '../feedback/plot-lines.ts';
 import { formatNumber } from '../format.ts';
 import { arrheniusSeries, eyringSeries, type ActivationSeries } from './activation-series.ts';
 import { VALUE_COLUMNS, valueRows } from './value-rows.ts';

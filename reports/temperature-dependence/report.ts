@@ -1,6 +1,6 @@
 import type { Refit, Settings, Submission } from '../../schemas/kinds/temperature-dependence.ts';
 import type { KindReport } from '../kind-report.ts';
-import { rubricLinesOf } from '../feedback/rubric-breakdown.ts';
+import { rubricLinesOf } from '../feedback/rubric-lines.ts';
 import { drawArrheniusPlot } from './arrhenius-plot.ts';
 import { drawClassActivation } from './class-activation.ts';
 import { temperatureDependenceDisplay } from './display.ts';
