@@ -1,7 +1,7 @@
 import type { DrawnKind, KindReport } from '../reports/kind-report.ts';
 import type { ExperimentKind } from '../server/checks/experiment-kind.ts';
-import { firstOrderCatalysis } from '../server/checks/first-order-catalysis/kind.ts';
-import { temperatureDependence } from '../server/checks/temperature-dependence/kind.ts';
+import { firstOrderCatalysis } from './first-order-catalysis/checks/kind.ts';
+import { temperatureDependence } from './temperature-dependence/checks/kind.ts';
 
 /**
  * Every experiment kind the service knows, by name: its checker, and its parts of the documents,
@@ -19,8 +19,13 @@ export function registerKind(checker: ExperimentKind, report: () => Promise<Kind
   kinds.set(checker.kind, { checker, report });
 }
 
-registerKind(firstOrderCatalysis as ExperimentKind, async () => (await import('../reports/first-order-catalysis/report.ts')).firstOrderCatalysisReport);
-registerKind(temperatureDependence as ExperimentKind, async () => (await import('../reports/temperature-dependence/report.ts')).temperatureDependenceReport);
+registerKind(firstOrderCatalysis as ExperimentKind, async () => (await import('./first-order-catalysis/report/report.ts')).firstOrderCatalysisReport);
+registerKind(temperatureDependence as ExperimentKind, async () => (await import('./temperature-dependence/report/report.ts')).temperatureDependenceReport);
+
+/** Every registered kind's checker, in the order registered. */
+export function registeredKinds(): ExperimentKind[] {
+  return [...kinds.values()].map((k) => k.checker);
+}
 
 export function kindFor(name: string): ExperimentKind | undefined {
   return kinds.get(name)?.checker;

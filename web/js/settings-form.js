@@ -5,7 +5,7 @@ import { fill, h } from './dom.js';
  * @import { Failure } from './api.js'
  * @import { Tolerance } from '../../schemas/common.ts'
  * @import { Assignment } from '../../schemas/api/assignments.ts'
- * @import { Rubric, Settings, SettingsInput, Tolerances } from '../../schemas/kinds/first-order-catalysis.ts'
+ * @import { Rubric, Settings, SettingsInput, Tolerances } from '../../kinds/first-order-catalysis/schemas.ts'
  */
 /** @typedef {[value: string, label: string][]} Choices */
 /**

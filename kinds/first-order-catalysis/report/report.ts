@@ -1,0 +1,38 @@
+import type { Settings, Submission } from '../schemas.ts';
+import type { KindReport } from '../../../reports/kind-report.ts';
+import { describePath } from './paths.ts';
+import { drawRateLawPlot } from './rate-law-plot.ts';
+import { rateLawSeries } from './rate-law-series.ts';
+import { drawResidualPlots } from './residual-plots.ts';
+import { rubricBreakdown } from './rubric-breakdown.ts';
+import { drawRunPlots } from './run-plots.ts';
+import { allRunSeries } from './run-series.ts';
+import { drawValues } from './values-block.ts';
+import { readRefit } from './refit.ts';
+import { firstOrderCatalysisDisplay } from './display.ts';
+import { drawRateConstants } from './summary-rate-constants.ts';
+
+/**
+ * The documents' parts for `first-order-catalysis`: reported against refit values, ln F against t per
+ * run, k_obs against [catalyst] and residuals on the sheet; the class's k_N and k_A in the summary.
+ */
+export const firstOrderCatalysisReport: KindReport = {
+  // A refused submission may not have the shape of one; its places are then named as written.
+  describePath: (path, submission) => describePath(path, Array.isArray((submission as Partial<Submission> | undefined)?.runs) ? (submission as Submission) : undefined),
+  rubricBreakdown: (settings, submission, result) => rubricBreakdown(settings as Settings, submission as Submission, result),
+  drawSheetData(doc, input) {
+    const settings = input.settings as Settings;
+    const submission = input.submission as Submission;
+    const refit = readRefit(input.result);
+    if (!refit) return;
+    drawValues(doc, settings, submission, refit);
+    const runs = allRunSeries(settings, submission.runs, refit, input.result.findings);
+    drawRunPlots(doc, runs);
+    const law = rateLawSeries(settings, submission, refit);
+    if (law) drawRateLawPlot(doc, law);
+    drawResidualPlots(doc, runs);
+  },
+  display: firstOrderCatalysisDisplay,
+  summaryFacts: (settings) => [['Fit asked for', `ln F against t ${(settings as Settings).fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`]],
+  drawSummaryData: drawRateConstants,
+};
