@@ -59,7 +59,7 @@ module.exports = {
       comment: "A kind's folder holds all of that kind and stands on the generic layers; it never uses another kind or the registry.",
       severity: 'error',
       from: { path: '^kinds/([^/]+)/', pathNot: '^kinds/[^/]+/demo/' },
-      to: { path: OURS, pathNot: ['^kinds/$1/', '^(reports|schemas|server/(checks|signals|engine|input))/'] },
+      to: { path: OURS, pathNot: ['^kinds/$1/', '^kinds/kind-entry[.]ts$', '^(reports|schemas|server/(checks|signals|engine|input))/'] },
     },
     {
       name: 'a-kind-demo-on-the-demo',

@@ -1,26 +1,29 @@
 import type { DrawnKind, KindReport } from '../reports/kind-report.ts';
+import type { KindSettings } from '../reports/feedback-input.ts';
 import type { ExperimentKind } from '../server/checks/experiment-kind.ts';
-import { firstOrderCatalysis } from './first-order-catalysis/checks/kind.ts';
-import { temperatureDependence } from './temperature-dependence/checks/kind.ts';
+import type { KindEntry } from './kind-entry.ts';
+import type { CheckResult } from '../schemas/result.ts';
+import { firstOrderCatalysisKind } from './first-order-catalysis/index.ts';
+import { temperatureDependenceKind } from './temperature-dependence/index.ts';
 
 /**
- * Every experiment kind the service knows, by name: its checker, and its parts of the documents,
- * loaded only when a document is drawn. Registering a kind is one call. The registry stands above
- * checks/ and reports/, which each give their part of a kind and know nothing of the other.
+ * Every experiment kind the service knows, by name. A kind is a folder, kinds/<kind>/, whose index.ts
+ * gives its checker and its parts of the documents; registering it is one line below. The registry
+ * stands above every kind and above checks/ and reports/, which name no kind. Worker threads import
+ * this same module (through kinds/documents.ts and the batches), so every kind listed here reaches them.
  */
-interface RegisteredKind {
-  checker: ExperimentKind;
-  report(): Promise<KindReport>;
+const kinds = new Map<string, KindEntry>();
+
+/**
+ * Adds a kind. Its parts are typed by its own settings, submission and refit; here they are kept as
+ * any kind's, since the registry hands them only settings, submissions and results of that kind.
+ */
+export function registerKind<Settings extends KindSettings, Submission, Refit extends CheckResult['refit']>(entry: KindEntry<Settings, Submission, Refit>): void {
+  kinds.set(entry.checker.kind, entry);
 }
 
-const kinds = new Map<string, RegisteredKind>();
-
-export function registerKind(checker: ExperimentKind, report: () => Promise<KindReport>): void {
-  kinds.set(checker.kind, { checker, report });
-}
-
-registerKind(firstOrderCatalysis as ExperimentKind, async () => (await import('./first-order-catalysis/report/report.ts')).firstOrderCatalysisReport);
-registerKind(temperatureDependence as ExperimentKind, async () => (await import('./temperature-dependence/report/report.ts')).temperatureDependenceReport);
+registerKind(firstOrderCatalysisKind);
+registerKind(temperatureDependenceKind);
 
 /** Every registered kind's checker, in the order registered. */
 export function registeredKinds(): ExperimentKind[] {
@@ -31,7 +34,7 @@ export function kindFor(name: string): ExperimentKind | undefined {
   return kinds.get(name)?.checker;
 }
 
-function registered(name: string): RegisteredKind {
+function registered(name: string): KindEntry {
   const kind = kinds.get(name);
   if (!kind) throw new Error(`no experiment kind ${name}`);
   return kind;

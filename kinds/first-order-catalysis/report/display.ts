@@ -1,5 +1,5 @@
 import type { DisplayPlot, KindDisplay } from '../../../schemas/display.ts';
-import type { Settings, Submission } from '../schemas.ts';
+import type { Refit, Settings, Submission } from '../schemas.ts';
 import type { FeedbackInput } from '../../../reports/feedback-input.ts';
 import { crosses, displayAxis, inside } from '../../../reports/display/plot-axes.ts';
 import { nearValues } from '../../../reports/pdf/scale.ts';
@@ -85,9 +85,8 @@ function rateLawPlot(series: RateLawSeries): DisplayPlot {
   };
 }
 
-export function firstOrderCatalysisDisplay(input: FeedbackInput): KindDisplay {
-  const settings = input.settings as Settings;
-  const submission = input.submission as Submission;
+export function firstOrderCatalysisDisplay(input: FeedbackInput<Settings, Submission, Refit>): KindDisplay {
+  const { settings, submission } = input;
   const refit = readRefit(input.result);
   if (!refit) return { comparison: null, plots: [] };
   const rows = valueRows(settings, submission, refit);

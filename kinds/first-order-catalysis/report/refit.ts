@@ -1,5 +1,4 @@
 import type { Refit, RunRefit } from '../schemas.ts';
-import type { CheckResult } from '../../../schemas/result.ts';
 
 /**
  * The result's refit in the kind's shape, or undefined (rejected result, or another kind).
@@ -39,7 +38,7 @@ function runRefit(value: unknown): RunRefit | undefined {
   };
 }
 
-export function readRefit(result: CheckResult): Refit | undefined {
+export function readRefit(result: { refit: unknown }): Refit | undefined {
   const refit = record(result.refit);
   if (!refit || !Array.isArray(refit.runs)) return undefined;
   const runs = refit.runs.map(runRefit);

@@ -1,4 +1,4 @@
-import type { Settings, Submission } from '../schemas.ts';
+import type { Refit, Settings, Submission } from '../schemas.ts';
 import type { KindReport } from '../../../reports/kind-report.ts';
 import { describePath } from './paths.ts';
 import { drawRateLawPlot } from './rate-law-plot.ts';
@@ -12,17 +12,21 @@ import { readRefit } from './refit.ts';
 import { firstOrderCatalysisDisplay } from './display.ts';
 import { drawRateConstants } from './summary-rate-constants.ts';
 
+/** Whether a submission has the runs a place in it may name (a refused one may not). */
+function hasRuns(submission: unknown): submission is Pick<Submission, 'runs'> {
+  return typeof submission === 'object' && submission !== null && 'runs' in submission && Array.isArray(submission.runs);
+}
+
 /**
  * The documents' parts for `first-order-catalysis`: reported against refit values, ln F against t per
  * run, k_obs against [catalyst] and residuals on the sheet; the class's k_N and k_A in the summary.
  */
-export const firstOrderCatalysisReport: KindReport = {
+export const firstOrderCatalysisReport: KindReport<Settings, Submission, Refit> = {
   // A refused submission may not have the shape of one; its places are then named as written.
-  describePath: (path, submission) => describePath(path, Array.isArray((submission as Partial<Submission> | undefined)?.runs) ? (submission as Submission) : undefined),
-  rubricBreakdown: (settings, submission, result) => rubricBreakdown(settings as Settings, submission as Submission, result),
+  describePath: (path, submission) => describePath(path, hasRuns(submission) ? submission : undefined),
+  rubricBreakdown,
   drawSheetData(doc, input) {
-    const settings = input.settings as Settings;
-    const submission = input.submission as Submission;
+    const { settings, submission } = input;
     const refit = readRefit(input.result);
     if (!refit) return;
     drawValues(doc, settings, submission, refit);
@@ -33,6 +37,6 @@ export const firstOrderCatalysisReport: KindReport = {
     drawResidualPlots(doc, runs);
   },
   display: firstOrderCatalysisDisplay,
-  summaryFacts: (settings) => [['Fit asked for', `ln F against t ${(settings as Settings).fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`]],
+  summaryFacts: (settings) => [['Fit asked for', `ln F against t ${settings.fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`]],
   drawSummaryData: drawRateConstants,
 };

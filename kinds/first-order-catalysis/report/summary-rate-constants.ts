@@ -1,4 +1,4 @@
-import type { Settings, Submission } from '../schemas.ts';
+import type { Refit, Settings, Submission } from '../schemas.ts';
 import type { SectionSummaryInput } from '../../../reports/feedback-input.ts';
 import { formatNumber, prettyUnit } from '../../../reports/format.ts';
 import { ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../../../reports/pdf/document.ts';
@@ -22,9 +22,8 @@ function spreadRow(values: ClassValues, source: string, data: number[]): string[
 }
 
 /** The class's k_N and k_A, refitted and as reported, against the reference band. */
-export function drawRateConstants(doc: Doc, input: SectionSummaryInput): void {
-  const settings = input.settings as Settings;
-  const submissions = input.submissions as Submission[] | undefined;
+export function drawRateConstants(doc: Doc, input: SectionSummaryInput<Settings, Submission, Refit>): void {
+  const { settings, submissions } = input;
   const values = classValues(settings, input.results, submissions);
   if (values.every((v) => v.refit.length === 0 && v.reported.length === 0)) return;
   sectionHeading(doc, 'The class’s k_{N} and k_{A}', 150);

@@ -1,4 +1,4 @@
-import type { Refit } from '../schemas.ts';
+import type { Refit, Settings, Submission } from '../schemas.ts';
 import type { SectionSummaryInput } from '../../../reports/feedback-input.ts';
 import { prettyUnit } from '../../../reports/format.ts';
 import { paragraph, sectionHeading, type Doc } from '../../../reports/pdf/document.ts';
@@ -8,8 +8,8 @@ import { SYMBOLS } from './symbols.ts';
 
 
 /** The class's refitted E_a, ΔH‡ and ΔS‡: how far apart the students' own data put them. */
-export function drawClassActivation(doc: Doc, input: SectionSummaryInput): void {
-  const refits = input.results.flatMap((r) => (r.status === 'checked' && r.refit ? [r.refit as Refit] : []));
+export function drawClassActivation(doc: Doc, input: SectionSummaryInput<Settings, Submission, Refit>): void {
+  const refits = input.results.flatMap((r) => (r.status === 'checked' && r.refit ? [r.refit] : []));
   if (refits.length === 0) return;
   sectionHeading(doc, 'The class’s activation parameters', 120);
   paragraph(doc, 'Refit: our fit of each student’s own rate constants. SD is the sample standard deviation.');

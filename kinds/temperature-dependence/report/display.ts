@@ -39,10 +39,9 @@ function activationPlot(series: ActivationSeries, title: string, yLabel: string,
   };
 }
 
-export function temperatureDependenceDisplay(input: FeedbackInput): KindDisplay {
-  const settings = input.settings as Settings;
-  const submission = input.submission as Submission;
-  const refit = input.result.refit as Refit | null;
+export function temperatureDependenceDisplay(input: FeedbackInput<Settings, Submission, Refit>): KindDisplay {
+  const { settings, submission } = input;
+  const refit = input.result.refit;
   if (!refit) return { comparison: null, plots: [] };
   const arrhenius = arrheniusSeries(refit, submission.reported);
   const eyring = eyringSeries(refit, submission.reported);

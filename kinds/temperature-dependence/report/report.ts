@@ -19,7 +19,12 @@ const RUBRIC_LABELS: Record<keyof Settings['rubric'], string> = {
 
 const WEIGHTS: Record<(typeof VALUE_COLUMNS)[number], number> = { Quantity: 0.8, Reported: 2, Refit: 2, Difference: 0.9, Tolerance: 1.2 };
 
-function describe(path: string, submission: Submission | undefined): string {
+/** Whether a submission has the points a place in it may name (a refused one may not). */
+function hasPoints(submission: unknown): submission is Pick<Submission, 'points'> {
+  return typeof submission === 'object' && submission !== null && 'points' in submission && Array.isArray(submission.points);
+}
+
+function describe(path: string, submission: Pick<Submission, 'points'> | undefined): string {
   const top = /^reported\.(Ea|A|dH|dS)(\.uncertainty|\.unit)?$/.exec(path);
   if (top) {
     const symbol = SYMBOLS[top[1] as keyof typeof SYMBOLS];
@@ -37,13 +42,12 @@ function describe(path: string, submission: Submission | undefined): string {
  * The documents' parts for `temperature-dependence`: reported against refit values and the Arrhenius
  * plot on the sheet; the class's activation energies in the summary.
  */
-export const temperatureDependenceReport: KindReport = {
-  describePath: (path, submission) => describe(path, Array.isArray((submission as Partial<Submission> | undefined)?.points) ? (submission as Submission) : undefined),
+export const temperatureDependenceReport: KindReport<Settings, Submission, Refit> = {
+  describePath: (path, submission) => describe(path, hasPoints(submission) ? submission : undefined),
   rubricBreakdown: (_settings, _submission, result) => rubricLinesOf(result, RUBRIC_LABELS),
   drawSheetData(doc, input) {
-    const settings = input.settings as Settings;
-    const submission = input.submission as Submission;
-    const refit = input.result.refit as Refit | null;
+    const { settings, submission } = input;
+    const refit = input.result.refit;
     if (!refit) return;
     sectionHeading(doc, 'Reported and refitted', 80);
     paragraph(doc, 'The refit is our own straight-line fit of your rate constants against 1/T (temperatures in kelvin, k per second for Eyring), with its standard error.', { size: SIZE.small, color: COLOR.muted });
@@ -52,6 +56,6 @@ export const temperatureDependenceReport: KindReport = {
     drawArrheniusPlot(doc, refit, submission.reported);
   },
   display: temperatureDependenceDisplay,
-  summaryFacts: (settings) => [['Fit', (settings as Settings).fit === 'weighted' ? 'weighted by SE(ln k)' : 'ordinary least squares']],
+  summaryFacts: (settings) => [['Fit', settings.fit === 'weighted' ? 'weighted by SE(ln k)' : 'ordinary least squares']],
   drawSummaryData: drawClassActivation,
 };
