@@ -2,7 +2,7 @@ import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Refit, Settings, Submission } from '../schemas.ts';
 import { outsideBand } from '../../../server/checks/reference-band.ts';
 import { firstOrderCauses } from './causes.ts';
-import { fitCatalysisLaw, type CatalysisFit } from '../../../server/engine/catalysis-law.ts';
+import { fitCatalysisLaw, type CatalysisFit } from '../catalysis-law.ts';
 import { EngineError } from '../../../server/engine/engine-error.ts';
 import type { Estimate } from '../../../server/engine/estimate.ts';
 import { convert, rateUnitOf, type UnitKind } from '../../../server/engine/units.ts';

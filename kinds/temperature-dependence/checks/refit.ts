@@ -4,7 +4,7 @@ import type { Estimate } from '../../../server/engine/estimate.ts';
 import { GAS_CONSTANT, LN_KB_OVER_H } from '../../../server/engine/physical-constants.ts';
 import { fitFirstOrderLinear } from '../../../server/engine/first-order-linear.ts';
 import { fitFirstOrderNonlinear } from '../../../server/engine/first-order-nonlinear.ts';
-import { fitArrhenius, fitEyring, type TemperaturePoint } from '../../../server/engine/temperature-dependence.ts';
+import { fitArrhenius, fitEyring, type TemperaturePoint } from '../activation-fits.ts';
 import { toKelvin, ZERO_CELSIUS_K } from '../../../server/engine/temperature.ts';
 import { convert, parseUnit } from '../../../server/engine/units.ts';
 import { convertEstimate } from '../../../server/checks/convert-estimate.ts';

@@ -1,5 +1,5 @@
 import type { Submission } from '../schemas.ts';
-import type { TemperaturePoint } from '../../../server/engine/temperature-dependence.ts';
+import type { TemperaturePoint } from '../activation-fits.ts';
 import { readableIn } from '../../../server/checks/reported-number.ts';
 import type { TemperatureAnalysis } from './refit.ts';
 

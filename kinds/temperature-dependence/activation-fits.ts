@@ -1,8 +1,8 @@
-import { EngineError } from './engine-error.ts';
-import type { Estimate } from './estimate.ts';
-import { fitLine, type LineFit } from './linear-fit.ts';
-import { GAS_CONSTANT, LN_KB_OVER_H } from './physical-constants.ts';
-import { lineThroughTwoPoints } from './two-point-line.ts';
+import { EngineError } from '../../server/engine/engine-error.ts';
+import type { Estimate } from '../../server/engine/estimate.ts';
+import { fitLine, type LineFit } from '../../server/engine/linear-fit.ts';
+import { GAS_CONSTANT, LN_KB_OVER_H } from '../../server/engine/physical-constants.ts';
+import { lineThroughTwoPoints } from '../../server/engine/two-point-line.ts';
 
 /**
  * Rate constants at several temperatures. Arrhenius: ln k = ln A - Ea/(R T), so ln k against 1/T has

@@ -1,7 +1,7 @@
-import { EngineError } from './engine-error.ts';
-import type { Estimate } from './estimate.ts';
-import { fitLine, type LineFit } from './linear-fit.ts';
-import { rateUnitOf, secondOrderRateUnitOf } from './units.ts';
+import { EngineError } from '../../server/engine/engine-error.ts';
+import type { Estimate } from '../../server/engine/estimate.ts';
+import { fitLine, type LineFit } from '../../server/engine/linear-fit.ts';
+import { rateUnitOf, secondOrderRateUnitOf } from '../../server/engine/units.ts';
 
 /**
  * The second stage: observed rate constants against catalyst concentration,
