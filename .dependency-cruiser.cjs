@@ -2,8 +2,9 @@
  * The import map's rules: no circles, and each layer imports only the layers below it. Checked by
  * test/house/import-layers.test.ts (so in `npm test`) and by `npm run deps`.
  *
- * At the ground: engine, schemas, input, config and errors. Above them signals, then checks, reports,
- * the kinds registry, batches and the pool, each on the one before; the store beside those; grading
+ * At the ground: engine, schemas, input, config and errors. Above them signals, then checks, reports
+ * (all three generic: they name no kind), each kind's folder under kinds/<kind>/ on those, the kinds
+ * registry (kinds/*.ts) above every kind, batches and the pool, each on the one before; the store beside those; grading
  * on both; routes and HTTP on grading; the app, the command and the demo on top. web/ is apart.
  */
 
@@ -47,7 +48,40 @@ module.exports = {
       ],
       'Result in, bytes out: a kind is handed to the documents, never looked up by them.',
     ),
-    layer('kinds-compose-checks-and-reports', '^kinds/', '^(kinds|reports|schemas|server/(checks|signals|engine|input))/', 'The registry stands above both parts of a kind.'),
+    layer(
+      'the-registry-composes-kinds',
+      '^kinds/[^/]+[.]ts$',
+      '^(kinds|reports|schemas|server/(checks|signals|engine|input))/',
+      'The registry and its users in kinds/ stand above every kind and the generic layers.',
+    ),
+    {
+      name: 'a-kind-on-the-generic-layers',
+      comment: "A kind's folder holds all of that kind and stands on the generic layers; it never uses another kind or the registry.",
+      severity: 'error',
+      from: { path: '^kinds/([^/]+)/', pathNot: '^kinds/[^/]+/demo/' },
+      to: { path: OURS, pathNot: ['^kinds/$1/', '^kinds/kind-entry[.]ts$', '^(reports|schemas|server/(checks|signals|engine|input))/'] },
+    },
+    {
+      name: 'a-kind-demo-on-the-demo',
+      comment: "A kind's demo may also use the demo's seeded random numbers and its way of writing a section's documents.",
+      severity: 'error',
+      from: { path: '^kinds/([^/]+)/demo/' },
+      to: { path: OURS, pathNot: ['^kinds/$1/', '^(reports|schemas|server/(checks|signals|engine|input|demo))/', '^server/store/database[.]ts$'] },
+    },
+    {
+      name: 'a-kind-checker-knows-no-documents',
+      comment: "As the generic checker, a kind's schemas, CSV reader and checks give results and never draw.",
+      severity: 'error',
+      from: { path: '^kinds/[^/]+/(checks/|schemas[.]ts$|csv[.]ts$)' },
+      to: { path: ['^reports/', '^kinds/[^/]+/(report|demo)/'] },
+    },
+    {
+      name: 'a-kind-schema-is-contract',
+      comment: "A kind's schemas are part of the public contract: they stand on schemas/ alone.",
+      severity: 'error',
+      from: { path: '^kinds/[^/]+/schemas[.]ts$' },
+      to: { path: OURS, pathNot: '^(schemas/|kinds/[^/]+/schemas[.]ts$)' },
+    },
     layer('batches-below-pool', '^server/batches/', '^(server/(batches|checks|signals|engine|input)|kinds|reports|schemas)/', 'The work a worker does, below the pool that runs it.'),
     layer('store-below-its-users', '^server/store/', ['^(server/store|schemas|migrations)/', LOW_ROOT_FILES], 'SQL knows nothing of grading or HTTP.'),
     layer('pool-runs-batches-and-kinds', '^server/pool/', '^(server/(pool|batches)|kinds)/', 'The pool names its tasks; the command and grading use the pool.'),

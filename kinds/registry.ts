@@ -1,33 +1,41 @@
 import type { DrawnKind, KindReport } from '../reports/kind-report.ts';
 import type { KindDescription } from '../schemas/api/kinds.ts';
+import type { KindSettings } from '../reports/feedback-input.ts';
 import type { ExperimentKind } from '../server/checks/experiment-kind.ts';
-import { firstOrderCatalysis } from '../server/checks/first-order-catalysis/kind.ts';
-import { temperatureDependence } from '../server/checks/temperature-dependence/kind.ts';
+import type { KindEntry } from './kind-entry.ts';
+import type { CheckResult } from '../schemas/result.ts';
+import { firstOrderCatalysisKind } from './first-order-catalysis/index.ts';
+import { temperatureDependenceKind } from './temperature-dependence/index.ts';
 
 /**
- * Every experiment kind the service knows, by name: its checker, and its parts of the documents,
- * loaded only when a document is drawn. Registering a kind is one call. The registry stands above
- * checks/ and reports/, which each give their part of a kind and know nothing of the other.
+ * Every experiment kind the service knows, by name. A kind is a folder, kinds/<kind>/, whose index.ts
+ * gives its checker and its parts of the documents; registering it is one line below. The registry
+ * stands above every kind and above checks/ and reports/, which name no kind. Worker threads import
+ * this same module (through kinds/documents.ts and the batches), so every kind listed here reaches them.
  */
-interface RegisteredKind {
-  checker: ExperimentKind;
-  report(): Promise<KindReport>;
+const kinds = new Map<string, KindEntry>();
+
+/**
+ * Adds a kind. Its parts are typed by its own settings, submission and refit; here they are kept as
+ * any kind's, since the registry hands them only settings, submissions and results of that kind.
+ */
+export function registerKind<Settings extends KindSettings, Submission, Refit extends CheckResult['refit']>(entry: KindEntry<Settings, Submission, Refit>): void {
+  kinds.set(entry.checker.kind, entry);
 }
 
-const kinds = new Map<string, RegisteredKind>();
+registerKind(firstOrderCatalysisKind);
+registerKind(temperatureDependenceKind);
 
-export function registerKind(checker: ExperimentKind, report: () => Promise<KindReport>): void {
-  kinds.set(checker.kind, { checker, report });
+/** Every registered kind's checker, in the order registered. */
+export function registeredKinds(): ExperimentKind[] {
+  return [...kinds.values()].map((k) => k.checker);
 }
-
-registerKind(firstOrderCatalysis as ExperimentKind, async () => (await import('../reports/first-order-catalysis/report.ts')).firstOrderCatalysisReport);
-registerKind(temperatureDependence as ExperimentKind, async () => (await import('../reports/temperature-dependence/report.ts')).temperatureDependenceReport);
 
 export function kindFor(name: string): ExperimentKind | undefined {
   return kinds.get(name)?.checker;
 }
 
-function registered(name: string): RegisteredKind {
+function registered(name: string): KindEntry {
   const kind = kinds.get(name);
   if (!kind) throw new Error(`no experiment kind ${name}`);
   return kind;

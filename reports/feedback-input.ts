@@ -20,13 +20,16 @@ export interface FeedbackHeader {
   released?: boolean;
 }
 
-export interface FeedbackInput {
+/** A result whose refit has its kind's shape: the registry hands a kind's report only results of that kind. */
+export type KindResult<Refit = CheckResult['refit']> = Omit<CheckResult, 'refit'> & { refit: Refit | null };
+
+export interface FeedbackInput<Settings extends KindSettings = KindSettings, Submission = unknown, Refit = CheckResult['refit']> {
   header: FeedbackHeader;
   /** Parsed settings (defaults filled), as `parseAssignment` returns them. */
-  settings: KindSettings;
+  settings: Settings;
   /** The submission the result was checked from, as the kind's schema parsed it. */
-  submission: unknown;
-  result: CheckResult;
+  submission: Submission;
+  result: KindResult<Refit>;
   /** The data are invented (demo or test): says so in every page's footer. */
   invented?: boolean;
 }
@@ -38,12 +41,12 @@ export interface SummaryHeader {
   gradedAt: Date | string;
 }
 
-export interface SectionSummaryInput {
+export interface SectionSummaryInput<Settings extends KindSettings = KindSettings, Submission = unknown, Refit = CheckResult['refit']> {
   header: SummaryHeader;
-  settings: KindSettings;
-  results: CheckResult[];
+  settings: Settings;
+  results: Array<KindResult<Refit>>;
   /** The submissions, matched to results by student id (the kind's report may summarise their reported values too). */
-  submissions?: unknown[];
+  submissions?: Submission[];
   /** The section's signals for review, where they were computed. */
   signals?: SectionSignals;
   invented?: boolean;

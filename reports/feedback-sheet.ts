@@ -12,8 +12,7 @@ export type { FeedbackHeader, FeedbackInput } from './feedback-input.ts';
 /**
  * One student's feedback sheet as PDF bytes: header, score and its rubric items, findings by stage in
  * the checker's words, the signals about the measurement a TA chose to share, then the kind's own
- * part (for the first kind: reported against refit values, ln F against t per run, k_obs against
- * [catalyst], residuals where a reading looks suspect). Pure: data in, bytes out.
+ * part (its reported against refit values and its plots, drawn by its KindReport). Pure: data in, bytes out.
  */
 export async function renderFeedbackSheet(input: FeedbackInput, kind: DrawnKind): Promise<Buffer> {
   const { header, settings, submission, result } = input;

@@ -1,30 +1,31 @@
 import type { KindDescription } from '../schemas/api/kinds.ts';
 import type { KindDisplay } from '../schemas/display.ts';
 import type { CheckResult } from '../schemas/result.ts';
-import type { FeedbackInput, SectionSummaryInput } from './feedback-input.ts';
-import type { RubricLine } from './feedback/rubric-breakdown.ts';
+import type { FeedbackInput, KindSettings, SectionSummaryInput } from './feedback-input.ts';
+import type { RubricLine } from './feedback/rubric-lines.ts';
 import type { Doc } from './pdf/document.ts';
 
 /**
  * What an experiment kind adds to the documents; the sheet and the summary draw everything else
  * (header, score, findings by stage, notes on the measurement, score distribution, codes, signals)
- * the same for every kind. Settings and submissions arrive as the kind's schemas parsed them.
+ * the same for every kind. Settings, submissions and refits arrive as the kind's schemas made them: the
+ * registry hands a kind's report only its own kind's (its methods take them typed, so none casts).
  */
-export interface KindReport {
+export interface KindReport<Settings extends KindSettings = KindSettings, Submission = unknown, Refit = CheckResult['refit']> {
   /** What the workspace draws the kind's settings form, upload panel and signals panel from. */
   description: KindDescription;
-  /** A finding's or signal's place in words, with sub/superscript markup: `runs[2].reported.k` → Run “0.20 M”: k_{obs}. */
+  /** A finding's or signal's place in words, with sub/superscript markup: `runs[2].reported.k` → Run “0.20 M”: k_{obs}. A refused submission may be of no kind's shape. */
   describePath(path: string, submission: unknown): string;
   /** The score taken apart by rubric item. */
-  rubricBreakdown(settings: unknown, submission: unknown, result: CheckResult): RubricLine[];
+  rubricBreakdown(settings: Settings, submission: Submission | undefined, result: CheckResult): RubricLine[];
   /** The sheet after the findings of a checked result: reported against refit values, plots. */
-  drawSheetData(doc: Doc, input: FeedbackInput): void;
+  drawSheetData(doc: Doc, input: FeedbackInput<Settings, Submission, Refit>): void;
   /** The same values and plots for the workspace's student page, as data the page draws. */
-  display(input: FeedbackInput): KindDisplay;
+  display(input: FeedbackInput<Settings, Submission, Refit>): KindDisplay;
   /** Facts for the summary's header beside course, section and assignment: [label, value]. */
-  summaryFacts(settings: unknown): Array<[string, string]>;
+  summaryFacts(settings: Settings): Array<[string, string]>;
   /** The summary's part on the class's values. */
-  drawSummaryData(doc: Doc, input: SectionSummaryInput): void;
+  drawSummaryData(doc: Doc, input: SectionSummaryInput<Settings, Submission, Refit>): void;
 }
 
 /** A kind as the documents draw it: its report, and from its checker the stages and finding codes, in order. */

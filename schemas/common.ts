@@ -70,7 +70,7 @@ export const Text = (max: number, emptyMessage?: string) => z.string().trim().mi
 
 export const UnitText = Text(40, 'a unit such as min^-1 or M');
 
-/** A value with the unit it is in, e.g. a catalyst concentration. */
+/** A value with the unit it is in, e.g. a concentration. */
 export const Quantity = z.object({ value: FiniteNumber, unit: UnitText });
 export type Quantity = z.infer<typeof Quantity>;
 

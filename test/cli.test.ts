@@ -9,9 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CheckResult } from '../schemas/result.ts';
 import { run } from '../server/cli.ts';
 import { filePosition } from '../server/input/json-position.ts';
-import { generateSection } from '../server/demo/generated-section.ts';
+import { generateSection } from '../kinds/first-order-catalysis/demo/generated-section.ts';
 import { seededRandom } from '../server/demo/seeded-random.ts';
-import { generateAssignment } from '../server/demo/submission-generator.ts';
+import { generateAssignment } from '../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 const assignment = { kind: 'first-order-catalysis', fitModel: 'origin' };
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { Readings } from '../schemas/kinds/first-order-catalysis.ts';
-import { jsonSchemas } from '../schemas/json-schemas.ts';
+import { Readings } from '../schemas/readings.ts';
+import { jsonSchemas } from '../kinds/json-schemas.ts';
 
 // The schema the fast path stands for, written out as the contract states it.
 const Reading = z.tuple([z.number(), z.number()]);

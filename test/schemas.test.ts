@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { isStorableText } from '../schemas/common.ts';
-import { jsonSchemas } from '../schemas/json-schemas.ts';
+import { jsonSchemas } from '../kinds/json-schemas.ts';
 
 describe('exported JSON Schema', () => {
   it.each(Object.entries(jsonSchemas()))('%s is what the zod schemas give (run `npm run schemas` after a change)', (name, schema) => {

@@ -3,7 +3,7 @@ import { buildApp } from '../../server/app.ts';
 import { ConfigSchema, readConfig } from '../../server/config.ts';
 import { apiErrors } from '../../server/errors.ts';
 import { openStore } from '../../server/store/connection.ts';
-import { jsonSchemas } from '../../schemas/json-schemas.ts';
+import { jsonSchemas } from '../../kinds/json-schemas.ts';
 import type { OpenApiDocument } from './api-list.ts';
 import type { ErrorEntry } from './error-table.ts';
 import type { JsonSchema } from './schema-fields.ts';

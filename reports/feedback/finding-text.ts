@@ -10,7 +10,7 @@ import type { FindingCard } from './finding-groups.ts';
 /** A finding's place in words (the kind's), with sub/superscript markup. */
 export type DescribePath = (path: string) => string;
 
-// A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.kN`.
+// A place in a submission as the checker writes it: `runs[0].reported.k`, `points[2].k.unit`, `reported.<quantity>`.
 const PATH = /\b(?:(?:runs|points)\[\d+\](?:\.[A-Za-z]+(?:\[\d+\])*)*|reported\.[A-Za-z]+(?:\.[A-Za-z]+)*)/g;
 
 /** A checker message as a sheet or the page prints it: numbers, units and symbols formatted (sub/superscript markup), and any place it names in words. */

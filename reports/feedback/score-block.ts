@@ -4,7 +4,7 @@ import { contentLeft, contentWidth, ensureSpace, moveTo, sectionHeading, type Do
 import { FONT } from '../pdf/fonts.ts';
 import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
-import type { RubricLine } from './rubric-breakdown.ts';
+import type { RubricLine } from './rubric-lines.ts';
 import { cardCounts, countsInWords } from './finding-groups.ts';
 
 /** The score in large type with a bar, the findings counted as the sheet shows them, and the rubric items it is made of. */

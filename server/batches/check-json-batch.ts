@@ -24,11 +24,11 @@ export interface CheckedBatch {
   submissions?: unknown[];
 }
 
-/** The per-reading arrays are most of a result's size and only a plot needs them. */
+/** The per-reading arrays of a run's refit (whatever the kind calls them) are most of a result's size and only a plot needs them. */
 function withoutArrays(result: CheckResult): CheckResult {
   const refit = result.refit as { runs?: Array<Record<string, unknown>> } | null;
   if (!refit?.runs) return result;
-  return { ...result, refit: { ...refit, runs: refit.runs.map(({ lnF: _lnF, ...run }) => run) } };
+  return { ...result, refit: { ...refit, runs: refit.runs.map((run) => Object.fromEntries(Object.entries(run).filter(([, value]) => !Array.isArray(value)))) } };
 }
 
 /**

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { mkdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
 import { buildApp } from '../app.ts';
 import type { Config } from '../config.ts';
@@ -9,10 +9,10 @@ import { openStore } from '../store/connection.ts';
 import { migrateToLatest } from '../store/migrate.ts';
 import { seededRandom } from './seeded-random.ts';
 import { TABLE_HEADER, tableRows } from './demo-table.ts';
-import { generateSection } from './generated-section.ts';
+import { generateSection } from '../../kinds/first-order-catalysis/demo/generated-section.ts';
 import { writeSectionDocuments } from './section-documents.ts';
-import { temperatureDemo } from './temperature-demo.ts';
-import { assignmentSettings, generateAssignment } from './submission-generator.ts';
+import { temperatureDemo } from '../../kinds/temperature-dependence/demo/demo-assignment.ts';
+import { assignmentSettings, generateAssignment } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 /**
  * `npm run demo`: an invented course with one section of 24 pseudonymous students, graded through the

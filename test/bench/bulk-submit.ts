@@ -3,7 +3,7 @@ import { buildApp } from '../../server/app.ts';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { ADMIN_TOKEN, call, testConfig } from '../support/api-fixture.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { assignmentSettings, generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings, generateAssignment, generateSubmission } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { openTestDatabase } from '../support/test-database.ts';
 
 /**

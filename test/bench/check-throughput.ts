@@ -1,5 +1,5 @@
 import { readFile } from 'node:fs/promises';
-import { findingCodes, type FindingCode } from '../../schemas/kinds/first-order-catalysis.ts';
+import { findingCodes, type FindingCode } from '../../kinds/first-order-catalysis/schemas.ts';
 import { corpus } from './corpus.ts';
 import { checkBatch, checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
@@ -13,7 +13,7 @@ import {
   slipCase,
   slipCodes,
   type SlipCode,
-} from '../../server/demo/submission-generator.ts';
+} from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 /**
  * The checker on generated submissions (an invented scenario, see the generator): (a) which codes it

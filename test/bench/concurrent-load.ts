@@ -1,7 +1,7 @@
 import { sql } from 'kysely';
 import { buildApp } from '../../server/app.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { assignmentSettings, generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings, generateAssignment, generateSubmission } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { ADMIN_TOKEN, bearer, call, testConfig } from '../support/api-fixture.ts';
 import { openTestDatabase } from '../support/test-database.ts';
 

@@ -2,9 +2,9 @@ import { existsSync } from 'node:fs';
 import { mkdir, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { generateSection } from '../../server/demo/generated-section.ts';
+import { generateSection } from '../../kinds/first-order-catalysis/demo/generated-section.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { generateAssignment, studentId } from '../../server/demo/submission-generator.ts';
+import { generateAssignment, studentId } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 export interface Corpus {
   dir: string;

@@ -1,4 +1,4 @@
-import { fitCatalysisLaw } from '../../server/engine/catalysis-law.ts';
+import { fitCatalysisLaw } from '../../kinds/first-order-catalysis/catalysis-law.ts';
 import { fitTransformed } from '../../server/engine/first-order-linear.ts';
 import { fitFirstOrderNonlinear } from '../../server/engine/first-order-nonlinear.ts';
 import { firstOrderTransform } from '../../server/engine/first-order-run.ts';

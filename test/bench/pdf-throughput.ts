@@ -1,5 +1,5 @@
 import { feedbackSheet } from '../../kinds/documents.ts';
-import { slipCodes } from '../../server/demo/submission-generator.ts';
+import { slipCodes } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { feedbackInput, section } from '../reports/fixtures.ts';
 
 /**

@@ -2,7 +2,7 @@ import type { FastifyInstance } from 'fastify';
 import { sql, type Kysely } from 'kysely';
 import { buildApp } from '../../server/app.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { assignmentSettings, generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings, generateAssignment, generateSubmission } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import type { Database } from '../../server/store/database.ts';
 import { storeGraded } from '../../server/store/submissions.ts';
 import { ADMIN_TOKEN, bearer, call, testConfig } from '../support/api-fixture.ts';

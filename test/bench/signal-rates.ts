@@ -1,6 +1,6 @@
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { cleanCase } from '../../server/demo/submission-generator.ts';
+import { cleanCase } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { sectionSignals } from '../../kinds/section-signals.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { computedReadings, ownRunsSection } from '../support/own-runs-section.ts';

@@ -1,7 +1,7 @@
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { slipPlace, temperatureSlips, temperatureSubmission } from '../../server/demo/temperature-generator.ts';
+import { slipPlace, temperatureSlips, temperatureSubmission } from '../../kinds/temperature-dependence/demo/submission-generator.ts';
 
 /** Held-out recall of the temperature-dependence kind: seeds 300000 on, which no test uses, 500 per slip. Printed, never asserted. */
 const N = 500;

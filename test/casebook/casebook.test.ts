@@ -1,8 +1,8 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { findingCodes as catalysisCodes } from '../../schemas/kinds/first-order-catalysis.ts';
-import { findingCodes as temperatureCodes } from '../../schemas/kinds/temperature-dependence.ts';
+import { findingCodes as catalysisCodes } from '../../kinds/first-order-catalysis/schemas.ts';
+import { findingCodes as temperatureCodes } from '../../kinds/temperature-dependence/schemas.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';

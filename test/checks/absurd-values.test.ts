@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { assignmentSettings } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { submissionsFor } from '../support/api-fixture.ts';
 
 // Invented submissions with values no analysis of the data could give.

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
-import type { Submission as TemperatureSubmission } from '../../schemas/kinds/temperature-dependence.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
+import type { Submission as TemperatureSubmission } from '../../kinds/temperature-dependence/schemas.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { gaussian as normal, seededRandom as seeded } from '../../server/demo/seeded-random.ts';

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import type { FindingCode } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { FindingCode } from '../../kinds/first-order-catalysis/schemas.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { cleanCase } from '../../server/demo/submission-generator.ts';
+import { cleanCase } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 
 // Slips of method change k together with its standard error: with k right, none of them can be

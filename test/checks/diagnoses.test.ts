@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Refit, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Refit, Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';

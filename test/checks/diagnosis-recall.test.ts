@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { cleanCase, isFound, slipCase, slipCodes, type ExpectedFinding } from '../../server/demo/submission-generator.ts';
+import { cleanCase, isFound, slipCase, slipCodes, type ExpectedFinding } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 /**
  * Recall of the checker's diagnoses on generated submissions (invented data, see the generator): for

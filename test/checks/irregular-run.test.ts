@@ -3,7 +3,7 @@ import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { fitGuggenheim } from '../../server/engine/guggenheim.ts';
 import { fitFirstOrderNonlinear } from '../../server/engine/first-order-nonlinear.ts';
-import { assignmentSettings } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { submissionsFor } from '../support/api-fixture.ts';
 import { thrown } from '../support/thrown.ts';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { molarForNormality } from '../../server/checks/first-order-catalysis/catalyst-unit.ts';
+import { molarForNormality } from '../../kinds/first-order-catalysis/checks/catalyst-unit.ts';
 
 // Invented runs: x(t) = 5 + 15 e^(-k t), k = 0.02 + 0.2 [H+] per min, to 0.001 deg, a reading a
 // minute for 15 minutes; k_obs reported as the refit gives them.

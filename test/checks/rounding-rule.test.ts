@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { checkValue, type ValueCheck } from '../../server/checks/check-value.ts';
 import type { DraftFinding } from '../../server/checks/draft-finding.ts';
 import { DECIMAL_SHIFT, LOG_BASE, SIGN, TIME_UNIT } from '../../server/checks/explain.ts';
-import { firstOrderCauses } from '../../server/checks/first-order-catalysis/causes.ts';
+import { firstOrderCauses } from '../../kinds/first-order-catalysis/checks/causes.ts';
 import { roundingOf, roundingOfUncertainty } from '../../server/checks/rounding-rule.ts';
 import { sigFigProblem } from '../../server/checks/sig-figs.ts';
 import { readWritten } from '../../server/checks/written-number.ts';

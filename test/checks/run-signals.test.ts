@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { cleanCase } from '../../server/demo/submission-generator.ts';
+import { cleanCase } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 import { syntheticReadings } from '../../server/demo/synthetic-run.ts';
-import { END_VALUE_P, END_VALUE_SCREEN_MARGIN } from '../../server/checks/first-order-catalysis/run-signals.ts';
+import { END_VALUE_P, END_VALUE_SCREEN_MARGIN } from '../../kinds/first-order-catalysis/checks/run-signals.ts';
 import { tCriticalTwoSided, tTwoSidedP } from '../../server/engine/student-t.ts';
 
 /** Signals about how a run was measured: never on honest generated work, always on the condition. */

@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import { Settings, Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { fitFirstOrderLinear } from '../../server/engine/first-order-linear.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
 import { parseUnit } from '../../server/engine/units.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
+import { toFigures } from '../../server/demo/careful-rounding.ts';
 import {
   assignmentSettings,
   assignmentVariants,
@@ -13,9 +14,8 @@ import {
   inject,
   slipCase,
   slipCodes,
-  toFigures,
   type SlipCode,
-} from '../../server/demo/submission-generator.ts';
+} from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 /** The clean submission a slip case started from: same seed stream, drawn the same way. */
 function cleanAndSlipped(code: SlipCode, seed: number, options = {}) {

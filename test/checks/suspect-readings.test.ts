@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { findSuspectReading, poolScatters } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
+import { findSuspectReading, poolScatters } from '../../kinds/first-order-catalysis/checks/suspect-readings.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { assignmentSettings } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 import { minutes, syntheticReadings } from '../../server/demo/synthetic-run.ts';
 import { cleanSuspectWarnings, transpositionRecall } from '../support/transposed-readings.ts';

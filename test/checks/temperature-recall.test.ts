@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { slipPlace, temperatureSlips, temperatureSubmission } from '../../server/demo/temperature-generator.ts';
+import { slipPlace, temperatureSlips, temperatureSubmission } from '../../kinds/temperature-dependence/demo/submission-generator.ts';
 
 /** Recall on generated temperature-dependence work (invented): each slip named at its place, clean work left alone. */
 const assignment = parseAssignment({ kind: 'temperature-dependence' });

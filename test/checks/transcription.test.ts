@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { slipBetween } from '../../server/checks/digit-slips.ts';
-import { findSuspectReading } from '../../server/checks/first-order-catalysis/suspect-readings.ts';
+import { findSuspectReading } from '../../kinds/first-order-catalysis/checks/suspect-readings.ts';
 import { compareTables, type Row } from '../../server/checks/transcription.ts';
 
 describe('naming a copying slip between a value and its copy (3 decimal places)', () => {

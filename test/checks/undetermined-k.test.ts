@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { assignmentSettings } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { submissionsFor } from '../support/api-fixture.ts';
 
 // Invented submissions. In run 0 the readings fall from 22.44 towards 17.9 (x(t) = 17.9 + 4.54 e^(-0.05 t),

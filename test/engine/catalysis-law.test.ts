@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitCatalysisLaw } from '../../server/engine/catalysis-law.ts';
+import { fitCatalysisLaw } from '../../kinds/first-order-catalysis/catalysis-law.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
 import { thrown } from '../support/thrown.ts';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { GAS_CONSTANT } from '../../server/engine/physical-constants.ts';
 import { toKelvin } from '../../server/engine/temperature.ts';
-import { fitArrhenius, fitEyring } from '../../server/engine/temperature-dependence.ts';
+import { fitArrhenius, fitEyring } from '../../kinds/temperature-dependence/activation-fits.ts';
 import { caught } from '../support/thrown.ts';
 
 const near = (value: number, reference: number, relative = 1e-8) => expect(Math.abs(value / reference - 1)).toBeLessThan(relative);

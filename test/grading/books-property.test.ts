@@ -4,7 +4,7 @@ import { overrideLimit } from '../../server/checks/rubric-books.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { effectiveResult, type EffectiveResult } from '../../server/grading/effective-result.ts';
 import type { OverrideRow, ResultRow } from '../../server/store/submissions.ts';
-import { rubricLinesOf } from '../../reports/feedback/rubric-breakdown.ts';
+import { rubricLinesOf } from '../../reports/feedback/rubric-lines.ts';
 
 /**
  * The books over random results, overrides and regrades: every figure below is checked against sums

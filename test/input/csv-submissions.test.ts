@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
-import { parseSubmissionsCsv } from '../../server/input/csv-submissions.ts';
+import { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
+import { parseSubmissionsCsv } from '../../kinds/first-order-catalysis/csv.ts';
 
 // Invented pseudonymous ids and round numbers: these tests are of the layout, not of kinetics.
 const comma = [

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { parseTemperatureCsv } from '../../server/input/temperature-csv.ts';
+import { parseTemperatureCsv } from '../../kinds/temperature-dependence/csv.ts';
 
 /** The CSV layout of the temperature-dependence kind, on invented rows. */
 const POINTS = [

@@ -5,8 +5,8 @@ import { settingsForm } from '../../reports/display/settings-form.ts';
 import { KindList } from '../../schemas/api/kinds.ts';
 import { Tolerance } from '../../schemas/common.ts';
 import { signalCodes } from '../../schemas/result.ts';
-import * as catalysisCsv from '../../server/input/csv-submissions.ts';
-import * as temperatureCsv from '../../server/input/temperature-csv.ts';
+import * as catalysisCsv from '../../kinds/first-order-catalysis/csv.ts';
+import * as temperatureCsv from '../../kinds/temperature-dependence/csv.ts';
 
 /** The columns each kind's CSV reader requires, by file, as the readers declare them. */
 const READERS: Record<string, Record<string, readonly string[]>> = {

@@ -4,7 +4,6 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp } from '../../server/app.ts';
 import { run } from '../../server/cli.ts';
-import type { ExperimentKind } from '../../server/checks/experiment-kind.ts';
 import { registerKind } from '../../kinds/registry.ts';
 import { sharedFindingCodes } from '../../schemas/result.ts';
 import { call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
@@ -21,7 +20,7 @@ import { kindFor } from '../../kinds/registry.ts';
  * `rateproof check` with JSON and with --out. It runs in the service's own thread (RATEPROOF_WORKERS=0):
  * worker threads load only the kinds built in.
  */
-registerKind(zeroOrderKind as ExperimentKind, async () => zeroOrderReport);
+registerKind({ checker: zeroOrderKind, report: async () => zeroOrderReport });
 
 describe('a kind registered in one line', () => {
   let database: TestDatabase;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { arrheniusSeries, eyringSeries } from '../../reports/temperature-dependence/activation-series.ts';
-import type { Refit } from '../../schemas/kinds/temperature-dependence.ts';
+import { arrheniusSeries, eyringSeries } from '../../kinds/temperature-dependence/report/activation-series.ts';
+import type { Refit } from '../../kinds/temperature-dependence/schemas.ts';
 
 /**
  * The numbers of the sheet's Arrhenius and Eyring plots, against points computed here from the two

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { Settings } from '../../schemas/kinds/first-order-catalysis.ts';
+import { Settings } from '../../kinds/first-order-catalysis/schemas.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { rubricBreakdown } from '../../reports/feedback/rubric-breakdown.ts';
+import { rubricBreakdown } from '../../kinds/first-order-catalysis/report/rubric-breakdown.ts';
 import { feedbackSheet } from '../../kinds/documents.ts';
 import { printableMessage } from '../../reports/format.ts';
 import { plainRich } from '../../reports/pdf/rich-text.ts';
-import { slipCase, slipCodes, type SlipCode } from '../../server/demo/submission-generator.ts';
-import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
+import { slipCase, slipCodes, type SlipCode } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
+import { firstOrderCatalysisReport } from '../../kinds/first-order-catalysis/report/report.ts';
 import { feedbackInput } from './fixtures.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 

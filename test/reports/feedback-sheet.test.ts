@@ -4,9 +4,9 @@ import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { INVENTED_NOTE, LIKELY_CAUSES_NOTE } from '../../reports/feedback-input.ts';
 import { feedbackSheet } from '../../kinds/documents.ts';
 import { formatNumber, formatPoints, printableMessage } from '../../reports/format.ts';
-import { readRefit } from '../../reports/refit.ts';
+import { readRefit } from '../../kinds/first-order-catalysis/report/refit.ts';
 import { plainRich } from '../../reports/pdf/rich-text.ts';
-import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
+import { firstOrderCatalysisReport } from '../../kinds/first-order-catalysis/report/report.ts';
 import { feedbackInput, section, type Section, type Student } from './fixtures.ts';
 import { folded, pageCount, pdfFonts, pdfText } from '../support/pdf-reading.ts';
 

@@ -1,10 +1,10 @@
-import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Settings, Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import type { FeedbackInput } from '../../reports/feedback-input.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { generateAssignment, generateSubmission, inject, type AssignmentOptions, type SlipCode } from '../../server/demo/submission-generator.ts';
+import { generateAssignment, generateSubmission, inject, type AssignmentOptions, type SlipCode } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 /**
  * Feedback inputs from the seeded generator (invented data, pseudonymous ids): a section of one

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { allRunSeries } from '../../reports/feedback/run-series.ts';
-import { Settings, SubmittedRun, type RunRefit } from '../../schemas/kinds/first-order-catalysis.ts';
+import { allRunSeries } from '../../kinds/first-order-catalysis/report/run-series.ts';
+import { Settings, SubmittedRun, type RunRefit } from '../../kinds/first-order-catalysis/schemas.ts';
 import type { Finding } from '../../schemas/result.ts';
 
 /**

@@ -4,7 +4,7 @@ import { INVENTED_NOTE } from '../../reports/feedback-input.ts';
 import { formatNumber } from '../../reports/format.ts';
 import { sectionSummary } from '../../kinds/documents.ts';
 import { needAttention } from '../../reports/summary/attention.ts';
-import { classValues } from '../../reports/summary/class-values.ts';
+import { classValues } from '../../kinds/first-order-catalysis/report/class-values.ts';
 import { codeCounts } from '../../reports/summary/code-counts.ts';
 import { percentBins, spread } from '../../reports/summary/stats.ts';
 import { sectionSignals } from '../../kinds/section-signals.ts';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { feedbackSheet } from '../../kinds/documents.ts';

@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { checkedDisplay } from '../../reports/display/submission-display.ts';
-import { firstOrderCatalysisReport } from '../../reports/first-order-catalysis/report.ts';
+import { firstOrderCatalysisReport } from '../../kinds/first-order-catalysis/report/report.ts';
 import { formatEstimate, formatReported } from '../../reports/format.ts';
-import { temperatureDependenceReport } from '../../reports/temperature-dependence/report.ts';
+import { temperatureDependenceReport } from '../../kinds/temperature-dependence/report/report.ts';
 import type { KindReport } from '../../reports/kind-report.ts';
 import { SubmissionDisplay } from '../../schemas/display.ts';
 import { checkSubmission } from '../../server/checks/check.ts';

@@ -5,8 +5,8 @@ import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { feedbackSheet, sectionSummary } from '../../kinds/documents.ts';
 import type { KindSettings } from '../../reports/feedback-input.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
-import { slipCase, slipCodes } from '../../server/demo/submission-generator.ts';
-import { temperatureSlips, temperatureSubmission } from '../../server/demo/temperature-generator.ts';
+import { slipCase, slipCodes } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
+import { temperatureSlips, temperatureSubmission } from '../../kinds/temperature-dependence/demo/submission-generator.ts';
 import { GRADED_AT } from './fixtures.ts';
 import { pdfText } from '../support/pdf-reading.ts';
 

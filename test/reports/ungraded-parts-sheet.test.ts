@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { feedbackSheet } from '../../kinds/documents.ts';
-import type { Settings, Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Settings, Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { feedbackInput } from './fixtures.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { findSharedReadings } from '../../server/signals/shared-readings.ts';
 import { asReadings, ownRunsSection } from '../support/own-runs-section.ts';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { findSmoothRuns, type RunsOfStudent } from '../../server/signals/smooth-readings.ts';
 import { computedReadings, ownRunsSection } from '../support/own-runs-section.ts';
 

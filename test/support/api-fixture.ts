@@ -1,7 +1,7 @@
 import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../server/app.ts';
 import type { Config } from '../../server/config.ts';
-import { assignmentSettings, generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings, generateAssignment, generateSubmission } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { openTestDatabase, type TestDatabase } from './test-database.ts';
 

@@ -1,7 +1,7 @@
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { fitFirstOrderLinear } from '../../server/engine/first-order-linear.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
-import { reportedValue, toFigures } from '../../server/demo/submission-generator.ts';
+import { reportedValue, toFigures } from '../../server/demo/careful-rounding.ts';
 
 /**
  * A hand-made case, invented (not measurements): four runs at [H+] = 0.05, 0.10, 0.20, 0.40 M made

@@ -1,7 +1,7 @@
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
 import type { SubmittedReadings } from '../../server/signals/shared-readings.ts';
-import { generateAssignment, generateSubmission } from '../../server/demo/submission-generator.ts';
+import { generateAssignment, generateSubmission } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 
 /** A generated section where every student measured their own runs (invented data), S-001, S-002, ... */
 export function ownRunsSection(seed: number, students: number): Submission[] {

@@ -1,7 +1,7 @@
-import type { Submission } from '../../schemas/kinds/first-order-catalysis.ts';
+import type { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
-import { assignmentSettings } from '../../server/demo/submission-generator.ts';
+import { assignmentSettings } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { gaussian, seededRandom } from '../../server/demo/seeded-random.ts';
 
 /**
