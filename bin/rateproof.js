@@ -13,5 +13,6 @@ try {
 process.exitCode = await cli.run(process.argv.slice(2), {
   stdout: (text) => process.stdout.write(text),
   stderr: (text) => process.stderr.write(text),
+  stderrIsTerminal: process.stderr.isTTY === true,
   readFile: (path) => readFile(path, 'utf8'),
 });

@@ -16,7 +16,7 @@ type Command = (args: string[], io: CliIo) => Promise<number>;
 /** Each subcommand's synopsis (after `usage: `) and what it does, for the usage and its --help. */
 const CHECK = {
   synopsis: `rateproof check --assignment A.json SUBMISSIONS.(json|jsonl|csv) [--reported R.csv]
-                      [--json | --jsonl [--arrays]] [--out DIR] [--signals FILE] [--workers N]`,
+                      [--json | --jsonl [--arrays]] [--out DIR] [--signals FILE] [--workers N] [--quiet]`,
   text: `  check   grade submissions offline against an assignment's settings
           SUBMISSIONS.json holds one submission or an array of them, SUBMISSIONS.jsonl one per line;
           SUBMISSIONS.csv holds one row per reading, --reported the reported values
@@ -26,6 +26,7 @@ const CHECK = {
           --signals FILE writes, as JSON, what the batch's data suggest for review (readings that look
                     alike across submissions, runs smoother than the instrument reads): prompts, not findings
           --workers N checks in N worker threads (default: one per core for files of 4 MB or more, else 0)
+          --quiet   no progress line (shown on a terminal while a JSON file is checked)
 `,
 };
 

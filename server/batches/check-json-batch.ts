@@ -1,11 +1,19 @@
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkAndRead } from '../checks/check.ts';
+import { checkAndRead, type Assignment } from '../checks/check.ts';
 import { assignmentOfJson } from './check-settings-batch.ts';
 import { parseBatch, type JsonBatch } from './json-batches.ts';
 import { tableEntry, type TableEntry } from '../../reports/results-table.ts';
 
-/** How the command prints results: a table, a JSON array, JSON Lines, or the results themselves (for --out). */
-export type ResultOutput = 'table' | 'json' | 'jsonl' | 'results';
+/** How the command prints results: a table, a JSON array, or JSON Lines. */
+export type ResultOutput = 'table' | 'json' | 'jsonl';
+
+/** What a batch keeps beside its printed form, for the command's files (--out, --signals). */
+export interface KeptParts {
+  /** The results, and each submission as the kind's schema read it (undefined where it could not). */
+  reads: boolean;
+  /** The submissions as the file gave them. */
+  submissions: boolean;
+}
 
 export interface CheckJsonBatchInput {
   settingsJson: string;
@@ -14,18 +22,23 @@ export interface CheckJsonBatchInput {
   output: ResultOutput;
   /** Keep the refit's per-reading arrays (ln F) in JSON Lines. */
   arrays: boolean;
+  keep?: KeptParts;
 }
 
 export interface CheckedBatch {
+  /** Submissions in the batch. */
+  count: number;
   table?: TableEntry[];
   /** JSON: the results as array elements, indented as in the whole array; JSON Lines: one per line. */
   text?: string;
+  /** With `keep`: every result, and with `keep.reads` each submission as read. */
   results?: CheckResult[];
+  reads?: unknown[];
   submissions?: unknown[];
 }
 
 /** The per-reading arrays of a run's refit (whatever the kind calls them) are most of a result's size and only a plot needs them. */
-function withoutArrays(result: CheckResult): CheckResult {
+export function withoutArrays(result: CheckResult): CheckResult {
   const refit = result.refit as { runs?: Array<Record<string, unknown>> } | null;
   if (!refit?.runs) return result;
   return { ...result, refit: { ...refit, runs: refit.runs.map((run) => Object.fromEntries(Object.entries(run).filter(([, value]) => !Array.isArray(value)))) } };
@@ -33,21 +46,32 @@ function withoutArrays(result: CheckResult): CheckResult {
 
 /**
  * Parses one batch of a submissions file, checks it, and formats the results for output. Each result
- * is formatted as soon as it is made, so that (unless --out keeps them) it is garbage while still young.
+ * is formatted as soon as it is made, so that (unless it is kept) it is garbage while still young.
  */
 export function checkJsonBatch(input: CheckJsonBatchInput): CheckedBatch {
-  const submissions = parseBatch(input.batch, input.jsonLines);
-  const assignment = assignmentOfJson(input.settingsJson);
-  const check = (submission: unknown) => checkAndRead(assignment, submission).result;
-  const { output, arrays } = input;
-  if (output === 'results') return { results: submissions.map(check), submissions };
-  const format = formatterOf({ output, arrays });
-  return joined(output, submissions.map((s) => format(check(s))));
+  return checkSubmissions(assignmentOfJson(input.settingsJson), parseBatch(input.batch, input.jsonLines), input);
+}
+
+/** Checks submissions, each parsed once, and formats the results as printed (and keeps what `keep` asks for). */
+export function checkSubmissions(assignment: Assignment, submissions: unknown[], input: { output: ResultOutput; arrays: boolean; keep?: KeptParts }): CheckedBatch {
+  const format = formatterOf(input);
+  const { keep } = input;
+  const count = submissions.length;
+  if (!keep) return { count, ...joined(input.output, submissions.map((s) => format(checkAndRead(assignment, s).result))) };
+  const results: CheckResult[] = [];
+  const reads: unknown[] = [];
+  const printed = submissions.map((s) => {
+    const { result, read } = checkAndRead(assignment, s);
+    results.push(result);
+    reads.push(read);
+    return format(result);
+  });
+  return { count, ...joined(input.output, printed), results, ...(keep.reads ? { reads } : {}), ...(keep.submissions ? { submissions } : {}) };
 }
 
 type Formatted = TableEntry | string;
 
-function formatterOf(input: { output: Exclude<ResultOutput, 'results'>; arrays: boolean }): (r: CheckResult) => Formatted {
+function formatterOf(input: { output: ResultOutput; arrays: boolean }): (r: CheckResult) => Formatted {
   switch (input.output) {
     case 'table':
       return tableEntry;
@@ -58,13 +82,7 @@ function formatterOf(input: { output: Exclude<ResultOutput, 'results'>; arrays: 
   }
 }
 
-function joined(output: Exclude<ResultOutput, 'results'>, items: Formatted[]): CheckedBatch {
+function joined(output: ResultOutput, items: Formatted[]): Pick<CheckedBatch, 'table' | 'text'> {
   if (output === 'table') return { table: items as TableEntry[] };
   return { text: (items as string[]).join(output === 'json' ? ',\n' : '') };
-}
-
-/** Results as the command prints them (or keeps them, for --out). */
-export function formatResults(results: CheckResult[], submissions: unknown[], input: { output: ResultOutput; arrays: boolean }): CheckedBatch {
-  if (input.output === 'results') return { results, submissions };
-  return joined(input.output, results.map(formatterOf({ output: input.output, arrays: input.arrays })));
 }

@@ -1,11 +1,10 @@
 import { createReadStream } from 'node:fs';
 import { stat, writeFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
-import { checkBatch } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 import { WorkerTaskError } from '../pool/worker-pool.ts';
 import type { CheckResult } from '../../schemas/result.ts';
-import { checkJsonBatch, formatResults, type CheckedBatch, type ResultOutput } from '../batches/check-json-batch.ts';
+import { checkJsonBatch, checkSubmissions, type CheckedBatch, type KeptParts, type ResultOutput } from '../batches/check-json-batch.ts';
 import { fileErrorReason, InputError, isFileError, UsageError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { parseOptions } from './parse-options.ts';
@@ -13,11 +12,14 @@ import { InFlight } from './in-flight.ts';
 import { JsonBatcher, JsonLayoutError, type JsonBatch } from '../batches/json-batches.ts';
 import { readAssignment, readCsvSubmissions } from './read-input.ts';
 import { renderTable, type TableEntry } from '../../reports/results-table.ts';
+import type { ReportWriter } from './write-reports.ts';
+import { ProgressLine } from './progress-line.ts';
 
 /**
  * `rateproof check`: grades a submissions file offline. A JSON or JSON Lines file is read as a stream
  * in batches of whole submissions; a large one is checked in a pool of worker threads, one per core,
- * and JSON output is written in the file's order as batches finish.
+ * and JSON output is written in the file's order as batches finish. With --out each batch's sheets are
+ * written as it comes in, and only what the gradebook and summary need is kept to the end.
  */
 
 // About 500 submissions of four 16-reading runs: big enough that a worker's round trip is cheap
@@ -36,6 +38,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     out: { type: 'string' },
     workers: { type: 'string' },
     signals: { type: 'string' },
+    quiet: { type: 'boolean' },
   });
   const { assignment: assignmentPath, reported: reportedPath } = values;
   if (assignmentPath === undefined || positionals.length !== 1) {
@@ -53,46 +56,45 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 
   const assignment = await readAssignment(assignmentPath, io);
   const printed: ResultOutput = values.json ? 'json' : values.jsonl ? 'jsonl' : 'table';
-  // Reports and signals need every result and submission kept until the end.
-  const output: ResultOutput = values.out !== undefined || values.signals !== undefined ? 'results' : printed;
-  const sink = new ResultSink(printed, !!values.arrays, io);
+  const arrays = !!values.arrays;
+  // --out keeps each batch's results and read submissions for its sheets; --signals the checked submissions as given.
+  const keep: KeptParts | undefined = values.out !== undefined || values.signals !== undefined ? { reads: values.out !== undefined, submissions: values.signals !== undefined } : undefined;
 
   let pool: WorkerPool | undefined;
+  let progress: ProgressLine | undefined;
   try {
+    let writer: ReportWriter | undefined;
+    const makeWriter = async () => {
+      if (values.out !== undefined) writer = new (await import('./write-reports.ts')).ReportWriter(values.out, { assignmentPath, submissionsPath }, assignment, io, pool);
+    };
     if (isCsv) {
       const submissions = await readCsvSubmissions(assignment.kind, submissionsPath, reportedPath, io);
-      sink.add(0, formatResults(checkBatch(assignment, submissions), submissions, { output, arrays: !!values.arrays }));
-    } else {
-      const size = await sizeOf(submissionsPath);
-      const poolSize = workers ?? (size >= POOL_MIN_BYTES ? availableParallelism() : 0);
-      if (poolSize > 0) pool = (await import('../pool/worker-pool.ts')).createWorkerPool(poolSize);
-      const settingsJson = JSON.stringify(assignment.settings);
-      const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
-      await streamBatches(submissionsPath, jsonLines, pool, (batch) => ({ settingsJson, batch, jsonLines, output, arrays: !!values.arrays }), sink);
+      await makeWriter();
+      const sink = new ResultSink(printed, io, writer);
+      await sink.add(0, checkSubmissions(assignment, submissions, { output: printed, arrays, keep }), 0);
+      return await sink.finish(values, assignment.settings);
     }
-    if (output !== 'results') {
-      sink.finish();
-      return 0;
-    }
-    const results = sink.results;
-    const count = values.out === undefined ? undefined : await (await import('./write-reports.ts')).writeReports(values.out, { assignmentPath, submissionsPath }, assignment, sink.submissions, results, io, pool);
-    sink.print(results);
-    sink.finish();
-    if (printed === 'table' && count !== undefined) io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${values.out}\n`);
-    if (values.signals !== undefined) await writeSignals(values.signals, assignment.settings, sink.submissions, results, printed === 'table', io);
-    return 0;
+    const size = await sizeOf(submissionsPath);
+    const poolSize = workers ?? (size >= POOL_MIN_BYTES ? availableParallelism() : 0);
+    if (poolSize > 0) pool = (await import('../pool/worker-pool.ts')).createWorkerPool(poolSize);
+    await makeWriter();
+    if (io.stderrIsTerminal && !values.quiet) progress = new ProgressLine(io.stderr, size);
+    const sink = new ResultSink(printed, io, writer, progress);
+    const settingsJson = JSON.stringify(assignment.settings);
+    const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
+    await streamBatches(submissionsPath, jsonLines, pool, (batch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep }), sink);
+    progress?.end();
+    return await sink.finish(values, assignment.settings);
   } finally {
+    progress?.end();
     await pool?.close();
   }
 }
 
 /** --signals FILE: the section's signals as JSON, from the submissions the checker could read. */
-async function writeSignals(path: string, settings: unknown, submissions: unknown[], results: CheckResult[], say: boolean, io: CliIo): Promise<void> {
+async function writeSignals(path: string, settings: unknown, checked: unknown[], students: Array<{ studentId: string | null; signals: CheckResult['signals'] }>, say: boolean, io: CliIo): Promise<void> {
   const { sectionSignals } = await import('../../kinds/section-signals.ts');
-  const checked = submissions.filter((_, i) => results[i]?.status === 'checked');
   const section = sectionSignals(settings as { kind: string }, checked);
-  // Each student's own signals (per run and per submission) beside the section's.
-  const students = results.flatMap((r) => ((r.signals ?? []).length > 0 ? [{ studentId: r.studentId, signals: r.signals }] : []));
   const report = { ...section, students };
   try {
     await writeFile(path, `${JSON.stringify(report, null, 2)}\n`);
@@ -130,8 +132,10 @@ async function streamBatches(
   let seq = 0;
   const check = async (batch: JsonBatch) => {
     const n = seq++;
-    if (!pool) return sink.add(n, checkJsonBatch(job(batch)));
-    await inFlight.add(() => pool.run('check-json-batch', job(batch)).then((checked) => sink.add(n, checked)));
+    const bytes = Buffer.byteLength(batch.text);
+    if (!pool) return sink.add(n, checkJsonBatch(job(batch)), bytes);
+    // A batch holds its place until its sheets are written: at most so many batches' results in memory.
+    await inFlight.add(() => pool.run('check-json-batch', job(batch)).then((checked) => sink.add(n, checked, bytes)));
   };
   try {
     let first = true;
@@ -153,49 +157,62 @@ async function streamBatches(
   }
 }
 
-/** Takes checked batches as they finish and prints them in the file's order. */
+/** Takes checked batches as they finish and prints them (and writes their sheets) in the file's order. */
 class ResultSink {
-  private readonly waiting = new Map<number, CheckedBatch>();
+  private readonly waiting = new Map<number, { batch: CheckedBatch; bytes: number }>();
   private next = 0;
   private printedAny = false;
   private readonly table: TableEntry[] = [];
-  readonly results: CheckResult[] = [];
-  readonly submissions: unknown[] = [];
+  private done = 0;
+  private bytes = 0;
+  /** For --signals: the checked submissions as given, and each student's own signals. */
+  private readonly checked: unknown[] = [];
+  private readonly students: Array<{ studentId: string | null; signals: CheckResult['signals'] }> = [];
 
   constructor(
     private readonly printed: ResultOutput,
-    private readonly arrays: boolean,
     private readonly io: CliIo,
+    private readonly writer?: ReportWriter,
+    private readonly progress?: ProgressLine,
   ) {}
 
-  add(seq: number, batch: CheckedBatch): void {
-    this.waiting.set(seq, batch);
-    for (let b = this.waiting.get(this.next); b; b = this.waiting.get(this.next)) {
+  /** Resolves when this batch (and any before it that were waiting for it) are printed and their sheets written. */
+  async add(seq: number, batch: CheckedBatch, bytes: number): Promise<void> {
+    this.waiting.set(seq, { batch, bytes });
+    const taken: Array<Promise<void>> = [];
+    for (let w = this.waiting.get(this.next); w; w = this.waiting.get(this.next)) {
       this.waiting.delete(this.next++);
-      this.take(b);
+      taken.push(this.take(w.batch, w.bytes));
     }
+    await Promise.all(taken);
   }
 
-  private take(batch: CheckedBatch): void {
-    if (batch.results) {
-      this.results.push(...batch.results);
-      this.submissions.push(...(batch.submissions ?? []));
-    }
+  private async take(batch: CheckedBatch, bytes: number): Promise<void> {
     if (batch.table) this.table.push(...batch.table);
     if (batch.text) {
       if (this.printed === 'json') this.io.stdout(this.printedAny ? `,\n${batch.text}` : `[\n${batch.text}`);
       else this.io.stdout(batch.text);
       this.printedAny = true;
     }
+    const results = batch.results ?? [];
+    for (const [i, r] of results.entries()) {
+      if (batch.submissions && r.status === 'checked') this.checked.push(batch.submissions[i]);
+      if (batch.submissions && (r.signals ?? []).length > 0) this.students.push({ studentId: r.studentId, signals: r.signals });
+    }
+    if (this.writer && batch.reads) await this.writer.add(results, batch.reads);
+    this.done += batch.count;
+    this.bytes += bytes;
+    this.progress?.update(this.done, this.bytes);
   }
 
-  /** With --out the results were kept: print them now in the chosen format. */
-  print(results: CheckResult[]): void {
-    this.take(formatResults(results, [], { output: this.printed, arrays: this.arrays }));
-  }
-
-  finish(): void {
+  /** After the last batch: the table or the JSON array's end, the summary and gradebook, the signals. */
+  async finish(options: { out?: string; signals?: string }, settings: unknown): Promise<number> {
+    const count = await this.writer?.finish();
+    this.progress?.end();
     if (this.printed === 'table') this.io.stdout(renderTable(this.table));
     else if (this.printed === 'json') this.io.stdout(this.printedAny ? '\n]\n' : '[]\n');
+    if (this.printed === 'table' && count !== undefined) this.io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${options.out}\n`);
+    if (options.signals !== undefined) await writeSignals(options.signals, settings, this.checked, this.students, this.printed === 'table', this.io);
+    return 0;
   }
 }

@@ -11,7 +11,8 @@ import { corpus } from './corpus.ts';
  * compiled command) against the script a TA would write instead (numpy/scipy refit, matplotlib sheets;
  * `test/bench/baseline.py`, run with Debian's python3-numpy, python3-scipy, python3-matplotlib),
  * on the same generated corpus. Goals: checking at least 5 times faster than the baseline, sheets at
- * least 20 times, and `check` on an empty batch within 8 times a bare `node -e 0`. Printed, not asserted.
+ * least 20 times, `check` on an empty batch within 8 times a bare `node -e 0`, `check --jsonl` on the
+ * 20,000 at least as fast as the baseline, and `check --out` on them under 300 MB. Printed, not asserted.
  */
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const bin = join(root, 'bin/rateproof.js');
@@ -65,6 +66,9 @@ export async function benchWholeProcess(): Promise<void> {
     const ours = await seconds(process.execPath, [bin, 'check', '--assignment', data.assignment, data.submissions], 3);
     const theirs = missing ? undefined : await seconds(PYTHON, [baseline, '--once', data.submissions], 3);
     console.log(`check ${CHECKED.toLocaleString('en-US')} submissions (whole process, table output): rateproof ${secs(ours)}, baseline ${secs(theirs)}: ${ratio(theirs, ours)} (goal >= 5)`);
+    const jsonl = await seconds(process.execPath, [bin, 'check', '--jsonl', '--assignment', data.assignment, data.submissions], 3);
+    console.log(`check --jsonl ${CHECKED.toLocaleString('en-US')} submissions (whole process): rateproof ${secs(jsonl)}, baseline ${secs(theirs)}: ${theirs === undefined ? 'baseline not run' : `${(theirs / jsonl).toFixed(2)} times the baseline's speed`} (goal >= 1)`);
+    await benchCourseFile(data, dir);
     // What the worker pool adds on this machine: the same check in the command's own thread.
     const oneThread = await seconds(process.execPath, [bin, 'check', '--workers', '0', '--assignment', data.assignment, data.submissions], 3);
     console.log(`  the same in one thread (--workers 0): ${secs(oneThread)}; the pool of ${availableParallelism()} workers is ${(oneThread / ours).toFixed(2)} times as fast`);
@@ -75,6 +79,24 @@ export async function benchWholeProcess(): Promise<void> {
   } finally {
     await rm(dir, { recursive: true, force: true });
   }
+}
+
+const TIME = '/usr/bin/time';
+
+/**
+ * `check --out` on the whole corpus, once: its peak memory (the largest resident set, as GNU time
+ * reports it) against the goal of 300 MB, and how long the 20,000 sheets take.
+ */
+async function benchCourseFile(data: { assignment: string; submissions: string }, dir: string): Promise<void> {
+  if (!existsSync(TIME)) {
+    console.log(`check --out ${CHECKED.toLocaleString('en-US')} submissions: peak memory not measured (${TIME} is not there; apt-get install time)`);
+    return;
+  }
+  const report = join(dir, 'time.txt');
+  const wall = await seconds(TIME, ['-f', '%M', '-o', report, process.execPath, bin, 'check', '--assignment', data.assignment, data.submissions, '--out', join(dir, 'course')], 1);
+  const megabytes = Number((await readFile(report, 'utf8')).trim().split('\n').pop()) / 1024;
+  console.log(`check --out ${CHECKED.toLocaleString('en-US')} submissions (sheets, gradebook, summary; whole process): peak memory ${megabytes.toFixed(0)} MB (goal < 300 MB), ${secs(wall)}`);
+  await rm(join(dir, 'course'), { recursive: true, force: true });
 }
 
 /** The first `count` submissions checked with `--out` (sheets, summary, gradebook) against the baseline's `count` PDFs. */
