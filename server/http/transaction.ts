@@ -24,7 +24,15 @@ async function settle(request: FastifyRequest, commit: boolean): Promise<void> {
   if (!trx) return;
   request.transaction = null;
   request.db = request.server.store.db;
-  await (commit ? trx.commit() : trx.rollback()).execute();
+  if (!commit) return trx.rollback().execute();
+  try {
+    await trx.commit().execute();
+  } catch (error) {
+    // A commit that fails for another reason than the database's own rollback (a lost connection)
+    // keeps its connection checked out; a rollback hands it back to the pool, even when it fails too.
+    if (!trx.isRolledBack) await trx.rollback().execute().catch(() => undefined);
+    throw error;
+  }
 }
 
 /**

@@ -25,11 +25,12 @@ describe.skipIf(ownPostgresMissing)('the service through a restart of its Postgr
     app = await buildApp({ config: testConfig, store });
     s = await seedCourse(app);
   }, 60_000);
+  // Stopping a PostgreSQL server of its own takes a while on a busy machine.
   afterAll(async () => {
     await app?.close();
     await store?.close();
     await postgres?.destroy();
-  });
+  }, 120_000);
 
   it('answers 503 with Retry-After while it is away (never 500), says so at /ready (alive at /health throughout), recovers by itself, and loses no confirmed grade', async () => {
     const url = `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`;
