@@ -101,7 +101,12 @@ function context(caller, sectionId, assignmentId) {
   return undefined;
 }
 
+/** Each call of route() takes a turn: a view that is ready after a later turn began is not shown. */
+let turns = 0;
+
 async function route() {
+  const turn = ++turns;
+  const stale = () => turn !== turns;
   try {
     if (!me) {
       // The probe answers 200 either way, so a visitor not yet signed in sees no failed request.
@@ -117,16 +122,26 @@ async function route() {
     const c = /^#\/course\/(\d+)$/.exec(location.hash);
     const course = c && me.role === 'instructor' && me.courses.find((x) => x.id === Number(c[1]));
     if (course) {
-      show(await courseView(course, failure, () => ((me = null), route())));
+      const view = await courseView(course, failure, () => ((me = null), route()));
+      if (stale()) return;
+      show(view);
       main.focus({ preventScroll: true });
       window.scrollTo(0, 0);
       return;
     }
     const m = /^#\/section\/(\d+)\/assignment\/(\d+)(?:\/submission\/(\d+))?$/.exec(location.hash);
-    const place = m && context(me, Number(m[1]), Number(m[2]));
+    let place = m && context(me, Number(m[1]), Number(m[2]));
+    if (m && !place) {
+      // An assignment made since the caller's list was read (on this page or another): read it once more.
+      me = /** @type {Me} */ (await api('GET', '/v1/me'));
+      setCsrfToken(me.csrfToken);
+      place = context(me, Number(m[1]), Number(m[2]));
+    }
+    if (stale()) return;
     if (!m || !place) return home(me);
-    if (m[3]) show(await studentView(place, Number(m[3]), failure));
-    else show(await sectionView(place, failure));
+    const view = m[3] ? await studentView(place, Number(m[3]), failure) : await sectionView(place, failure);
+    if (stale()) return;
+    show(view);
     // Focus moves to the new content for keyboard and screen-reader users; the page starts at its top.
     main.focus({ preventScroll: true });
     window.scrollTo(0, 0);
