@@ -52,6 +52,11 @@ export async function drawnKind(name: string): Promise<DrawnKind> {
   return { report: await report(), stages: checker.stages, findingCodes: checker.findingCodes };
 }
 
+/** The signal codes its checker can raise (none for a kind not registered). */
+export function signalCodesOf(name: string): readonly string[] {
+  return kinds.get(name)?.checker.signalCodes ?? [];
+}
+
 /** Its stages, in order, with their titles. */
 export function stagesOf(name: string): ExperimentKind['stages'] {
   return kinds.get(name)?.checker.stages ?? [];

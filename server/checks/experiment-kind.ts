@@ -11,6 +11,8 @@ export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   kind: string;
   /** Every finding code the kind's checker can give (the shared ones among them), in the order a summary lists them. */
   findingCodes: readonly string[];
+  /** Every signal code the kind's checker can raise; a TA's choice of a signal names one of them. */
+  signalCodes: readonly string[];
   /** The stages findings are grouped in, in order, with their titles (sub/superscript markup: k_{obs}). */
   stages: ReadonlyArray<{ id: string; title: string }>;
   settingsSchema: z.ZodType<Settings>;
