@@ -2,7 +2,7 @@ import type { DrawnKind, KindReport } from '../reports/kind-report.ts';
 import type { KindDescription } from '../schemas/api/kinds.ts';
 import type { KindSettings } from '../reports/feedback-input.ts';
 import type { ExperimentKind } from '../server/checks/experiment-kind.ts';
-import type { KindEntry } from './kind-entry.ts';
+import type { KindDemo, KindEntry } from './kind-entry.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import { firstOrderCatalysisKind } from './first-order-catalysis/index.ts';
 import { temperatureDependenceKind } from './temperature-dependence/index.ts';
@@ -65,4 +65,10 @@ export function stagesOf(name: string): ExperimentKind['stages'] {
 /** Every kind as the workspace draws it, in the order they were registered. */
 export async function kindDescriptions(): Promise<KindDescription[]> {
   return Promise.all([...kinds.values()].map(async (kind) => (await kind.report()).description));
+}
+
+/** Every kind's assignment in `npm run demo`, in the order registered; kinds without one are left out. */
+export async function kindDemos(): Promise<Array<{ kind: string; demo: KindDemo }>> {
+  const entries = [...kinds.values()];
+  return (await Promise.all(entries.map(async (entry) => (entry.demo ? [{ kind: entry.checker.kind, demo: await entry.demo() }] : [])))).flat();
 }
