@@ -26,6 +26,35 @@ export function registerKind<Settings extends KindSettings, Submission, Refit ex
 registerKind(firstOrderCatalysisKind);
 registerKind(temperatureDependenceKind);
 
+/**
+ * Kinds beyond those built in, as the addresses of modules that each export `kind`, a KindEntry,
+ * separated by spaces. Worker threads copy the environment when they start and import this module, so
+ * a kind named here reaches every thread; `registerKindModule` adds to it.
+ */
+export const KIND_MODULES = 'RATEPROOF_KIND_MODULES';
+
+const listedModules = () => (process.env[KIND_MODULES] ?? '').split(' ').filter((address) => address !== '');
+
+async function entryIn(address: string): Promise<KindEntry> {
+  const { kind } = (await import(address)) as { kind?: KindEntry };
+  if (!kind?.checker) throw new Error(`${KIND_MODULES}: ${address} exports no kind`);
+  return kind;
+}
+
+// A module listed here must not import the registry: it would wait on this very import.
+for (const address of listedModules()) registerKind(await entryIn(address));
+
+/**
+ * Registers the kind a module exports as `kind`, here and in every worker thread started from now on
+ * (and in any process started with this environment): one line, for a kind that lives outside
+ * kinds/ (a test's). The pool starts its threads on its first task, so register before that.
+ */
+export async function registerKindModule(address: URL | string): Promise<void> {
+  const href = String(address);
+  registerKind(await entryIn(href));
+  if (!listedModules().includes(href)) process.env[KIND_MODULES] = [...listedModules(), href].join(' ');
+}
+
 /** Every registered kind's checker, in the order registered. */
 export function registeredKinds(): ExperimentKind[] {
   return [...kinds.values()].map((k) => k.checker);
