@@ -114,7 +114,7 @@ export const decayRunsReport: KindReport<Settings, Submission, Refit> = {
     const comparison: DisplayTable = { caption: 'Each run: reported and refitted k', note: NOTE, columns: COLUMNS.map((header, i) => ({ header, numeric: i > 0 })), rows: valueRows(submission, result.refit) };
     return { comparison, plots: [lnFPlot(submission, result.refit)] };
   },
-  summaryFacts: (settings) => [['Tolerance on k', `${formatNumber(settings.tolerance * 100, 2)} %`], ['Readings a run should have', String(settings.minReadings)]],
+  summaryFacts: (settings) => [['Tolerance on k', `${Math.round(settings.tolerance * 1000) / 10} %`], ['Readings a run should have', String(settings.minReadings)]],
   drawSummaryData(doc, { results }) {
     const byLabel = new Map<string, number[]>();
     for (const r of results) for (const run of r.refit?.runs ?? []) if (run.k) byLabel.set(run.label, [...(byLabel.get(run.label) ?? []), run.k.value]);
