@@ -38,7 +38,7 @@ function describe(path: string, submission: unknown): string {
 /** The ln F plot as the page draws it: a group a run, its points, our line and the student's. */
 function lnFPlot(submission: Submission, refit: Refit): DisplayPlot {
   const points = submission.runs.map(lnFPoints);
-  const plot: Pick<DisplayPlot, 'x' | 'y'> = { x: displayAxis(timeLabel(submission), points.flat().map((p) => p[0]), { pad: 0.04 }), y: displayAxis('ln F', points.flat().map((p) => p[1]), { pad: 0.08 }) };
+  const plot: Pick<DisplayPlot, 'x' | 'y'> = { x: displayAxis(timeLabel(submission), points.flat().map((p) => p[0]), { pad: 0 }), y: displayAxis('ln F', points.flat().map((p) => p[1]), { pad: 0.08 }) };
   return {
     title: 'ln F against t, run by run',
     ...plot,
@@ -73,7 +73,7 @@ function drawLnFPlot(doc: Parameters<KindReport['drawSheetData']>[0], submission
   ], contentLeft(doc), top, contentWidth(doc));
   const all = submission.runs.flatMap(lnFPoints);
   const box = { x: contentLeft(doc), y: top + legendHeight + 4, width: contentWidth(doc) * 0.7, height: 190 };
-  const plot = new Plot(doc, box, niceAxis(all.map((p) => p[0]), { pad: 0.04 }), niceAxis(all.map((p) => p[1]), { pad: 0.08 }), { x: timeLabel(submission), y: 'ln F' });
+  const plot = new Plot(doc, box, niceAxis(all.map((p) => p[0]), { pad: 0 }), niceAxis(all.map((p) => p[1]), { pad: 0.08 }), { x: timeLabel(submission), y: 'ln F' });
   plot.drawFrame();
   for (const series of shown.series) {
     if (series.line) plot.line(series.line.intercept, series.line.slope, series.owner === 'refit' ? OUR_LINE : THEIR_LINE);
