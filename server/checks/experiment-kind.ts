@@ -4,8 +4,8 @@ import type { CsvLayout } from '../input/csv-layout.ts';
 import type { SectionSignals } from '../signals/section-report.ts';
 
 /**
- * One kind of experiment the checker understands. A new kind is a new module that implements this
- * and is listed in `kinds.ts`; nothing else changes.
+ * One kind of experiment the checker understands. A new kind is a folder, kinds/<kind>/, whose
+ * checker implements this, registered by one line in kinds/registry.ts; nothing else changes.
  */
 export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   kind: string;
