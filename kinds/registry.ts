@@ -2,7 +2,7 @@ import type { DrawnKind, KindReport } from '../reports/kind-report.ts';
 import type { KindDescription } from '../schemas/api/kinds.ts';
 import type { KindSettings } from '../reports/feedback-input.ts';
 import type { ExperimentKind } from '../server/checks/experiment-kind.ts';
-import type { KindEntry } from './kind-entry.ts';
+import type { KindDemo, KindEntry } from './kind-entry.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import { firstOrderCatalysisKind } from './first-order-catalysis/index.ts';
 import { temperatureDependenceKind } from './temperature-dependence/index.ts';
@@ -25,6 +25,35 @@ export function registerKind<Settings extends KindSettings, Submission, Refit ex
 
 registerKind(firstOrderCatalysisKind);
 registerKind(temperatureDependenceKind);
+
+/**
+ * Kinds beyond those built in, as the addresses of modules that each export `kind`, a KindEntry,
+ * separated by spaces. Worker threads copy the environment when they start and import this module, so
+ * a kind named here reaches every thread; `registerKindModule` adds to it.
+ */
+export const KIND_MODULES = 'RATEPROOF_KIND_MODULES';
+
+const listedModules = () => (process.env[KIND_MODULES] ?? '').split(' ').filter((address) => address !== '');
+
+async function entryIn(address: string): Promise<KindEntry> {
+  const { kind } = (await import(address)) as { kind?: KindEntry };
+  if (!kind?.checker) throw new Error(`${KIND_MODULES}: ${address} exports no kind`);
+  return kind;
+}
+
+// A module listed here must not import the registry: it would wait on this very import.
+for (const address of listedModules()) registerKind(await entryIn(address));
+
+/**
+ * Registers the kind a module exports as `kind`, here and in every worker thread started from now on
+ * (and in any process started with this environment): one line, for a kind that lives outside
+ * kinds/ (a test's). The pool starts its threads on its first task, so register before that.
+ */
+export async function registerKindModule(address: URL | string): Promise<void> {
+  const href = String(address);
+  registerKind(await entryIn(href));
+  if (!listedModules().includes(href)) process.env[KIND_MODULES] = [...listedModules(), href].join(' ');
+}
 
 /** Every registered kind's checker, in the order registered. */
 export function registeredKinds(): ExperimentKind[] {
@@ -52,6 +81,11 @@ export async function drawnKind(name: string): Promise<DrawnKind> {
   return { report: await report(), stages: checker.stages, findingCodes: checker.findingCodes };
 }
 
+/** The signal codes its checker can raise (none for a kind not registered). */
+export function signalCodesOf(name: string): readonly string[] {
+  return kinds.get(name)?.checker.signalCodes ?? [];
+}
+
 /** Its stages, in order, with their titles. */
 export function stagesOf(name: string): ExperimentKind['stages'] {
   return kinds.get(name)?.checker.stages ?? [];
@@ -60,4 +94,10 @@ export function stagesOf(name: string): ExperimentKind['stages'] {
 /** Every kind as the workspace draws it, in the order they were registered. */
 export async function kindDescriptions(): Promise<KindDescription[]> {
   return Promise.all([...kinds.values()].map(async (kind) => (await kind.report()).description));
+}
+
+/** Every kind's assignment in `npm run demo`, in the order registered; kinds without one are left out. */
+export async function kindDemos(): Promise<Array<{ kind: string; demo: KindDemo }>> {
+  const entries = [...kinds.values()];
+  return (await Promise.all(entries.map(async (entry) => (entry.demo ? [{ kind: entry.checker.kind, demo: await entry.demo() }] : [])))).flat();
 }

@@ -22,7 +22,7 @@ export const sharedFindingCodes = [
 export type SharedFindingCode = (typeof sharedFindingCodes)[number];
 
 /** Codes and stage names are lower-case words joined by hyphens. */
-const Code = z.string().regex(/^[a-z][a-z0-9-]*$/);
+export const Code = z.string().regex(/^[a-z][a-z0-9-]*$/);
 
 export const transcriptionDetails = [
   'transposed-digits',
@@ -87,9 +87,9 @@ export type RubricCount = z.infer<typeof RubricCount>;
  * What the numbers say about how the experiment was run, for the TA's review: never points lost, never
  * on a student's sheet unless a TA puts it there.
  */
-export const signalCodes = ['small-change', 'over-resolution', 'residual-pattern', 'end-value', 'temperature-spread', 'temperature-missing', 'digit-preference'] as const;
 export const Signal = z.object({
-  code: z.enum(signalCodes),
+  /** One of the kind's signal codes (its checker lists them), so a kind adds a signal in its own folder. */
+  code: Code,
   path: z.string(),
   /** Neutral words with the evidence. */
   message: z.string(),

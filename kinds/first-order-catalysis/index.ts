@@ -6,4 +6,5 @@ import type { Refit, Settings, Submission } from './schemas.ts';
 export const firstOrderCatalysisKind: KindEntry<Settings, Submission, Refit> = {
   checker: firstOrderCatalysis,
   report: async () => (await import('./report/report.ts')).firstOrderCatalysisReport,
+  demo: async () => (await import('./demo/demo-assignment.ts')).catalysisDemo,
 };

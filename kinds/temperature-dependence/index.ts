@@ -6,4 +6,5 @@ import type { Refit, Settings, Submission } from './schemas.ts';
 export const temperatureDependenceKind: KindEntry<Settings, Submission, Refit> = {
   checker: temperatureDependence,
   report: async () => (await import('./report/report.ts')).temperatureDependenceReport,
+  demo: async () => (await import('./demo/demo-assignment.ts')).temperatureDemo,
 };

@@ -58,7 +58,7 @@ export function settingsForm(settings: z.ZodObject, layout: FormLayout): FormGro
       return [{ ...base, type: 'select', default: typeof node.default === 'string' ? node.default : node.enum[0], options: node.enum.map((value) => ({ value, label: options?.[value] ?? value })) }];
     }
     if (node.type === 'boolean') return [{ ...base, type: 'boolean', default: node.default === true }];
-    if (node.type === 'number') {
+    if (node.type === 'number' || node.type === 'integer') {
       const exclusive = node.exclusiveMinimum !== undefined;
       return [
         {
@@ -68,6 +68,7 @@ export function settingsForm(settings: z.ZodObject, layout: FormLayout): FormGro
           ...(exclusive ? { min: node.exclusiveMinimum, minExclusive: true } : node.minimum !== undefined && { min: node.minimum }),
           ...(node.maximum !== undefined && { max: node.maximum }),
           ...(unit && { unit }),
+          ...(node.type === 'integer' && { integer: true }),
           optional: node.default === undefined,
         },
       ];

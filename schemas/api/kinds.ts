@@ -21,7 +21,7 @@ const FieldBase = z.object({
 
 /** One control of the settings form, made from the kind's settings schema and its labels. */
 export const FormField = z.discriminatedUnion('type', [
-  FieldBase.extend({ type: z.literal('number'), default: z.number().optional(), min: z.number().optional(), max: z.number().optional(), /** Above min, not at it. */ minExclusive: z.boolean().optional(), unit: z.string().optional(), /** May be left empty: not set. */ optional: z.boolean() }),
+  FieldBase.extend({ type: z.literal('number'), default: z.number().optional(), min: z.number().optional(), max: z.number().optional(), /** Above min, not at it. */ minExclusive: z.boolean().optional(), /** Whole numbers only. */ integer: z.boolean().optional(), unit: z.string().optional(), /** May be left empty: not set. */ optional: z.boolean() }),
   FieldBase.extend({ type: z.literal('select'), default: z.string(), options: z.array(z.object({ value: z.string(), label: Rich })) }),
   FieldBase.extend({ type: z.literal('boolean'), default: z.boolean() }),
   FieldBase.extend({ type: z.literal('text'), default: z.string() }),

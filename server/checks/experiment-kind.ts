@@ -4,13 +4,15 @@ import type { CsvLayout } from '../input/csv-layout.ts';
 import type { SectionSignals } from '../signals/section-report.ts';
 
 /**
- * One kind of experiment the checker understands. A new kind is a new module that implements this
- * and is listed in `kinds.ts`; nothing else changes.
+ * One kind of experiment the checker understands. A new kind is a folder, kinds/<kind>/, whose
+ * checker implements this, registered by one line in kinds/registry.ts; nothing else changes.
  */
 export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   kind: string;
   /** Every finding code the kind's checker can give (the shared ones among them), in the order a summary lists them. */
   findingCodes: readonly string[];
+  /** Every signal code the kind's checker can raise; a TA's choice of a signal names one of them. */
+  signalCodes: readonly string[];
   /** The stages findings are grouped in, in order, with their titles (sub/superscript markup: k_{obs}). */
   stages: ReadonlyArray<{ id: string; title: string }>;
   settingsSchema: z.ZodType<Settings>;

@@ -3,8 +3,7 @@ import type { WorkerPool } from './worker-pool.ts';
 
 /**
  * The pool's tasks run in the calling thread, one at a time: for a machine with a single core, where
- * a worker thread would only add its start-up, and for a process that registered an experiment kind
- * at run time (workers load only the kinds built in).
+ * a worker thread would only add its start-up.
  */
 export function sameThreadPool(): WorkerPool {
   let busy = 0;

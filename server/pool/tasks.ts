@@ -8,6 +8,8 @@ export const tasks = {
   'render-sheet': () => import('../../kinds/documents.ts').then((m) => m.feedbackSheetOrReason),
   'render-summary': () => import('../../kinds/documents.ts').then((m) => m.sectionSummary),
   'section-signals': () => import('../../kinds/section-signals.ts').then((m) => m.sectionSignalsTask),
+  // The kinds a worker knows, so that a test can see they are the caller's (a kind registered at run time among them).
+  'registered-kinds': () => import('../../kinds/registry.ts').then((m) => () => m.registeredKinds().map((k) => k.kind)),
 };
 
 export type TaskName = keyof typeof tasks;

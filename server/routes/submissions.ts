@@ -1,10 +1,11 @@
 import type { Kysely } from 'kysely';
 import { z } from 'zod';
 import { isStorableText, StudentId, UNSTORABLE_TEXT } from '../../schemas/common.ts';
-import { signalCodes } from '../../schemas/result.ts';
+import { Code } from '../../schemas/result.ts';
 import { overrideLimit } from '../checks/rubric-books.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
+import { signalCodesOf } from '../../kinds/registry.ts';
 import { effectiveResult } from '../grading/effective-result.ts';
 import { submissionStanding } from '../grading/report-inputs.ts';
 import { gradeBatch, screenBatch, storeBatch } from '../grading/submit-batch.ts';
@@ -120,7 +121,7 @@ export const submissionRoutes = [
     summary: "Put a signal for review on the student's feedback sheet, or take it off; every choice is kept with who made it",
     schema: {
       params: OfSubmission,
-      body: z.object({ code: z.enum(signalCodes), path: z.string().min(1).max(300).refine(isStorableText, UNSTORABLE_TEXT), onSheet: z.boolean() }),
+      body: z.object({ code: Code.max(60), path: z.string().min(1).max(300).refine(isStorableText, UNSTORABLE_TEXT), onSheet: z.boolean() }),
       response: { 201: SubmissionView },
     },
     transactional: true,
@@ -128,6 +129,11 @@ export const submissionRoutes = [
       const { submissionId } = scope.submission;
       const { code, path, onSheet } = body;
       const [row] = await latestResults(db, [submissionId]);
+      // The codes are the kind's own: checked here, against the registry, not by a list in the schema.
+      const codes = row ? signalCodesOf((row.settings as { kind: string }).kind) : [];
+      if (!codes.includes(code)) {
+        throw new ApiError('invalid-input', undefined, [{ path: 'body.code', message: `${code} is not a signal of this assignment's kind${codes.length ? `: one of ${codes.join(', ')}` : ', which raises none'}` }]);
+      }
       const signals = row ? effectiveResult(row, []).signals : [];
       if (!signals.some((s) => s.code === code && s.path === path)) {
         throw new ApiError('invalid-input', undefined, [{ path: 'body.path', message: `the latest result raises no signal ${code} at ${path}` }]);

@@ -17,8 +17,9 @@ import { kindFor } from '../../kinds/registry.ts';
  * A third kind, registered here in the test suite only, runs through the API and the command with
  * nothing else changed: settings, a batch with a refused submission, findings with the kind's own
  * code and stage, an override, the sheet, the summary, the gradebook, the ZIP and release; and
- * `rateproof check` with JSON and with --out. It runs in the service's own thread (RATEPROOF_WORKERS=0):
- * worker threads load only the kinds built in.
+ * `rateproof check` with JSON and with --out. It is registered in this thread only (registerKind),
+ * so it runs in the service's own thread (RATEPROOF_WORKERS=0); registerKindModule reaches the worker
+ * threads too (test/kinds/test-kind.test.ts).
  */
 registerKind({ checker: zeroOrderKind, report: async () => zeroOrderReport });
 

@@ -33,6 +33,7 @@ const near = (a: number, b: number, share: number) => Math.abs(a - b) <= share *
 export const zeroOrderKind: ExperimentKind<Settings, Submission> = {
   kind: ZERO_ORDER,
   findingCodes: ['intercept-for-slope', 'sign-flipped', 'unexplained'],
+  signalCodes: [],
   stages: [{ id: 'line', title: 'The line: k' }],
   settingsSchema: Settings,
   submissionSchema: Submission,

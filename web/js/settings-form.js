@@ -105,7 +105,7 @@ function controlsOf(field, value, id) {
     case 'number': {
       const start = typeof value === 'number' ? value : field.default;
       /** @type {HTMLInputElement} */
-      const input = h('input', { id, type: 'number', step: 'any', value: shown(start), ...(field.max !== undefined && { max: String(field.max) }), ...(field.min !== undefined && !field.minExclusive && { min: String(field.min) }) });
+      const input = h('input', { id, type: 'number', step: field.integer ? '1' : 'any', value: shown(start), ...(field.max !== undefined && { max: String(field.max) }), ...(field.min !== undefined && !field.minExclusive && { min: String(field.min) }) });
       // An optional setting left empty is sent as null: not set (a PUT states every setting the assignment has).
       return { controls: [input], control: { field, focus: input, read: () => numberOf(input) } };
     }

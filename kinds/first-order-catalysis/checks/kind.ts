@@ -8,6 +8,8 @@ import { settingsIssues } from './settings-issues.ts';
 export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   kind: KIND,
   findingCodes,
+  // What run-signals.ts raises, in the order the signals panel lists them.
+  signalCodes: ['small-change', 'over-resolution', 'residual-pattern', 'end-value', 'temperature-spread', 'temperature-missing', 'digit-preference'],
   stages,
   settingsSchema: Settings,
   submissionSchema: Submission,

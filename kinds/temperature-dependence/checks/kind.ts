@@ -7,6 +7,7 @@ import { settingsIssues } from './settings-issues.ts';
 export const temperatureDependence: ExperimentKind<Settings, Submission> = {
   kind: KIND,
   findingCodes,
+  signalCodes: [],
   stages,
   settingsSchema: Settings,
   submissionSchema: Submission,
