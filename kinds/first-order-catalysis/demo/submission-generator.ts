@@ -1,4 +1,4 @@
-import { findingCodes, KIND, Settings, type FindingCode, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../schemas.ts';
+import { equilibriumCodes, findingCodes, KIND, Settings, type EquilibriumCode, type FindingCode, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../schemas.ts';
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Finding } from '../../../schemas/result.ts';
 import { EngineError } from '../../../server/engine/engine-error.ts';
@@ -29,8 +29,10 @@ import { gaussian, seededRandom } from '../../../server/demo/seeded-random.ts';
 export type Random = () => number;
 // Not slips the generator makes: notes on the refit, and findings on data a run or its entry cannot be.
 const NOT_SLIPS = ['carried-forward', 'refit-note', 'run-not-fitted', 'time-unit-implausible', 'temperature-implausible'] as const;
-export type SlipCode = Exclude<FindingCode, (typeof NOT_SLIPS)[number]>;
-export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => !(NOT_SLIPS as readonly string[]).includes(c));
+// The equilibrium block's slips are made by equilibrium-slips.ts, on assignments that set the block.
+export type SlipCode = Exclude<FindingCode, (typeof NOT_SLIPS)[number] | EquilibriumCode>;
+const notMadeHere: readonly string[] = [...NOT_SLIPS, ...equilibriumCodes];
+export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => !notMadeHere.includes(c));
 
 /** A finding the checker must report for an injected slip. */
 export interface ExpectedFinding {
