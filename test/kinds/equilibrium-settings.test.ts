@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
 import { SettingsError } from '../../server/checks/check.ts';
-import { Submission } from '../../kinds/first-order-catalysis/schemas.ts';
+import { Settings, Submission } from '../../kinds/first-order-catalysis/schemas.ts';
 
 import { glucoseBlock } from '../support/glucose-equilibrium.ts';
 
@@ -18,14 +18,13 @@ function refusal(settings: unknown): SettingsError {
 
 describe('the equilibrium block of the first kind', () => {
   it('is optional: settings without it parse as before, with no equilibrium key', () => {
-    const { settings } = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin' });
+    const settings = Settings.parse({ kind: 'first-order-catalysis', fitModel: 'origin' });
     expect('equilibrium' in settings).toBe(false);
   });
 
   it('fills its tolerances, rubric and unit by default', () => {
-    const { settings } = parseAssignment({ kind: 'first-order-catalysis', fitModel: 'origin', equilibrium: glucoseBlock });
-    const block = (settings as { equilibrium?: Record<string, unknown> }).equilibrium;
-    expect(block).toMatchObject({
+    const settings = Settings.parse({ kind: 'first-order-catalysis', fitModel: 'origin', equilibrium: glucoseBlock });
+    expect(settings.equilibrium).toMatchObject({
       pureForms: { A: { value: 112.2, unit: 'deg mL g^-1 dm^-1' }, B: { value: 18.7, unit: 'deg mL g^-1 dm^-1' } },
       rubric: { composition: 1, K: 1, kSplit: 1, meanK: 1, rateLawSplit: 1 },
       tolerances: { xB: { absolute: 0.005 }, K: { relative: 0.02 } },

@@ -18,6 +18,7 @@ import { theirUngradedK, unfittedRunDraft } from './unfitted-run.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
 import { scoredResult } from '../../../server/checks/scored-result.ts';
 import { rateLawGradable, rubricCounts } from './scoring.ts';
+import { refitEquilibrium } from './equilibrium-refit.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
 function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
@@ -106,6 +107,7 @@ export function checkFirstOrderCatalysis(settings: Settings, submitted: Submissi
     kADeclared: inDeclared(rateLaw?.kA, submission.reported?.kA?.unit, settings.units.kA),
     fromReportedK: rateLaw?.fromReportedK,
     weightedFit: rateLaw?.weightedFit,
+    ...(settings.equilibrium && { equilibrium: refitEquilibrium(settings.equilibrium, analyses, rateLaw, settings) }),
   };
   const signals = [...fitted.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(fitted, settings)];
   return scoredResult(submission.studentId, items, findings, refit, signals);
