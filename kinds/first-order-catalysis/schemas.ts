@@ -169,8 +169,8 @@ const EquilibriumTolerances = z.object({
 const EquilibriumRubric = z.object({
   /** Per run with x_inf: [α]_eq where given, and x_B. */
   composition: points.default(1),
-  /** Per run with x_inf. */
-  K: points.default(1),
+  /** Per run with x_inf: K. */
+  constant: points.default(1),
   /** Per run with x_inf: k_f and k_r together. */
   kSplit: points.default(1),
   /** Once: the mean K. */

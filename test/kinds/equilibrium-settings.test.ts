@@ -26,7 +26,7 @@ describe('the equilibrium block of the first kind', () => {
     const settings = Settings.parse({ kind: 'first-order-catalysis', fitModel: 'origin', equilibrium: glucoseBlock });
     expect(settings.equilibrium).toMatchObject({
       pureForms: { A: { value: 112.2, unit: 'deg mL g^-1 dm^-1' }, B: { value: 18.7, unit: 'deg mL g^-1 dm^-1' } },
-      rubric: { composition: 1, K: 1, kSplit: 1, meanK: 1, rateLawSplit: 1 },
+      rubric: { composition: 1, constant: 1, kSplit: 1, meanK: 1, rateLawSplit: 1 },
       tolerances: { xB: { absolute: 0.005 }, K: { relative: 0.02 } },
     });
   });
