@@ -87,7 +87,7 @@ export type RubricCount = z.infer<typeof RubricCount>;
  * What the numbers say about how the experiment was run, for the TA's review: never points lost, never
  * on a student's sheet unless a TA puts it there.
  */
-export const signalCodes = ['small-change', 'over-resolution', 'residual-pattern', 'end-value', 'temperature-spread', 'temperature-missing', 'digit-preference'] as const;
+export const signalCodes = ['small-change', 'over-resolution', 'residual-pattern', 'end-value', 'temperature-spread', 'temperature-missing', 'digit-preference', 'constant-apart'] as const;
 export const Signal = z.object({
   code: z.enum(signalCodes),
   path: z.string(),

@@ -1,4 +1,5 @@
-import type { ReportedValue } from '../../../schemas/common.ts';
+import type { NumberLike, ReportedValue, Tolerance } from '../../../schemas/common.ts';
+import { lastPlace } from '../../../server/checks/written-number.ts';
 import type { Equilibrium, EquilibriumRefit, RunEquilibrium, Settings, Submission } from '../schemas.ts';
 import { checkValue, type ValueOutcome } from '../../../server/checks/check-value.ts';
 import type { DraftFinding } from '../../../server/checks/draft-finding.ts';
@@ -49,6 +50,11 @@ function readFraction(reported: ReportedValue, path: string, what: string, draft
   return Number(reported.value);
 }
 
+// A slip is named for x_B only where it gives the value to 1 % or half its last written place: the band
+// for right (0.005 as a fraction) would let a near-zero x_B match a percentage slip by chance.
+const FRACTION_MATCH = 0.01;
+const fractionMatch = (written: NumberLike, value: number): Tolerance => ({ absolute: Math.max(FRACTION_MATCH * Math.abs(value), 0.5 * lastPlace(written, value)) });
+
 const finite = (v: number | undefined): number | undefined => (v !== undefined && Number.isFinite(v) ? v : undefined);
 
 class EquilibriumChecker {
@@ -62,7 +68,7 @@ class EquilibriumChecker {
     if (charge > 0) this.drafts.push({ code: 'missing-value', path, stage: STAGE, rubricItem: item, itemKey, severity: 'error', charge, message: `${what} is missing.` });
   }
 
-  private value(c: { what: string; path: string; item: string; itemKey: string; charge: number; reported: number; unit: string; expected: number; carried?: { value: number | undefined; from: string }; slips: Candidate[]; factors?: Factor[]; tolerance: Settings['tolerances']['k'] }): ValueOutcome {
+  private value(c: { what: string; path: string; item: string; itemKey: string; charge: number; reported: number; unit: string; expected: number; carried?: { value: number | undefined; from: string }; slips: Candidate[]; factors?: Factor[]; tolerance: Tolerance; causeTolerance?: () => Tolerance }): ValueOutcome {
     const carried = finite(c.carried?.value);
     return checkValue(
       {
@@ -80,6 +86,7 @@ class EquilibriumChecker {
         factors: c.factors ?? [],
         causes: firstOrderCauses,
         tolerance: c.tolerance,
+        causeTolerance: c.causeTolerance,
       },
       this.drafts,
     );
@@ -117,7 +124,7 @@ class EquilibriumChecker {
       const x = readFraction(reported.xB, xPath, `x_B of ${label}`, this.drafts);
       theirs.xB = finite(x);
       if (own !== undefined) xSlips.push({ value: 1 - own, causes: ['anomers-swapped'], basis: 'x_A from your own [α]_eq' });
-      this.value({ ...composition, what: `x_B of ${label}`, path: xPath, reported: x, unit: '', expected: ours.xB.value, carried: { value: own, from: 'your own [α]_eq' }, slips: xSlips, factors: PERCENT, tolerance: tolerances.xB });
+      this.value({ ...composition, what: `x_B of ${label}`, path: xPath, reported: x, unit: '', expected: ours.xB.value, carried: { value: own, from: 'your own [α]_eq' }, slips: xSlips, factors: PERCENT, tolerance: tolerances.xB, causeTolerance: () => fractionMatch(reported.xB!.value, x) });
     }
     const K = ours.K!;
     const kPath = `${runPath}.reported.K`;

@@ -20,6 +20,7 @@ import { scoredResult } from '../../../server/checks/scored-result.ts';
 import { rateLawGradable, rubricCounts } from './scoring.ts';
 import { refitEquilibrium } from './equilibrium-refit.ts';
 import { checkEquilibrium } from './check-equilibrium.ts';
+import { constantApartSignals } from './equilibrium-signals.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
 function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
@@ -112,6 +113,6 @@ export function checkFirstOrderCatalysis(settings: Settings, submitted: Submissi
     weightedFit: rateLaw?.weightedFit,
     ...(equilibrium && { equilibrium }),
   };
-  const signals = [...fitted.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(fitted, settings)];
+  const signals = [...fitted.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(fitted, settings), ...(equilibrium ? constantApartSignals(equilibrium) : [])];
   return scoredResult(submission.studentId, items, findings, refit, signals);
 }

@@ -113,14 +113,20 @@ export function drawRateLaw(random: Random): RateLaw {
   return { kN: uniform(random, 0.01, 0.03), kA: uniform(random, 0.15, 0.25) };
 }
 
-export function generateRuns(random: Random, law: RateLaw = drawRateLaw(random)): RunData[] {
-  return CATALYST_M.map((c) => generateRun(random, c, law.kN + law.kA * c));
+/** The start and end rotations of every run, where a scenario fixes them (else drawn per run). */
+export interface RunEnds {
+  x0: () => number;
+  xInf: number;
 }
 
-function generateRun(random: Random, concentration: number, k: number): RunData {
+export function generateRuns(random: Random, law: RateLaw = drawRateLaw(random), ends?: RunEnds): RunData[] {
+  return CATALYST_M.map((c) => generateRun(random, c, law.kN + law.kA * c, ends));
+}
+
+function generateRun(random: Random, concentration: number, k: number, ends?: RunEnds): RunData {
   for (;;) {
-    const x0 = uniform(random, 20, 25);
-    const xInf = uniform(random, 8, 11);
+    const x0 = ends ? ends.x0() : uniform(random, 20, 25);
+    const xInf = ends ? ends.xInf : uniform(random, 8, 11);
     const noise = uniform(random, 0.002, 0.004);
     const xs = syntheticReadings({ k, x0, xInf, times: TIMES_MIN, noise, random }).map((x) => toPlaces(x, READING_PLACES));
     const infinity = toPlaces(xInf + noise * gaussian(random), READING_PLACES);
@@ -224,7 +230,7 @@ function reportRateLaw(submission: Submission, settings: Settings, concentration
   };
 }
 
-function analysed(submission: Submission, settings: Settings): Submission {
+export function analysed(submission: Submission, settings: Settings): Submission {
   for (const run of submission.runs) analyseRun(run, settings);
   reportRateLaw(submission, settings);
   return submission;

@@ -70,6 +70,7 @@ export const firstOrderCatalysisDescription: KindDescription = {
       { code: 'temperature-spread', label: 'Run temperatures spread wide' },
       { code: 'temperature-missing', label: 'A run’s temperature is missing' },
       { code: 'digit-preference', label: 'Last digits not evenly used' },
+      { code: 'constant-apart', label: 'A run’s K stands apart from the others' },
     ],
   },
 };
