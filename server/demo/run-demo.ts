@@ -37,7 +37,7 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
   };
   try {
     const random = seededRandom(20261202);
-    const options = { fitModel: 'origin' as const, reference: true };
+    const options = { fitModel: 'origin' as const, reference: true, equilibrium: true };
     const course = await api('POST', '/v1/courses', admin, { name: 'Kinetics laboratory (invented)' });
     const instructor = await api('POST', `/v1/courses/${course.id}/staff`, admin, { handle: 'demo-instructor', role: 'instructor' });
     const instructorToken = (await api('POST', `/v1/staff/${instructor.id}/tokens`, admin)).token as string;

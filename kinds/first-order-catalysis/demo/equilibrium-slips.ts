@@ -38,7 +38,7 @@ export function drawBlock(random: Random, per100 = random() < 0.5): Equilibrium 
   const b = toFigures(uniform(random, 5, 40), 3);
   const c = toFigures(uniform(random, 0.05, 0.15), 3);
   return {
-    pureForms: { A: { value: a, unit: 'deg mL g^-1 dm^-1', name: 'form A' }, B: { value: b, unit: 'deg mL g^-1 dm^-1', name: 'form B' }, wavelengthNm: 589, temperatureC: 25 },
+    pureForms: { A: { value: a, unit: 'deg mL g^-1 dm^-1' }, B: { value: b, unit: 'deg mL g^-1 dm^-1' }, wavelengthNm: 589, temperatureC: 25 },
     pathLength: random() < 0.5 ? { value: 2, unit: 'dm' } : { value: 1, unit: 'dm' },
     concentration: per100 ? { value: toFigures(100 * c, 4), unit: 'g/100 mL' } : { value: c, unit: 'g/mL' },
     startsFrom: 'A',
@@ -52,16 +52,15 @@ const lDm = (block: Equilibrium): number => block.pathLength.value * { dm: 1, cm
 const cGPerMl = (block: Equilibrium): number => block.concentration.value * { 'g/mL': 1, 'g/100 mL': 0.01, 'g/L': 0.001 }[block.concentration.unit];
 
 /** The runs of the scenario: every run starts near pure A and levels off at the equilibrium rotation. */
-function scenarioRuns(random: Random, block: Equilibrium, law: RateLaw): ReturnType<typeof generateRuns> {
+export function scenarioRuns(random: Random, block: Equilibrium, law: RateLaw, xB = uniform(random, 0.55, 0.8)): ReturnType<typeof generateRuns> {
   const lc = lDm(block) * cGPerMl(block);
   const { A, B } = block.pureForms;
-  const xB = uniform(random, 0.55, 0.8);
   const equilibrium = A.value - xB * (A.value - B.value);
   return generateRuns(random, law, { x0: () => A.value * lc * uniform(random, 0.97, 1), xInf: equilibrium * lc });
 }
 
 /** How a student writes the block's values, and which slip (if any) they make in every run. */
-interface Writing {
+export interface Writing {
   rotation: boolean;
   percent: boolean;
   slip?: EquilibriumSlip;
@@ -79,7 +78,7 @@ function studentRotation(run: SubmittedRun, block: Equilibrium, slip: Equilibriu
 }
 
 /** Writes the block's values into a clean submission; returns the findings the slip must cause. */
-function writeEquilibrium(submission: Submission, block: Equilibrium, w: Writing): ExpectedFinding[] {
+export function writeEquilibrium(submission: Submission, block: Equilibrium, w: Writing): ExpectedFinding[] {
   const { A, B } = block.pureForms;
   const expected: ExpectedFinding[] = [];
   const Ks: number[] = [];

@@ -8,6 +8,7 @@ import { oneSlipCopies } from '../../../server/checks/digit-slips.ts';
 import { minutes, syntheticReadings } from '../../../server/demo/synthetic-run.ts';
 import { placesFor, reportedValue, toFigures, toPlaces } from '../../../server/demo/careful-rounding.ts';
 import { gaussian, seededRandom } from '../../../server/demo/seeded-random.ts';
+import { DEMO_EQUILIBRIUM } from './demo-equilibrium.ts';
 
 /**
  * Seeded generator of realistic submissions for the kind `first-order-catalysis`, clean or with exactly
@@ -51,6 +52,8 @@ export interface AssignmentOptions {
   fitModel?: LineModel;
   classDataset?: boolean;
   reference?: boolean;
+  /** The demo's equilibrium block (invented rotations). */
+  equilibrium?: boolean;
 }
 
 const CATALYST_M = [0.05, 0.1, 0.2, 0.4];
@@ -96,6 +99,7 @@ export function assignmentSettings(options: AssignmentOptions = {}, classRuns?: 
     units: { k: 'min^-1', kN: 'min^-1', kA: 'M^-1 min^-1' },
     ...(options.classDataset && classRuns ? { classDataset: { runs: classRuns } } : {}),
     ...(options.reference ? { reference: REFERENCE_BANDS } : {}),
+    ...(options.equilibrium ? { equilibrium: DEMO_EQUILIBRIUM } : {}),
   };
 }
 
