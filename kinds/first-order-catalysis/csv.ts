@@ -34,19 +34,28 @@ interface ReportedDraft {
   line: number;
 }
 
+/**
+ * The reported file's quantities besides k, kN and kA (compared in lower case), with the field each
+ * fills: per run where `run` is given, for the whole submission where it is blank. `k_eq` is K (the
+ * mean K with `run` blank): lower case cannot tell K from k.
+ */
+const RUN_QUANTITIES = { alpha_eq: 'specificRotation', x_b: 'xB', k_eq: 'K', kf: 'kf', kr: 'kr' } as const;
+const WHOLE_QUANTITIES = { k_eq: 'K', knf: 'kNf', knr: 'kNr', kaf: 'kAf', kar: 'kAr' } as const;
+type RunField = 'k' | (typeof RUN_QUANTITIES)[keyof typeof RUN_QUANTITIES];
+type WholeField = 'kN' | 'kA' | (typeof WHOLE_QUANTITIES)[keyof typeof WHOLE_QUANTITIES];
+
 interface RunDraft {
   label: string;
   values: Map<RunColumn, { text: string; line: number }>;
   readings: Array<[number | string, number | string]>;
   lnF: Array<string | null>;
-  k?: ReportedDraft;
+  reported: Map<RunField, ReportedDraft>;
 }
 
 interface SubmissionDraft {
   studentId: string;
   runs: Map<string, RunDraft>;
-  kN?: ReportedDraft;
-  kA?: ReportedDraft;
+  reported: Map<WholeField, ReportedDraft>;
 }
 
 /** Parses a readings file and, when given, a reported-values file into Submission-shaped objects. */
@@ -63,9 +72,9 @@ export function parseSubmissionsCsv(readingsText: string, reportedText?: string)
 function addReading(drafts: Map<string, SubmissionDraft>, row: Row, decimalComma: boolean): string | undefined {
   const studentId = row.cell('student_id');
   const label = row.cell('run');
-  const draft = drafts.get(studentId) ?? { studentId, runs: new Map() };
+  const draft = drafts.get(studentId) ?? { studentId, runs: new Map(), reported: new Map() };
   drafts.set(studentId, draft);
-  const run = draft.runs.get(label) ?? { label, values: new Map(), readings: [], lnF: [] };
+  const run = draft.runs.get(label) ?? { label, values: new Map(), readings: [], lnF: [], reported: new Map() };
   draft.runs.set(label, run);
 
   run.readings.push([numberOrText(row.cell('t'), decimalComma), numberOrText(row.cell('x'), decimalComma)]);
@@ -101,31 +110,30 @@ function addReported(drafts: Map<string, SubmissionDraft>, row: Row, decimalComm
     line: row.line,
   };
 
-  switch (quantity.toLowerCase()) {
-    case 'k': {
-      if (label === '') return 'k needs the run it belongs to';
-      const run = draft.runs.get(label);
-      if (!run) return `no readings for run "${label}" of student "${studentId}"`;
-      if (run.k) return `k of run "${label}" of student "${studentId}" is already given on line ${run.k.line}`;
-      run.k = value;
-      return undefined;
-    }
-    case 'kn':
-    case 'ka': {
-      const key = quantity.toLowerCase() === 'kn' ? 'kN' : 'kA';
-      if (label !== '') return `${key} belongs to the whole submission: leave run blank`;
-      const earlier = draft[key];
-      if (earlier) return `${key} of student "${studentId}" is already given on line ${earlier.line}`;
-      draft[key] = value;
-      return undefined;
-    }
-    default:
-      return `unknown quantity "${quantity}": use k, kN or kA`;
+  const name = quantity.toLowerCase();
+  const runField: RunField | undefined = name === 'k' ? 'k' : label !== '' ? RUN_QUANTITIES[name as keyof typeof RUN_QUANTITIES] : undefined;
+  const wholeField: WholeField | undefined = name === 'kn' ? 'kN' : name === 'ka' ? 'kA' : label === '' ? WHOLE_QUANTITIES[name as keyof typeof WHOLE_QUANTITIES] : undefined;
+  if (runField) {
+    if (label === '') return `${quantity} needs the run it belongs to`;
+    const run = draft.runs.get(label);
+    if (!run) return `no readings for run "${label}" of student "${studentId}"`;
+    const earlier = run.reported.get(runField);
+    if (earlier) return `${quantity} of run "${label}" of student "${studentId}" is already given on line ${earlier.line}`;
+    run.reported.set(runField, value);
+    return undefined;
   }
+  if (wholeField) {
+    if (label !== '') return `${wholeField} belongs to the whole submission: leave run blank`;
+    const earlier = draft.reported.get(wholeField);
+    if (earlier) return `${wholeField} of student "${studentId}" is already given on line ${earlier.line}`;
+    draft.reported.set(wholeField, value);
+    return undefined;
+  }
+  return `unknown quantity "${quantity}": use k, kN or kA (with the equilibrium block also alpha_eq, x_B, k_eq, kf, kr per run, and k_eq, kNf, kNr, kAf, kAr with run blank)`;
 }
 
 function toSubmission(draft: SubmissionDraft, decimalComma: boolean): unknown {
-  const reported = { ...(draft.kN && { kN: draft.kN.reported }), ...(draft.kA && { kA: draft.kA.reported }) };
+  const reported = Object.fromEntries([...draft.reported].map(([field, d]) => [field, d.reported]));
   return {
     studentId: draft.studentId,
     runs: [...draft.runs.values()].map((run) => toRun(run, decimalComma)),
@@ -141,7 +149,7 @@ function toRun(run: RunDraft, decimalComma: boolean): unknown {
   };
   // A run whose ln F cells are all blank gave no ln F column, as if the key were left out.
   const lnF = run.lnF.some((v) => v !== null) ? run.lnF : undefined;
-  const reported = { ...(lnF && { lnF }), ...(run.k && { k: run.k.reported }) };
+  const reported = { ...(lnF && { lnF }), ...Object.fromEntries([...run.reported].map(([field, d]) => [field, d.reported])) };
   return {
     label: run.label,
     catalyst: { value: number('catalyst'), unit: text('catalyst_unit') },

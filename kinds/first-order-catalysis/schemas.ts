@@ -15,9 +15,26 @@ export const stages = [
   { id: 'readings', title: 'Readings' },
   { id: 'run', title: 'Runs: ln F and k_{obs}' },
   { id: 'rate-law', title: 'Rate law: k_{N} and k_{A}' },
+  { id: 'equilibrium', title: 'Equilibrium: composition, K, k_{f} and k_{r}' },
   { id: 'reporting', title: 'Reporting' },
 ] as const;
 export type Stage = (typeof stages)[number]['id'];
+
+/**
+ * The codes of the equilibrium block (only with `equilibrium` in the settings): the composition
+ * outside 0 to 1 is a finding on the data; the others are slips of the student's arithmetic.
+ */
+export const equilibriumCodes = [
+  'composition-outside',
+  'anomers-swapped',
+  'percent-fraction',
+  'inverted-constant',
+  'path-length-unit',
+  'mass-concentration-unit',
+  'start-for-end-value',
+  'rate-constants-swapped',
+] as const;
+export type EquilibriumCode = (typeof equilibriumCodes)[number];
 
 /** The kind's finding codes, the shared ones among them, in the order a summary lists them. */
 export const findingCodes = [
@@ -38,6 +55,7 @@ export const findingCodes = [
   'time-unit-implausible',
   'temperature-implausible',
   'implausible',
+  ...equilibriumCodes,
   'sig-figs',
   'unit-unrecognised',
   'unit-assumed',
@@ -67,19 +85,40 @@ export const SubmittedRun = RunData.extend({
       /** The student's ln F column, one entry per reading (null where left blank). */
       lnF: z.array(NumberLike.nullable()).optional(),
       k: ReportedValue.optional(),
+      // With the settings' equilibrium block: the run's composition at equilibrium and the split of k.
+      /** [α]_eq = α_inf / (l c), in deg mL g^-1 dm^-1. */
+      specificRotation: ReportedValue.optional(),
+      /** x_B, the fraction of the anomer with the smaller specific rotation; unit `%` for a percentage, else a fraction. */
+      xB: ReportedValue.optional(),
+      /** K = [B]/[A] = x_B / x_A (no unit). */
+      K: ReportedValue.optional(),
+      /** k_f (A -> B) = k_obs K / (1 + K) and k_r (B -> A) = k_obs / (1 + K). */
+      kf: ReportedValue.optional(),
+      kr: ReportedValue.optional(),
     })
     .optional(),
 });
 export type SubmittedRun = z.infer<typeof SubmittedRun>;
 
+const points = z.number().nonnegative().max(1000);
+
 export const Submission = z.object({
   studentId: StudentId,
   runs: z.array(SubmittedRun).min(1, 'at least one run').max(50),
-  reported: z.object({ kN: ReportedValue.optional(), kA: ReportedValue.optional() }).optional(),
+  reported: z
+    .object({
+      kN: ReportedValue.optional(),
+      kA: ReportedValue.optional(),
+      // With the settings' equilibrium block: the mean K over the runs, and k_N and k_A split as each k_obs is.
+      K: ReportedValue.optional(),
+      kNf: ReportedValue.optional(),
+      kNr: ReportedValue.optional(),
+      kAf: ReportedValue.optional(),
+      kAr: ReportedValue.optional(),
+    })
+    .optional(),
 });
 export type Submission = z.infer<typeof Submission>;
-
-const points = z.number().nonnegative().max(1000);
 
 export const Rubric = z.object({
   /** Per run, for readings that match the class dataset (only with `classDataset`). */
@@ -109,6 +148,65 @@ export const Tolerances = z.object({
   rateLawUncertainty: Tolerance.default({ relative: 0.25 }),
 });
 export type Tolerances = z.infer<typeof Tolerances>;
+
+export const SPECIFIC_ROTATION_UNIT = 'deg mL g^-1 dm^-1';
+const SpecificRotation = z.object({ value: FiniteNumber, unit: z.literal(SPECIFIC_ROTATION_UNIT).default(SPECIFIC_ROTATION_UNIT), name: Text(40).optional() });
+/** The cell's path length; [α] takes it in dm. */
+export const PathLength = z.object({ value: z.number().positive().max(1000), unit: z.enum(['dm', 'cm', 'mm']) });
+export type PathLength = z.infer<typeof PathLength>;
+/** The solution's mass concentration; [α] takes it in g/mL. */
+export const MassConcentration = z.object({ value: z.number().positive().max(1000), unit: z.enum(['g/mL', 'g/100 mL', 'g/L']) });
+export type MassConcentration = z.infer<typeof MassConcentration>;
+
+const EquilibriumTolerances = z.object({
+  specificRotation: Tolerance.default({ relative: 0.01 }),
+  xB: Tolerance.default({ absolute: 0.005 }),
+  K: Tolerance.default({ relative: 0.02 }),
+  /** For k_f and k_r, per run and of k_N and k_A. */
+  kSplit: Tolerance.default({ relative: 0.02 }),
+});
+
+const EquilibriumRubric = z.object({
+  /** Per run with x_inf: [α]_eq where given, and x_B. */
+  composition: points.default(1),
+  /** Per run with x_inf: K. */
+  constant: points.default(1),
+  /** Per run with x_inf: k_f and k_r together. */
+  kSplit: points.default(1),
+  /** Once: the mean K. */
+  meanK: points.default(1),
+  /** Once: k_N and k_A split into forward and reverse parts. */
+  rateLawSplit: points.default(1),
+});
+
+/**
+ * The run's end value read as the equilibrium composition: [α]_eq = α_inf / (l c) lies between the
+ * pure anomers' specific rotations. A is always the anomer with the larger specific rotation, whichever
+ * form the runs start from, so that k_f (A -> B) and k_r keep their names.
+ */
+export const Equilibrium = z
+  .object({
+    pureForms: z.object({
+      A: SpecificRotation,
+      B: SpecificRotation,
+      /** Where the specific rotations hold: they are comparable only at one wavelength and temperature. */
+      wavelengthNm: z.number().positive().max(10000),
+      temperatureC: FiniteNumber,
+    }),
+    pathLength: PathLength,
+    concentration: MassConcentration,
+    /** Where runs were made up at other concentrations: by run label; a run not named has `concentration`. */
+    concentrationByRun: z.record(Text(40), MassConcentration).optional(),
+    /** Which anomer the runs start from. */
+    startsFrom: z.enum(['A', 'B']),
+    tolerances: EquilibriumTolerances.default(EquilibriumTolerances.parse({})),
+    rubric: EquilibriumRubric.default(EquilibriumRubric.parse({})),
+  })
+  .refine((e) => e.pureForms.A.value > e.pureForms.B.value, {
+    path: ['pureForms', 'A'],
+    message: 'A is the anomer with the larger specific rotation: A.value must be above B.value',
+  });
+export type Equilibrium = z.infer<typeof Equilibrium>;
 
 export const Settings = z.object({
   kind: z.literal(KIND),
@@ -140,6 +238,8 @@ export const Settings = z.object({
   temperature: z
     .object({ maxSpread: z.number().positive().max(100).default(1), required: z.boolean().default(false) })
     .default({ maxSpread: 1, required: false }),
+  /** The equilibrium composition from each run's end value and the split of k into k_f and k_r; without it neither is asked. */
+  equilibrium: Equilibrium.optional(),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;
@@ -161,6 +261,30 @@ export const RunRefit = z.object({
 });
 export type RunRefit = z.infer<typeof RunRefit>;
 
+/** One run's composition at equilibrium and the split of its k_obs (k_f, k_r in the instructor's unit of k). */
+export const RunEquilibrium = z.object({
+  label: z.string(),
+  specificRotation: Estimate,
+  xB: Estimate,
+  /** Absent where x_B lies outside 0 to 1: no K follows from it. */
+  K: Estimate.optional(),
+  kf: Estimate.optional(),
+  kr: Estimate.optional(),
+});
+export type RunEquilibrium = z.infer<typeof RunEquilibrium>;
+
+export const EquilibriumRefit = z.object({
+  /** One per run, null for a run without x_inf or without a fit. */
+  runs: z.array(RunEquilibrium.nullable()),
+  /** The mean K over the runs that give one: its standard error, and the spread (sample SD) of the runs' K. */
+  meanK: z.object({ value: z.number(), standardError: z.number(), sd: z.number().optional(), n: z.number().int() }).optional(),
+  kNf: Estimate.optional(),
+  kNr: Estimate.optional(),
+  kAf: Estimate.optional(),
+  kAr: Estimate.optional(),
+});
+export type EquilibriumRefit = z.infer<typeof EquilibriumRefit>;
+
 export const Refit = z.object({
   runs: z.array(RunRefit),
   /** In the instructor's units. */
@@ -181,5 +305,7 @@ export const Refit = z.object({
       otherConvention: z.object({ kN: z.number(), kA: z.number() }),
     })
     .optional(),
+  /** With the settings' equilibrium block. */
+  equilibrium: EquilibriumRefit.optional(),
 });
 export type Refit = z.infer<typeof Refit>;

@@ -174,7 +174,7 @@ describe('reported-values file', () => {
       { file: 'reported', row: 3, message: 'no readings for run "C" of student "s-01"' },
       { file: 'reported', row: 4, message: 'no readings for student "s-09"' },
       { file: 'reported', row: 5, message: 'kN belongs to the whole submission: leave run blank' },
-      { file: 'reported', row: 6, message: 'unknown quantity "t½": use k, kN or kA' },
+      { file: 'reported', row: 6, message: 'unknown quantity "t½": use k, kN or kA (with the equilibrium block also alpha_eq, x_B, k_eq, kf, kr per run, and k_eq, kNf, kNr, kAf, kAr with run blank)' },
       { file: 'reported', row: 8, message: 'k of run "A" of student "s-01" is already given on line 7' },
     ]);
   });

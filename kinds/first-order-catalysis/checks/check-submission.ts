@@ -18,6 +18,9 @@ import { theirUngradedK, unfittedRunDraft } from './unfitted-run.ts';
 import { digitSignals, runSignals, temperatureSignals } from './run-signals.ts';
 import { scoredResult } from '../../../server/checks/scored-result.ts';
 import { rateLawGradable, rubricCounts } from './scoring.ts';
+import { refitEquilibrium } from './equilibrium-refit.ts';
+import { checkEquilibrium } from './check-equilibrium.ts';
+import { constantApartSignals } from './equilibrium-signals.ts';
 
 /** An estimate in the unit a student declared, where that differs from the instructor's and can be read. */
 function inDeclared(e: Estimate | undefined, declared: string | undefined, instructor: string): Estimate | undefined {
@@ -94,10 +97,12 @@ export function checkFirstOrderCatalysis(settings: Settings, submitted: Submissi
     });
   }
   checkRateLaw(submission, rateLaw, settings, drafts);
+  const equilibrium = settings.equilibrium && refitEquilibrium(settings.equilibrium, analyses, rateLaw, settings);
+  const equilibriumItems = equilibrium && checkEquilibrium(settings.equilibrium!, equilibrium, analyses, studentKs, submission, settings, drafts);
   checkSigFigs(submission, settings, drafts);
 
   const findings = scoreFindings(drafts, firstOrderCauses.systematic);
-  const items = rubricCounts(settings, submission, { kRuns: undetermined.length, unfittedRuns: unfitted.map((a) => a.index), rateLaw: rateLawLeftOut });
+  const items = rubricCounts(settings, submission, { kRuns: undetermined.length, unfittedRuns: unfitted.map((a) => a.index), rateLaw: rateLawLeftOut }, equilibriumItems);
   const refit: Refit = {
     runs: analyses.map((a, i) => runRefit(a, submission.runs[i].reported?.k?.unit, settings)),
     kN: rateLaw?.kN,
@@ -106,7 +111,8 @@ export function checkFirstOrderCatalysis(settings: Settings, submitted: Submissi
     kADeclared: inDeclared(rateLaw?.kA, submission.reported?.kA?.unit, settings.units.kA),
     fromReportedK: rateLaw?.fromReportedK,
     weightedFit: rateLaw?.weightedFit,
+    ...(equilibrium && { equilibrium }),
   };
-  const signals = [...fitted.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(fitted, settings)];
+  const signals = [...fitted.flatMap((a) => runSignals(a, settings)), ...temperatureSignals(submission.runs, settings), ...digitSignals(fitted, settings), ...(equilibrium ? constantApartSignals(equilibrium) : [])];
   return scoredResult(submission.studentId, items, findings, refit, signals);
 }

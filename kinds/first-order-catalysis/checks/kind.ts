@@ -9,7 +9,7 @@ export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   kind: KIND,
   findingCodes,
   // What run-signals.ts raises, in the order the signals panel lists them.
-  signalCodes: ['small-change', 'over-resolution', 'residual-pattern', 'end-value', 'temperature-spread', 'temperature-missing', 'digit-preference'],
+  signalCodes: ['small-change', 'over-resolution', 'residual-pattern', 'end-value', 'temperature-spread', 'temperature-missing', 'digit-preference', 'constant-apart'],
   stages,
   settingsSchema: Settings,
   submissionSchema: Submission,

@@ -3,6 +3,7 @@ import { EngineError } from '../../../server/engine/engine-error.ts';
 import { convert } from '../../../server/engine/units.ts';
 import type { Settings, Submission } from '../schemas.ts';
 import type { RubricCount } from '../../../schemas/result.ts';
+import type { EquilibriumItems } from './check-equilibrium.ts';
 
 /** A straight line through k_obs against [catalyst] needs three runs at two concentrations or more. */
 export function rateLawGradable(submission: Submission): boolean {
@@ -32,7 +33,7 @@ export interface Ungradable {
  * run with x_inf: without it there is no column to make), k and its uncertainty; then the rate law (three
  * runs at two concentrations or more) and presentation. Items that cannot be graded are left out.
  */
-export function rubricCounts(settings: Settings, submission: Submission, ungradable: Ungradable = {}): RubricCount[] {
+export function rubricCounts(settings: Settings, submission: Submission, ungradable: Ungradable = {}, equilibrium?: EquilibriumItems): RubricCount[] {
   const r = settings.rubric;
   const runs = submission.runs.length;
   const unfitted = new Set(ungradable.unfittedRuns ?? []);
@@ -48,6 +49,28 @@ export function rubricCounts(settings: Settings, submission: Submission, ungrada
     ['kA', rateLaw],
     ['kAUncertainty', rateLaw],
     ['sigFigs', 1],
+  ];
+  const main = counts.filter(([item, count]) => count > 0 && r[item] > 0).map(([item, count]) => ({ item, count, each: r[item] }));
+  return [...main, ...equilibriumCounts(settings, submission, equilibrium)];
+}
+
+/**
+ * The equilibrium block's items, where it is set: per run with a K of ours its composition and K, and
+ * the split of k where the run has a k_obs of ours; the mean K and the split of k_N and k_A once. Before
+ * a check has said which runs give a K (a refused submission), every run with x_inf is counted.
+ */
+function equilibriumCounts(settings: Settings, submission: Submission, checked: EquilibriumItems | undefined): RubricCount[] {
+  const block = settings.equilibrium;
+  if (!block) return [];
+  const withEnd = submission.runs.filter((run) => run.infinity !== undefined).length;
+  const items = checked ?? { runsWithK: withEnd, runsWithSplit: withEnd, meanK: withEnd > 0, rateLawSplit: withEnd > 0 && rateLawGradable(submission) };
+  const r = block.rubric;
+  const counts: Array<[keyof typeof r, number]> = [
+    ['composition', items.runsWithK],
+    ['constant', items.runsWithK],
+    ['kSplit', items.runsWithSplit],
+    ['meanK', items.meanK ? 1 : 0],
+    ['rateLawSplit', items.rateLawSplit ? 1 : 0],
   ];
   return counts.filter(([item, count]) => count > 0 && r[item] > 0).map(([item, count]) => ({ item, count, each: r[item] }));
 }

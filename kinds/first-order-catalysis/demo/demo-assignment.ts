@@ -4,7 +4,7 @@ import type { Submission } from '../schemas.ts';
 import { generateSection } from './generated-section.ts';
 import { assignmentSettings, generateAssignment } from './submission-generator.ts';
 
-const options = { fitModel: 'origin' as const, reference: true };
+const options = { fitModel: 'origin' as const, reference: true, equilibrium: true };
 
 /**
  * The demo's assignment of this kind: runs at several acid concentrations, a third of the section

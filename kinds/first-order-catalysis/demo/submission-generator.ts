@@ -1,4 +1,4 @@
-import { findingCodes, KIND, Settings, type FindingCode, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../schemas.ts';
+import { equilibriumCodes, findingCodes, KIND, Settings, type EquilibriumCode, type FindingCode, type RunData, type SettingsInput, type Submission, type SubmittedRun } from '../schemas.ts';
 import type { ReportedValue } from '../../../schemas/common.ts';
 import type { Finding } from '../../../schemas/result.ts';
 import { EngineError } from '../../../server/engine/engine-error.ts';
@@ -8,6 +8,7 @@ import { oneSlipCopies } from '../../../server/checks/digit-slips.ts';
 import { minutes, syntheticReadings } from '../../../server/demo/synthetic-run.ts';
 import { placesFor, reportedValue, toFigures, toPlaces } from '../../../server/demo/careful-rounding.ts';
 import { gaussian, seededRandom } from '../../../server/demo/seeded-random.ts';
+import { DEMO_EQUILIBRIUM } from './demo-equilibrium.ts';
 
 /**
  * Seeded generator of realistic submissions for the kind `first-order-catalysis`, clean or with exactly
@@ -29,8 +30,10 @@ import { gaussian, seededRandom } from '../../../server/demo/seeded-random.ts';
 export type Random = () => number;
 // Not slips the generator makes: notes on the refit, and findings on data a run or its entry cannot be.
 const NOT_SLIPS = ['carried-forward', 'refit-note', 'run-not-fitted', 'time-unit-implausible', 'temperature-implausible'] as const;
-export type SlipCode = Exclude<FindingCode, (typeof NOT_SLIPS)[number]>;
-export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => !(NOT_SLIPS as readonly string[]).includes(c));
+// The equilibrium block's slips are made by equilibrium-slips.ts, on assignments that set the block.
+export type SlipCode = Exclude<FindingCode, (typeof NOT_SLIPS)[number] | EquilibriumCode>;
+const notMadeHere: readonly string[] = [...NOT_SLIPS, ...equilibriumCodes];
+export const slipCodes: SlipCode[] = findingCodes.filter((c): c is SlipCode => !notMadeHere.includes(c));
 
 /** A finding the checker must report for an injected slip. */
 export interface ExpectedFinding {
@@ -49,6 +52,8 @@ export interface AssignmentOptions {
   fitModel?: LineModel;
   classDataset?: boolean;
   reference?: boolean;
+  /** The demo's equilibrium block (invented rotations). */
+  equilibrium?: boolean;
 }
 
 const CATALYST_M = [0.05, 0.1, 0.2, 0.4];
@@ -94,6 +99,7 @@ export function assignmentSettings(options: AssignmentOptions = {}, classRuns?: 
     units: { k: 'min^-1', kN: 'min^-1', kA: 'M^-1 min^-1' },
     ...(options.classDataset && classRuns ? { classDataset: { runs: classRuns } } : {}),
     ...(options.reference ? { reference: REFERENCE_BANDS } : {}),
+    ...(options.equilibrium ? { equilibrium: DEMO_EQUILIBRIUM } : {}),
   };
 }
 
@@ -111,14 +117,20 @@ export function drawRateLaw(random: Random): RateLaw {
   return { kN: uniform(random, 0.01, 0.03), kA: uniform(random, 0.15, 0.25) };
 }
 
-export function generateRuns(random: Random, law: RateLaw = drawRateLaw(random)): RunData[] {
-  return CATALYST_M.map((c) => generateRun(random, c, law.kN + law.kA * c));
+/** The start and end rotations of every run, where a scenario fixes them (else drawn per run). */
+export interface RunEnds {
+  x0: () => number;
+  xInf: number;
 }
 
-function generateRun(random: Random, concentration: number, k: number): RunData {
+export function generateRuns(random: Random, law: RateLaw = drawRateLaw(random), ends?: RunEnds): RunData[] {
+  return CATALYST_M.map((c) => generateRun(random, c, law.kN + law.kA * c, ends));
+}
+
+function generateRun(random: Random, concentration: number, k: number, ends?: RunEnds): RunData {
   for (;;) {
-    const x0 = uniform(random, 20, 25);
-    const xInf = uniform(random, 8, 11);
+    const x0 = ends ? ends.x0() : uniform(random, 20, 25);
+    const xInf = ends ? ends.xInf : uniform(random, 8, 11);
     const noise = uniform(random, 0.002, 0.004);
     const xs = syntheticReadings({ k, x0, xInf, times: TIMES_MIN, noise, random }).map((x) => toPlaces(x, READING_PLACES));
     const infinity = toPlaces(xInf + noise * gaussian(random), READING_PLACES);
@@ -222,7 +234,7 @@ function reportRateLaw(submission: Submission, settings: Settings, concentration
   };
 }
 
-function analysed(submission: Submission, settings: Settings): Submission {
+export function analysed(submission: Submission, settings: Settings): Submission {
   for (const run of submission.runs) analyseRun(run, settings);
   reportRateLaw(submission, settings);
   return submission;

@@ -9,7 +9,9 @@ import { convertUnit } from '../../../reports/units.ts';
  * read here is left out and counted.
  */
 export interface ClassValues {
-  quantity: 'kN' | 'kA';
+  quantity: 'kN' | 'kA' | 'K';
+  /** What one mark stands for: a student, or (for K) one run of a student. */
+  per?: string;
   unit: string;
   refit: number[];
   reported: number[];

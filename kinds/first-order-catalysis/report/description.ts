@@ -20,7 +20,7 @@ export const firstOrderCatalysisDescription: KindDescription = {
         { label: 'The instrument (for signals to review, never points)', keys: ['displayStep', 'instrumentNoise', 'temperature'] },
         { label: 'Rubric points', keys: ['rubric'] },
       ],
-      kept: ['classDataset', 'reference'],
+      kept: ['classDataset', 'reference', 'equilibrium'],
       words: {
         fitModel: { label: 'ln F against t', options: { origin: 'ln F = -k t (through the origin)', intercept: 'ln F = a - k t (with an intercept)' } },
         rateLawFit: { label: 'k_{obs} against [catalyst]', options: { ordinary: 'ordinary least squares', weighted: 'weighted by 1/SE² of each k_{obs}' } },
@@ -50,7 +50,7 @@ export const firstOrderCatalysisDescription: KindDescription = {
         'rubric.sigFigs': 'Rounding, once',
       },
     }),
-    note: 'A class dataset and reference bands, where set, are kept as they are (the API edits them).',
+    note: 'A class dataset, reference bands and the equilibrium block, where set, are kept as they are (the API edits them).',
   },
   upload: {
     json: true,
@@ -70,6 +70,7 @@ export const firstOrderCatalysisDescription: KindDescription = {
       { code: 'temperature-spread', label: 'Run temperatures spread wide' },
       { code: 'temperature-missing', label: 'A run’s temperature is missing' },
       { code: 'digit-preference', label: 'Last digits not evenly used' },
+      { code: 'constant-apart', label: 'A run’s K stands apart from the others' },
     ],
   },
 };

@@ -10,6 +10,8 @@ import { allRunSeries, type RunSeries } from './run-series.ts';
 import { valueRows, valuesNote } from './values-table.ts';
 import { formatNumber, prettyUnit } from '../../../reports/format.ts';
 import { readRefit } from './refit.ts';
+import { equilibriumNote, equilibriumRows } from './equilibrium-rows.ts';
+import { constantPlot } from './equilibrium-display.ts';
 
 /**
  * The first kind on the workspace's student page: the sheet's table of values and its plots, made by
@@ -89,7 +91,10 @@ export function firstOrderCatalysisDisplay(input: FeedbackInput<Settings, Submis
   const { settings, submission } = input;
   const refit = readRefit(input.result);
   if (!refit) return { comparison: null, plots: [] };
-  const rows = valueRows(settings, submission, refit);
+  const equilibrium = settings.equilibrium && refit.equilibrium;
+  // The equilibrium block's rows follow the values', in the same columns.
+  const rows = [...valueRows(settings, submission, refit), ...(equilibrium ? equilibriumRows(settings.equilibrium!, submission, equilibrium) : [])];
+  const kPlot = equilibrium ? constantPlot(submission, equilibrium) : undefined;
   const runs = allRunSeries(settings, submission.runs, refit, input.result.findings).filter((s): s is RunSeries => s !== undefined && s.points.length > 0);
   // One time unit on one axis: runs timed in minutes and in seconds are two plots, never rescaled.
   const units = [...new Set(runs.map((r) => r.timeUnit))];
@@ -98,7 +103,7 @@ export function firstOrderCatalysisDisplay(input: FeedbackInput<Settings, Submis
     comparison: rows.length
       ? {
           caption: 'Reported values against the refit from the student’s own readings',
-          note: valuesNote(settings, 'the student’s'),
+          note: valuesNote(settings, 'the student’s') + (equilibrium ? ` Equilibrium: ${equilibriumNote(settings.equilibrium!, equilibrium, 'the student’s')}` : ''),
           columns: [
             { header: 'Quantity', numeric: false },
             { header: 'Run', numeric: false },
@@ -111,6 +116,6 @@ export function firstOrderCatalysisDisplay(input: FeedbackInput<Settings, Submis
           rows: rows.map((r) => [r.quantity, r.run, r.reported, r.refit, r.unit, r.difference, r.tolerance]),
         }
       : null,
-    plots: [...units.map((unit) => lnFPlot(runs.filter((r) => r.timeUnit === unit))), ...(law ? [rateLawPlot(law)] : [])],
+    plots: [...units.map((unit) => lnFPlot(runs.filter((r) => r.timeUnit === unit))), ...(law ? [rateLawPlot(law)] : []), ...(kPlot ? [kPlot] : [])],
   };
 }

@@ -15,6 +15,11 @@ const QUANTITIES: Record<string, string> = {
   infinity: 'end value x_{∞}',
   catalyst: 'catalyst concentration',
   timeUnit: 'time unit',
+  'reported.specificRotation': '[α]_{eq}',
+  'reported.xB': 'x_{B}',
+  'reported.K': 'K',
+  'reported.kf': 'k_{f}',
+  'reported.kr': 'k_{r}',
 };
 
 const TOP: Record<string, string> = {
@@ -25,6 +30,11 @@ const TOP: Record<string, string> = {
   'reported.kA': 'k_{A}',
   'reported.kA.uncertainty': 'standard error of k_{A}',
   'reported.kA.unit': 'unit of k_{A}',
+  'reported.K': 'mean K',
+  'reported.kNf': 'k_{N,f}',
+  'reported.kNr': 'k_{N,r}',
+  'reported.kAf': 'k_{A,f}',
+  'reported.kAr': 'k_{A,r}',
 };
 
 export function runLabel(submission: Pick<Submission, 'runs'> | undefined, index: number): string {

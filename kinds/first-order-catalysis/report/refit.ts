@@ -1,4 +1,4 @@
-import type { Refit, RunRefit } from '../schemas.ts';
+import { EquilibriumRefit, type Refit, type RunRefit } from '../schemas.ts';
 
 /**
  * The result's refit in the kind's shape, or undefined (rejected result, or another kind).
@@ -51,5 +51,7 @@ export function readRefit(result: { refit: unknown }): Refit | undefined {
     kN: estimate(refit.kN),
     kA: estimate(refit.kA),
     fromReportedK: ownKN && ownKA ? { kN: ownKN, kA: ownKA } : undefined,
+    // Only finite numbers are stored in it (no K from an x_B outside 0 to 1): the schema reads it whole.
+    equilibrium: EquilibriumRefit.safeParse(refit.equilibrium).data,
   };
 }

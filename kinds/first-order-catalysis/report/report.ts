@@ -8,10 +8,12 @@ import { rubricBreakdown } from './rubric-breakdown.ts';
 import { drawRunPlots } from './run-plots.ts';
 import { allRunSeries } from './run-series.ts';
 import { drawValues } from './values-block.ts';
+import { drawEquilibrium } from './equilibrium-block.ts';
 import { readRefit } from './refit.ts';
 import { firstOrderCatalysisDescription } from './description.ts';
 import { firstOrderCatalysisDisplay } from './display.ts';
 import { drawRateConstants } from './summary-rate-constants.ts';
+import { drawEquilibriumSummary } from './summary-equilibrium.ts';
 
 /** Whether a submission has the runs a place in it may name (a refused one may not). */
 function hasRuns(submission: unknown): submission is Pick<Submission, 'runs'> {
@@ -32,6 +34,7 @@ export const firstOrderCatalysisReport: KindReport<Settings, Submission, Refit> 
     const refit = readRefit(input.result);
     if (!refit) return;
     drawValues(doc, settings, submission, refit);
+    drawEquilibrium(doc, settings, submission, refit);
     const runs = allRunSeries(settings, submission.runs, refit, input.result.findings);
     drawRunPlots(doc, runs);
     const law = rateLawSeries(settings, submission, refit);
@@ -40,5 +43,8 @@ export const firstOrderCatalysisReport: KindReport<Settings, Submission, Refit> 
   },
   display: firstOrderCatalysisDisplay,
   summaryFacts: (settings) => [['Fit asked for', `ln F against t ${settings.fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`]],
-  drawSummaryData: drawRateConstants,
+  drawSummaryData(doc, input) {
+    drawRateConstants(doc, input);
+    drawEquilibriumSummary(doc, input);
+  },
 };

@@ -17,6 +17,15 @@ export const RUBRIC_LABELS: Record<RubricItem, string> = {
   sigFigs: 'Significant figures',
 };
 
+/** The equilibrium block's items (only with the block in the settings). */
+export const EQUILIBRIUM_RUBRIC_LABELS: Record<keyof NonNullable<Settings['equilibrium']>['rubric'], string> = {
+  composition: 'Equilibrium composition [α]_{eq}, x_{B}',
+  constant: 'Equilibrium constant K',
+  kSplit: 'k_{f} and k_{r}',
+  meanK: 'Mean K',
+  rateLawSplit: 'k_{N} and k_{A} split into forward and reverse',
+};
+
 /** The items of a result stored before results said what their maximum was made of. */
 function itemsOfOlderResult(settings: Settings, runs: number): Array<[RubricItem, number]> {
   const items: Array<[RubricItem, number]> = [];
@@ -31,5 +40,5 @@ export function rubricBreakdown(settings: Settings, submission: Pick<Submission,
   const r = settings.rubric;
   // The checker says what the maximum is made of; older results are read by the rule of their time.
   const items = result.items ?? itemsOfOlderResult(settings, submission?.runs.length ?? 0).map(([item, count]) => ({ item, count, each: r[item] }));
-  return labelled(settleBooks(items, result.maxScore, result.findings).rows, RUBRIC_LABELS).filter((l) => l.each > 0 || l.lost > 0);
+  return labelled(settleBooks(items, result.maxScore, result.findings).rows, { ...RUBRIC_LABELS, ...EQUILIBRIUM_RUBRIC_LABELS }).filter((l) => l.each > 0 || l.lost > 0);
 }

@@ -8,7 +8,7 @@ import { COLOR, SIZE } from '../../../reports/pdf/theme.ts';
 import type { ClassValues } from './class-values.ts';
 
 const HEIGHT = 92;
-const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}' } as const;
+const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}', K: 'K' } as const;
 
 /** Every student's value as a dot (refit row and reported row), the reference band shaded behind. */
 export function drawStripPlot(doc: Doc, values: ClassValues): void {
@@ -29,8 +29,8 @@ export function drawStripPlot(doc: Doc, values: ClassValues): void {
   const yAxis: Axis = { min: 0, max: 2, ticks: [], power: 0, decimals: 0 };
   const top = doc.y;
   const plot = new Plot(doc, { x: contentLeft(doc), y: top, width: contentWidth(doc), height: HEIGHT }, niceAxis(shown, { pad: 0.05, ticks: 7 }), yAxis, {
-    title: `${SYMBOL[values.quantity]}, one mark per student`,
-    x: `${SYMBOL[values.quantity]} / ${prettyUnit(values.unit)}`,
+    title: `${SYMBOL[values.quantity]}, one mark per ${values.per ?? 'student'}`,
+    x: values.unit ? `${SYMBOL[values.quantity]} / ${prettyUnit(values.unit)}` : SYMBOL[values.quantity],
     y: '',
   });
   plot.drawFrame();

@@ -8,9 +8,9 @@ import { classValues, type ClassValues } from './class-values.ts';
 import { SPREAD_COLUMNS, spreadCells } from '../../../reports/summary/spread-table.ts';
 import { drawStripPlot } from './strip-plot.ts';
 
-const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}' } as const;
+const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}', K: 'K' } as const;
 
-function spreadRow(values: ClassValues, source: string, data: number[]): string[] {
+export function spreadRow(values: ClassValues, source: string, data: number[]): string[] {
   const outside = values.band ? data.filter((v) => v < values.band!.min || v > values.band!.max).length : undefined;
   return [
     SYMBOL[values.quantity],
