@@ -46,6 +46,8 @@ const UPKEEP_SECONDS = 5;
  * is taken up by another once it expires.
  */
 export class JobQueue {
+  private readonly queues = new Set<string>();
+
   private constructor(
     private readonly boss: PgBoss,
     private readonly store: Store,
@@ -74,6 +76,7 @@ export class JobQueue {
     const options = { name: spec.name, retryLimit: spec.retryLimit, retryDelay: spec.retryDelaySeconds, retryBackoff: true, expireInSeconds: spec.expireInSeconds, ...(spec.deadLetter ? { deadLetter: spec.deadLetter } : {}) };
     await this.boss.createQueue(spec.name, options);
     await this.boss.updateQueue(spec.name, options);
+    this.queues.add(spec.name);
   }
 
   /** Adds jobs in `db`'s transaction: they exist once it commits, and never if it rolls back. */
@@ -104,10 +107,11 @@ export class JobQueue {
     await this.boss.schedule(queue, cron);
   }
 
-  /** How many jobs each queue holds in each state. */
+  /** How many jobs each queue defined here holds in each state (archived ones left out). */
   async counts(): Promise<Record<string, Record<JobState, number>>> {
-    const states = await (this.boss as PgBoss & { countStates(): Promise<{ queues: Record<string, Record<JobState, number>> }> }).countStates();
-    return states.queues;
+    const { queues } = await (this.boss as PgBoss & { countStates(): Promise<{ queues: Record<string, Partial<Record<JobState, number>>> }> }).countStates();
+    const none = Object.fromEntries(JOB_STATES.map((state) => [state, 0])) as Record<JobState, number>;
+    return Object.fromEntries([...this.queues].map((name) => [name, { ...none, ...queues[name] }]));
   }
 
   /** Stops taking jobs and waits (up to `seconds`) for those under way; unfinished ones are failed, to be tried again. */

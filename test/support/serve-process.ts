@@ -3,9 +3,9 @@ import { fileURLToPath } from 'node:url';
 
 const bin = fileURLToPath(new URL('../../bin/rateproof.js', import.meta.url));
 
-/** Starts the compiled `rateproof serve` with `env` on a free port; `listening` gives the port once it listens. */
-export function serve(env: Record<string, string>): { child: ChildProcess; listening: Promise<number>; exited: Promise<{ code: number | null; stderr: string }> } {
-  const child = spawn(process.execPath, [bin, 'serve'], { env: { ...process.env, DATABASE_URL: '', PORT: '0', LOG_LEVEL: 'info', ...env } });
+/** Starts the compiled `rateproof serve` (with `args`) with `env` on a free port; `listening` gives the port once it listens. */
+export function serve(env: Record<string, string>, args: string[] = []): { child: ChildProcess; listening: Promise<number>; exited: Promise<{ code: number | null; stderr: string }> } {
+  const child = spawn(process.execPath, [bin, 'serve', ...args], { env: { ...process.env, DATABASE_URL: '', PORT: '0', LOG_LEVEL: 'info', ...env } });
   let stderr = '';
   child.stderr!.on('data', (d) => (stderr += d));
   const exited = new Promise<{ code: number | null; stderr: string }>((resolve) => child.on('exit', (code) => resolve({ code, stderr })));
