@@ -110,8 +110,8 @@ export class JobQueue {
   /** How many jobs each queue defined here holds in each state (archived ones left out). */
   async counts(): Promise<Record<string, Record<JobState, number>>> {
     const { queues } = await (this.boss as PgBoss & { countStates(): Promise<{ queues: Record<string, Partial<Record<JobState, number>>> }> }).countStates();
-    const none = Object.fromEntries(JOB_STATES.map((state) => [state, 0])) as Record<JobState, number>;
-    return Object.fromEntries([...this.queues].map((name) => [name, { ...none, ...queues[name] }]));
+    const statesOf = (name: string) => Object.fromEntries(JOB_STATES.map((state) => [state, queues[name]?.[state] ?? 0])) as Record<JobState, number>;
+    return Object.fromEntries([...this.queues].map((name) => [name, statesOf(name)]));
   }
 
   /** Stops taking jobs and waits (up to `seconds`) for those under way; unfinished ones are failed, to be tried again. */
