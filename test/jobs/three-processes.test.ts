@@ -3,7 +3,7 @@ import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ADMIN_TOKEN, seedCourse, submissionsFor, type Seed } from '../support/api-fixture.ts';
 import { parsePrometheusText, samplesOf } from '../support/prometheus-text.ts';
-import { serve } from '../support/serve-process.ts';
+import { overHttp, serve } from '../support/serve-process.ts';
 import { scratchDatabase } from '../support/test-database.ts';
 
 /**
@@ -20,21 +20,6 @@ const SUBMISSIONS = 6000;
 const SUBMITTED = ['S-001', 'S-002', 'S-003', 'S-004', 'S-005', 'S-006'];
 /** A job running longer than this has lost its process and must have been handed to another (the issue's bound). */
 const TAKEN_UP_WITHIN_S = 30;
-
-/** Just enough of `app.inject` over real HTTP for the seeding helpers to talk to a service process. */
-function overHttp(port: number) {
-  return {
-    async inject({ method, url, headers, payload }: { method: string; url: string; headers?: Record<string, string>; payload?: unknown }) {
-      const res = await fetch(`http://127.0.0.1:${port}${url}`, {
-        method,
-        headers: { ...headers, ...(payload === undefined ? {} : { 'content-type': 'application/json' }) },
-        body: payload === undefined ? undefined : JSON.stringify(payload),
-      });
-      const body = await res.text();
-      return { statusCode: res.status, headers: Object.fromEntries(res.headers), body, json: () => JSON.parse(body) };
-    },
-  } as unknown as FastifyInstance;
-}
 
 interface Progress {
   regradeId: string;

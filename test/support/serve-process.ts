@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import type { FastifyInstance } from 'fastify';
 import { fileURLToPath } from 'node:url';
 
 const bin = fileURLToPath(new URL('../../bin/rateproof.js', import.meta.url));
@@ -20,4 +21,19 @@ export function serve(env: Record<string, string>, args: string[] = []): { child
   });
   listening.catch(() => {});
   return { child, listening, exited };
+}
+
+/** Just enough of `app.inject` over real HTTP for the seeding helpers to talk to a service process. */
+export function overHttp(port: number) {
+  return {
+    async inject({ method, url, headers, payload }: { method: string; url: string; headers?: Record<string, string>; payload?: unknown }) {
+      const res = await fetch(`http://127.0.0.1:${port}${url}`, {
+        method,
+        headers: { ...headers, ...(payload === undefined ? {} : { 'content-type': 'application/json' }) },
+        body: payload === undefined ? undefined : JSON.stringify(payload),
+      });
+      const body = await res.text();
+      return { statusCode: res.status, headers: Object.fromEntries(res.headers), body, json: () => JSON.parse(body) };
+    },
+  } as unknown as FastifyInstance;
 }
