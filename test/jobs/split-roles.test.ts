@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ADMIN_TOKEN, seedCourse, submissionsFor } from '../support/api-fixture.ts';
+import { parsePrometheusText, samplesOf } from '../support/prometheus-text.ts';
 import { overHttp, serve } from '../support/serve-process.ts';
 import { scratchDatabase } from '../support/test-database.ts';
 
@@ -37,14 +38,15 @@ describe.skipIf(!SERVER)('serve --no-jobs and --jobs-only', () => {
     expect(started.statusCode).toBe(202);
     const progress = async () => (await app.inject({ method: 'GET', url: started.headers.location as string, headers: auth })).json() as { done: number; total: number; status: string };
 
-    // Nothing works the job meanwhile (a poll is every second: a few go by).
-    await new Promise((resolve) => setTimeout(resolve, 4000));
     expect(await progress()).toMatchObject({ done: 0, total: 3, status: 'running' });
 
     const jobs = serve(env, ['--jobs-only']);
     services.push(jobs);
     await vi.waitFor(async () => expect(await progress()).toMatchObject({ done: 3, total: 3, status: 'finished' }), { timeout: 90_000, interval: 500 });
-    // It never listened: its log says it works jobs only.
+    // The first worked none of it: it timed no job's try.
+    const metrics = parsePrometheusText((await app.inject({ method: 'GET', url: '/metrics' })).body);
+    expect(samplesOf(metrics, 'rateproof_job_duration_seconds_count', { queue: 'regrade-part' })).toEqual([]);
+    // The second never listened.
     expect(jobs.child.exitCode).toBeNull();
     await expect(Promise.race([jobs.listening.then(() => 'listening'), new Promise((resolve) => setTimeout(() => resolve('not listening'), 100))])).resolves.toBe('not listening');
   }, 180_000);
