@@ -4,8 +4,8 @@
  *
  * At the ground: engine, schemas, input, config and errors. Above them signals, then checks, reports
  * (all three generic: they name no kind), each kind's folder under kinds/<kind>/ on those, the kinds
- * registry (kinds/*.ts) above every kind, batches and the pool, each on the one before; the store beside those; grading
- * on both; routes and HTTP on grading; the app, the command and the demo on top. web/ is apart.
+ * registry (kinds/*.ts) above every kind, batches and the pool, each on the one before; the store beside those, the
+ * job queue on the store; grading on all of them; routes and HTTP on grading; the app, the command and the demo on top. web/ is apart.
  */
 
 // Every path of ours; a rule below forbids those of them a layer may not import.
@@ -84,12 +84,13 @@ module.exports = {
     },
     layer('batches-below-pool', '^server/batches/', '^(server/(batches|checks|signals|engine|input)|kinds|reports|schemas)/', 'The work a worker does, below the pool that runs it.'),
     layer('store-below-its-users', '^server/store/', ['^(server/store|schemas|migrations)/', LOW_ROOT_FILES], 'SQL knows nothing of grading or HTTP.'),
+    layer('jobs-on-the-store', '^server/jobs/', ['^(server/(jobs|store)|schemas|migrations)/', LOW_ROOT_FILES], 'The job queue keeps jobs in the database; it knows no job type.'),
     layer('pool-runs-batches-and-kinds', '^server/pool/', '^(server/(pool|batches)|kinds)/', 'The pool names its tasks; the command and grading use the pool.'),
     layer(
       'grading-below-routes',
       '^server/grading/',
-      ['^(server/(grading|pool|batches|store|checks|signals|engine|input)|kinds|reports|schemas)/', LOW_ROOT_FILES],
-      'What a request does with the checker and the store, without HTTP.',
+      ['^(server/(grading|jobs|pool|batches|store|checks|signals|engine|input)|kinds|reports|schemas)/', LOW_ROOT_FILES],
+      'What a request or a job does with the checker and the store, without HTTP.',
     ),
     {
       name: 'routes-below-the-app',

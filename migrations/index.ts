@@ -7,6 +7,7 @@ import * as releases from './2026-12-05T1000-releases.ts';
 import * as studentIdCase from './2026-12-05T1100-student-id-case.ts';
 import * as overrideReasonShown from './2026-12-05T1200-override-reason-shown.ts';
 import * as latestResults from './2026-12-05T1400-latest-results.ts';
+import * as regrades from './2026-12-05T1600-regrades.ts';
 
 /**
  * Every migration by name, applied in name order (names start with a timestamp). A static list rather
@@ -22,4 +23,5 @@ export const migrations: Record<string, Migration> = {
   '2026-12-05T1100-student-id-case': studentIdCase,
   '2026-12-05T1200-override-reason-shown': overrideReasonShown,
   '2026-12-05T1400-latest-results': latestResults,
+  '2026-12-05T1600-regrades': regrades,
 };

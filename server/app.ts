@@ -3,6 +3,8 @@ import { serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod
 import type { Config } from './config.ts';
 import { poolGrader, type Grader } from './grading/grader.ts';
 import { Regrades } from './grading/regrade.ts';
+import { startServiceJobs } from './grading/service-jobs.ts';
+import { JobQueue } from './jobs/job-queue.ts';
 import { createWorkerPool } from './pool/worker-pool.ts';
 import { sameThreadPool } from './pool/same-thread-pool.ts';
 import { bodyParsersPlugin } from './http/body-parsers.ts';
@@ -56,14 +58,19 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   const pool = options.grader ? undefined : workers === 0 ? sameThreadPool() : createWorkerPool(workers);
   const grader = options.grader ?? poolGrader(pool!);
   const metrics = serviceMetrics({ store: options.store, pool });
-  const regrades = new Regrades(grader, metrics.regradeWatch);
+  // Every process adds jobs; one that serves requests only leaves their working and upkeep to others.
+  const working = options.config.role !== 'requests';
+  const jobs = await JobQueue.open(options.store, { upkeep: working, watch: metrics.jobWatch });
+  metrics.countJobs(jobs);
+  const regrades = new Regrades(grader, jobs);
   app.addHook('onClose', async () => {
-    // Regrades under way finish first: they need the workers and the database.
-    await regrades.idle();
+    // Jobs under way finish first (or are handed back to the queue): they need the workers and the database.
+    await jobs.stop();
     await pool?.close();
   });
+  await startServiceJobs(jobs, { db: options.store.db, regrades, work: working, concurrency: pool?.size ?? 1 });
 
-  await app.register(servicesPlugin, { config: options.config, store: options.store, grader, regrades });
+  await app.register(servicesPlugin, { config: options.config, store: options.store, grader, regrades, jobs });
   await app.register(errorHandlerPlugin);
   await app.register(bodyParsersPlugin);
   await app.register(uploadPlugin, { fileSize: options.config.bodyLimitBytes });

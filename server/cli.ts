@@ -31,10 +31,12 @@ const CHECK = {
 };
 
 const SERVE = {
-  synopsis: 'rateproof serve',
-  text: `  serve   serve the API (/v1) and the workspace (/) until stopped; set up by environment variables:
-          DATABASE_URL (unset: embedded PostgreSQL in RATEPROOF_DATA_DIR, default ./data), HOST and PORT
-          (default 127.0.0.1:3000), RATEPROOF_ADMIN_TOKEN and the others listed in docs/operations.md
+  synopsis: 'rateproof serve [--no-jobs | --jobs-only]',
+  text: `  serve   serve the API (/v1) and the workspace (/) and work background jobs until stopped; set up by
+          environment variables: DATABASE_URL (unset: embedded PostgreSQL in RATEPROOF_DATA_DIR, default
+          ./data), HOST and PORT (default 127.0.0.1:3000), RATEPROOF_ADMIN_TOKEN and the others listed in
+          docs/operations.md. Processes on one PostgreSQL database share the jobs (docs/jobs.md):
+          --no-jobs serves requests only, --jobs-only works jobs only (both need DATABASE_URL)
 `,
 };
 
@@ -57,11 +59,11 @@ ${CHECK.text}${SERVE.text}${DEMO.text}`;
 /** Each subcommand, loaded when it runs, with the usage its --help prints. */
 const commands = new Map<string, { usage: string; load: () => Promise<Command> }>([
   ['check', { usage: usageOf(CHECK), load: async () => (await import('./cli/check-command.ts')).checkCommand }],
-  ['serve', { usage: usageOf(SERVE), load: async () => noArguments(serve) }],
+  ['serve', { usage: usageOf(SERVE), load: async () => serve }],
   ['demo', { usage: usageOf(DEMO), load: async () => noArguments(demo) }],
 ]);
 
-/** `serve` and `demo` take no arguments: one given is a mistake to say, not to ignore. */
+/** `demo` takes no arguments: one given is a mistake to say, not to ignore. */
 function noArguments(command: () => Promise<number>): Command {
   return async (args) => {
     if (args.length > 0) throw new UsageError(`unexpected argument '${args[0]}'`);
@@ -76,10 +78,10 @@ async function demo(): Promise<number> {
   return 0;
 }
 
-/** Serves the API until stopped; configuration comes from the environment (docs/operations.md). */
-async function serve(): Promise<number> {
+/** Serves the API until stopped; configuration comes from the environment (docs/operations.md), the role from the flags. */
+async function serve(args: string[]): Promise<number> {
   const { serve: start } = await import('./main.ts');
-  await start();
+  await start(args);
   return 0;
 }
 

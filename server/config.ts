@@ -35,6 +35,27 @@ export interface Config {
   workers?: number;
   /** Mark the session cookie Secure on every request (`always`), or only on requests that came over TLS. */
   secureCookie?: 'auto' | 'always';
+  /** What this process does (`rateproof serve` flags): serve requests and work jobs (the default), or one of them. */
+  role?: ProcessRole;
+}
+
+/** `both`: requests and jobs; `requests`: --no-jobs; `jobs`: --jobs-only (no HTTP). */
+export type ProcessRole = 'both' | 'requests' | 'jobs';
+
+const ROLE_FLAGS: Record<string, ProcessRole> = { '--no-jobs': 'requests', '--jobs-only': 'jobs' };
+
+/**
+ * The process's role from `rateproof serve`'s flags. Splitting needs a PostgreSQL server: the embedded
+ * database is one process's, which must then do both.
+ */
+export function processRole(flags: string[], config: Pick<Config, 'databaseUrl'>): ProcessRole {
+  const unknown = flags.find((f) => !(f in ROLE_FLAGS));
+  if (unknown !== undefined) throw new ConfigError(`unexpected argument '${unknown}' (serve takes --no-jobs or --jobs-only)`);
+  const roles = new Set(flags.map((f) => ROLE_FLAGS[f]));
+  if (roles.size > 1) throw new ConfigError('--no-jobs and --jobs-only exclude each other');
+  const role = roles.values().next().value ?? 'both';
+  if (role !== 'both' && !config.databaseUrl) throw new ConfigError(`${flags[0]} needs DATABASE_URL: on the embedded database one process serves requests and works jobs`);
+  return role;
 }
 
 export class ConfigError extends Error {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ConfigError, readConfig } from '../server/config.ts';
+import { ConfigError, processRole, readConfig } from '../server/config.ts';
 
 /** The ConfigError readConfig throws for `env` (fails the test when it does not throw one). */
 function configError(env: NodeJS.ProcessEnv): ConfigError {
@@ -143,5 +143,20 @@ describe('readConfig', () => {
       LOG_LEVEL: '',
     });
     expect(config).toEqual(readConfig({}));
+  });
+});
+
+describe('processRole (rateproof serve --no-jobs | --jobs-only)', () => {
+  const server = { databaseUrl: 'postgres://postgres@127.0.0.1:5432/rateproof' };
+  it('serves requests and works jobs by default; each flag keeps one', () => {
+    expect(processRole([], server)).toBe('both');
+    expect(processRole([], {})).toBe('both');
+    expect(processRole(['--no-jobs'], server)).toBe('requests');
+    expect(processRole(['--jobs-only'], server)).toBe('jobs');
+  });
+  it('refuses both flags, an unknown one, and a split on the embedded database, naming why', () => {
+    expect(() => processRole(['--no-jobs', '--jobs-only'], server)).toThrow(new ConfigError('--no-jobs and --jobs-only exclude each other'));
+    expect(() => processRole(['--jobs'], server)).toThrow(/unexpected argument '--jobs'/);
+    expect(() => processRole(['--no-jobs'], {})).toThrow(/--no-jobs needs DATABASE_URL/);
   });
 });

@@ -9,3 +9,16 @@ describe('rateproof serve: a start-up that cannot reach its database', () => {
     expect(stderr).toMatch(/^rateproof: cannot open the PostgreSQL server in DATABASE_URL: .*ECONNREFUSED.*\n$/);
   });
 });
+
+describe('rateproof serve: its flags', () => {
+  it('refuses to split the work on the embedded database: one line, exit 2', async () => {
+    const { code, stderr } = await serve({ RATEPROOF_DATA_DIR: 'memory://' }, ['--jobs-only']).exited;
+    expect(code).toBe(2);
+    expect(stderr).toBe('rateproof: --jobs-only needs DATABASE_URL: on the embedded database one process serves requests and works jobs\n');
+  });
+  it('refuses a flag it does not know: one line, exit 2', async () => {
+    const { code, stderr } = await serve({ RATEPROOF_DATA_DIR: 'memory://' }, ['--background']).exited;
+    expect(code).toBe(2);
+    expect(stderr).toBe("rateproof: unexpected argument '--background' (serve takes --no-jobs or --jobs-only)\n");
+  });
+});

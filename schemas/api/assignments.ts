@@ -14,7 +14,7 @@ export const Assignment = z.object({
 });
 export type Assignment = AsJson<z.infer<typeof Assignment>>;
 
-/** How far a regrade is. */
+/** How far a regrade is (kept in the database: every service process answers the same). */
 export const RegradeProgressView = z.object({
   regradeId: z.string(),
   assignmentId: z.number(),
@@ -22,8 +22,9 @@ export const RegradeProgressView = z.object({
   total: z.number(),
   done: z.number(),
   status: z.enum(['running', 'finished', 'failed']),
-  error: z.string().optional(),
+  /** Why it stopped, when it failed; the results stored before stay. */
+  error: z.string().nullable(),
   startedAt: z.date(),
-  finishedAt: z.date().optional(),
+  finishedAt: z.date().nullable(),
 });
 export type RegradeProgressView = AsJson<z.infer<typeof RegradeProgressView>>;

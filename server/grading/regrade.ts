@@ -2,92 +2,69 @@ import { randomUUID } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { AssignmentRow } from '../store/assignments.ts';
 import type { Database } from '../store/database.ts';
-import { insertResults, latestSubmissions } from '../store/submissions.ts';
-import { inParts } from '../store/in-parts.ts';
-import { isDatabaseUnavailable } from '../store/unavailable.ts';
+import { completeRegradePart, createRegrade, failRegrade, getRegrade, regradePartToDo, type RegradeRow } from '../store/regrades.ts';
+import { insertResults, submissionsByIds } from '../store/submissions.ts';
+import type { JobQueue, QueueSpec } from '../jobs/job-queue.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { Grader } from './grader.ts';
 
-/** Where a regrade stands: how many of its submissions have new results. */
-export interface RegradeProgress {
+/** One part of a regrade: the job's data. */
+export interface RegradePart {
   regradeId: string;
-  assignmentId: number;
-  sectionId: number | null;
-  total: number;
-  done: number;
-  status: 'running' | 'finished' | 'failed';
-  /** Why it stopped, when it failed; the results stored before that stay. */
-  error?: string;
-  startedAt: Date;
-  finishedAt?: Date;
+  part: number;
 }
 
-/** Told when a regrade starts and ends (the metrics count them). */
-export interface RegradeWatch {
-  started(): void;
-  ended(job: Readonly<RegradeProgress>): void;
-}
+// A part is one task of the worker pool (it checks 250 at a time) and one transaction.
+const PART = 250;
 
-// Each part is checked in the workers and stored in a transaction of its own, so that progress shows
-// and no transaction holds thousands of rows.
-const PART = 500;
-const KEPT = 100;
+/** A part's job: tried again with growing waits; one running 20 s is taken to have lost its process. */
+export const REGRADE_PARTS: QueueSpec = { name: 'regrade-part', retryLimit: 5, retryDelaySeconds: 2, expireInSeconds: 20, deadLetter: 'regrade-part-given-up' };
+/** Parts whose tries are used up come here, to stop their regrade with a reason. */
+export const REGRADE_PARTS_GIVEN_UP: QueueSpec = { name: 'regrade-part-given-up', retryLimit: 3, retryDelaySeconds: 5, expireInSeconds: 60 };
+
+const GIVEN_UP = 'a part could not be stored after several tries; the results stored before stay, and starting the regrade again is safe';
 
 /**
- * The regrades of one service: each runs in the background, part by part, and can be asked how far it
- * is. New results are added; earlier ones stay. Kept in memory: a regrade cut short by a restart is
- * simply started again (it only adds results).
+ * Regrades as jobs: a regrade is recorded with its submissions in parts, and one job per part is
+ * added, all in the transaction of the request that starts it. Any process that works jobs takes
+ * parts; each part is checked, then stored and marked done in one transaction, so a part done twice
+ * stores nothing twice. New results are added; earlier ones and what was released stay.
  */
 export class Regrades {
-  private readonly jobs = new Map<string, RegradeProgress>();
-  private readonly running = new Set<Promise<void>>();
-
   constructor(
     private readonly grader: Grader,
-    private readonly watch?: RegradeWatch,
+    private readonly queue: JobQueue,
   ) {}
 
-  async start(db: Kysely<Database>, assignment: AssignmentRow, sectionId?: number): Promise<RegradeProgress> {
+  /** Records a regrade under the assignment's current settings and queues its parts, in `db`'s transaction. */
+  async start(db: Kysely<Database>, assignment: AssignmentRow, sectionId?: number): Promise<RegradeRow> {
     assignmentOf(assignment.settings, 'settings');
-    const latest = await latestSubmissions(db, assignment.id, sectionId);
-    const job: RegradeProgress = { regradeId: randomUUID(), assignmentId: assignment.id, sectionId: sectionId ?? null, total: latest.length, done: 0, status: 'running', startedAt: new Date() };
-    this.keep(job);
-    this.watch?.started();
-    const work = this.run(db, assignment, latest, job).finally(() => this.running.delete(work));
-    this.running.add(work);
-    return { ...job };
+    const { row, parts } = await createRegrade(db, { id: randomUUID(), assignmentId: assignment.id, sectionId, settings: assignment.settings, settingsVersion: assignment.settingsVersion, partSize: PART });
+    await this.queue.send(db, REGRADE_PARTS.name, parts.map((part): RegradePart => ({ regradeId: row.regradeId, part })));
+    return row;
   }
 
-  get(regradeId: string): RegradeProgress | undefined {
-    const job = this.jobs.get(regradeId);
-    return job && { ...job };
+  get(db: Kysely<Database>, regradeId: string): Promise<RegradeRow | undefined> {
+    return getRegrade(db, regradeId);
   }
 
-  /** Waits for the regrades under way (before the service closes its database). */
-  async idle(): Promise<void> {
-    await Promise.allSettled([...this.running]);
+  /** Does one part, unless it is done already (or its regrade stopped). */
+  async runPart(db: Kysely<Database>, { regradeId, part }: RegradePart): Promise<void> {
+    const todo = await regradePartToDo(db, regradeId, part);
+    if (!todo) return;
+    // Checked outside the transaction, which then holds its locks only while it stores.
+    const submissions = await submissionsByIds(db, todo.submissionIds);
+    const graded = await this.grader.check(todo.settings, submissions.map((s) => s.payload));
+    await db.transaction().execute(async (trx) => {
+      // Another process may have done the part meanwhile (this job expired and was taken up): then nothing is stored.
+      if (!(await regradePartToDo(trx, regradeId, part, true))) return;
+      await insertResults(trx, { settings: todo.settings, settingsVersion: todo.settingsVersion }, submissions.map((s, i) => ({ submissionId: s.submissionId, result: graded[i] })));
+      await completeRegradePart(trx, regradeId, part, submissions.length);
+    });
   }
 
-  private keep(job: RegradeProgress): void {
-    this.jobs.set(job.regradeId, job);
-    if (this.jobs.size > KEPT) this.jobs.delete(this.jobs.keys().next().value!);
-  }
-
-  private async run(db: Kysely<Database>, assignment: AssignmentRow, latest: Array<{ submissionId: number; payload: unknown }>, job: RegradeProgress): Promise<void> {
-    const gradedWith = { settings: assignment.settings, settingsVersion: assignment.settingsVersion };
-    try {
-      for (const part of inParts(latest, PART)) {
-        const graded = await this.grader.check(assignment.settings, part.map((s) => s.payload));
-        await db.transaction().execute((trx) => insertResults(trx, gradedWith, part.map((s, j) => ({ submissionId: s.submissionId, result: graded[j] }))));
-        job.done += part.length;
-      }
-      job.status = 'finished';
-    } catch (error) {
-      job.status = 'failed';
-      job.error = isDatabaseUnavailable(error) ? 'the database could not be reached; start the regrade again' : 'an internal error stopped it; start the regrade again';
-    } finally {
-      job.finishedAt = new Date();
-      this.watch?.ended(job);
-    }
+  /** A part given up on stops its regrade, saying why. */
+  async giveUp(db: Kysely<Database>, { regradeId }: RegradePart): Promise<void> {
+    await failRegrade(db, regradeId, GIVEN_UP);
   }
 }

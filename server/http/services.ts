@@ -3,6 +3,7 @@ import fp from 'fastify-plugin';
 import type { Config } from '../config.ts';
 import type { Grader } from '../grading/grader.ts';
 import type { Regrades } from '../grading/regrade.ts';
+import type { JobQueue } from '../jobs/job-queue.ts';
 import type { Store } from '../store/connection.ts';
 
 /** What the routes work with, on the app: `request.server.grader` and so on. */
@@ -11,8 +12,10 @@ export interface Services {
   store: Store;
   /** Checking and drawing, done off the event loop. */
   grader: Grader;
-  /** Regrades running in the background, and how far each is. */
+  /** Regrades, worked as jobs by any process, and how far each is. */
   regrades: Regrades;
+  /** The job queue shared by every process on the database. */
+  jobs: JobQueue;
 }
 
 declare module 'fastify' {
@@ -24,4 +27,5 @@ export const servicesPlugin = fp(async (app: FastifyInstance, services: Services
   app.decorate('store', services.store);
   app.decorate('grader', services.grader);
   app.decorate('regrades', services.regrades);
+  app.decorate('jobs', services.jobs);
 }, { name: 'rateproof-services' });

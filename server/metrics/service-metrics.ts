@@ -1,17 +1,20 @@
-import { collectDefaultMetrics, Counter, Gauge, Histogram, Registry } from 'prom-client';
-import type { RegradeWatch } from '../grading/regrade.ts';
+import { collectDefaultMetrics, Gauge, Histogram, Registry } from 'prom-client';
+import { JOB_STATES, type JobQueue, type JobWatch } from '../jobs/job-queue.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 import type { PoolConnections, Store } from '../store/connection.ts';
 
 /**
- * One service's metrics, in the Prometheus text format: requests by route pattern, regrades, the
+ * One service's metrics, in the Prometheus text format: requests by route pattern, jobs, the
  * worker pool and the database's connection pool, with the process's own (CPU, memory, event loop).
  * No label holds a value a client sent: routes are the table's patterns, never a URL.
  */
 export interface ServiceMetrics {
   /** Observes a request's duration once it is answered. */
   requestSeconds: Histogram<'method' | 'route' | 'status_class'>;
-  regradeWatch: RegradeWatch;
+  /** Times each job's try in this process. */
+  jobWatch: JobWatch;
+  /** Counts the queue's jobs by state when read (the counts are the database's, the same from every process). */
+  countJobs(queue: Pick<JobQueue, 'counts'>): void;
   contentType: string;
   text(): Promise<string>;
 }
@@ -27,8 +30,8 @@ function processMetrics(): Registry {
   return processRegistry;
 }
 
-// A regrade of a section takes seconds, of a whole course minutes.
-const REGRADE_BUCKETS = [1, 5, 15, 30, 60, 120, 300, 600, 1800];
+// A part of a regrade takes a second or a few; a cleanup or a passback about as long.
+const JOB_BUCKETS = [0.1, 0.5, 1, 2.5, 5, 10, 20, 60, 300];
 
 export function serviceMetrics(sources: { store: Store; pool?: WorkerPool }): ServiceMetrics {
   const registry = new Registry();
@@ -41,20 +44,14 @@ export function serviceMetrics(sources: { store: Store; pool?: WorkerPool }): Se
     labelNames: ['method', 'route', 'status_class'] as const,
   });
 
-  const regradesRunning = new Gauge({ ...own, name: 'rateproof_regrades_running', help: 'Regrades under way in this process.' });
-  const regradesEnded = new Counter({ ...own, name: 'rateproof_regrades_ended_total', help: 'Regrades ended in this process, by how they ended.', labelNames: ['state'] as const });
-  const regradeSeconds = new Histogram({ ...own, name: 'rateproof_regrade_duration_seconds', help: 'Time from a regrade\'s start to its end.', labelNames: ['state'] as const, buckets: REGRADE_BUCKETS });
-  // Both states appear from the start, at 0, so that a rate over them is defined before the first regrade.
-  for (const state of ['finished', 'failed']) regradesEnded.inc({ state }, 0);
-  const regradeWatch: RegradeWatch = {
-    started: () => regradesRunning.inc(),
-    ended(job) {
-      regradesRunning.dec();
-      regradesEnded.inc({ state: job.status });
-      regradeSeconds.observe({ state: job.status }, ((job.finishedAt ?? new Date()).getTime() - job.startedAt.getTime()) / 1000);
-    },
-  };
-
+  const jobSeconds = new Histogram({
+    ...own,
+    name: 'rateproof_job_duration_seconds',
+    help: "A job's try in this process, from taking it to its end, by queue and outcome.",
+    labelNames: ['queue', 'outcome'] as const,
+    buckets: JOB_BUCKETS,
+  });
+  const jobWatch: JobWatch = { ended: (queue, outcome, seconds) => jobSeconds.observe({ queue, outcome }, seconds) };
   const { pool, store } = sources;
   if (pool) {
     const poolGauge = (name: string, help: string, read: () => number) =>
@@ -74,6 +71,22 @@ export function serviceMetrics(sources: { store: Store; pool?: WorkerPool }): Se
     dbGauge('rateproof_db_pool_max_connections', 'The most connections the pool opens.', (c) => c.max);
   }
 
+  // Registered after the pool gauges: its query, on read, must not count among the queries they see waiting.
+  let queue: Pick<JobQueue, 'counts'> | undefined;
+  new Gauge({
+    ...own,
+    name: 'rateproof_jobs',
+    help: 'Jobs in the shared queue by queue and state (archived ones left out).',
+    labelNames: ['queue', 'state'] as const,
+    async collect() {
+      if (!queue) return;
+      // With the database away the counts are left out; /metrics answers still (/ready says why).
+      const counts = await queue.counts().catch(() => ({}));
+      this.reset();
+      for (const [name, states] of Object.entries(counts)) for (const state of JOB_STATES) this.set({ queue: name, state }, states[state] ?? 0);
+    },
+  });
+
   const merged = Registry.merge([processMetrics(), registry]);
-  return { requestSeconds, regradeWatch, contentType: merged.contentType, text: () => merged.metrics() };
+  return { requestSeconds, jobWatch, countJobs: (q) => void (queue = q), contentType: merged.contentType, text: () => merged.metrics() };
 }

@@ -67,12 +67,15 @@ export const assignmentRoutes = [
     method: 'POST',
     url: '/v1/assignments/:assignmentId/regrade',
     access: 'instructor',
-    summary: "Start regrading the latest submissions under the current settings (one section or all), in the background; earlier results stay. Follow it at the regrade's URL",
+    summary:
+      "Start regrading the latest submissions under the current settings (one section or all), as background jobs any service process may work, part by part; earlier results and what was released stay. Follow it at the regrade's URL, on any process",
     schema: {
       params: OfAssignment,
       body: z.object({ sectionId: z.number().int().positive().optional() }).optional(),
       response: { 202: RegradeProgressView },
     },
+    // The regrade and its jobs are stored with the request, or not at all.
+    transactional: true,
     async handler({ db, server, body, scope }, reply) {
       const sectionId = body?.sectionId;
       if (sectionId !== undefined && (await getSection(db, sectionId))?.courseId !== scope.assignment.courseId) {
@@ -88,9 +91,9 @@ export const assignmentRoutes = [
     access: 'instructor',
     summary: 'How far a regrade is: submissions done of the total, running, finished or failed',
     schema: { params: z.object({ assignmentId: IdParam, regradeId: z.string().uuid() }), response: { 200: RegradeProgressView } },
-    async handler({ server, params, scope }) {
-      const progress = server.regrades.get(params.regradeId);
-      if (!progress || progress.assignmentId !== scope.assignment.id) throw new ApiError('not-found', 'no such regrade (a regrade is kept until the service restarts)');
+    async handler({ db, server, params, scope }) {
+      const progress = await server.regrades.get(db, params.regradeId);
+      if (!progress || progress.assignmentId !== scope.assignment.id) throw new ApiError('not-found', 'no such regrade of this assignment');
       return progress;
     },
   }),

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ApiError } from '../errors.ts';
 import { severityCounts } from '../../reports/result-summary.ts';
 import { releasesDue, sectionStandings } from '../grading/report-inputs.ts';
+import { queuePassback } from '../grading/service-jobs.ts';
 import { staffIdOf } from '../http/access.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { IdParam } from '../http/schemas.ts';
@@ -53,13 +54,14 @@ export const resultRoutes = [
     url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
     access: 'section',
     summary:
-      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action",
+      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action; a release queues the section's grade passback",
     schema: { params, response: { 200: Released } },
     transactional: true,
-    async handler({ db, scope, caller }) {
+    async handler({ db, server, scope, caller }) {
       const latest = await latestSubmissionHeads(db, scope.assignment.id, scope.section.id);
       const due = await releasesDue(db, latest.map((s) => s.submissionId));
       await insertReleases(db, due, staffIdOf(caller));
+      if (due.length > 0) await queuePassback(server.jobs, db, { assignmentId: scope.assignment.id, sectionId: scope.section.id });
       return { released: due.length };
     },
   }),

@@ -1,6 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import { PGlite } from '@electric-sql/pglite';
-import { Kysely, PostgresDialect } from 'kysely';
+import { Kysely, PostgresDialect, sql } from 'kysely';
 import { PGliteDialect } from 'kysely-pglite-dialect';
 import pg from 'pg';
 import { lockDataFolder } from './data-folder-lock.ts';
@@ -12,6 +12,11 @@ export interface Store {
   engine: 'postgres' | 'pglite';
   /** The connection pool's state (a PostgreSQL server only: the embedded database is one connection in the process). */
   connections?(): PoolConnections;
+  /**
+   * Runs statements given as one text without parameters (a library's schema scripts), each in turn,
+   * on a connection of its own: the embedded engine's query protocol takes one statement at a time.
+   */
+  script(text: string): Promise<void>;
   /** Closes the connections and gives back the data folder's lock. */
   close(): Promise<void>;
 }
@@ -39,7 +44,9 @@ export function openStore(options: { databaseUrl?: string; dataDir?: string }): 
     pool.on('connect', (client) => client.on('error', () => {}));
     const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
     const connections = () => ({ total: pool.totalCount, idle: pool.idleCount, waiting: pool.waitingCount, max: MAX_CONNECTIONS });
-    return { db, engine: 'postgres', connections, close: () => db.destroy() };
+    // Without parameters pg sends the simple query protocol, which takes several statements.
+    const script = async (text: string) => void (await sql.raw(text).execute(db));
+    return { db, engine: 'postgres', connections, script, close: () => db.destroy() };
   }
   const dir = options.dataDir ?? './data';
   // memory:// keeps the embedded database in memory (tests); anything else is a folder, one process at a time.
@@ -48,10 +55,13 @@ export function openStore(options: { databaseUrl?: string; dataDir?: string }): 
     mkdirSync(dir, { recursive: true });
     release = lockDataFolder(dir);
   }
-  const db = new Kysely<Database>({ dialect: new PGliteDialect(new PGlite(dir)) });
+  const pglite = new PGlite(dir);
+  const db = new Kysely<Database>({ dialect: new PGliteDialect(pglite) });
   return {
     db,
     engine: 'pglite',
+    // Holding kysely's one connection keeps every other query (and any open transaction) out meanwhile.
+    script: (text) => db.connection().execute(async () => void (await pglite.exec(text))),
     async close() {
       try {
         await db.destroy();

@@ -89,4 +89,21 @@ export interface Database {
     body: Json<unknown>;
     created_at: Generated<Date>;
   };
+  regrades: {
+    id: string;
+    assignment_id: Ref;
+    section_id: Ref | null;
+    settings: Json<unknown>;
+    settings_version: number;
+    total: number;
+    done: Generated<number>;
+    status: Generated<'running' | 'finished' | 'failed'>;
+    error: string | null;
+    started_at: Generated<Date>;
+    finished_at: Date | null;
+  };
+  /** A regrade's submissions, part by part, fixed at its start; done_at once the part's results are stored. */
+  regrade_parts: { regrade_id: string; part: number; submission_ids: Json<number[]>; done_at: Date | null };
+  /** What grade passback would send (no platform is connected yet). */
+  passback_records: { id: Generated<number>; assignment_id: Ref; section_id: Ref; grades: Json<unknown>; recorded_at: Generated<Date> };
 }

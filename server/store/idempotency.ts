@@ -19,3 +19,9 @@ export async function findIdempotent(db: Kysely<Database>, staffId: number, key:
 export async function saveIdempotent(db: Kysely<Database>, staffId: number, key: string, requestHash: string, statusCode: number, body: unknown): Promise<void> {
   await db.insertInto('idempotency_keys').values({ staff_id: staffId, key, request_hash: requestHash, status_code: statusCode, body: JSON.stringify(body) }).execute();
 }
+
+/** Deletes the answers kept for keys older than `days`; returns how many. */
+export async function deleteIdempotencyKeysOlderThan(db: Kysely<Database>, days: number): Promise<number> {
+  const result = await db.deleteFrom('idempotency_keys').where('created_at', '<', sql<Date>`now() - make_interval(days => ${days})`).executeTakeFirst();
+  return Number(result.numDeletedRows);
+}

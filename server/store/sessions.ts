@@ -30,3 +30,9 @@ export async function endSession(db: Kysely<Database>, session: string): Promise
     .where((eb) => eb.or([eb('session_hash', '=', hashToken(session)), eb('expires_at', '<=', sql<Date>`now()`)]))
     .execute();
 }
+
+/** Deletes the sessions past their expiry; returns how many. */
+export async function deleteExpiredSessions(db: Kysely<Database>): Promise<number> {
+  const result = await db.deleteFrom('sessions').where('expires_at', '<=', sql<Date>`now()`).executeTakeFirst();
+  return Number(result.numDeletedRows);
+}

@@ -230,6 +230,11 @@ export async function latestSubmissions(db: Kysely<Database>, assignmentId: numb
   return latestQuery(db, assignmentId, sectionId).select(submissionColumns).execute();
 }
 
+/** The ids of the same, in the same order (what a regrade covers). */
+export async function latestSubmissionIds(db: Kysely<Database>, assignmentId: number, sectionId?: number): Promise<number[]> {
+  return (await latestQuery(db, assignmentId, sectionId).select('submissions.id').execute()).map((r) => r.id);
+}
+
 /** The same without payloads, for tables. */
 export async function latestSubmissionHeads(db: Kysely<Database>, assignmentId: number, sectionId?: number) {
   return latestQuery(db, assignmentId, sectionId).select(submissionHeadColumns).execute();

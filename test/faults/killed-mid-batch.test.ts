@@ -2,7 +2,7 @@ import type { FastifyInstance } from 'fastify';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ADMIN_TOKEN, seedCourse, submissionsFor, type Seed } from '../support/api-fixture.ts';
-import { serve } from '../support/serve-process.ts';
+import { overHttp, serve } from '../support/serve-process.ts';
 import { scratchDatabase } from '../support/test-database.ts';
 
 /**
@@ -16,21 +16,6 @@ if (NO_SERVER) console.warn('kill test skipped: it needs a PostgreSQL server in 
 
 /** How the test finds the service's connections in pg_stat_activity. */
 const APPLICATION_NAME = 'rateproof-killed-mid-batch';
-
-/** Just enough of `app.inject` over real HTTP for the seeding helpers to talk to a service process. */
-function overHttp(port: number) {
-  return {
-    async inject({ method, url, headers, payload }: { method: string; url: string; headers?: Record<string, string>; payload?: unknown }) {
-      const res = await fetch(`http://127.0.0.1:${port}${url}`, {
-        method,
-        headers: { ...headers, ...(payload === undefined ? {} : { 'content-type': 'application/json' }) },
-        body: payload === undefined ? undefined : JSON.stringify(payload),
-      });
-      const body = await res.text();
-      return { statusCode: res.status, headers: Object.fromEntries(res.headers), body, json: () => JSON.parse(body) };
-    },
-  } as unknown as FastifyInstance;
-}
 
 interface Backend {
   pid: number;

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { buildApp } from '../../server/app.ts';
 import { bearer, call, openApi, regradeAndWait, seedCourse, submissionsFor, testConfig, type Api, type Seed } from '../support/api-fixture.ts';
 import { parsePrometheusText, samplesOf } from '../support/prometheus-text.ts';
@@ -49,17 +49,29 @@ describe('/metrics', () => {
     expect(families.get('process_cpu_seconds_total')?.type).toBe('counter');
   });
 
-  it('counts regrades by how they ended, with their durations, and shows the worker pool', async () => {
+  it('counts jobs by queue and state from the database, times each try, and shows the worker pool', async () => {
     const before = parsePrometheusText((await read()).body);
-    const finishedBefore = samplesOf(before, 'rateproof_regrades_ended_total', { state: 'finished' })[0].value;
+    const sample = (families: typeof before, name: string, labels: Record<string, string>) => samplesOf(families, name, labels)[0]?.value ?? 0;
+    // Every queue's states are listed from the start, at 0 or more.
+    for (const state of ['created', 'retry', 'active', 'completed', 'cancelled', 'failed']) expect(samplesOf(before, 'rateproof_jobs', { queue: 'regrade-part', state })).toHaveLength(1);
+    const completedBefore = sample(before, 'rateproof_jobs', { queue: 'regrade-part', state: 'completed' });
+    const timedBefore = sample(before, 'rateproof_job_duration_seconds_count', { queue: 'regrade-part', outcome: 'completed' });
     const { progress } = await regradeAndWait(api.app, s.instructorToken, s.assignment.id);
     expect(progress.status).toBe('finished');
+    expect(progress.total).toBeGreaterThan(0);
+    // The regrade's submissions are cut into parts of at most 250, one job each (the design in server/grading/regrade.ts).
+    const parts = Math.ceil(progress.total / 250);
 
-    const after = parsePrometheusText((await read()).body);
-    expect(samplesOf(after, 'rateproof_regrades_ended_total', { state: 'finished' })[0].value).toBe(finishedBefore + 1);
-    expect(samplesOf(after, 'rateproof_regrades_ended_total', { state: 'failed' })[0].value).toBe(0);
-    expect(samplesOf(after, 'rateproof_regrades_running')[0].value).toBe(0);
-    expect(samplesOf(after, 'rateproof_regrade_duration_seconds_count', { state: 'finished' })[0].value).toBe(finishedBefore + 1);
+    // The job is marked completed just after its part's transaction: the counts catch up at once or shortly.
+    const after = await vi.waitFor(async () => {
+      const now = parsePrometheusText((await read()).body);
+      expect(sample(now, 'rateproof_jobs', { queue: 'regrade-part', state: 'completed' })).toBe(completedBefore + parts);
+      return now;
+    }, { timeout: 10_000, interval: 100 });
+    expect(sample(after, 'rateproof_jobs', { queue: 'regrade-part', state: 'failed' })).toBe(0);
+    expect(sample(after, 'rateproof_jobs', { queue: 'regrade-part', state: 'active' })).toBe(0);
+    expect(sample(after, 'rateproof_job_duration_seconds_count', { queue: 'regrade-part', outcome: 'completed' })).toBe(timedBefore + parts);
+    expect(sample(after, 'rateproof_job_duration_seconds_count', { queue: 'regrade-part', outcome: 'failed' })).toBe(0);
 
     // The regrade checked in the pool: at least one thread started, none busy once it is done.
     const threads = samplesOf(after, 'rateproof_worker_pool_threads')[0].value;

@@ -42,7 +42,8 @@ describe.skipIf(ownPostgresMissing)('/health and /ready on a PostgreSQL server t
   beforeAll(async () => {
     postgres = await startOwnPostgres();
     store = openStore({ databaseUrl: postgres.url });
-    app = await buildApp({ config: { ...testConfig, workers: 0 }, store });
+    // Working no jobs (--no-jobs): no poller takes a connection while the pool's gauges are read.
+    app = await buildApp({ config: { ...testConfig, workers: 0, role: 'requests' }, store });
   }, 60_000);
   afterAll(async () => {
     await app?.close();

@@ -66,12 +66,14 @@ async function startRegrade(assignment, area, button, failure) {
     while (run.status === 'running') {
       bar.max = Math.max(run.total, 1);
       bar.value = run.done;
-      text.textContent = `${run.done} of ${run.total} regraded`;
+      // The regrade runs on the server as jobs: leaving the page does not stop it.
+      text.textContent = `${run.done} of ${run.total} regraded; it goes on if you leave this page`;
       await new Promise((r) => setTimeout(r, 400));
       run = /** @type {RegradeProgressView} */ (await api('GET', `/v1/assignments/${assignment.id}/regrades/${run.regradeId}`));
     }
     bar.max = Math.max(run.total, 1);
-    bar.value = run.done;
+    // A finished regrade shows a full bar, of nothing to regrade too.
+    bar.value = run.status === 'finished' ? bar.max : run.done;
     text.textContent = run.status === 'finished' ? `Regrade finished: ${run.done} of ${run.total} submissions regraded.` : `Regrade stopped: ${run.error ?? 'unknown reason'}. Results stored before it stopped stay; starting again is safe.`;
   } catch (error) {
     failure(error);
