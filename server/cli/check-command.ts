@@ -62,8 +62,8 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 
   let pool: WorkerPool | undefined;
   let progress: ProgressLine | undefined;
+  let writer: ReportWriter | undefined;
   try {
-    let writer: ReportWriter | undefined;
     const makeWriter = async () => {
       if (values.out !== undefined) writer = new (await import('./write-reports.ts')).ReportWriter(values.out, { assignmentPath, submissionsPath }, assignment, io, pool);
     };
@@ -88,6 +88,8 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
   } finally {
     progress?.end();
     await pool?.close();
+    // After a failure: the temporary file of what the summary would have read.
+    await writer?.discard();
   }
 }
 
