@@ -10,7 +10,7 @@ import { corpus } from './corpus.ts';
 /**
  * The same output before and after a change to the command's internals: `check --jsonl` on the 6,000
  * submissions of the bench corpus (seed 8) line by line, and `check --out` on its first submissions
- * (gradebook byte for byte, every sheet's and the summary's text, the graded time apart), from another
+ * in two workers (gradebook byte for byte, every sheet's and the summary's text, the graded time apart), from another
  * checkout's build and from this one's.
  *   npx tsx test/bench/same-output.ts OTHER_CHECKOUT [SUBMISSIONS_WITH_SHEETS]
  * OTHER_CHECKOUT holds bin/rateproof.js and its dist/ (main's, built). Exits 1 on any difference.
@@ -59,8 +59,9 @@ try {
   const few = join(dir, `first-${withSheets}.json`);
   await writeFile(few, JSON.stringify((JSON.parse(await readFile(data.submissions, 'utf8')) as unknown[]).slice(0, withSheets)));
   const folders = { before: join(dir, 'out-before'), after: join(dir, 'out-after') };
-  await run(other, ['--assignment', data.assignment, few, '--out', folders.before]);
-  await run(ours, ['--assignment', data.assignment, few, '--out', folders.after]);
+  // Two workers, as on a file large enough for the pool: the sheets are drawn there.
+  await run(other, ['--workers', '2', '--assignment', data.assignment, few, '--out', folders.before]);
+  await run(ours, ['--workers', '2', '--assignment', data.assignment, few, '--out', folders.after]);
   const names = { before: (await readdir(folders.before)).sort(), after: (await readdir(folders.after)).sort() };
   const sameNames = names.before.join('\n') === names.after.join('\n');
   if (!sameNames) differences++;
