@@ -81,10 +81,12 @@ interface EmbeddedFont {
 /**
  * pdfkit shapes each word once per document and keeps the result in the font object's layoutCache;
  * the runs there are already scaled and are only read afterwards, so documents can share one cache
- * per font. It is renewed every few thousand documents so that it cannot grow without bound.
+ * per font. Numbers differ from sheet to sheet, so the cache gains about 30 kB a document: it is renewed
+ * every 200 documents, which holds a worker drawing a course's sheets to a few MB (at 2,000 it grew
+ * by 60 MB a worker) and re-shapes the common words too rarely to show in the time.
  */
 const layoutCaches = new Map<string, Record<string, unknown>>();
-const RENEW_AFTER_DOCUMENTS = 2000;
+const RENEW_AFTER_DOCUMENTS = 200;
 let documents = 0;
 
 function sharedLayoutCache(name: string): Record<string, unknown> {

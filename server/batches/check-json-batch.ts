@@ -41,7 +41,15 @@ export interface CheckedBatch {
 export function withoutArrays(result: CheckResult): CheckResult {
   const refit = result.refit as { runs?: Array<Record<string, unknown>> } | null;
   if (!refit?.runs) return result;
-  return { ...result, refit: { ...refit, runs: refit.runs.map((run) => Object.fromEntries(Object.entries(run).filter(([, value]) => !Array.isArray(value)))) } };
+  return { ...result, refit: { ...refit, runs: refit.runs.map(withoutArrayFields) } };
+}
+
+// A plain loop, not entries/filter/fromEntries: this runs for every line of `--jsonl`, and the three
+// arrays per run it made were 3-4 % of the command's time in a profile. Key order stays the same.
+function withoutArrayFields(run: Record<string, unknown>): Record<string, unknown> {
+  const kept: Record<string, unknown> = {};
+  for (const key in run) if (!Array.isArray(run[key])) kept[key] = run[key];
+  return kept;
 }
 
 /**

@@ -25,6 +25,9 @@ import { ProgressLine } from './progress-line.ts';
 // About 500 submissions of four 16-reading runs: big enough that a worker's round trip is cheap
 // beside the checking, small enough to spread a file of a few thousand over every core.
 const BATCH_BYTES = 1 << 20;
+// With --out a batch's results and read submissions wait in memory for its sheets, which take some
+// thirty times as long as the checking: smaller batches, fewer at once, keep that wait small.
+const SHEET_BATCH_BYTES = 1 << 18;
 // Below this a worker's start-up (loading the checker) costs more than it saves.
 const POOL_MIN_BYTES = 4 << 20;
 
@@ -62,8 +65,8 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 
   let pool: WorkerPool | undefined;
   let progress: ProgressLine | undefined;
+  let writer: ReportWriter | undefined;
   try {
-    let writer: ReportWriter | undefined;
     const makeWriter = async () => {
       if (values.out !== undefined) writer = new (await import('./write-reports.ts')).ReportWriter(values.out, { assignmentPath, submissionsPath }, assignment, io, pool);
     };
@@ -76,18 +79,24 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     }
     const size = await sizeOf(submissionsPath);
     const poolSize = workers ?? (size >= POOL_MIN_BYTES ? availableParallelism() : 0);
-    if (poolSize > 0) pool = (await import('../pool/worker-pool.ts')).createWorkerPool(poolSize);
+    if (poolSize > 0) {
+      const { createWorkerPool, SHEET_LIMITS } = await import('../pool/worker-pool.ts');
+      pool = values.out === undefined ? createWorkerPool(poolSize) : createWorkerPool(poolSize, SHEET_LIMITS);
+    }
     await makeWriter();
     if (io.stderrIsTerminal && !values.quiet) progress = new ProgressLine(io.stderr, size);
     const sink = new ResultSink(printed, io, writer, progress);
     const settingsJson = JSON.stringify(assignment.settings);
     const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
-    await streamBatches(submissionsPath, jsonLines, pool, (batch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep }), sink);
+    const layout = { jsonLines, batchBytes: writer ? SHEET_BATCH_BYTES : BATCH_BYTES, perWorker: writer ? 1 : 2 };
+    await streamBatches(submissionsPath, layout, pool, (batch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep }), sink);
     progress?.end();
     return await sink.finish(values, assignment.settings);
   } finally {
     progress?.end();
     await pool?.close();
+    // After a failure: the temporary file of what the summary would have read.
+    await writer?.discard();
   }
 }
 
@@ -119,16 +128,16 @@ async function sizeOf(path: string): Promise<number> {
   }
 }
 
-/** Reads the file in batches and checks each, in this thread or the pool, at most two per worker at once. */
+/** Reads the file in batches and checks each, in this thread or the pool, at most `perWorker` per worker at once. */
 async function streamBatches(
   path: string,
-  jsonLines: boolean,
+  { jsonLines, batchBytes, perWorker }: { jsonLines: boolean; batchBytes: number; perWorker: number },
   pool: WorkerPool | undefined,
   job: (batch: JsonBatch) => Parameters<typeof checkJsonBatch>[0],
   sink: ResultSink,
 ): Promise<void> {
-  const batcher = new JsonBatcher({ jsonLines, batchBytes: BATCH_BYTES });
-  const inFlight = new InFlight(2 * (pool?.size ?? 1));
+  const batcher = new JsonBatcher({ jsonLines, batchBytes });
+  const inFlight = new InFlight(perWorker * (pool?.size ?? 1));
   let seq = 0;
   const check = async (batch: JsonBatch) => {
     const n = seq++;

@@ -10,6 +10,7 @@ import { withoutArrays } from '../batches/check-json-batch.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { InFlight } from './in-flight.ts';
+import { KeptLines } from './kept-lines.ts';
 
 const WRITES_IN_FLIGHT = 8;
 
@@ -22,8 +23,8 @@ function summaryPart(result: CheckResult): CheckResult {
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary, written batch by
  * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Of each
- * submission only what the gradebook and summary need is kept to the end, as JSON text (a fraction of
- * the objects' size), and read back once the sheets are done and the pool is closed.
+ * submission only what the gradebook and summary need is kept to the end, in a temporary file, and read
+ * back once the sheets are done and the pool is closed.
  */
 export class ReportWriter {
   private readonly header: SummaryHeader;
@@ -31,7 +32,7 @@ export class ReportWriter {
   private readonly names = new UniqueNames();
   private readonly writing = new InFlight(WRITES_IN_FLIGHT);
   /** Per result, in file order: the part the summary reads, and the submission as read where it has a sheet. */
-  private readonly kept: Array<{ result: string; read?: string }> = [];
+  private readonly kept = new KeptLines<[CheckResult] | [CheckResult, unknown]>();
   private sheets = 0;
 
   constructor(
@@ -52,11 +53,12 @@ export class ReportWriter {
     for (const [i, result] of results.entries()) {
       const read = reads[i];
       const drawn = result.status === 'checked' && result.studentId !== null && read !== undefined;
-      this.kept.push({ result: JSON.stringify(summaryPart(result)), ...(drawn ? { read: JSON.stringify(read) } : {}) });
+      this.kept.push(drawn ? [summaryPart(result), read] : [summaryPart(result)]);
       if (!drawn) continue;
       sheets.push({ name: this.names.take(result.studentId!), input: { header: { ...this.header, studentId: result.studentId!, version: 1 }, settings: this.settings, submission: read, result } });
     }
     this.sheets += sheets.length;
+    await this.kept.flushed();
     const { pool } = this;
     if (pool) {
       await Promise.all(sheets.map(async ({ name, input }) => this.save(name, await pool.run('render-sheet', input))));
@@ -77,9 +79,9 @@ export class ReportWriter {
     await this.pool?.close();
     const results: CheckResult[] = [];
     const submissions: unknown[] = [];
-    for (const kept of this.kept.splice(0)) {
-      results.push(JSON.parse(kept.result) as CheckResult);
-      if (kept.read !== undefined) submissions.push(JSON.parse(kept.read));
+    for await (const [result, ...read] of this.kept.drain()) {
+      results.push(result);
+      submissions.push(...read);
     }
     await this.save('gradebook.csv', gradebookCsv(results, { assignment: this.header.assignment, bom: true }));
     const { sectionSummary } = await import('../../kinds/documents.ts');
@@ -87,6 +89,11 @@ export class ReportWriter {
     const { header, settings } = this;
     await this.save('summary.pdf', await sectionSummary({ header, settings, results, submissions, signals: sectionSignals(settings, submissions) }));
     return this.sheets;
+  }
+
+  /** Removes what was kept, after a failure. */
+  async discard(): Promise<void> {
+    await this.kept.discard();
   }
 
   private async save(name: string, data: string | Uint8Array): Promise<void> {
