@@ -1,14 +1,15 @@
 import { EngineError } from './engine-error.ts';
 
 /**
- * Units of time, concentration, first- and second-order rate constants, molar energy and molar
- * entropy. Text is parsed by a small grammar (atoms with integer exponents, products, `/`, one level
- * of parentheses) into a dimension over (time, amount, length, energy, temperature) and a scale, so
- * that every reasonable spelling of one unit agrees. Base units, factor 1: s, M (mol dm^-3), s^-1,
- * M^-1 s^-1, J mol^-1, J K^-1 mol^-1. Temperatures themselves have an offset (degrees Celsius), which
- * a factor cannot say: `temperature.ts` reads them.
+ * Units of time, concentration, zero-, first- and second-order rate constants, molar energy, molar
+ * entropy, length and molar absorptivity. Text is parsed by a small grammar (atoms with integer
+ * exponents, products, `/`, one level of parentheses) into a dimension over (time, amount, length,
+ * energy, temperature) and a scale, so that every reasonable spelling of one unit agrees. Base units,
+ * factor 1: s, M (mol dm^-3), s^-1, M^-1 s^-1, J mol^-1, J K^-1 mol^-1, M s^-1, dm and dm^2 mol^-1
+ * (M^-1 cm^-1 is 10 of these). Temperatures themselves have an offset (degrees Celsius), which a
+ * factor cannot say: `temperature.ts` reads them.
  */
-export type UnitKind = 'time' | 'concentration' | 'first-order-rate' | 'second-order-rate' | 'molar-energy' | 'molar-entropy';
+export type UnitKind = 'time' | 'concentration' | 'first-order-rate' | 'second-order-rate' | 'molar-energy' | 'molar-entropy' | 'zero-order-rate' | 'length' | 'molar-absorptivity';
 
 export interface Unit {
   /** As given, trimmed. */
@@ -37,6 +38,10 @@ const KIND_DIMS: Record<UnitKind, Dim> = {
   'second-order-rate': [-1, -1, 3, 0, 0],
   'molar-energy': [0, -1, 0, 1, 0],
   'molar-entropy': [0, -1, 0, 1, -1],
+  // Added last so that the list of kinds in an error message keeps its beginning.
+  'zero-order-rate': [-1, 1, -3, 0, 0],
+  length: [0, 0, 1, 0, 0],
+  'molar-absorptivity': [0, -1, 2, 0, 0],
 };
 
 // Lengths in dm, so that L = dm^3 and M = mol dm^-3 both have factor 1.
@@ -59,6 +64,7 @@ define('mL ml', [0, 0, 3, 0, 0], 1, -3);
 define('m', [0, 0, 1, 0, 0], 1, 1);
 define('dm', [0, 0, 1, 0, 0], 1);
 define('cm', [0, 0, 1, 0, 0], 1, -1);
+define('mm', [0, 0, 1, 0, 0], 1, -2);
 define('M', [0, 1, -3, 0, 0], 1);
 define('mM', [0, 1, -3, 0, 0], 1, -3);
 define('uM', [0, 1, -3, 0, 0], 1, -6);

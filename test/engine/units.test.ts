@@ -113,6 +113,26 @@ describe('parsing', () => {
     expect(relErr(unit.factor, factor)).toBeLessThan(1e-15);
   });
 
+  // Zero-order rate constants, lengths and molar absorptivities in the base units M s^-1, dm and
+  // dm^2 mol^-1: by the SI's definitions of the prefixes, the litre (1 L = 1 dm^3) and the minute;
+  // 1 M^-1 cm^-1 = 1 dm^3 mol^-1 / (0.1 dm) = 10 dm^2 mol^-1, and 1 m^2 mol^-1 = 100 dm^2 mol^-1.
+  it.each([
+    ['M min^-1', 'zero-order-rate', 1 / 60],
+    ['mol L^-1 s^-1', 'zero-order-rate', 1],
+    ['mM/s', 'zero-order-rate', 1e-3],
+    ['cm', 'length', 0.1],
+    ['mm', 'length', 0.01],
+    ['m', 'length', 10],
+    ['M^-1 cm^-1', 'molar-absorptivity', 10],
+    ['L mol^-1 cm^-1', 'molar-absorptivity', 10],
+    ['cm^2 mol^-1', 'molar-absorptivity', 0.01],
+    ['m^2 mol^-1', 'molar-absorptivity', 100],
+  ] as Array<[string, UnitKind, number]>)('reads %j as %s with factor %f', (text, kind, factor) => {
+    const unit = parseUnit(text);
+    expect(unit.kind).toBe(kind);
+    expect(relErr(unit.factor, factor)).toBeLessThan(1e-15);
+  });
+
   // The spellings students write, each with one meaning here (common practice, no source): a
   // millisecond and a day are 10^-3 s and 86,400 s by the SI's definitions of the prefix and the day.
   it.each([
