@@ -166,8 +166,8 @@ export async function sectionView(place, failure) {
     const y = key === 'codes' ? b.codes.length : b[key];
     // A column holds words, numbers, or yes and no (false before true, as 0 before 1).
     const before = typeof x === 'string' && typeof y === 'string' ? x < y : Number(x) < Number(y);
-    const order = x === y ? 0 : x === null ? 1 : y === null ? -1 : before ? -1 : 1;
-    return state.descending ? -order : order;
+    const rank = x === y ? 0 : x === null ? 1 : y === null ? -1 : before ? -1 : 1;
+    return state.descending ? -rank : rank;
   };
 
   function drawCounts() {
