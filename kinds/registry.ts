@@ -6,6 +6,7 @@ import type { KindDemo, KindEntry } from './kind-entry.ts';
 import type { CheckResult } from '../schemas/result.ts';
 import { firstOrderCatalysisKind } from './first-order-catalysis/index.ts';
 import { temperatureDependenceKind } from './temperature-dependence/index.ts';
+import { reactionOrderKind } from './reaction-order/index.ts';
 
 /**
  * Every experiment kind the service knows, by name. A kind is a folder, kinds/<kind>/, whose index.ts
@@ -25,6 +26,7 @@ export function registerKind<Settings extends KindSettings, Submission, Refit ex
 
 registerKind(firstOrderCatalysisKind);
 registerKind(temperatureDependenceKind);
+registerKind(reactionOrderKind);
 
 /**
  * Kinds beyond those built in, as the addresses of modules that each export `kind`, a KindEntry,

@@ -32,6 +32,9 @@ console.log(
 const { benchTemperatureRecall } = await import('./temperature-recall.ts');
 benchTemperatureRecall();
 
+const { benchReactionOrderRecall } = await import('./reaction-order-recall.ts');
+benchReactionOrderRecall();
+
 const { benchPdfs } = await import('./pdf-throughput.ts');
 const pdfs = await benchPdfs();
 console.log(

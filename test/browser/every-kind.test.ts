@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { kindFor } from '../../kinds/registry.ts';
+import { kindDemos, kindFor } from '../../kinds/registry.ts';
 import type { KindDescription } from '../../schemas/api/kinds.ts';
 import { generateSection } from '../../kinds/first-order-catalysis/demo/generated-section.ts';
 import { seededRandom } from '../../server/demo/seeded-random.ts';
@@ -23,11 +23,12 @@ const WIDTHS = [390, 1280];
  * What a person leaves as the form first shows it, where the kind's settings schema has no default
  * (hand-written: the first option of the fit model's select).
  */
-const LEFT_AS_SHOWN: Record<string, Record<string, unknown>> = { 'first-order-catalysis': { fitModel: 'origin' } };
+const LEFT_AS_SHOWN: Record<string, Record<string, unknown>> = { 'first-order-catalysis': { fitModel: 'origin' }, 'reaction-order': { signal: { type: 'concentration', unit: 'M' } } };
 
 /** A batch of invented submissions of each kind, for students of the roster. */
 async function batchOf(kind: string): Promise<unknown[]> {
   if (kind === 'first-order-catalysis') return generateSection(seededRandom(7), generateAssignment(seededRandom(7), { fitModel: 'origin' }), ['S-001', 'S-002']).submissions;
+  if (kind === 'reaction-order') return (await kindDemos()).find((d) => d.kind === kind)!.demo.section(['S-001', 'S-002']).submissions;
   const example = JSON.parse(await readFile(new URL(`../../docs/examples/${kind}/submissions.json`, import.meta.url), 'utf8')) as Array<{ studentId: string }>;
   return example.slice(0, 2).map((x, i) => ({ ...x, studentId: `S-00${i + 1}` }));
 }
@@ -57,11 +58,11 @@ describe.skipIf(!chromiumPresent)('every kind in the workspace', () => {
     await api?.close();
   });
 
-  it('lists both kinds the service knows', () => {
-    expect(kinds.map((k) => k.kind)).toEqual(['first-order-catalysis', 'temperature-dependence']);
+  it('lists every kind the service knows', () => {
+    expect(kinds.map((k) => k.kind)).toEqual(['first-order-catalysis', 'temperature-dependence', 'reaction-order']);
   });
 
-  it.each(['first-order-catalysis', 'temperature-dependence'])('creates an assignment of %s from its form’s defaults, and opens a student of it', async (kind) => {
+  it.each(['first-order-catalysis', 'temperature-dependence', 'reaction-order'])('creates an assignment of %s from its form’s defaults, and opens a student of it', async (kind) => {
     const description = kinds.find((k) => k.kind === kind)!;
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     const problems = watchProblems(page);
@@ -91,7 +92,7 @@ describe.skipIf(!chromiumPresent)('every kind in the workspace', () => {
     await page.close();
   });
 
-  it.each(WIDTHS.flatMap((w) => [['first-order-catalysis', w], ['temperature-dependence', w]] as const))('draws the settings form of %s at %i px without sideways scroll', async (kind, width) => {
+  it.each(WIDTHS.flatMap((w) => [['first-order-catalysis', w], ['temperature-dependence', w], ['reaction-order', w]] as const))('draws the settings form of %s at %i px without sideways scroll', async (kind, width) => {
     const page = await browser.newPage({ viewport: { width, height: 900 } });
     const problems = watchProblems(page);
     await signIn(page, origin, s.instructorToken);

@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { findingCodes as catalysisCodes } from '../../kinds/first-order-catalysis/schemas.ts';
 import { findingCodes as temperatureCodes } from '../../kinds/temperature-dependence/schemas.ts';
+import { findingCodes as orderCodes } from '../../kinds/reaction-order/schemas.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkSubmission } from '../../server/checks/check.ts';
 import { parseAssignment } from '../../kinds/parse-assignment.ts';
@@ -64,7 +65,7 @@ function settingsOf(c: Case): Record<string, unknown> {
 }
 
 /** The codes each kind can give, from its schema: a case naming another code could never pass. */
-const codesOf: Record<string, readonly string[]> = { 'first-order-catalysis': catalysisCodes, 'temperature-dependence': temperatureCodes };
+const codesOf: Record<string, readonly string[]> = { 'first-order-catalysis': catalysisCodes, 'temperature-dependence': temperatureCodes, 'reaction-order': orderCodes };
 
 const chargedKey = (f: { code: string; path: string; points: number }) => `${f.code}@${f.path} -${f.points}`;
 
@@ -99,9 +100,10 @@ function mismatches(c: Case, result: CheckResult): string[] {
 }
 
 describe('the casebook', () => {
-  it('holds at least 60 cases of both kinds, each with its source and its working', () => {
+  it('holds at least 60 cases of every kind, each with its source and its working', () => {
     expect(cases.length).toBeGreaterThanOrEqual(60);
     for (const kind of ['first-order-catalysis', 'temperature-dependence']) expect(cases.filter((c) => c.kind === kind).length, kind).toBeGreaterThanOrEqual(20);
+    expect(cases.filter((c) => c.kind === 'reaction-order').length, 'reaction-order').toBeGreaterThanOrEqual(9);
     for (const c of cases) {
       expect(c.file, 'file named by its id').toBe(`${c.id}.json`);
       expect(settingsOf(c).kind, `${c.id}: settings of its kind`).toBe(c.kind);

@@ -32,8 +32,9 @@ describe('npm run demo', () => {
     expect(text).toContain('B-05');
   });
 
-  // The first table is the first assignment's; the second kind's follows its heading.
+  // The first table is the first assignment's; each other kind's follows its heading.
   const second = () => lines.findIndex((l) => l.trim().startsWith('Second assignment'));
+  const third = () => lines.findIndex((l) => l.trim().startsWith('Third assignment'));
 
   it('gives about a third of the section one or two slips, and finds them', () => {
     const rows = lines.slice(0, second()).filter((l) => /^B-\d\d /.test(l));
@@ -48,7 +49,7 @@ describe('npm run demo', () => {
   });
 
   it('adds a second assignment of the kind temperature-dependence: every third student with one slip, each found, and its documents', async () => {
-    const rows = lines.slice(second()).filter((l) => /^B-\d\d /.test(l));
+    const rows = lines.slice(second(), third()).filter((l) => /^B-\d\d /.test(l));
     expect(rows).toHaveLength(24);
     const withSlips = rows.filter((l) => !/^B-\d\d +\S+ +- /.test(l));
     expect(withSlips).toHaveLength(8);
@@ -61,10 +62,26 @@ describe('npm run demo', () => {
     expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv']));
   });
 
+  it('adds a third assignment of the kind reaction-order: every second student with one slip, each charged one found, the 2A → P convention uncharged, and its documents', async () => {
+    const rows = lines.slice(third()).filter((l) => /^B-\d\d /.test(l));
+    expect(rows).toHaveLength(24);
+    const withSlips = rows.filter((l) => !/^B-\d\d +\S+ +- /.test(l));
+    expect(withSlips).toHaveLength(12);
+    for (const row of withSlips) {
+      const [, score, made, found] = /^B-\d\d +(\S+) +(\S+) +(.*)$/.exec(row) ?? [];
+      // k written for the rate of 2A → P (half the loss rate's) is a convention, accepted with a note.
+      if (made === 'stoichiometric-k') expect(score, row).toBe('8/8');
+      else expect(found.split(', '), row).toContain(made);
+    }
+    const files = await readdir(join(dir, 'out', 'reaction-order'));
+    expect(files.filter((f) => /^B-\d\d\.pdf$/.test(f))).toHaveLength(24);
+    expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv']));
+  });
+
   it('prints each slip of a sheet once, places in words and numbers whole', async () => {
     const sheets = async (sub: string) => (await readdir(join(dir, 'out', sub))).filter((f) => /^B-\d\d\.pdf$/.test(f)).map((f) => join(dir, 'out', sub, f));
     // One at a time: pdf.js serves one document at once reliably.
-    for (const file of [...(await sheets('')), ...(await sheets('temperature-dependence'))]) {
+    for (const file of [...(await sheets('')), ...(await sheets('temperature-dependence')), ...(await sheets('reaction-order'))]) {
       const text = await pdfText(await readFile(file));
       // The checker's paths (`runs[0].reported.k`) stay in the JSON.
       expect(folded(text)).not.toMatch(/runs\[|points\[|reported\.[A-Za-z]/);
@@ -92,9 +109,9 @@ describe('npm run demo', () => {
       const me = async (t: string) => (await app.inject({ method: 'GET', url: '/v1/me', headers: { authorization: `Bearer ${t}` } })).json();
       const [asInstructor, asTa] = [await me(instructor!), await me(ta!)];
       expect([asInstructor.role, asTa.role]).toEqual(['instructor', 'ta']);
-      // The TA opens the section's results for both assignments; the instructor the course page as well.
+      // The TA opens the section's results for every assignment; the instructor the course page as well.
       const [course] = asTa.courses;
-      expect(course.assignments).toHaveLength(2);
+      expect(course.assignments).toHaveLength(3);
       for (const a of course.assignments) {
         const results = await app.inject({ method: 'GET', url: `/v1/sections/${course.sections[0].id}/assignments/${a.id}/results`, headers: { authorization: `Bearer ${ta}` } });
         expect(results.statusCode).toBe(200);

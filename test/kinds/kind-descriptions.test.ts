@@ -6,17 +6,19 @@ import { KindList } from '../../schemas/api/kinds.ts';
 import { Tolerance } from '../../schemas/common.ts';
 import * as catalysisCsv from '../../kinds/first-order-catalysis/csv.ts';
 import * as temperatureCsv from '../../kinds/temperature-dependence/csv.ts';
+import * as orderCsv from '../../kinds/reaction-order/csv.ts';
 
 /** The columns each kind's CSV reader requires, by file, as the readers declare them. */
 const READERS: Record<string, Record<string, readonly string[]>> = {
   'first-order-catalysis': { readings: catalysisCsv.READINGS_COLUMNS, reported: catalysisCsv.REPORTED_COLUMNS },
   'temperature-dependence': { points: temperatureCsv.POINT_COLUMNS, reported: temperatureCsv.REPORTED_COLUMNS },
+  'reaction-order': { readings: orderCsv.READINGS_COLUMNS, reported: orderCsv.REPORTED_COLUMNS },
 };
 
 describe('the kinds as the page is told of them', () => {
   it('describes every registered kind in the shape GET /v1/kinds answers', async () => {
     const kinds = await kindDescriptions();
-    expect(kinds.map((k) => k.kind)).toEqual(['first-order-catalysis', 'temperature-dependence']);
+    expect(kinds.map((k) => k.kind)).toEqual(['first-order-catalysis', 'temperature-dependence', 'reaction-order']);
     expect(KindList.safeParse(kinds).success).toBe(true);
   });
 
@@ -34,7 +36,7 @@ describe('the kinds as the page is told of them', () => {
 
   it('offers in each form every setting of the kind with a default, except those kept as stored', async () => {
     // Hand-listed: the settings a TA edits through the API only.
-    const kept: Record<string, string[]> = { 'first-order-catalysis': ['classDataset', 'reference', 'equilibrium'], 'temperature-dependence': ['reference'] };
+    const kept: Record<string, string[]> = { 'first-order-catalysis': ['classDataset', 'reference', 'equilibrium'], 'temperature-dependence': ['reference'], 'reaction-order': [] };
     for (const kind of await kindDescriptions()) {
       const top = new Set(kind.settings.form.flatMap((g) => g.fields.map((f) => f.name.split('.')[0])));
       const shape = Object.keys((kindFor(kind.kind)!.settingsSchema as unknown as z.ZodObject).shape).filter((key) => key !== 'kind' && !kept[kind.kind].includes(key));
