@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { KindList } from '../schemas/api/kinds.ts';
+import { SubmissionDisplay } from '../schemas/display.ts';
 import { CheckResult } from '../schemas/result.ts';
 import { fastPathAsExact } from '../schemas/common.ts';
 import { registeredKinds } from './registry.ts';
 
-/** The public contract as JSON Schema, one document per file name under schemas/json/: each registered kind's two, and the result's. */
+/** The public contract as JSON Schema, one document per file name under schemas/json/: each registered kind's two, the result's, the kinds' descriptions and the student page's display. */
 export function jsonSchemas(): Record<string, unknown> {
   return {
     ...Object.fromEntries(
@@ -15,5 +16,6 @@ export function jsonSchemas(): Record<string, unknown> {
     ),
     'check-result.schema.json': z.toJSONSchema(CheckResult, { io: 'output' }),
     'kinds.schema.json': z.toJSONSchema(KindList, { io: 'output' }),
+    'submission-display.schema.json': z.toJSONSchema(SubmissionDisplay, { io: 'output' }),
   };
 }

@@ -32,9 +32,9 @@ export async function renderFeedbackSheet(input: FeedbackInput, kind: DrawnKind)
     if (result.status === 'checked') report.drawSheetData(doc, input);
   }
 
-  // The title last: the one-line footer may cut a long title (the header prints it whole), never the id.
   finish(doc, {
-    left: `Rateproof feedback · ${header.studentId} · version ${header.version} · ${header.assignment}`,
+    left: `Rateproof feedback · ${header.studentId} · version ${header.version}`,
+    title: header.assignment,
     invented: input.invented ? INVENTED_NOTE : undefined,
   });
   return bytes;

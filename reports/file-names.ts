@@ -40,8 +40,12 @@ const PART_LENGTH = 60;
 function namePart(text: string, ascii: boolean): string {
   const letters = ascii ? text.normalize('NFKD').replace(/[\u0300-\u036f]/g, '') : text.normalize('NFC');
   const unsafe = ascii ? /[^A-Za-z0-9._-]+/g : /[^\p{L}\p{N}._-]+/gu;
-  const trimmed = letters.replace(unsafe, '_').replace(/^[._-]+|[._-]+$/g, '');
-  return [...trimmed].slice(0, PART_LENGTH).join('').replace(/[._-]+$/, '') || 'unnamed';
+  const trimmed = [...letters.replace(unsafe, '_').replace(/^[._-]+|[._-]+$/g, '')];
+  if (trimmed.length <= PART_LENGTH) return trimmed.join('') || 'unnamed';
+  // A long part is cut after a whole word where one ends in its second half, else at the limit.
+  const cut = trimmed.slice(0, PART_LENGTH + 1).join('');
+  const wordEnd = cut.lastIndexOf('_');
+  return (wordEnd >= PART_LENGTH / 2 ? cut.slice(0, wordEnd) : [...cut].slice(0, PART_LENGTH).join('')).replace(/[._-]+$/, '') || 'unnamed';
 }
 
 /**

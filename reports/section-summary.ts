@@ -128,7 +128,8 @@ export async function renderSectionSummary(input: SectionSummaryInput, kind: Dra
     drawSignals(doc, input.signals, input.results, (path, studentId) => report.describePath(path, submissions.get(studentId ?? undefined)));
   }
   finish(doc, {
-    left: `Rateproof section summary · ${input.header.section} · ${input.header.assignment} · ${formatPoints(input.results.length)} students`,
+    left: `Rateproof section summary · ${input.header.section} · ${formatPoints(input.results.length)} students`,
+    title: input.header.assignment,
     invented: input.invented ? INVENTED_NOTE : undefined,
   });
   return bytes;

@@ -18,6 +18,6 @@ export async function renderUndrawableSheet(input: FeedbackInput, reason: string
     `The result of this submission is stored${result.score === null ? '' : ` (${result.score} of ${result.maxScore} points)`}, but its feedback sheet could not be drawn: ${reason}. ` +
       'A teaching assistant can see every finding in the service and download this sheet again once the cause is mended.',
   );
-  finish(doc, { left: `Rateproof feedback · ${header.studentId} · version ${header.version} · ${header.assignment}`, invented: input.invented ? INVENTED_NOTE : undefined });
+  finish(doc, { left: `Rateproof feedback · ${header.studentId} · version ${header.version}`, title: header.assignment, invented: input.invented ? INVENTED_NOTE : undefined });
   return bytes;
 }

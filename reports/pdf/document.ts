@@ -95,9 +95,30 @@ export function paragraph(doc: Doc, text: string, options: { size?: number; colo
 const LINE_GAP = 1.5;
 
 export interface FooterLines {
+  /** What the page is (document, student or section, counts): printed whole. */
   left: string;
+  /** The assignment's title after it, cut after a whole word with an ellipsis where the line is too short (the header prints it whole). */
+  title: string;
   /** Printed on every page when set: the data are invented, not students' work. */
   invented?: string;
+}
+
+/** The space kept between the footer's words and "page i of n". */
+const FOOTER_GAP = 12;
+
+/**
+ * The footer's one line (the invented-data note takes the next): `left · title`, the title cut after
+ * its last whole word that fits with an ellipsis, so no word is cut and `left` is never lost.
+ */
+export function footerLine(left: string, title: string, widthOf: (text: string) => number, room: number): string {
+  const whole = `${left} · ${title}`;
+  if (widthOf(whole) <= room) return whole;
+  const words = title.split(/\s+/);
+  for (let n = words.length - 1; n > 0; n--) {
+    const line = `${left} · ${words.slice(0, n).join(' ').replace(/[\s,;:·(–-]+$/, '')}…`;
+    if (widthOf(line) <= room) return line;
+  }
+  return left;
 }
 
 /** Writes each page's footer (with "page i of n") and ends the document. */
@@ -113,9 +134,9 @@ export function finish(doc: Doc, footer: FooterLines): void {
     const y = doc.page.height - PAGE.margin - PAGE.footer + 10;
     doc.save().moveTo(left, y - 5).lineTo(left + width, y - 5).lineWidth(0.5).strokeColor(COLOR.rule).stroke().restore();
     doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.muted);
-    // One line, cut with an ellipsis: a long assignment title must not run into the line below.
-    doc.text(footer.left, left, y, { width: width - 80, height: SIZE.small * 1.2, ellipsis: true });
     const pageText = `page ${i - range.start + 1} of ${range.count}`;
+    const room = width - doc.widthOfString(pageText) - FOOTER_GAP;
+    doc.text(footerLine(footer.left, footer.title, (text) => doc.widthOfString(text), room), left, y, { lineBreak: false });
     doc.text(pageText, left + width - doc.widthOfString(pageText), y, { lineBreak: false });
     if (footer.invented) {
       doc.font(FONT.bold).fillColor(COLOR.student);

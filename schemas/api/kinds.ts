@@ -46,6 +46,8 @@ export const KindDescription = z.object({
   settings: z.object({ form: z.array(FormGroup), note: z.string().optional() }),
   /** What the upload panel takes: a JSON batch always, and the kind's CSV files where it reads CSV. */
   upload: z.object({ json: z.literal(true), csv: z.array(CsvFile).optional() }),
+  /** Each of the kind's finding codes in a few words, in the kind's order: what a TA chooses among when filtering by finding. */
+  findings: z.array(z.object({ code: z.string(), label: z.string() })),
   /** The words of the signals panels: what a compared unit is called, the value compared digit by digit, and each signal code's label. */
   signals: z.object({ unit: z.string(), reportedValue: Rich, codes: z.array(z.object({ code: z.string(), label: z.string() })) }),
 });

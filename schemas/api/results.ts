@@ -13,8 +13,11 @@ export const ResultRow = z.object({
   enrolment: Enrolment,
   score: z.number().nullable(),
   maxScore: z.number().nullable(),
+  /** Likely causes that cost points, one per cause as the feedback sheet groups findings (a slip repeated in several values counts once). */
   errors: z.number(),
+  /** Causes of warnings that cost nothing, one per cause. */
   warnings: z.number(),
+  /** Notes, values that follow from the student's own earlier numbers at no cost among them. */
   infos: z.number(),
   codes: z.array(z.string()),
   /** Something was released to the student (of this version or an earlier one): they see `releasedScore` until a TA releases again. */

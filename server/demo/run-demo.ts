@@ -52,8 +52,8 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
       const { submissions, slipped } = demo.section(ids);
       await api('POST', `/v1/sections/${section.id}/assignments/${assignment.id}/submissions`, taToken, submissions);
       const dir = i === 0 ? outDir : join(outDir, kind);
-      const inputs = await writeSectionDocuments(store.db, { courseName: course.name, sectionName: section.name, sectionId: section.id, assignmentId: assignment.id, title: demo.title }, dir);
-      graded.push({ kind, about: demo.about, dir, inputs, slipped });
+      const written = await writeSectionDocuments(store.db, { courseName: course.name, sectionName: section.name, sectionId: section.id, assignmentId: assignment.id, title: demo.title }, dir);
+      graded.push({ kind, about: demo.about, dir, ...written, slipped });
     }
 
     write(`${INVENTED_NOTE}`);
@@ -68,7 +68,7 @@ export async function runDemo(outDir = 'demo-output', write: (line: string) => v
     }
     const [first, ...others] = graded;
     const elsewhere = others.map((g, i) => `, and those of the ${ordinal(i + 1).toLowerCase()} assignment to ${g.dir}/`).join('');
-    write(`\nwrote ${first?.inputs.length ?? 0} feedback sheets, summary.pdf and gradebook.csv to ${outDir}/${elsewhere}`);
+    write(`\nwrote ${first?.inputs.length ?? 0} feedback sheets (…-<student id>-v<version>-feedback.pdf), ${first?.summary} and ${first?.gradebook} to ${outDir}/${elsewhere}`);
     write(`the demo database stays in ${dataDir}. To open the workspace on it:`);
     write(`  RATEPROOF_DATA_DIR=${dataDir} npm start   then open http://127.0.0.1:3000/ and sign in with one of these tokens:`);
     write(`instructor token (demo-instructor): ${instructorToken}`);

@@ -7,7 +7,7 @@ export const kindRoutes = [
     method: 'GET',
     url: '/v1/kinds',
     access: 'signed-in',
-    summary: "The experiment kinds an assignment can be, as the workspace draws them: each kind's quantities with their symbols, its settings form's fields with defaults and bounds, the files an upload takes and the words of its signals",
+    summary: "The experiment kinds an assignment can be, as the workspace draws them: each kind's quantities with their symbols, its settings form's fields with defaults and bounds, the files an upload takes, its finding codes in a few words and the words of its signals",
     schema: { response: { 200: KindList } },
     async handler() {
       return kindDescriptions();

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
-import { severityCounts } from '../../reports/result-summary.ts';
+import { cardCounts } from '../../reports/feedback/finding-groups.ts';
 import { releasesDue, sectionStandings } from '../grading/report-inputs.ts';
 import { queuePassback } from '../grading/service-jobs.ts';
 import { staffIdOf } from '../http/access.ts';
@@ -15,12 +15,21 @@ const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 /** A roster student without a submission: nothing to count. */
 const NOT_SUBMITTED = { submissionId: null, version: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false };
 
+/**
+ * Counted the way the feedback sheet groups findings: one per likely cause, so a slip repeated in four
+ * values (charged once) counts once, and values that merely follow from the student's own numbers are notes.
+ */
+function causeCounts(findings: Parameters<typeof cardCounts>[0]) {
+  const counts = cardCounts(findings);
+  return { errors: counts.costPoints, warnings: counts.warnings, infos: counts.notes };
+}
+
 export const resultRoutes = [
   defineRoute({
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/results',
     access: 'section',
-    summary: "A section's results: one row per roster student (latest version, or not submitted), with counts by severity and the codes found",
+    summary: "A section's results: one row per roster student (latest version, or not submitted), with the likely causes that cost points, the warnings and the notes counted one per cause as the feedback sheet groups them, and the codes found",
     schema: { params, response: { 200: z.array(ResultRow) } },
     async handler({ db, scope }) {
       const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
@@ -38,7 +47,7 @@ export const resultRoutes = [
           enrolment: submission.enrolment,
           score: result.score,
           maxScore: result.maxScore,
-          ...severityCounts(result.findings),
+          ...causeCounts(result.findings),
           codes: [...new Set(result.findings.map((f) => f.code))],
           released: released !== undefined,
           releasedScore: released?.score ?? null,

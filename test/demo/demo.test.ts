@@ -7,6 +7,13 @@ import { runDemo } from '../../server/demo/run-demo.ts';
 import { openStore } from '../../server/store/connection.ts';
 import { folded, pdfText } from '../support/pdf-reading.ts';
 
+// Each file is named as the service names its download: course, section, assignment (each cut after a
+// whole word within 60 characters), then what it is. Written by hand from the demo's names.
+const PLACE = 'Kinetics_laboratory_invented-Demo_section-Acid-catalysed_first-order_kinetics_invented_scenario_HCl';
+const SECOND_PLACE = 'Kinetics_laboratory_invented-Demo_section-Activation_energy_from_rate_constants_at_six_temperatures';
+const sheetName = (place: string) => new RegExp(`^${place}-B-\\d\\d-v1-feedback\\.pdf$`);
+const sheetOf = (place: string, id: string) => `${place}-${id}-v1-feedback.pdf`;
+
 describe('npm run demo', () => {
   let dir: string;
   const lines: string[] = [];
@@ -19,15 +26,15 @@ describe('npm run demo', () => {
 
   it('writes a feedback sheet for each of 24 pseudonymous students, the summary and the gradebook', async () => {
     const files = await readdir(join(dir, 'out'));
-    const sheets = files.filter((f) => /^B-\d\d\.pdf$/.test(f));
+    const sheets = files.filter((f) => sheetName(PLACE).test(f));
     expect(sheets).toHaveLength(24);
-    expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv', 'database']));
-    const gradebook = await readFile(join(dir, 'out', 'gradebook.csv'), 'utf8');
+    expect(files).toEqual(expect.arrayContaining([`${PLACE}-summary.pdf`, `${PLACE}-gradebook.csv`, 'database']));
+    const gradebook = await readFile(join(dir, 'out', `${PLACE}-gradebook.csv`), 'utf8');
     expect(gradebook.split('\r\n').filter((l) => l !== '')).toHaveLength(25);
   });
 
   it('labels the invented data in the PDF footer', async () => {
-    const text = folded(await pdfText(await readFile(join(dir, 'out', 'B-05.pdf'))));
+    const text = folded(await pdfText(await readFile(join(dir, 'out', sheetOf(PLACE, 'B-05')))));
     expect(text).toContain('demonstration data: generated, not measured');
     expect(text).toContain('B-05');
   });
@@ -58,8 +65,8 @@ describe('npm run demo', () => {
       expect(found.split(', '), row).toContain(made);
     }
     const files = await readdir(join(dir, 'out', 'temperature-dependence'));
-    expect(files.filter((f) => /^B-\d\d\.pdf$/.test(f))).toHaveLength(24);
-    expect(files).toEqual(expect.arrayContaining(['summary.pdf', 'gradebook.csv']));
+    expect(files.filter((f) => sheetName(SECOND_PLACE).test(f))).toHaveLength(24);
+    expect(files).toEqual(expect.arrayContaining([`${SECOND_PLACE}-summary.pdf`, `${SECOND_PLACE}-gradebook.csv`]));
   });
 
   it('adds a third assignment of the kind reaction-order: every second student with one slip, each charged one found, the 2A → P convention uncharged, and its documents', async () => {
@@ -79,7 +86,7 @@ describe('npm run demo', () => {
   });
 
   it('prints each slip of a sheet once, places in words and numbers whole', async () => {
-    const sheets = async (sub: string) => (await readdir(join(dir, 'out', sub))).filter((f) => /^B-\d\d\.pdf$/.test(f)).map((f) => join(dir, 'out', sub, f));
+    const sheets = async (sub: string) => (await readdir(join(dir, 'out', sub))).filter((f) => /-B-\d\d-v1-feedback\.pdf$/.test(f)).map((f) => join(dir, 'out', sub, f));
     // One at a time: pdf.js serves one document at once reliably.
     for (const file of [...(await sheets('')), ...(await sheets('temperature-dependence')), ...(await sheets('reaction-order'))]) {
       const text = await pdfText(await readFile(file));
@@ -90,7 +97,7 @@ describe('npm run demo', () => {
     }
     // B-17 made two slips (the demo's table says which): a time unit in every run, and a wrong end value
     // in one. Each is one card; the time unit's other seven places are listed under its first.
-    const b17 = folded(await pdfText(await readFile(join(dir, 'out', 'B-17.pdf'))));
+    const b17 = folded(await pdfText(await readFile(join(dir, 'out', sheetOf(PLACE, 'B-17')))));
     expect(lines.find((l) => l.startsWith('B-17'))).toMatch(/time-unit, wrong-infinity/);
     expect(b17.match(/time-unit/g)).toHaveLength(1);
     expect(b17).toMatch(/Error · Run “[^”]+”, kobs and 7 more places/);

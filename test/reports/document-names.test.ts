@@ -29,6 +29,14 @@ describe('documentName', () => {
     const name = documentName(['***', 'x'.repeat(80), 'A'], 'gradebook', '.csv');
     expect(name.ascii).toBe(`unnamed-${'x'.repeat(60)}-A-gradebook.csv`);
   });
+
+  it('cuts a long title after its last whole word within 60 characters', () => {
+    // By hand: 57 characters up to "temperatures", then "_invented_scenario" runs past 60.
+    const name = documentName(['C', 'S', 'Activation energy from rate constants at six temperatures (invented scenario)'], 'summary', '.pdf');
+    expect(name.ascii).toBe('C-S-Activation_energy_from_rate_constants_at_six_temperatures-summary.pdf');
+    // Cut just before the limit: 60 characters ending a word are kept whole.
+    expect(documentName([`${'a'.repeat(29)} ${'b'.repeat(30)} c`], 'x', '.pdf').ascii).toBe(`${'a'.repeat(29)}_${'b'.repeat(30)}-x.pdf`);
+  });
 });
 
 describe('attachment', () => {

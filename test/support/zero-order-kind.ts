@@ -5,6 +5,7 @@ import { fitLine } from '../../server/engine/linear-fit.ts';
 import type { KindReport } from '../../reports/kind-report.ts';
 import { paragraph, sectionHeading } from '../../reports/pdf/document.ts';
 import { settingsForm } from '../../reports/display/settings-form.ts';
+import { findingWords } from '../../reports/labels.ts';
 
 /**
  * A tiny experiment kind that exists only in the test suite, to show that a kind is one registration
@@ -87,6 +88,7 @@ export const zeroOrderReport: KindReport = {
     quantities: [{ id: 'k', label: 'rate constant', symbol: 'k', unit: 'M s^-1' }],
     settings: { form: settingsForm(Settings, { groups: [{ label: 'Grading', keys: ['tolerance', 'points'] }], kept: [], words: { tolerance: 'Tolerance on k (a share)', points: 'Points for k' } }) },
     upload: { json: true },
+    findings: findingWords(['intercept-for-slope', 'sign-flipped', 'unexplained'] as const, { 'intercept-for-slope': 'Intercept given for the slope' }),
     signals: { unit: 'line', reportedValue: 'reported k', codes: [] },
   },
   describePath: (path) => (path === 'reported.k' ? 'k of the line' : path),

@@ -170,17 +170,20 @@ export async function sectionView(place, failure) {
     return state.descending ? -rank : rank;
   };
 
+  // The filter offers each code in the kind's words, the code kept as the value (and shown on hover).
+  const findingWords = new Map((kind?.findings ?? []).map((f) => [f.code, f.label]));
+
   function drawCounts() {
     /** @type {Map<string, number>} */
     const byCode = new Map();
     for (const r of rows) for (const c of r.codes) byCode.set(c, (byCode.get(c) ?? 0) + 1);
     const codes = [...byCode.entries()].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1));
-    fill(codeSelect, h('option', { value: '' }, 'Any finding'), ...codes.map(([c, n]) => h('option', { value: c, selected: c === state.code }, `${c} (${n})`)));
+    fill(codeSelect, h('option', { value: '' }, 'Any finding'), ...codes.map(([c, n]) => h('option', { value: c, title: c, selected: c === state.code }, `${findingWords.get(c) ?? c} (${n})`)));
     fill(counts,
       h('h3', {}, 'How many students share each finding'),
       codes.length === 0
         ? h('p', { class: 'hint' }, 'No findings yet.')
-        : h('ul', { class: 'chips' }, codes.map(([c, n]) => h('li', {}, h('button', { type: 'button', class: `chip${state.code === c ? ' on' : ''}`, 'aria-pressed': String(state.code === c), onclick: () => ((state.code = state.code === c ? '' : c), draw()) }, `${c} · ${n}`)))),
+        : h('ul', { class: 'chips' }, codes.map(([c, n]) => h('li', {}, h('button', { type: 'button', class: `chip${state.code === c ? ' on' : ''}`, title: findingWords.get(c) ?? c, 'aria-pressed': String(state.code === c), onclick: () => ((state.code = state.code === c ? '' : c), draw()) }, `${c} · ${n}`)))),
     );
   }
 

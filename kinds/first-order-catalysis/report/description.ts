@@ -1,6 +1,7 @@
-import { KIND, Settings } from '../schemas.ts';
+import { findingCodes, KIND, Settings } from '../schemas.ts';
 import type { KindDescription } from '../../../schemas/api/kinds.ts';
 import { settingsForm } from '../../../reports/display/settings-form.ts';
+import { findingWords } from '../../../reports/labels.ts';
 
 /** `first-order-catalysis` as the workspace shows it: its quantities, settings form, upload and signals. */
 export const firstOrderCatalysisDescription: KindDescription = {
@@ -59,6 +60,29 @@ export const firstOrderCatalysisDescription: KindDescription = {
       { name: 'reported', required: false, columns: ['student_id', 'run', 'quantity', 'value', 'unit'], optionalColumns: ['uncertainty'] },
     ],
   },
+  findings: findingWords(findingCodes, {
+    'time-unit': 'Time unit mixed up',
+    'concentration-unit': 'Concentration unit mixed up',
+    'swapped-axes': 'Axes swapped in a fit',
+    'wrong-infinity': 'Wrong end value x_inf',
+    'fit-model': 'Another fit model than asked',
+    'half-life-for-rate': 'Half-life for a rate constant',
+    'uncertainty-kind': 'Uncertainty other than the SE',
+    transcription: 'Reading differs from the class data',
+    'suspect-reading': 'Reading far off the curve',
+    'run-not-fitted': 'Run gives no fit',
+    'time-unit-implausible': 'Time unit unlikely for the run',
+    'temperature-implausible': 'Run temperature unlikely',
+    'composition-outside': 'Fraction outside 0 to 1',
+    'anomers-swapped': 'The two forms swapped',
+    'percent-fraction': 'Per cent and fraction mixed up',
+    'inverted-constant': 'Equilibrium constant inverted',
+    'path-length-unit': 'Path length in cm for dm',
+    'mass-concentration-unit': 'g/100 mL taken as g/mL',
+    'start-for-end-value': 'First reading as end value',
+    'rate-constants-swapped': 'Rate constants swapped',
+    'unit-assumed': 'Normality read as molarity',
+  }),
   signals: {
     unit: 'run',
     reportedValue: 'reported k',

@@ -1,6 +1,7 @@
-import { KIND, Settings } from '../schemas.ts';
+import { findingCodes, KIND, Settings } from '../schemas.ts';
 import type { KindDescription } from '../../../schemas/api/kinds.ts';
 import { settingsForm } from '../../../reports/display/settings-form.ts';
+import { findingWords } from '../../../reports/labels.ts';
 import { SYMBOLS } from './symbols.ts';
 
 /** `temperature-dependence` as the workspace shows it: its quantities, settings form, upload and signals. */
@@ -52,5 +53,17 @@ export const temperatureDependenceDescription: KindDescription = {
       { name: 'reported', required: false, columns: ['student_id', 'quantity', 'value', 'unit'], optionalColumns: ['uncertainty', 'label'] },
     ],
   },
+  findings: findingWords(findingCodes, {
+    'temperature-implausible': 'Temperature unlikely as declared',
+    'run-not-fitted': 'Run gives no k',
+    'time-unit-implausible': 'Time unit unlikely for the run',
+    'uncertainty-undefined': 'Two temperatures: no SEs',
+    'temperature-scale': '°C used in 1/T',
+    'gas-constant': 'Gas constant in other units',
+    'energy-unit': 'Energy unit mixed up',
+    'reciprocal-scale': '1000/T read as 1/T',
+    'eyring-form': 'Another form of the Eyring plot',
+    'time-unit': 'Time unit of k mixed up',
+  }),
   signals: { unit: 'run', reportedValue: 'reported k', codes: [] },
 };

@@ -11,7 +11,8 @@ import { Plot } from '../../../reports/pdf/plot.ts';
 import { niceAxis } from '../../../reports/pdf/scale.ts';
 import { drawTable } from '../../../reports/pdf/table.ts';
 import { COLOR, SIZE } from '../../../reports/pdf/theme.ts';
-import { DECAY_RUNS, Settings, type Refit, type Submission } from './schemas.ts';
+import { findingWords } from '../../../reports/labels.ts';
+import { DECAY_RUNS, findingCodes, Settings, type Refit, type Submission } from './schemas.ts';
 import { lnFPoints, timeLabel } from './series.ts';
 
 const NOTE = 'The refit is our straight line through ln F = ln[(x − x_{∞})/(x_{0} − x_{∞})] against t for each run, with its standard error; your line is drawn with your k through our intercept.';
@@ -97,6 +98,7 @@ export const decayRunsReport: KindReport<Settings, Submission, Refit> = {
       }),
     },
     upload: { json: true, csv: [{ name: 'readings', required: true, columns: ['student_id', 'run', 'time_unit', 'infinity', 't', 'x', 'reported_k'], optionalColumns: [] }] },
+    findings: findingWords(findingCodes, { 'half-life-for-k': 'Half-life given for k' }),
     signals: { unit: 'run', reportedValue: 'reported k', codes: [{ code: 'few-readings', label: 'A run with fewer readings than asked' }] },
   },
   describePath: describe,
