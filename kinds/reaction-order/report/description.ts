@@ -1,7 +1,8 @@
-import { KIND, Settings } from '../schemas.ts';
+import { findingCodes, KIND, Settings } from '../schemas.ts';
 import type { KindDescription } from '../../../schemas/api/kinds.ts';
 import { settingsForm } from '../../../reports/display/settings-form.ts';
 import { READINGS_COLUMNS, REPORTED_COLUMNS } from '../csv.ts';
+import { findingWords } from '../../../reports/labels.ts';
 import { signalFormGroup } from './signal-form.ts';
 
 /** `reaction-order` as the workspace shows it: its quantities, settings form, upload and signals. */
@@ -45,5 +46,19 @@ export const reactionOrderDescription: KindDescription = {
       { name: 'reported', required: false, columns: REPORTED_COLUMNS, optionalColumns: ['uncertainty', 'run'] },
     ],
   },
+  findings: findingWords(findingCodes, {
+    'order-not-supported': 'Order the data do not support',
+    'k-unit-order': 'Unit of k does not fit the order',
+    'other-order-law': "k from another order's law",
+    'path-length': 'Path length left out',
+    transmittance: 'Transmittance used as absorbance',
+    'absorptivity-unit': 'Absorptivity in other units',
+    'end-absorbance': 'End absorbance ignored',
+    'half-life-formula': "Another order's half-life",
+    'stoichiometric-k': 'k per 2A → P (accepted)',
+    'time-unit': 'Time unit of k mixed up',
+    'concentration-unit': 'Concentration unit mixed up',
+    'order-undetermined': 'Runs too short to tell the order',
+  }),
   signals: { unit: 'run', reportedValue: 'reported k', codes: [] },
 };
