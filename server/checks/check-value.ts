@@ -67,11 +67,15 @@ function absurdOrders(reported: number, expected: number): number | undefined {
   return Math.abs(orders) >= ABSURD_ORDERS ? orders : undefined;
 }
 
+const RIGHT: ValueOutcome = Object.freeze({ kind: 'right' });
+
 export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome {
   const { reported, expected, tolerance } = c;
   const inRange = c.rightWithin !== undefined && reported >= c.rightWithin[0] && reported <= c.rightWithin[1];
+  // Most values are right: that is settled before anything is made for the search (in a profile of
+  // `check --jsonl`, checkValue's own time was 3-5 %, every call allocating the list of right values).
+  if (inRange || withinTolerance(reported, expected, tolerance) || c.alsoRight?.some((v) => withinTolerance(reported, v, tolerance))) return RIGHT;
   const rights = [expected, ...(c.alsoRight ?? [])];
-  if (inRange || rights.some((v) => withinTolerance(reported, v, tolerance))) return { kind: 'right' };
   // Plain rounding comes before every slip: a slip is named only where rounding does not give the value.
   const { rounding } = c;
   const rounded = rounding && roundedFrom(reported, rounding);
@@ -81,7 +85,7 @@ export function checkValue(c: ValueCheck, drafts: DraftFinding[]): ValueOutcome 
   const roundedRight = rounded && rights.find(rounded.agrees);
   if (roundedRight !== undefined) {
     coarse(roundedRight, roundedRight === expected ? 'the refit from your data' : 'an accepted value');
-    return { kind: 'right' };
+    return RIGHT;
   }
   const base = {
     path: c.path,
