@@ -58,6 +58,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'PUT /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: f.assignment.settings } }),
   'PATCH /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: { rubric: { k: 2 } } } }),
   'POST /v1/assignments/:assignmentId/regrade': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrade`, body: {} }),
+  'GET /v1/assignments/:assignmentId/regrades/latest': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrades/latest` }),
   'GET /v1/assignments/:assignmentId/regrades/:regradeId': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrades/${f.regradeId}` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/submissions': (f) => ({
     url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/submissions`,
