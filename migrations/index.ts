@@ -8,6 +8,7 @@ import * as studentIdCase from './2026-12-05T1100-student-id-case.ts';
 import * as overrideReasonShown from './2026-12-05T1200-override-reason-shown.ts';
 import * as latestResults from './2026-12-05T1400-latest-results.ts';
 import * as regrades from './2026-12-05T1600-regrades.ts';
+import * as sectionFiles from './2026-12-05T1800-section-files.ts';
 
 /**
  * Every migration by name, applied in name order (names start with a timestamp). A static list rather
@@ -24,4 +25,5 @@ export const migrations: Record<string, Migration> = {
   '2026-12-05T1200-override-reason-shown': overrideReasonShown,
   '2026-12-05T1400-latest-results': latestResults,
   '2026-12-05T1600-regrades': regrades,
+  '2026-12-05T1800-section-files': sectionFiles,
 };

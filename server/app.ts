@@ -5,6 +5,7 @@ import { poolGrader, type Grader } from './grading/grader.ts';
 import { Regrades } from './grading/regrade.ts';
 import { startServiceJobs } from './grading/service-jobs.ts';
 import { JobQueue } from './jobs/job-queue.ts';
+import { BIG_SECTION, SectionFiles } from './grading/section-files.ts';
 import { createWorkerPool } from './pool/worker-pool.ts';
 import { sameThreadPool } from './pool/same-thread-pool.ts';
 import { bodyParsersPlugin } from './http/body-parsers.ts';
@@ -63,14 +64,15 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   const jobs = await JobQueue.open(options.store, { upkeep: working, watch: metrics.jobWatch });
   metrics.countJobs(jobs);
   const regrades = new Regrades(grader, jobs);
+  const sectionFiles = new SectionFiles(grader, jobs, options.config.bigSection ?? BIG_SECTION);
   app.addHook('onClose', async () => {
     // Jobs under way finish first (or are handed back to the queue): they need the workers and the database.
     await jobs.stop();
     await pool?.close();
   });
-  await startServiceJobs(jobs, { db: options.store.db, regrades, work: working, concurrency: pool?.size ?? 1 });
+  await startServiceJobs(jobs, { db: options.store.db, regrades, sectionFiles, work: working, concurrency: pool?.size ?? 1 });
 
-  await app.register(servicesPlugin, { config: options.config, store: options.store, grader, regrades, jobs });
+  await app.register(servicesPlugin, { config: options.config, store: options.store, grader, regrades, sectionFiles, jobs });
   await app.register(errorHandlerPlugin);
   await app.register(bodyParsersPlugin);
   await app.register(uploadPlugin, { fileSize: options.config.bodyLimitBytes });

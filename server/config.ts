@@ -18,6 +18,8 @@ export const ConfigSchema = z.object({
   RATEPROOF_SECURE_COOKIE: z.enum(['auto', 'always']).default('auto'),
   /** Worker threads for checking and drawing; 0 does that work in the service's own thread. Default: one per core. */
   RATEPROOF_WORKERS: z.string().trim().regex(/^\d+$/, 'a whole number of threads').transform(Number).pipe(z.number().max(64)).optional(),
+  /** Sections of more submissions than this get their ZIP and summary from a job (202, then the stored file); default 200. */
+  RATEPROOF_BIG_SECTION: z.string().trim().regex(/^\d+$/, 'a whole number of students').transform(Number).pipe(z.number().max(1_000_000)).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -35,6 +37,8 @@ export interface Config {
   workers?: number;
   /** Mark the session cookie Secure on every request (`always`), or only on requests that came over TLS. */
   secureCookie?: 'auto' | 'always';
+  /** Sections of more submissions than this get their ZIP and summary drawn by a job; unset: 200. */
+  bigSection?: number;
   /** What this process does (`rateproof serve` flags): serve requests and work jobs (the default), or one of them. */
   role?: ProcessRole;
 }
@@ -82,5 +86,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logLevel: c.LOG_LEVEL,
     secureCookie: c.RATEPROOF_SECURE_COOKIE,
     workers: c.RATEPROOF_WORKERS,
+    bigSection: c.RATEPROOF_BIG_SECTION,
   };
 }

@@ -28,3 +28,7 @@ export const RegradeProgressView = z.object({
   finishedAt: z.date().nullable(),
 });
 export type RegradeProgressView = AsJson<z.infer<typeof RegradeProgressView>>;
+
+/** The assignment's regrade started last, or null when it has had none: a reloaded page follows it. */
+export const LatestRegradeView = z.object({ regrade: RegradeProgressView.nullable() });
+export type LatestRegradeView = AsJson<z.infer<typeof LatestRegradeView>>;

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { AssignmentRow } from '../store/assignments.ts';
 import type { Database } from '../store/database.ts';
-import { completeRegradePart, createRegrade, failRegrade, getRegrade, regradePartToDo, type RegradeRow } from '../store/regrades.ts';
+import { completeRegradePart, createRegrade, failRegrade, getRegrade, latestRegrade, regradePartToDo, type RegradeRow } from '../store/regrades.ts';
 import { insertResults, submissionsByIds } from '../store/submissions.ts';
 import type { JobQueue, QueueSpec } from '../jobs/job-queue.ts';
 import { assignmentOf } from './assignment-of.ts';
@@ -46,6 +46,10 @@ export class Regrades {
 
   get(db: Kysely<Database>, regradeId: string): Promise<RegradeRow | undefined> {
     return getRegrade(db, regradeId);
+  }
+
+  latest(db: Kysely<Database>, assignmentId: number): Promise<RegradeRow | undefined> {
+    return latestRegrade(db, assignmentId);
   }
 
   /** Does one part, unless it is done already (or its regrade stopped). */

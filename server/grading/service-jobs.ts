@@ -2,10 +2,12 @@ import type { Kysely } from 'kysely';
 import type { JobQueue, QueueSpec } from '../jobs/job-queue.ts';
 import type { Database } from '../store/database.ts';
 import { deleteIdempotencyKeysOlderThan } from '../store/idempotency.ts';
+import { deleteExpiredSectionFiles } from '../store/section-files.ts';
 import { recordPassback } from '../store/passback.ts';
 import { deleteExpiredSessions } from '../store/sessions.ts';
 import { REGRADE_PARTS, REGRADE_PARTS_GIVEN_UP, type RegradePart, type Regrades } from './regrade.ts';
 import { sectionStandings } from './report-inputs.ts';
+import { SECTION_FILES, SECTION_FILES_GIVEN_UP, type SectionFileJob, type SectionFiles } from './section-files.ts';
 
 /** Grades released in a section: what passback will send to a learning platform. */
 export interface PassbackJob {
@@ -14,7 +16,7 @@ export interface PassbackJob {
 }
 
 export const PASSBACK: QueueSpec = { name: 'passback', retryLimit: 8, retryDelaySeconds: 30, expireInSeconds: 120 };
-/** Expired browser sessions and old idempotency keys, deleted on a schedule. */
+/** Expired browser sessions, old idempotency keys and expired section files, deleted on a schedule. */
 export const CLEANUP: QueueSpec = { name: 'cleanup', retryLimit: 2, retryDelaySeconds: 60, expireInSeconds: 300 };
 // Every quarter of an hour, once across all processes.
 const CLEANUP_CRON = '*/15 * * * *';
@@ -40,16 +42,20 @@ async function passback(db: Kysely<Database>, { assignmentId, sectionId }: Passb
 async function cleanUp(db: Kysely<Database>): Promise<void> {
   await deleteExpiredSessions(db);
   await deleteIdempotencyKeysOlderThan(db, IDEMPOTENCY_DAYS);
+  await deleteExpiredSectionFiles(db);
 }
 
 /** Creates the service's queues; `work` also takes their jobs here, `concurrency` regrade parts at a time, and keeps the cleanup's schedule. */
-export async function startServiceJobs(queue: JobQueue, options: { db: Kysely<Database>; regrades: Regrades; work: boolean; concurrency: number }): Promise<void> {
+export async function startServiceJobs(queue: JobQueue, options: { db: Kysely<Database>; regrades: Regrades; sectionFiles: SectionFiles; work: boolean; concurrency: number }): Promise<void> {
   // A dead-letter queue exists before the queue that names it.
-  for (const spec of [REGRADE_PARTS_GIVEN_UP, REGRADE_PARTS, PASSBACK, CLEANUP]) await queue.define(spec);
+  for (const spec of [REGRADE_PARTS_GIVEN_UP, REGRADE_PARTS, SECTION_FILES_GIVEN_UP, SECTION_FILES, PASSBACK, CLEANUP]) await queue.define(spec);
   if (!options.work) return;
-  const { db, regrades } = options;
+  const { db, regrades, sectionFiles } = options;
   await queue.work<RegradePart>(REGRADE_PARTS.name, options.concurrency, (part) => regrades.runPart(db, part));
   await queue.work<RegradePart>(REGRADE_PARTS_GIVEN_UP.name, 1, (part) => regrades.giveUp(db, part));
+  // One file at a time: drawing one already keeps the worker pool busy.
+  await queue.work<SectionFileJob>(SECTION_FILES.name, 1, (job) => sectionFiles.draw(db, job));
+  await queue.work<SectionFileJob>(SECTION_FILES_GIVEN_UP.name, 1, (job) => sectionFiles.giveUp(db, job));
   await queue.work<PassbackJob>(PASSBACK.name, 1, (job) => passback(db, job));
   await queue.work<object>(CLEANUP.name, 1, () => cleanUp(db));
   await queue.schedule(CLEANUP.name, CLEANUP_CRON);

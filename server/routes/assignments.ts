@@ -6,7 +6,7 @@ import { defineRoute } from '../http/route-table.ts';
 import { IdParam, Name } from '../http/schemas.ts';
 import { createAssignment, replaceSettings } from '../store/assignments.ts';
 import { getSection } from '../store/courses.ts';
-import { Assignment, RegradeProgressView } from '../../schemas/api/assignments.ts';
+import { Assignment, LatestRegradeView, RegradeProgressView } from '../../schemas/api/assignments.ts';
 
 /** A stored assignment with what its kind says about how findings are grouped. */
 const withStages = <T extends { kind: string }>(assignment: T) => ({ ...assignment, stages: [...stagesOf(assignment.kind)] });
@@ -83,6 +83,16 @@ export const assignmentRoutes = [
       }
       const progress = await server.regrades.start(db, scope.assignment, sectionId);
       return reply.code(202).header('location', `/v1/assignments/${scope.assignment.id}/regrades/${progress.regradeId}`).send(progress);
+    },
+  }),
+  defineRoute({
+    method: 'GET',
+    url: '/v1/assignments/:assignmentId/regrades/latest',
+    access: 'instructor',
+    summary: "The assignment's regrade started last (of one section or all) and how far it is, or null when there has been none: a page opened later follows it",
+    schema: { params: OfAssignment, response: { 200: LatestRegradeView } },
+    async handler({ db, server, scope }) {
+      return { regrade: (await server.regrades.latest(db, scope.assignment.id)) ?? null };
     },
   }),
   defineRoute({

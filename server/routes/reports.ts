@@ -1,20 +1,37 @@
 import { z } from 'zod';
 import { documentName } from '../../reports/file-names.ts';
 import { gradebookCsv } from '../../reports/gradebook-csv.ts';
-import { sectionZip } from '../../reports/section-zip.ts';
 import { ApiError } from '../errors.ts';
-import { sectionFeedback, sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
+import type { FastifyReply } from 'fastify';
+import type { Kysely } from 'kysely';
+import { sectionResults, submissionFeedback } from '../grading/report-inputs.ts';
+import { placeOf, sectionFeedbackZip, sectionSummaryPdf } from '../grading/section-documents.ts';
 import { attachment } from '../http/download-header.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { IdParam } from '../http/schemas.ts';
+import type { Database } from '../store/database.ts';
 import { reportNames } from '../store/names.ts';
+import { getSectionFile, sectionFileContent, type SectionFileRow } from '../store/section-files.ts';
+import { SectionFileView } from '../../schemas/api/section-files.ts';
 import { studentsWithoutSubmission, withdrawnStudents } from '../store/students.ts';
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 const file = z.any().describe('a file');
 
-/** The course, section and assignment a download is named after, in that order. */
-const placeOf = (names: { course: string; section: string; assignment: string }) => [names.course, names.section, names.assignment];
+const fileParams = params.extend({ fileId: z.string().uuid() });
+
+const fileUrl = (row: SectionFileRow) => `/v1/sections/${row.sectionId}/assignments/${row.assignmentId}/files/${row.fileId}`;
+const fileView = (row: SectionFileRow) => ({ ...row, poll: fileUrl(row), download: row.status === 'finished' ? `${fileUrl(row)}/content` : null });
+
+/** 202: the file is drawn by a job; Location is its progress. */
+const queued = (reply: FastifyReply, row: SectionFileRow) => reply.code(202).header('location', fileUrl(row)).send(fileView(row));
+
+/** The file within the section and assignment asked about (the caller's access to them checked already), else 404. */
+async function sectionFileOf(db: Kysely<Database>, scope: { section: { id: number }; assignment: { id: number } }, fileId: string): Promise<SectionFileRow> {
+  const row = await getSectionFile(db, fileId, scope.section.id, scope.assignment.id);
+  if (!row) throw new ApiError('not-found', 'no such file of this section and assignment (it may have expired: ask for the download again)');
+  return row;
+}
 
 export const reportRoutes = [
   defineRoute({
@@ -35,35 +52,53 @@ export const reportRoutes = [
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/feedback.zip',
     access: 'section',
-    summary: "Every student's feedback sheet in one ZIP, streamed: what each student was shown, or the latest result (a draft) where nothing was released",
-    schema: { params, response: { 200: file } },
+    summary:
+      "Every student's feedback sheet in one ZIP, streamed: what each student was shown, or the latest result (a draft) where nothing was released. A section larger than the service's limit (200 submissions unless configured) answers 202: a job draws the file; poll the Location, then fetch its `download`",
+    schema: { params, response: { 200: file, 202: SectionFileView } },
     async handler({ db, server, scope }, reply) {
       const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
-      const inputs = await sectionFeedback(db, sectionId, assignmentId);
-      const sheets = server.grader.renderSheets(inputs.map((input) => ({ input })));
-      const name = documentName(placeOf(await reportNames(db, sectionId, assignmentId)), 'feedback', '.zip');
-      return reply.type('application/zip').headers(attachment(name)).send(sectionZip(sheets));
+      if (await server.sectionFiles.isBig(db, sectionId, assignmentId)) return queued(reply, await server.sectionFiles.request(db, sectionId, assignmentId, 'feedback.zip'));
+      const { name, zip } = await sectionFeedbackZip(db, server.grader, sectionId, assignmentId);
+      return reply.type('application/zip').headers(attachment(name)).send(zip);
     },
   }),
   defineRoute({
     method: 'GET',
     url: '/v1/sections/:sectionId/assignments/:assignmentId/summary.pdf',
     access: 'section',
-    summary: "The section summary (PDF): score distribution, the class's k_N and k_A, how often each finding occurred, who needs attention",
-    schema: { params, response: { 200: file } },
+    summary:
+      "The section summary (PDF): score distribution, the class's k_N and k_A, how often each finding occurred, who needs attention. A section larger than the service's limit answers 202, as the ZIP does",
+    schema: { params, response: { 200: file, 202: SectionFileView } },
     async handler({ db, server, scope }, reply) {
-      const { grader } = server;
+      const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
+      if (await server.sectionFiles.isBig(db, sectionId, assignmentId)) return queued(reply, await server.sectionFiles.request(db, sectionId, assignmentId, 'summary.pdf'));
       // For the TAs, not the students: the latest results, released or not.
-      const inputs = await sectionFeedback(db, scope.section.id, scope.assignment.id, 'latest');
-      if (inputs.length === 0) throw new ApiError('not-found', 'no checked submissions in this section yet');
-      const pdf = await grader.renderSummary({
-        header: { course: inputs[0].header.course, section: inputs[0].header.section, assignment: inputs[0].header.assignment, gradedAt: new Date() },
-        settings: inputs[0].settings,
-        results: inputs.map((i) => i.result),
-        submissions: inputs.map((i) => i.submission),
-        signals: await grader.sectionSignals(inputs[0].settings, inputs.map((i) => i.submission)),
-      });
-      return reply.type('application/pdf').headers(attachment(documentName(placeOf(inputs[0].header), 'summary', '.pdf'))).send(pdf);
+      const summary = await sectionSummaryPdf(db, server.grader, sectionId, assignmentId);
+      if (!summary) throw new ApiError('not-found', 'no checked submissions in this section yet');
+      return reply.type('application/pdf').headers(attachment(summary.name)).send(summary.pdf);
+    },
+  }),
+  defineRoute({
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/files/:fileId',
+    access: 'section',
+    summary: "How far a large section's ZIP or summary is drawn: sheets done of the total, running, finished (with its `download`) or failed; any process answers",
+    schema: { params: fileParams, response: { 200: SectionFileView } },
+    async handler({ db, scope, params }) {
+      return fileView(await sectionFileOf(db, scope, params.fileId));
+    },
+  }),
+  defineRoute({
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/files/:fileId/content',
+    access: 'section',
+    summary: "A large section's finished ZIP or summary, as stored by its job (the same bytes the direct download gives); 409 while it is drawn",
+    schema: { params: fileParams, response: { 200: file } },
+    async handler({ db, scope, params }, reply) {
+      const row = await sectionFileOf(db, scope, params.fileId);
+      const stored = row.status === 'finished' ? await sectionFileContent(db, row.fileId) : undefined;
+      if (!stored?.content) throw new ApiError('conflict', row.status === 'failed' ? `the file was not drawn: ${row.error}` : 'the file is still being drawn; poll its progress');
+      return reply.type(row.document === 'feedback.zip' ? 'application/zip' : 'application/pdf').headers(attachment({ ascii: stored.ascii ?? row.document, unicode: stored.unicode ?? row.document })).send(stored.content);
     },
   }),
   defineRoute({

@@ -104,6 +104,23 @@ export interface Database {
   };
   /** A regrade's submissions, part by part, fixed at its start; done_at once the part's results are stored. */
   regrade_parts: { regrade_id: string; part: number; submission_ids: Json<number[]>; done_at: Date | null };
+  /** A large section's ZIP or summary drawn by a job, kept (content) until it expires. */
+  section_files: {
+    id: string;
+    section_id: Ref;
+    assignment_id: Ref;
+    document: 'feedback.zip' | 'summary.pdf';
+    total: number;
+    done: Generated<number>;
+    status: Generated<'running' | 'finished' | 'failed'>;
+    error: string | null;
+    name_ascii: string | null;
+    name_unicode: string | null;
+    content: Buffer | null;
+    started_at: Generated<Date>;
+    finished_at: Date | null;
+    expires_at: Date;
+  };
   /** What grade passback would send (no platform is connected yet). */
   passback_records: { id: Generated<number>; assignment_id: Ref; section_id: Ref; grades: Json<unknown>; recorded_at: Generated<Date> };
 }

@@ -61,6 +61,11 @@ export async function getRegrade(db: Kysely<Database>, regradeId: string): Promi
   return db.selectFrom('regrades').select(columns).where('id', '=', regradeId).executeTakeFirst();
 }
 
+/** The assignment's regrade started last (of one section or all), if any: what a reloaded page follows. */
+export async function latestRegrade(db: Kysely<Database>, assignmentId: number): Promise<RegradeRow | undefined> {
+  return db.selectFrom('regrades').select(columns).where('assignment_id', '=', assignmentId).orderBy('started_at', 'desc').orderBy('id', 'desc').limit(1).executeTakeFirst();
+}
+
 /** What one part of a regrade applies to which submissions, while it is still to do (undefined once done or failed). */
 export async function regradePartToDo(db: Kysely<Database>, regradeId: string, part: number, lock = false) {
   let query = db

@@ -263,7 +263,10 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     expect(stored.body.settings.tolerances.k).toEqual({ relative: 0.02 });
 
     await panel.getByRole('button', { name: 'Regrade every submission' }).click();
-    await panel.getByText(/^Regrade finished: (\d+) of \1 submissions regraded\.$/).waitFor();
+    await panel.getByText(/^Regrade finished .+: (\d+) of \1 submissions regraded\.$/).waitFor();
+    // Found again after a reload: the page asks the server for the assignment's latest regrade.
+    await page.reload();
+    await panel.getByText(/^Regrade finished .+: (\d+) of \1 submissions regraded\.$/).waitFor();
 
     const roster = page.locator('article', { has: page.getByRole('heading', { name: /^Section A:/ }) });
     await roster.getByLabel('Add students (pseudonymous ids, one per line)').fill('S-201\nS-202');

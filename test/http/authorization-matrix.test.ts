@@ -23,6 +23,8 @@ const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
 
 interface Fixture extends Seed {
   regradeId: string;
+  /** A drawn summary of section A, as a large section's download stores it. */
+  fileId: string;
   submissionId: number;
   findingId: string;
   spare: { id: number };
@@ -58,6 +60,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'PUT /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: f.assignment.settings } }),
   'PATCH /v1/assignments/:assignmentId/settings': (f) => ({ url: `/v1/assignments/${f.assignment.id}/settings`, body: { settings: { rubric: { k: 2 } } } }),
   'POST /v1/assignments/:assignmentId/regrade': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrade`, body: {} }),
+  'GET /v1/assignments/:assignmentId/regrades/latest': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrades/latest` }),
   'GET /v1/assignments/:assignmentId/regrades/:regradeId': (f) => ({ url: `/v1/assignments/${f.assignment.id}/regrades/${f.regradeId}` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/submissions': (f) => ({
     url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/submissions`,
@@ -75,6 +78,8 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/submissions/:submissionId/feedback.pdf': (f) => ({ url: `/v1/submissions/${f.submissionId}/feedback.pdf` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/feedback.zip': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/feedback.zip` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/summary.pdf': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/summary.pdf` }),
+  'GET /v1/sections/:sectionId/assignments/:assignmentId/files/:fileId': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/files/${f.fileId}` }),
+  'GET /v1/sections/:sectionId/assignments/:assignmentId/files/:fileId/content': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/files/${f.fileId}/content` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/gradebook.csv': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/gradebook.csv` }),
 };
 
@@ -95,7 +100,10 @@ describe('authorisation matrix: every route x every caller', () => {
     const stored = await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/submissions`, seed.taAToken, [slipped], 201);
     const spare = (await call(api.app, 'POST', `/v1/courses/${seed.course.id}/staff`, seed.instructorToken, { handle: 'ta-spare', role: 'ta', sectionIds: [seed.sectionA.id] }, 201)).body;
     const { started } = await regradeAndWait(api.app, seed.instructorToken, seed.assignment.id);
-    f = { ...seed, regradeId: started.regradeId, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare };
+    // Drawn here by hand: this service's limit keeps the seeded sections small.
+    const file = await api.app.sectionFiles.request(api.database.store.db, seed.sectionA.id, seed.assignment.id, 'summary.pdf');
+    await api.app.sectionFiles.draw(api.database.store.db, { fileId: file.fileId });
+    f = { ...seed, regradeId: started.regradeId, fileId: file.fileId, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare };
   }, 60_000);
   afterAll(async () => api?.close());
 

@@ -279,7 +279,7 @@ const cases: Case[] = [
   },
   {
     name: 'a regrade id that is not one',
-    request: (s) => ({ method: 'GET', url: `/v1/assignments/${s.assignment.id}/regrades/latest`, headers: auth(s.instructorToken) }),
+    request: (s) => ({ method: 'GET', url: `/v1/assignments/${s.assignment.id}/regrades/last-one`, headers: auth(s.instructorToken) }),
     status: 400,
     code: 'invalid-input',
     paths: ['params.regradeId'],

@@ -5,7 +5,7 @@ import { settingsForm } from './settings-form.js';
 
 /**
  * @import { Failure } from './api.js'
- * @import { Assignment, RegradeProgressView } from '../../schemas/api/assignments.ts'
+ * @import { Assignment, LatestRegradeView, RegradeProgressView } from '../../schemas/api/assignments.ts'
  * @import { IssuedToken, RevokedTokens, StaffMember } from '../../schemas/api/courses.ts'
  * @import { MyCourse } from '../../schemas/api/me.ts'
  * @import { Enrolment, RosterAdded, RosterStudent } from '../../schemas/api/rosters.ts'
@@ -39,42 +39,50 @@ export async function courseView(course, failure, reload) {
  * @param {Failure} failure
  */
 function assignmentPanel(assignment, failure) {
-  const progress = h('div', { class: 'regrade', 'aria-live': 'polite' });
   const status = h('p', { class: 'hint' }, `Settings version ${assignment.settingsVersion}.`);
   const edit = h('details', {}, h('summary', {}, 'Edit the settings'), settingsForm({ assignment, failure, done: (saved) => {
     assignment = saved;
     status.textContent = `Settings version ${saved.settingsVersion} saved ${when(new Date().toISOString())}. Regrade to apply it to stored work.`;
   } }));
   /** @type {HTMLButtonElement} */
-  const regrade = h('button', { type: 'button', onclick: () => startRegrade(assignment, progress, regrade, failure) }, 'Regrade every submission');
-  return h('article', { class: 'panel' }, h('h3', {}, assignment.title), status, edit, h('div', { class: 'row' }, regrade, progress));
+  const regrade = h('button', { type: 'button', onclick: () => followRegrade(area, regrade, failure, () => api('POST', `/v1/assignments/${assignment.id}/regrade`, {})) }, 'Regrade every submission');
+  const area = h('div', { class: 'regrade', 'aria-live': 'polite' });
+  // A regrade goes on without the page: one started before a reload (here or elsewhere) is found and followed.
+  void (/** @type {Promise<LatestRegradeView>} */ (api('GET', `/v1/assignments/${assignment.id}/regrades/latest`))).then(
+    ({ regrade: latest }) => {
+      if (latest && !regrade.disabled) void followRegrade(area, regrade, failure, async () => latest);
+    },
+    failure,
+  );
+  return h('article', { class: 'panel' }, h('h3', {}, assignment.title), status, edit, h('div', { class: 'row' }, regrade, area));
 }
 
 /**
- * @param {Assignment} assignment
+ * Shows a regrade's progress from the server until it stops, the button disabled meanwhile.
  * @param {Element} area
  * @param {HTMLButtonElement} button
  * @param {Failure} failure
+ * @param {() => Promise<unknown>} first the regrade as first known: started now, or found running
  */
-async function startRegrade(assignment, area, button, failure) {
+async function followRegrade(area, button, failure, first) {
   button.disabled = true;
   const bar = h('progress', { max: '1', value: '0', 'aria-label': 'Regrade progress' });
   const text = h('span', {}, 'Starting…');
   fill(area, bar, ' ', text);
   try {
-    let run = /** @type {RegradeProgressView} */ (await api('POST', `/v1/assignments/${assignment.id}/regrade`, {}));
+    let run = /** @type {RegradeProgressView} */ (await first());
     while (run.status === 'running') {
       bar.max = Math.max(run.total, 1);
       bar.value = run.done;
       // The regrade runs on the server as jobs: leaving the page does not stop it.
       text.textContent = `${run.done} of ${run.total} regraded; it goes on if you leave this page`;
       await new Promise((r) => setTimeout(r, 400));
-      run = /** @type {RegradeProgressView} */ (await api('GET', `/v1/assignments/${assignment.id}/regrades/${run.regradeId}`));
+      run = /** @type {RegradeProgressView} */ (await api('GET', `/v1/assignments/${run.assignmentId}/regrades/${run.regradeId}`));
     }
     bar.max = Math.max(run.total, 1);
     // A finished regrade shows a full bar, of nothing to regrade too.
     bar.value = run.status === 'finished' ? bar.max : run.done;
-    text.textContent = run.status === 'finished' ? `Regrade finished: ${run.done} of ${run.total} submissions regraded.` : `Regrade stopped: ${run.error ?? 'unknown reason'}. Results stored before it stopped stay; starting again is safe.`;
+    text.textContent = run.status === 'finished' ? `Regrade finished${run.finishedAt ? ` ${when(run.finishedAt)}` : ''}: ${run.done} of ${run.total} submissions regraded.` : `Regrade stopped: ${run.error ?? 'unknown reason'}. Results stored before it stopped stay; starting again is safe.`;
   } catch (error) {
     failure(error);
   } finally {

@@ -2,6 +2,7 @@ import { api } from './api.js';
 import { fill, h, marked, num } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { kindDescription } from './kinds.js';
+import { sectionDownload } from './section-download.js';
 import { uploadPanel } from './upload-panel.js';
 
 /**
@@ -292,8 +293,8 @@ export async function sectionView(place, failure) {
         'nav',
         { class: 'downloads', 'aria-label': 'Downloads' },
         h('a', { href: `${base}/gradebook.csv?bom=true`, download: '' }, 'Gradebook (CSV)'),
-        h('a', { href: `${base}/summary.pdf`, download: '' }, 'Section summary (PDF)'),
-        h('a', { href: `${base}/feedback.zip`, download: '' }, 'Every feedback sheet (ZIP)'),
+        sectionDownload(`${base}/summary.pdf`, 'Section summary (PDF)', failure),
+        sectionDownload(`${base}/feedback.zip`, 'Every feedback sheet (ZIP)', failure),
       ),
     ),
     uploadPanel(base, kind?.upload ?? { json: true }, refresh, failure),
