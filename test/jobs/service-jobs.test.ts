@@ -47,10 +47,11 @@ describe('passback and cleanup jobs', () => {
       async () => {
         const sessions = await sql<{ session_hash: string }>`select session_hash from sessions where session_hash like '%-session' order by 1`.execute(db);
         expect(sessions.rows.map((r) => r.session_hash)).toEqual(['live-session']);
+        // Sessions and keys are deleted one after the other: wait for both.
+        const keys = await sql<{ key: string }>`select key from idempotency_keys where key like '%-key' order by 1`.execute(db);
+        expect(keys.rows.map((r) => r.key)).toEqual(['recent-key']);
       },
       { timeout: 30_000, interval: 200 },
     );
-    const keys = await sql<{ key: string }>`select key from idempotency_keys where key like '%-key' order by 1`.execute(db);
-    expect(keys.rows.map((r) => r.key)).toEqual(['recent-key']);
   });
 });
