@@ -1,4 +1,5 @@
 import { fileRows } from '../../server/input/csv-rows.ts';
+import { keepRunValues, type RunValues } from '../../server/input/run-values.ts';
 import { numberOrText, numberText, type Row } from '../../server/input/csv-table.ts';
 
 /**
@@ -46,7 +47,7 @@ type WholeField = 'kN' | 'kA' | (typeof WHOLE_QUANTITIES)[keyof typeof WHOLE_QUA
 
 interface RunDraft {
   label: string;
-  values: Map<RunColumn, { text: string; line: number }>;
+  values: RunValues<RunColumn>;
   readings: Array<[number | string, number | string]>;
   lnF: Array<string | null>;
   reported: Map<RunField, ReportedDraft>;
@@ -81,17 +82,7 @@ function addReading(drafts: Map<string, SubmissionDraft>, row: Row, decimalComma
   const lnF = row.cell('lnf');
   run.lnF.push(lnF === '' ? null : numberText(lnF, decimalComma));
 
-  const conflicts: string[] = [];
-  for (const column of RUN_COLUMNS) {
-    const text = row.cell(column);
-    if (text === '') continue;
-    const earlier = run.values.get(column);
-    if (!earlier) run.values.set(column, { text, line: row.line });
-    else if (numberOrText(earlier.text, decimalComma) !== numberOrText(text, decimalComma)) {
-      conflicts.push(`${column} is ${earlier.text} on line ${earlier.line} but ${text} on line ${row.line}`);
-    }
-  }
-  return conflicts.length > 0 ? `run "${label}" of student "${studentId}": ${conflicts.join('; ')}` : undefined;
+  return keepRunValues(run.values, RUN_COLUMNS, row, decimalComma, `run "${label}" of student "${studentId}"`);
 }
 
 function addReported(drafts: Map<string, SubmissionDraft>, row: Row, decimalComma: boolean): string | undefined {

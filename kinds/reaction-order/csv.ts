@@ -1,5 +1,6 @@
 import type { CsvSubmissions } from '../../server/input/csv-layout.ts';
 import { fileRows } from '../../server/input/csv-rows.ts';
+import { keepRunValues, type RunValues } from '../../server/input/run-values.ts';
 import { numberOrText, numberText, type Row } from '../../server/input/csv-table.ts';
 
 /**
@@ -30,7 +31,7 @@ interface ReportedText {
 
 interface RunDraft {
   label: string;
-  values: Map<RunColumn, { text: string; line: number }>;
+  values: RunValues<RunColumn>;
   readings: Array<[number | string, number | string]>;
   halfLife?: { value: ReportedText; line: number };
 }
@@ -58,15 +59,7 @@ function addReading(drafts: Map<string, Draft>, row: Row, decimalComma: boolean)
   const draft = drafts.get(studentId) ?? drafts.set(studentId, { studentId, runs: new Map() }).get(studentId)!;
   const run = draft.runs.get(label) ?? draft.runs.set(label, { label, values: new Map(), readings: [] }).get(label)!;
   run.readings.push([numberOrText(row.cell('t'), decimalComma), numberOrText(row.cell('signal'), decimalComma)]);
-  const conflicts: string[] = [];
-  for (const column of RUN_COLUMNS) {
-    const text = row.cell(column);
-    if (text === '') continue;
-    const earlier = run.values.get(column);
-    if (!earlier) run.values.set(column, { text, line: row.line });
-    else if (numberOrText(earlier.text, decimalComma) !== numberOrText(text, decimalComma)) conflicts.push(`${column} is ${earlier.text} on line ${earlier.line} but ${text} on line ${row.line}`);
-  }
-  return conflicts.length > 0 ? `run "${label}" of student "${studentId}": ${conflicts.join('; ')}` : undefined;
+  return keepRunValues(run.values, RUN_COLUMNS, row, decimalComma, `run "${label}" of student "${studentId}"`);
 }
 
 function addReported(drafts: Map<string, Draft>, row: Row, decimalComma: boolean): string | undefined {
