@@ -33,6 +33,14 @@ export interface Database {
     payload: Json<unknown>;
     submitted_by: Ref | null;
     created_at: Generated<Date>;
+    /** Who sent it: staff (an upload for the section) or the student through their own door. */
+    source: Generated<'staff' | 'student'>;
+    /** Stored after the section's deadline for the assignment. */
+    late: Generated<boolean>;
+    /** Late under the hold policy, and not yet accepted by a TA: not released until it is. */
+    held: Generated<boolean>;
+    late_accepted_by: Ref | null;
+    late_accepted_at: Date | null;
   };
   results: {
     id: Generated<number>;
@@ -121,6 +129,13 @@ export interface Database {
     finished_at: Date | null;
     expires_at: Date;
   };
+  /** A student's access code, stored only as its hash; at most one live (unrevoked) code per student. */
+  access_codes: { id: Generated<number>; student_row_id: Ref; code_hash: string; issued_by: Ref; issued_at: Generated<Date>; revoked_at: Date | null };
+  student_sessions: { id: Generated<number>; student_row_id: Ref; session_hash: string; created_at: Generated<Date>; expires_at: Date };
+  /** A section's deadline for an assignment. */
+  deadlines: { assignment_id: Ref; section_id: Ref; due_at: Date; set_by: Ref; set_at: Generated<Date> };
+  /** The first time a student opened a release of their feedback. */
+  feedback_reads: { release_id: Ref; student_row_id: Ref; first_read_at: Generated<Date> };
   /** What grade passback would send (no platform is connected yet). */
   passback_records: { id: Generated<number>; assignment_id: Ref; section_id: Ref; grades: Json<unknown>; recorded_at: Generated<Date> };
 }
