@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { Band, FiniteNumber, withFastPath, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../../schemas/common.ts';
-import { Estimate, RefitValue } from '../../schemas/result.ts';
+import { Band, FiniteNumber, withFastPath, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
+import { Estimate, HANDING_IN_STAGE, RefitValue } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
 /**
@@ -17,6 +17,7 @@ export const stages = [
   { id: 'rate-law', title: 'Rate law: k_{N} and k_{A}' },
   { id: 'equilibrium', title: 'Equilibrium: composition, K, k_{f} and k_{r}' },
   { id: 'reporting', title: 'Reporting' },
+  HANDING_IN_STAGE,
 ] as const;
 export type Stage = (typeof stages)[number]['id'];
 
@@ -62,6 +63,7 @@ export const findingCodes = [
   'missing-value',
   'unexplained',
   'refit-note',
+  'late-submission',
 ] as const;
 export type FindingCode = (typeof findingCodes)[number];
 
@@ -240,6 +242,7 @@ export const Settings = z.object({
     .default({ maxSpread: 1, required: false }),
   /** The equilibrium composition from each run's end value and the split of k into k_f and k_r; without it neither is asked. */
   equilibrium: Equilibrium.optional(),
+  late: LatePolicy.default(LATE_POLICY_DEFAULT),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;
