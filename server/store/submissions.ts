@@ -181,6 +181,19 @@ export async function getSubmission(db: Kysely<Database>, id: number) {
 
 export type SubmissionRow = NonNullable<Awaited<ReturnType<typeof getSubmission>>>;
 
+/** A student's latest version of an assignment, by their row (a student's own pages), or undefined. */
+export async function latestSubmissionOf(db: Kysely<Database>, studentRowId: number, assignmentId: number): Promise<SubmissionRow | undefined> {
+  return db
+    .selectFrom('submissions')
+    .innerJoin('students', 'students.id', 'submissions.student_row_id')
+    .select(submissionColumns)
+    .where('submissions.student_row_id', '=', studentRowId)
+    .where('submissions.assignment_id', '=', assignmentId)
+    .orderBy('submissions.version', 'desc')
+    .limit(1)
+    .executeTakeFirst();
+}
+
 /** A result without its refit and settings: what a table of a section's results needs. */
 const resultSummaryColumns = [
   'results.id as resultId',
