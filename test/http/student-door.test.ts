@@ -245,6 +245,20 @@ describe("students' own door", () => {
     expect(row.codes).not.toContain('late-submission');
   });
 
+  it('a body that is no submission is a 400 at body; a withdrawn student reaches nothing any more', async () => {
+    for (const payload of [[OWN], 'not json at all']) {
+      const res = await as('S-002', 'POST', own(s.assignment.id, '/submissions'), payload as object, typeof payload === 'string' ? 'text/plain' : undefined);
+      expect([res.status, res.body.error.details[0].path]).toEqual([400, 'body']);
+    }
+    door['S-006'] = await signIn('S-006');
+    expect((await as('S-006', 'GET', '/v1/student/me')).status).toBe(200);
+    await call(api.app, 'PUT', `/v1/sections/${s.sectionA.id}/roster/S-006`, s.instructorToken, { status: 'withdrawn' }, 200);
+    // Withdrawing ends the student's sessions: every student route is closed to the old cookie.
+    for (const [method, url] of [['GET', '/v1/student/me'], ['POST', own(s.assignment.id, '/submissions')], ['GET', own(s.assignment.id, '/feedback')]] as const) {
+      expect((await as('S-006', method, url, method === 'POST' ? OWN : undefined)).status).toBe(401);
+    }
+  });
+
   it('a deadline is the instructor\'s to set: a TA is refused, and a date without its time zone is a 400 naming dueAt', async () => {
     const url = `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/deadline`;
     expect((await call(api.app, 'PUT', url, s.taAToken, { dueAt: '2099-01-01T00:00:00Z' })).status).toBe(403);
