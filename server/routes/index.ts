@@ -2,6 +2,7 @@ import type { RouteSpec } from '../http/route-table.ts';
 import { accessCodeRoutes } from './access-codes.ts';
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
+import { deadlineRoutes } from './deadlines.ts';
 import { kindRoutes } from './kinds.ts';
 import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
@@ -9,6 +10,7 @@ import { resultRoutes } from './results.ts';
 import { rosterRoutes } from './rosters.ts';
 import { sessionRoutes } from './sessions.ts';
 import { signalRoutes } from './signals.ts';
+import { studentPageRoutes } from './student-pages.ts';
 import { studentSessionRoutes } from './student-session.ts';
 import { submissionDisplayRoutes } from './submission-display.ts';
 import { submissionRoutes } from './submissions.ts';
@@ -26,6 +28,8 @@ export const routes: RouteSpec[] = [
   ...submissionRoutes,
   ...submissionDisplayRoutes,
   ...resultRoutes,
+  ...deadlineRoutes,
   ...signalRoutes,
   ...reportRoutes,
+  ...studentPageRoutes,
 ];
