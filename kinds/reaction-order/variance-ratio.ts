@@ -1,4 +1,4 @@
-import { createRequire } from 'node:module';
+import { loadBundled } from '../../server/engine/bundled-package.ts';
 
 let betaCdf: ((x: number, a: number, b: number) => number) | undefined;
 
@@ -11,6 +11,6 @@ let betaCdf: ((x: number, a: number, b: number) => number) | undefined;
 export function varianceRatioP(ratio: number, dof: number): number {
   if (!(ratio > 0) || !(dof > 0)) return 1;
   if (!Number.isFinite(ratio)) return 0;
-  betaCdf ??= createRequire(import.meta.url)('@stdlib/stats-base-dists-beta-cdf') as (x: number, a: number, b: number) => number;
+  betaCdf ??= loadBundled<(x: number, a: number, b: number) => number>('beta-cdf', '@stdlib/stats-base-dists-beta-cdf');
   return 1 - betaCdf(ratio / (ratio + 1), dof / 2, dof / 2);
 }

@@ -1,4 +1,4 @@
-import { createRequire } from 'node:module';
+import { loadBundled } from './bundled-package.ts';
 import { logBeta } from './log-gamma.ts';
 
 /**
@@ -101,7 +101,7 @@ export function durbinWatsonNull(jacobian: ArrayLike<number>[], normalInverse: A
     expected,
     variance,
     lowerTail: (statistic) => {
-      betaCdf ??= createRequire(import.meta.url)('@stdlib/stats-base-dists-beta-cdf') as (x: number, a: number, b: number) => number;
+      betaCdf ??= loadBundled<(x: number, a: number, b: number) => number>('beta-cdf', '@stdlib/stats-base-dists-beta-cdf');
       return betaCdf(statistic / 4, a, b);
     },
     tailAtLeast: (statistic, level) => {

@@ -1,5 +1,6 @@
 import { createRequire } from 'node:module';
 import { T_CRITICAL_TWO_SIDED } from './t-critical-table.ts';
+import { loadBundled } from './bundled-package.ts';
 
 // A t quantile is an inverse incomplete beta function: slow next to a fit, and asked for with the same
 // few degrees of freedom over and over. The common ones are in a table; any other is computed once and
@@ -28,25 +29,10 @@ export function tCritical95(dof: number): number {
 
 let cdf: ((t: number, dof: number) => number) | undefined;
 
-/**
- * The distribution function's package, from the one file `npm run build` bundles it into where there
- * is one (dist/server/vendor/): the same code, loaded in about 30 ms where its 200-odd small modules
- * took 300-500 ms, in every process and worker that checks a run past the end-value screen (about
- * 9 % of the CPU time of `check --jsonl` on 5,000 submissions in two workers). Run from the sources,
- * the package itself.
- */
-function loadCdf(): (t: number, dof: number) => number {
-  const require = createRequire(import.meta.url);
-  try {
-    return require('../vendor/student-t-cdf.cjs') as (t: number, dof: number) => number;
-  } catch (error) {
-    if ((error as { code?: string }).code !== 'MODULE_NOT_FOUND') throw error;
-    return require('@stdlib/stats-base-dists-t-cdf') as (t: number, dof: number) => number;
-  }
-}
-
 /** P(|T| >= |t|) for Student's t with `dof` degrees of freedom. */
 export function tTwoSidedP(t: number, dof: number): number {
-  cdf ??= loadCdf();
+  // Loaded on the first end-value signal that passes its screen: about 9 % of `check --jsonl`'s time in
+  // two workers when each loaded the package's modules.
+  cdf ??= loadBundled<(t: number, dof: number) => number>('student-t-cdf', '@stdlib/stats-base-dists-t-cdf');
   return 2 * cdf(-Math.abs(t), dof);
 }
