@@ -101,14 +101,19 @@ interface PdfStream {
  * but joins the words' glyph and position arrays again at every call: and a label is measured two or
  * three times before it is drawn (its width for alignment, then pdfkit's own measures while drawing).
  * So whole strings are kept too, in one cache per font shared by documents (the runs are already
- * scaled and only read afterwards; an empty `features` is pdfkit's default shaping). Numbers differ
- * from sheet to sheet, so the caches gain about 40 kB a document: they are renewed every 200
- * documents, which holds a worker drawing a course's sheets to a few MB (at 2,000 it grew by 60 MB a
- * worker) and re-shapes the common words too rarely to show in the time.
+ * scaled and only read afterwards; an empty `features` is pdfkit's default shaping). A line being
+ * filled is measured at each word it gains: such strings keep only their advance, not their glyphs.
+ * Numbers differ from sheet to sheet, so the caches grow with every document (a thread's live heap
+ * after 195 sheets: 31 MB without them, 34 MB with them): they are renewed every 200 documents, which
+ * holds a worker drawing a course's sheets to a few MB (at 2,000 it grew by 60 MB a worker) and
+ * re-shapes the common words too rarely to show in the time.
  */
 interface SharedLayouts {
   words: Record<string, unknown>;
+  /** Strings drawn: their glyphs and positions. */
   strings: Map<string, Layout>;
+  /** Strings only measured (a line being filled word by word is measured at each word): their advance. */
+  widths: Map<string, number>;
 }
 
 const layoutCaches = new Map<string, SharedLayouts>();
@@ -118,7 +123,7 @@ let documents = 0;
 function sharedLayouts(name: string): SharedLayouts {
   let cache = layoutCaches.get(name);
   if (!cache) {
-    cache = { words: Object.create(null) as Record<string, unknown>, strings: new Map() };
+    cache = { words: Object.create(null) as Record<string, unknown>, strings: new Map(), widths: new Map() };
     layoutCaches.set(name, cache);
   }
   return cache;
@@ -131,6 +136,14 @@ function withSharedLayouts(embedded: EmbeddedFont, cache: SharedLayouts): void {
   embedded.layout = function (this: EmbeddedFont, text, features, onlyWidth) {
     if (features) return layout.call(this, text, features, onlyWidth);
     let shaped = cache.strings.get(text);
+    if (!shaped && onlyWidth) {
+      let advanceWidth = cache.widths.get(text);
+      if (advanceWidth === undefined) {
+        advanceWidth = layout.call(this, text, undefined, true).advanceWidth;
+        cache.widths.set(text, advanceWidth);
+      }
+      return { glyphs: [], positions: [], advanceWidth };
+    }
     if (!shaped) {
       shaped = layout.call(this, text);
       cache.strings.set(text, shaped);
