@@ -4,6 +4,7 @@ import type { AssignmentRow } from '../store/assignments.ts';
 import type { Database } from '../store/database.ts';
 import { completeRegradePart, createRegrade, failRegrade, getRegrade, latestRegrade, regradePartToDo, type RegradeRow } from '../store/regrades.ts';
 import { insertResults, submissionsByIds } from '../store/submissions.ts';
+import { withPageSummary } from './page-summary.ts';
 import type { JobQueue, QueueSpec } from '../jobs/job-queue.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { Grader } from './grader.ts';
@@ -65,7 +66,7 @@ export class Regrades {
       if (!(await regradePartToDo(trx, regradeId, part, true))) return;
       // Late work stays late under the settings regraded with: the late-work setting is applied afresh.
       const late = latePolicyOf(todo.settings);
-      await insertResults(trx, { settings: todo.settings, settingsVersion: todo.settingsVersion }, submissions.map((s, i) => ({ submissionId: s.submissionId, result: gradedWithLatePolicy(graded[i], late, s.late) })));
+      await insertResults(trx, { settings: todo.settings, settingsVersion: todo.settingsVersion }, submissions.map((s, i) => ({ submissionId: s.submissionId, result: withPageSummary(gradedWithLatePolicy(graded[i], late, s.late)) })));
       await completeRegradePart(trx, regradeId, part, submissions.length);
     });
   }

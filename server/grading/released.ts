@@ -26,7 +26,7 @@ export interface ResultAndRelease {
 }
 
 /** What a student would notice of a result: its score and each finding's points and severity, and the signals on the sheet. */
-function asShown(r: EffectiveResult): string {
+export function asShown(r: EffectiveResult): string {
   return JSON.stringify([
     r.status,
     r.score,

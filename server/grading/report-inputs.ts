@@ -9,6 +9,7 @@ import { signalChoicesOf, type SignalChoiceRow } from '../store/signal-choices.t
 import { latestResults, latestResultSummaries, latestSubmissions, overridesOf, resultsByIds, submissionsByIds, type OverrideRow, type ResultRow, type SubmissionRow } from '../store/submissions.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { EffectiveResult } from './effective-result.ts';
+import { pageCounts } from './page-summary.ts';
 import { resultAndRelease, type ResultAndRelease } from './released.ts';
 
 /**
@@ -109,6 +110,38 @@ export async function sectionStandings(db: Kysely<Database>, sectionId: number, 
       releasedVersion: both.releasedVersion,
       changedSinceRelease: both.changedSinceRelease,
       feedbackFirstReadAt: latest.feedbackFirstReadAt,
+    };
+  });
+}
+
+/**
+ * The results page's rows, in student-id order: each student's latest version with what the page shows
+ * of its latest result (score, counts by cause, codes) and of what was released. Taken from the page
+ * summaries kept when the results were stored where they do (no override or signal choice for the
+ * student, both results summarised), so that a section's findings are not read and grouped on every
+ * view; otherwise worked out from the findings, overrides applied, as `sectionStandings` does.
+ */
+export async function sectionPageRows(db: Kysely<Database>, sectionId: number, assignmentId: number) {
+  return (await sectionLatestResults(db, sectionId, assignmentId, 'where-needed')).map(({ studentId, enrolment, latest }) => {
+    if (!latest) return { studentId, enrolment };
+    const { submission, feedbackFirstReadAt, release, pageSummaries } = latest;
+    const common = { studentId, enrolment, submission, feedbackFirstReadAt, status: latest.result.status };
+    if (pageSummaries) {
+      // As resultAndRelease: a release whose result was not read counts as none.
+      const released = release && pageSummaries.released;
+      return {
+        ...common,
+        shows: pageSummaries.latest,
+        released: released ? { score: released.score, version: release.version } : undefined,
+        changedSinceRelease: released ? release.submissionId !== submission.submissionId || pageSummaries.latest.shown !== released.shown : false,
+      };
+    }
+    const both = resultAndRelease(latest.result, release, latest.releasedRow, latest.overrides, latest.choices);
+    return {
+      ...common,
+      shows: { score: both.current.score, maxScore: both.current.maxScore, ...pageCounts(both.current.findings) },
+      released: both.released ? { score: both.released.score, version: both.releasedVersion! } : undefined,
+      changedSinceRelease: both.changedSinceRelease,
     };
   });
 }

@@ -6,6 +6,7 @@ import type { Grader } from './grader.ts';
 import { pastDeadline } from '../store/deadlines.ts';
 import { rosterRows } from '../store/students.ts';
 import { storeGraded } from '../store/submissions.ts';
+import { withPageSummary } from './page-summary.ts';
 import { gradedWithLatePolicy, latePolicyOf, studentArrival } from './late-work.ts';
 
 export interface BatchItem {
@@ -62,7 +63,7 @@ export async function screenBatch(db: Kysely<Database>, batch: GradedBatch, sect
       return;
     }
     // Stored as the schema reads it: fields it does not know are left out, whatever they hold.
-    toStore.push({ studentId: result.studentId!, studentRowId: row.id, payloadJson: result.payloadJson!, result });
+    toStore.push({ studentId: result.studentId!, studentRowId: row.id, payloadJson: result.payloadJson!, result: withPageSummary(result) });
   });
   return { toStore, rejected };
 }
@@ -98,7 +99,7 @@ export async function storeOwnSubmission(db: Kysely<Database>, batch: GradedBatc
     batch.assignmentId,
     null,
     { settings: batch.settings, settingsVersion: batch.settingsVersion },
-    [{ studentRowId: student.studentRowId, payloadJson: graded.payloadJson!, result: gradedWithLatePolicy(graded, late, isLate) }],
+    [{ studentRowId: student.studentRowId, payloadJson: graded.payloadJson!, result: withPageSummary(gradedWithLatePolicy(graded, late, isLate)) }],
     arrival,
   );
   return { ...stored, late: arrival.late, held: arrival.held };

@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
-import { cardCounts } from '../../reports/feedback/finding-groups.ts';
-import { releasesDue, sectionStandings } from '../grading/report-inputs.ts';
+import { releasesDue, sectionPageRows } from '../grading/report-inputs.ts';
 import { queuePassback } from '../grading/service-jobs.ts';
 import { staffIdOf } from '../http/access.ts';
 import { defineRoute } from '../http/route-table.ts';
@@ -15,15 +14,6 @@ const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 /** A roster student without a submission: nothing to count. */
 const NOT_SUBMITTED = { submissionId: null, version: null, submittedAt: null, source: null, late: false, held: false, feedbackFirstReadAt: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false };
 
-/**
- * Counted the way the feedback sheet groups findings: one per likely cause, so a slip repeated in four
- * values (charged once) counts once, and values that merely follow from the student's own numbers are notes.
- */
-function causeCounts(findings: Parameters<typeof cardCounts>[0]) {
-  const counts = cardCounts(findings);
-  return { errors: counts.costPoints, warnings: counts.warnings, infos: counts.notes };
-}
-
 export const resultRoutes = [
   defineRoute({
     method: 'GET',
@@ -34,11 +24,11 @@ export const resultRoutes = [
     async handler({ db, scope }) {
       const [sectionId, assignmentId] = [scope.section.id, scope.assignment.id];
       // One list in student-id order (code-unit order, as before), submitted or not.
-      const rows = (await sectionStandings(db, sectionId, assignmentId)).map((row) => {
-        if (!row.submission) {
+      const rows = (await sectionPageRows(db, sectionId, assignmentId)).map((row) => {
+        if (!('submission' in row)) {
           return { ...NOT_SUBMITTED, studentId: row.studentId, status: row.enrolment === 'withdrawn' ? 'withdrawn' : 'not-submitted', enrolment: row.enrolment };
         }
-        const { submission, result, released, releasedVersion, changedSinceRelease, feedbackFirstReadAt } = row;
+        const { submission, shows, released, changedSinceRelease, feedbackFirstReadAt } = row;
         return {
           studentId: submission.studentId,
           submissionId: submission.submissionId,
@@ -48,15 +38,17 @@ export const resultRoutes = [
           late: submission.late,
           held: submission.held,
           feedbackFirstReadAt,
-          status: submission.enrolment === 'withdrawn' ? 'withdrawn' : result.status,
+          status: submission.enrolment === 'withdrawn' ? 'withdrawn' : row.status,
           enrolment: submission.enrolment,
-          score: result.score,
-          maxScore: result.maxScore,
-          ...causeCounts(result.findings),
-          codes: [...new Set(result.findings.map((f) => f.code))],
+          score: shows.score,
+          maxScore: shows.maxScore,
+          errors: shows.errors,
+          warnings: shows.warnings,
+          infos: shows.infos,
+          codes: shows.codes,
           released: released !== undefined,
           releasedScore: released?.score ?? null,
-          releasedVersion: releasedVersion ?? null,
+          releasedVersion: released?.version ?? null,
           changedSinceRelease,
         };
       });

@@ -53,6 +53,8 @@ export interface Database {
     max_score: number;
     refit: Json<unknown> | null;
     findings: Json<unknown>;
+    /** What the results page shows of it before overrides (page-summaries.ts); null in results stored before it was kept. */
+    page_summary: Json<unknown> | null;
     released_at: Date | null;
     released_by: Ref | null;
     created_at: Generated<Date>;

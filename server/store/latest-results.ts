@@ -1,5 +1,6 @@
 import { sql, type Kysely } from 'kysely';
 import type { Database, EnrolmentStatus } from './database.ts';
+import type { PageSummary } from './page-summaries.ts';
 import type { ReleaseRow } from './releases.ts';
 import type { SignalChoiceRow } from './signal-choices.ts';
 import type { OverrideRow, ResultRow } from './submissions.ts';
@@ -36,8 +37,17 @@ export interface StudentLatest {
     /** The student's overrides and signal choices of this assignment, every version's, oldest first. */
     overrides: OverrideRow[];
     choices: SignalChoiceRow[];
+    /**
+     * What the page shows of the latest result and of the released one, kept when each was stored; only
+     * where neither needs working out from the findings (read with `findings: 'where-needed'`, they
+     * are then left unread: null), that is when both have one and the student has no override or choice.
+     */
+    pageSummaries?: { latest: PageSummary; released?: PageSummary };
   };
 }
+
+/** Whether to read every result's findings, or only where the kept page summaries will not do (the results page). */
+export type FindingsRead = 'always' | 'where-needed';
 
 /**
  * Every roster student of a section (removed ones left out), in student-id order, with their latest
@@ -46,7 +56,9 @@ export interface StudentLatest {
  * overrides and choices both need: one query, by key through
  * `latest_results` and the students' section index.
  */
-export async function sectionLatestResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<StudentLatest[]> {
+export async function sectionLatestResults(db: Kysely<Database>, sectionId: number, assignmentId: number, findingsRead: FindingsRead = 'always'): Promise<StudentLatest[]> {
+  // The kept summaries do when both results have one and nothing a TA did changes what they show.
+  const needsFindings = sql<boolean>`(${findingsRead === 'always'} or results.page_summary is null or ("shownResult".id is not null and "shownResult".page_summary is null) or "overrideList".list is not null or "choiceList".list is not null)`;
   const rows = await db
     .selectFrom('students')
     .leftJoin('latest_results as latest', (join) => join.onRef('latest.student_row_id', '=', 'students.id').on('latest.assignment_id', '=', assignmentId))
@@ -128,7 +140,8 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
       'results.status as status',
       'results.score as score',
       'results.max_score as maxScore',
-      'results.findings as findings',
+      sql<unknown>`case when ${needsFindings} then results.findings end`.as('findings'),
+      sql<PageSummary | null>`case when not ${needsFindings} then results.page_summary end`.as('pageSummary'),
       'results.released_at as releasedAt',
       'results.created_at as gradedAt',
       'release.id as releaseId',
@@ -146,7 +159,8 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
       'shownResult.status as shownStatus',
       'shownResult.score as shownScore',
       'shownResult.max_score as shownMaxScore',
-      'shownResult.findings as shownFindings',
+      sql<unknown>`case when ${needsFindings} then "shownResult".findings end`.as('shownFindings'),
+      sql<PageSummary | null>`case when not ${needsFindings} then "shownResult".page_summary end`.as('shownPageSummary'),
       'shownResult.released_at as shownReleasedAt',
       'shownResult.created_at as shownGradedAt',
       'overrideList.list as overrides',
@@ -221,6 +235,7 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
       late: r.late!,
       held: r.held!,
     };
-    return { ...base, latest: { submission, result, release, releasedRow, feedbackFirstReadAt: r.feedbackFirstReadAt, overrides, choices } };
+    const pageSummaries = r.pageSummary === null ? undefined : { latest: r.pageSummary, released: r.shownPageSummary ?? (releasedRow === result ? r.pageSummary : undefined) };
+    return { ...base, latest: { submission, result, release, releasedRow, feedbackFirstReadAt: r.feedbackFirstReadAt, overrides, choices, pageSummaries } };
   });
 }

@@ -32,6 +32,8 @@ export interface StoredResult {
   maxScore: number;
   refitJson: string | null;
   findingsJson: string;
+  /** What the results page shows of it before overrides, as JSON text (page-summaries.ts); absent, the page works it out. */
+  pageSummaryJson?: string;
 }
 
 /** The settings every result of one grading used (stored beside each, so a later change leaves it as graded). */
@@ -100,6 +102,7 @@ export async function insertResults(db: Kysely<Database>, gradedWith: GradedWith
           max_score: result.maxScore,
           refit: result.refitJson,
           findings: result.findingsJson,
+          page_summary: result.pageSummaryJson ?? null,
         })),
       )
       .returning('id')

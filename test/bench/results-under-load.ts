@@ -67,9 +67,9 @@ export async function seedLoad(app: FastifyInstance, db: Kysely<Database>) {
   await call(app, 'POST', `${target}/release`, token, undefined, 200);
 
   // The other sections: the first section's stored rows again, for their own students.
-  const { rows: graded } = await sql<{ suffix: string; payload: string; engine_version: string; status: string; score: number | null; max_score: number; refit: string | null; findings: string; settings_version: number; settings: unknown }>`
+  const { rows: graded } = await sql<{ suffix: string; payload: string; engine_version: string; status: string; score: number | null; max_score: number; refit: string | null; findings: string; page_summary: string | null; settings_version: number; settings: unknown }>`
     select right(st.student_id, 4) as suffix, sub.payload::text as payload, r.engine_version, r.status, r.score, r.max_score, r.refit::text as refit,
-      r.findings::text as findings, r.settings_version, r.settings
+      r.findings::text as findings, r.page_summary::text as page_summary, r.settings_version, r.settings
     from submissions sub join students st on st.id = sub.student_row_id join results r on r.submission_id = sub.id
     where st.section_id = ${sections[0]} order by st.student_id`.execute(db);
   const staffId = Number(instructor.id);
@@ -80,7 +80,7 @@ export async function seedLoad(app: FastifyInstance, db: Kysely<Database>) {
       storeGraded(trx, assignment.id, staffId, { settings: graded[0].settings, settingsVersion: graded[0].settings_version }, graded.map((g) => ({
         studentRowId: rowOf.get(g.suffix)!,
         payloadJson: g.payload,
-        result: { engineVersion: g.engine_version, status: g.status, score: g.score, maxScore: g.max_score, refitJson: g.refit, findingsJson: g.findings },
+        result: { engineVersion: g.engine_version, status: g.status, score: g.score, maxScore: g.max_score, refitJson: g.refit, findingsJson: g.findings, pageSummaryJson: g.page_summary ?? undefined },
       }))),
     );
   }
