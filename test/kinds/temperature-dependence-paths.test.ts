@@ -44,7 +44,7 @@ describe('the temperature-dependence kind through the service and the command', 
 
   it('grades a batch, and draws the sheet with its Arrhenius plot and the summary with the class values', async () => {
     const assignment = (await call(api.app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Activation energy (invented)', settings }, 201)).body;
-    expect(assignment.stages.map((x: { id: string }) => x.id)).toEqual(['runs', 'arrhenius', 'eyring', 'reporting']);
+    expect(assignment.stages.map((x: { id: string }) => x.id)).toEqual(['runs', 'arrhenius', 'eyring', 'reporting', 'handing-in']);
     const url = `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}`;
     const stored = (await call(api.app, 'POST', `${url}/submissions`, s.taAToken, [submission('S-001', R), submission('S-002', 1.987)], 201)).body;
     expect(stored.stored.map((x: { score: number }) => x.score)).toEqual([2, 0]);
