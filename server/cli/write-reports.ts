@@ -3,10 +3,10 @@ import { basename, dirname, extname, join } from 'node:path';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
-import { gradebookCsv } from '../../reports/gradebook-csv.ts';
+import { GradebookRows } from '../../reports/gradebook-csv.ts';
+import type { SectionTotals } from '../../reports/summary/section-totals.ts';
 import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
-import { withoutArrays } from '../batches/check-json-batch.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { InFlight } from './in-flight.ts';
@@ -14,25 +14,23 @@ import { KeptLines } from './kept-lines.ts';
 
 const WRITES_IN_FLIGHT = 8;
 
-/** What the gradebook and the summary read of a result: no rubric items, per-reading arrays or finding messages. */
-function summaryPart(result: CheckResult): CheckResult {
-  const { items: _items, ...rest } = withoutArrays(result);
-  return { ...rest, findings: rest.findings.map((f) => ({ ...f, message: '' })) };
-}
-
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary, written batch by
- * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Of each
- * submission only what the gradebook and summary need is kept to the end, in a temporary file, and read
- * back once the sheets are done and the pool is closed.
+ * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Each
+ * result and submission goes into the gradebook's rows and the summary's running totals as it comes
+ * and is then let go; only the checked submissions, which the section's signals compare, are kept to
+ * the end, in a temporary file, and read back one at a time once the sheets are done and the pool is
+ * closed.
  */
 export class ReportWriter {
   private readonly header: SummaryHeader;
   private readonly settings: KindSettings;
   private readonly names = new UniqueNames();
   private readonly writing = new InFlight(WRITES_IN_FLIGHT);
-  /** Per result, in file order: the part the summary reads, and the submission as read where it has a sheet. */
-  private readonly kept = new KeptLines<[CheckResult] | [CheckResult, unknown]>();
+  private readonly gradebook: GradebookRows;
+  private totals: Promise<SectionTotals> | undefined;
+  /** The checked submissions as read, in file order, for the section's signals. */
+  private readonly kept = new KeptLines<unknown>();
   private sheets = 0;
 
   constructor(
@@ -45,16 +43,26 @@ export class ReportWriter {
     const stem = (path: string) => basename(path, extname(path));
     this.header = { course: 'Offline check', section: stem(paths.submissionsPath), assignment: stem(paths.assignmentPath), gradedAt: new Date() };
     this.settings = assignment.settings as KindSettings;
+    this.gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
+  }
+
+  private sectionTotals(): Promise<SectionTotals> {
+    return (this.totals ??= import('../../kinds/documents.ts').then((m) => m.sectionTotals(this.settings, true)));
   }
 
   /** The next batch in file order: its sheets drawn and written; resolves when they are. */
   async add(results: CheckResult[], reads: unknown[]): Promise<void> {
+    const totals = await this.sectionTotals();
     const sheets: Array<{ name: string; input: FeedbackInput }> = [];
     for (const [i, result] of results.entries()) {
       const read = reads[i];
       const drawn = result.status === 'checked' && result.studentId !== null && read !== undefined;
-      this.kept.push(drawn ? [summaryPart(result), read] : [summaryPart(result)]);
+      this.gradebook.add(result);
+      // The result before its submission: a signal is placed from its student's last submission.
+      totals.addResult(result);
       if (!drawn) continue;
+      totals.addSubmission(read);
+      this.kept.push(read);
       sheets.push({ name: this.names.take(result.studentId!), input: { header: { ...this.header, studentId: result.studentId!, version: 1 }, settings: this.settings, submission: read, result } });
     }
     this.sheets += sheets.length;
@@ -75,19 +83,14 @@ export class ReportWriter {
   /** The gradebook and the summary, after the last batch; returns the sheet count. */
   async finish(): Promise<number> {
     await this.writing.done();
-    // The summary is drawn here: the workers' memory is given back before the section is read back.
+    // The signals are compared here: the workers' memory is given back before the submissions are read back.
     await this.pool?.close();
-    const results: CheckResult[] = [];
-    const submissions: unknown[] = [];
-    for await (const [result, ...read] of this.kept.drain()) {
-      results.push(result);
-      submissions.push(...read);
-    }
-    await this.save('gradebook.csv', gradebookCsv(results, { assignment: this.header.assignment, bom: true }));
-    const { sectionSummary } = await import('../../kinds/documents.ts');
-    const { sectionSignals } = await import('../../kinds/section-signals.ts');
-    const { header, settings } = this;
-    await this.save('summary.pdf', await sectionSummary({ header, settings, results, submissions, signals: sectionSignals(settings, submissions) }));
+    await this.save('gradebook.csv', this.gradebook.text());
+    const { sectionSignalCollector } = await import('../../kinds/section-signals.ts');
+    const signals = sectionSignalCollector(this.settings);
+    for await (const submission of this.kept.drain()) signals.add(submission);
+    const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
+    await this.save('summary.pdf', await renderSummaryOfTotals(await this.sectionTotals(), { header: this.header, signals: signals.finish() }));
     return this.sheets;
   }
 
