@@ -4,9 +4,9 @@ import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
 import { GradebookRows } from '../../reports/gradebook-csv.ts';
-import type { SectionTotals } from '../../reports/summary/section-totals.ts';
 import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
+import { withoutArrays } from '../batches/check-json-batch.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { InFlight } from './in-flight.ts';
@@ -14,23 +14,28 @@ import { KeptLines } from './kept-lines.ts';
 
 const WRITES_IN_FLIGHT = 8;
 
+/** What the gradebook and the summary read of a result: no rubric items, per-reading arrays or finding messages. */
+function summaryPart(result: CheckResult): CheckResult {
+  const { items: _items, ...rest } = withoutArrays(result);
+  return { ...rest, findings: rest.findings.map((f) => ({ ...f, message: '' })) };
+}
+
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary, written batch by
- * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Each
- * result and submission goes into the gradebook's rows and the summary's running totals as it comes
- * and is then let go; only the checked submissions, which the section's signals compare, are kept to
- * the end, in a temporary file, and read back one at a time once the sheets are done and the pool is
- * closed.
+ * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Of each
+ * result only what the gradebook and summary read, and each checked submission, go to a temporary file
+ * as they come; once the sheets are done and the pool is closed they are read back one at a time into
+ * the gradebook's rows, the summary's running totals and the section's signals, and let go. Nothing
+ * grows with the file in memory but those totals, and the main thread loads the summary's drawing only
+ * then, not beside the workers.
  */
 export class ReportWriter {
   private readonly header: SummaryHeader;
   private readonly settings: KindSettings;
   private readonly names = new UniqueNames();
   private readonly writing = new InFlight(WRITES_IN_FLIGHT);
-  private readonly gradebook: GradebookRows;
-  private totals: Promise<SectionTotals> | undefined;
-  /** The checked submissions as read, in file order, for the section's signals. */
-  private readonly kept = new KeptLines<unknown>();
+  /** Per result, in file order: the part the summary reads, and the submission as read where it has a sheet. */
+  private readonly kept = new KeptLines<[CheckResult] | [CheckResult, unknown]>();
   private sheets = 0;
 
   constructor(
@@ -43,26 +48,16 @@ export class ReportWriter {
     const stem = (path: string) => basename(path, extname(path));
     this.header = { course: 'Offline check', section: stem(paths.submissionsPath), assignment: stem(paths.assignmentPath), gradedAt: new Date() };
     this.settings = assignment.settings as KindSettings;
-    this.gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
-  }
-
-  private sectionTotals(): Promise<SectionTotals> {
-    return (this.totals ??= import('../../kinds/documents.ts').then((m) => m.sectionTotals(this.settings, true)));
   }
 
   /** The next batch in file order: its sheets drawn and written; resolves when they are. */
   async add(results: CheckResult[], reads: unknown[]): Promise<void> {
-    const totals = await this.sectionTotals();
     const sheets: Array<{ name: string; input: FeedbackInput }> = [];
     for (const [i, result] of results.entries()) {
       const read = reads[i];
       const drawn = result.status === 'checked' && result.studentId !== null && read !== undefined;
-      this.gradebook.add(result);
-      // The result before its submission: a signal is placed from its student's last submission.
-      totals.addResult(result);
+      this.kept.push(drawn ? [summaryPart(result), read] : [summaryPart(result)]);
       if (!drawn) continue;
-      totals.addSubmission(read);
-      this.kept.push(read);
       sheets.push({ name: this.names.take(result.studentId!), input: { header: { ...this.header, studentId: result.studentId!, version: 1 }, settings: this.settings, submission: read, result } });
     }
     this.sheets += sheets.length;
@@ -83,14 +78,25 @@ export class ReportWriter {
   /** The gradebook and the summary, after the last batch; returns the sheet count. */
   async finish(): Promise<number> {
     await this.writing.done();
-    // The signals are compared here: the workers' memory is given back before the submissions are read back.
+    // The section is read back here: the workers' memory is given back first.
     await this.pool?.close();
-    await this.save('gradebook.csv', this.gradebook.text());
+    const { sectionTotals } = await import('../../kinds/documents.ts');
     const { sectionSignalCollector } = await import('../../kinds/section-signals.ts');
+    const gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
+    const totals = await sectionTotals(this.settings, true);
     const signals = sectionSignalCollector(this.settings);
-    for await (const submission of this.kept.drain()) signals.add(submission);
+    for await (const [result, ...read] of this.kept.drain()) {
+      gradebook.add(result);
+      // The result before its submission: a signal is placed from its student's last submission.
+      totals.addResult(result);
+      for (const submission of read) {
+        totals.addSubmission(submission);
+        signals.add(submission);
+      }
+    }
+    await this.save('gradebook.csv', gradebook.text());
     const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
-    await this.save('summary.pdf', await renderSummaryOfTotals(await this.sectionTotals(), { header: this.header, signals: signals.finish() }));
+    await this.save('summary.pdf', await renderSummaryOfTotals(totals, { header: this.header, signals: signals.finish() }));
     return this.sheets;
   }
 
