@@ -72,10 +72,37 @@ function notSubmittedRow(student: { studentId: string; withdrawn: boolean }): Ce
   return [{ text: student.studentId }, { number: null }, { number: null }, { text: status }, { number: 0 }, { number: 0 }, { number: 0 }, { text: '' }];
 }
 
+/**
+ * The gradebook made one result at a time, each row's text kept as it comes (some 80 characters a
+ * student), so that a long file's results need not all be held until it is written.
+ */
+export class GradebookRows {
+  private readonly lines: string[] = [GRADEBOOK_COLUMNS.join(',')];
+  private readonly withdrawn: ReadonlySet<string>;
+  private readonly assignment: Cell;
+
+  constructor(private readonly options: GradebookOptions) {
+    this.withdrawn = options.withdrawn ?? new Set<string>();
+    this.assignment = { text: options.assignment };
+  }
+
+  add(result: CheckResult): void {
+    this.lines.push(this.line(row(result, this.withdrawn)));
+  }
+
+  /** The whole file: the rows so far, then the roster students without a submission. */
+  text(): string {
+    const lines = [...this.lines, ...(this.options.notSubmitted ?? []).map((student) => this.line(notSubmittedRow(student)))];
+    return `${this.options.bom ? '\uFEFF' : ''}${lines.join('\r\n')}\r\n`;
+  }
+
+  private line(cells: Cell[]): string {
+    return [...cells, this.assignment].map(cellText).join(',');
+  }
+}
+
 export function gradebookCsv(results: readonly CheckResult[], options: GradebookOptions): string {
-  const withdrawn = options.withdrawn ?? new Set<string>();
-  const rows = [...results.map((r) => row(r, withdrawn)), ...(options.notSubmitted ?? []).map(notSubmittedRow)];
-  const assignment: Cell = { text: options.assignment };
-  const lines = [GRADEBOOK_COLUMNS.join(','), ...rows.map((r) => [...r, assignment].map(cellText).join(','))];
-  return `${options.bom ? '\uFEFF' : ''}${lines.join('\r\n')}\r\n`;
+  const rows = new GradebookRows(options);
+  for (const result of results) rows.add(result);
+  return rows.text();
 }

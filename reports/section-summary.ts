@@ -1,37 +1,44 @@
-import type { SectionSummaryInput } from './feedback-input.ts';
+import type { SectionSummaryInput, SummaryHeader } from './feedback-input.ts';
 import { INVENTED_NOTE } from './feedback-input.ts';
+import type { SectionSignals } from '../server/signals/section-report.ts';
 import { formatDate, formatPoints } from './format.ts';
 import { collect, contentLeft, contentWidth, createDocument, finish, moveTo, paragraph, sectionHeading, type Doc } from './pdf/document.ts';
 import { FONT } from './pdf/fonts.ts';
 import { drawTable } from './pdf/table.ts';
 import { COLOR, SIZE } from './pdf/theme.ts';
-import { scoreFraction } from './result-summary.ts';
-import { attentionRow, needAttention } from './summary/attention.ts';
-import { codeCounts } from './summary/code-counts.ts';
+import { attentionRow } from './summary/attention.ts';
+import { SectionTotals } from './summary/section-totals.ts';
 import { drawScoreHistogram } from './summary/histogram.ts';
 import { percentBins, spread } from './summary/stats.ts';
 import { drawSignals } from './summary/signals-block.ts';
-import type { DrawnKind, KindReport } from './kind-report.ts';
+import type { DrawnKind } from './kind-report.ts';
 
 export type { SectionSummaryInput, SummaryHeader } from './feedback-input.ts';
+export { SectionTotals } from './summary/section-totals.ts';
 
+/** What the summary is drawn from beside the section's totals. */
+export interface SummaryFrame {
+  header: SummaryHeader;
+  /** The section's signals for review, where they were computed. */
+  signals?: SectionSignals;
+  invented?: boolean;
+}
 
-function drawHeader(doc: Doc, input: SectionSummaryInput, report: KindReport): void {
-  const { header, results } = input;
+function drawHeader(doc: Doc, header: SummaryHeader, totals: SectionTotals): void {
   const left = contentLeft(doc);
   const width = contentWidth(doc);
   const top = doc.page.margins.top;
   doc.save().rect(left, top, width, 3).fill(COLOR.accent).restore();
   doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.muted).text('RATEPROOF · KINETICS ANALYSIS', left, top + 10, { lineBreak: false, characterSpacing: 0.8 });
   doc.font(FONT.bold).fontSize(SIZE.title).fillColor(COLOR.ink).text('Section summary', left, top + 22, { lineBreak: false });
-  const checked = results.filter((r) => r.status === 'checked').length;
+  const { results, checked } = totals;
   const facts: Array<[string, string]> = [
     ['Course', header.course],
     ['Section', header.section],
     ['Assignment', header.assignment],
     ['Graded', formatDate(header.gradedAt)],
-    ['Submissions', `${results.length} (${checked} checked, ${results.length - checked} not checked)`],
-    ...report.summaryFacts(input.settings),
+    ['Submissions', `${results} (${checked} checked, ${results - checked} not checked)`],
+    ...totals.kind.report.summaryFacts(totals.settings),
   ];
   const third = width / 3;
   facts.forEach(([label, value], i) => {
@@ -47,27 +54,26 @@ function drawHeader(doc: Doc, input: SectionSummaryInput, report: KindReport): v
   });
 }
 
-function drawScores(doc: Doc, input: SectionSummaryInput): void {
-  const checked = input.results.filter((r) => r.status === 'checked');
+function drawScores(doc: Doc, totals: SectionTotals): void {
+  const { checked, fractions } = totals;
   sectionHeading(doc, 'Score distribution', 200);
-  if (checked.length === 0) {
+  if (checked === 0) {
     paragraph(doc, 'No submission could be checked.');
     return;
   }
-  const fractions = checked.map(scoreFraction);
   const s = spread(fractions.map((f) => f * 100))!;
   paragraph(
     doc,
-    `${checked.length} checked submission${checked.length === 1 ? '' : 's'}: mean ${s.mean.toFixed(1)} %, median ${s.median.toFixed(1)} %` +
+    `${checked} checked submission${checked === 1 ? '' : 's'}: mean ${s.mean.toFixed(1)} %, median ${s.median.toFixed(1)} %` +
       (Number.isFinite(s.sd) ? `, SD ${s.sd.toFixed(1)} %` : '') +
       `; lowest ${s.min.toFixed(0)} %, highest ${s.max.toFixed(0)} %.`,
   );
   drawScoreHistogram(doc, percentBins(fractions));
 }
 
-function drawCodes(doc: Doc, input: SectionSummaryInput, findingCodes: readonly string[]): void {
-  const counts = codeCounts(input.results, findingCodes);
-  const checked = input.results.filter((r) => r.status === 'checked').length;
+function drawCodes(doc: Doc, totals: SectionTotals): void {
+  const counts = totals.codes.counts(totals.kind.findingCodes);
+  const { checked } = totals;
   sectionHeading(doc, 'How often each finding occurred', 80);
   if (counts.length === 0) {
     paragraph(doc, 'No findings in this section.');
@@ -86,8 +92,8 @@ function drawCodes(doc: Doc, input: SectionSummaryInput, findingCodes: readonly 
   );
 }
 
-function drawAttention(doc: Doc, input: SectionSummaryInput): void {
-  const list = needAttention(input.results);
+function drawAttention(doc: Doc, totals: SectionTotals): void {
+  const list = totals.attention.list();
   sectionHeading(doc, 'Students who most need attention', 80);
   if (list.length === 0) {
     paragraph(doc, 'Every student has full points and no error.');
@@ -114,23 +120,24 @@ function drawAttention(doc: Doc, input: SectionSummaryInput): void {
  * the section's signals for review where they are given.
  */
 export async function renderSectionSummary(input: SectionSummaryInput, kind: DrawnKind): Promise<Buffer> {
-  const gradedAt = new Date(input.header.gradedAt);
-  const doc = createDocument({ title: `Section summary ${input.header.section}`, date: Number.isNaN(gradedAt.getTime()) ? new Date(0) : gradedAt });
+  return renderSummaryOfTotals(SectionTotals.of(input, kind), input);
+}
+
+/** The same from totals gathered as the results came (a long file's, say). */
+export async function renderSummaryOfTotals(totals: SectionTotals, { header, signals, invented }: SummaryFrame): Promise<Buffer> {
+  const gradedAt = new Date(header.gradedAt);
+  const doc = createDocument({ title: `Section summary ${header.section}`, date: Number.isNaN(gradedAt.getTime()) ? new Date(0) : gradedAt });
   const bytes = collect(doc);
-  const { report } = kind;
-  drawHeader(doc, input, report);
-  drawScores(doc, input);
-  drawAttention(doc, input);
-  report.drawSummaryData(doc, input);
-  drawCodes(doc, input, kind.findingCodes);
-  if (input.signals || input.results.some((r) => (r.signals ?? []).length > 0)) {
-    const submissions = new Map((input.submissions ?? []).map((s) => [(s as { studentId?: string }).studentId, s]));
-    drawSignals(doc, input.signals, input.results, (path, studentId) => report.describePath(path, submissions.get(studentId ?? undefined)));
-  }
+  drawHeader(doc, header, totals);
+  drawScores(doc, totals);
+  drawAttention(doc, totals);
+  totals.part.draw(doc, totals.withSubmissions);
+  drawCodes(doc, totals);
+  if (signals || totals.signalled.length > 0) drawSignals(doc, signals, totals.signalled, (path, studentId) => totals.place(path, studentId));
   finish(doc, {
-    left: `Rateproof section summary · ${input.header.section} · ${formatPoints(input.results.length)} students`,
-    title: input.header.assignment,
-    invented: input.invented ? INVENTED_NOTE : undefined,
+    left: `Rateproof section summary · ${header.section} · ${formatPoints(totals.results)} students`,
+    title: header.assignment,
+    invented: invented ? INVENTED_NOTE : undefined,
   });
   return bytes;
 }

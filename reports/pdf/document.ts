@@ -40,6 +40,18 @@ export function collect(doc: Doc): Promise<Buffer> {
   });
 }
 
+/**
+ * Joins what the current page has drawn so far into one piece, the page's bytes unchanged. pdfkit keeps
+ * each drawing operator as its own small byte array until the document ends, some 300 bytes apiece: a
+ * strip plot of 20,000 students' marks held 120 MB of heap that way. Called every so many marks.
+ */
+export function compactPage(doc: Doc): void {
+  const content = (doc.page as unknown as { content?: { buffer?: unknown } }).content;
+  const pieces = content?.buffer;
+  if (!Array.isArray(pieces) || pieces.length < 2) return;
+  content!.buffer = [Buffer.concat(pieces as Uint8Array[])];
+}
+
 export const contentLeft = (doc: Doc): number => doc.page.margins.left;
 export const contentWidth = (doc: Doc): number => doc.page.width - doc.page.margins.left - doc.page.margins.right;
 export const contentBottom = (doc: Doc): number => doc.page.height - doc.page.margins.bottom;

@@ -2,24 +2,49 @@ import type { CheckResult } from '../../schemas/result.ts';
 import { formatPoints } from '../format.ts';
 import { mainErrorCodes, scoreFraction, severityCounts } from '../result-summary.ts';
 
+interface Ranked {
+  result: CheckResult;
+  rejected: boolean;
+  fraction: number;
+  errors: number;
+  index: number;
+}
+
+// Rejected first, then the lowest share of the points, then the most errors, then the order given.
+const before = (a: Ranked, b: Ranked) => Number(b.rejected) - Number(a.rejected) || a.fraction - b.fraction || b.errors - a.errors || a.index - b.index;
+
 /**
- * The students who most need a TA's attention: rejected submissions first, then the lowest share of
- * the points, then the most errors. Students with full points and no error are never listed.
+ * The students who most need a TA's attention, taken one result at a time: rejected submissions first,
+ * then the lowest share of the points, then the most errors. Students with full points and no error are
+ * never listed. Only the `limit` first so far are kept, so a section of any size costs the same.
  */
+export class AttentionList {
+  private readonly kept: Ranked[] = [];
+  private seen = 0;
+
+  constructor(private readonly limit = 12) {}
+
+  add(result: CheckResult): void {
+    const index = this.seen++;
+    const ranked = { result, rejected: result.status === 'rejected', fraction: scoreFraction(result), errors: severityCounts(result.findings).errors, index };
+    if (!(ranked.rejected || ranked.fraction < 1 || ranked.errors > 0)) return;
+    // Every key differs by its index, so inserting in place is the sort of the whole list cut to its first `limit`.
+    let at = this.kept.length;
+    while (at > 0 && before(ranked, this.kept[at - 1]) < 0) at--;
+    if (at >= this.limit) return;
+    this.kept.splice(at, 0, ranked);
+    if (this.kept.length > this.limit) this.kept.pop();
+  }
+
+  list(): CheckResult[] {
+    return this.kept.map((k) => k.result);
+  }
+}
+
 export function needAttention(results: readonly CheckResult[], limit = 12): CheckResult[] {
-  const errors = (r: CheckResult) => severityCounts(r.findings).errors;
-  return results
-    .filter((r) => r.status === 'rejected' || scoreFraction(r) < 1 || errors(r) > 0)
-    .map((r, i) => ({ r, i }))
-    .sort(
-      (a, b) =>
-        Number(b.r.status === 'rejected') - Number(a.r.status === 'rejected') ||
-        scoreFraction(a.r) - scoreFraction(b.r) ||
-        errors(b.r) - errors(a.r) ||
-        a.i - b.i,
-    )
-    .slice(0, limit)
-    .map(({ r }) => r);
+  const list = new AttentionList(limit);
+  for (const result of results) list.add(result);
+  return list.list();
 }
 
 export function attentionRow(r: CheckResult): string[] {

@@ -6,12 +6,14 @@ import { drawTable } from '../pdf/table.ts';
 import { COLOR, SIZE } from '../pdf/theme.ts';
 
 /** A signal's place in a student's submission, in words (sub/superscript markup allowed: the table draws it). */
+type Signalled = Pick<CheckResult, 'studentId' | 'signals'>;
+
 export type SignalPlace = (path: string, studentId: string | null) => string;
 
 const RELATION = { identical: 'the same', offset: 'shifted by a constant', scaled: 'rescaled', edited: 'a few cells changed' } as const;
 
 /** Each student's signals about the measurement (per run and per submission), one row per student. */
-function drawStudentSignals(doc: Doc, results: CheckResult[], place: SignalPlace): void {
+function drawStudentSignals(doc: Doc, results: Signalled[], place: SignalPlace): void {
   const rows = results.filter((r) => (r.signals ?? []).length > 0);
   if (rows.length === 0) {
     paragraph(doc, 'No signals about how any student’s runs were measured.');
@@ -30,7 +32,7 @@ function drawStudentSignals(doc: Doc, results: CheckResult[], place: SignalPlace
 }
 
 /** The section's signals for review: prompts to look and ask, never findings. */
-export function drawSignals(doc: Doc, signals: SectionSignals | undefined, results: CheckResult[], place: SignalPlace): void {
+export function drawSignals(doc: Doc, signals: SectionSignals | undefined, results: Signalled[], place: SignalPlace): void {
   sectionHeading(doc, 'For review: how the data were measured, and patterns across the section', 90);
   paragraph(doc, 'Prompts to look and ask the students, not findings: no points depend on them and nothing here reaches a student.', { size: SIZE.small, color: COLOR.muted });
   drawStudentSignals(doc, results, place);

@@ -1,7 +1,7 @@
 import type { z } from 'zod';
 import type { CheckResult, Rejection } from '../../schemas/result.ts';
 import type { CsvLayout } from '../input/csv-layout.ts';
-import type { SectionSignals } from '../signals/section-report.ts';
+import type { SectionSignalCollector } from '../signals/section-report.ts';
 
 /**
  * One kind of experiment the checker understands. A new kind is a folder, kinds/<kind>/, whose
@@ -23,8 +23,8 @@ export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   check(settings: Settings, submission: Submission): Omit<CheckResult, 'engineVersion'>;
   /** How submissions of this kind are read from CSV files; absent: JSON only. */
   csvLayout?: CsvLayout;
-  /** What a section's submissions say together, for the TA's review; absent: nothing is compared. */
-  sectionSignals?(settings: Settings, submissions: unknown[]): SectionSignals;
+  /** What a section's submissions say together, for the TA's review, gathered one submission at a time; absent: nothing is compared. */
+  sectionSignals?(settings: Settings): SectionSignalCollector;
   /**
    * What was read from a valid submission, in plain lines for the student's form check ("4 runs read,
    * 16 readings each", "k reported for every run"): never a grade, a finding or a judgement on a value.

@@ -3,7 +3,7 @@ import { basename, dirname, extname, join } from 'node:path';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
-import { gradebookCsv } from '../../reports/gradebook-csv.ts';
+import { GradebookRows } from '../../reports/gradebook-csv.ts';
 import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 import { withoutArrays } from '../batches/check-json-batch.ts';
@@ -23,8 +23,11 @@ function summaryPart(result: CheckResult): CheckResult {
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary, written batch by
  * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Of each
- * submission only what the gradebook and summary need is kept to the end, in a temporary file, and read
- * back once the sheets are done and the pool is closed.
+ * result only what the gradebook and summary read, and each checked submission, go to a temporary file
+ * as they come; once the sheets are done and the pool is closed they are read back one at a time into
+ * the gradebook's rows, the summary's running totals and the section's signals, and let go. Nothing
+ * grows with the file in memory but those totals, and the main thread loads the summary's drawing only
+ * then, not beside the workers.
  */
 export class ReportWriter {
   private readonly header: SummaryHeader;
@@ -75,19 +78,25 @@ export class ReportWriter {
   /** The gradebook and the summary, after the last batch; returns the sheet count. */
   async finish(): Promise<number> {
     await this.writing.done();
-    // The summary is drawn here: the workers' memory is given back before the section is read back.
+    // The section is read back here: the workers' memory is given back first.
     await this.pool?.close();
-    const results: CheckResult[] = [];
-    const submissions: unknown[] = [];
+    const { sectionTotals } = await import('../../kinds/documents.ts');
+    const { sectionSignalCollector } = await import('../../kinds/section-signals.ts');
+    const gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
+    const totals = await sectionTotals(this.settings, true);
+    const signals = sectionSignalCollector(this.settings);
     for await (const [result, ...read] of this.kept.drain()) {
-      results.push(result);
-      submissions.push(...read);
+      gradebook.add(result);
+      // The result before its submission: a signal is placed from its student's last submission.
+      totals.addResult(result);
+      for (const submission of read) {
+        totals.addSubmission(submission);
+        signals.add(submission);
+      }
     }
-    await this.save('gradebook.csv', gradebookCsv(results, { assignment: this.header.assignment, bom: true }));
-    const { sectionSummary } = await import('../../kinds/documents.ts');
-    const { sectionSignals } = await import('../../kinds/section-signals.ts');
-    const { header, settings } = this;
-    await this.save('summary.pdf', await sectionSummary({ header, settings, results, submissions, signals: sectionSignals(settings, submissions) }));
+    await this.save('gradebook.csv', gradebook.text());
+    const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
+    await this.save('summary.pdf', await renderSummaryOfTotals(totals, { header: this.header, signals: signals.finish() }));
     return this.sheets;
   }
 

@@ -9,3 +9,12 @@ export interface SectionSignals extends SharedReport {
 }
 
 export const nothingCompared = (why: string): SectionSignals => ({ notCompared: why, pairs: [], groups: [], smooth: [] });
+
+/**
+ * A section's signals gathered one submission at a time (each a valid submission of the kind, as its
+ * schema read it): what the comparison needs is taken from each as it comes, and the submission let go.
+ */
+export interface SectionSignalCollector {
+  add(submission: unknown): void;
+  finish(): SectionSignals;
+}

@@ -96,20 +96,21 @@ function distinctive(value: string | number | undefined): string | undefined {
   return digits.length >= 4 ? text : undefined;
 }
 
-/** A submission as the comparison reads it: each run prepared, each reported k's distinctive text. */
+/**
+ * A submission as the comparison reads it: each run prepared, each reported k's distinctive text. It
+ * holds none of the submission's own objects, so a section of 20,000 is compared from a compact copy.
+ */
 export interface PreparedSubmission {
-  source: SubmittedReadings;
+  studentId: string;
   runs: Array<Prepared | undefined>;
   written: Array<string | undefined>;
 }
 
 export function prepareSubmission(source: SubmittedReadings): PreparedSubmission {
-  return { source, runs: source.runs.map((r) => prepare(r.readings)), written: (source.reportedK ?? []).map(distinctive) };
+  return { studentId: source.studentId, runs: source.runs.map((r) => prepare(r.readings)), written: (source.reportedK ?? []).map(distinctive) };
 }
 
 function comparePair(pa: PreparedSubmission, pb: PreparedSubmission): SharedPair | undefined {
-  const { source: a } = pa;
-  const { source: b } = pb;
   const runs: RunMatch[] = [];
   const usedB = new Set<number>();
   pa.runs.forEach((ra, i) => {
@@ -131,8 +132,8 @@ function comparePair(pa: PreparedSubmission, pb: PreparedSubmission): SharedPair
     const j = pb.written.indexOf(text);
     if (j >= 0) sameReportedK.push([i, j]);
   });
-  if (runs.length < Math.min(MATCHING_RUNS, a.runs.length, b.runs.length) && sameReportedK.length < MATCHING_RUNS) return undefined;
-  return { students: [a.studentId, b.studentId], runs, sameReportedK };
+  if (runs.length < Math.min(MATCHING_RUNS, pa.runs.length, pb.runs.length) && sameReportedK.length < MATCHING_RUNS) return undefined;
+  return { students: [pa.studentId, pb.studentId], runs, sameReportedK };
 }
 
 /** The full comparison of two submissions, as findSharedReadings makes it for a pair it compares. */
@@ -160,7 +161,11 @@ function groupsOf(pairs: SharedPair[]): string[][] {
 }
 
 export function findSharedReadings(submissions: SubmittedReadings[]): SharedReport {
-  const prepared = submissions.map(prepareSubmission);
+  return sharedAmong(submissions.map(prepareSubmission));
+}
+
+/** The pairs among submissions prepared one at a time (as a long file is read), in the order of all pairs. */
+export function sharedAmong(prepared: PreparedSubmission[]): SharedReport {
   // Only pairs that can share anything are compared (see pairCandidates), in the order of all pairs.
   const written = prepared.map((p) => p.written.filter((text) => text !== undefined));
   const pairs: SharedPair[] = [];

@@ -42,8 +42,24 @@ function scatterOf(run: RunsOfStudent['runs'][number]): { residualSD: number; st
   }
 }
 
+/** A run's scatter about its curve, with what a signal names it by; a student's runs are measured as they come. */
+export interface RunScatter {
+  studentId: string;
+  run: number;
+  label: string;
+  scatter: { residualSD: number; step: number } | undefined;
+}
+
+export function runScatters(student: RunsOfStudent): RunScatter[] {
+  return student.runs.map((run, i) => ({ studentId: student.studentId, run: i, label: run.label, scatter: scatterOf(run) }));
+}
+
 export function findSmoothRuns(section: RunsOfStudent[], instrumentNoise?: number): SmoothRun[] {
-  const all = section.flatMap((s) => s.runs.map((run, i) => ({ studentId: s.studentId, run: i, label: run.label, scatter: scatterOf(run) })));
+  return smoothAmong(section.flatMap(runScatters), instrumentNoise);
+}
+
+/** The runs smoother than the instrument among the section's runs (each student's, in order), against their median. */
+export function smoothAmong(all: RunScatter[], instrumentNoise?: number): SmoothRun[] {
   const sds = all.flatMap((r) => (r.scatter ? [r.scatter.residualSD] : [])).sort((a, b) => a - b);
   if (sds.length === 0) return [];
   const median = sds[Math.floor(sds.length / 2)];

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Finding } from '../../schemas/result.ts';
 import type { ExperimentKind } from '../../server/checks/experiment-kind.ts';
 import { fitLine } from '../../server/engine/linear-fit.ts';
-import type { KindReport } from '../../reports/kind-report.ts';
+import { keepingEverything, type KindReport } from '../../reports/kind-report.ts';
 import { paragraph, sectionHeading } from '../../reports/pdf/document.ts';
 import { settingsForm } from '../../reports/display/settings-form.ts';
 import { findingWords } from '../../reports/labels.ts';
@@ -111,11 +111,12 @@ export const zeroOrderReport: KindReport = {
     return { comparison: { caption: 'The zero-order line', note: '', columns: [{ header: 'Refit k', numeric: true }], rows: [[`${refit.k.value.toPrecision(4)} ± ${refit.k.standardError.toPrecision(2)}`]] }, plots: [] };
   },
   summaryFacts: (settings) => [['Tolerance on k', `${(settings as Settings).tolerance * 100} %`]],
-  drawSummaryData(doc, input) {
+  // A test kind's sections are small: its part keeps every result.
+  summaryPart: (settings) => keepingEverything(settings, (doc, input) => {
     const ks = input.results.flatMap((r) => (r.refit ? [(r.refit as { k: { value: number } }).k.value] : []));
     sectionHeading(doc, 'The class’s zero-order k', 40);
     paragraph(doc, `Refit k of ${ks.length} students, from ${Math.min(...ks).toPrecision(3)} to ${Math.max(...ks).toPrecision(3)}.`);
-  },
+  }),
 };
 
 /** An invented submission: c = 1 - k t at t = 0..5 with a little scatter, and the reported k. */

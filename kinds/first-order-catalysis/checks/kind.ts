@@ -1,7 +1,7 @@
 import { findingCodes, KIND, Settings, stages, Submission } from '../schemas.ts';
 import type { ExperimentKind } from '../../../server/checks/experiment-kind.ts';
 import { checkFirstOrderCatalysis } from './check-submission.ts';
-import { runSectionSignals } from '../../../server/signals/run-section-signals.ts';
+import { runSignalCollector } from '../../../server/signals/run-section-signals.ts';
 import { maxScore } from './scoring.ts';
 import { settingsIssues } from './settings-issues.ts';
 import { catalysisFormSummary } from '../form-summary.ts';
@@ -18,7 +18,7 @@ export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   check: checkFirstOrderCatalysis,
   maxScore,
   formSummary: catalysisFormSummary,
-  sectionSignals: runSectionSignals,
+  sectionSignals: runSignalCollector,
   // The parser loads on the first CSV, not with the checker.
   csvLayout: {
     main: 'readings',

@@ -14,6 +14,7 @@ import { firstOrderCatalysisDescription } from './description.ts';
 import { firstOrderCatalysisDisplay } from './display.ts';
 import { drawRateConstants } from './summary-rate-constants.ts';
 import { drawEquilibriumSummary } from './summary-equilibrium.ts';
+import { ClassTotals } from './class-values.ts';
 
 /** Whether a submission has the runs a place in it may name (a refused one may not). */
 function hasRuns(submission: unknown): submission is Pick<Submission, 'runs'> {
@@ -43,8 +44,15 @@ export const firstOrderCatalysisReport: KindReport<Settings, Submission, Refit> 
   },
   display: firstOrderCatalysisDisplay,
   summaryFacts: (settings) => [['Fit asked for', `ln F against t ${settings.fitModel === 'origin' ? 'through the origin' : 'with an intercept'}`]],
-  drawSummaryData(doc, input) {
-    drawRateConstants(doc, input);
-    drawEquilibriumSummary(doc, input);
+  summaryPart(settings) {
+    const totals = new ClassTotals(settings);
+    return {
+      addResult: (result) => totals.addResult(result),
+      addSubmission: (submission) => totals.addSubmission(submission),
+      draw(doc, withSubmissions) {
+        drawRateConstants(doc, settings, totals.values(), withSubmissions);
+        drawEquilibriumSummary(doc, settings, totals.constants(), withSubmissions);
+      },
+    };
   },
 };

@@ -1,5 +1,5 @@
 import { prettyUnit } from '../../../reports/format.ts';
-import { contentLeft, contentWidth, moveTo, type Doc } from '../../../reports/pdf/document.ts';
+import { compactPage, contentLeft, contentWidth, moveTo, type Doc } from '../../../reports/pdf/document.ts';
 import { legend, marker } from '../../../reports/pdf/marks.ts';
 import { Plot } from '../../../reports/pdf/plot.ts';
 import { drawRich } from '../../../reports/pdf/rich-text.ts';
@@ -8,6 +8,7 @@ import { COLOR, SIZE } from '../../../reports/pdf/theme.ts';
 import type { ClassValues } from './class-values.ts';
 
 const HEIGHT = 92;
+const MARKS_PER_PIECE = 1000;
 const SYMBOL = { kN: 'k_{N}', kA: 'k_{A}', K: 'K' } as const;
 
 /** Every student's value as a dot (refit row and reported row), the reference band shaded behind. */
@@ -51,6 +52,8 @@ export function drawStripPlot(doc: Doc, values: ClassValues): void {
         // A fixed spread within the row (golden-ratio steps), so that equal values stay visible.
         const jitter = (((i * 0.618034) % 1) - 0.5) * 0.6;
         if (plot.inside(v, 1)) marker(doc, row.shape, plot.sx(v), plot.sy(1.5 - r + jitter), 4, row.color);
+        // A course's marks would otherwise be held as some ten small pieces each.
+        if (i % MARKS_PER_PIECE === MARKS_PER_PIECE - 1) compactPage(doc);
       });
     });
   });

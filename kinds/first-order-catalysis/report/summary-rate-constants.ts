@@ -1,10 +1,9 @@
-import type { Refit, Settings, Submission } from '../schemas.ts';
-import type { SectionSummaryInput } from '../../../reports/feedback-input.ts';
+import type { Settings } from '../schemas.ts';
 import { formatNumber, prettyUnit } from '../../../reports/format.ts';
 import { ensureSpace, moveTo, paragraph, sectionHeading, type Doc } from '../../../reports/pdf/document.ts';
 import { drawTable } from '../../../reports/pdf/table.ts';
 import { SIZE, COLOR } from '../../../reports/pdf/theme.ts';
-import { classValues, type ClassValues } from './class-values.ts';
+import type { ClassValues } from './class-values.ts';
 import { SPREAD_COLUMNS, spreadCells } from '../../../reports/summary/spread-table.ts';
 import { drawStripPlot } from './strip-plot.ts';
 
@@ -21,10 +20,8 @@ export function spreadRow(values: ClassValues, source: string, data: number[]): 
   ];
 }
 
-/** The class's k_N and k_A, refitted and as reported, against the reference band. */
-export function drawRateConstants(doc: Doc, input: SectionSummaryInput<Settings, Submission, Refit>): void {
-  const { settings, submissions } = input;
-  const values = classValues(settings, input.results, submissions);
+/** The class's k_N and k_A, refitted and as reported (`submissions`: whether they were given), against the reference band. */
+export function drawRateConstants(doc: Doc, settings: Settings, values: ClassValues[], submissions: boolean): void {
   if (values.every((v) => v.refit.length === 0 && v.reported.length === 0)) return;
   sectionHeading(doc, 'The class’s k_{N} and k_{A}', 150);
   paragraph(

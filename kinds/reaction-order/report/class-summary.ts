@@ -1,16 +1,25 @@
-import type { Refit, Settings, Submission } from '../schemas.ts';
-import type { SectionSummaryInput } from '../../../reports/feedback-input.ts';
+import type { Refit, Submission } from '../schemas.ts';
+import type { KindSummaryPart } from '../../../reports/kind-report.ts';
 import { prettyUnit } from '../../../reports/format.ts';
 import { paragraph, sectionHeading, type Doc } from '../../../reports/pdf/document.ts';
 import { drawTable } from '../../../reports/pdf/table.ts';
 import { COLOR, SIZE } from '../../../reports/pdf/theme.ts';
 import { SPREAD_COLUMNS, spreadCells } from '../../../reports/summary/spread-table.ts';
-import { classK, classOrders } from './class-values.ts';
+import { ClassTotals } from './class-values.ts';
 
 /** The summary's part: the orders the class's data name against those reported, and the class's k by order. */
-export function drawClassOrdersAndK(doc: Doc, input: SectionSummaryInput<Settings, Submission, Refit>): void {
-  const { settings, submissions } = input;
-  const orders = classOrders(input.results, submissions);
+export function classOrdersAndK(): KindSummaryPart<Submission, Refit> {
+  const totals = new ClassTotals();
+  return {
+    addResult: (result) => totals.addResult(result),
+    addSubmission: (submission) => totals.addSubmission(submission),
+    draw: (doc, withSubmissions) => drawClassOrdersAndK(doc, totals, withSubmissions),
+  };
+}
+
+/** `submissions`: whether the reported values were given. */
+function drawClassOrdersAndK(doc: Doc, totals: ClassTotals, submissions: boolean): void {
+  const orders = totals.orders();
   const total = orders.named.reduce((a, b) => a + b, 0);
   if (total === 0) return;
   sectionHeading(doc, 'The class’s order', 110);
@@ -24,7 +33,7 @@ export function drawClassOrdersAndK(doc: Doc, input: SectionSummaryInput<Setting
   const rows = labels.map((label, i) => [label, String(orders.named[i]), submissions ? (i < 3 ? String(orders.reported[i]) : '—') : '—']);
   drawTable(doc, [{ header: '', weight: 1.2 }, { header: 'Named by the refit', weight: 1.4, align: 'right' }, { header: 'Reported', weight: 1.4, align: 'right' }, { header: '', weight: 3 }], rows.map((r) => [...r, '']), { zebra: true, keepRows: rows.length });
 
-  const ks = classK(settings, input.results, submissions);
+  const ks = totals.ks();
   if (ks.length === 0) return;
   sectionHeading(doc, 'The class’s k, by order', 110);
   paragraph(

@@ -2,7 +2,7 @@ import type { Refit, Settings, Submission } from '../schemas.ts';
 import type { KindReport } from '../../../reports/kind-report.ts';
 import { formatReported, prettyUnit } from '../../../reports/format.ts';
 import { rubricLinesOf } from '../../../reports/feedback/rubric-lines.ts';
-import { drawClassOrdersAndK } from './class-summary.ts';
+import { classOrdersAndK } from './class-summary.ts';
 import { reactionOrderDescription } from './description.ts';
 import { reactionOrderDisplay } from './display.ts';
 import { describePath, hasRuns } from './paths.ts';
@@ -35,5 +35,5 @@ export const reactionOrderReport: KindReport<Settings, Submission, Refit> = {
   drawSheetData,
   display: reactionOrderDisplay,
   summaryFacts: (settings) => [['Signal', signalFact(settings.signal)]],
-  drawSummaryData: drawClassOrdersAndK,
+  summaryPart: classOrdersAndK,
 };

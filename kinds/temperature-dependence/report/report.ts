@@ -2,7 +2,7 @@ import type { Refit, Settings, Submission } from '../schemas.ts';
 import type { KindReport } from '../../../reports/kind-report.ts';
 import { rubricLinesOf } from '../../../reports/feedback/rubric-lines.ts';
 import { drawArrheniusPlot } from './arrhenius-plot.ts';
-import { drawClassActivation } from './class-activation.ts';
+import { classActivation } from './class-activation.ts';
 import { temperatureDependenceDescription } from './description.ts';
 import { temperatureDependenceDisplay } from './display.ts';
 import { SYMBOLS } from './symbols.ts';
@@ -59,5 +59,5 @@ export const temperatureDependenceReport: KindReport<Settings, Submission, Refit
   },
   display: temperatureDependenceDisplay,
   summaryFacts: (settings) => [['Fit', settings.fit === 'weighted' ? 'weighted by SE(ln k)' : 'ordinary least squares']],
-  drawSummaryData: drawClassActivation,
+  summaryPart: classActivation,
 };

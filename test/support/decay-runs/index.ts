@@ -1,5 +1,5 @@
 import type { KindEntry } from '../../../kinds/kind-entry.ts';
-import { runSectionSignals } from '../../../server/signals/run-section-signals.ts';
+import { runSignalCollector } from '../../../server/signals/run-section-signals.ts';
 import { checkDecayRuns } from './check.ts';
 import { decayRunsCsv } from './csv.ts';
 import { decayFormSummary } from './form-summary.ts';
@@ -23,7 +23,7 @@ export const kind: KindEntry<Settings, Submission, Refit> = {
     csvLayout: decayRunsCsv,
     formSummary: decayFormSummary,
     // Runs of readings: the generic comparisons across a section (shared readings, smooth runs) apply.
-    sectionSignals: (_settings, submissions) => runSectionSignals({}, submissions),
+    sectionSignals: () => runSignalCollector({}),
   },
   report: async () => (await import('./report.ts')).decayRunsReport,
 };

@@ -1,4 +1,4 @@
-import type { KindReport } from '../../../reports/kind-report.ts';
+import { keepingEverything, type KindReport } from '../../../reports/kind-report.ts';
 import type { DisplayPlot, DisplayTable } from '../../../schemas/display.ts';
 import { displayAxis } from '../../../reports/display/plot-axes.ts';
 import { settingsForm } from '../../../reports/display/settings-form.ts';
@@ -117,7 +117,8 @@ export const decayRunsReport: KindReport<Settings, Submission, Refit> = {
     return { comparison, plots: [lnFPlot(submission, result.refit)] };
   },
   summaryFacts: (settings) => [['Tolerance on k', `${Math.round(settings.tolerance * 1000) / 10} %`], ['Readings a run should have', String(settings.minReadings)]],
-  drawSummaryData(doc, { results }) {
+  // A test kind's sections are small: its part keeps every result.
+  summaryPart: (settings) => keepingEverything(settings, (doc, { results }) => {
     const byLabel = new Map<string, number[]>();
     for (const r of results) for (const run of r.refit?.runs ?? []) if (run.k) byLabel.set(run.label, [...(byLabel.get(run.label) ?? []), run.k.value]);
     sectionHeading(doc, 'The class’s k, run by run', 60);
@@ -127,5 +128,5 @@ export const decayRunsReport: KindReport<Settings, Submission, Refit> = {
       return [label, String(ks.length), formatNumber(median), `${formatNumber(sorted[0])} to ${formatNumber(sorted.at(-1)!)}`];
     });
     drawTable(doc, ['Run', 'Refitted', 'Median refit k', 'Range'].map((header) => ({ header, weight: 1 })), rows, { zebra: true });
-  },
+  }),
 };
