@@ -37,6 +37,14 @@ export const bodyParsersPlugin = fp(async (app: FastifyInstance) => {
       done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `not valid JSON: ${filePosition((error as Error).message, text)}` }]), undefined);
     }
   });
+  // A learning platform's browser posts forms (LTI login initiation and launch): read as an object of strings.
+  app.addContentTypeParser('application/x-www-form-urlencoded', { parseAs: 'buffer' }, (_request, body, done) => {
+    try {
+      done(null, Object.fromEntries(new URLSearchParams(decodeUtf8(body as Buffer, 'body'))));
+    } catch (error) {
+      done(error as Error, undefined);
+    }
+  });
   app.addContentTypeParser(['text/csv', 'text/plain'], { parseAs: 'buffer' }, (_request, body, done) => {
     try {
       done(null, decodeUtf8(body as Buffer, 'body'));
