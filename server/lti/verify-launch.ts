@@ -22,7 +22,11 @@ export interface VerifiedLaunch {
 const MAX_TOKEN_AGE_SECONDS = 300;
 const CLOCK_TOLERANCE_SECONDS = 60;
 
-/** jose's errors as refusal codes; anything else it throws means the token could not be read. */
+/**
+ * jose's errors as refusal codes. What jose throws that is not its own error comes from fetching the
+ * platform's key set (a refused connection, a failed request); any other error of jose's means the
+ * token could not be read.
+ */
 function refusalOf(error: unknown): RefusalCode {
   // jose reports an iat older than maxTokenAge as expiry of the iat claim.
   if (error instanceof errors.JWTExpired) return error.claim === 'iat' ? 'bad-issued-at' : 'token-expired';
@@ -34,8 +38,7 @@ function refusalOf(error: unknown): RefusalCode {
   }
   if (error instanceof errors.JWSSignatureVerificationFailed || error instanceof errors.JWKSNoMatchingKey || error instanceof errors.JWKSMultipleMatchingKeys) return 'bad-signature';
   if (error instanceof errors.JOSEAlgNotAllowed) return 'algorithm-not-allowed';
-  if (error instanceof errors.JWKSTimeout || (error instanceof errors.JOSEError && error.code === 'ERR_JOSE_GENERIC')) return 'platform-keys-unreachable';
-  if (error instanceof errors.JWKSInvalid) return 'platform-keys-unreachable';
+  if (error instanceof errors.JWKSTimeout || error instanceof errors.JWKSInvalid || !(error instanceof errors.JOSEError)) return 'platform-keys-unreachable';
   return 'token-malformed';
 }
 

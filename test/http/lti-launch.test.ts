@@ -3,7 +3,9 @@ import type { FastifyInstance } from 'fastify';
 import { createLocalJWKSet, generateKeyPair, importJWK, jwtVerify, SignJWT } from 'jose';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp } from '../../server/app.ts';
+import { storeLoginState } from '../../server/store/lti-launch-states.ts';
 import { signingKey } from '../../server/store/lti-keys.ts';
+import { listPlatforms } from '../../server/store/lti-platforms.ts';
 import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type PlatformUser } from '../support/lti-platform/test-platform.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
@@ -213,6 +215,37 @@ describe('LTI 1.3 launch from a test platform', () => {
       const auth = await initiate(instructor);
       return post({ id_token: await platform.idToken(instructor, auth.nonce, { claims: { 'https://purl.imsglobal.org/spec/lti/claim/message_type': 'LtiDeepLinkingRequest' } }), state: auth.state });
     }],
+    // LTI Core 1.3, 5.3.1: only the message types the tool knows.
+    ['another message type', 'unknown-message-type', async () => {
+      const auth = await initiate(learner);
+      return post({ id_token: await platform.idToken(learner, auth.nonce, { claims: { 'https://purl.imsglobal.org/spec/lti/claim/message_type': 'LtiSomethingElse' } }), state: auth.state });
+    }],
+    // LTI Core 1.3, 5.3.5: a resource link launch names its resource link.
+    ['no resource link id', 'claims-missing', async () => {
+      const auth = await initiate(learner);
+      return post({ id_token: await platform.idToken(learner, auth.nonce, { claims: { 'https://purl.imsglobal.org/spec/lti/claim/resource_link': {} } }), state: auth.state });
+    }],
+    // Security Framework 1.0, 5.1.3 item 6: RS256 only; an HMAC-signed token is refused before any key is looked up.
+    ['signed HS256', 'algorithm-not-allowed', async () => {
+      const auth = await initiate(learner);
+      const token = await new SignJWT(platform.launchClaims(learner, auth.nonce))
+        .setProtectedHeader({ alg: 'HS256' })
+        .setIssuer(platform.issuer)
+        .setSubject(learner.sub)
+        .setAudience(platform.clientId)
+        .setIssuedAt()
+        .setExpirationTime('5m')
+        .sign(new TextEncoder().encode('a-shared-secret-of-32-bytes-long!'));
+      return post({ id_token: token, state: auth.state });
+    }],
+    ['no id_token', 'token-missing', async () => post({ state: (await initiate(learner)).state })],
+    ['an id_token that is no JWT', 'token-malformed', async () => post({ id_token: 'not-a-jwt', state: (await initiate(learner)).state })],
+    // Security Framework 1.0, 5.1.1.3: a state is short-lived (stored here as one already past its time).
+    ['expired state', 'state-expired', async () => {
+      const [platformRow] = await listPlatforms(database.store.db);
+      await storeLoginState(database.store.db, 'a-state-past-its-time', 'a-nonce-past-its-time', platformRow.id, -1);
+      return post({ id_token: await platform.idToken(learner, 'a-nonce-past-its-time'), state: 'a-state-past-its-time' });
+    }],
     // LTI Core 1.3, A.2.3: a role with no counterpart here opens nothing.
     ['a role not mapped', 'no-mapped-role', async () => {
       const auth = await initiate(mentor);
@@ -222,6 +255,26 @@ describe('LTI 1.3 launch from a test platform', () => {
 
   it.each(refusals)('refuses a launch: %s (%s)', async (_kind, code, send) => {
     await expectRefused(await send(), code);
+  });
+
+  it("refuses a launch when the platform's key set cannot be fetched (platform-keys-unreachable)", async () => {
+    // A second platform, registered, whose key set server has gone away.
+    const gone = await TestPlatform.start();
+    await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, gone.registration(seed.course.id), 201);
+    const res = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(gone.loginInitiation(learner, TOOL))}` });
+    const auth = gone.readAuthRequest(String(res.headers.location), learner);
+    const token = await gone.idToken(learner, auth.nonce);
+    await gone.close();
+    await expectRefused(await post({ id_token: token, state: auth.state }), 'platform-keys-unreachable');
+  });
+
+  it('refuses a learner withdrawn here (not-enrolled)', async () => {
+    const withdrawn: PlatformUser = { sub: 'sub-learner-withdrawn-41', name: 'Eli Withers', roles: PLATFORM_ROLES.learner };
+    everyone.push(withdrawn);
+    const me = (await app.inject({ method: 'GET', url: '/v1/student/me', headers: { cookie: await sessionOf(withdrawn) } })).json();
+    await call(app, 'PUT', `/v1/sections/${seed.sectionA.id}/roster/${me.studentId}`, seed.instructorToken, { status: 'withdrawn' }, 200);
+    const auth = await initiate(withdrawn);
+    await expectRefused(await post({ id_token: await platform.idToken(withdrawn, auth.nonce), state: auth.state }), 'not-enrolled');
   });
 
   it('a ticket is taken once, and only from a page of this origin (login cross-site request forgery)', async () => {
@@ -264,7 +317,7 @@ describe('LTI 1.3 launch from a test platform', () => {
 
   it('registration: the admin lists and replaces a platform; a bad URL is a 400 naming the field', async () => {
     const list = await call(app, 'GET', '/v1/lti/platforms', ADMIN_TOKEN, undefined, 200);
-    const [registered] = list.body.platforms;
+    const registered = list.body.platforms.find((p: { issuer: string }) => p.issuer === platform.issuer);
     expect(registered.deploymentIds).toEqual([platform.deploymentId]);
     const replaced = await call(app, 'PUT', `/v1/lti/platforms/${registered.id}`, ADMIN_TOKEN, { ...platform.registration(seed.course.id), deploymentIds: ['deployment-1', 'deployment-2'] }, 200);
     expect(replaced.body.deploymentIds).toEqual(['deployment-1', 'deployment-2']);
