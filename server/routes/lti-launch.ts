@@ -14,7 +14,7 @@ import { HtmlPage, KeySet, LaunchPost, LoginInitiation, TicketPost } from '../..
 const LAUNCH_PATH = '/v1/lti/launch';
 
 /**
- * A refusal: its reason code logged (the code only: no claim, no name, no subject id) and a page
+ * A refusal (401, an HTML page rather than the API's error body: a browser shows it): its reason code logged (the code only: no claim, no name, no subject id) and a page
  * naming the code; no session is made.
  */
 function refuse(request: FastifyRequest, reply: FastifyReply, error: unknown): FastifyReply {
@@ -37,7 +37,6 @@ async function login(request: FastifyRequest, reply: FastifyReply, fields: Login
 
 const loginSummary = 'LTI 1.3 third-party initiated login: redirects to the platform with a fresh state and nonce; an unregistered issuer is refused';
 const redirect = { 302: z.null().describe('to the platform’s authorisation endpoint') };
-const refused = { 401: HtmlPage };
 
 /**
  * The LTI 1.3 launch: our key set, the login a platform initiates, the launch it posts back, and the
@@ -60,7 +59,7 @@ export const ltiLaunchRoutes = [
     url: '/v1/lti/login',
     access: 'public',
     summary: loginSummary,
-    schema: { querystring: LoginInitiation, response: { ...redirect, ...refused } },
+    schema: { querystring: LoginInitiation, response: { ...redirect } },
     async handler(request, reply) {
       return login(request, reply, request.query);
     },
@@ -70,7 +69,7 @@ export const ltiLaunchRoutes = [
     url: '/v1/lti/login',
     access: 'public',
     summary: loginSummary,
-    schema: { body: LoginInitiation, response: { ...redirect, ...refused } },
+    schema: { body: LoginInitiation, response: { ...redirect } },
     async handler(request, reply) {
       return login(request, reply, request.body);
     },
@@ -81,7 +80,7 @@ export const ltiLaunchRoutes = [
     access: 'public',
     summary:
       'LTI 1.3 launch (form post of id_token and state): verified, then answered with a page that continues to this site, where the session is made; refused with a reason code otherwise',
-    schema: { body: LaunchPost, response: { 200: HtmlPage, ...refused } },
+    schema: { body: LaunchPost, response: { 200: HtmlPage } },
     async handler(request, reply) {
       try {
         const outcome = await completeLaunch(request.server.store.db, request.body.id_token, request.body.state);
@@ -97,7 +96,7 @@ export const ltiLaunchRoutes = [
     url: '/v1/lti/enter',
     access: 'public',
     summary: "A verified launch's same-site step: its one-time ticket becomes a session cookie (a student's or a staff member's), then on to the pages",
-    schema: { body: TicketPost, response: { 303: z.null().describe('to the pages'), ...refused } },
+    schema: { body: TicketPost, response: { 303: z.null().describe('to the pages') } },
     async handler(request, reply) {
       try {
         if (!sameOrigin(request)) throw new LaunchRefused('ticket-cross-site');
