@@ -115,12 +115,13 @@ export const ltiLaunchRoutes = [
 ];
 
 /**
- * A ticket is taken only from a page of this origin: a browser's Origin header (or Sec-Fetch-Site)
- * naming another site means another site is trying to sign this browser in as someone else.
+ * A ticket is taken only from a page of this origin. A browser that sends Sec-Fetch-Site says so
+ * itself; one that does not must send an Origin naming this origin (the launch's page sends its
+ * origin to its own site: its Referrer-Policy is same-origin, as `no-referrer` would make it "null").
+ * Anything else may be another site trying to sign this browser in as someone else.
  */
 function sameOrigin(request: FastifyRequest): boolean {
   const site = request.headers['sec-fetch-site'];
-  if (site !== undefined && site !== 'same-origin') return false;
-  const origin = request.headers.origin;
-  return origin === undefined || origin === `${request.protocol}://${request.host}`;
+  if (site !== undefined) return site === 'same-origin';
+  return request.headers.origin === `${request.protocol}://${request.host}`;
 }

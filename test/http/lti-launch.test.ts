@@ -280,6 +280,9 @@ describe('LTI 1.3 launch from a test platform', () => {
   it('a ticket is taken once, and only from a page of this origin (login cross-site request forgery)', async () => {
     const page = (await launchAs(learner)).body;
     await expectRefused(await enter(page, { origin: 'https://elsewhere.invalid', host: 'localhost:80' }), 'ticket-cross-site');
+    // A browser's own word (Fetch Metadata) is taken first; `Origin: null` (a page without referrers) is no origin.
+    await expectRefused(await enter(page, { 'sec-fetch-site': 'cross-site', origin: 'http://localhost:80', host: 'localhost:80' }), 'ticket-cross-site');
+    await expectRefused(await enter(page, { origin: 'null', host: 'localhost:80' }), 'ticket-cross-site');
     expect((await enter(page)).statusCode).toBe(303);
     await expectRefused(await enter(page), 'ticket-unknown');
   });

@@ -31,6 +31,14 @@ export interface AuthRequest {
   loginHint: string;
 }
 
+const escape = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+
+/** A page that form-posts its fields at once, as a platform's browser pages do. */
+function postingPage(action: string, fields: Record<string, string>): string {
+  const inputs = Object.entries(fields).map(([name, value]) => `<input type="hidden" name="${escape(name)}" value="${escape(value)}">`);
+  return `<!doctype html><html><body><form method="post" action="${escape(action)}">${inputs.join('')}</form><script>document.forms[0].submit()</script></body></html>`;
+}
+
 export class TestPlatform {
   readonly clientId = 'rateproof-tool-1';
   readonly deploymentId = 'deployment-1';
@@ -47,11 +55,11 @@ export class TestPlatform {
 
   static async start(): Promise<TestPlatform> {
     const holder: { platform?: TestPlatform } = {};
-    // Security Framework 1.0, 6.3: the platform publishes its public keys as a JWK Set at a URL.
     const server = createServer((request, response) => {
-      if (request.url === '/jwks') {
-        response.writeHead(200, { 'content-type': 'application/json' }).end(JSON.stringify({ keys: holder.platform!.jwks }));
-      } else response.writeHead(404).end();
+      holder.platform!.answer(request.url ?? '/').then(
+        ({ type, body }) => response.writeHead(200, { 'content-type': type }).end(body),
+        (error: Error) => response.writeHead(error.message === 'not found' ? 404 : 400, { 'content-type': 'text/plain' }).end(error.message),
+      );
     });
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -59,6 +67,28 @@ export class TestPlatform {
     holder.platform = platform;
     await platform.rotateKey();
     return platform;
+  }
+
+  /** The people a browser may sign in as at this platform, by their subject id (the login hint). */
+  readonly users = new Map<string, PlatformUser>();
+
+  /**
+   * The platform's pages, for a browser: its key set (Security Framework 1.0, 6.3); a start page that
+   * initiates login at the tool by form POST (5.1.1.1); and its authorisation endpoint, which answers
+   * the tool's authentication request with the id_token form-posted back (5.1.1.2-5.1.1.3).
+   */
+  private async answer(path: string): Promise<{ type: string; body: string }> {
+    const url = new URL(path, this.base);
+    if (url.pathname === '/jwks') return { type: 'application/json', body: JSON.stringify({ keys: this.jwks }) };
+    const user = this.users.get(url.searchParams.get(url.pathname === '/auth' ? 'login_hint' : 'sub') ?? '');
+    if (url.pathname === '/start' && user) {
+      return { type: 'text/html', body: postingPage(`${url.searchParams.get('tool')}/v1/lti/login`, this.loginInitiation(user, url.searchParams.get('tool')!)) };
+    }
+    if (url.pathname === '/auth' && user) {
+      const auth = this.readAuthRequest(url.toString(), user);
+      return { type: 'text/html', body: postingPage(auth.redirectUri, { id_token: await this.idToken(user, auth.nonce), state: auth.state }) };
+    }
+    throw new Error('not found');
   }
 
   get issuer(): string {
