@@ -287,6 +287,12 @@ describe('LTI 1.3 launch from a test platform', () => {
     await expectRefused(await enter(page), 'ticket-unknown');
   });
 
+  it('form posts are read on the LTI routes only: a form another site posts to a sign-in route is a 415', async () => {
+    const res = await app.inject({ method: 'POST', url: '/v1/session', headers: FORM, payload: form({ token: seed.instructorToken }) });
+    expect(res.statusCode).toBe(415);
+    expect(res.headers['set-cookie']).toBeUndefined();
+  });
+
   it('the log names no subject id and no name of anyone who launched (common practice, no source: personal data only as ids)', () => {
     const text = log.join('\n');
     expect(log.length).toBeGreaterThan(0);
