@@ -14,8 +14,8 @@ import { HtmlPage, KeySet, LaunchPost, LoginInitiation, TicketPost } from '../..
 const LAUNCH_PATH = '/v1/lti/launch';
 
 /**
- * A refusal (401, an HTML page rather than the API's error body: a browser shows it): its reason code logged (the code only: no claim, no name, no subject id) and a page
- * naming the code; no session is made.
+ * A refusal: a 401 with a page naming its reason code (HTML, not the API's error body: a browser
+ * shows it), the code logged alone (no claim, no name, no subject id), and no session.
  */
 function refuse(request: FastifyRequest, reply: FastifyReply, error: unknown): FastifyReply {
   if (!(error instanceof LaunchRefused)) throw error;

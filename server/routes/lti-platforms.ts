@@ -6,7 +6,7 @@ import { IdParam } from '../http/schemas.ts';
 import { ensureSigningKey, rotateSigningKey } from '../lti/tool-keys.ts';
 import { getCourse } from '../store/courses.ts';
 import type { Database } from '../store/database.ts';
-import { createPlatform, getPlatform, listPlatforms, placeResourceLink, registeredAs, updatePlatform } from '../store/lti-platforms.ts';
+import { createPlatform, getPlatform, hasPlacements, listPlatforms, placeResourceLink, registeredAs, updatePlatform } from '../store/lti-platforms.ts';
 import { KeyRotated, Placement, PlacementChange, Platform, PlatformList, PlatformRegistration } from '../../schemas/api/lti.ts';
 
 const OfSectionAssignment = z.object({ sectionId: IdParam, assignmentId: IdParam });
@@ -54,8 +54,13 @@ export const ltiPlatformRoutes = [
     summary: "Replace a platform's registration whole (its deployment ids with it)",
     schema: { params: OfPlatform, body: PlatformRegistration, response: { 200: Platform } },
     async handler({ db, params, body }) {
-      if (!(await getPlatform(db, params.platformId))) throw new ApiError('not-found');
+      const before = await getPlatform(db, params.platformId);
+      if (!before) throw new ApiError('not-found');
       await checkRegistration(db, body, params.platformId);
+      // Its placements name sections and assignments of the course it was bound to.
+      if (body.courseId !== before.courseId && (await hasPlacements(db, before.id))) {
+        throw new ApiError('conflict', "the platform's resource links are placed in its course; it cannot move to another", [{ path: 'body.courseId', message: 'resource links are placed in the current course' }]);
+      }
       return (await updatePlatform(db, params.platformId, body))!;
     },
   }),

@@ -83,6 +83,11 @@ export async function placeResourceLink(
     .execute();
 }
 
+/** Whether any of a platform's resource links is placed (its course then cannot change under them). */
+export async function hasPlacements(db: Kysely<Database>, platformId: number): Promise<boolean> {
+  return (await db.selectFrom('lti_placements').select('platform_id').where('platform_id', '=', platformId).limit(1).executeTakeFirst()) !== undefined;
+}
+
 /** Where a resource link was placed, if it was. */
 export async function placementOf(db: Kysely<Database>, platformId: number, contextId: string, resourceLinkId: string) {
   return db

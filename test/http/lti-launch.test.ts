@@ -333,5 +333,9 @@ describe('LTI 1.3 launch from a test platform', () => {
     const bad = await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, { ...platform.registration(seed.course.id), jwksUrl: 'not a url' }, 400);
     expect(bad.body.error.details.map((d: { path: string }) => d.path)).toContain('body.jwksUrl');
     await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(seed.course.id), 409);
+    // Its resource link is placed in this course (the set-up), so it cannot be bound to another.
+    const other = await call(app, 'POST', '/v1/courses', ADMIN_TOKEN, { name: 'Another course (invented)' }, 201);
+    const moved = await call(app, 'PUT', `/v1/lti/platforms/${registered.id}`, ADMIN_TOKEN, { ...platform.registration(other.body.id) }, 409);
+    expect(moved.body.error.details[0].path).toBe('body.courseId');
   });
 });
