@@ -10,6 +10,7 @@ import * as latestResults from './2026-12-05T1400-latest-results.ts';
 import * as regrades from './2026-12-05T1600-regrades.ts';
 import * as sectionFiles from './2026-12-05T1800-section-files.ts';
 import * as studentDoor from './2026-12-05T2000-student-door.ts';
+import * as ltiLaunch from './2026-12-05T2100-lti-launch.ts';
 import * as pageSummaries from './2026-12-05T2100-page-summaries.ts';
 
 /**
@@ -29,5 +30,6 @@ export const migrations: Record<string, Migration> = {
   '2026-12-05T1600-regrades': regrades,
   '2026-12-05T1800-section-files': sectionFiles,
   '2026-12-05T2000-student-door': studentDoor,
+  '2026-12-05T2100-lti-launch': ltiLaunch,
   '2026-12-05T2100-page-summaries': pageSummaries,
 };

@@ -15,6 +15,9 @@ declare module 'fastify' {
   }
 }
 
+/** The routes that take HTML form posts: those a learning platform's browser pages send. */
+const FORM_ROUTES = '/v1/lti/';
+
 /**
  * Bodies are decoded strictly: text that is not UTF-8 is refused, never read with replacement
  * characters, and JSON nested deeper than any body the API reads is refused before it is parsed.
@@ -35,6 +38,16 @@ export const bodyParsersPlugin = fp(async (app: FastifyInstance) => {
     } catch (error) {
       if (error instanceof ApiError) return done(error, undefined);
       done(new ApiError('invalid-input', undefined, [{ path: 'body', message: `not valid JSON: ${filePosition((error as Error).message, text)}` }]), undefined);
+    }
+  });
+  // A learning platform's browser posts forms to the LTI routes (login initiation, launch), read as
+  // an object of strings. Nowhere else: a form another site posts to a sign-in route must stay a 415.
+  app.addContentTypeParser('application/x-www-form-urlencoded', { parseAs: 'buffer' }, (request, body, done) => {
+    try {
+      if (!request.routeOptions.url?.startsWith(FORM_ROUTES)) return done(new ApiError('unsupported-media-type'), undefined);
+      done(null, Object.fromEntries(new URLSearchParams(decodeUtf8(body as Buffer, 'body'))));
+    } catch (error) {
+      done(error as Error, undefined);
     }
   });
   app.addContentTypeParser(['text/csv', 'text/plain'], { parseAs: 'buffer' }, (_request, body, done) => {

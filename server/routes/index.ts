@@ -4,6 +4,8 @@ import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
 import { deadlineRoutes } from './deadlines.ts';
 import { kindRoutes } from './kinds.ts';
+import { ltiLaunchRoutes } from './lti-launch.ts';
+import { ltiPlatformRoutes } from './lti-platforms.ts';
 import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
 import { resultRoutes } from './results.ts';
@@ -32,4 +34,6 @@ export const routes: RouteSpec[] = [
   ...signalRoutes,
   ...reportRoutes,
   ...studentPageRoutes,
+  ...ltiPlatformRoutes,
+  ...ltiLaunchRoutes,
 ];

@@ -140,4 +140,17 @@ export interface Database {
   feedback_reads: { release_id: Ref; student_row_id: Ref; first_read_at: Generated<Date> };
   /** What grade passback would send (no platform is connected yet). */
   passback_records: { id: Generated<number>; assignment_id: Ref; section_id: Ref; grades: Json<unknown>; recorded_at: Generated<Date> };
+  /** A learning platform the admin registered, bound to one course. */
+  lti_platforms: { id: Generated<number>; course_id: Ref; issuer: string; client_id: string; auth_url: string; token_url: string; jwks_url: string; created_at: Generated<Date> };
+  lti_deployments: { platform_id: Ref; deployment_id: string };
+  /** Our signing keys as JWK JSON; a retired key stays in the key set a while, for the tokens it signed. */
+  lti_keys: { kid: string; public_jwk: string; private_jwk: string; created_at: Generated<Date>; retired_at: Date | null };
+  /** A launch under way: its state (as a hash) and nonce, single use, short-lived. */
+  lti_login_states: { state_hash: string; nonce: string; platform_id: Ref; expires_at: Date; used_at: Date | null };
+  /** Someone who came by a launch: the platform's subject id, display name and roles, and who they are here. */
+  lti_users: { id: Generated<number>; platform_id: Ref; sub: string; display_name: string | null; roles: Json<string[]>; student_row_id: Ref | null; staff_id: Ref | null; first_launch_at: Generated<Date> };
+  /** A platform's resource link placed on an assignment and section. */
+  lti_placements: { platform_id: Ref; context_id: string; resource_link_id: string; assignment_id: Ref; section_id: Ref; placed_by: Ref | null; placed_at: Generated<Date> };
+  /** A verified launch waiting for its same-site step (a hash, single use, a minute long). */
+  lti_tickets: { ticket_hash: string; student_row_id: Ref | null; staff_id: Ref | null; expires_at: Date };
 }

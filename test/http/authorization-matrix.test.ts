@@ -11,7 +11,7 @@ import { ADMIN_TOKEN, call, openApi, regradeAndWait, seedCourse, submissionsFor,
  */
 type Role = 'admin' | 'instructor' | 'ta-of-section' | 'ta-of-other-section' | 'student-of-section' | 'student-of-other-section' | 'no-token' | 'bad-token';
 const roles: Role[] = ['admin', 'instructor', 'ta-of-section', 'ta-of-other-section', 'student-of-section', 'student-of-other-section', 'no-token', 'bad-token'];
-type Outcome = 'ok' | 401 | 403 | 404;
+type Outcome = 'ok' | 302 | 401 | 403 | 404;
 
 /** To a student the staff API is as if absent: every staff route answers them as a missing one. */
 const staffOnly = { 'student-of-section': 404, 'student-of-other-section': 404 } as const;
@@ -31,6 +31,8 @@ const expected: Record<Access, Record<Role, Outcome>> = {
   public: { admin: 'ok', instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'student-of-section': 'ok', 'student-of-other-section': 'ok', 'no-token': 'ok', 'bad-token': 'ok' },
 };
 
+const everyone = (outcome: Outcome): Record<Role, Outcome> => Object.fromEntries(roles.map((r) => [r, outcome])) as Record<Role, Outcome>;
+
 /**
  * Where one route's answer to a role differs from its access rule's, and why. Issuing a code records
  * the staff member who issued it, so the admin token, let through on instructor routes, is refused.
@@ -42,6 +44,13 @@ const exceptions: Record<string, Partial<Record<Role, Outcome>>> = {
   // Section A's work was released in the set-up; nothing was released to the other section's student.
   'GET /v1/student/assignments/:assignmentId/feedback': { 'student-of-other-section': 404 },
   'GET /v1/student/assignments/:assignmentId/feedback.pdf': { 'student-of-other-section': 404 },
+  // A login initiation from a registered platform redirects to it, whoever calls.
+  'GET /v1/lti/login': everyone(302),
+  'POST /v1/lti/login': everyone(302),
+  // Without a platform's signed id_token (test/http/lti-launch.test.ts runs whole launches), a launch
+  // and a ticket are refused alike for every caller: a session of any kind opens neither.
+  'POST /v1/lti/launch': everyone(401),
+  'POST /v1/lti/enter': everyone(401),
 };
 
 /** A clean submission without a student id, as a student sends their own. */
@@ -64,7 +73,20 @@ interface Fixture extends Seed {
   spare: { id: number };
   /** The access codes of the matrix's two students. */
   codes: Record<keyof typeof studentOf, string>;
+  platformId: number;
 }
+
+/** A platform registered in the set-up (nothing listens at its URLs: no launch completes in the matrix). */
+const PLATFORM_ISSUER = 'https://platform.invalid';
+const platformOf = (courseId: number) => ({
+  courseId,
+  issuer: PLATFORM_ISSUER,
+  clientId: 'client-0',
+  deploymentIds: ['deployment-1'],
+  authUrl: 'https://platform.invalid/auth',
+  tokenUrl: 'https://platform.invalid/token',
+  jwksUrl: 'https://platform.invalid/jwks',
+});
 
 let n = 0;
 const unique = () => ++n;
@@ -131,6 +153,19 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'POST /v1/student/assignments/:assignmentId/submissions': (f) => ({ url: `/v1/student/assignments/${f.assignment.id}/submissions`, body: ownSubmission(unique()) }),
   'GET /v1/student/assignments/:assignmentId/feedback': (f) => ({ url: `/v1/student/assignments/${f.assignment.id}/feedback` }),
   'GET /v1/student/assignments/:assignmentId/feedback.pdf': (f) => ({ url: `/v1/student/assignments/${f.assignment.id}/feedback.pdf` }),
+  'POST /v1/lti/platforms': (f) => ({ url: '/v1/lti/platforms', body: { ...platformOf(f.course.id), clientId: `client-${unique()}` } }),
+  'GET /v1/lti/platforms': () => ({ url: '/v1/lti/platforms' }),
+  'PUT /v1/lti/platforms/:platformId': (f) => ({ url: `/v1/lti/platforms/${f.platformId}`, body: platformOf(f.course.id) }),
+  'POST /v1/lti/keys/rotate': () => ({ url: '/v1/lti/keys/rotate' }),
+  'PUT /v1/sections/:sectionId/assignments/:assignmentId/lti-placement': (f) => ({
+    url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/lti-placement`,
+    body: { platformId: f.platformId, contextId: 'context-1', resourceLinkId: 'link-1' },
+  }),
+  'GET /v1/lti/jwks': () => ({ url: '/v1/lti/jwks' }),
+  'GET /v1/lti/login': () => ({ url: `/v1/lti/login?iss=${encodeURIComponent(PLATFORM_ISSUER)}&client_id=client-0&login_hint=user-1&target_link_uri=${encodeURIComponent('https://tool.invalid/')}` }),
+  'POST /v1/lti/login': () => ({ url: '/v1/lti/login', body: { iss: PLATFORM_ISSUER, client_id: 'client-0', login_hint: 'user-1', target_link_uri: 'https://tool.invalid/' } }),
+  'POST /v1/lti/launch': () => ({ url: '/v1/lti/launch', body: { id_token: 'not.a.token', state: 'not-a-state' } }),
+  'POST /v1/lti/enter': () => ({ url: '/v1/lti/enter', body: { ticket: 'not-a-ticket' } }),
 };
 
 describe('authorisation matrix: every route x every caller', () => {
@@ -175,7 +210,8 @@ describe('authorisation matrix: every route x every caller', () => {
     const issue = async (sectionId: number, studentId: string) =>
       (await call(api.app, 'POST', `/v1/sections/${sectionId}/access-codes`, seed.instructorToken, { studentIds: [studentId] }, 201)).body.codes[0].code as string;
     const codes = { 'student-of-section': await issue(seed.sectionA.id, 'S-001'), 'student-of-other-section': await issue(seed.sectionB.id, 'S-101') };
-    f = { ...seed, regradeId: started.regradeId, fileId: file.fileId, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare, codes };
+    const platform = await call(api.app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platformOf(seed.course.id), 201);
+    f = { ...seed, regradeId: started.regradeId, fileId: file.fileId, submissionId: stored.body.stored[0].submissionId, findingId: 'sign-flipped@runs[0].reported.k', spare, codes, platformId: platform.body.id };
   }, 60_000);
   afterAll(async () => api?.close());
 

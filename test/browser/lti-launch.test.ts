@@ -1,0 +1,68 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ADMIN_TOKEN, call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
+import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
+import { PLATFORM_ROLES, TestPlatform } from '../support/lti-platform/test-platform.ts';
+
+if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
+
+/**
+ * A launch in a real browser, the whole way: the test platform (at 127.0.0.1) initiates login by a
+ * form POST, the tool (at localhost: another site) redirects to the platform, the platform form-posts
+ * the id_token back across sites, and the tool's page carries the launch to a same-site step where
+ * the SameSite=Strict session cookie is set. That the student's and instructor's sessions then work
+ * shows the cookie reasoning of docs/lti.md holds in Chromium.
+ */
+describe.skipIf(!chromiumPresent)('an LTI launch in a browser', () => {
+  let api: Api;
+  let s: Seed;
+  let browser: Browser;
+  let platform: TestPlatform;
+  let tool = '';
+
+  beforeAll(async () => {
+    api = await openApi();
+    s = await seedCourse(api.app);
+    const address = await api.app.listen({ port: 0, host: '127.0.0.1' });
+    tool = address.replace('127.0.0.1', 'localhost');
+    platform = await TestPlatform.start();
+    const registered = await call(api.app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(s.course.id), 201);
+    await call(api.app, 'PUT', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/lti-placement`, s.instructorToken, { platformId: registered.body.id, contextId: platform.contextId, resourceLinkId: platform.resourceLinkId }, 200);
+    platform.users.set('sub-browser-learner', { sub: 'sub-browser-learner', name: 'Fay Lindqvist', roles: PLATFORM_ROLES.learner });
+    platform.users.set('sub-browser-instructor', { sub: 'sub-browser-instructor', name: 'Gus Hartwell', roles: PLATFORM_ROLES.instructor });
+    browser = await launchChromium();
+  }, 60_000);
+  afterAll(async () => {
+    await browser?.close();
+    await platform?.close();
+    await api?.close();
+  });
+
+  async function launch(sub: string) {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await page.goto(`${platform.base}/start?sub=${sub}&tool=${encodeURIComponent(tool)}`);
+    await page.waitForURL(`${tool}/`, { timeout: 15_000 });
+    const cookies = await context.cookies(tool);
+    const answer = async (path: string) => page.evaluate(async (p) => (await fetch(p, { credentials: 'same-origin' })).json(), path);
+    return { context, cookies, answer, errors };
+  }
+
+  it('a learner ends on the tool with a Strict session cookie, and their own pages answer', async () => {
+    const { context, cookies, answer, errors } = await launch('sub-browser-learner');
+    expect(cookies.map((c) => [c.name, c.sameSite, c.httpOnly])).toEqual([['rateproof_session', 'Strict', true]]);
+    expect(await answer('/v1/session')).toEqual({ signedIn: true, as: 'student' });
+    expect((await answer('/v1/student/me')).section.id).toBe(s.sectionA.id);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('an instructor ends in the staff workspace as an instructor of the course', async () => {
+    const { context, answer } = await launch('sub-browser-instructor');
+    expect(await answer('/v1/session')).toEqual({ signedIn: true, as: 'staff' });
+    expect((await answer('/v1/me')).role).toBe('instructor');
+    await context.close();
+  });
+});

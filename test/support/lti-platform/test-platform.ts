@@ -1,0 +1,171 @@
+import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { exportJWK, generateKeyPair, SignJWT, type CryptoKey, type JWK } from 'jose';
+
+/**
+ * A learning platform of our own making, written from the 1EdTech specifications (LTI Core 1.3 and
+ * the Security Framework 1.0): its own RS256 key pair, its key set served over HTTP on a free port,
+ * login initiation, and id_token issue. No platform product is run or imitated.
+ */
+
+const LTI = 'https://purl.imsglobal.org/spec/lti/claim/';
+const MEMBERSHIP = 'http://purl.imsglobal.org/vocab/lis/v2/membership';
+/** Context roles (LTI Core 1.3, A.2.3); a TA is sent with its principal role too (A.2.3.1). */
+export const PLATFORM_ROLES = {
+  learner: [`${MEMBERSHIP}#Learner`],
+  instructor: [`${MEMBERSHIP}#Instructor`],
+  ta: [`${MEMBERSHIP}#Instructor`, `${MEMBERSHIP}/Instructor#TeachingAssistant`],
+  mentor: [`${MEMBERSHIP}#Mentor`],
+} as const;
+
+export interface PlatformUser {
+  sub: string;
+  name: string;
+  roles: readonly string[];
+}
+
+export interface AuthRequest {
+  state: string;
+  nonce: string;
+  redirectUri: string;
+  loginHint: string;
+}
+
+const escape = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+
+/** A page that form-posts its fields at once, as a platform's browser pages do. */
+function postingPage(action: string, fields: Record<string, string>): string {
+  const inputs = Object.entries(fields).map(([name, value]) => `<input type="hidden" name="${escape(name)}" value="${escape(value)}">`);
+  return `<!doctype html><html><body><form method="post" action="${escape(action)}">${inputs.join('')}</form><script>document.forms[0].submit()</script></body></html>`;
+}
+
+export class TestPlatform {
+  readonly clientId = 'rateproof-tool-1';
+  readonly deploymentId = 'deployment-1';
+  readonly contextId = 'context-kinetics-1';
+  readonly resourceLinkId = 'link-lab-3';
+  private keyCount = 0;
+
+  private constructor(
+    private readonly server: Server,
+    readonly base: string,
+    private key: { privateKey: CryptoKey; kid: string },
+    private jwks: JWK[],
+  ) {}
+
+  static async start(): Promise<TestPlatform> {
+    const holder: { platform?: TestPlatform } = {};
+    const server = createServer((request, response) => {
+      holder.platform!.answer(request.url ?? '/').then(
+        ({ type, body }) => response.writeHead(200, { 'content-type': type }).end(body),
+        (error: Error) => response.writeHead(error.message === 'not found' ? 404 : 400, { 'content-type': 'text/plain' }).end(error.message),
+      );
+    });
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    const platform = new TestPlatform(server, base, { privateKey: undefined as never, kid: '' }, []);
+    holder.platform = platform;
+    await platform.rotateKey();
+    return platform;
+  }
+
+  /** The people a browser may sign in as at this platform, by their subject id (the login hint). */
+  readonly users = new Map<string, PlatformUser>();
+
+  /**
+   * The platform's pages, for a browser: its key set (Security Framework 1.0, 6.3); a start page that
+   * initiates login at the tool by form POST (5.1.1.1); and its authorisation endpoint, which answers
+   * the tool's authentication request with the id_token form-posted back (5.1.1.2-5.1.1.3).
+   */
+  private async answer(path: string): Promise<{ type: string; body: string }> {
+    const url = new URL(path, this.base);
+    if (url.pathname === '/jwks') return { type: 'application/json', body: JSON.stringify({ keys: this.jwks }) };
+    const user = this.users.get(url.searchParams.get(url.pathname === '/auth' ? 'login_hint' : 'sub') ?? '');
+    if (url.pathname === '/start' && user) {
+      return { type: 'text/html', body: postingPage(`${url.searchParams.get('tool')}/v1/lti/login`, this.loginInitiation(user, url.searchParams.get('tool')!)) };
+    }
+    if (url.pathname === '/auth' && user) {
+      const auth = this.readAuthRequest(url.toString(), user);
+      return { type: 'text/html', body: postingPage(auth.redirectUri, { id_token: await this.idToken(user, auth.nonce), state: auth.state }) };
+    }
+    throw new Error('not found');
+  }
+
+  get issuer(): string {
+    return this.base;
+  }
+
+  /** What the admin registers of this platform in Rateproof. */
+  registration(courseId: number) {
+    return { courseId, issuer: this.issuer, clientId: this.clientId, deploymentIds: [this.deploymentId], authUrl: `${this.base}/auth`, tokenUrl: `${this.base}/token`, jwksUrl: `${this.base}/jwks` };
+  }
+
+  /** A new key pair signs from now on; the old public key stays in the set. */
+  async rotateKey(): Promise<void> {
+    const { publicKey, privateKey } = await generateKeyPair('RS256');
+    const kid = `platform-key-${++this.keyCount}`;
+    this.key = { privateKey, kid };
+    this.jwks.push({ ...(await exportJWK(publicKey)), kid, alg: 'RS256', use: 'sig' });
+  }
+
+  /** Security Framework 1.0, 5.1.1.1: the third-party initiated login's parameters, for one user. */
+  loginInitiation(user: PlatformUser, toolBase: string): Record<string, string> {
+    return {
+      iss: this.issuer,
+      login_hint: user.sub,
+      target_link_uri: `${toolBase}/`,
+      lti_message_hint: this.resourceLinkId,
+      client_id: this.clientId,
+      lti_deployment_id: this.deploymentId,
+    };
+  }
+
+  /**
+   * The platform's side of the authentication request (Security Framework 1.0, 5.1.1.2): the tool's
+   * redirect must carry every parameter the specification names, with these values; throws otherwise.
+   */
+  readAuthRequest(location: string, user: PlatformUser): AuthRequest {
+    const url = new URL(location);
+    if (`${url.origin}${url.pathname}` !== `${this.base}/auth`) throw new Error(`not this platform's auth URL: ${url.origin}${url.pathname}`);
+    const p = url.searchParams;
+    const want = { scope: 'openid', response_type: 'id_token', response_mode: 'form_post', prompt: 'none', client_id: this.clientId, login_hint: user.sub, lti_message_hint: this.resourceLinkId };
+    for (const [name, value] of Object.entries(want)) if (p.get(name) !== value) throw new Error(`${name} is ${p.get(name)}, not ${value}`);
+    for (const name of ['state', 'nonce', 'redirect_uri']) if (!p.get(name)) throw new Error(`${name} missing`);
+    return { state: p.get('state')!, nonce: p.get('nonce')!, redirectUri: p.get('redirect_uri')!, loginHint: user.sub };
+  }
+
+  /** The claims of a resource link launch (LTI Core 1.3, 5.3 and 5.4) for a user. */
+  launchClaims(user: PlatformUser, nonce: string): Record<string, unknown> {
+    return {
+      nonce,
+      name: user.name,
+      [`${LTI}message_type`]: 'LtiResourceLinkRequest',
+      [`${LTI}version`]: '1.3.0',
+      [`${LTI}deployment_id`]: this.deploymentId,
+      [`${LTI}target_link_uri`]: 'ignored-by-the-tool',
+      [`${LTI}resource_link`]: { id: this.resourceLinkId },
+      [`${LTI}roles`]: [...user.roles],
+      [`${LTI}context`]: { id: this.contextId },
+    };
+  }
+
+  /**
+   * An id_token (Security Framework 1.0, 5.1.1.3 and 5.1.2) signed with this platform's key: iss, sub,
+   * aud our client id, iat now, exp in 5 minutes; `change` alters claims or the times for a test.
+   */
+  async idToken(user: PlatformUser, nonce: string, change: { claims?: Record<string, unknown>; iat?: number; exp?: number; iss?: string; aud?: string | string[]; key?: CryptoKey } = {}): Promise<string> {
+    const now = Math.floor(Date.now() / 1000);
+    return new SignJWT({ ...this.launchClaims(user, nonce), ...change.claims })
+      .setProtectedHeader({ alg: 'RS256', kid: this.key.kid, typ: 'JWT' })
+      .setIssuer(change.iss ?? this.issuer)
+      .setSubject(user.sub)
+      .setAudience(change.aud ?? this.clientId)
+      .setIssuedAt(change.iat ?? now)
+      .setExpirationTime(change.exp ?? now + 300)
+      .sign(change.key ?? this.key.privateKey);
+  }
+
+  async close(): Promise<void> {
+    await new Promise<void>((resolve) => this.server.close(() => resolve()));
+  }
+}
