@@ -14,6 +14,10 @@ export interface StoredKey {
  * kept as JWK JSON in the database, not encrypted at rest (docs/lti.md says so).
  */
 export async function addSigningKey(db: Kysely<Database>, key: StoredKey): Promise<string | undefined> {
+  // Rotations take turns (this lock mode conflicts with itself, not with readers of the key set): a
+  // second rotation at the same moment then retires the first's new key instead of meeting the
+  // one-signing-key index with a 500.
+  await sql`LOCK TABLE lti_keys IN SHARE ROW EXCLUSIVE MODE`.execute(db);
   const retired = await db.updateTable('lti_keys').set({ retired_at: sql<Date>`now()` }).where('retired_at', 'is', null).returning('kid').execute();
   await db.insertInto('lti_keys').values({ kid: key.kid, public_jwk: JSON.stringify(key.publicJwk), private_jwk: JSON.stringify(key.privateJwk) }).execute();
   return retired[0]?.kid;

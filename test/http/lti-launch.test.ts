@@ -324,6 +324,24 @@ describe('LTI 1.3 launch from a test platform', () => {
     for (const k of after.keys) expect(Object.keys(k).sort()).toEqual(['alg', 'e', 'kid', 'kty', 'n', 'use']);
   });
 
+  it('six rotations at once all succeed, one after another: one key signs, the others stay served (no 500)', async () => {
+    const before = (await app.inject({ method: 'GET', url: '/v1/lti/jwks' })).json();
+    const rotations = await Promise.all([1, 2, 3, 4, 5, 6].map(() => app.inject({ method: 'POST', url: '/v1/lti/keys/rotate', headers: { authorization: `Bearer ${ADMIN_TOKEN}` } })));
+    expect(rotations.map((r) => r.statusCode)).toEqual([201, 201, 201, 201, 201, 201]);
+    const kids = rotations.map((r) => r.json().kid as string);
+    // Taking turns, each rotation retires the key that signed just before it: the retired kids are the
+    // signing key before the six and five of the six new ones, each once (hand-worked). Without the
+    // turns, some of the six met the one-signing-key index and answered 500.
+    const retired = rotations.map((r) => r.json().retired as string);
+    expect(new Set(retired).size).toBe(6);
+    expect(retired).toContain(before.keys[0].kid);
+    const signing = (await signingKey(database.store.db))!.kid;
+    expect(kids).toContain(signing);
+    expect(retired).not.toContain(signing);
+    const served = (await app.inject({ method: 'GET', url: '/v1/lti/jwks' })).json().keys.map((k: { kid: string }) => k.kid);
+    for (const kid of [...kids, before.keys[0].kid]) expect(served).toContain(kid);
+  });
+
   it('registration: the admin lists and replaces a platform; a bad URL is a 400 naming the field', async () => {
     const list = await call(app, 'GET', '/v1/lti/platforms', ADMIN_TOKEN, undefined, 200);
     const registered = list.body.platforms.find((p: { issuer: string }) => p.issuer === platform.issuer);
