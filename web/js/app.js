@@ -110,7 +110,10 @@ async function route() {
   try {
     if (!me) {
       // The probe answers 200 either way, so a visitor not yet signed in sees no failed request.
-      if (!(/** @type {SessionState} */ (await api('GET', '/v1/session'))).signedIn) {
+      const state = /** @type {SessionState & { as?: 'staff' | 'student' | null }} */ (await api('GET', '/v1/session'));
+      // A student's session belongs on the students' pages.
+      if (state.as === 'student') return location.replace('/student');
+      if (!state.signedIn) {
         fill(who);
         show(signInView(route));
         return;
