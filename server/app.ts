@@ -1,6 +1,8 @@
+import rateLimit from '@fastify/rate-limit';
 import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
 import { serializerCompiler, validatorCompiler } from 'fastify-type-provider-zod';
 import type { Config } from './config.ts';
+import { ApiError } from './errors.ts';
 import { poolGrader, type Grader } from './grading/grader.ts';
 import { Regrades } from './grading/regrade.ts';
 import { startServiceJobs } from './grading/service-jobs.ts';
@@ -34,6 +36,9 @@ export interface AppOptions {
   /** Off in tests; pino otherwise. Logs carry request ids and URLs only, never bodies or tokens. */
   logger?: boolean | { stream: NodeJS.WritableStream };
 }
+
+/** Access-code sign-ins one address may try in a minute, unless configured. */
+const CODE_TRIES_PER_MINUTE = 10;
 
 const ROUTE_WORDS = urlWords(routes);
 
@@ -83,6 +88,14 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
   await app.register(metricsPlugin, { metrics, token: options.config.metricsToken });
   await app.register(docsPlugin);
   await app.register(probesPlugin);
+
+  // Off unless a route asks (`rateLimited`): only guessable secrets, such as access codes, are limited per address.
+  await app.register(rateLimit, {
+    global: false,
+    max: options.config.codeTriesPerMinute ?? CODE_TRIES_PER_MINUTE,
+    timeWindow: 60_000,
+    errorResponseBuilder: (_request, context) => new ApiError('too-many-requests', `too many tries from this address; try again in ${context.after}`),
+  });
 
   await app.register(routeTablePlugin, { routes });
   await app.register(workspaceFilesPlugin);

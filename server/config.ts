@@ -20,6 +20,8 @@ export const ConfigSchema = z.object({
   RATEPROOF_WORKERS: z.string().trim().regex(/^\d+$/, 'a whole number of threads').transform(Number).pipe(z.number().max(64)).optional(),
   /** Sections of more submissions than this get their ZIP and summary from a job (202, then the stored file); default 200. */
   RATEPROOF_BIG_SECTION: z.string().trim().regex(/^\d+$/, 'a whole number of students').transform(Number).pipe(z.number().max(1_000_000)).optional(),
+  /** Access-code sign-ins one address may try in a minute; default 10. */
+  RATEPROOF_CODE_TRIES: z.string().trim().regex(/^\d+$/, 'a whole number of tries').transform(Number).pipe(z.number().min(1).max(100_000)).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -39,6 +41,8 @@ export interface Config {
   secureCookie?: 'auto' | 'always';
   /** Sections of more submissions than this get their ZIP and summary drawn by a job; unset: 200. */
   bigSection?: number;
+  /** Access-code sign-ins one address may try in a minute (guessing codes is slowed); unset: 10. */
+  codeTriesPerMinute?: number;
   /** What this process does (`rateproof serve` flags): serve requests and work jobs (the default), or one of them. */
   role?: ProcessRole;
 }
@@ -87,5 +91,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     secureCookie: c.RATEPROOF_SECURE_COOKIE,
     workers: c.RATEPROOF_WORKERS,
     bigSection: c.RATEPROOF_BIG_SECTION,
+    codeTriesPerMinute: c.RATEPROOF_CODE_TRIES,
   };
 }

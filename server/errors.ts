@@ -17,6 +17,7 @@ export const apiErrors = {
   'nothing-stored': { status: 422, message: 'no submission in the request is valid; nothing was stored' },
   'missing-settings': { status: 422, message: 'a PUT replaces the settings whole: state every setting the assignment has (null clears one), or send PATCH to change some' },
   'beyond-rubric-item': { status: 422, message: "the points are beyond what the finding's rubric item has left; nothing was stored" },
+  'too-many-requests': { status: 429, message: 'too many tries from this address; wait a minute and try again' },
   'database-unavailable': { status: 503, message: 'the database cannot be reached just now; nothing was changed, so send the request again shortly' },
   'internal': { status: 500, message: 'internal error' },
 } as const;

@@ -4,8 +4,9 @@ import type { Config } from '../config.ts';
 import { ApiError } from '../errors.ts';
 import type { Store } from '../store/connection.ts';
 import { sessionCaller } from '../store/sessions.ts';
+import { STUDENT_SESSION_PREFIX, studentSessionCaller } from '../store/student-access.ts';
 import { findCaller } from '../store/tokens.ts';
-import type { Caller } from './access.ts';
+import type { Caller, StaffSideCaller } from './access.ts';
 import { sameSecret } from './same-secret.ts';
 import { csrfMatches, readSessionCookie } from './session-cookie.ts';
 
@@ -25,14 +26,20 @@ const BEARER = /^bearer +(\S+) *$/i;
 export const bearerToken = (request: FastifyRequest): string | undefined => BEARER.exec(request.headers.authorization ?? '')?.[1];
 
 /** The admin or staff token of `Authorization: Bearer`, if the request carries one. */
-export async function tokenCaller(token: string, store: Store, config: Config): Promise<Caller | undefined> {
+export async function tokenCaller(token: string, store: Store, config: Config): Promise<StaffSideCaller | undefined> {
   if (config.adminToken && sameSecret(token, config.adminToken)) return { kind: 'admin' };
   return findCaller(store.db, token);
 }
 
+/** The staff member or student behind a session cookie's value: a student's session is marked by its prefix. */
+export function sessionOwner(store: Store, session: string): Promise<Caller | undefined> {
+  return session.startsWith(STUDENT_SESSION_PREFIX) ? studentSessionCaller(store.db, session) : sessionCaller(store.db, session);
+}
+
 /**
- * Who sent a request: a bearer token (scripts, the command line) or the workspace's session cookie.
- * Under a cookie, a change needs the page's `x-csrf-token` as well, which another site cannot know.
+ * Who sent a request: a bearer token (scripts, the command line) or a session cookie, a staff
+ * member's or a student's. Under a cookie, a change needs the page's `x-csrf-token` as well, which
+ * another site cannot know.
  */
 export async function callerOf(request: FastifyRequest, store: Store, config: Config): Promise<Caller> {
   const token = bearerToken(request);
@@ -43,7 +50,7 @@ export async function callerOf(request: FastifyRequest, store: Store, config: Co
   }
   const session = readSessionCookie(request);
   if (!session) throw new ApiError('unauthenticated');
-  const caller = await sessionCaller(store.db, session);
+  const caller = await sessionOwner(store, session);
   if (!caller) throw new ApiError('unauthenticated', 'the session has ended; sign in again');
   if (!READS.has(request.method) && !csrfMatches(session, request.headers['x-csrf-token'])) {
     throw new ApiError('forbidden', 'a change made with a session cookie needs the x-csrf-token header of the page');

@@ -3,7 +3,7 @@ import fp from 'fastify-plugin';
 import type { ZodTypeProvider } from 'fastify-type-provider-zod';
 import type { z } from 'zod';
 import { apiErrors } from '../errors.ts';
-import type { Access } from './access.ts';
+import type { Access, CallerAt } from './access.ts';
 import { identifyCaller } from './caller.ts';
 import { keepIdempotent, replayIdempotent } from './idempotency.ts';
 import { readUpload } from './multipart-csv.ts';
@@ -31,10 +31,14 @@ export interface RouteSchema {
 
 type ParamsOf<S extends RouteSchema> = S['params'] extends z.ZodType ? z.output<S['params']> : Record<never, never>;
 
-/** A handler's request: params, query and body typed by the route's zod schemas, the scope by its URL's ids. */
-export type RouteRequest<S extends RouteSchema, Prepared = unknown> = FastifyRequest<RouteGenericInterface, RawServerDefault, RawRequestDefaultExpression, S, ZodTypeProvider> & {
+/**
+ * A handler's request: params, query and body typed by the route's zod schemas, the scope by its URL's
+ * ids, the caller by its access level (a student never reaches a staff route's handler, nor staff a student's).
+ */
+export type RouteRequest<S extends RouteSchema, Prepared = unknown, A extends Access = Access> = FastifyRequest<RouteGenericInterface, RawServerDefault, RawRequestDefaultExpression, S, ZodTypeProvider> & {
   scope: ScopeOf<ParamsOf<S>>;
   prepared: Prepared;
+  caller: CallerAt<A>;
 };
 export type RouteReply<S extends RouteSchema> = FastifyReply<RouteGenericInterface, RawServerDefault, RawRequestDefaultExpression, RawReplyDefaultExpression, ContextConfigDefault, S, ZodTypeProvider>;
 
@@ -45,10 +49,10 @@ type Answer<S extends RouteSchema> = z.input<S['response'][keyof S['response']]>
  * One route: the table of these is the API. The authorisation test walks the same table, so a new
  * route cannot escape it.
  */
-export interface Route<S extends RouteSchema, Prepared> {
+export interface Route<S extends RouteSchema, Prepared, A extends Access = Access> {
   method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   url: string;
-  access: Access;
+  access: A;
   summary: string;
   schema: S;
   /** Runs inside one database transaction (`request.db`): nothing is half-stored. */
@@ -57,19 +61,21 @@ export interface Route<S extends RouteSchema, Prepared> {
   idempotent?: boolean;
   /** Takes CSV files as a multipart upload (`request.upload`). */
   upload?: boolean;
+  /** Tries per address are limited (`config.codeTriesPerMinute`): a route that takes a guessable secret. */
+  rateLimited?: boolean;
   /**
    * Slow work done before the transaction opens (checking a batch), so that no database connection
    * is held while the workers check; its result is `request.prepared`. The scope of such a route is
    * read before its transaction.
    */
-  prepare?(request: RouteRequest<S>): Promise<Prepared>;
-  handler(request: RouteRequest<S, Prepared>, reply: RouteReply<S>): Promise<Answer<S>>;
+  prepare?(request: RouteRequest<S, unknown, A>): Promise<Prepared>;
+  handler(request: RouteRequest<S, Prepared, A>, reply: RouteReply<S>): Promise<Answer<S>>;
 }
 
 /** A route of the table, its types erased once they have checked its handler. */
 export type RouteSpec = Route<RouteSchema, unknown>;
 
-export function defineRoute<S extends RouteSchema, Prepared = undefined>(route: Route<S, Prepared>): RouteSpec {
+export function defineRoute<S extends RouteSchema, Prepared = undefined, A extends Access = Access>(route: Route<S, Prepared, A>): RouteSpec {
   return route as unknown as RouteSpec;
 }
 
@@ -98,7 +104,8 @@ export const routeTablePlugin = fp(async (app: FastifyInstance, { routes }: { ro
       method: route.method,
       url: route.url,
       schema: { ...route.schema, response: { ...errorResponses, ...route.schema.response }, summary: route.summary, 'x-access': route.access, ...(signedIn ? { security: [{ bearer: [] }] } : {}) },
-      config: { access: route.access },
+      // An empty rateLimit takes the limit the rate-limit plugin was registered with (server/app.ts).
+      config: { access: route.access, ...(route.rateLimited ? { rateLimit: {} } : {}) },
       preValidation,
       preHandler,
       ...(route.idempotent ? { preSerialization: keepIdempotent } : {}),

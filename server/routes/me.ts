@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Caller } from '../http/access.ts';
+import type { StaffSideCaller } from '../http/access.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { csrfTokenOf, readSessionCookie } from '../http/session-cookie.ts';
 import { listAssignments } from '../store/assignments.ts';
@@ -8,7 +8,7 @@ import { Me } from '../../schemas/api/me.ts';
 
 const CourseListing = z.object({ id: z.number(), name: z.string(), createdAt: z.date() });
 
-const courseIdsOf = (caller: Caller) => (caller.kind === 'admin' ? undefined : [caller.courseId]);
+const courseIdsOf = (caller: StaffSideCaller) => (caller.kind === 'admin' ? undefined : [caller.courseId]);
 
 export const meRoutes = [
   defineRoute({

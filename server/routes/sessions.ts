@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import { ApiError } from '../errors.ts';
-import { tokenCaller } from '../http/caller.ts';
+import { sessionOwner, tokenCaller } from '../http/caller.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { csrfMatches, csrfTokenOf, readSessionCookie, SESSION_HOURS, sessionCookieHeader } from '../http/session-cookie.ts';
-import { createSession, endSession, sessionCaller } from '../store/sessions.ts';
+import { createSession, endSession } from '../store/sessions.ts';
+import { endStudentSession, STUDENT_SESSION_PREFIX } from '../store/student-access.ts';
 import { Session, SessionState } from '../../schemas/api/session.ts';
 
 const SignIn = z.object({ token: z.string().min(1, 'the token is empty').max(500) });
@@ -19,11 +20,12 @@ export const sessionRoutes = [
     method: 'GET',
     url: '/v1/session',
     access: 'public',
-    summary: "Whether the request's session cookie is a live session: `{ signedIn }`, 200 either way",
+    summary: "Whether the request's session cookie is a live session, and a staff member's or a student's: `{ signedIn, as }`, 200 either way",
     schema: { response: { 200: SessionState } },
     async handler(request) {
       const session = readSessionCookie(request);
-      return { signedIn: session !== undefined && (await sessionCaller(request.db, session)) !== undefined };
+      const owner = session === undefined ? undefined : await sessionOwner(request.server.store, session);
+      return { signedIn: owner !== undefined, as: owner === undefined ? null : owner.kind === 'student' ? ('student' as const) : ('staff' as const) };
     },
   }),
   defineRoute({
@@ -46,13 +48,13 @@ export const sessionRoutes = [
     method: 'DELETE',
     url: '/v1/session',
     access: 'public',
-    summary: 'Sign out: ends the session and clears its cookie',
+    summary: "Sign out: ends the session (a staff member's or a student's) and clears its cookie",
     schema: { response: {} },
     async handler(request, reply) {
       const session = readSessionCookie(request);
       if (session) {
         if (!csrfMatches(session, request.headers['x-csrf-token'])) throw new ApiError('forbidden', 'signing out needs the x-csrf-token header of the page');
-        await endSession(request.db, session);
+        await (session.startsWith(STUDENT_SESSION_PREFIX) ? endStudentSession(request.db, session) : endSession(request.db, session));
       }
       reply.header('set-cookie', sessionCookieHeader(request, '', 0, request.server.config.secureCookie === 'always'));
       return reply.code(204).send();

@@ -17,6 +17,8 @@ const expected: Record<Access, Record<Role, 'ok' | 401 | 403 | 404>> = {
   course: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
   section: { admin: 403, instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 404, 'no-token': 401, 'bad-token': 401 },
   'signed-in': { admin: 'ok', instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 401, 'bad-token': 401 },
+  // The students' own routes: to staff and the admin token they are as if absent.
+  student: { admin: 404, instructor: 404, 'ta-of-section': 404, 'ta-of-other-section': 404, 'no-token': 401, 'bad-token': 401 },
   // Signing in and out: whatever the Authorization header says, the body's token (or the cookie) decides.
   public: { admin: 'ok', instructor: 'ok', 'ta-of-section': 'ok', 'ta-of-other-section': 'ok', 'no-token': 'ok', 'bad-token': 'ok' },
 };

@@ -55,10 +55,10 @@ describe('workspace sessions', () => {
   it('answers the page\'s session probe with 200 and whether the cookie is a live session', async () => {
     const probe = (cookie?: string) => api.app.inject({ method: 'GET', url: '/v1/session', headers: cookie ? { cookie } : {} });
     const none = await probe();
-    expect([none.statusCode, none.json()]).toEqual([200, { signedIn: false }]);
-    expect((await probe(`${SESSION_COOKIE}=not-a-session`)).json()).toEqual({ signedIn: false });
+    expect([none.statusCode, none.json()]).toEqual([200, { signedIn: false, as: null }]);
+    expect((await probe(`${SESSION_COOKIE}=not-a-session`)).json()).toEqual({ signedIn: false, as: null });
     const { cookie } = await signIn(s.taAToken);
-    expect((await probe(cookie)).json()).toEqual({ signedIn: true });
+    expect((await probe(cookie)).json()).toEqual({ signedIn: true, as: 'staff' });
   });
 
   it('refuses the admin token, a wrong token and an empty one, each with its reason', async () => {
