@@ -103,3 +103,16 @@ export const Band = z
   .object({ min: FiniteNumber, max: FiniteNumber, unit: UnitText })
   .refine((b) => b.min < b.max, 'min must be below max');
 export type Band = z.infer<typeof Band>;
+
+/**
+ * What becomes of work stored after its deadline: graded as usual, graded less `points`, or held
+ * until a TA accepts it. Under 'deduct' the points must be above zero, else it would be 'grade'.
+ */
+export const LatePolicy = z
+  .object({
+    policy: z.enum(['grade', 'deduct', 'hold']).default('grade'),
+    points: z.number().nonnegative().max(1000).default(0),
+  })
+  .refine((late) => late.policy !== 'deduct' || late.points > 0, { path: ['points'], message: 'points must be above 0 when late work is graded with a deduction' });
+export type LatePolicy = z.infer<typeof LatePolicy>;
+export const LATE_POLICY_DEFAULT: LatePolicy = { policy: 'grade', points: 0 };

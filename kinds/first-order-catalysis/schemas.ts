@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { Band, FiniteNumber, withFastPath, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../../schemas/common.ts';
+import { Band, FiniteNumber, withFastPath, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
 import { Estimate, RefitValue } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
@@ -240,6 +240,7 @@ export const Settings = z.object({
     .default({ maxSpread: 1, required: false }),
   /** The equilibrium composition from each run's end value and the split of k into k_f and k_r; without it neither is asked. */
   equilibrium: Equilibrium.optional(),
+  late: LatePolicy.default(LATE_POLICY_DEFAULT),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { FiniteNumber, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../../schemas/common.ts';
+import { FiniteNumber, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
 import { Estimate, sharedFindingCodes } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
@@ -101,6 +101,7 @@ export const Settings = z.object({
   units: z.object({ time: z.enum(['s', 'min', 'h']).default('min') }).default({ time: 'min' }),
   tolerances: Tolerances.default(Tolerances.parse({})),
   rubric: Rubric.default(Rubric.parse({})),
+  late: LatePolicy.default(LATE_POLICY_DEFAULT),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { Band, FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText } from '../../schemas/common.ts';
+import { Band, FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
 import { Estimate, sharedFindingCodes } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
@@ -92,6 +92,7 @@ export const Settings = z.object({
   rubric: Rubric.default(Rubric.parse({})),
   /** Plausibility bands: a right value outside its band is a warning to look at, never points. */
   reference: z.object({ Ea: Band.optional(), A: Band.optional(), dH: Band.optional(), dS: Band.optional() }).optional(),
+  late: LatePolicy.default(LATE_POLICY_DEFAULT),
 });
 export type Settings = z.infer<typeof Settings>;
 export type SettingsInput = z.input<typeof Settings>;

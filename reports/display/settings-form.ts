@@ -16,6 +16,20 @@ export interface FormLayout {
   kept: string[];
 }
 
+/**
+ * Every kind's settings carry the late policy (schemas/common.ts LatePolicy): one fieldset, the same
+ * in every kind's form, which the kind's layout does not name.
+ */
+const LATE_WORK = {
+  label: 'Late work',
+  help: 'For work stored after the section’s deadline.',
+  keys: ['late'],
+  words: {
+    'late.policy': { label: 'Late work is', options: { grade: 'graded as if on time', deduct: 'graded, less the points below', hold: 'kept back until a TA accepts it' } },
+    'late.points': { label: 'Points taken off late work', help: 'only when late work is graded less points' },
+  } satisfies Record<string, FieldWords>,
+};
+
 /** The part of a JSON Schema document the form is made from. */
 interface Node {
   type?: string;
@@ -38,12 +52,13 @@ const isTolerance = (node: Node) => node.type === 'object' && node.properties !=
 export function settingsForm(settings: z.ZodObject, layout: FormLayout): FormGroup[] {
   const root = z.toJSONSchema(settings, { io: 'input', unrepresentable: 'any' }) as Node;
   const top = root.properties ?? {};
-  const placed = [...layout.groups.flatMap((g) => g.keys), ...layout.kept];
+  const groups = [...layout.groups, LATE_WORK];
+  const placed = [...groups.flatMap((g) => g.keys), ...layout.kept];
   const missing = Object.keys(top).filter((key) => top[key].const === undefined && !placed.includes(key));
   if (missing.length) throw new Error(`settings neither in the form nor kept: ${missing.join(', ')}`);
 
   function words(path: string): Exclude<FieldWords, string> {
-    const w = layout.words[path];
+    const w = layout.words[path] ?? (LATE_WORK.words as Record<string, FieldWords>)[path];
     if (w === undefined) throw new Error(`no label for the setting ${path}`);
     return typeof w === 'string' ? { label: w } : w;
   }
@@ -77,5 +92,5 @@ export function settingsForm(settings: z.ZodObject, layout: FormLayout): FormGro
     throw new Error(`the setting ${path} has no form control (type ${node.type})`);
   }
 
-  return layout.groups.map((g) => ({ type: 'group', label: g.label, ...(g.help && { help: g.help }), fields: g.keys.flatMap((key) => fields(key, top[key])) }));
+  return groups.map((g) => ({ type: 'group', label: g.label, ...(g.help && { help: g.help }), fields: g.keys.flatMap((key) => fields(key, top[key])) }));
 }

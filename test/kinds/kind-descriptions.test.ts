@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { kindDescriptions, kindFor } from '../../kinds/registry.ts';
 import { settingsForm } from '../../reports/display/settings-form.ts';
 import { KindList } from '../../schemas/api/kinds.ts';
-import { Tolerance } from '../../schemas/common.ts';
+import { LATE_POLICY_DEFAULT, LatePolicy, Tolerance } from '../../schemas/common.ts';
 import * as catalysisCsv from '../../kinds/first-order-catalysis/csv.ts';
 import * as temperatureCsv from '../../kinds/temperature-dependence/csv.ts';
 import * as orderCsv from '../../kinds/reaction-order/csv.ts';
@@ -43,6 +43,19 @@ describe('the kinds as the page is told of them', () => {
       expect([...top].sort()).toEqual(shape.sort());
     }
   });
+
+  it('ends every kind’s form with the one “Late work” group, the same in each', async () => {
+    const kinds = await kindDescriptions();
+    const lateGroups = kinds.map((kind) => kind.settings.form.filter((g) => g.label === 'Late work'));
+    // Hand-written from LatePolicy: a choice of three policies (grade by default) and points from 0, 0 by default.
+    for (const groups of lateGroups) {
+      expect(groups).toHaveLength(1);
+      expect(groups[0].fields.map((f) => [f.name, f.type, f.default])).toEqual([['late.policy', 'select', 'grade'], ['late.points', 'number', 0]]);
+      expect(groups[0].fields[0].type === 'select' && groups[0].fields[0].options.map((o) => o.value)).toEqual(['grade', 'deduct', 'hold']);
+    }
+    expect(new Set(lateGroups.map((g) => JSON.stringify(g))).size).toBe(1);
+    for (const kind of kinds) expect(kind.settings.form.at(-1)?.label).toBe('Late work');
+  });
 });
 
 describe('a settings form made from a settings schema', () => {
@@ -56,12 +69,14 @@ describe('a settings form made from a settings schema', () => {
     tolerances: z.object({ k: Tolerance.default({ relative: 0.02 }) }).default({ k: { relative: 0.02 } }),
     strict: z.boolean().default(true),
     dataset: z.array(z.number()).optional(),
+    late: LatePolicy.default(LATE_POLICY_DEFAULT),
   });
   const words = { fit: { label: 'Fit', options: { ordinary: 'OLS' } }, model: 'Model', step: 'Step', noise: 'Noise', 'units.k': 'k', 'tolerances.k': { label: 'k', unit: 's^-1' }, strict: 'Strict' };
   const groups = [{ label: 'All', keys: ['fit', 'model', 'step', 'noise', 'units', 'tolerances', 'strict'] }];
 
   it('gives each setting its control, default and bounds (hand-written from the schema above)', () => {
-    const [group] = settingsForm(Settings, { groups, words, kept: ['dataset'] });
+    const [group, late] = settingsForm(Settings, { groups, words, kept: ['dataset'] });
+    expect(late.label).toBe('Late work');
     expect(group.fields).toEqual([
       { name: 'fit', label: 'Fit', type: 'select', default: 'weighted', options: [{ value: 'ordinary', label: 'OLS' }, { value: 'weighted', label: 'weighted' }] },
       { name: 'model', label: 'Model', type: 'select', default: 'a', options: [{ value: 'a', label: 'a' }, { value: 'b', label: 'b' }] },

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { LATE_POLICY_DEFAULT, LatePolicy } from '../../../schemas/common.ts';
 
 /**
  * A kind that lives only in the test suite: runs of readings decaying to a known end value, each run
@@ -15,6 +16,7 @@ export const Settings = z.object({
   pointsPerRun: z.number().nonnegative().max(20).default(2),
   /** Fewer readings in a run raise the kind's own signal, few-readings. */
   minReadings: z.number().int().min(3).max(50).default(6),
+  late: LatePolicy.default(LATE_POLICY_DEFAULT),
 });
 export type Settings = z.infer<typeof Settings>;
 
