@@ -7,6 +7,16 @@ export const ResultRow = z.object({
   /** Null for a roster student who has not submitted. */
   submissionId: z.number().nullable(),
   version: z.number().nullable(),
+  /** When that version was stored; null for a roster student who has not submitted. */
+  submittedAt: z.date().nullable(),
+  /** Who sent it: `staff` (an upload for the section) or `student` (through their own door); null when nothing was submitted. */
+  source: z.enum(['staff', 'student']).nullable(),
+  /** Stored after the section's deadline (staff uploads are never late). */
+  late: z.boolean(),
+  /** Late under the hold policy and not yet accepted: a release leaves it out until a TA accepts it. */
+  held: z.boolean(),
+  /** When the student first opened the release they are shown now; null while they have not (or nothing was released). */
+  feedbackFirstReadAt: z.date().nullable(),
   /** `checked`, `rejected`, `not-submitted`, or `withdrawn` (score kept when they submitted); null while a result is missing. */
   status: z.string().nullable(),
   /** On the roster: `enrolled` or `withdrawn` (removed students are left out). */
@@ -31,6 +41,6 @@ export const ResultRow = z.object({
 });
 export type ResultRow = z.infer<typeof ResultRow>;
 
-/** How many results a release made visible to students. */
-export const Released = z.object({ released: z.number() });
+/** How many results a release made visible to students, and how many latest versions it left out as held late work. */
+export const Released = z.object({ released: z.number(), held: z.number() });
 export type Released = z.infer<typeof Released>;

@@ -47,6 +47,11 @@ export const SubmissionView = z.object({
   sectionId: z.number(),
   version: z.number(),
   submittedAt: z.date(),
+  /** Who sent it: `staff` (an upload for the section) or `student` (through their own door). */
+  source: z.enum(['staff', 'student']),
+  /** Stored after the section's deadline; `held` while a late one waits for a TA to accept it (POST .../accept-late). */
+  late: z.boolean(),
+  held: z.boolean(),
   payload: z.unknown(),
   result: ResultView.nullable(),
   overrides: z.array(Override),

@@ -100,7 +100,16 @@ export async function sectionStandings(db: Kysely<Database>, sectionId: number, 
   return (await sectionLatestResults(db, sectionId, assignmentId)).map(({ studentId, enrolment, latest }) => {
     if (!latest) return { studentId, enrolment };
     const both = resultAndRelease(latest.result, latest.release, latest.releasedRow, latest.overrides, latest.choices);
-    return { studentId, enrolment, submission: latest.submission, result: both.current, released: both.released, releasedVersion: both.releasedVersion, changedSinceRelease: both.changedSinceRelease };
+    return {
+      studentId,
+      enrolment,
+      submission: latest.submission,
+      result: both.current,
+      released: both.released,
+      releasedVersion: both.releasedVersion,
+      changedSinceRelease: both.changedSinceRelease,
+      feedbackFirstReadAt: latest.feedbackFirstReadAt,
+    };
   });
 }
 

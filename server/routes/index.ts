@@ -1,6 +1,7 @@
 import type { RouteSpec } from '../http/route-table.ts';
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
+import { deadlineRoutes } from './deadlines.ts';
 import { kindRoutes } from './kinds.ts';
 import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
@@ -22,6 +23,7 @@ export const routes: RouteSpec[] = [
   ...submissionRoutes,
   ...submissionDisplayRoutes,
   ...resultRoutes,
+  ...deadlineRoutes,
   ...signalRoutes,
   ...reportRoutes,
 ];

@@ -13,7 +13,7 @@ import { Released, ResultRow } from '../../schemas/api/results.ts';
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
 
 /** A roster student without a submission: nothing to count. */
-const NOT_SUBMITTED = { submissionId: null, version: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false };
+const NOT_SUBMITTED = { submissionId: null, version: null, submittedAt: null, source: null, late: false, held: false, feedbackFirstReadAt: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false };
 
 /**
  * Counted the way the feedback sheet groups findings: one per likely cause, so a slip repeated in four
@@ -38,11 +38,16 @@ export const resultRoutes = [
         if (!row.submission) {
           return { ...NOT_SUBMITTED, studentId: row.studentId, status: row.enrolment === 'withdrawn' ? 'withdrawn' : 'not-submitted', enrolment: row.enrolment };
         }
-        const { submission, result, released, releasedVersion, changedSinceRelease } = row;
+        const { submission, result, released, releasedVersion, changedSinceRelease, feedbackFirstReadAt } = row;
         return {
           studentId: submission.studentId,
           submissionId: submission.submissionId,
           version: submission.version,
+          submittedAt: submission.submittedAt,
+          source: submission.source,
+          late: submission.late,
+          held: submission.held,
+          feedbackFirstReadAt,
           status: submission.enrolment === 'withdrawn' ? 'withdrawn' : result.status,
           enrolment: submission.enrolment,
           score: result.score,
@@ -63,15 +68,17 @@ export const resultRoutes = [
     url: '/v1/sections/:sectionId/assignments/:assignmentId/release',
     access: 'section',
     summary:
-      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action; a release queues the section's grade passback",
+      "Release the section's latest results to students: those not yet released and those changed since their release (a regrade, an override, a new version). Nothing is released without this TA action; held late work waits until a TA accepts it (counted in `held`); a release queues the section's grade passback",
     schema: { params, response: { 200: Released } },
     transactional: true,
     async handler({ db, server, scope, caller }) {
       const latest = await latestSubmissionHeads(db, scope.assignment.id, scope.section.id);
-      const due = await releasesDue(db, latest.map((s) => s.submissionId));
+      // Held late work waits for a TA to accept it; its student keeps what was released before.
+      const held = latest.filter((s) => s.held).length;
+      const due = await releasesDue(db, latest.filter((s) => !s.held).map((s) => s.submissionId));
       await insertReleases(db, due, staffIdOf(caller));
       if (due.length > 0) await queuePassback(server.jobs, db, { assignmentId: scope.assignment.id, sectionId: scope.section.id });
-      return { released: due.length };
+      return { released: due.length, held };
     },
   }),
   defineRoute({
@@ -79,7 +86,7 @@ export const resultRoutes = [
     url: '/v1/submissions/:submissionId/release',
     access: 'section',
     summary:
-      "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since; only the student's latest version can be released (409 otherwise)",
+      "Release one student's latest result (this version's, overrides applied) to the student, when it is not yet released or changed since; only the student's latest version can be released (409 otherwise), and held late work only once accepted",
     schema: { params: z.object({ submissionId: IdParam }), response: { 200: Released } },
     transactional: true,
     async handler({ db, scope, caller }) {
@@ -91,9 +98,10 @@ export const resultRoutes = [
           { path: 'params.submissionId', message: `version ${versions.version} of ${versions.latestVersion}` },
         ]);
       }
+      if (scope.submission.held) return { released: 0, held: 1 };
       const due = await releasesDue(db, [submissionId]);
       await insertReleases(db, due, staffIdOf(caller));
-      return { released: due.length };
+      return { released: due.length, held: 0 };
     },
   }),
 ];

@@ -14,11 +14,25 @@ export interface StudentLatest {
   enrolment: EnrolmentStatus;
   /** The latest version and its latest result; absent when the student submitted nothing. */
   latest?: {
-    submission: { submissionId: number; version: number; submittedAt: Date; assignmentId: number; studentId: string; sectionId: number; courseId: number; enrolment: EnrolmentStatus };
+    submission: {
+      submissionId: number;
+      version: number;
+      submittedAt: Date;
+      assignmentId: number;
+      studentId: string;
+      sectionId: number;
+      courseId: number;
+      enrolment: EnrolmentStatus;
+      source: 'staff' | 'student';
+      late: boolean;
+      held: boolean;
+    };
     result: ResultRow;
     /** The student's latest release (of this version or an earlier one) and the result it named. */
     release?: ReleaseRow;
     releasedRow?: ResultRow;
+    /** When the student first opened that release; null while they have not. */
+    feedbackFirstReadAt: Date | null;
     /** The student's overrides and signal choices of this assignment, every version's, oldest first. */
     overrides: OverrideRow[];
     choices: SignalChoiceRow[];
@@ -27,8 +41,9 @@ export interface StudentLatest {
 
 /**
  * Every roster student of a section (removed ones left out), in student-id order, with their latest
- * version of an assignment, its latest result (without refit and settings: a table needs neither),
- * their latest release and the overrides and choices both need: one query, by key through
+ * version of an assignment (how it came in, whether late or held), its latest result (without refit
+ * and settings: a table needs neither), their latest release, when they first opened it, and the
+ * overrides and choices both need: one query, by key through
  * `latest_results` and the students' section index.
  */
 export async function sectionLatestResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<StudentLatest[]> {
@@ -91,6 +106,8 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
           .as('choiceList'),
       (join) => join.onRef('choiceList.student_row_id', '=', 'students.id'),
     )
+    // Whether the student has opened that release, by its key.
+    .leftJoin('feedback_reads', 'feedback_reads.release_id', 'release.id')
     // The released result, read again only when it is not the latest.
     .leftJoin('results as shownResult', (join) => join.on(sql<boolean>`"shownResult".id = nullif(release.result_id, latest.result_id)`))
     .select([
@@ -102,6 +119,9 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
       'submissions.id as submissionId',
       'submissions.version as version',
       'submissions.created_at as submittedAt',
+      'submissions.source as source',
+      'submissions.late as late',
+      'submissions.held as held',
       'results.id as resultId',
       'results.engine_version as engineVersion',
       'results.settings_version as settingsVersion',
@@ -118,6 +138,7 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
       'release.overrides_through as overridesThrough',
       'release.choices_through as choicesThrough',
       'release.released_at as releasedOn',
+      'feedback_reads.first_read_at as feedbackFirstReadAt',
       'shownResult.id as shownResultId',
       'shownResult.submission_id as shownSubmissionId',
       'shownResult.engine_version as shownEngineVersion',
@@ -187,7 +208,19 @@ export async function sectionLatestResults(db: Kysely<Database>, sectionId: numb
     // JSON carries times as text.
     const overrides = (r.overrides ?? []).map((o) => ({ ...o, at: new Date(o.at) }));
     const choices = (r.choices ?? []).map((c) => ({ ...c, at: new Date(c.at) }));
-    const submission = { submissionId: r.submissionId, version: r.version!, submittedAt: r.submittedAt!, assignmentId, studentId: r.studentId, sectionId: r.sectionId, courseId: r.courseId, enrolment: r.enrolment };
-    return { ...base, latest: { submission, result, release, releasedRow, overrides, choices } };
+    const submission = {
+      submissionId: r.submissionId,
+      version: r.version!,
+      submittedAt: r.submittedAt!,
+      assignmentId,
+      studentId: r.studentId,
+      sectionId: r.sectionId,
+      courseId: r.courseId,
+      enrolment: r.enrolment,
+      source: r.source!,
+      late: r.late!,
+      held: r.held!,
+    };
+    return { ...base, latest: { submission, result, release, releasedRow, feedbackFirstReadAt: r.feedbackFirstReadAt, overrides, choices } };
   });
 }

@@ -11,6 +11,19 @@ export interface NewSubmission {
   payloadJson: string;
 }
 
+/**
+ * How submissions came in: a staff upload for the section, or a student through their own door, then
+ * marked late when stored past the section's deadline and held when the late-work setting holds it.
+ */
+export interface Arrival {
+  source: 'staff' | 'student';
+  late: boolean;
+  held: boolean;
+}
+
+/** A staff upload is on time by definition: staff collect work on the students' behalf, whenever they send it. */
+export const STAFF_UPLOAD: Arrival = { source: 'staff', late: false, held: false };
+
 /** A result as stored: its figures, and its refit and findings as JSON text. */
 export interface StoredResult {
   engineVersion: string;
@@ -44,9 +57,10 @@ async function nextVersions(db: Kysely<Database>, assignmentId: number, studentR
 export async function storeGraded(
   db: Kysely<Database>,
   assignmentId: number,
-  submittedBy: number,
+  submittedBy: number | null,
   gradedWith: GradedWith,
   items: Array<NewSubmission & { result: StoredResult }>,
+  arrival: Arrival = STAFF_UPLOAD,
 ): Promise<Array<{ submissionId: number; version: number }>> {
   if (items.length === 0) return [];
   const students = [...new Set(items.map((i) => i.studentRowId))].sort((a, b) => a - b);
@@ -59,7 +73,7 @@ export async function storeGraded(
   const values = items.map((item) => {
     const version = versions.get(item.studentRowId)!;
     versions.set(item.studentRowId, version + 1);
-    return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: item.payloadJson, submitted_by: submittedBy };
+    return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: item.payloadJson, submitted_by: submittedBy, ...arrival };
   });
   const stored: Array<{ id: number; version: number }> = [];
   for (const chunk of inParts(values, ROWS_PER_INSERT)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version']).execute()));
@@ -67,7 +81,7 @@ export async function storeGraded(
   return stored.map((s) => ({ submissionId: s.id, version: s.version }));
 }
 
-// PostgreSQL takes at most 65,535 parameters in one statement: rows go in 1,000 at a time (9 columns each).
+// PostgreSQL takes at most 65,535 parameters in one statement: rows go in 1,000 at a time (at most 9 columns each).
 const ROWS_PER_INSERT = 1000;
 
 export async function insertResults(db: Kysely<Database>, gradedWith: GradedWith, items: Array<{ submissionId: number; result: StoredResult }>): Promise<void> {
@@ -137,6 +151,9 @@ const submissionHeadColumns = [
   'students.section_id as sectionId',
   'students.course_id as courseId',
   'students.status as enrolment',
+  'submissions.source as source',
+  'submissions.late as late',
+  'submissions.held as held',
 ] as const;
 
 const submissionColumns = [...submissionHeadColumns, 'submissions.payload as payload'] as const;

@@ -30,7 +30,7 @@ describe('passback and cleanup jobs', () => {
     );
     expect(records[0].grades.map(({ studentId, score, maxScore }) => ({ studentId, score, maxScore }))).toEqual(shown);
     // A release with nothing new queues nothing.
-    expect((await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/release`, s.taAToken, undefined, 200)).body).toEqual({ released: 0 });
+    expect((await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/release`, s.taAToken, undefined, 200)).body).toEqual({ released: 0, held: 0 });
   });
 
   it('deletes expired sessions and idempotency keys older than the days they are kept, and keeps the rest', async () => {

@@ -62,7 +62,7 @@ describe.skipIf(NO_SERVER)('three processes on one database: a regrade outlives 
     const submitted = await a.inject({ method: 'POST', url: `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/submissions`, headers: auth(s.taAToken), payload: submissionsFor(SUBMITTED, 5) });
     expect(submitted.statusCode).toBe(201);
     const release = await a.inject({ method: 'POST', url: `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/release`, headers: auth(s.taAToken) });
-    expect(release.json()).toEqual({ released: SUBMITTED.length });
+    expect(release.json()).toEqual({ released: SUBMITTED.length, held: 0 });
     const releasesBefore = (await admin.query('select submission_id, result_id from releases order by id')).rows;
     expect(releasesBefore).toHaveLength(SUBMITTED.length);
     const resultsPage = async (app: FastifyInstance) =>

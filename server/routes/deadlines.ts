@@ -1,0 +1,53 @@
+import { z } from 'zod';
+import { ApiError } from '../errors.ts';
+import { staffIdOf } from '../http/access.ts';
+import { defineRoute } from '../http/route-table.ts';
+import { IdParam } from '../http/schemas.ts';
+import { deadlineOf, setDeadline } from '../store/deadlines.ts';
+import { acceptLate, lateStanding } from '../store/late-work.ts';
+import { DeadlineChange, DeadlineView, LateAccepted } from '../../schemas/api/deadlines.ts';
+
+const params = z.object({ sectionId: IdParam, assignmentId: IdParam });
+const NO_DEADLINE = { dueAt: null, setBy: null, setAt: null };
+
+export const deadlineRoutes = [
+  defineRoute({
+    method: 'GET',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/deadline',
+    access: 'section',
+    summary: "The section's deadline for an assignment (null when none is set), with who set it",
+    schema: { params, response: { 200: DeadlineView } },
+    async handler({ db, scope }) {
+      return (await deadlineOf(db, scope.assignment.id, scope.section.id)) ?? NO_DEADLINE;
+    },
+  }),
+  defineRoute({
+    method: 'PUT',
+    url: '/v1/sections/:sectionId/assignments/:assignmentId/deadline',
+    access: 'instructor',
+    summary:
+      "Set the section's deadline for an assignment (null clears it): a student's submission stored after it is marked late, and the assignment's late-work setting says what that costs; marks already given stay",
+    schema: { params, body: DeadlineChange, response: { 200: DeadlineView } },
+    transactional: true,
+    async handler({ db, scope, body, caller }) {
+      await setDeadline(db, scope.assignment.id, scope.section.id, body.dueAt, staffIdOf(caller));
+      return (await deadlineOf(db, scope.assignment.id, scope.section.id)) ?? NO_DEADLINE;
+    },
+  }),
+  defineRoute({
+    method: 'POST',
+    url: '/v1/submissions/:submissionId/accept-late',
+    access: 'section',
+    summary:
+      'Accept a late submission held under the hold policy: recorded with who and when, it takes part in the next release; accepting it again changes nothing (409 when it was not late)',
+    schema: { params: z.object({ submissionId: IdParam }), response: { 200: LateAccepted } },
+    transactional: true,
+    async handler({ db, scope, caller }) {
+      const { submissionId } = scope.submission;
+      const before = await lateStanding(db, submissionId);
+      if (!before.late) throw new ApiError('conflict', 'this submission was not late: there is nothing to accept', [{ path: 'params.submissionId', message: 'on time' }]);
+      await acceptLate(db, submissionId, staffIdOf(caller));
+      return lateStanding(db, submissionId);
+    },
+  }),
+];
