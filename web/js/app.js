@@ -142,7 +142,7 @@ async function route() {
     }
     if (stale()) return;
     if (!m || !place) return home(me);
-    const view = m[3] ? await studentView(place, Number(m[3]), failure) : await sectionView(place, failure);
+    const view = m[3] ? await studentView(place, Number(m[3]), failure) : await sectionView(place, failure, me.role === 'instructor');
     if (stale()) return;
     show(view);
     // Focus moves to the new content for keyboard and screen-reader users; the page starts at its top.

@@ -107,6 +107,11 @@ export function when(iso) {
   return Number.isNaN(d.getTime()) ? '' : d.toLocaleString();
 }
 
+/** The reader's time zone as their browser names it (`Europe/Berlin`), else its offset. */
+export function zoneName() {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone || `UTC${-new Date().getTimezoneOffset() / 60 >= 0 ? '+' : ''}${-new Date().getTimezoneOffset() / 60}`;
+}
+
 /**
  * Text with `_{sub}` and `^{sup}` markup as text nodes and sub/sup elements (never as HTML).
  * @param {string} text

@@ -1,4 +1,4 @@
-import { when } from './dom.js';
+import { when, zoneName } from './dom.js';
 
 /**
  * Words the student's pages share: the deadline with the reader's time zone, the assignment's late
@@ -6,11 +6,6 @@ import { when } from './dom.js';
  *
  * @import { LateWork, StudentVersion } from './student-types.js'
  */
-
-/** The reader's time zone as their browser names it (`Europe/Berlin`), else its offset. */
-export function zoneName() {
-  return Intl.DateTimeFormat().resolvedOptions().timeZone || `UTC${-new Date().getTimezoneOffset() / 60 >= 0 ? '+' : ''}${-new Date().getTimezoneOffset() / 60}`;
-}
 
 /** @param {string | null} dueAt */
 export function deadlineText(dueAt) {
