@@ -101,6 +101,12 @@ export function num(value) {
 /** @type {Record<string, string>} */
 const SUPERSCRIPT = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
 
+/** A time in a table cell, short and unbroken: `5 Dec, 18:38`. @param {string} iso */
+export function shortWhen(iso) {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '' : d.toLocaleString(undefined, { month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
+}
+
 /** @param {string} iso */
 export function when(iso) {
   const d = new Date(iso);

@@ -1,5 +1,5 @@
 import { api } from './api.js';
-import { fill, h, marked, num, when } from './dom.js';
+import { fill, h, marked, num, shortWhen } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { accessCodesPanel } from './access-codes.js';
 import { deadlinePanel } from './deadline-panel.js';
@@ -279,7 +279,8 @@ export async function sectionView(place, failure, instructor) {
         } }, 'Accept late work'),
       ];
     }
-    return r.late ? h('span', { class: 'late-mark' }, 'late') : r.submissionId === null ? '' : 'on time';
+    // On time is the rule: only late work is marked.
+    return r.late ? h('span', { class: 'late-mark' }, 'late') : '';
   }
 
   function draw() {
@@ -298,7 +299,7 @@ export async function sectionView(place, failure, instructor) {
           { class: r.submissionId === null ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
           h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
           cell('version', {}, r.version ?? '–'),
-          cell('submittedAt', {}, r.submittedAt ? [when(r.submittedAt), r.source === 'student' ? h('span', { class: 'hint' }, ' by the student') : null] : ''),
+          cell('submittedAt', { class: 'when', title: r.submittedAt ? new Date(r.submittedAt).toLocaleString() : undefined }, r.submittedAt ? [shortWhen(r.submittedAt), r.source === 'student' ? h('span', { class: 'source' }, 'by the student') : null] : ''),
           cell('late', {}, lateCell(r)),
           cell('status', {}, r.status === null ? '–' : (STATUS_WORDS[r.status] ?? r.status)),
           cell('score', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}${r.releasedVersion === r.version ? '' : ` (version ${r.releasedVersion})`}`) : null),
@@ -306,7 +307,7 @@ export async function sectionView(place, failure, instructor) {
           cell('warnings', { class: 'number' }, r.warnings),
           cell('codes', {}, r.codes.join(', ')),
           cell('released', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : r.held ? 'held' : 'no'),
-          cell('feedbackFirstReadAt', {}, r.feedbackFirstReadAt ? when(r.feedbackFirstReadAt) : r.released ? 'not yet' : ''),
+          cell('feedbackFirstReadAt', { class: 'when', title: r.feedbackFirstReadAt ? new Date(r.feedbackFirstReadAt).toLocaleString() : undefined }, r.feedbackFirstReadAt ? shortWhen(r.feedbackFirstReadAt) : r.released ? 'not yet' : ''),
         ),
       ),
     );
