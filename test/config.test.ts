@@ -42,6 +42,7 @@ describe('readConfig', () => {
       LOG_LEVEL: 'warn',
       RATEPROOF_SECURE_COOKIE: 'always',
       RATEPROOF_WORKERS: '0',
+      RATEPROOF_CODE_TRIES: '25',
     });
     expect(config).toEqual({
       databaseUrl: 'postgres://app@db.example:5432/rateproof',
@@ -54,7 +55,13 @@ describe('readConfig', () => {
       logLevel: 'warn',
       secureCookie: 'always',
       workers: 0,
+      codeTriesPerMinute: 25,
     });
+  });
+
+  it('names RATEPROOF_CODE_TRIES when it is not a whole number of at least one', () => {
+    expect(configError({ RATEPROOF_CODE_TRIES: 'ten' }).message).toContain('RATEPROOF_CODE_TRIES: a whole number of tries');
+    expect(configError({ RATEPROOF_CODE_TRIES: '0' }).message).toContain('RATEPROOF_CODE_TRIES');
   });
 
   it('names RATEPROOF_WORKERS when it is not a whole number', () => {

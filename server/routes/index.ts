@@ -1,4 +1,5 @@
 import type { RouteSpec } from '../http/route-table.ts';
+import { accessCodeRoutes } from './access-codes.ts';
 import { assignmentRoutes } from './assignments.ts';
 import { courseRoutes } from './courses.ts';
 import { deadlineRoutes } from './deadlines.ts';
@@ -9,16 +10,19 @@ import { resultRoutes } from './results.ts';
 import { rosterRoutes } from './rosters.ts';
 import { sessionRoutes } from './sessions.ts';
 import { signalRoutes } from './signals.ts';
+import { studentSessionRoutes } from './student-session.ts';
 import { submissionDisplayRoutes } from './submission-display.ts';
 import { submissionRoutes } from './submissions.ts';
 
 /** Every route of the API, registered explicitly in this order; a new resource's routes are one more spread. */
 export const routes: RouteSpec[] = [
   ...sessionRoutes,
+  ...studentSessionRoutes,
   ...meRoutes,
   ...kindRoutes,
   ...courseRoutes,
   ...rosterRoutes,
+  ...accessCodeRoutes,
   ...assignmentRoutes,
   ...submissionRoutes,
   ...submissionDisplayRoutes,

@@ -4,6 +4,7 @@ import { StudentId, Text } from '../../schemas/common.ts';
 import { ApiError } from '../errors.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { IdParam } from '../http/schemas.ts';
+import { revokeAccessCodes } from '../store/student-access.ts';
 import { addToRoster, idKey, listRoster, rosterRows, setEnrolment, studentsElsewhere, type RosterEntry } from '../store/students.ts';
 import { Enrolment, RosterAdded, RosterStudent } from '../../schemas/api/rosters.ts';
 
@@ -105,11 +106,13 @@ export const rosterRoutes = [
     method: 'PUT',
     url: '/v1/sections/:sectionId/roster/:studentId',
     access: 'instructor',
-    summary: "Mark a roster student enrolled, withdrawn or removed: nothing is deleted, their work stays in their history, and the change is recorded",
+    summary: "Mark a roster student enrolled, withdrawn or removed: nothing is deleted, their work stays in their history, and the change is recorded. A student withdrawn or removed loses their access code and sessions",
     schema: { params: z.object({ sectionId: IdParam, studentId: StudentId }), body: z.object({ status: Enrolment }), response: { 200: RosterStudent } },
     transactional: true,
     async handler({ db, scope, params, body, caller }) {
       const row = await setEnrolment(db, scope.section.id, params.studentId, body.status, caller.kind === 'staff' ? caller.staffId : null);
+      // Enrolled again, a student needs a code issued anew: the old one stays revoked.
+      if (row && body.status !== 'enrolled') await revokeAccessCodes(db, [row.id]);
       const [student] = row ? await listRoster(db, scope.section.id, params.studentId) : [];
       if (!student) throw new ApiError('not-found', `${params.studentId} is not on this section's roster`);
       return student;

@@ -1,6 +1,7 @@
 import { randomBytes, timingSafeEqual } from 'node:crypto';
 import { sql, type Kysely } from 'kysely';
 import type { Database } from './database.ts';
+import { idKey } from './students.ts';
 import { hashToken } from './tokens.ts';
 
 /** A student signed in with their access code: they reach their own work in their own section, nothing else. */
@@ -72,6 +73,16 @@ export async function listAccessCodes(db: Kysely<Database>, sectionId: number) {
     .where('students.status', '=', 'enrolled')
     .orderBy('students.student_id')
     .execute();
+}
+
+/**
+ * The roster students of a section a code may be issued to or revoked from: those named (matched
+ * whatever their case), or every enrolled student when none are named.
+ */
+export async function codeHolders(db: Kysely<Database>, sectionId: number, studentIds?: string[]) {
+  let query = db.selectFrom('students').select(['id', 'student_id as studentId', 'display_name as displayName', 'status']).where('section_id', '=', sectionId);
+  query = studentIds === undefined ? query.where('status', '=', 'enrolled') : query.where(sql`lower(student_id)`, 'in', studentIds.map(idKey));
+  return query.orderBy('student_id').execute();
 }
 
 const studentColumns = ['students.id as studentRowId', 'students.student_id as studentId', 'students.course_id as courseId', 'students.section_id as sectionId'] as const;
