@@ -5,8 +5,9 @@ import { askToConfirm } from './confirm.js';
 /**
  * @import { Failure } from './api.js'
  * @import { Place } from './section-view.js'
- * @typedef {{ studentId: string, displayName: string | null, issuedAt: string | null }} CodeState
- * @typedef {{ studentId: string, displayName: string | null, code: string }} IssuedCode
+ * @import { AccessCodeState, IssuedAccessCodes, RevokedAccessCodes } from '../../schemas/api/students.ts'
+ * @typedef {AccessCodeState} CodeState
+ * @typedef {IssuedAccessCodes['codes'][number]} IssuedCode
  */
 
 /** Where a student signs in with their code: the students' pages of this service. */
@@ -77,7 +78,7 @@ export async function accessCodesPanel(place, instructor, failure) {
    * @param {string[] | undefined} studentIds none: every enrolled student of the section
    */
   async function issue(studentIds) {
-    const { codes } = /** @type {{ codes: IssuedCode[] }} */ (await api('POST', url, studentIds ? { studentIds } : {}));
+    const { codes } = /** @type {IssuedAccessCodes} */ (await api('POST', url, studentIds ? { studentIds } : {}));
     states = /** @type {CodeState[]} */ (await api('GET', url));
     draw();
     showIssued(codes);
@@ -85,7 +86,7 @@ export async function accessCodesPanel(place, instructor, failure) {
 
   /** @param {string} studentId */
   async function revoke(studentId) {
-    const { revoked } = /** @type {{ revoked: number }} */ (await api('POST', `${url}/revoke`, { studentIds: [studentId] }));
+    const { revoked } = /** @type {RevokedAccessCodes} */ (await api('POST', `${url}/revoke`, { studentIds: [studentId] }));
     states = /** @type {CodeState[]} */ (await api('GET', url));
     draw();
     fill(issued, h('p', { role: 'status' }, revoked ? `The code of ${studentId} is revoked; their sessions are ended.` : `${studentId} had no code to revoke.`));

@@ -1,7 +1,7 @@
 import { api, ApiFailure, setCsrfToken } from './api.js';
 import { h } from './dom.js';
 
-/** @import { StudentSession } from './student-types.js' */
+/** @import { Session } from '../../schemas/api/session.ts' */
 
 /**
  * What a refused code is told, by status: the service answers a wrong, revoked or withdrawn
@@ -33,7 +33,7 @@ export function codeSignInView(onSignedIn, note) {
         event.preventDefault();
         message.textContent = '';
         try {
-          const session = /** @type {StudentSession} */ (await api('POST', '/v1/student/session', { code: input.value }));
+          const session = /** @type {Session} */ (await api('POST', '/v1/student/session', { code: input.value }));
           input.value = '';
           setCsrfToken(session.csrfToken);
           onSignedIn();

@@ -13,14 +13,15 @@ import { comparisonTable, plotFigures, rejectedList, stageSections } from './dis
 export async function feedbackView(assignment) {
   const base = `/v1/student/assignments/${assignment.id}`;
   const crumbs = h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your assignments'), ' / ', assignment.title);
+  const notYet = () => h('div', { class: 'student-feedback' }, crumbs, h('h1', {}, `Feedback: ${assignment.title}`), h('p', { role: 'status' }, 'Your feedback on this assignment is not released yet.'));
+  // Their assignments say whether anything is released: nothing is asked for before then.
+  if (!assignment.feedback) return notYet();
   /** @type {StudentFeedback} */
   let feedback;
   try {
     feedback = /** @type {StudentFeedback} */ (await api('GET', `${base}/feedback`));
   } catch (error) {
-    if (error instanceof ApiFailure && error.status === 404) {
-      return h('div', { class: 'student-feedback' }, crumbs, h('h1', {}, `Feedback: ${assignment.title}`), h('p', { role: 'status' }, 'Your feedback on this assignment is not released yet.'));
-    }
+    if (error instanceof ApiFailure && error.status === 404) return notYet();
     throw error;
   }
   const { display } = feedback;

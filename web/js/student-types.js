@@ -2,7 +2,6 @@
  * The student routes' answers as the page reads them.
  *
  * @import { SubmissionDisplay } from '../../schemas/display.ts'
- * @typedef {{ expiresAt: string, csrfToken: string }} StudentSession
  * @typedef {{ policy: 'grade' | 'deduct' | 'hold', points: number }} LateWork
  * @typedef {{ version: number, submittedAt: string, late: boolean, held: boolean }} StudentVersion
  * @typedef {{ id: number, title: string, kind: string, dueAt: string | null, late: LateWork, versions: StudentVersion[], feedback: { version: number, releasedAt: string, firstReadAt: string | null } | null }} StudentAssignment
