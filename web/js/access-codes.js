@@ -48,7 +48,7 @@ function printSlips(place, codes) {
         'section',
         { class: 'code-slip' },
         h('p', {}, `${place.course.name}, section ${place.section.name}`),
-        h('p', {}, h('strong', {}, c.displayName ? `${c.displayName} (${c.studentId})` : c.studentId)),
+        h('p', {}, 'Student ', h('strong', {}, c.studentId), c.displayName ? [': ', h('strong', {}, c.displayName)] : null),
         h('p', {}, 'Your access code: ', h('code', {}, c.code)),
         h('p', {}, 'Sign in at ', h('strong', {}, studentAddress()), ' to hand in your values and read your feedback. Keep the code to yourself.'),
       ),
