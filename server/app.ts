@@ -37,6 +37,9 @@ export interface AppOptions {
   logger?: boolean | { stream: NodeJS.WritableStream };
 }
 
+/** Believes the nearest `hops` addresses of X-Forwarded-For (hop 0 is the connection), as Fastify's numeric trustProxy does. */
+const trustHops = (hops: number) => (_address: string, hop: number) => hop < hops;
+
 /** Access-code sign-ins one address may try in a minute, unless configured. */
 const CODE_TRIES_PER_MINUTE = 10;
 
@@ -54,6 +57,8 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
       ? { level: options.config.logLevel, serializers: { req: logRequest }, ...(typeof options.logger === 'object' ? { stream: options.logger.stream } : {}) }
       : false,
     bodyLimit: options.config.bodyLimitBytes,
+    // Behind a proxy every request comes from the proxy: the code sign-in's limit must count the client.
+    ...(options.config.proxyHops ? { trustProxy: trustHops(options.config.proxyHops) } : {}),
     frameworkErrors,
     routerOptions: { maxParamLength: MAX_PATH_PARAM },
   });

@@ -22,6 +22,8 @@ export const ConfigSchema = z.object({
   RATEPROOF_BIG_SECTION: z.string().trim().regex(/^\d+$/, 'a whole number of students').transform(Number).pipe(z.number().max(1_000_000)).optional(),
   /** Access-code sign-ins one address may try in a minute; default 10. */
   RATEPROOF_CODE_TRIES: z.string().trim().regex(/^\d+$/, 'a whole number of tries').transform(Number).pipe(z.number().min(1).max(100_000)).optional(),
+  /** Proxies in front of the service whose X-Forwarded-For to believe (docker compose: 1, its Caddy); unset, none. */
+  RATEPROOF_PROXY_HOPS: z.string().trim().regex(/^\d+$/, 'a whole number of proxies').transform(Number).pipe(z.number().min(1).max(10)).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -43,6 +45,11 @@ export interface Config {
   bigSection?: number;
   /** Access-code sign-ins one address may try in a minute (guessing codes is slowed); unset: 10. */
   codeTriesPerMinute?: number;
+  /**
+   * How many proxies in front of the service to believe about the client's address (X-Forwarded-For)
+   * and protocol: the address the code sign-in's limit counts by. Unset, the connection's own address.
+   */
+  proxyHops?: number;
   /** What this process does (`rateproof serve` flags): serve requests and work jobs (the default), or one of them. */
   role?: ProcessRole;
 }
@@ -92,5 +99,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     workers: c.RATEPROOF_WORKERS,
     bigSection: c.RATEPROOF_BIG_SECTION,
     codeTriesPerMinute: c.RATEPROOF_CODE_TRIES,
+    proxyHops: c.RATEPROOF_PROXY_HOPS,
   };
 }

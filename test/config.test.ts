@@ -43,6 +43,7 @@ describe('readConfig', () => {
       RATEPROOF_SECURE_COOKIE: 'always',
       RATEPROOF_WORKERS: '0',
       RATEPROOF_CODE_TRIES: '25',
+      RATEPROOF_PROXY_HOPS: '1',
     });
     expect(config).toEqual({
       databaseUrl: 'postgres://app@db.example:5432/rateproof',
@@ -56,6 +57,7 @@ describe('readConfig', () => {
       secureCookie: 'always',
       workers: 0,
       codeTriesPerMinute: 25,
+      proxyHops: 1,
     });
   });
 

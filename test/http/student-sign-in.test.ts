@@ -146,14 +146,16 @@ describe('the access-code sign-in is rate-limited per address', () => {
   let api: Api;
   let s: Seed;
   beforeAll(async () => {
-    api = await openApi('postgres', { ...testConfig, codeTriesPerMinute: 3 });
+    // Behind one proxy, as docker compose runs the service: the client is the proxy's X-Forwarded-For.
+    api = await openApi('postgres', { ...testConfig, codeTriesPerMinute: 3, proxyHops: 1 });
     s = await seedCourse(api.app);
   }, 60_000);
   afterAll(async () => api?.close());
 
-  it('answers 429 with the common error body after the configured tries from one address, even for the right code; another address may still try', async () => {
+  it('answers 429 with the common error body after the configured tries from one client, even for the right code; another client of the same proxy may still try', async () => {
     const { code } = (await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/access-codes`, s.instructorToken, { studentIds: ['S-001'] }, 201)).body.codes[0];
-    const tryCode = (c: string, remoteAddress = '203.0.113.7') => api.app.inject({ method: 'POST', url: '/v1/student/session', payload: { code: c }, remoteAddress });
+    const proxy = '10.0.0.2';
+    const tryCode = (c: string, client = '203.0.113.7') => api.app.inject({ method: 'POST', url: '/v1/student/session', payload: { code: c }, remoteAddress: proxy, headers: { 'x-forwarded-for': client } });
     const statuses = [];
     for (let i = 0; i < 3; i++) statuses.push((await tryCode('AAAA-AAAA-AAAA')).statusCode);
     expect(statuses).toEqual([401, 401, 401]);
