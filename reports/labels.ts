@@ -15,6 +15,7 @@ const SHARED_FINDING_WORDS: Record<SharedFindingCode, string> = {
   'missing-value': 'Value missing',
   unexplained: 'Differs, no cause found',
   'refit-note': 'Note on the refit',
+  'late-submission': 'Submitted after the deadline',
 };
 
 /** A kind's finding codes with their words, in the kind's order: the shared codes' words here, the kind's own from the kind. */

@@ -18,8 +18,13 @@ export const sharedFindingCodes = [
   'unexplained',
   // Not a slip: how the refit had to depart from the settings (and why), for the TA to see.
   'refit-note',
+  // Not of the work either: stored after the deadline, under a late policy that takes points off.
+  'late-submission',
 ] as const;
 export type SharedFindingCode = (typeof sharedFindingCodes)[number];
+
+/** The stage every kind ends with: findings on how the work was handed in rather than on its numbers. */
+export const HANDING_IN_STAGE = { id: 'handing-in', title: 'Handing in' } as const;
 
 /** Codes and stage names are lower-case words joined by hyphens. */
 export const Code = z.string().regex(/^[a-z][a-z0-9-]*$/);

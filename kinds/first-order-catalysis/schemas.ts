@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { Band, FiniteNumber, withFastPath, FitModel, NumberLike, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
-import { Estimate, RefitValue } from '../../schemas/result.ts';
+import { Estimate, HANDING_IN_STAGE, RefitValue } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
 /**
@@ -17,6 +17,7 @@ export const stages = [
   { id: 'rate-law', title: 'Rate law: k_{N} and k_{A}' },
   { id: 'equilibrium', title: 'Equilibrium: composition, K, k_{f} and k_{r}' },
   { id: 'reporting', title: 'Reporting' },
+  HANDING_IN_STAGE,
 ] as const;
 export type Stage = (typeof stages)[number]['id'];
 
@@ -62,6 +63,7 @@ export const findingCodes = [
   'missing-value',
   'unexplained',
   'refit-note',
+  'late-submission',
 ] as const;
 export type FindingCode = (typeof findingCodes)[number];
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { FiniteNumber, Quantity, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
-import { Estimate, sharedFindingCodes } from '../../schemas/result.ts';
+import { Estimate, HANDING_IN_STAGE, sharedFindingCodes } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
 /**
@@ -16,6 +16,7 @@ export const stages = [
   { id: 'order', title: 'Order and k' },
   { id: 'half-life', title: 'Half-lives t_{1/2}' },
   { id: 'reporting', title: 'Reporting' },
+  HANDING_IN_STAGE,
 ] as const;
 export type Stage = (typeof stages)[number]['id'];
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { Band, FiniteNumber, NumberLike, ReportedValue, StudentId, Text, Tolerance, UnitText, LatePolicy, LATE_POLICY_DEFAULT } from '../../schemas/common.ts';
-import { Estimate, sharedFindingCodes } from '../../schemas/result.ts';
+import { Estimate, HANDING_IN_STAGE, sharedFindingCodes } from '../../schemas/result.ts';
 import { Readings } from '../../schemas/readings.ts';
 
 /**
@@ -15,6 +15,7 @@ export const stages = [
   { id: 'arrhenius', title: 'Arrhenius: E_{a} and A' },
   { id: 'eyring', title: 'Eyring: ΔH^{‡} and ΔS^{‡}' },
   { id: 'reporting', title: 'Reporting' },
+  HANDING_IN_STAGE,
 ] as const;
 export type Stage = (typeof stages)[number]['id'];
 

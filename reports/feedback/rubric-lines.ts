@@ -1,5 +1,5 @@
 import type { CheckResult } from '../../schemas/result.ts';
-import { settleBooks, type RubricRow } from '../../server/checks/rubric-books.ts';
+import { OFF_THE_SCORE, settleBooks, type RubricRow } from '../../server/checks/rubric-books.ts';
 
 /**
  * The score taken apart by rubric item: the books' rows (what each item is worth for this submission
@@ -11,7 +11,7 @@ export interface RubricLine extends RubricRow {
 }
 
 export function labelled(rows: RubricRow[], labels: Readonly<Record<string, string>>): RubricLine[] {
-  return rows.map((row) => ({ ...row, label: labels[row.item] ?? row.item }));
+  return rows.map((row) => ({ ...row, label: labels[row.item] ?? (row.item === OFF_THE_SCORE ? 'Late work, off the score' : row.item) }));
 }
 
 /** Rubric lines from the checker's own account of the maximum (`result.items`), with the kind's labels. */

@@ -25,6 +25,11 @@ export interface ExperimentKind<Settings = unknown, Submission = unknown> {
   csvLayout?: CsvLayout;
   /** What a section's submissions say together, for the TA's review; absent: nothing is compared. */
   sectionSignals?(settings: Settings, submissions: unknown[]): SectionSignals;
+  /**
+   * What was read from a valid submission, in plain lines for the student's form check ("4 runs read,
+   * 16 readings each", "k reported for every run"): never a grade, a finding or a judgement on a value.
+   */
+  formSummary(submission: Submission): string[];
   /** The points available under these settings for this submission's shape. */
   maxScore(settings: Settings, submission: Submission): number;
 }

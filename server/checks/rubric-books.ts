@@ -30,6 +30,14 @@ const tidy = (x: number): number => Math.round(x * 1e9) / 1e9;
 
 type Priced = Pick<Finding, 'rubricItem' | 'itemKey'>;
 
+/**
+ * The item of a deduction taken off the whole score rather than out of one rubric item (late work):
+ * no item of the maximum, so the maximum stays; it is settled after the items' findings and takes at
+ * most what they have left, so the score never goes below 0. Not a word a kind's rubric uses.
+ */
+export const OFF_THE_SCORE = 'off-the-score';
+const offTheScore = (f: Priced): boolean => f.rubricItem === OFF_THE_SCORE;
+
 interface Pools {
   /** The instance a finding's points come out of, and what it is worth. */
   instance: { key: string; worth: number };
@@ -58,20 +66,29 @@ const maxOf = (items: readonly RubricCount[] | undefined, maxScore: number): num
 export function settleBooks(items: readonly RubricCount[] | undefined, maxScore: number, findings: readonly Finding[]): Books {
   const max = maxOf(items, maxScore);
   const spent = new Map<string, number>();
-  const settled = findings.map((f) => {
-    const { instance, item } = poolsOf(f, items, max);
-    const left = Math.min(instance.worth - (spent.get(instance.key) ?? 0), item.worth - (spent.get(item.key) ?? 0));
+  const settledOf = new Map<Finding, Finding>();
+  const settle = (f: Finding, left: number) => {
     const points = tidy(Math.max(0, Math.min(f.pointsLost, left)));
+    settledOf.set(f, points === f.pointsLost ? f : { ...f, pointsLost: points });
+    return points;
+  };
+  for (const f of findings.filter((f) => !offTheScore(f))) {
+    const { instance, item } = poolsOf(f, items, max);
+    const points = settle(f, Math.min(instance.worth - (spent.get(instance.key) ?? 0), item.worth - (spent.get(item.key) ?? 0)));
     spent.set(instance.key, tidy((spent.get(instance.key) ?? 0) + points));
     if (item.key !== instance.key) spent.set(item.key, tidy((spent.get(item.key) ?? 0) + points));
-    return points === f.pointsLost ? f : { ...f, pointsLost: points };
-  });
+  }
+  let lost = tidy([...settledOf.values()].reduce((sum, f) => sum + f.pointsLost, 0));
+  for (const f of findings.filter(offTheScore)) lost = tidy(lost + settle(f, max - lost));
+  const settled = findings.map((f) => settledOf.get(f)!);
   const rows = (items ?? []).map(({ item, count, each }) => {
     const available = tidy(each * count);
-    const lost = tidy(settled.reduce((sum, f) => (f.rubricItem === item ? sum + f.pointsLost : sum), 0));
-    return { item, count, each, available, lost, earned: tidy(available - lost) };
+    const itemLost = tidy(settled.reduce((sum, f) => (f.rubricItem === item ? sum + f.pointsLost : sum), 0));
+    return { item, count, each, available, lost: itemLost, earned: tidy(available - itemLost) };
   });
-  const lost = tidy(settled.reduce((sum, f) => sum + f.pointsLost, 0));
+  // Worth nothing of the maximum: the row shows what came off the score, so that the rows still add up.
+  const offScore = tidy(settled.reduce((sum, f) => (offTheScore(f) ? sum + f.pointsLost : sum), 0));
+  if (items && settled.some(offTheScore)) rows.push({ item: OFF_THE_SCORE, count: 1, each: 0, available: 0, lost: offScore, earned: -offScore });
   return { findings: settled, rows, maxScore: max, lost, score: tidy(max - lost) };
 }
 
@@ -82,11 +99,16 @@ export function settleBooks(items: readonly RubricCount[] | undefined, maxScore:
 export function overrideLimit(items: readonly RubricCount[] | undefined, maxScore: number, findings: readonly Finding[], findingId: string): number | undefined {
   const target = findings.find((f) => f.id === findingId);
   if (!target) return undefined;
-  const others = settleBooks(items, maxScore, findings.filter((f) => f !== target)).findings;
+  const othersBooks = settleBooks(items, maxScore, findings.filter((f) => f !== target));
+  const others = othersBooks.findings;
   const max = maxOf(items, maxScore);
+  // What the items' findings and the other deductions off the score have left of it.
+  if (offTheScore(target)) return tidy(Math.max(0, max - othersBooks.lost));
   const { instance, item } = poolsOf(target, items, max);
   const spentOn = (key: string) =>
     others.reduce((sum, f) => {
+      // Deductions off the score are settled after the items: they never narrow an item's finding.
+      if (offTheScore(f)) return sum;
       const p = poolsOf(f, items, max);
       return p.instance.key === key || p.item.key === key ? sum + f.pointsLost : sum;
     }, 0);

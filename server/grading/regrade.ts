@@ -7,6 +7,7 @@ import { insertResults, submissionsByIds } from '../store/submissions.ts';
 import type { JobQueue, QueueSpec } from '../jobs/job-queue.ts';
 import { assignmentOf } from './assignment-of.ts';
 import type { Grader } from './grader.ts';
+import { gradedWithLatePolicy, latePolicyOf } from './late-work.ts';
 
 /** One part of a regrade: the job's data. */
 export interface RegradePart {
@@ -62,7 +63,9 @@ export class Regrades {
     await db.transaction().execute(async (trx) => {
       // Another process may have done the part meanwhile (this job expired and was taken up): then nothing is stored.
       if (!(await regradePartToDo(trx, regradeId, part, true))) return;
-      await insertResults(trx, { settings: todo.settings, settingsVersion: todo.settingsVersion }, submissions.map((s, i) => ({ submissionId: s.submissionId, result: graded[i] })));
+      // Late work stays late under the settings regraded with: the late-work setting is applied afresh.
+      const late = latePolicyOf(todo.settings);
+      await insertResults(trx, { settings: todo.settings, settingsVersion: todo.settingsVersion }, submissions.map((s, i) => ({ submissionId: s.submissionId, result: gradedWithLatePolicy(graded[i], late, s.late) })));
       await completeRegradePart(trx, regradeId, part, submissions.length);
     });
   }

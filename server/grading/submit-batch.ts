@@ -3,8 +3,10 @@ import type { CheckResult } from '../../schemas/result.ts';
 import type { Database } from '../store/database.ts';
 import type { GradedForStore } from '../batches/graded-for-store.ts';
 import type { Grader } from './grader.ts';
+import { pastDeadline } from '../store/deadlines.ts';
 import { rosterRows } from '../store/students.ts';
 import { storeGraded } from '../store/submissions.ts';
+import { gradedWithLatePolicy, latePolicyOf, studentArrival } from './late-work.ts';
 
 export interface BatchItem {
   /** Where the item came from: `[3]` in a JSON array, `line 12` in a CSV file. */
@@ -65,7 +67,11 @@ export async function screenBatch(db: Kysely<Database>, batch: GradedBatch, sect
   return { toStore, rejected };
 }
 
-/** Stores the valid submissions of a checked batch (a new version each, with its result) in the caller's transaction. */
+/**
+ * Stores the valid submissions of a checked batch (a new version each, with its result) in the
+ * caller's transaction. Staff uploads are on time by definition (see STAFF_UPLOAD), so no late-work
+ * setting applies to them.
+ */
 export async function storeBatch(db: Kysely<Database>, batch: GradedBatch, args: { sectionId: number; staffId: number }): Promise<BatchOutcome> {
   const { toStore, rejected } = await screenBatch(db, batch, args.sectionId);
   const outcome: BatchOutcome = { stored: [], rejected };
@@ -75,4 +81,25 @@ export async function storeBatch(db: Kysely<Database>, batch: GradedBatch, args:
     outcome.stored.push({ studentId, submissionId: s.submissionId, version: s.version, status: result.status, score: result.score, maxScore: result.maxScore });
   });
   return outcome;
+}
+
+/**
+ * Stores a student's own submission, checked and valid, as their next version, in the caller's
+ * transaction: late when stored past the section's deadline (the database's clock, as its stored
+ * time), its result then under the assignment's late-work setting, and held when that holds late work.
+ */
+export async function storeOwnSubmission(db: Kysely<Database>, batch: GradedBatch, student: { studentRowId: number; sectionId: number }) {
+  const [graded] = batch.graded;
+  const isLate = await pastDeadline(db, batch.assignmentId, student.sectionId);
+  const late = latePolicyOf(batch.settings);
+  const arrival = studentArrival(isLate, late);
+  const [stored] = await storeGraded(
+    db,
+    batch.assignmentId,
+    null,
+    { settings: batch.settings, settingsVersion: batch.settingsVersion },
+    [{ studentRowId: student.studentRowId, payloadJson: graded.payloadJson!, result: gradedWithLatePolicy(graded, late, isLate) }],
+    arrival,
+  );
+  return { ...stored, late: arrival.late, held: arrival.held };
 }

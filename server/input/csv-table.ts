@@ -29,7 +29,7 @@ export function readTable(text: string, required: string[]): Table {
   const body = text.replace(/^\uFEFF/, '');
   const headerLine = body.split(/\r?\n/).find((line) => line.trim() !== '');
   if (headerLine === undefined) return { rows: [], decimalComma: false, errors: [{ row: 1, message: 'the file is empty' }] };
-  const delimiter = count(headerLine, ';') > count(headerLine, ',') ? ';' : ',';
+  const delimiter = delimiterOf(headerLine);
 
   let records: Array<{ record: string[]; info: Info }>;
   try {
@@ -72,6 +72,11 @@ export function readTable(text: string, required: string[]): Table {
 
 function count(text: string, char: string): number {
   return text.split(char).length - 1;
+}
+
+/** A file's delimiter, guessed from its header line: `;` where it has more of them than commas. */
+export function delimiterOf(headerLine: string): ';' | ',' {
+  return count(headerLine, ';') > count(headerLine, ',') ? ';' : ',';
 }
 
 export function numberText(text: string, decimalComma: boolean): string {

@@ -61,7 +61,7 @@ export async function storeGraded(
   gradedWith: GradedWith,
   items: Array<NewSubmission & { result: StoredResult }>,
   arrival: Arrival = STAFF_UPLOAD,
-): Promise<Array<{ submissionId: number; version: number }>> {
+): Promise<Array<{ submissionId: number; version: number; submittedAt: Date }>> {
   if (items.length === 0) return [];
   const students = [...new Set(items.map((i) => i.studentRowId))].sort((a, b) => a - b);
   // Two batches for the same students at once (two TAs, or a retry from another tool): each waits for
@@ -75,10 +75,10 @@ export async function storeGraded(
     versions.set(item.studentRowId, version + 1);
     return { assignment_id: assignmentId, student_row_id: item.studentRowId, version, payload: item.payloadJson, submitted_by: submittedBy, ...arrival };
   });
-  const stored: Array<{ id: number; version: number }> = [];
-  for (const chunk of inParts(values, ROWS_PER_INSERT)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version']).execute()));
+  const stored: Array<{ id: number; version: number; created_at: Date }> = [];
+  for (const chunk of inParts(values, ROWS_PER_INSERT)) stored.push(...(await db.insertInto('submissions').values(chunk).returning(['id', 'version', 'created_at']).execute()));
   await insertResults(db, gradedWith, items.map((item, i) => ({ result: item.result, submissionId: stored[i].id })));
-  return stored.map((s) => ({ submissionId: s.id, version: s.version }));
+  return stored.map((s) => ({ submissionId: s.id, version: s.version, submittedAt: s.created_at }));
 }
 
 // PostgreSQL takes at most 65,535 parameters in one statement: rows go in 1,000 at a time (at most 9 columns each).
@@ -180,6 +180,19 @@ export async function getSubmission(db: Kysely<Database>, id: number) {
 }
 
 export type SubmissionRow = NonNullable<Awaited<ReturnType<typeof getSubmission>>>;
+
+/** A student's latest version of an assignment, by their row (a student's own pages), or undefined. */
+export async function latestSubmissionOf(db: Kysely<Database>, studentRowId: number, assignmentId: number): Promise<SubmissionRow | undefined> {
+  return db
+    .selectFrom('submissions')
+    .innerJoin('students', 'students.id', 'submissions.student_row_id')
+    .select(submissionColumns)
+    .where('submissions.student_row_id', '=', studentRowId)
+    .where('submissions.assignment_id', '=', assignmentId)
+    .orderBy('submissions.version', 'desc')
+    .limit(1)
+    .executeTakeFirst();
+}
 
 /** A result without its refit and settings: what a table of a section's results needs. */
 const resultSummaryColumns = [

@@ -111,6 +111,10 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/sections/:sectionId/assignments/:assignmentId/files/:fileId': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/files/${f.fileId}` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/files/:fileId/content': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/files/${f.fileId}/content` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/gradebook.csv': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/gradebook.csv` }),
+  'GET /v1/sections/:sectionId/assignments/:assignmentId/deadline': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/deadline` }),
+  // Far ahead: the submissions other examples store stay on time.
+  'PUT /v1/sections/:sectionId/assignments/:assignmentId/deadline': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/deadline`, body: { dueAt: '2099-01-01T00:00:00Z' } }),
+  'POST /v1/submissions/:submissionId/accept-late': (f) => ({ url: `/v1/submissions/${f.submissionId}/accept-late` }),
 };
 
 describe('authorisation matrix: every route x every caller', () => {

@@ -53,8 +53,11 @@ describe('the test kind, registered in one line', () => {
     const bad = await call(app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Decay runs (invented)', settings: { kind: DECAY_RUNS, tolerance: 5 } }, 400);
     expect(bad.body.error.details.map((d: { path: string }) => d.path)).toEqual(['body.settings.tolerance']);
     const assignment = (await call(app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Decay runs (invented)', settings: { kind: DECAY_RUNS } }, 201)).body;
-    expect(assignment.settings).toEqual({ kind: DECAY_RUNS, tolerance: 0.03, pointsPerRun: 2, minReadings: 6 });
-    expect(assignment.stages).toEqual([{ id: 'runs', title: 'Each run: k' }]);
+    expect(assignment.settings).toEqual({ kind: DECAY_RUNS, tolerance: 0.03, pointsPerRun: 2, minReadings: 6, late: { policy: 'grade', points: 0 } });
+    expect(assignment.stages).toEqual([{ id: 'runs', title: 'Each run: k' }, { id: 'handing-in', title: 'Handing in' }]);
+    // The late policy is refused by its field like any other setting.
+    const deductNothing = await call(app, 'POST', `/v1/courses/${s.course.id}/assignments`, s.instructorToken, { title: 'Decay runs (invented)', settings: { kind: DECAY_RUNS, late: { policy: 'deduct', points: 0 } } }, 400);
+    expect(deductNothing.body.error.details.map((d: { path: string }) => d.path)).toEqual(['body.settings.late.points']);
     url = `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}`;
   });
 

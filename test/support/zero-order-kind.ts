@@ -6,6 +6,8 @@ import type { KindReport } from '../../reports/kind-report.ts';
 import { paragraph, sectionHeading } from '../../reports/pdf/document.ts';
 import { settingsForm } from '../../reports/display/settings-form.ts';
 import { findingWords } from '../../reports/labels.ts';
+import { LATE_POLICY_DEFAULT, LatePolicy } from '../../schemas/common.ts';
+import { counted } from '../../server/checks/form-lines.ts';
 
 /**
  * A tiny experiment kind that exists only in the test suite, to show that a kind is one registration
@@ -19,6 +21,7 @@ const Settings = z.object({
   kind: z.literal(ZERO_ORDER),
   tolerance: z.number().positive().max(1).default(0.02),
   points: z.number().nonnegative().max(100).default(2),
+  late: LatePolicy.default(LATE_POLICY_DEFAULT),
 });
 type Settings = z.infer<typeof Settings>;
 
@@ -40,6 +43,7 @@ export const zeroOrderKind: ExperimentKind<Settings, Submission> = {
   submissionSchema: Submission,
   settingsIssues: () => [],
   maxScore: (settings) => settings.points,
+  formSummary: (submission) => [`${counted(submission.points.length, 'point')} read`, 'k reported'],
   check(settings, submission) {
     const fit = fitLine(submission.points.map((p) => p[0]), submission.points.map((p) => p[1]));
     const k = -fit.slope;

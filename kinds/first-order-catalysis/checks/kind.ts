@@ -4,6 +4,7 @@ import { checkFirstOrderCatalysis } from './check-submission.ts';
 import { runSectionSignals } from '../../../server/signals/run-section-signals.ts';
 import { maxScore } from './scoring.ts';
 import { settingsIssues } from './settings-issues.ts';
+import { catalysisFormSummary } from '../form-summary.ts';
 
 export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   kind: KIND,
@@ -16,6 +17,7 @@ export const firstOrderCatalysis: ExperimentKind<Settings, Submission> = {
   settingsIssues,
   check: checkFirstOrderCatalysis,
   maxScore,
+  formSummary: catalysisFormSummary,
   sectionSignals: runSectionSignals,
   // The parser loads on the first CSV, not with the checker.
   csvLayout: {

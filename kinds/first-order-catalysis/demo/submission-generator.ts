@@ -28,8 +28,8 @@ import { DEMO_EQUILIBRIUM } from './demo-equilibrium.ts';
  */
 
 export type Random = () => number;
-// Not slips the generator makes: notes on the refit, and findings on data a run or its entry cannot be.
-const NOT_SLIPS = ['carried-forward', 'refit-note', 'run-not-fitted', 'time-unit-implausible', 'temperature-implausible'] as const;
+// Not slips the generator makes: notes on the refit, findings on data a run or its entry cannot be, and lateness.
+const NOT_SLIPS = ['carried-forward', 'refit-note', 'run-not-fitted', 'time-unit-implausible', 'temperature-implausible', 'late-submission'] as const;
 // The equilibrium block's slips are made by equilibrium-slips.ts, on assignments that set the block.
 export type SlipCode = Exclude<FindingCode, (typeof NOT_SLIPS)[number] | EquilibriumCode>;
 const notMadeHere: readonly string[] = [...NOT_SLIPS, ...equilibriumCodes];

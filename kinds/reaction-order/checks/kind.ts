@@ -5,6 +5,7 @@ import { findingCodes, KIND, Settings, stages, Submission } from '../schemas.ts'
 import { checkReactionOrder } from './check-submission.ts';
 import { rubricCounts } from './rubric-counts.ts';
 import { settingsIssues } from './settings-issues.ts';
+import { reactionOrderFormSummary } from '../form-summary.ts';
 
 export const reactionOrder: ExperimentKind<Settings, Submission> = {
   kind: KIND,
@@ -18,4 +19,5 @@ export const reactionOrder: ExperimentKind<Settings, Submission> = {
   check: checkReactionOrder,
   maxScore: (settings, submission) => pointsOf(rubricCounts(settings, submission)),
   csvLayout: reactionOrderCsvLayout,
+  formSummary: reactionOrderFormSummary,
 };

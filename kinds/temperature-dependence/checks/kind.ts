@@ -3,6 +3,7 @@ import type { ExperimentKind } from '../../../server/checks/experiment-kind.ts';
 import { pointsOf } from '../../../server/checks/scored-result.ts';
 import { checkTemperatureDependence, rubricCounts } from './check-submission.ts';
 import { settingsIssues } from './settings-issues.ts';
+import { temperatureFormSummary } from '../form-summary.ts';
 
 export const temperatureDependence: ExperimentKind<Settings, Submission> = {
   kind: KIND,
@@ -14,6 +15,7 @@ export const temperatureDependence: ExperimentKind<Settings, Submission> = {
   settingsIssues,
   check: checkTemperatureDependence,
   maxScore: (settings, submission) => pointsOf(rubricCounts(settings, submission)),
+  formSummary: temperatureFormSummary,
   // The parser loads on the first CSV, not with the checker.
   csvLayout: {
     main: 'points',

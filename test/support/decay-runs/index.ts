@@ -2,6 +2,7 @@ import type { KindEntry } from '../../../kinds/kind-entry.ts';
 import { runSectionSignals } from '../../../server/signals/run-section-signals.ts';
 import { checkDecayRuns } from './check.ts';
 import { decayRunsCsv } from './csv.ts';
+import { decayFormSummary } from './form-summary.ts';
 import { DECAY_RUNS, findingCodes, Settings, signalCodes, stages, Submission, type Refit } from './schemas.ts';
 
 /**
@@ -20,6 +21,7 @@ export const kind: KindEntry<Settings, Submission, Refit> = {
     check: checkDecayRuns,
     maxScore: (settings, submission) => settings.pointsPerRun * submission.runs.length,
     csvLayout: decayRunsCsv,
+    formSummary: decayFormSummary,
     // Runs of readings: the generic comparisons across a section (shared readings, smooth runs) apply.
     sectionSignals: (_settings, submissions) => runSectionSignals({}, submissions),
   },

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { LATE_POLICY_DEFAULT, LatePolicy } from '../../../schemas/common.ts';
+import { HANDING_IN_STAGE } from '../../../schemas/result.ts';
 
 /**
  * A kind that lives only in the test suite: runs of readings decaying to a known end value, each run
@@ -46,6 +47,6 @@ export interface Refit {
   runs: RunRefit[];
 }
 
-export const findingCodes = ['sign-flipped', 'log-base', 'half-life-for-k', 'unexplained'] as const;
+export const findingCodes = ['sign-flipped', 'log-base', 'half-life-for-k', 'unexplained', 'late-submission'] as const;
 export const signalCodes = ['few-readings'] as const;
-export const stages = [{ id: 'runs', title: 'Each run: k' }];
+export const stages = [{ id: 'runs', title: 'Each run: k' }, HANDING_IN_STAGE];
