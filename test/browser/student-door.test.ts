@@ -3,9 +3,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { exampleRowsOf } from '../support/example-csv.ts';
 import { call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
 import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
-import { pageOverflow, signIn, watchProblems } from '../support/workspace-page.ts';
+import { pageOverflow, pasteCells, signIn, watchProblems } from '../support/workspace-page.ts';
 
 if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
 
@@ -39,11 +40,7 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
     s = await seedCourse(api.app);
     origin = await api.app.listen({ port: 0, host: '127.0.0.1' });
     // The example files of the first kind (docs/examples): student B-01's 4 runs of 16 readings, counted by hand.
-    const rowsOf = async (file: string) => (await readFile(`docs/examples/${file}`, 'utf8')).trim().split('\n').map((line) => line.split(','));
-    const [readingRows, reportedRows] = await Promise.all([rowsOf('readings.csv'), rowsOf('reported.csv')]);
-    const own = (rows: string[][]) => [rows[0].slice(1), ...rows.filter((r) => r[0] === 'B-01').map((r) => r.slice(1))];
-    readings = own(readingRows);
-    reported = own(reportedRows);
+    [readings, reported] = await Promise.all([exampleRowsOf('readings.csv', 'B-01'), exampleRowsOf('reported.csv', 'B-01')]);
     await mkdir(SHOTS, { recursive: true });
     browser = await launchChromium();
   }, 60_000);
@@ -57,15 +54,6 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
   async function issueCode(studentId: string): Promise<string> {
     const { body } = await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/access-codes`, s.instructorToken, { studentIds: [studentId] }, 201);
     return body.codes[0].code as string;
-  }
-
-  /** A block of cells as a spreadsheet puts it on the clipboard (tab-separated lines), pasted into a grid cell. */
-  async function paste(page: Page, cell: string, rows: string[][]) {
-    await page.locator(cell).evaluate((el, text) => {
-      const data = new DataTransfer();
-      data.setData('text/plain', text);
-      el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
-    }, rows.map((r) => r.join('\t')).join('\r\n'));
   }
 
   async function shoot(page: Page, name: string, width: number) {
@@ -136,12 +124,12 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
 
       await page.getByRole('link', { name: 'Hand in your values' }).click();
       // Pasted with the header line: by column name; the reported values without one: from the cell on.
-      await paste(page, '#grid-readings input[data-row="0"][data-col="0"]', readings);
+      await pasteCells(page, '#grid-readings input[data-row="0"][data-col="0"]', readings);
       await page.getByText(`${readings.length - 1} rows pasted by their column names.`).waitFor();
       const gridOrder = await page.locator('#grid-reported thead th').allTextContents();
       const header = reported[0];
       const inGridOrder = reported.slice(1).map((r) => gridOrder.slice(1, -1).map((name) => r[header.indexOf(name.replace(/ optional$/, ''))] ?? ''));
-      await paste(page, '#grid-reported input[data-row="0"][data-col="0"]', inGridOrder);
+      await pasteCells(page, '#grid-reported input[data-row="0"][data-col="0"]', inGridOrder);
       await page.getByText(`${inGridOrder.length} rows pasted.`).waitFor();
       await page.getByRole('button', { name: 'Hand in these values' }).click();
       await page.getByRole('heading', { name: 'Version 1 handed in' }).waitFor();
@@ -210,7 +198,7 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
     const bad = readings.map((r) => [...r]);
     // Row 3 of the grid (line 4 of its file) gets a time that is no number.
     bad[3][readings[0].indexOf('t')] = 'ten';
-    await paste(page, '#grid-readings input[data-row="0"][data-col="0"]', bad);
+    await pasteCells(page, '#grid-readings input[data-row="0"][data-col="0"]', bad);
     await page.getByRole('button', { name: 'Hand in these values' }).click();
     await page.getByText('Nothing was handed in').waitFor();
     await shoot(page, 'student-refused', 390);

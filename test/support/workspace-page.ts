@@ -34,3 +34,12 @@ export function pageOverflow(page: Page): Promise<{ scroll: number; client: numb
     return { scroll: document.documentElement.scrollWidth, client, past };
   });
 }
+
+/** A block of cells as a spreadsheet puts it on the clipboard (tab-separated lines), pasted into the element `selector` finds. */
+export async function pasteCells(page: Page, selector: string, rows: string[][]): Promise<void> {
+  await page.locator(selector).evaluate((el, text) => {
+    const data = new DataTransfer();
+    data.setData('text/plain', text);
+    el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+  }, rows.map((r) => r.join('\t')).join('\r\n'));
+}
