@@ -10,6 +10,7 @@ import { resultRoutes } from './results.ts';
 import { rosterRoutes } from './rosters.ts';
 import { sessionRoutes } from './sessions.ts';
 import { signalRoutes } from './signals.ts';
+import { studentPageRoutes } from './student-pages.ts';
 import { studentSessionRoutes } from './student-session.ts';
 import { submissionDisplayRoutes } from './submission-display.ts';
 import { submissionRoutes } from './submissions.ts';
@@ -30,4 +31,5 @@ export const routes: RouteSpec[] = [
   ...deadlineRoutes,
   ...signalRoutes,
   ...reportRoutes,
+  ...studentPageRoutes,
 ];

@@ -37,7 +37,18 @@ const expected: Record<Access, Record<Role, Outcome>> = {
  */
 const exceptions: Record<string, Partial<Record<Role, Outcome>>> = {
   'POST /v1/sections/:sectionId/access-codes': { admin: 403 },
+  // Setting a deadline records who set it, as issuing a code does.
+  'PUT /v1/sections/:sectionId/assignments/:assignmentId/deadline': { admin: 403 },
+  // Section A's work was released in the set-up; nothing was released to the other section's student.
+  'GET /v1/student/assignments/:assignmentId/feedback': { 'student-of-other-section': 404 },
+  'GET /v1/student/assignments/:assignmentId/feedback.pdf': { 'student-of-other-section': 404 },
 };
+
+/** A clean submission without a student id, as a student sends their own. */
+function ownSubmission(seed: number) {
+  const { studentId: _, ...own } = submissionsFor(['S-000'], seed)[0];
+  return own;
+}
 
 /** The students of the seeded roster, by section; the matrix's students are the first of each. */
 const studentsOfA = ['S-001', 'S-002', 'S-003', 'S-004', 'S-005', 'S-006'];
@@ -115,6 +126,11 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   // Far ahead: the submissions other examples store stay on time.
   'PUT /v1/sections/:sectionId/assignments/:assignmentId/deadline': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/deadline`, body: { dueAt: '2099-01-01T00:00:00Z' } }),
   'POST /v1/submissions/:submissionId/accept-late': (f) => ({ url: `/v1/submissions/${f.submissionId}/accept-late` }),
+  'GET /v1/student/me': () => ({ url: '/v1/student/me' }),
+  // No student id in the body: each student of the matrix submits as themselves.
+  'POST /v1/student/assignments/:assignmentId/submissions': (f) => ({ url: `/v1/student/assignments/${f.assignment.id}/submissions`, body: ownSubmission(unique()) }),
+  'GET /v1/student/assignments/:assignmentId/feedback': (f) => ({ url: `/v1/student/assignments/${f.assignment.id}/feedback` }),
+  'GET /v1/student/assignments/:assignmentId/feedback.pdf': (f) => ({ url: `/v1/student/assignments/${f.assignment.id}/feedback.pdf` }),
 };
 
 describe('authorisation matrix: every route x every caller', () => {
@@ -151,6 +167,8 @@ describe('authorisation matrix: every route x every caller', () => {
     const stored = await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/submissions`, seed.taAToken, [slipped], 201);
     const spare = (await call(api.app, 'POST', `/v1/courses/${seed.course.id}/staff`, seed.instructorToken, { handle: 'ta-spare', role: 'ta', sectionIds: [seed.sectionA.id] }, 201)).body;
     const { started } = await regradeAndWait(api.app, seed.instructorToken, seed.assignment.id);
+    // Released, so that section A's student has feedback to read.
+    await call(api.app, 'POST', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/release`, seed.taAToken, undefined, 200);
     // Drawn here by hand: this service's limit keeps the seeded sections small.
     const file = await api.app.sectionFiles.request(api.database.store.db, seed.sectionA.id, seed.assignment.id, 'summary.pdf');
     await api.app.sectionFiles.draw(api.database.store.db, { fileId: file.fileId });
