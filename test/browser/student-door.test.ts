@@ -182,9 +182,13 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
     });
   }
 
-  it('names a wrong code, a refused value by its row, and shows the staff the late, held and read columns', async () => {
+  it('names a wrong code and a refused value by its field, marks late work held, and shows the staff the late, held and read columns', async () => {
+    // Late work under the hold policy: the section's deadline passed an hour ago.
+    await call(api.app, 'PATCH', `/v1/assignments/${s.assignment.id}/settings`, s.instructorToken, { settings: { late: { policy: 'hold', points: 0 } } }, 200);
+    await call(api.app, 'PUT', results().replace(/results$/, 'deadline'), s.instructorToken, { dueAt: new Date(Date.now() - 3_600_000).toISOString() }, 200);
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
+    // The refusals below are answered 401 and 400, which the browser logs as failed loads; script errors there must be none.
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(String(e)));
     await page.goto(`${origin}/student`);
@@ -194,15 +198,44 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
 
     await page.getByLabel('Access code').fill(await issueCode('S-003'));
     await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText('waits for your teaching assistant to accept it').waitFor();
     await page.getByRole('link', { name: 'Hand in your values' }).click();
+    await page.getByText('The deadline has passed: what you hand in now is marked late.').waitFor();
+    const t = readings[0].indexOf('t');
     const bad = readings.map((r) => [...r]);
-    // Row 3 of the grid (line 4 of its file) gets a time that is no number.
-    bad[3][readings[0].indexOf('t')] = 'ten';
+    // Grid row 3 (the first run's third reading) gets a time that is no number.
+    bad[3][t] = 'ten';
     await pasteCells(page, '#grid-readings input[data-row="0"][data-col="0"]', bad);
     await page.getByRole('button', { name: 'Hand in these values' }).click();
     await page.getByText('Nothing was handed in').waitFor();
+    // The field named as a person counts, from 1 (hand-worked from the path the schema gives).
+    await page.locator('.refused li', { hasText: 'run 1, reading 3, item 1' }).waitFor();
     await shoot(page, 'student-refused', 390);
+    await page.locator(`#grid-readings input[data-row="2"][data-col="${t}"]`).fill(readings[3][t]);
+    await page.getByRole('button', { name: 'Hand in these values' }).click();
+    await page.getByRole('heading', { name: 'Version 1 handed in' }).waitFor();
+    await page.getByText(/, late, waiting to be accepted\.$/).waitFor();
     expect(errors).toEqual([]);
+
+    // The staff's results: S-003 late and held, accepted with one click; the read column as the service has it.
+    const staff = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const ta = await staff.newPage();
+    const problems = watchProblems(ta);
+    await signIn(ta, origin, s.taAToken);
+    await ta.getByRole('link', { name: s.assignment.title }).click();
+    const row = ta.locator('table.results tbody tr', { hasText: 'S-003' });
+    await row.getByText('late, held').waitFor();
+    await shoot(ta, 'staff-results-held', 390);
+    await row.getByRole('button', { name: 'Accept late work' }).click();
+    await expect.poll(() => row.locator('td[data-label="Late"]').textContent()).toBe('late');
+    const rows = (await call(api.app, 'GET', results(), s.taAToken, undefined, 200)).body as Array<{ studentId: string; held: boolean; released: boolean; feedbackFirstReadAt: string | null }>;
+    expect(rows.find((r) => r.studentId === 'S-003')!.held).toBe(false);
+    for (const r of rows) {
+      const read = (await ta.locator('table.results tbody tr', { hasText: r.studentId }).locator('td[data-label="Read"]').textContent())!;
+      expect(read === '' ? 'none' : read === 'not yet' ? 'released, unread' : 'read', r.studentId).toBe(r.feedbackFirstReadAt ? 'read' : r.released ? 'released, unread' : 'none');
+    }
+    expect(problems).toEqual([]);
+    await staff.close();
     await context.close();
   });
 });

@@ -10,6 +10,21 @@ import { valueGrid } from './value-grid.js';
  * @import { StudentAssignment, StudentMe, StudentSubmitted } from './student-types.js'
  */
 
+/**
+ * A field's path in words, counted from 1 as a person counts: `runs[0].readings[2][0]` is
+ * `run 1, reading 3, item 1`. The page knows no kind: it reads any path the same way.
+ * @param {string} path
+ */
+export function fieldWords(path) {
+  const one = (/** @type {string} */ word) => word.replace(/ies$/, 'y').replace(/s$/, '');
+  return path
+    .replace(/^body\.?/, '')
+    .replace(/([A-Za-z_]+)\[(\d+)\]/g, (_, key, i) => `${one(key)} ${Number(i) + 1}`)
+    .replace(/\[(\d+)\]/g, (_, i) => `, item ${Number(i) + 1}`)
+    .replace(/\./g, ', ')
+    .replace(/ ,/g, ',');
+}
+
 /** The column of a kind's CSV layout that names the student; the page fills it with their own id. */
 const OWN_COLUMN = 'student_id';
 
@@ -90,7 +105,7 @@ export async function submitView(me, assignment, refresh, failure) {
       const row = m ? rowsOf.get(m[2])?.[Number(m[3])] : undefined;
       return m && row !== undefined && row >= 0 ? { file: m[2], row, words: `${m[1]}${m[2]}, row ${row + 1}${m[4]}` } : null;
     };
-    return send(form, (path) => gridPlace(path)?.words ?? (path.replace(/^body\.?/, '') || 'the files'), (details) => {
+    return send(form, (path) => gridPlace(path)?.words ?? (fieldWords(path) || 'the files'), (details) => {
       for (const { file, grid } of grids) {
         const named = details.map((d) => ({ at: gridPlace(d.path), message: d.message })).filter((x) => x.at?.file === file.name);
         grid.mark(new Map(named.map((x) => [/** @type {{ row: number }} */ (x.at).row, x.message])));
@@ -105,7 +120,7 @@ export async function submitView(me, assignment, refresh, failure) {
       const picked = chosen[i].files?.[0];
       if (picked) form.append(file.name, picked, picked.name);
     });
-    return send(form, (path) => path.replace(/^body\.?/, '') || 'the files');
+    return send(form, (path) => fieldWords(path) || 'the files');
   }
 
   const passed = assignment.dueAt !== null && new Date(assignment.dueAt).getTime() < Date.now();
