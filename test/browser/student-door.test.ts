@@ -224,7 +224,7 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
     await signIn(ta, origin, s.taAToken);
     await ta.getByRole('link', { name: s.assignment.title }).click();
     const row = ta.locator('table.results tbody tr', { hasText: 'S-003' });
-    await row.getByText('late, held').waitFor();
+    await row.getByText('held until accepted').waitFor();
     await shoot(ta, 'staff-results-held', 390);
     await row.getByRole('button', { name: 'Accept late work' }).click();
     await expect.poll(() => row.locator('td[data-label="Late"]').textContent()).toBe('late');

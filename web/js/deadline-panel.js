@@ -1,5 +1,5 @@
 import { api, ApiFailure } from './api.js';
-import { fill, h, when, zoneName } from './dom.js';
+import { fill, h, minuteWhen, zoneName } from './dom.js';
 
 /**
  * @import { Failure } from './api.js'
@@ -25,7 +25,7 @@ export async function deadlinePanel(base, instructor, failure) {
   const root = h('div', { class: 'deadline-area' });
   const message = h('p', { class: 'form-error', role: 'alert' });
   const status = h('span', { class: 'hint', role: 'status' });
-  const said = () => (deadline.dueAt ? `Deadline ${when(deadline.dueAt)} (${zoneName()} time)${deadline.setBy ? `, set by ${deadline.setBy}` : ''}` : 'No deadline: nothing handed in is late');
+  const said = () => (deadline.dueAt ? `Deadline ${minuteWhen(deadline.dueAt)} (${zoneName()} time)${deadline.setBy ? `, set by ${deadline.setBy}` : ''}` : 'No deadline: nothing handed in is late');
 
   /** @param {string | null} dueAt */
   async function save(dueAt) {

@@ -107,6 +107,12 @@ export function shortWhen(iso) {
   return Number.isNaN(d.getTime()) ? '' : d.toLocaleString(undefined, { month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
 }
 
+/** A time to the minute with its date in words, for a deadline: `Dec 7, 2026, 5:00 PM`. @param {string} iso */
+export function minuteWhen(iso) {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '' : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+}
+
 /** @param {string} iso */
 export function when(iso) {
   const d = new Date(iso);

@@ -268,7 +268,7 @@ export async function sectionView(place, failure, instructor) {
     if (r.held && r.submissionId !== null) {
       const id = r.submissionId;
       return [
-        h('span', { class: 'held-mark' }, 'late, held '),
+        h('span', { class: 'held-mark' }, 'held until accepted '),
         h('button', { type: 'button', class: 'small', onclick: async () => {
           try {
             await api('POST', `/v1/submissions/${id}/accept-late`);

@@ -1,4 +1,4 @@
-import { when, zoneName } from './dom.js';
+import { minuteWhen, zoneName } from './dom.js';
 
 /**
  * Words the student's pages share: the deadline with the reader's time zone, the assignment's late
@@ -9,7 +9,7 @@ import { when, zoneName } from './dom.js';
 
 /** @param {string | null} dueAt */
 export function deadlineText(dueAt) {
-  return dueAt ? `Due ${when(dueAt)} (${zoneName()} time)` : 'No deadline set';
+  return dueAt ? `Due ${minuteWhen(dueAt)} (${zoneName()} time)` : 'No deadline set';
 }
 
 /**
