@@ -110,7 +110,7 @@ async function route() {
   try {
     if (!me) {
       // The probe answers 200 either way, so a visitor not yet signed in sees no failed request.
-      const state = /** @type {SessionState & { as?: 'staff' | 'student' | null }} */ (await api('GET', '/v1/session'));
+      const state = /** @type {SessionState} */ (await api('GET', '/v1/session'));
       // A student's session belongs on the students' pages.
       if (state.as === 'student') return location.replace('/student');
       if (!state.signedIn) {

@@ -8,6 +8,7 @@ import { submitView } from './student-submit.js';
 /**
  * @import { Children } from './dom.js'
  * @import { StudentMe } from './student-types.js'
+ * @import { SessionState } from '../../schemas/api/session.ts'
  */
 
 /**
@@ -68,18 +69,17 @@ async function route() {
   const turn = ++turns;
   const stale = () => turn !== turns;
   try {
-    // The home page is read afresh each time: a version handed in or feedback read since shows there.
-    const home = !/^#\/assignment\//.test(location.hash);
     if (!me) {
-      const state = /** @type {{ signedIn: boolean, as?: 'staff' | 'student' | null }} */ (await api('GET', '/v1/session'));
+      const state = /** @type {SessionState} */ (await api('GET', '/v1/session'));
       if (!state.signedIn || state.as !== 'student') {
         fill(who);
         show(codeSignInView(route, state.signedIn ? 'This browser is signed in to the staff workspace; signing in with a code here ends that session.' : signInNote));
         signInNote = undefined;
         return;
       }
-      await readMe();
-    } else if (home) await readMe();
+    }
+    // Read afresh at each turn: a version handed in, a release or a first read since shows at once.
+    await readMe();
     const student = /** @type {StudentMe} */ (me);
     header(student);
     const m = /^#\/assignment\/(\d+)\/(submit|feedback)$/.exec(location.hash);
