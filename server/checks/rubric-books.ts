@@ -66,21 +66,26 @@ const maxOf = (items: readonly RubricCount[] | undefined, maxScore: number): num
 export function settleBooks(items: readonly RubricCount[] | undefined, maxScore: number, findings: readonly Finding[]): Books {
   const max = maxOf(items, maxScore);
   const spent = new Map<string, number>();
-  const settledOf = new Map<Finding, Finding>();
-  const settle = (f: Finding, left: number) => {
+  const settled = [...findings];
+  let lost = 0;
+  const settle = (i: number, left: number) => {
+    const f = findings[i];
     const points = tidy(Math.max(0, Math.min(f.pointsLost, left)));
-    settledOf.set(f, points === f.pointsLost ? f : { ...f, pointsLost: points });
+    if (points !== f.pointsLost) settled[i] = { ...f, pointsLost: points };
+    lost = tidy(lost + points);
     return points;
   };
-  for (const f of findings.filter((f) => !offTheScore(f))) {
+  findings.forEach((f, i) => {
+    if (offTheScore(f)) return;
     const { instance, item } = poolsOf(f, items, max);
-    const points = settle(f, Math.min(instance.worth - (spent.get(instance.key) ?? 0), item.worth - (spent.get(item.key) ?? 0)));
+    const points = settle(i, Math.min(instance.worth - (spent.get(instance.key) ?? 0), item.worth - (spent.get(item.key) ?? 0)));
     spent.set(instance.key, tidy((spent.get(instance.key) ?? 0) + points));
     if (item.key !== instance.key) spent.set(item.key, tidy((spent.get(item.key) ?? 0) + points));
-  }
-  let lost = tidy([...settledOf.values()].reduce((sum, f) => sum + f.pointsLost, 0));
-  for (const f of findings.filter(offTheScore)) lost = tidy(lost + settle(f, max - lost));
-  const settled = findings.map((f) => settledOf.get(f)!);
+  });
+  // Then the deductions off the score, out of what the items' findings left.
+  findings.forEach((f, i) => {
+    if (offTheScore(f)) settle(i, max - lost);
+  });
   const rows = (items ?? []).map(({ item, count, each }) => {
     const available = tidy(each * count);
     const itemLost = tidy(settled.reduce((sum, f) => (f.rubricItem === item ? sum + f.pointsLost : sum), 0));

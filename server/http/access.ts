@@ -8,7 +8,7 @@ import type { StaffCaller } from '../store/tokens.ts';
  * - `instructor`: an instructor of the course the URL points into (or the admin);
  * - `course`: any staff of that course;
  * - `section`: an instructor of the course, or a TA assigned to the section the URL points into;
- * - `signed-in`: anyone with a valid token or session (the route itself shows only what they may see);
+ * - `signed-in`: staff or the admin, with a valid token or session (the route itself shows only what they may see);
  * - `student`: a student signed in with their access code, within their own course and section;
  * - `public`: anyone, signed in or not (signing in and out).
  * Anything outside the caller's reach answers 404, exactly as a missing resource does. A student
@@ -52,7 +52,10 @@ export function authorize(caller: Caller, access: Access, scope: Place): void {
   if (scope.sectionId === undefined || !caller.sectionIds.includes(scope.sectionId)) throw notFound();
 }
 
-/** A student passes only on student routes, and only into their own course and section; no one else passes there. */
+/**
+ * A student passes only on student routes, and only into their own course and section; no one else
+ * passes there. Within the section the route itself keeps to the student's own rows (by `studentRowId`).
+ */
 function authorizeStudent(caller: Caller, access: Access, scope: Place): void {
   if (caller.kind !== 'student' || access !== 'student') throw notFound();
   if (scope.courseId !== undefined && scope.courseId !== caller.courseId) throw notFound();

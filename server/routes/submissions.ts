@@ -2,7 +2,7 @@ import type { Kysely } from 'kysely';
 import { z } from 'zod';
 import { isStorableText, StudentId, UNSTORABLE_TEXT } from '../../schemas/common.ts';
 import { Code } from '../../schemas/result.ts';
-import { overrideLimit } from '../checks/rubric-books.ts';
+import { OFF_THE_SCORE, overrideLimit } from '../checks/rubric-books.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { signalCodesOf } from '../../kinds/registry.ts';
@@ -108,7 +108,8 @@ export const submissionRoutes = [
       if (!current || limit === undefined) throw new ApiError('invalid-input', undefined, [{ path: 'body.findingId', message: 'no such finding in the latest result' }]);
       if (pointsLost > limit) {
         const item = current.itemKey ?? current.rubricItem ?? 'of this finding';
-        throw new ApiError('beyond-rubric-item', undefined, [{ path: 'body.pointsLost', message: `points must be between 0 and ${limit}, what rubric item ${item} has left` }]);
+        const left = current.rubricItem === OFF_THE_SCORE ? 'what the score has left' : `what rubric item ${item} has left`;
+        throw new ApiError('beyond-rubric-item', undefined, [{ path: 'body.pointsLost', message: `points must be between 0 and ${limit}, ${left}` }]);
       }
       await insertOverride(db, { submissionId, findingId, pointsBefore: current.pointsLost, pointsAfter: pointsLost, reason, reasonShown: showReason, staffId: staffIdOf(caller) });
       return reply.code(201).send(await submissionView(db, scope.submission));

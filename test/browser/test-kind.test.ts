@@ -53,7 +53,7 @@ describe.skipIf(!chromiumPresent)('the workspace with the test kind', () => {
     const answer = await created;
     expect(answer.status()).toBe(201);
     const assignment = (await answer.json()) as { id: number; settings: unknown };
-    expect(assignment.settings).toEqual({ kind: DECAY_RUNS, tolerance: 0.03, pointsPerRun: 2, minReadings: 5 });
+    expect(assignment.settings).toEqual({ kind: DECAY_RUNS, tolerance: 0.03, pointsPerRun: 2, minReadings: 5, late: { policy: 'grade', points: 0 } });
 
     const stored = (await call(api.app, 'POST', `/v1/sections/${s.sectionA.id}/assignments/${assignment.id}/submissions`, s.instructorToken, SECTION, 201)).body.stored as Array<{ submissionId: number }>;
     await page.goto(`${origin}/#/section/${s.sectionA.id}/assignment/${assignment.id}`);

@@ -77,6 +77,19 @@ describe('assignment settings: PUT and PATCH', () => {
     expect(await stored()).toEqual(before);
   });
 
+  it('the late policy: deduct without points is a 400 naming settings.late.points; with points it is stored', async () => {
+    const before = await stored();
+    // Created without a late policy: the default, graded as usual.
+    expect(before.settings.late).toEqual({ policy: 'grade', points: 0 });
+    const noPoints = await call(api.app, 'PATCH', url(), s.instructorToken, { settings: { late: { policy: 'deduct' } } });
+    expect(noPoints.status).toBe(400);
+    expect(noPoints.body.error.details.map((d: { path: string }) => d.path)).toEqual(['body.settings.late.points']);
+    expect(await stored()).toEqual(before);
+    const deduct = await call(api.app, 'PATCH', url(), s.instructorToken, { settings: { late: { policy: 'deduct', points: 2 } } }, 200);
+    expect(deduct.body.settings.late).toEqual({ policy: 'deduct', points: 2 });
+    await call(api.app, 'PATCH', url(), s.instructorToken, { settings: { late: { policy: 'grade', points: 0 } } }, 200);
+  });
+
   it('the OpenAPI document has both, and says a PUT may answer 422', async () => {
     const doc = (await call(api.app, 'GET', '/openapi.json', undefined, undefined, 200)).body;
     const path = doc.paths['/v1/assignments/{assignmentId}/settings'];
