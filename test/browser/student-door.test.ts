@@ -1,4 +1,4 @@
-import { mkdir, readFile } from 'node:fs/promises';
+import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
@@ -236,6 +236,26 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
     }
     expect(problems).toEqual([]);
     await staff.close();
+    await context.close();
+  });
+
+  it('takes the kind’s CSV file itself, without a student_id column, and answers with the form check', async () => {
+    const file = join(tmpdir(), `rateproof-own-readings-${process.pid}.csv`);
+    await writeFile(file, `${readings.map((r) => r.join(',')).join('\n')}\n`);
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const problems = watchProblems(page);
+    await page.goto(`${origin}/student`);
+    await page.getByLabel('Access code').fill(await issueCode('S-004'));
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('link', { name: 'Hand in your values' }).click();
+    await page.getByText('Or upload your CSV files').click();
+    await page.getByLabel('readings.csv').setInputFiles(file);
+    await page.getByRole('button', { name: 'Hand in these files' }).click();
+    await page.getByRole('heading', { name: 'Version 1 handed in' }).waitFor();
+    // The same readings as the grid's (4 runs of 16, counted by hand in the example file).
+    expect(await page.locator('.form-lines li').allTextContents()).toContain('4 runs read, 16 readings each');
+    expect(problems).toEqual([]);
     await context.close();
   });
 });
