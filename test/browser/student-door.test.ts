@@ -226,6 +226,11 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
     const row = ta.locator('table.results tbody tr', { hasText: 'S-003' });
     await row.getByText('held until accepted').waitFor();
     await shoot(ta, 'staff-results-held', 390);
+    // The student's page says so too, and offers the same action; the results table's is used here.
+    await row.getByRole('link', { name: 'S-003' }).click();
+    await ta.getByText('Handed in after the deadline and held until accepted.').waitFor();
+    await ta.getByRole('button', { name: 'Accept late work' }).waitFor();
+    await ta.goBack();
     await row.getByRole('button', { name: 'Accept late work' }).click();
     await expect.poll(() => row.locator('td[data-label="Late"]').textContent()).toBe('late');
     const rows = (await call(api.app, 'GET', results(), s.taAToken, undefined, 200)).body as Array<{ studentId: string; held: boolean; released: boolean; feedbackFirstReadAt: string | null }>;

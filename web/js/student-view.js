@@ -146,8 +146,22 @@ export async function studentView(place, submissionId, failure) {
     const release = view.release;
     // Only the latest version can be released: a student sees their latest release of any version.
     const latestVersion = Math.max(...history.map((v) => v.version));
+    const acceptLate = async () => {
+      try {
+        await api('POST', `/v1/submissions/${submissionId}/accept-late`);
+        view = /** @type {View} */ (await api('GET', `/v1/submissions/${submissionId}`));
+        draw();
+      } catch (error) {
+        failure(error);
+      }
+    };
+    // Late work held under the assignment's setting is released only once a TA accepts it.
     const releaseButton = (/** @type {string} */ label) =>
-      view.version < latestVersion ? h('p', {}, `Version ${latestVersion} is the latest; only it can be released.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, label);
+      view.version < latestVersion
+        ? h('p', {}, `Version ${latestVersion} is the latest; only it can be released.`)
+        : view.held
+          ? h('p', { class: 'changed-note' }, 'Handed in after the deadline and held until accepted. ', h('button', { type: 'button', onclick: acceptLate }, 'Accept late work'))
+          : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, label);
     releaseArea.append(
       ...(release && !release.changedSinceRelease
         ? [h('p', {}, `Released ${when(release.at)}.`)]
@@ -167,6 +181,7 @@ export async function studentView(place, submissionId, failure) {
     fill(root,
       h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', h('a', { href: base }, `Section ${place.section.name} · ${place.assignment.title}`)),
       h('h1', {}, `Student ${view.studentId}`),
+      view.late && !view.held ? h('p', { class: 'late-mark' }, 'Handed in after the deadline.') : null,
       h('div', { class: 'toolbar' }, h('div', {}, h('label', { for: 'version' }, 'Version '), versions), releaseArea, h('nav', { class: 'downloads', 'aria-label': 'Downloads' }, h('a', { href: `/v1/submissions/${submissionId}/feedback.pdf`, download: '' }, 'Feedback sheet (PDF)'))),
       h('p', { class: 'score', role: 'status', tabindex: '-1' }, result ? (result.status === 'checked' ? `Score ${num(result.score)} of ${num(result.maxScore)}` : 'Refused by the checker: the data could not be graded') : 'Not graded yet'),
       h('p', { class: 'caution' }, 'Each cause named below is a likely cause read from the numbers, for you to review: not a verdict. You can change the points of any finding, with a reason; nothing reaches the student until you release it.'),
