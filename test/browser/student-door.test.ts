@@ -121,6 +121,10 @@ describe.skipIf(!chromiumPresent)("the students' own door in a browser", () => {
       await page.getByText('Nothing handed in yet.').waitFor();
       await page.getByText('Feedback: not released yet.').waitFor();
       await shoot(page, 'student-home', width);
+      // The staff's address sends a student's session to their own pages.
+      await page.goto(origin);
+      await page.waitForURL(`${origin}/student`);
+      await page.getByText('Nothing handed in yet.').waitFor();
 
       await page.getByRole('link', { name: 'Hand in your values' }).click();
       // Pasted with the header line: by column name; the reported values without one: from the cell on.
