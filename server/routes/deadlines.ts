@@ -3,7 +3,7 @@ import { staffIdOf } from '../http/access.ts';
 import { defineRoute } from '../http/route-table.ts';
 import { IdParam } from '../http/schemas.ts';
 import { deadlineOf, setDeadline } from '../store/deadlines.ts';
-import { acceptLate, lateStanding } from '../store/late-work.ts';
+import { acceptLate, lateStanding } from '../store/late-acceptance.ts';
 import { DeadlineChange, DeadlineView, LateAccepted } from '../../schemas/api/deadlines.ts';
 
 const params = z.object({ sectionId: IdParam, assignmentId: IdParam });

@@ -1,5 +1,7 @@
+import type { Kysely } from 'kysely';
 import { z } from 'zod';
 import { documentName } from '../../reports/file-names.ts';
+import type { ExperimentKind } from '../checks/experiment-kind.ts';
 import { ApiError } from '../errors.ts';
 import { assignmentOf } from '../grading/assignment-of.ts';
 import { latePolicyOf } from '../grading/late-work.ts';
@@ -12,6 +14,7 @@ import { defineRoute } from '../http/route-table.ts';
 import { IdParam } from '../http/schemas.ts';
 import { csrfTokenOf, readSessionCookie } from '../http/session-cookie.ts';
 import { withStudentColumn } from '../input/own-student-column.ts';
+import type { Database } from '../store/database.ts';
 import type { StudentCaller } from '../store/student-access.ts';
 import { assignmentsWithDeadlines, enrolledStudent, ownReleases, ownVersions, recordFeedbackRead } from '../store/student-pages.ts';
 import { idKey } from '../store/students.ts';
@@ -30,7 +33,7 @@ function ownId(caller: StudentCaller, named: unknown, path: string): void {
 }
 
 /** The submission a student sent: the JSON body, or the one submission their CSV files hold (student_id filled in where left out). */
-async function ownSubmission(caller: StudentCaller, kind: Parameters<typeof submissionsFromCsv>[0], body: Record<string, unknown> | null | undefined, upload: { csvFiles: Record<string, string> } | null) {
+async function ownSubmission(caller: StudentCaller, kind: ExperimentKind, body: Record<string, unknown> | null | undefined, upload: { csvFiles: Record<string, string> } | null) {
   if (upload) {
     const csvFiles = Object.fromEntries(Object.entries(upload.csvFiles).map(([name, text]) => [name, withStudentColumn(text, caller.studentId)]));
     const { submissions } = await submissionsFromCsv(kind, { csvFiles });
@@ -45,7 +48,7 @@ async function ownSubmission(caller: StudentCaller, kind: Parameters<typeof subm
 }
 
 /** A student's latest version of the URL's assignment, and what was released of it; 404 until something was. */
-async function releasedOf(db: Parameters<typeof latestSubmissionOf>[0], caller: StudentCaller, assignmentId: number) {
+async function releasedOf(db: Kysely<Database>, caller: StudentCaller, assignmentId: number) {
   const latest = await latestSubmissionOf(db, caller.studentRowId, assignmentId);
   const released = latest && (await releasedToStudent(db, latest));
   if (!released) throw notFound('no feedback has been released to you for this assignment yet');

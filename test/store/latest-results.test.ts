@@ -4,6 +4,7 @@ import * as latestResultsMigration from '../../migrations/2026-12-05T1400-latest
 import type { Database } from '../../server/store/database.ts';
 import { sectionLatestResults } from '../../server/store/latest-results.ts';
 import { insertReleases } from '../../server/store/releases.ts';
+import { recordFeedbackRead } from '../../server/store/student-pages.ts';
 import { setEnrolment } from '../../server/store/students.ts';
 import { insertOverride, insertResults, storeGraded, type StoredResult } from '../../server/store/submissions.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
@@ -100,5 +101,31 @@ describe('latest results of a section', () => {
     // Q-01 (version 2, its regrade), Q-02 (version 2), Q-04 (version 1): three rows, as kept.
     expect(after.rows.map((r) => r.version)).toEqual([2, 2, 1]);
     expect(after.rows).toEqual(before.rows);
+  });
+
+  it("how a version came in, and the student's first read of the release they are shown, are on the row in the same read", async () => {
+    const q01 = (await page()).get('Q-01')!.latest!;
+    expect(q01.submission).toMatchObject({ source: 'staff', late: false, held: false });
+    expect(q01.feedbackFirstReadAt).toBeNull();
+    await insertReleases(db, [{ submissionId: q01.submission.submissionId, resultId: q01.result.resultId, overridesThrough: 0, choicesThrough: 0 }], staff);
+    const releaseId = (await page()).get('Q-01')!.latest!.release!.id;
+    await recordFeedbackRead(db, releaseId, row['Q-01']);
+    const firstRead = (await page()).get('Q-01')!.latest!.feedbackFirstReadAt;
+    expect(firstRead).toBeInstanceOf(Date);
+    // Opened again: the first time stays.
+    await recordFeedbackRead(db, releaseId, row['Q-01']);
+    expect((await page()).get('Q-01')!.latest!.feedbackFirstReadAt).toEqual(firstRead);
+
+    // A late version from the student's own door, held: the release they read is still the one shown.
+    await db.transaction().execute((trx) =>
+      storeGraded(trx, assignment, null, gradedWith, [{ studentRowId: row['Q-01'], payloadJson: '{}', result: graded(3) }], { source: 'student', late: true, held: true }),
+    );
+    const held = (await page()).get('Q-01')!.latest!;
+    expect(held.submission).toMatchObject({ version: 3, source: 'student', late: true, held: true });
+    expect([held.release?.id, held.feedbackFirstReadAt]).toEqual([releaseId, firstRead]);
+
+    // Released anew: the new release has not been read.
+    await insertReleases(db, [{ submissionId: held.submission.submissionId, resultId: held.result.resultId, overridesThrough: 0, choicesThrough: 0 }], staff);
+    expect((await page()).get('Q-01')!.latest!.feedbackFirstReadAt).toBeNull();
   });
 });
