@@ -84,7 +84,7 @@ async function route() {
     header(student);
     const m = /^#\/assignment\/(\d+)\/(submit|feedback)$/.exec(location.hash);
     const assignment = m && student.assignments.find((a) => a.id === Number(m[1]));
-    const view = !m || !assignment ? assignmentsView(student) : m[2] === 'submit' ? await submitView(student, assignment, readMe, failure) : await feedbackView(assignment);
+    const view = !m || !assignment ? assignmentsView(student) : m[2] === 'submit' ? await submitView(student, assignment, failure) : await feedbackView(assignment);
     if (stale()) return;
     show(view);
     // Focus moves to the new content for keyboard and screen-reader users; the page starts at its top.

@@ -34,10 +34,9 @@ const OWN_COLUMN = 'student_id';
  * grade: the feedback comes when the teaching staff release it.
  * @param {StudentMe} me
  * @param {StudentAssignment} assignment
- * @param {() => Promise<unknown>} refresh reads the student's assignments again (their versions)
  * @param {Failure} failure
  */
-export async function submitView(me, assignment, refresh, failure) {
+export async function submitView(me, assignment, failure) {
   const kind = await kindDescription(assignment.kind);
   const files = kind?.upload.csv ?? [];
   const url = `/v1/student/assignments/${assignment.id}/submissions`;
@@ -73,7 +72,6 @@ export async function submitView(me, assignment, refresh, failure) {
         ),
       );
       outcome.focus();
-      await refresh();
     } catch (error) {
       if (error instanceof ApiFailure && error.status === 400) {
         marked?.(error.details);
