@@ -6,7 +6,8 @@ import fp from 'fastify-plugin';
 
 /**
  * The browser workspace: the files under web/, read once at start-up and served from memory at `/`
- * (index.html) and `/web/...`. No build step and nothing from another origin: the page works
+ * (index.html, the staff's workspace), `/student` (student.html, the students' own pages, the
+ * address printed on their access codes) and `/web/...`. No build step and nothing from another origin: the page works
  * offline. A Content-Security-Policy allows scripts and styles from this origin only, never inline.
  */
 export const CONTENT_SECURITY_POLICY =
@@ -40,6 +41,7 @@ function filesUnder(dir: string, root = dir): Map<string, { body: Buffer; type: 
 export const workspaceFilesPlugin = fp(async (app: FastifyInstance) => {
   const files = filesUnder(webFolder());
   const index = files.get('/web/index.html')!;
+  const student = files.get('/web/student.html')!;
   const headers = {
     'content-security-policy': CONTENT_SECURITY_POLICY,
     'x-content-type-options': 'nosniff',
@@ -48,6 +50,7 @@ export const workspaceFilesPlugin = fp(async (app: FastifyInstance) => {
     'cache-control': 'no-cache',
   };
   app.get('/', { schema: { hide: true } }, async (_request, reply) => reply.headers(headers).type(index.type).send(index.body));
+  app.get('/student', { schema: { hide: true } }, async (_request, reply) => reply.headers(headers).type(student.type).send(student.body));
   app.get('/web/*', { schema: { hide: true } }, async (request, reply) => {
     const file = files.get(request.url.split('?')[0]);
     if (!file) return reply.callNotFound();

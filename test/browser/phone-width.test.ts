@@ -8,7 +8,7 @@ import { seededRandom } from '../../server/demo/seeded-random.ts';
 import { generateAssignment } from '../../kinds/first-order-catalysis/demo/submission-generator.ts';
 import { call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
 import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
-import { signIn as signInAt, watchProblems } from '../support/workspace-page.ts';
+import { pageOverflow, signIn as signInAt, watchProblems } from '../support/workspace-page.ts';
 
 if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
 
@@ -51,20 +51,6 @@ describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', ()
 
   const signIn = (page: Page, token: string) => signInAt(page, origin, token);
 
-  /**
-   * The page's own width against the window's: more means the whole page scrolls sideways. The
-   * elements reaching past the window's edge are named, so a failure says where to look.
-   */
-  const widths = (page: Page) =>
-    page.evaluate(() => {
-      const client = document.documentElement.clientWidth;
-      const past = [...document.querySelectorAll('body *')]
-        .filter((el) => el.getBoundingClientRect().right > client + 0.5)
-        .slice(0, 5)
-        .map((el) => `${el.tagName.toLowerCase()}.${el.getAttribute('class') ?? ''} (${Math.round(el.getBoundingClientRect().right)} px)`);
-      return { scroll: document.documentElement.scrollWidth, client, past };
-    });
-
   /** Opens every folded part of the page (upload, override and settings forms), the widest state. */
   async function unfold(page: Page) {
     await page.evaluate(() => document.querySelectorAll('main details').forEach((d) => ((d as HTMLDetailsElement).open = true)));
@@ -73,7 +59,7 @@ describe.skipIf(!chromiumPresent)('the workspace at phone and laptop widths', ()
   async function checkAndShoot(page: Page, name: string, width: number) {
     await unfold(page);
     await page.screenshot({ path: join(SHOTS, `${name}-${width}.png`), fullPage: true });
-    const w = await widths(page);
+    const w = await pageOverflow(page);
     expect(w.scroll, `${name} at ${width}: page ${w.scroll} px wide in a window of ${w.client}; past the edge: ${w.past.join(', ')}`).toBeLessThanOrEqual(w.client);
     // The header spans the whole page, not only the part first in the window.
     const header = await page.locator('header.masthead').boundingBox();

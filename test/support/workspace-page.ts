@@ -19,3 +19,27 @@ export function watchProblems(page: Page, problems: string[] = []): string[] {
   page.on('response', (r) => r.status() >= 400 && problems.push(`${r.status()}: ${r.url()}`));
   return problems;
 }
+
+/**
+ * The page's own width against the window's: more means the whole page scrolls sideways. The
+ * elements reaching past the window's edge are named, so a failure says where to look.
+ */
+export function pageOverflow(page: Page): Promise<{ scroll: number; client: number; past: string[] }> {
+  return page.evaluate(() => {
+    const client = document.documentElement.clientWidth;
+    const past = [...document.querySelectorAll('body *')]
+      .filter((el) => el.getBoundingClientRect().right > client + 0.5)
+      .slice(0, 5)
+      .map((el) => `${el.tagName.toLowerCase()}.${el.getAttribute('class') ?? ''} (${Math.round(el.getBoundingClientRect().right)} px)`);
+    return { scroll: document.documentElement.scrollWidth, client, past };
+  });
+}
+
+/** A block of cells as a spreadsheet puts it on the clipboard (tab-separated lines), pasted into the element `selector` finds. */
+export async function pasteCells(page: Page, selector: string, rows: string[][]): Promise<void> {
+  await page.locator(selector).evaluate((el, text) => {
+    const data = new DataTransfer();
+    data.setData('text/plain', text);
+    el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+  }, rows.map((r) => r.join('\t')).join('\r\n'));
+}

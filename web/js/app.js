@@ -110,7 +110,10 @@ async function route() {
   try {
     if (!me) {
       // The probe answers 200 either way, so a visitor not yet signed in sees no failed request.
-      if (!(/** @type {SessionState} */ (await api('GET', '/v1/session'))).signedIn) {
+      const state = /** @type {SessionState} */ (await api('GET', '/v1/session'));
+      // A student's session belongs on the students' pages.
+      if (state.as === 'student') return location.replace('/student');
+      if (!state.signedIn) {
         fill(who);
         show(signInView(route));
         return;
@@ -139,7 +142,7 @@ async function route() {
     }
     if (stale()) return;
     if (!m || !place) return home(me);
-    const view = m[3] ? await studentView(place, Number(m[3]), failure) : await sectionView(place, failure);
+    const view = m[3] ? await studentView(place, Number(m[3]), failure) : await sectionView(place, failure, me.role === 'instructor');
     if (stale()) return;
     show(view);
     // Focus moves to the new content for keyboard and screen-reader users; the page starts at its top.

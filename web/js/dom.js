@@ -101,10 +101,27 @@ export function num(value) {
 /** @type {Record<string, string>} */
 const SUPERSCRIPT = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
 
+/** A time in a table cell, short and unbroken: `5 Dec, 18:38`. @param {string} iso */
+export function shortWhen(iso) {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '' : d.toLocaleString(undefined, { month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
+}
+
+/** A time to the minute with its date in words, for a deadline: `Dec 7, 2026, 5:00 PM`. @param {string} iso */
+export function minuteWhen(iso) {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? '' : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+}
+
 /** @param {string} iso */
 export function when(iso) {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? '' : d.toLocaleString();
+}
+
+/** The reader's time zone as their browser names it (`Europe/Berlin`), else its offset. */
+export function zoneName() {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone || `UTC${-new Date().getTimezoneOffset() / 60 >= 0 ? '+' : ''}${-new Date().getTimezoneOffset() / 60}`;
 }
 
 /**

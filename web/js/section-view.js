@@ -1,6 +1,8 @@
 import { api } from './api.js';
-import { fill, h, marked, num } from './dom.js';
+import { fill, h, marked, num, shortWhen } from './dom.js';
 import { askToConfirm } from './confirm.js';
+import { accessCodesPanel } from './access-codes.js';
+import { deadlinePanel } from './deadline-panel.js';
 import { kindDescription } from './kinds.js';
 import { sectionDownload } from './section-download.js';
 import { uploadPanel } from './upload-panel.js';
@@ -9,7 +11,8 @@ import { uploadPanel } from './upload-panel.js';
  * @import { Failure } from './api.js'
  * @import { Props, Children } from './dom.js'
  * @import { MyCourse } from '../../schemas/api/me.ts'
- * @import { Released, ResultRow } from '../../schemas/api/results.ts'
+ * @import { Released, ResultRow as ResultRowOfService } from '../../schemas/api/results.ts'
+ * @import { AsJson } from '../../schemas/api/as-json.ts'
  * @import { RunMatch, SectionSignals } from '../../schemas/api/signals.ts'
  * @import { KindDescription } from '../../schemas/api/kinds.ts'
  */
@@ -17,7 +20,8 @@ import { uploadPanel } from './upload-panel.js';
  * The section and assignment a view shows, and their course, as the caller's listing names them.
  * @typedef {{ course: MyCourse, section: MyCourse['sections'][number], assignment: MyCourse['assignments'][number] }} Place
  */
-/** @typedef {'studentId' | 'version' | 'status' | 'score' | 'errors' | 'warnings' | 'codes' | 'released'} Column */
+/** A results row as the page reads it, its times as ISO strings. @typedef {AsJson<ResultRowOfService>} ResultRow */
+/** @typedef {'studentId' | 'version' | 'submittedAt' | 'late' | 'status' | 'score' | 'errors' | 'warnings' | 'codes' | 'released' | 'feedbackFirstReadAt'} Column */
 
 /** @type {Record<string, [label: string, keep: (row: ResultRow) => boolean]>} */
 const STATUS_FILTERS = {
@@ -29,13 +33,17 @@ const STATUS_FILTERS = {
   withdrawn: ['Withdrawn', (r) => r.enrolment === 'withdrawn'],
   unreleased: ['Not yet released', (r) => r.submissionId !== null && !r.released],
   changed: ['Changed since release', (r) => r.changedSinceRelease],
+  late: ['Handed in late', (r) => r.late],
+  held: ['Late, waiting to be accepted', (r) => r.held],
+  unread: ['Released, feedback not read', (r) => r.released && r.feedbackFirstReadAt === null],
 };
 
 /**
- * A release covers the results not yet released and those changed since (a regrade, an override).
+ * A release covers the results not yet released and those changed since (a regrade, an override),
+ * save late work held until a TA accepts it.
  * @param {ResultRow} r
  */
-const releaseDue = (r) => STATUS_FILTERS.unreleased[1](r) || r.changedSinceRelease;
+const releaseDue = (r) => !r.held && (STATUS_FILTERS.unreleased[1](r) || r.changedSinceRelease);
 /**
  * @param {number} n
  * @param {string} word
@@ -46,12 +54,15 @@ const plural = (n, word) => `${n} ${word}${n === 1 ? '' : 's'}`;
 const COLUMNS = [
   ['studentId', 'Student'],
   ['version', 'Version'],
+  ['submittedAt', 'Submitted'],
+  ['late', 'Late'],
   ['status', 'Status'],
   ['score', 'Score'],
   ['errors', 'Errors'],
   ['warnings', 'Warnings'],
   ['codes', 'Findings'],
   ['released', 'Released'],
+  ['feedbackFirstReadAt', 'Read'],
 ];
 
 const COLUMN_LABELS = Object.fromEntries(COLUMNS);
@@ -132,13 +143,19 @@ function signalsPanel(signals, words) {
  * One section's results for one assignment: every roster student, filters, counts, release, files.
  * @param {Place} place
  * @param {Failure} failure
+ * @param {boolean} instructor whether the caller sets the deadline and issues access codes
  */
-export async function sectionView(place, failure) {
+export async function sectionView(place, failure, instructor) {
   const base = `/v1/sections/${place.section.id}/assignments/${place.assignment.id}`;
   const kind = await kindDescription(place.assignment.kind);
   /** @type {{ status: string, code: string, search: string, sort: Column, descending: boolean }} */
   const state = { status: 'all', code: '', search: '', sort: 'studentId', descending: false };
   let rows = /** @type {ResultRow[]} */ (await api('GET', `${base}/results`));
+  // The codes are the section's, not the assignment's: a failure there leaves the results page whole.
+  const [deadline, codes] = await Promise.all([
+    deadlinePanel(base, instructor, failure),
+    accessCodesPanel(place, instructor, failure).catch(() => h('p', { class: 'hint' }, 'The students’ access codes could not be loaded; reload the page to try again.')),
+  ]);
   // The signals compare every pair of students, which takes longer than the table: the table is drawn
   // first and the signals panel fills in when they arrive.
   const signalsSlot = h('div', { 'aria-live': 'polite' });
@@ -163,8 +180,9 @@ export async function sectionView(place, failure) {
    */
   const compare = (a, b) => {
     const key = state.sort;
-    const x = key === 'codes' ? a.codes.length : a[key];
-    const y = key === 'codes' ? b.codes.length : b[key];
+    // Lateness ranks held work above late above on time; findings by how many.
+    const value = (/** @type {ResultRow} */ r) => (key === 'codes' ? r.codes.length : key === 'late' ? (r.held ? 2 : r.late ? 1 : 0) : r[key]);
+    const [x, y] = [value(a), value(b)];
     // A column holds words, numbers, or yes and no (false before true, as 0 before 1).
     const before = typeof x === 'string' && typeof y === 'string' ? x < y : Number(x) < Number(y);
     const rank = x === y ? 0 : x === null ? 1 : y === null ? -1 : before ? -1 : 1;
@@ -219,10 +237,10 @@ export async function sectionView(place, failure) {
       question: `Release ${results} of this section to the students?${which} They will see their feedback sheets; overrides can still be made later and are released the same way.`,
       yes: `Release ${results}`,
       act: async () => {
-        const { released } = /** @type {Released} */ (await api('POST', `${base}/release`));
+        const { released, held } = /** @type {Released} */ (await api('POST', `${base}/release`));
         rows = /** @type {ResultRow[]} */ (await api('GET', `${base}/results`));
         draw();
-        releaseArea.append(h('p', { role: 'status' }, `${released} result${released === 1 ? '' : 's'} released to students.`));
+        releaseArea.append(h('p', { role: 'status' }, `${released} result${released === 1 ? '' : 's'} released to students.`, held ? ` ${plural(held, 'late submission')} held back until accepted.` : ''));
       },
       cancel: drawRelease,
       failure,
@@ -242,6 +260,29 @@ export async function sectionView(place, failure) {
     );
   }
 
+  /**
+   * Late work is marked; held work has the action that lets the next release include it.
+   * @param {ResultRow} r
+   */
+  function lateCell(r) {
+    if (r.held && r.submissionId !== null) {
+      const id = r.submissionId;
+      return [
+        h('span', { class: 'held-mark' }, 'held until accepted '),
+        h('button', { type: 'button', class: 'small', onclick: async () => {
+          try {
+            await api('POST', `/v1/submissions/${id}/accept-late`);
+            await refresh();
+          } catch (error) {
+            failure(error);
+          }
+        } }, 'Accept late work'),
+      ];
+    }
+    // On time is the rule: only late work is marked.
+    return r.late ? h('span', { class: 'late-mark' }, 'late') : '';
+  }
+
   function draw() {
     // The filter is also set from the changed-since-release note: the select follows it.
     statusSelect.value = state.status;
@@ -258,12 +299,15 @@ export async function sectionView(place, failure) {
           { class: r.submissionId === null ? 'missing' : r.errors > 0 ? 'has-errors' : '' },
           h('th', { scope: 'row' }, r.submissionId === null ? r.studentId : h('a', { href: `#/section/${place.section.id}/assignment/${place.assignment.id}/submission/${r.submissionId}` }, r.studentId), r.submissionId !== null && r.enrolment === 'withdrawn' ? ' (withdrawn)' : ''),
           cell('version', {}, r.version ?? '–'),
+          cell('submittedAt', { class: 'when', title: r.submittedAt ? new Date(r.submittedAt).toLocaleString() : undefined }, r.submittedAt ? [shortWhen(r.submittedAt), r.source === 'student' ? h('span', { class: 'source' }, 'by the student') : null] : ''),
+          cell('late', {}, lateCell(r)),
           cell('status', {}, r.status === null ? '–' : (STATUS_WORDS[r.status] ?? r.status)),
           cell('score', { class: 'number' }, r.score === null ? '–' : `${num(r.score)} / ${num(r.maxScore)}`, r.changedSinceRelease ? h('span', { class: 'released-score' }, `released ${num(r.releasedScore)}${r.releasedVersion === r.version ? '' : ` (version ${r.releasedVersion})`}`) : null),
           cell('errors', { class: 'number' }, r.errors),
           cell('warnings', { class: 'number' }, r.warnings),
           cell('codes', {}, r.codes.join(', ')),
-          cell('released', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : 'no'),
+          cell('released', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : r.held ? 'held' : 'no'),
+          cell('feedbackFirstReadAt', { class: 'when', title: r.feedbackFirstReadAt ? new Date(r.feedbackFirstReadAt).toLocaleString() : undefined }, r.feedbackFirstReadAt ? shortWhen(r.feedbackFirstReadAt) : r.released ? 'not yet' : ''),
         ),
       ),
     );
@@ -289,6 +333,7 @@ export async function sectionView(place, failure) {
       'div',
       { class: 'toolbar' },
       releaseArea,
+      deadline,
       h(
         'nav',
         { class: 'downloads', 'aria-label': 'Downloads' },
@@ -298,6 +343,7 @@ export async function sectionView(place, failure) {
       ),
     ),
     uploadPanel(base, kind?.upload ?? { json: true }, refresh, failure),
+    codes,
     signalsSlot,
     counts,
     h(

@@ -33,6 +33,7 @@ export function signInView(onSignedIn) {
     h('p', { id: 'token-help', class: 'hint' }, 'The token your instructor or the service administrator gave you. It is exchanged for a session that ends after 8 hours or when you sign out.'),
     h('button', { type: 'submit', class: 'primary' }, 'Sign in'),
     message,
+    h('p', { class: 'hint other-door' }, 'Students: ', h('a', { href: '/student' }, 'sign in with your access code'), '.'),
   );
   return form;
 }

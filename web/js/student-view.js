@@ -2,12 +2,12 @@ import { api, ApiFailure } from './api.js';
 import { fill, h, marked, num, when } from './dom.js';
 import { askToConfirm } from './confirm.js';
 import { kindDescription } from './kinds.js';
-import { drawPlot } from './plots.js';
+import { comparisonTable, plotFigures, pointsText, rejectedList, stageSections } from './display-parts.js';
 
 /**
  * @import { Failure } from './api.js'
  * @import { Place } from './section-view.js'
- * @import { DisplayPlace, DisplayPlot, DisplayStage, DisplayTable, SubmissionDisplay } from '../../schemas/display.ts'
+ * @import { DisplayPlace, SubmissionDisplay } from '../../schemas/display.ts'
  * @import { CheckResult, Finding, Signal } from '../../schemas/result.ts'
  * @import { SubmissionVersion, SubmissionView } from '../../schemas/api/submissions.ts'
  */
@@ -16,48 +16,7 @@ import { drawPlot } from './plots.js';
  * fields through unnamed; these are the ones the page reads.
  * @typedef {{ status: CheckResult['status'], score: number | null, maxScore: number, findings: Array<Finding & { override?: { originalPointsLost: number, by: string } }>, signals?: Signal[] }} Result
  * @typedef {Omit<SubmissionView, 'result'> & { result: Result | null }} View
- * @typedef {DisplayStage['cards'][number]} Card
  */
-
-/** `−1 point`, `no points lost`, as the sheet writes a card's cost. @param {number} points */
-const pointsText = (points) => (points > 0 ? `−${num(points)} ${points === 1 ? 'point' : 'points'}` : 'no points lost');
-
-/**
- * A cell as the server formatted it: markup as sub/sup, one line per line of the cell; a number cell
- * never wraps inside a number.
- * @param {string} text
- */
-const cellLines = (text) => text.split('\n').map((line) => h('span', { class: 'line' }, ...marked(line)));
-
-/** The sheet's table of reported against refitted values. @param {DisplayTable} table */
-function comparisonTable(table) {
-  return [
-    h('p', { class: 'hint' }, ...marked(table.note)),
-    h(
-      'div',
-      { class: 'table-wrap' },
-      h(
-        'table',
-        { class: 'comparison' },
-        h('caption', {}, table.caption),
-        h('thead', {}, h('tr', {}, table.columns.map((c) => h('th', { scope: 'col', class: c.numeric ? 'number' : undefined }, c.header)))),
-        h('tbody', {}, table.rows.map(([first, ...cells]) => h('tr', {}, h('th', { scope: 'row' }, ...cellLines(first)), cells.map((c, i) => h('td', { class: table.columns[i + 1]?.numeric ? 'number' : undefined }, ...cellLines(c)))))),
-      ),
-    ),
-  ];
-}
-
-/** Each plot with the notes under it (the lines' values, or why one is missing). @param {DisplayPlot[]} plots */
-function plotFigures(plots) {
-  return plots.length
-    ? h(
-        'div',
-        { class: 'plots' },
-        plots.map((plot) => h('figure', { class: 'plot-figure' }, drawPlot(plot), plot.notes.length ? h('figcaption', {}, h('ul', { class: 'hint' }, plot.notes.map((n) => h('li', {}, ...marked(n))))) : null)),
-        h('p', { class: 'hint' }, 'Drawn as on the feedback sheet, from the refit of the student’s own data: solid lines are the refit, dashed lines the student’s own values.'),
-      )
-    : null;
-}
 
 /**
  * One student's latest result: findings by stage, overrides, the comparison, the plots, the versions.
@@ -164,30 +123,6 @@ export async function studentView(place, submissionId, failure) {
     ];
   }
 
-  /** One likely cause, as the sheet shows it, with every place it shows. @param {Card} card */
-  function findingCard(card) {
-    const [first, ...others] = card.places;
-    return h(
-      'li',
-      { class: `finding ${card.severity}` },
-      h('p', { class: 'finding-head' }, h('span', { class: `badge ${card.severity}` }, card.severity), ' ', h('span', {}, ...marked(card.where)), ' · ', h('code', {}, card.codes), ' · ', h('span', { class: 'cost' }, pointsText(card.pointsLost))),
-      card.detail ? h('p', { class: 'hint detail' }, ...marked(card.detail)) : null,
-      h('p', {}, ...marked(card.message)),
-      others.length
-        ? [
-            h('p', {}, others.every((p) => p.pointsLost === 0) ? 'The same likely cause also shows here, counted once (no further points lost):' : 'The same likely cause also shows here:'),
-            h('ul', { class: 'places' }, others.map((p) => h('li', {}, ...marked(p.place), p.values ? h('span', { class: 'values' }, ': ', ...marked(p.values)) : null, p.pointsLost > 0 ? ` (${pointsText(p.pointsLost)})` : null))),
-          ]
-        : null,
-      card.places.map((p) => placeDetail(p, card.places.length === 1 && p === first)),
-    );
-  }
-
-  /** Values that only follow from the student's own numbers at no cost: one line; the places for the TA. @param {NonNullable<DisplayStage['followsFromOwn']>} follows */
-  function followsFromOwn(follows) {
-    return h('div', { class: 'follows' }, h('p', { class: 'hint' }, ...marked(follows.text)), follows.places.map((p) => placeDetail(p, false)));
-  }
-
   function draw() {
     const result = view.result;
     const versions = h(
@@ -211,8 +146,22 @@ export async function studentView(place, submissionId, failure) {
     const release = view.release;
     // Only the latest version can be released: a student sees their latest release of any version.
     const latestVersion = Math.max(...history.map((v) => v.version));
+    const acceptLate = async () => {
+      try {
+        await api('POST', `/v1/submissions/${submissionId}/accept-late`);
+        view = /** @type {View} */ (await api('GET', `/v1/submissions/${submissionId}`));
+        draw();
+      } catch (error) {
+        failure(error);
+      }
+    };
+    // Late work held under the assignment's setting is released only once a TA accepts it.
     const releaseButton = (/** @type {string} */ label) =>
-      view.version < latestVersion ? h('p', {}, `Version ${latestVersion} is the latest; only it can be released.`) : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, label);
+      view.version < latestVersion
+        ? h('p', {}, `Version ${latestVersion} is the latest; only it can be released.`)
+        : view.held
+          ? h('p', { class: 'changed-note' }, 'Handed in after the deadline and held until accepted. ', h('button', { type: 'button', onclick: acceptLate }, 'Accept late work'))
+          : h('button', { type: 'button', class: 'primary', onclick: askRelease, disabled: !result }, label);
     releaseArea.append(
       ...(release && !release.changedSinceRelease
         ? [h('p', {}, `Released ${when(release.at)}.`)]
@@ -232,14 +181,13 @@ export async function studentView(place, submissionId, failure) {
     fill(root,
       h('p', { class: 'crumbs' }, h('a', { href: '#/' }, 'Your sections'), ' / ', h('a', { href: base }, `Section ${place.section.name} · ${place.assignment.title}`)),
       h('h1', {}, `Student ${view.studentId}`),
+      view.late && !view.held ? h('p', { class: 'late-mark' }, 'Handed in after the deadline.') : null,
       h('div', { class: 'toolbar' }, h('div', {}, h('label', { for: 'version' }, 'Version '), versions), releaseArea, h('nav', { class: 'downloads', 'aria-label': 'Downloads' }, h('a', { href: `/v1/submissions/${submissionId}/feedback.pdf`, download: '' }, 'Feedback sheet (PDF)'))),
       h('p', { class: 'score', role: 'status', tabindex: '-1' }, result ? (result.status === 'checked' ? `Score ${num(result.score)} of ${num(result.maxScore)}` : 'Refused by the checker: the data could not be graded') : 'Not graded yet'),
       h('p', { class: 'caution' }, 'Each cause named below is a likely cause read from the numbers, for you to review: not a verdict. You can change the points of any finding, with a reason; nothing reaches the student until you release it.'),
-      display.rejected.length ? h('ul', { class: 'rejected' }, display.rejected.map((r) => h('li', {}, h('strong', {}, ...marked(r.place)), ': ', ...marked(r.message), h('details', {}, h('summary', {}, 'Path'), h('code', {}, r.path))))) : null,
+      rejectedList(display.rejected),
       display.counts && display.stages.length ? h('p', { class: 'counts' }, display.counts) : null,
-      display.stages.map((stage) =>
-        h('section', { class: 'stage' }, h('h2', {}, ...marked(stage.title)), stage.cards.length ? h('ul', { class: 'findings' }, stage.cards.map(findingCard)) : null, stage.followsFromOwn ? followsFromOwn(stage.followsFromOwn) : null),
-      ),
+      stageSections(display, placeDetail),
       display.stages.length === 0 && result?.status === 'checked' ? h('p', {}, 'No findings: every checked value agrees with the refit.') : null,
       result?.signals?.length
         ? h(
@@ -250,7 +198,7 @@ export async function studentView(place, submissionId, failure) {
             h('ul', {}, result.signals.map(signalItem)),
           )
         : null,
-      display.comparison || display.plots.length ? h('section', {}, h('h2', {}, 'Reported and refitted'), display.comparison ? comparisonTable(display.comparison) : null, plotFigures(display.plots)) : null,
+      display.comparison || display.plots.length ? h('section', {}, h('h2', {}, 'Reported and refitted'), display.comparison ? comparisonTable(display.comparison) : null, plotFigures(display.plots, 'Drawn as on the feedback sheet, from the refit of the student’s own data: solid lines are the refit, dashed lines the student’s own values.')) : null,
     );
   }
   draw();
