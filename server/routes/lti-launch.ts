@@ -105,8 +105,9 @@ export const ltiLaunchRoutes = [
         if (!who) throw new LaunchRefused('ticket-unknown');
         const { session } = 'staffId' in who ? await createSession(db, who.staffId, SESSION_HOURS) : await createStudentSession(db, who.studentRowId, SESSION_HOURS);
         reply.header('set-cookie', sessionCookieHeader(request, session, SESSION_HOURS * 3600, request.server.config.secureCookie === 'always'));
-        // The pages read their CSRF token from /v1/me or /v1/student/me, as after any sign-in.
-        return reply.redirect('/', 303);
+        // The pages read their CSRF token from /v1/me or /v1/student/me, as after any sign-in; a student
+        // goes straight to their own pages.
+        return reply.redirect('staffId' in who ? '/' : '/student', 303);
       } catch (error) {
         return refuse(request, reply, error);
       }

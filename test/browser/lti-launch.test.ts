@@ -38,20 +38,21 @@ describe.skipIf(!chromiumPresent)('an LTI launch in a browser', () => {
     await api?.close();
   });
 
-  async function launch(sub: string) {
+  async function launch(sub: string, landing: string) {
     const context = await browser.newContext();
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await page.goto(`${platform.base}/start?sub=${sub}&tool=${encodeURIComponent(tool)}`);
-    await page.waitForURL(`${tool}/`, { timeout: 15_000 });
+    await page.waitForURL(`${tool}${landing}`, { timeout: 15_000 });
+    await page.waitForLoadState('load');
     const cookies = await context.cookies(tool);
     const answer = async (path: string) => page.evaluate(async (p) => (await fetch(p, { credentials: 'same-origin' })).json(), path);
     return { context, cookies, answer, errors };
   }
 
   it('a learner ends on the tool with a Strict session cookie, and their own pages answer', async () => {
-    const { context, cookies, answer, errors } = await launch('sub-browser-learner');
+    const { context, cookies, answer, errors } = await launch('sub-browser-learner', '/student');
     expect(cookies.map((c) => [c.name, c.sameSite, c.httpOnly])).toEqual([['rateproof_session', 'Strict', true]]);
     expect(await answer('/v1/session')).toEqual({ signedIn: true, as: 'student' });
     expect((await answer('/v1/student/me')).section.id).toBe(s.sectionA.id);
@@ -60,7 +61,7 @@ describe.skipIf(!chromiumPresent)('an LTI launch in a browser', () => {
   });
 
   it('an instructor ends in the staff workspace as an instructor of the course', async () => {
-    const { context, answer } = await launch('sub-browser-instructor');
+    const { context, answer } = await launch('sub-browser-instructor', '/');
     expect(await answer('/v1/session')).toEqual({ signedIn: true, as: 'staff' });
     expect((await answer('/v1/me')).role).toBe('instructor');
     await context.close();
