@@ -1,15 +1,20 @@
 import type { CheckResult } from '../schemas/result.ts';
-import { mainErrorCodes, severityCounts } from './result-summary.ts';
+import { causeCounts, mainErrorCodes } from './result-summary.ts';
 
 /**
  * The section's gradebook as CSV: one row per result, then one per roster student who has not
  * submitted (status `not-submitted`, or `withdrawn`; no score), so that no student drops out of a
  * gradebook silently. A withdrawn student who submitted has status `withdrawn` too, with the score
  * and counts of their work kept: it was graded before they left, and what becomes of it is the
- * instructor's decision, which a blank cell would take away.
+ * instructor's decision, which a blank cell would take away. A student whose latest version is late
+ * and held until a TA accepts it has status `held`, its score kept: it is not final, and a TA must see
+ * it to accept it.
  *
- * Columns: student_id, score, max_score, status, errors, warnings, infos, main_codes (the codes of
- * the errors that cost points, most costly first, `;`-joined), assignment (its title, the same on
+ * Columns: student_id, score, max_score, status, causes_costing_points, warnings, infos (the three
+ * counted as the feedback sheet and the results page count them, `causeCounts`: one per likely cause,
+ * so a slip repeated in four values and charged once counts 1; warnings and infos are those that cost
+ * nothing, values that merely follow from the student's own numbers among the infos), main_codes (the
+ * codes of the errors that cost points, most costly first, `;`-joined), assignment (its title, the same on
  * every row, so that gradebooks pasted together still say which is which; last, so that the columns
  * before it stay where they were). A rejected result has an empty score.
  *
@@ -29,9 +34,11 @@ export interface GradebookOptions {
   notSubmitted?: ReadonlyArray<{ studentId: string; withdrawn: boolean }>;
   /** Students who submitted and have since withdrawn. */
   withdrawn?: ReadonlySet<string>;
+  /** Students whose latest version is late and held until a TA accepts it. */
+  held?: ReadonlySet<string>;
 }
 
-export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes', 'assignment'] as const;
+export const GRADEBOOK_COLUMNS = ['student_id', 'score', 'max_score', 'status', 'causes_costing_points', 'warnings', 'infos', 'main_codes', 'assignment'] as const;
 
 const FORMULA_START = /^[=+\-@\t\r]/;
 
@@ -53,16 +60,25 @@ function cellText(cell: Cell): string {
   return cell.number === null ? '' : String(Number(cell.number.toFixed(2)));
 }
 
-function row(result: CheckResult, withdrawn: ReadonlySet<string>): Cell[] {
-  const counts = severityCounts(result.findings);
+type Marked = Pick<GradebookOptions, 'withdrawn' | 'held'>;
+
+// Withdrawn first: what becomes of a withdrawn student's work is decided apart from any late hold.
+function statusOf(result: CheckResult, { withdrawn, held }: Marked): string {
+  if (result.studentId !== null && withdrawn?.has(result.studentId)) return 'withdrawn';
+  if (result.studentId !== null && held?.has(result.studentId)) return 'held';
+  return result.status;
+}
+
+function row(result: CheckResult, marked: Marked): Cell[] {
+  const counts = causeCounts(result.findings);
   return [
     { text: result.studentId ?? '' },
     { number: result.status === 'checked' ? result.score : null },
     { number: result.maxScore },
-    { text: result.studentId !== null && withdrawn.has(result.studentId) ? 'withdrawn' : result.status },
-    { number: counts.errors },
+    { text: statusOf(result, marked) },
+    { number: counts.costingPoints },
     { number: counts.warnings },
-    { number: counts.infos },
+    { number: counts.notes },
     { text: mainErrorCodes(result.findings).join(';') },
   ];
 }
@@ -78,16 +94,14 @@ function notSubmittedRow(student: { studentId: string; withdrawn: boolean }): Ce
  */
 export class GradebookRows {
   private readonly lines: string[] = [GRADEBOOK_COLUMNS.join(',')];
-  private readonly withdrawn: ReadonlySet<string>;
   private readonly assignment: Cell;
 
   constructor(private readonly options: GradebookOptions) {
-    this.withdrawn = options.withdrawn ?? new Set<string>();
     this.assignment = { text: options.assignment };
   }
 
   add(result: CheckResult): void {
-    this.lines.push(this.line(row(result, this.withdrawn)));
+    this.lines.push(this.line(row(result, this.options)));
   }
 
   /** The whole file: the rows so far, then the roster students without a submission. */

@@ -1,6 +1,7 @@
 import type { CheckResult, Finding } from '../schemas/result.ts';
+import { cardCounts } from './feedback/finding-groups.ts';
 
-/** Per-result figures shared by the gradebook and the section summary. */
+/** Each finding counted by its severity: the terminal table, which lists every finding on its own line. */
 export interface SeverityCounts {
   errors: number;
   warnings: number;
@@ -13,6 +14,24 @@ export function severityCounts(findings: readonly Finding[]): SeverityCounts {
     warnings: findings.filter((f) => f.severity === 'warning').length,
     infos: findings.filter((f) => f.severity === 'info').length,
   };
+}
+
+/**
+ * A result's findings counted the way the feedback sheet groups them (`cardCounts`), shared by the
+ * results page, the gradebook and the section summary: one per likely cause that costs points (a slip
+ * repeated in four values, charged once, counts once); the warnings and notes that cost nothing, one
+ * per card; values that merely follow from the student's own numbers are notes. An error a TA forgave
+ * to 0 is in none of them: it cost nothing and the sheet shows it apart.
+ */
+export interface CauseCounts {
+  costingPoints: number;
+  warnings: number;
+  notes: number;
+}
+
+export function causeCounts(findings: readonly Finding[]): CauseCounts {
+  const counts = cardCounts(findings);
+  return { costingPoints: counts.costPoints, warnings: counts.warnings, notes: counts.notes };
 }
 
 /**

@@ -96,16 +96,16 @@ function drawAttention(doc: Doc, totals: SectionTotals): void {
   const list = totals.attention.list();
   sectionHeading(doc, 'Students who most need attention', 80);
   if (list.length === 0) {
-    paragraph(doc, 'Every student has full points and no error.');
+    paragraph(doc, 'Every student has full points and nothing cost points.');
     return;
   }
-  paragraph(doc, 'Not checked first, then the lowest share of the points, then the most errors. Codes: error findings, most costly first.', { size: SIZE.small, color: COLOR.muted });
+  paragraph(doc, 'Not checked first, then the lowest share of the points, then the most causes costing points. Counted as on the feedback sheet: a slip repeated in several values and charged once counts once; warnings are those that cost nothing. Codes: error findings that cost points, most costly first.', { size: SIZE.small, color: COLOR.muted });
   drawTable(
     doc,
     [
       { header: 'Student id', weight: 1.3 },
       { header: 'Score', weight: 1, align: 'right' },
-      { header: 'Errors', weight: 0.7, align: 'right' },
+      { header: 'Causes costing points', weight: 0.9, align: 'right' },
       { header: 'Warnings', weight: 0.8, align: 'right' },
       { header: 'Main codes', weight: 3.4 },
     ],

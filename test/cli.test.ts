@@ -287,7 +287,7 @@ describe('rateproof check --out DIR', () => {
     for (const pdf of ['s-01.pdf', 's-03.pdf', 'summary.pdf']) expect((await readFile(join(out, pdf))).subarray(0, 5).toString()).toBe('%PDF-');
     const gradebook = await readFile(join(out, 'gradebook.csv'), 'utf8');
     expect(gradebook.split('\r\n').slice(0, 4)).toEqual([
-      '\uFEFFstudent_id,score,max_score,status,errors,warnings,infos,main_codes,assignment',
+      '\uFEFFstudent_id,score,max_score,status,causes_costing_points,warnings,infos,main_codes,assignment',
       expect.stringMatching(/^s-01,[\d.]+,[\d.]+,checked,/),
       's-02,,0,rejected,0,0,0,,assignment',
       expect.stringMatching(/^s-03,[\d.]+,[\d.]+,checked,/),

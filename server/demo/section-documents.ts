@@ -37,6 +37,7 @@ export async function writeSectionDocuments(
       invented: true,
     }),
   );
-  await writeFile(join(dir, gradebook), gradebookCsv(await sectionResults(db, place.sectionId, place.assignmentId), { assignment: place.title, bom: true }));
+  const { results, held } = await sectionResults(db, place.sectionId, place.assignmentId);
+  await writeFile(join(dir, gradebook), gradebookCsv(results, { assignment: place.title, bom: true, held }));
   return { inputs, summary, gradebook };
 }

@@ -1,4 +1,4 @@
-import { cardCounts } from '../../reports/feedback/finding-groups.ts';
+import { causeCounts } from '../../reports/result-summary.ts';
 import type { PageSummary } from '../store/page-summaries.ts';
 import type { StoredResult } from '../store/submissions.ts';
 import { effectiveResult, type EffectiveFinding, type EffectiveResult } from './effective-result.ts';
@@ -9,8 +9,8 @@ import { asShown } from './released.ts';
  * values (charged once) counts once, and values that merely follow from the student's own numbers are notes.
  */
 export function pageCounts(findings: EffectiveFinding[]): Pick<PageSummary, 'errors' | 'warnings' | 'infos' | 'codes'> {
-  const counts = cardCounts(findings);
-  return { errors: counts.costPoints, warnings: counts.warnings, infos: counts.notes, codes: [...new Set(findings.map((f) => f.code))] };
+  const counts = causeCounts(findings);
+  return { errors: counts.costingPoints, warnings: counts.warnings, infos: counts.notes, codes: [...new Set(findings.map((f) => f.code))] };
 }
 
 /** What the results page shows of an effective result. */

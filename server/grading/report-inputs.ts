@@ -172,10 +172,15 @@ export async function submissionStanding(db: Kysely<Database>, submissionId: num
   };
 }
 
-/** Gradebook rows: what each student was shown, or their latest result where nothing was released; rejected ones included. */
-export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<CheckResult[]> {
-  return (await sectionStandings(db, sectionId, assignmentId)).flatMap((s) => {
-    if (!s.submission) return [];
-    return [asCheckResult(s.studentId, s.released ?? s.result)];
-  });
+/**
+ * Gradebook rows: what each student was shown, or their latest result where nothing was released;
+ * rejected ones included. `held`: the students whose latest version is late and held until a TA
+ * accepts it, whose row is not final.
+ */
+export async function sectionResults(db: Kysely<Database>, sectionId: number, assignmentId: number): Promise<{ results: CheckResult[]; held: Set<string> }> {
+  const standings = (await sectionStandings(db, sectionId, assignmentId)).flatMap((s) => (s.submission ? [{ ...s, submission: s.submission }] : []));
+  return {
+    results: standings.map((s) => asCheckResult(s.studentId, s.released ?? s.result)),
+    held: new Set(standings.filter((s) => s.submission.held).map((s) => s.studentId)),
+  };
 }

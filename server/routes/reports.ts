@@ -112,7 +112,8 @@ export const reportRoutes = [
       const notSubmitted = (await studentsWithoutSubmission(db, sectionId, assignmentId)).map((s) => ({ studentId: s.studentId, withdrawn: s.status === 'withdrawn' }));
       const withdrawn = new Set(await withdrawnStudents(db, sectionId));
       const names = await reportNames(db, sectionId, assignmentId);
-      const csv = gradebookCsv(await sectionResults(db, sectionId, assignmentId), { assignment: names.assignment, bom: query.bom === 'true', notSubmitted, withdrawn });
+      const { results, held } = await sectionResults(db, sectionId, assignmentId);
+      const csv = gradebookCsv(results, { assignment: names.assignment, bom: query.bom === 'true', notSubmitted, withdrawn, held });
       return reply.type('text/csv; charset=utf-8').headers(attachment(documentName(placeOf(names), 'gradebook', '.csv'))).send(csv);
     },
   }),

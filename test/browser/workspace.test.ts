@@ -123,7 +123,7 @@ describe.skipIf(!chromiumPresent)('the workspace in a browser', () => {
     expect(download.suggestedFilename()).toBe('Physical_chemistry_lab_invented-A-Acid_catalysis_invented-gradebook.csv');
     const csv = (await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, '');
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('student_id,score,max_score,status,errors,warnings,infos,main_codes,assignment');
+    expect(lines[0]).toBe('student_id,score,max_score,status,causes_costing_points,warnings,infos,main_codes,assignment');
     expect(lines.slice(1).map((l) => l.split(',')[0]).sort()).toEqual([...ids, 'S-006']);
     expect(lines.find((l) => l.startsWith('S-006,'))).toBe(`S-006,,,not-submitted,0,0,0,,${s.assignment.title}`);
 

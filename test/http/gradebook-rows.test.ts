@@ -40,7 +40,7 @@ describe('gradebook rows', () => {
     expect(rows.get('S-003')).toMatchObject({ status: 'withdrawn', score: '' });
   });
 
-  it('a finding overridden to 0 points is no longer a main code, yet still counted among the errors', async () => {
+  it('a finding overridden to 0 points is no longer a main code, nor a cause costing points', async () => {
     const [slipped] = submissionsFor(['S-005'], 4);
     // A sign slip in one run's k: one error, `sign-flipped`, worth the k item's 2 points.
     slipped.runs[1].reported!.k!.value = -Number(slipped.runs[1].reported!.k!.value);
@@ -48,8 +48,9 @@ describe('gradebook rows', () => {
     const view = await call(api.app, 'GET', `/v1/submissions/${id}`, s.taAToken, undefined, 200);
     const finding = view.body.result.findings.find((f: { code: string }) => f.code === 'sign-flipped');
     expect(finding).toMatchObject({ pointsLost: 2, severity: 'error' });
-    expect((await gradebook()).find((r) => r.student_id === 'S-005')).toMatchObject({ score: '20', errors: '1', main_codes: 'sign-flipped' });
+    expect((await gradebook()).find((r) => r.student_id === 'S-005')).toMatchObject({ score: '20', causes_costing_points: '1', main_codes: 'sign-flipped' });
     await call(api.app, 'POST', `/v1/submissions/${id}/overrides`, s.taAToken, { findingId: finding.id, pointsLost: 0, reason: 'a typing slip in the table only' }, 201);
-    expect((await gradebook()).find((r) => r.student_id === 'S-005')).toMatchObject({ score: '22', errors: '1', main_codes: '' });
+    // Forgiven, it cost nothing: counted as the results page and the sheet count it (an error at no cost is in no column).
+    expect((await gradebook()).find((r) => r.student_id === 'S-005')).toMatchObject({ score: '22', causes_costing_points: '0', main_codes: '' });
   });
 });

@@ -231,6 +231,13 @@ describe("students' own door", () => {
     expect((await call(api.app, 'POST', release, s.taAToken, undefined, 200)).body).toEqual({ released: 0, held: 1 });
     expect((await call(api.app, 'POST', `/v1/submissions/${row.submissionId}/release`, s.taAToken, undefined, 200)).body).toEqual({ released: 0, held: 1 });
     expect((await as('S-004', 'GET', own(a.id, '/feedback'))).status).toBe(404);
+    // The gradebook keeps the held student's row, marked as not final (docs/students.md "Late work").
+    const gradebookStatus = async () => {
+      const csv = (await call(api.app, 'GET', `/v1/sections/${s.sectionA.id}/assignments/${a.id}/gradebook.csv`, s.taAToken, undefined, 200)).body as string;
+      const line = csv.split('\r\n').find((l) => l.startsWith('S-004,'))!;
+      return line.split(',').slice(1, 4);
+    };
+    expect(await gradebookStatus()).toEqual([String(row.score), String(row.maxScore), 'held']);
 
     const accepted = (await call(api.app, 'POST', `/v1/submissions/${row.submissionId}/accept-late`, s.taAToken, undefined, 200)).body;
     expect(accepted).toMatchObject({ submissionId: row.submissionId, late: true, held: false, acceptedBy: 'ta-a' });
@@ -238,6 +245,7 @@ describe("students' own door", () => {
     // Accepting again changes nothing: the first acceptance stays recorded.
     expect((await call(api.app, 'POST', `/v1/submissions/${row.submissionId}/accept-late`, s.instructorToken, undefined, 200)).body).toEqual(accepted);
     expect((await call(api.app, 'POST', release, s.taAToken, undefined, 200)).body).toEqual({ released: 1, held: 0 });
+    expect(await gradebookStatus()).toEqual([String(row.score), String(row.maxScore), 'checked']);
     // Held work is graded as usual once accepted: no late finding under hold.
     const feedback = await as('S-004', 'GET', own(a.id, '/feedback'));
     expect(feedback.status).toBe(200);

@@ -27,8 +27,9 @@ describe('gradebookCsv', () => {
       result('S-002', [], null),
     ], { assignment: 'Lab 1' });
     expect(rows(csv)).toEqual([
-      ['student_id', 'score', 'max_score', 'status', 'errors', 'warnings', 'infos', 'main_codes', 'assignment'],
-      ['S-001', '17.5', '22', 'checked', '4', '1', '1', 'log-base;time-unit;sig-figs', 'Lab 1'],
+      ['student_id', 'score', 'max_score', 'status', 'causes_costing_points', 'warnings', 'infos', 'main_codes', 'assignment'],
+      // Hand-counted: log-base twice is one cause; with time-unit and sig-figs, 3 causes cost points.
+      ['S-001', '17.5', '22', 'checked', '3', '1', '1', 'log-base;time-unit;sig-figs', 'Lab 1'],
       ['S-002', '', '22', 'rejected', '0', '0', '0', '', 'Lab 1'],
     ]);
     expect(rows(csv)[0]).toEqual([...GRADEBOOK_COLUMNS]);
@@ -82,9 +83,9 @@ describe('gradebookCsv', () => {
 });
 
 describe('gradebookCsv, books a TA can trust', () => {
-  it('names as main codes only the errors that cost points (an error forgiven to 0 is counted, not named)', () => {
+  it('names and counts only the errors that cost points (an error forgiven to 0 is neither counted nor named)', () => {
     const [, row] = rows(gradebookCsv([result('S-001', [finding('sign-flipped', 'error', 0), finding('time-unit', 'error', 2)], 20)], { assignment: 'Lab 1' }));
-    expect(row.slice(4, 8)).toEqual(['2', '0', '0', 'time-unit']);
+    expect(row.slice(4, 8)).toEqual(['1', '0', '0', 'time-unit']);
   });
 
   it('shows a withdrawn student who submitted as withdrawn, keeping the score of their work', () => {
@@ -94,6 +95,15 @@ describe('gradebookCsv, books a TA can trust', () => {
       ['S-002', '18', '22', 'withdrawn'],
       ['S-003', '', '22', 'withdrawn'],
       ['S-004', '', '', 'withdrawn'],
+    ]);
+  });
+
+  it('marks a held late submission `held`, its score kept; withdrawn wins over held', () => {
+    const csv = gradebookCsv([result('S-001', [], 20), result('S-002', [], 18), result('S-003', [], 16)], { assignment: 'Lab 1', held: new Set(['S-002', 'S-003']), withdrawn: new Set(['S-003']) });
+    expect(rows(csv).slice(1).map((r) => r.slice(0, 4))).toEqual([
+      ['S-001', '20', '22', 'checked'],
+      ['S-002', '18', '22', 'held'],
+      ['S-003', '16', '22', 'withdrawn'],
     ]);
   });
 });

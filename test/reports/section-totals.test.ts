@@ -42,9 +42,10 @@ describe('the summary from running totals', () => {
 
 describe('the students who most need attention, one result at a time', () => {
   // Reference, written from the rule as stated: rejected first, then the lowest share of the points,
-  // then the most errors, then the order given; full points and no error never listed.
+  // then the most causes costing points, then the order given; full points and nothing costing points never listed.
   function bySorting(results: CheckResult[], limit: number): CheckResult[] {
-    const errors = (r: CheckResult) => r.findings.filter((f) => f.severity === 'error').length;
+    // A cause is a code (these findings name no other); it costs points when its findings' points add above 0.
+    const errors = (r: CheckResult) => new Set(r.findings.filter((f) => r.findings.some((g) => g.code === f.code && g.pointsLost > 0)).map((f) => f.code)).size;
     const share = (r: CheckResult) => (r.status === 'checked' ? (r.score ?? 0) / r.maxScore : 0);
     const listed = results.map((r, i) => ({ r, i })).filter(({ r }) => r.status === 'rejected' || share(r) < 1 || errors(r) > 0);
     listed.sort((a, b) => {
@@ -58,7 +59,7 @@ describe('the students who most need attention, one result at a time', () => {
 
   it('keeps the same first students as sorting the whole section, ties included', () => {
     const random = seededRandom(5);
-    const error: Finding = { code: 'x', severity: 'error', path: 'p', message: '', pointsLost: 0 } as Finding;
+    const error = (code: string, pointsLost: number): Finding => ({ code, severity: 'error', path: 'p', message: '', pointsLost }) as Finding;
     for (let trial = 0; trial < 40; trial++) {
       // Few distinct scores and error counts, so that most students tie with another.
       const results = Array.from({ length: 60 }, (_, i): CheckResult => {
@@ -69,7 +70,8 @@ describe('the students who most need attention, one result at a time', () => {
           score: rejected ? null : Math.floor(random() * 5) * 2 + 2,
           maxScore: 10,
           refit: null,
-          findings: Array.from({ length: Math.floor(random() * 3) }, () => error),
+          // Two causes, each slip charged or not: repeated codes are one cause, free ones count for nothing.
+          findings: Array.from({ length: Math.floor(random() * 4) }, () => error(random() < 0.5 ? 'x' : 'y', random() < 0.5 ? 0 : 1)),
           engineVersion: 'test',
         } as CheckResult;
       });
