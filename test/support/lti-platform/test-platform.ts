@@ -67,10 +67,12 @@ export class TestPlatform {
   static async start(): Promise<TestPlatform> {
     const holder: { platform?: TestPlatform } = {};
     const server = createServer((request, response) => {
-      holder.platform!.answer(request.url ?? '/').then(
+      const chunks: Buffer[] = [];
+      request.on('data', (chunk: Buffer) => chunks.push(chunk));
+      request.on('end', () => holder.platform!.answer(request.url ?? '/', Buffer.concat(chunks).toString()).then(
         ({ type, body }) => response.writeHead(200, { 'content-type': type }).end(body),
         (error: Error) => response.writeHead(error.message === 'not found' ? 404 : 400, { 'content-type': 'text/plain' }).end(error.message),
-      );
+      ));
     });
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -82,22 +84,35 @@ export class TestPlatform {
 
   /** The people a browser may sign in as at this platform, by their subject id (the login hint). */
   readonly users = new Map<string, PlatformUser>();
+  /** What the browser's next launch is: a resource link launch, or a deep linking request. */
+  nextMessage: 'resource-link' | 'deep-linking' = 'resource-link';
+  /** Where the tool serves its key set, for checking its deep linking responses (set by a browser test). */
+  toolKeySetUrl = '';
+  /** The links made from the tool's deep linking responses posted to the return URL. */
+  readonly deepLinked: DeepLinkedItem[] = [];
 
   /**
    * The platform's pages, for a browser: its key set (Security Framework 1.0, 6.3); a start page that
    * initiates login at the tool by form POST (5.1.1.1); and its authorisation endpoint, which answers
    * the tool's authentication request with the id_token form-posted back (5.1.1.2-5.1.1.3).
    */
-  private async answer(path: string): Promise<{ type: string; body: string }> {
+  private async answer(path: string, body: string): Promise<{ type: string; body: string }> {
     const url = new URL(path, this.base);
     if (url.pathname === '/jwks') return { type: 'application/json', body: JSON.stringify({ keys: this.jwks }) };
+    // Deep Linking 2.0, 4.5: the tool form-posts its response as the field JWT to the return URL.
+    if (url.pathname === '/deep-link-return') {
+      const keySet = (await (await fetch(this.toolKeySetUrl)).json()) as { keys: JWK[] };
+      this.deepLinked.push(await this.receiveDeepLinkingResponse(new URLSearchParams(body).get('JWT') ?? '', keySet));
+      return { type: 'text/html', body: '<!doctype html><html><body><p>Activity placed.</p></body></html>' };
+    }
     const user = this.users.get(url.searchParams.get(url.pathname === '/auth' ? 'login_hint' : 'sub') ?? '');
     if (url.pathname === '/start' && user) {
       return { type: 'text/html', body: postingPage(`${url.searchParams.get('tool')}/v1/lti/login`, this.loginInitiation(user, url.searchParams.get('tool')!)) };
     }
     if (url.pathname === '/auth' && user) {
       const auth = this.readAuthRequest(url.toString(), user);
-      return { type: 'text/html', body: postingPage(auth.redirectUri, { id_token: await this.idToken(user, auth.nonce), state: auth.state }) };
+      const idToken = await this.idToken(user, auth.nonce, { deepLinking: this.nextMessage === 'deep-linking' });
+      return { type: 'text/html', body: postingPage(auth.redirectUri, { id_token: idToken, state: auth.state }) };
     }
     throw new Error('not found');
   }
