@@ -8,6 +8,15 @@ export const CLAIM = {
   resourceLink: `${LTI}resource_link`,
   roles: `${LTI}roles`,
   context: `${LTI}context`,
+  custom: `${LTI}custom`,
+} as const;
+
+/** The claims of Deep Linking 2.0 (4.4.1 request settings; 4.5 response data and content items). */
+const DL = 'https://purl.imsglobal.org/spec/lti-dl/claim/';
+export const DL_CLAIM = {
+  settings: `${DL}deep_linking_settings`,
+  data: `${DL}data`,
+  contentItems: `${DL}content_items`,
 } as const;
 
 /** Context roles of the membership vocabulary (LTI Core 1.3, appendix A.2.3 and, for sub-roles, A.2.3.1). */

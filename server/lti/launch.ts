@@ -2,16 +2,22 @@ import { randomBytes } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { Database } from '../store/database.ts';
 import { useLoginState, storeLoginState, storeTicket } from '../store/lti-launch-states.ts';
-import { getPlatform, placementOf, platformsOfIssuer, type PlatformRow } from '../store/lti-platforms.ts';
+import { getAssignment, listAssignments } from '../store/assignments.ts';
+import { getSection, listSections } from '../store/courses.ts';
+import { storeDeepLink } from '../store/lti-deep-links.ts';
+import { getPlatform, placeResourceLink, placementOf, platformsOfIssuer, type PlatformRow } from '../store/lti-platforms.ts';
 import { launchedStaff, launchedStudent, type LaunchedPerson } from '../store/lti-users.ts';
 import { launchedRole } from './claims.ts';
+import { placedByCustom } from './deep-linking.ts';
 import { platformKeys } from './platform-keys.ts';
 import { LaunchRefused } from './refusal.ts';
-import { verifyLaunch } from './verify-launch.ts';
+import { verifyLaunch, type VerifiedDeepLinking, type VerifiedResourceLink } from './verify-launch.ts';
 
 /** How long a login's state waits for its launch, and a launch's ticket for its same-site step (common practice, no source). */
 const STATE_SECONDS = 600;
 const TICKET_SECONDS = 60;
+/** How long an instructor has to choose what a deep link places (common practice, no source). */
+const CHOICE_SECONDS = 1800;
 
 const secret = () => randomBytes(32).toString('base64url');
 
@@ -54,8 +60,16 @@ export async function startLogin(db: Kysely<Database>, fields: LoginFields, redi
   return url.toString();
 }
 
-/** Where a verified launch goes: a ticket for a student or staff session, or a page saying the activity is not placed. */
-export type LaunchOutcome = { kind: 'ticket'; ticket: string; as: 'student' | 'staff' } | { kind: 'not-placed' };
+export interface Choices {
+  assignments: { id: number; title: string }[];
+  sections: { id: number; name: string }[];
+}
+
+/**
+ * Where a verified launch goes: a ticket for a student or staff session, a page saying the activity
+ * is not placed, or (a deep linking request) the choice of an assignment and section under a ticket.
+ */
+export type LaunchOutcome = { kind: 'ticket'; ticket: string; as: 'student' | 'staff' } | { kind: 'not-placed' } | ({ kind: 'choose'; ticket: string } & Choices);
 
 /**
  * The authentication response (Security Framework 1.0, 5.1.1.3): the state used up first (single
@@ -73,10 +87,45 @@ export async function completeLaunch(db: Kysely<Database>, idToken: string | und
   const launch = await verifyLaunch(idToken, platform, platformKeys(platform.jwksUrl), use.nonce);
   const role = launchedRole(launch.roles);
   if (!role) throw new LaunchRefused('no-mapped-role');
+  if (launch.kind === 'deep-linking') return chooseToPlace(db, platform, launch, role);
   return db.transaction().execute((trx) => admit(trx, platform, launch, role));
 }
 
-async function admit(db: Kysely<Database>, platform: PlatformRow, launch: Awaited<ReturnType<typeof verifyLaunch>>, role: 'instructor' | 'ta' | 'student'): Promise<LaunchOutcome> {
+/**
+ * A deep linking request (Deep Linking 2.0, 4.4) places an activity: only an instructor of the course
+ * may (a TA sees one section, a learner none). Kept under a ticket for the choice that answers it.
+ */
+async function chooseToPlace(db: Kysely<Database>, platform: PlatformRow, launch: VerifiedDeepLinking, role: 'instructor' | 'ta' | 'student'): Promise<LaunchOutcome> {
+  if (role !== 'instructor') throw new LaunchRefused('deep-linking-not-instructor');
+  const ticket = secret();
+  await storeDeepLink(db, ticket, { platformId: platform.id, deploymentId: launch.deploymentId, returnUrl: launch.returnUrl, data: launch.data }, CHOICE_SECONDS);
+  const [assignments, sections] = await Promise.all([listAssignments(db, platform.courseId), listSections(db, platform.courseId)]);
+  return { kind: 'choose', ticket, assignments: assignments.map(({ id, title }) => ({ id, title })), sections: sections.map(({ id, name }) => ({ id, name })) };
+}
+
+/**
+ * Where a resource link is placed: by hand (the lti-placement route) or, for a link deep-linked here,
+ * recorded at its first launch from the assignment and section its custom parameters name, when
+ * both are of the platform's course. A placement already made stands (an instructor may move it).
+ */
+async function placementFor(db: Kysely<Database>, platform: PlatformRow, launch: VerifiedResourceLink) {
+  if (launch.contextId === undefined) return undefined;
+  const placed = await placementOf(db, platform.id, launch.contextId, launch.resourceLinkId);
+  if (placed) return placed;
+  const named = placedByCustom(launch.custom);
+  if (!named || (await ofCourse(db, platform.courseId, named)) !== true) return undefined;
+  await placeResourceLink(db, { platformId: platform.id, contextId: launch.contextId, resourceLinkId: launch.resourceLinkId, ...named, staffId: null });
+  return named;
+}
+
+/** Whether an assignment and a section are both of a course; the field that is not, otherwise. */
+export async function ofCourse(db: Kysely<Database>, courseId: number, pair: { assignmentId: number; sectionId: number }): Promise<true | 'assignmentId' | 'sectionId'> {
+  if ((await getAssignment(db, pair.assignmentId))?.courseId !== courseId) return 'assignmentId';
+  if ((await getSection(db, pair.sectionId))?.courseId !== courseId) return 'sectionId';
+  return true;
+}
+
+async function admit(db: Kysely<Database>, platform: PlatformRow, launch: VerifiedResourceLink, role: 'instructor' | 'ta' | 'student'): Promise<LaunchOutcome> {
   const person: LaunchedPerson = { platformId: platform.id, courseId: platform.courseId, sub: launch.sub, displayName: launch.displayName, roles: launch.roles };
   const ticket = secret();
   if (role === 'instructor') {
@@ -84,7 +133,7 @@ async function admit(db: Kysely<Database>, platform: PlatformRow, launch: Awaite
     return { kind: 'ticket', ticket, as: 'staff' };
   }
   // A learner's or a TA's launch lands in the section the resource link was placed on.
-  const placement = launch.contextId === undefined ? undefined : await placementOf(db, platform.id, launch.contextId, launch.resourceLinkId);
+  const placement = await placementFor(db, platform, launch);
   if (!placement) return { kind: 'not-placed' };
   if (role === 'ta') {
     await storeTicket(db, ticket, { staffId: await launchedStaff(db, person, 'ta', placement.sectionId) }, TICKET_SECONDS);

@@ -1,5 +1,5 @@
 import { errors, jwtVerify, type JWTPayload, type JWTVerifyGetKey } from 'jose';
-import { CLAIM } from './claims.ts';
+import { CLAIM, DL_CLAIM } from './claims.ts';
 import { LaunchRefused, type RefusalCode } from './refusal.ts';
 
 /** The registration a launch is checked against. */
@@ -9,14 +9,30 @@ export interface LaunchPlatform {
   deploymentIds: string[];
 }
 
-/** What a verified resource link launch carries that this service uses. */
-export interface VerifiedLaunch {
+/** What a verified message carries that this service uses, whatever its type. */
+interface VerifiedPerson {
   sub: string;
   displayName: string | null;
   roles: string[];
   contextId: string | undefined;
-  resourceLinkId: string;
 }
+
+/** A resource link launch, with the custom parameters of its link (LTI Core 1.3, 5.4.6). */
+export interface VerifiedResourceLink extends VerifiedPerson {
+  kind: 'resource-link';
+  resourceLinkId: string;
+  custom: Record<string, string>;
+}
+
+/** A deep linking request (Deep Linking 2.0, 4.4): where to answer and the data to echo. */
+export interface VerifiedDeepLinking extends VerifiedPerson {
+  kind: 'deep-linking';
+  deploymentId: string;
+  returnUrl: string;
+  data: string | null;
+}
+
+export type VerifiedLaunch = VerifiedResourceLink | VerifiedDeepLinking;
 
 /** How long after its issue an id_token is still taken, and the clock skew allowed (common practice, no source). */
 const MAX_TOKEN_AGE_SECONDS = 300;
@@ -75,16 +91,47 @@ export async function verifyLaunch(idToken: string, platform: LaunchPlatform, ke
   // LTI Core 1.3, 5.3.3: the deployment is one registered for this platform.
   const deployment = claims[CLAIM.deploymentId];
   if (typeof deployment !== 'string' || !platform.deploymentIds.includes(deployment)) throw new LaunchRefused('unknown-deployment');
-  // LTI Core 1.3, 5.3.1: a resource link launch; deep linking (Deep Linking 2.0) is not built yet.
-  const messageType = claims[CLAIM.messageType];
-  if (messageType === 'LtiDeepLinkingRequest') throw new LaunchRefused('deep-linking-not-supported');
-  if (messageType !== 'LtiResourceLinkRequest') throw new LaunchRefused('unknown-message-type');
-  // LTI Core 1.3, 5.3.5 (resource link id), 5.3.6 (sub: an anonymous launch opens nothing here), 5.3.7 (roles), 5.4.1 (context).
-  const resourceLinkId = text((claims[CLAIM.resourceLink] as { id?: unknown } | undefined)?.id);
+  // LTI Core 1.3, 5.3.6 (sub: an anonymous launch opens nothing here), 5.3.7 (roles), 5.4.1 (context).
   const sub = text(claims.sub);
   const roles = claims[CLAIM.roles];
-  if (!resourceLinkId || !sub || !Array.isArray(roles) || !roles.every((r) => typeof r === 'string')) throw new LaunchRefused('claims-missing');
-  const contextId = text((claims[CLAIM.context] as { id?: unknown } | undefined)?.id);
-  const displayName = typeof claims.name === 'string' ? claims.name.slice(0, 200) : null;
-  return { sub, displayName, roles: roles as string[], contextId, resourceLinkId };
+  if (!sub || !Array.isArray(roles) || !roles.every((r) => typeof r === 'string')) throw new LaunchRefused('claims-missing');
+  const person: VerifiedPerson = {
+    sub,
+    displayName: typeof claims.name === 'string' ? claims.name.slice(0, 200) : null,
+    roles: roles as string[],
+    contextId: text((claims[CLAIM.context] as { id?: unknown } | undefined)?.id),
+  };
+  // LTI Core 1.3, 5.3.1: the message types this tool takes.
+  const messageType = claims[CLAIM.messageType];
+  if (messageType === 'LtiResourceLinkRequest') return resourceLink(claims, person);
+  if (messageType === 'LtiDeepLinkingRequest') return deepLinking(claims, person, deployment);
+  throw new LaunchRefused('unknown-message-type');
+}
+
+function resourceLink(claims: JWTPayload, person: VerifiedPerson): VerifiedResourceLink {
+  // LTI Core 1.3, 5.3.5: a resource link launch names its resource link.
+  const resourceLinkId = text((claims[CLAIM.resourceLink] as { id?: unknown } | undefined)?.id);
+  if (!resourceLinkId) throw new LaunchRefused('claims-missing');
+  // LTI Core 1.3, 5.4.6: custom parameters are a map of strings; anything else in it is left unread.
+  const sent = claims[CLAIM.custom];
+  const custom = typeof sent === 'object' && sent !== null ? Object.fromEntries(Object.entries(sent).filter((e): e is [string, string] => text(e[1]) !== undefined)) : {};
+  return { kind: 'resource-link', ...person, resourceLinkId, custom };
+}
+
+function deepLinking(claims: JWTPayload, person: VerifiedPerson, deploymentId: string): VerifiedDeepLinking {
+  // Deep Linking 2.0, 4.4.1: the settings name where to answer and what the platform accepts; the
+  // only item this tool makes is an LTI resource link.
+  const settings = claims[DL_CLAIM.settings] as { deep_link_return_url?: unknown; accept_types?: unknown; data?: unknown } | undefined;
+  const returnUrl = httpUrl(settings?.deep_link_return_url);
+  if (!returnUrl || !Array.isArray(settings?.accept_types)) throw new LaunchRefused('claims-missing');
+  if (!settings.accept_types.includes('ltiResourceLink')) throw new LaunchRefused('link-type-not-accepted');
+  // 4.4.1: data is opaque to the tool, echoed as sent.
+  const data = typeof settings.data === 'string' && settings.data.length <= 4000 ? settings.data : null;
+  return { kind: 'deep-linking', ...person, deploymentId, returnUrl, data };
+}
+
+/** An absolute http(s) URL, or undefined. */
+function httpUrl(value: unknown): string | undefined {
+  if (typeof value !== 'string' || value.length > 2000 || !URL.canParse(value)) return undefined;
+  return ['http:', 'https:'].includes(new URL(value).protocol) ? value : undefined;
 }

@@ -2,11 +2,17 @@ import type { FastifyReply, FastifyRequest } from 'fastify';
 import { z } from 'zod';
 import { defineRoute } from '../http/route-table.ts';
 import { SESSION_HOURS, sessionCookieHeader } from '../http/session-cookie.ts';
-import { completeLaunch, startLogin, type LoginFields } from '../lti/launch.ts';
-import { continuePage, notPlacedPage, PAGE_HEADERS, refusedPage } from '../lti/launch-pages.ts';
+import { ApiError } from '../errors.ts';
+import { IdParam } from '../http/schemas.ts';
+import { deepLinkingResponse } from '../lti/deep-linking.ts';
+import { completeLaunch, ofCourse, startLogin, type LaunchOutcome, type LoginFields } from '../lti/launch.ts';
+import { choosePage, continuePage, notPlacedPage, PAGE_HEADERS, refusedPage, returnPage, returnPageHeaders } from '../lti/launch-pages.ts';
 import { LaunchRefused } from '../lti/refusal.ts';
 import { toolKeySet } from '../lti/tool-keys.ts';
+import { getAssignment } from '../store/assignments.ts';
+import { takeDeepLink } from '../store/lti-deep-links.ts';
 import { takeTicket } from '../store/lti-launch-states.ts';
+import { getPlatform } from '../store/lti-platforms.ts';
 import { createSession } from '../store/sessions.ts';
 import { createStudentSession } from '../store/student-access.ts';
 import { HtmlPage, KeySet, LaunchPost, LoginInitiation, TicketPost } from '../../schemas/api/lti.ts';
@@ -23,7 +29,17 @@ function refuse(request: FastifyRequest, reply: FastifyReply, error: unknown): F
   return reply.code(401).headers(PAGE_HEADERS).type('text/html; charset=utf-8').send(refusedPage(error.code));
 }
 
-const html = (reply: FastifyReply, body: string) => reply.code(200).headers(PAGE_HEADERS).type('text/html; charset=utf-8').send(body);
+const html = (reply: FastifyReply, body: string, headers: Record<string, string> = PAGE_HEADERS) => reply.code(200).headers(headers).type('text/html; charset=utf-8').send(body);
+
+/** A verified launch's page: on to this site, not placed yet, or the choice a deep link asks for. */
+function launchPage(outcome: LaunchOutcome): string {
+  if (outcome.kind === 'ticket') return continuePage(outcome.ticket);
+  if (outcome.kind === 'choose') return choosePage(outcome.ticket, outcome);
+  return notPlacedPage();
+}
+
+/** The instructor's choice for a deep link, form-posted from our own page with its ticket. */
+const DeepLinkChoice = z.object({ ticket: z.string().min(1).max(200), assignmentId: IdParam, sectionId: IdParam });
 
 /** Login initiation, by GET or by form POST alike (Security Framework 1.0, 5.1.1.1). */
 async function login(request: FastifyRequest, reply: FastifyReply, fields: LoginFields) {
@@ -84,8 +100,8 @@ export const ltiLaunchRoutes = [
     async handler(request, reply) {
       try {
         const outcome = await completeLaunch(request.server.store.db, request.body.id_token, request.body.state);
-        request.log.info({ ltiLaunch: outcome.kind === 'ticket' ? outcome.as : 'not-placed' }, 'LTI launch verified');
-        return html(reply, outcome.kind === 'ticket' ? continuePage(outcome.ticket) : notPlacedPage());
+        request.log.info({ ltiLaunch: outcome.kind === 'ticket' ? outcome.as : outcome.kind }, 'LTI launch verified');
+        return html(reply, launchPage(outcome));
       } catch (error) {
         return refuse(request, reply, error);
       }
@@ -108,6 +124,35 @@ export const ltiLaunchRoutes = [
         // The pages read their CSRF token from /v1/me or /v1/student/me, as after any sign-in; a student
         // goes straight to their own pages.
         return reply.redirect('staffId' in who ? '/' : '/student', 303);
+      } catch (error) {
+        return refuse(request, reply, error);
+      }
+    },
+  }),
+  defineRoute({
+    method: 'POST',
+    url: '/v1/lti/deep-link',
+    access: 'public',
+    transactional: true,
+    summary:
+      "A deep link's choice (from the page a deep linking request opens): the assignment and section, of the platform's course, answered with a page that posts our signed deep linking response to the platform",
+    schema: { body: DeepLinkChoice, response: { 200: HtmlPage } },
+    async handler(request, reply) {
+      const { db, body } = request;
+      try {
+        // Taken from our own page only, as a launch's ticket is; the ticket is what proves the instructor's request.
+        if (!sameOrigin(request)) throw new LaunchRefused('ticket-cross-site');
+        const link = await takeDeepLink(db, body.ticket);
+        if (!link) throw new LaunchRefused('ticket-unknown');
+        const platform = (await getPlatform(db, link.platformId))!;
+        const pair = { assignmentId: body.assignmentId, sectionId: body.sectionId };
+        // A 400 rolls the transaction back: the ticket stays for a corrected choice.
+        const wrong = await ofCourse(db, platform.courseId, pair);
+        if (wrong !== true) throw new ApiError('invalid-input', undefined, [{ path: `body.${wrong}`, message: "not of the platform's course" }]);
+        const { title } = (await getAssignment(db, pair.assignmentId))!;
+        const jwt = await deepLinkingResponse(db, link, platform, { ...pair, title });
+        request.log.info({ ltiDeepLink: pair }, 'LTI deep link answered');
+        return html(reply, returnPage(link.returnUrl, jwt), returnPageHeaders(link.returnUrl));
       } catch (error) {
         return refuse(request, reply, error);
       }

@@ -153,4 +153,6 @@ export interface Database {
   lti_placements: { platform_id: Ref; context_id: string; resource_link_id: string; assignment_id: Ref; section_id: Ref; placed_by: Ref | null; placed_at: Generated<Date> };
   /** A verified launch waiting for its same-site step (a hash, single use, a minute long). */
   lti_tickets: { ticket_hash: string; student_row_id: Ref | null; staff_id: Ref | null; expires_at: Date };
+  /** A deep linking request waiting for the instructor's choice (a hash, single use, short-lived). */
+  lti_deep_links: { ticket_hash: string; platform_id: Ref; deployment_id: string; return_url: string; data: string | null; expires_at: Date };
 }

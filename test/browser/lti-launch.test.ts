@@ -30,6 +30,7 @@ describe.skipIf(!chromiumPresent)('an LTI launch in a browser', () => {
     await call(api.app, 'PUT', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/lti-placement`, s.instructorToken, { platformId: registered.body.id, contextId: platform.contextId, resourceLinkId: platform.resourceLinkId }, 200);
     platform.users.set('sub-browser-learner', { sub: 'sub-browser-learner', name: 'Fay Lindqvist', roles: PLATFORM_ROLES.learner });
     platform.users.set('sub-browser-instructor', { sub: 'sub-browser-instructor', name: 'Gus Hartwell', roles: PLATFORM_ROLES.instructor });
+    platform.toolKeySetUrl = `${address}/v1/lti/jwks`;
     browser = await launchChromium();
   }, 60_000);
   afterAll(async () => {
@@ -65,5 +66,27 @@ describe.skipIf(!chromiumPresent)('an LTI launch in a browser', () => {
     expect(await answer('/v1/session')).toEqual({ signedIn: true, as: 'staff' });
     expect((await answer('/v1/me')).role).toBe('instructor');
     await context.close();
+  });
+
+  it('an instructor deep-links an assignment and section: our signed response is form-posted across sites to the platform, which verifies it (Deep Linking 2.0, 4.5)', async () => {
+    platform.nextMessage = 'deep-linking';
+    try {
+      const context = await browser.newContext();
+      const page = await context.newPage();
+      await page.goto(`${platform.base}/start?sub=sub-browser-instructor&tool=${encodeURIComponent(tool)}`);
+      await page.waitForSelector('select[name="sectionId"]', { timeout: 15_000 });
+      // The choice page makes no session (common practice, no source: a deep linking request only places).
+      expect(await context.cookies(tool)).toEqual([]);
+      await page.selectOption('select[name="sectionId"]', String(s.sectionB.id));
+      await page.click('button[type="submit"]');
+      // The response page's own script posts the JWT to the platform's return URL; its policy allows that form target.
+      await page.waitForURL(`${platform.base}/deep-link-return`, { timeout: 15_000 });
+      expect(await page.textContent('body')).toContain('Activity placed.');
+      expect(platform.deepLinked).toHaveLength(1);
+      expect(platform.deepLinked[0].custom).toEqual({ rateproof_assignment_id: String(s.assignment.id), rateproof_section_id: String(s.sectionB.id) });
+      await context.close();
+    } finally {
+      platform.nextMessage = 'resource-link';
+    }
   });
 });

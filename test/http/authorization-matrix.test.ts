@@ -51,6 +51,9 @@ const exceptions: Record<string, Partial<Record<Role, Outcome>>> = {
   // and a ticket are refused alike for every caller: a session of any kind opens neither.
   'POST /v1/lti/launch': everyone(401),
   'POST /v1/lti/enter': everyone(401),
+  // A deep link's choice is proven by the ticket a verified deep linking request made
+  // (test/http/lti-deep-linking.test.ts), never by a session: without one, refused for every caller.
+  'POST /v1/lti/deep-link': everyone(401),
 };
 
 /** A clean submission without a student id, as a student sends their own. */
@@ -166,6 +169,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'POST /v1/lti/login': () => ({ url: '/v1/lti/login', body: { iss: PLATFORM_ISSUER, client_id: 'client-0', login_hint: 'user-1', target_link_uri: 'https://tool.invalid/' } }),
   'POST /v1/lti/launch': () => ({ url: '/v1/lti/launch', body: { id_token: 'not.a.token', state: 'not-a-state' } }),
   'POST /v1/lti/enter': () => ({ url: '/v1/lti/enter', body: { ticket: 'not-a-ticket' } }),
+  'POST /v1/lti/deep-link': (f) => ({ url: '/v1/lti/deep-link', body: { ticket: 'not-a-ticket', assignmentId: String(f.assignment.id), sectionId: String(f.sectionA.id) } }),
 };
 
 describe('authorisation matrix: every route x every caller', () => {

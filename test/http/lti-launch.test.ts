@@ -211,11 +211,6 @@ describe('LTI 1.3 launch from a test platform', () => {
       const auth = await initiate(learner);
       return post({ id_token: await platform.idToken(learner, auth.nonce, { claims: { 'https://purl.imsglobal.org/spec/lti/claim/version': '1.2.0' } }), state: auth.state });
     }],
-    // LTI Core 1.3, 5.3.1 and Deep Linking 2.0: not built yet, refused with its own reason.
-    ['deep linking request', 'deep-linking-not-supported', async () => {
-      const auth = await initiate(instructor);
-      return post({ id_token: await platform.idToken(instructor, auth.nonce, { claims: { 'https://purl.imsglobal.org/spec/lti/claim/message_type': 'LtiDeepLinkingRequest' } }), state: auth.state });
-    }],
     // LTI Core 1.3, 5.3.1: only the message types the tool knows.
     ['another message type', 'unknown-message-type', async () => {
       const auth = await initiate(learner);

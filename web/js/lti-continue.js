@@ -1,2 +1,2 @@
-// A launch's page posts its one-time ticket to this origin at once; the page's button does the same without scripts.
+// A launch's page posts its form at once: the one-time ticket to this origin, or a deep linking response to the platform. Its button does the same without scripts.
 document.querySelector('form')?.submit();

@@ -1,6 +1,6 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { exportJWK, generateKeyPair, SignJWT, type CryptoKey, type JWK } from 'jose';
+import { createLocalJWKSet, decodeProtectedHeader, exportJWK, generateKeyPair, jwtVerify, SignJWT, type CryptoKey, type JWK } from 'jose';
 
 /**
  * A learning platform of our own making, written from the 1EdTech specifications (LTI Core 1.3 and
@@ -9,6 +9,7 @@ import { exportJWK, generateKeyPair, SignJWT, type CryptoKey, type JWK } from 'j
  */
 
 const LTI = 'https://purl.imsglobal.org/spec/lti/claim/';
+const DL = 'https://purl.imsglobal.org/spec/lti-dl/claim/';
 const MEMBERSHIP = 'http://purl.imsglobal.org/vocab/lis/v2/membership';
 /** Context roles (LTI Core 1.3, A.2.3); a TA is sent with its principal role too (A.2.3.1). */
 export const PLATFORM_ROLES = {
@@ -22,6 +23,13 @@ export interface PlatformUser {
   sub: string;
   name: string;
   roles: readonly string[];
+}
+
+/** A resource link the platform made from a tool's deep linking response (Deep Linking 2.0, 3.1 and 4.5). */
+export interface DeepLinkedItem {
+  resourceLinkId: string;
+  title: string;
+  custom: Record<string, string>;
 }
 
 export interface AuthRequest {
@@ -44,7 +52,10 @@ export class TestPlatform {
   readonly deploymentId = 'deployment-1';
   readonly contextId = 'context-kinetics-1';
   readonly resourceLinkId = 'link-lab-3';
+  /** Opaque to the tool, echoed in its response (Deep Linking 2.0, 4.4.1). */
+  readonly deepLinkingData = 'platform-state-8c1e';
   private keyCount = 0;
+  private linkCount = 0;
 
   private constructor(
     private readonly server: Server,
@@ -56,10 +67,12 @@ export class TestPlatform {
   static async start(): Promise<TestPlatform> {
     const holder: { platform?: TestPlatform } = {};
     const server = createServer((request, response) => {
-      holder.platform!.answer(request.url ?? '/').then(
+      const chunks: Buffer[] = [];
+      request.on('data', (chunk: Buffer) => chunks.push(chunk));
+      request.on('end', () => holder.platform!.answer(request.url ?? '/', Buffer.concat(chunks).toString()).then(
         ({ type, body }) => response.writeHead(200, { 'content-type': type }).end(body),
         (error: Error) => response.writeHead(error.message === 'not found' ? 404 : 400, { 'content-type': 'text/plain' }).end(error.message),
-      );
+      ));
     });
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -71,22 +84,35 @@ export class TestPlatform {
 
   /** The people a browser may sign in as at this platform, by their subject id (the login hint). */
   readonly users = new Map<string, PlatformUser>();
+  /** What the browser's next launch is: a resource link launch, or a deep linking request. */
+  nextMessage: 'resource-link' | 'deep-linking' = 'resource-link';
+  /** Where the tool serves its key set, for checking its deep linking responses (set by a browser test). */
+  toolKeySetUrl = '';
+  /** The links made from the tool's deep linking responses posted to the return URL. */
+  readonly deepLinked: DeepLinkedItem[] = [];
 
   /**
    * The platform's pages, for a browser: its key set (Security Framework 1.0, 6.3); a start page that
    * initiates login at the tool by form POST (5.1.1.1); and its authorisation endpoint, which answers
    * the tool's authentication request with the id_token form-posted back (5.1.1.2-5.1.1.3).
    */
-  private async answer(path: string): Promise<{ type: string; body: string }> {
+  private async answer(path: string, body: string): Promise<{ type: string; body: string }> {
     const url = new URL(path, this.base);
     if (url.pathname === '/jwks') return { type: 'application/json', body: JSON.stringify({ keys: this.jwks }) };
+    // Deep Linking 2.0, 4.5: the tool form-posts its response as the field JWT to the return URL.
+    if (url.pathname === '/deep-link-return') {
+      const keySet = (await (await fetch(this.toolKeySetUrl)).json()) as { keys: JWK[] };
+      this.deepLinked.push(await this.receiveDeepLinkingResponse(new URLSearchParams(body).get('JWT') ?? '', keySet));
+      return { type: 'text/html', body: '<!doctype html><html><body><p>Activity placed.</p></body></html>' };
+    }
     const user = this.users.get(url.searchParams.get(url.pathname === '/auth' ? 'login_hint' : 'sub') ?? '');
     if (url.pathname === '/start' && user) {
       return { type: 'text/html', body: postingPage(`${url.searchParams.get('tool')}/v1/lti/login`, this.loginInitiation(user, url.searchParams.get('tool')!)) };
     }
     if (url.pathname === '/auth' && user) {
       const auth = this.readAuthRequest(url.toString(), user);
-      return { type: 'text/html', body: postingPage(auth.redirectUri, { id_token: await this.idToken(user, auth.nonce), state: auth.state }) };
+      const idToken = await this.idToken(user, auth.nonce, { deepLinking: this.nextMessage === 'deep-linking' });
+      return { type: 'text/html', body: postingPage(auth.redirectUri, { id_token: idToken, state: auth.state }) };
     }
     throw new Error('not found');
   }
@@ -149,13 +175,75 @@ export class TestPlatform {
     };
   }
 
+  get deepLinkReturnUrl(): string {
+    return `${this.base}/deep-link-return`;
+  }
+
+  /**
+   * The claims of a deep linking request (Deep Linking 2.0, 4.4): LTI Core's common claims without a
+   * resource link, and the settings: where to return, the item types accepted, and data to echo.
+   */
+  deepLinkingClaims(user: PlatformUser, nonce: string): Record<string, unknown> {
+    const { [`${LTI}resource_link`]: _link, ...common } = this.launchClaims(user, nonce);
+    return {
+      ...common,
+      [`${LTI}message_type`]: 'LtiDeepLinkingRequest',
+      [`${DL}deep_linking_settings`]: {
+        deep_link_return_url: this.deepLinkReturnUrl,
+        accept_types: ['ltiResourceLink'],
+        accept_presentation_document_targets: ['window'],
+        accept_multiple: false,
+        data: this.deepLinkingData,
+      },
+    };
+  }
+
+  /**
+   * The platform's side of a deep linking response (Deep Linking 2.0, 4.5), checked with jose against
+   * the tool's key set as served: RS256 signature by a key of that set named in the header; iss the
+   * client id, aud this platform; iat and exp present; a nonce; the message type, version and
+   * deployment; the data echoed; one LTI resource link. The link is made, with a resource link id of
+   * the platform's, and returned. Throws on any check that fails.
+   */
+  async receiveDeepLinkingResponse(jwt: string, toolKeySet: { keys: JWK[] }): Promise<DeepLinkedItem> {
+    const header = decodeProtectedHeader(jwt);
+    if (header.alg !== 'RS256' || typeof header.kid !== 'string') throw new Error(`header: alg ${header.alg}, kid ${header.kid}`);
+    const { payload } = await jwtVerify(jwt, createLocalJWKSet(toolKeySet), {
+      algorithms: ['RS256'],
+      issuer: this.clientId,
+      audience: this.issuer,
+      requiredClaims: ['iat', 'exp', 'nonce'],
+      maxTokenAge: '5m',
+    });
+    const want = { [`${LTI}message_type`]: 'LtiDeepLinkingResponse', [`${LTI}version`]: '1.3.0', [`${LTI}deployment_id`]: this.deploymentId, [`${DL}data`]: this.deepLinkingData };
+    for (const [claim, value] of Object.entries(want)) if (payload[claim] !== value) throw new Error(`${claim} is ${String(payload[claim])}, not ${value}`);
+    const items = payload[`${DL}content_items`];
+    if (!Array.isArray(items) || items.length !== 1) throw new Error('not exactly one content item');
+    const item = items[0] as { type?: unknown; title?: unknown; custom?: unknown };
+    if (item.type !== 'ltiResourceLink' || typeof item.title !== 'string') throw new Error(`content item: ${JSON.stringify(item)}`);
+    const custom = (item.custom ?? {}) as Record<string, string>;
+    if (Object.values(custom).some((v) => typeof v !== 'string')) throw new Error('custom parameters must be strings (LTI Core 1.3, 5.4.6)');
+    return { resourceLinkId: `link-deep-${++this.linkCount}`, title: item.title, custom };
+  }
+
+  /** The claims of a launch of a deep-linked resource link: its id, title and custom parameters (LTI Core 1.3, 5.3.5 and 5.4.6). */
+  linkClaims(link: DeepLinkedItem): Record<string, unknown> {
+    return { [`${LTI}resource_link`]: { id: link.resourceLinkId, title: link.title }, [`${LTI}custom`]: link.custom };
+  }
+
   /**
    * An id_token (Security Framework 1.0, 5.1.1.3 and 5.1.2) signed with this platform's key: iss, sub,
-   * aud our client id, iat now, exp in 5 minutes; `change` alters claims or the times for a test.
+   * aud our client id, iat now, exp in 5 minutes; a resource link launch unless `deepLinking`;
+   * `change` alters claims or the times for a test.
    */
-  async idToken(user: PlatformUser, nonce: string, change: { claims?: Record<string, unknown>; iat?: number; exp?: number; iss?: string; aud?: string | string[]; key?: CryptoKey } = {}): Promise<string> {
+  async idToken(
+    user: PlatformUser,
+    nonce: string,
+    change: { deepLinking?: boolean; claims?: Record<string, unknown>; iat?: number; exp?: number; iss?: string; aud?: string | string[]; key?: CryptoKey } = {},
+  ): Promise<string> {
     const now = Math.floor(Date.now() / 1000);
-    return new SignJWT({ ...this.launchClaims(user, nonce), ...change.claims })
+    const claims = change.deepLinking ? this.deepLinkingClaims(user, nonce) : this.launchClaims(user, nonce);
+    return new SignJWT({ ...claims, ...change.claims })
       .setProtectedHeader({ alg: 'RS256', kid: this.key.kid, typ: 'JWT' })
       .setIssuer(change.iss ?? this.issuer)
       .setSubject(user.sub)
