@@ -12,6 +12,7 @@ import * as sectionFiles from './2026-12-05T1800-section-files.ts';
 import * as studentDoor from './2026-12-05T2000-student-door.ts';
 import * as ltiLaunch from './2026-12-05T2100-lti-launch.ts';
 import * as pageSummaries from './2026-12-05T2100-page-summaries.ts';
+import * as ltiContexts from './2026-12-05T2300-lti-contexts.ts';
 import * as ltiDeepLinks from './2026-12-05T2200-lti-deep-links.ts';
 
 /**
@@ -34,4 +35,5 @@ export const migrations: Record<string, Migration> = {
   '2026-12-05T2100-lti-launch': ltiLaunch,
   '2026-12-05T2100-page-summaries': pageSummaries,
   '2026-12-05T2200-lti-deep-links': ltiDeepLinks,
+  '2026-12-05T2300-lti-contexts': ltiContexts,
 };

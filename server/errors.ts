@@ -18,6 +18,7 @@ export const apiErrors = {
   'missing-settings': { status: 422, message: 'a PUT replaces the settings whole: state every setting the assignment has (null clears one), or send PATCH to change some' },
   'beyond-rubric-item': { status: 422, message: "the points are beyond what the finding's rubric item has left; nothing was stored" },
   'too-many-requests': { status: 429, message: 'too many tries from this address; wait a minute and try again' },
+  'platform-unavailable': { status: 502, message: "the learning platform did not answer as its services should; nothing was changed, so try again later" },
   'database-unavailable': { status: 503, message: 'the database cannot be reached just now; nothing was changed, so send the request again shortly' },
   'internal': { status: 500, message: 'internal error' },
 } as const;

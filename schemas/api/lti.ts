@@ -57,3 +57,6 @@ export const Placement = PlacementChange.extend({ assignmentId: z.number(), sect
 
 /** An HTML page for the browser (the launch's step to this origin, or why a launch was refused). */
 export const HtmlPage = z.string().describe('an HTML page');
+
+/** What a roster pull from the platform did: students enrolled (new or again), withdrawn, and listed learners left as they were. */
+export const RosterPulled = z.object({ enrolled: z.number().int(), withdrawn: z.number().int(), unchanged: z.number().int() });

@@ -19,6 +19,9 @@ export const DL_CLAIM = {
   contentItems: `${DL}content_items`,
 } as const;
 
+/** The claim of NRPS 2.0 a launch carries when the platform offers the context's membership service. */
+export const NRPS_CLAIM = 'https://purl.imsglobal.org/spec/lti-nrps/claim/namesroleservice';
+
 /** Context roles of the membership vocabulary (LTI Core 1.3, appendix A.2.3 and, for sub-roles, A.2.3.1). */
 const MEMBERSHIP = 'http://purl.imsglobal.org/vocab/lis/v2/membership';
 export const ROLE = {

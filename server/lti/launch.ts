@@ -5,6 +5,7 @@ import { useLoginState, storeLoginState, storeTicket } from '../store/lti-launch
 import { getAssignment, listAssignments } from '../store/assignments.ts';
 import { getSection, listSections } from '../store/courses.ts';
 import { storeDeepLink } from '../store/lti-deep-links.ts';
+import { storeMembershipsUrl } from '../store/lti-contexts.ts';
 import { getPlatform, placeResourceLink, placementOf, platformsOfIssuer, type PlatformRow } from '../store/lti-platforms.ts';
 import { launchedStaff, launchedStudent, type LaunchedPerson } from '../store/lti-users.ts';
 import { launchedRole } from './claims.ts';
@@ -87,6 +88,8 @@ export async function completeLaunch(db: Kysely<Database>, idToken: string | und
   const launch = await verifyLaunch(idToken, platform, platformKeys(platform.jwksUrl), use.nonce);
   const role = launchedRole(launch.roles);
   if (!role) throw new LaunchRefused('no-mapped-role');
+  // Only the membership URL is kept, and only from staff: a roster pull is theirs to start (NRPS 2.0).
+  if (role !== 'student' && launch.contextId !== undefined && launch.membershipsUrl !== undefined) await storeMembershipsUrl(db, platform.id, launch.contextId, launch.membershipsUrl);
   if (launch.kind === 'deep-linking') return chooseToPlace(db, platform, launch, role);
   return db.transaction().execute((trx) => admit(trx, platform, launch, role));
 }

@@ -1,5 +1,5 @@
 import { errors, jwtVerify, type JWTPayload, type JWTVerifyGetKey } from 'jose';
-import { CLAIM, DL_CLAIM } from './claims.ts';
+import { CLAIM, DL_CLAIM, NRPS_CLAIM } from './claims.ts';
 import { LaunchRefused, type RefusalCode } from './refusal.ts';
 
 /** The registration a launch is checked against. */
@@ -15,6 +15,8 @@ interface VerifiedPerson {
   displayName: string | null;
   roles: string[];
   contextId: string | undefined;
+  /** The context's membership service (NRPS 2.0), when the platform offers it. */
+  membershipsUrl: string | undefined;
 }
 
 /** A resource link launch, with the custom parameters of its link (LTI Core 1.3, 5.4.6). */
@@ -100,6 +102,7 @@ export async function verifyLaunch(idToken: string, platform: LaunchPlatform, ke
     displayName: typeof claims.name === 'string' ? claims.name.slice(0, 200) : null,
     roles: roles as string[],
     contextId: text((claims[CLAIM.context] as { id?: unknown } | undefined)?.id),
+    membershipsUrl: httpUrl((claims[NRPS_CLAIM] as { context_memberships_url?: unknown } | undefined)?.context_memberships_url),
   };
   // LTI Core 1.3, 5.3.1: the message types this tool takes.
   const messageType = claims[CLAIM.messageType];

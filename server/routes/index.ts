@@ -6,6 +6,7 @@ import { deadlineRoutes } from './deadlines.ts';
 import { kindRoutes } from './kinds.ts';
 import { ltiLaunchRoutes } from './lti-launch.ts';
 import { ltiPlatformRoutes } from './lti-platforms.ts';
+import { ltiRosterRoutes } from './lti-roster.ts';
 import { meRoutes } from './me.ts';
 import { reportRoutes } from './reports.ts';
 import { resultRoutes } from './results.ts';
@@ -36,4 +37,5 @@ export const routes: RouteSpec[] = [
   ...studentPageRoutes,
   ...ltiPlatformRoutes,
   ...ltiLaunchRoutes,
+  ...ltiRosterRoutes,
 ];

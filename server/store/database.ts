@@ -154,5 +154,7 @@ export interface Database {
   /** A verified launch waiting for its same-site step (a hash, single use, a minute long). */
   lti_tickets: { ticket_hash: string; student_row_id: Ref | null; staff_id: Ref | null; expires_at: Date };
   /** A deep linking request waiting for the instructor's choice (a hash, single use, short-lived). */
+  /** A platform context's membership service URL, for roster pulls (NRPS 2.0). */
+  lti_contexts: { platform_id: Ref; context_id: string; memberships_url: string };
   lti_deep_links: { ticket_hash: string; platform_id: Ref; deployment_id: string; return_url: string; data: string | null; expires_at: Date };
 }

@@ -1,4 +1,5 @@
-import { createServer, type Server } from 'node:http';
+import { randomBytes } from 'node:crypto';
+import { createServer, type IncomingHttpHeaders, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createLocalJWKSet, decodeProtectedHeader, exportJWK, generateKeyPair, jwtVerify, SignJWT, type CryptoKey, type JWK } from 'jose';
 
@@ -9,6 +10,9 @@ import { createLocalJWKSet, decodeProtectedHeader, exportJWK, generateKeyPair, j
  */
 
 const LTI = 'https://purl.imsglobal.org/spec/lti/claim/';
+const NRPS_CLAIM = 'https://purl.imsglobal.org/spec/lti-nrps/claim/namesroleservice';
+const NRPS_SCOPE = 'https://purl.imsglobal.org/spec/lti-nrps/scope/contextmembership.readonly';
+const NRPS_MEDIA_TYPE = 'application/vnd.ims.lti-nrps.v2.membershipcontainer+json';
 const DL = 'https://purl.imsglobal.org/spec/lti-dl/claim/';
 const MEMBERSHIP = 'http://purl.imsglobal.org/vocab/lis/v2/membership';
 /** Context roles (LTI Core 1.3, A.2.3); a TA is sent with its principal role too (A.2.3.1). */
@@ -30,6 +34,22 @@ export interface DeepLinkedItem {
   resourceLinkId: string;
   title: string;
   custom: Record<string, string>;
+}
+
+/** A member of the context as the membership service lists them (NRPS 2.0). */
+export interface ContextMember {
+  user_id: string;
+  name?: string;
+  roles: readonly string[];
+  status?: 'Active' | 'Inactive' | 'Deleted';
+}
+
+/** What the platform answers: a status other than 200 and headers only where a service needs them. */
+interface Answer {
+  type: string;
+  body: string;
+  status?: number;
+  headers?: Record<string, string>;
 }
 
 export interface AuthRequest {
@@ -69,8 +89,8 @@ export class TestPlatform {
     const server = createServer((request, response) => {
       const chunks: Buffer[] = [];
       request.on('data', (chunk: Buffer) => chunks.push(chunk));
-      request.on('end', () => holder.platform!.answer(request.url ?? '/', Buffer.concat(chunks).toString()).then(
-        ({ type, body }) => response.writeHead(200, { 'content-type': type }).end(body),
+      request.on('end', () => holder.platform!.answer(request.url ?? '/', Buffer.concat(chunks).toString(), request.headers).then(
+        ({ type, body, status, headers }) => response.writeHead(status ?? 200, { ...headers, 'content-type': type }).end(body),
         (error: Error) => response.writeHead(error.message === 'not found' ? 404 : 400, { 'content-type': 'text/plain' }).end(error.message),
       ));
     });
@@ -96,8 +116,12 @@ export class TestPlatform {
    * initiates login at the tool by form POST (5.1.1.1); and its authorisation endpoint, which answers
    * the tool's authentication request with the id_token form-posted back (5.1.1.2-5.1.1.3).
    */
-  private async answer(path: string, body: string): Promise<{ type: string; body: string }> {
+  private async answer(path: string, body: string, headers: IncomingHttpHeaders = {}): Promise<Answer> {
     const url = new URL(path, this.base);
+    if (url.pathname === '/token' || url.pathname === '/memberships') {
+      if (this.down) return { type: 'text/plain', body: 'down for maintenance', status: 503 };
+      return url.pathname === '/token' ? this.issueToken(body) : this.membership(url, headers);
+    }
     if (url.pathname === '/jwks') return { type: 'application/json', body: JSON.stringify({ keys: this.jwks }) };
     // Deep Linking 2.0, 4.5: the tool form-posts its response as the field JWT to the return URL.
     if (url.pathname === '/deep-link-return') {
@@ -172,6 +196,8 @@ export class TestPlatform {
       [`${LTI}resource_link`]: { id: this.resourceLinkId },
       [`${LTI}roles`]: [...user.roles],
       [`${LTI}context`]: { id: this.contextId },
+      // NRPS 2.0: the context's membership service, offered in every launch.
+      [NRPS_CLAIM]: { context_memberships_url: this.membershipsUrl, service_versions: ['2.0'] },
     };
   }
 
@@ -251,6 +277,72 @@ export class TestPlatform {
       .setIssuedAt(change.iat ?? now)
       .setExpirationTime(change.exp ?? now + 300)
       .sign(change.key ?? this.key.privateKey);
+  }
+
+  get membershipsUrl(): string {
+    return `${this.base}/memberships`;
+  }
+
+  /** The context's members (NRPS 2.0), listed `pageSize` to a page; `down` answers 503 from both services; `failPage` answers 500 for that page (0-based). */
+  readonly members: ContextMember[] = [];
+  pageSize = 2;
+  down = false;
+  failPage: number | undefined;
+  /** Every token request received, and the client assertions that passed every check. */
+  tokenRequests = 0;
+  readonly assertions: Record<string, unknown>[] = [];
+  private readonly tokens = new Set<string>();
+  private readonly seenJti = new Set<string>();
+
+  /**
+   * The token endpoint (Security Framework 1.0, 4.1; RFC 7523 client assertion): the client credentials
+   * grant, the assertion type named, the NRPS scope asked; the assertion checked with jose against the
+   * tool's key set as served (RS256, a kid in the header): iss and sub the client id, aud this token
+   * endpoint, iat and exp at most 5 minutes apart, a jti never seen before. Throws on any failing check.
+   */
+  private async issueToken(body: string): Promise<Answer> {
+    this.tokenRequests++;
+    const form = new URLSearchParams(body);
+    const want = { grant_type: 'client_credentials', client_assertion_type: 'urn:ietf:params:oauth:client-assertion-type:jwt-bearer', scope: NRPS_SCOPE };
+    for (const [name, value] of Object.entries(want)) if (form.get(name) !== value) throw new Error(`${name} is ${form.get(name)}, not ${value}`);
+    const assertion = form.get('client_assertion') ?? '';
+    const header = decodeProtectedHeader(assertion);
+    if (header.alg !== 'RS256' || typeof header.kid !== 'string') throw new Error(`header: alg ${header.alg}, kid ${header.kid}`);
+    const keySet = (await (await fetch(this.toolKeySetUrl)).json()) as { keys: JWK[] };
+    const { payload } = await jwtVerify(assertion, createLocalJWKSet(keySet), {
+      algorithms: ['RS256'],
+      issuer: this.clientId,
+      subject: this.clientId,
+      audience: `${this.base}/token`,
+      requiredClaims: ['iat', 'exp', 'jti'],
+      maxTokenAge: '5m',
+    });
+    if (payload.exp! - payload.iat! > 300) throw new Error('the assertion lives longer than 5 minutes');
+    if (this.seenJti.has(payload.jti!)) throw new Error('jti seen before');
+    this.seenJti.add(payload.jti!);
+    this.assertions.push(payload);
+    const token = randomBytes(24).toString('base64url');
+    this.tokens.add(token);
+    return { type: 'application/json', body: JSON.stringify({ access_token: token, token_type: 'Bearer', expires_in: 3600, scope: NRPS_SCOPE }) };
+  }
+
+  /**
+   * The membership service (NRPS 2.0): a bearer token this platform issued, the container's media type
+   * accepted; members `pageSize` at a time, the next page named by `Link: <…>; rel="next"`.
+   */
+  private membership(url: URL, headers: IncomingHttpHeaders): Answer {
+    const token = /^Bearer (.+)$/.exec(headers.authorization ?? '')?.[1];
+    if (!token || !this.tokens.has(token)) return { type: 'text/plain', body: 'no valid bearer token', status: 401 };
+    if (!String(headers.accept ?? '').includes(NRPS_MEDIA_TYPE)) throw new Error(`accept is ${headers.accept}`);
+    const page = Number(url.searchParams.get('page') ?? '0');
+    if (page === this.failPage) return { type: 'text/plain', body: 'page failed', status: 500 };
+    const members = this.members.slice(page * this.pageSize, (page + 1) * this.pageSize);
+    const more = (page + 1) * this.pageSize < this.members.length;
+    return {
+      type: NRPS_MEDIA_TYPE,
+      body: JSON.stringify({ id: url.toString(), context: { id: this.contextId }, members }),
+      ...(more ? { headers: { link: `<${this.membershipsUrl}?page=${page + 1}>; rel="next"` } } : {}),
+    };
   }
 
   async close(): Promise<void> {
