@@ -11,7 +11,7 @@ import { ADMIN_TOKEN, call, openApi, regradeAndWait, seedCourse, submissionsFor,
  */
 type Role = 'admin' | 'instructor' | 'ta-of-section' | 'ta-of-other-section' | 'student-of-section' | 'student-of-other-section' | 'no-token' | 'bad-token';
 const roles: Role[] = ['admin', 'instructor', 'ta-of-section', 'ta-of-other-section', 'student-of-section', 'student-of-other-section', 'no-token', 'bad-token'];
-type Outcome = 'ok' | 302 | 401 | 403 | 404;
+type Outcome = 'ok' | 302 | 401 | 403 | 404 | 409;
 
 /** To a student the staff API is as if absent: every staff route answers them as a missing one. */
 const staffOnly = { 'student-of-section': 404, 'student-of-other-section': 404 } as const;
@@ -54,6 +54,9 @@ const exceptions: Record<string, Partial<Record<Role, Outcome>>> = {
   // A deep link's choice is proven by the ticket a verified deep linking request made
   // (test/http/lti-deep-linking.test.ts), never by a session: without one, refused for every caller.
   'POST /v1/lti/deep-link': everyone(401),
+  // No staff launch has sent the context's membership URL here, so a pull is a 409 for those let
+  // through (test/http/lti-roster.test.ts pulls from a test platform's membership service).
+  'POST /v1/sections/:sectionId/roster/pull': { admin: 409, instructor: 409 },
 };
 
 /** A clean submission without a student id, as a student sends their own. */
@@ -120,6 +123,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'POST /v1/sections/:sectionId/access-codes/revoke': (f) => ({ url: `/v1/sections/${f.sectionA.id}/access-codes/revoke`, body: { studentIds: ['S-004'] } }),
   'POST /v1/student/session': (f) => ({ url: '/v1/student/session', body: { code: f.codes['student-of-section'] } }),
   'GET /v1/sections/:sectionId/roster': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster` }),
+  'POST /v1/sections/:sectionId/roster/pull': (f) => ({ url: `/v1/sections/${f.sectionA.id}/roster/pull` }),
   'POST /v1/courses/:courseId/assignments': (f) => ({ url: `/v1/courses/${f.course.id}/assignments`, body: { title: `Assignment ${unique()}`, settings: f.settings } }),
   'GET /v1/assignments/:assignmentId': (f) => ({ url: `/v1/assignments/${f.assignment.id}` }),
   // The settings as stored (every setting stated), as a PUT must send them.
