@@ -50,7 +50,7 @@ export async function pullRoster(db: Kysely<Database>, section: { id: number; co
       await setEnrolment(db, section.id, known.studentId, 'enrolled', staffId);
       counts.enrolled++;
     } else {
-      await launchedStudent(db, { platformId: platform.id, courseId: section.courseId, sub, displayName: member.name?.slice(0, 200) ?? null, roles: member.roles }, section.id);
+      await launchedStudent(db, { platformId: platform.id, courseId: section.courseId, sub, displayName: member.name?.slice(0, 200) ?? null, roles: member.roles }, section.id, staffId);
       counts.enrolled++;
     }
   }

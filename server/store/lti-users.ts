@@ -26,15 +26,16 @@ async function launchUser(db: Kysely<Database>, p: LaunchedPerson) {
  * The roster row of a launched learner: theirs from an earlier launch, or a new one in the placed
  * section, under a pseudonymous student id made from their launch row (`lti-<n>`), never the
  * platform's subject id. Undefined when that row is no longer enrolled (withdrawn or removed here).
+ * `staffId` is who enrolled them: none for a launch, the instructor who pulled the roster otherwise.
  */
-export async function launchedStudent(db: Kysely<Database>, p: LaunchedPerson, sectionId: number): Promise<number | undefined> {
+export async function launchedStudent(db: Kysely<Database>, p: LaunchedPerson, sectionId: number, staffId: number | null = null): Promise<number | undefined> {
   const user = await launchUser(db, p);
   if (user.student_row_id !== null) {
     const row = await db.selectFrom('students').select('status').where('id', '=', user.student_row_id).executeTakeFirstOrThrow();
     return row.status === 'enrolled' ? user.student_row_id : undefined;
   }
   const studentId = `lti-${user.id}`;
-  await addToRoster(db, { id: sectionId, courseId: p.courseId }, [{ studentId, ...(p.displayName ? { displayName: p.displayName } : {}) }], new Map(), null);
+  await addToRoster(db, { id: sectionId, courseId: p.courseId }, [{ studentId, ...(p.displayName ? { displayName: p.displayName } : {}) }], new Map(), staffId);
   const row = await db.selectFrom('students').select('id').where('course_id', '=', p.courseId).where('student_id', '=', studentId).executeTakeFirstOrThrow();
   await db.updateTable('lti_users').set({ student_row_id: row.id }).where('id', '=', user.id).execute();
   return row.id;

@@ -1,6 +1,7 @@
 import type { FastifyInstance } from 'fastify';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp } from '../../server/app.ts';
+import { nextPage } from '../../server/lti/memberships.ts';
 import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type ContextMember, type PlatformUser } from '../support/lti-platform/test-platform.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
@@ -56,7 +57,7 @@ describe('roster pull by NRPS 2.0 from a test platform', () => {
     expect(launched.statusCode, launched.body).toBe(200);
   }
 
-  const roster = async () => (await call(app, 'GET', `/v1/sections/${seed.sectionA.id}/roster`, seed.instructorToken, undefined, 200)).body as Array<{ studentId: string; displayName: string | null; status: string; history: Array<{ status: string }> }>;
+  const roster = async () => (await call(app, 'GET', `/v1/sections/${seed.sectionA.id}/roster`, seed.instructorToken, undefined, 200)).body as Array<{ studentId: string; displayName: string | null; status: string; history: Array<{ status: string; by: string | null }> }>;
   const byName = async (name: string) => (await roster()).find((s) => s.displayName === name);
 
   it("answers 409 until a staff launch has sent the context's membership URL; a learner's launch does not keep it", async () => {
@@ -86,6 +87,9 @@ describe('roster pull by NRPS 2.0 from a test platform', () => {
     const fromPlatform = after.filter((s) => s.studentId.startsWith('lti-'));
     expect(fromPlatform.map((s) => s.displayName).sort()).toEqual(['Learner 1', 'Learner 2', 'Learner 3']);
     expect(fromPlatform.every((s) => s.status === 'enrolled' && /^lti-\d+$/.test(s.studentId))).toBe(true);
+    // The history says who enrolled them: nobody for the launch, the instructor for the pull (the seed's handle).
+    expect((await byName('Learner 1'))?.history.map((h) => h.by)).toEqual([null]);
+    expect((await byName('Learner 2'))?.history.map((h) => h.by)).toEqual(['instructor-1']);
     // The platform's subject ids are never the student ids (docs/lti.md, data protection).
     expect(JSON.stringify(after)).not.toContain('sub-learner');
     // Students added by hand stay as they were (the seed's six).
@@ -124,6 +128,13 @@ describe('roster pull by NRPS 2.0 from a test platform', () => {
     const res = await call(app, 'POST', pullUrl, seed.instructorToken, undefined, 200);
     expect(res.body).toEqual({ enrolled: 1, withdrawn: 0, unchanged: 1 });
     expect((await byName('Learner 2'))?.history.map((h) => h.status)).toEqual(['enrolled', 'withdrawn', 'enrolled']);
+  });
+
+  it('reads the next page from a Link header with several links (RFC 8288; NRPS 2.0 pages by rel="next"), hand-written headers', () => {
+    expect(nextPage('<https://p.example/m?p=1>; rel="differences", <https://p.example/m?p=2>; rel="next"')).toBe('https://p.example/m?p=2');
+    expect(nextPage('<https://p.example/m?p=3>;rel=next')).toBe('https://p.example/m?p=3');
+    expect(nextPage('<https://p.example/m?p=1>; rel="differences"')).toBeUndefined();
+    expect(nextPage(null)).toBeUndefined();
   });
 
   it('a TA may not pull (the roster is changed by its instructor)', async () => {
