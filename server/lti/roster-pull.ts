@@ -26,6 +26,23 @@ async function sourceOf(db: Kysely<Database>, sectionId: number) {
   return { platform: (await getPlatform(db, platformId))!, contextId, membershipsUrl };
 }
 
+/** What a pull read from the platform, before anything is written. */
+export interface RosterRead {
+  platform: NonNullable<Awaited<ReturnType<typeof getPlatform>>>;
+  members: Awaited<ReturnType<typeof fetchMembers>>;
+}
+
+/**
+ * A section's membership read from its platform context (NRPS 2.0), whole, before any transaction
+ * opens: the platform may fetch our key set to check the token request's assertion while we wait, and
+ * on the embedded engine (one connection) a transaction held open meanwhile would keep that request
+ * waiting until both time out.
+ */
+export async function readRoster(db: Kysely<Database>, sectionId: number): Promise<RosterRead> {
+  const { platform, membershipsUrl } = await sourceOf(db, sectionId);
+  return { platform, members: await fetchMembers(membershipsUrl, await serviceToken(db, platform, [MEMBERSHIP_SCOPE])) };
+}
+
 /**
  * A section's roster pulled from its platform context (NRPS 2.0). Members whose context role is
  * Learner (mapped as a launch maps it) and whose status is Active are enrolled, made as a launched
@@ -33,11 +50,9 @@ async function sourceOf(db: Kysely<Database>, sectionId: number) {
  * student this platform made in this section who is no longer listed, or listed Inactive, is
  * withdrawn, the change recorded and their access codes revoked as the roster routes do. Students
  * added by hand, students the platform placed in another section, and those removed by staff are
- * left alone. The membership is read whole first, so a platform failing part way stores nothing.
+ * left alone. The membership was read whole first (`readRoster`), so a platform failing part way stores nothing.
  */
-export async function pullRoster(db: Kysely<Database>, section: { id: number; courseId: number }, staffId: number | null): Promise<RosterPulled> {
-  const { platform, membershipsUrl } = await sourceOf(db, section.id);
-  const members = await fetchMembers(membershipsUrl, await serviceToken(db, platform, [MEMBERSHIP_SCOPE]));
+export async function applyRoster(db: Kysely<Database>, section: { id: number; courseId: number }, staffId: number | null, { platform, members }: RosterRead): Promise<RosterPulled> {
   // NRPS 2.0: status is Active when absent; a member listed twice counts once.
   const learners = new Map(members.filter((m) => (m.status ?? 'Active') === 'Active' && launchedRole(m.roles) === 'student').map((m) => [m.user_id, m]));
   const before = await platformStudents(db, platform.id);
