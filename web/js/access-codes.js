@@ -4,7 +4,7 @@ import { askToConfirm } from './confirm.js';
 
 /**
  * @import { Failure } from './api.js'
- * @import { Place } from './section-view.js'
+ * @import { Place } from './place.js'
  * @import { AccessCodeState, IssuedAccessCodes, RevokedAccessCodes } from '../../schemas/api/students.ts'
  * @typedef {AccessCodeState} CodeState
  * @typedef {IssuedAccessCodes['codes'][number]} IssuedCode

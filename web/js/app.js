@@ -7,7 +7,7 @@ import { studentView } from './student-view.js';
 
 /**
  * @import { Children } from './dom.js'
- * @import { Place } from './section-view.js'
+ * @import { Place } from './place.js'
  * @import { Me } from '../../schemas/api/me.ts'
  * @import { SessionState } from '../../schemas/api/session.ts'
  */

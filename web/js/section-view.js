@@ -10,15 +10,11 @@ import { uploadPanel } from './upload-panel.js';
 /**
  * @import { Failure } from './api.js'
  * @import { Props, Children } from './dom.js'
- * @import { MyCourse } from '../../schemas/api/me.ts'
+ * @import { Place } from './place.js'
  * @import { Released, ResultRow as ResultRowOfService } from '../../schemas/api/results.ts'
  * @import { AsJson } from '../../schemas/api/as-json.ts'
  * @import { RunMatch, SectionSignals } from '../../schemas/api/signals.ts'
  * @import { KindDescription } from '../../schemas/api/kinds.ts'
- */
-/**
- * The section and assignment a view shows, and their course, as the caller's listing names them.
- * @typedef {{ course: MyCourse, section: MyCourse['sections'][number], assignment: MyCourse['assignments'][number] }} Place
  */
 /** A results row as the page reads it, its times as ISO strings. @typedef {AsJson<ResultRowOfService>} ResultRow */
 /** @typedef {'studentId' | 'version' | 'submittedAt' | 'late' | 'status' | 'score' | 'errors' | 'warnings' | 'codes' | 'released' | 'feedbackFirstReadAt'} Column */

@@ -6,7 +6,7 @@ import { comparisonTable, plotFigures, pointsText, rejectedList, stageSections }
 
 /**
  * @import { Failure } from './api.js'
- * @import { Place } from './section-view.js'
+ * @import { Place } from './place.js'
  * @import { DisplayPlace, SubmissionDisplay } from '../../schemas/display.ts'
  * @import { CheckResult, Finding, Signal } from '../../schemas/result.ts'
  * @import { SubmissionVersion, SubmissionView } from '../../schemas/api/submissions.ts'
