@@ -1,12 +1,12 @@
-import { api, ApiFailure, setCsrfToken } from './api.js';
+import { api, setCsrfToken } from './api.js';
 import { fill, h } from './dom.js';
 import { courseView } from './course-view.js';
 import { sectionView } from './section-view.js';
 import { signInView } from './sign-in.js';
+import { pageShell } from './page-shell.js';
 import { studentView } from './student-view.js';
 
 /**
- * @import { Children } from './dom.js'
  * @import { Place } from './place.js'
  * @import { Me } from '../../schemas/api/me.ts'
  * @import { SessionState } from '../../schemas/api/session.ts'
@@ -23,35 +23,19 @@ const who = /** @type {HTMLElement} */ (document.getElementById('who'));
 /** @type {Me | null} */
 let me = null;
 
-/** @param {...Children} nodes */
-function show(...nodes) {
-  fill(main, ...nodes);
-}
-
-/** @param {unknown} error */
-function failure(error) {
-  if (error instanceof ApiFailure && error.status === 401) {
+const { show, failure, header: signedInLine } = pageShell({
+  main,
+  who,
+  route: () => route(),
+  forget: () => {
     me = null;
-    return route();
-  }
-  show(h('p', { class: 'form-error', role: 'alert' }, error instanceof Error ? error.message : String(error)));
-}
-
-async function signOut() {
-  try {
-    await api('DELETE', '/v1/session');
-  } finally {
-    me = null;
-    setCsrfToken(null);
-    location.hash = '#/';
-    route();
-  }
-}
+  },
+});
 
 /** @param {Me} caller */
 function header(caller) {
   const role = { ta: 'teaching assistant', instructor: 'instructor', admin: 'administrator' }[caller.role];
-  fill(who, h('span', {}, `Signed in as ${caller.handle ?? 'admin'} (${role})`), h('button', { type: 'button', class: 'quiet', onclick: signOut }, 'Sign out'));
+  signedInLine(`Signed in as ${caller.handle ?? 'admin'} (${role})`);
 }
 
 /**

@@ -1,12 +1,12 @@
-import { api, ApiFailure, setCsrfToken } from './api.js';
-import { fill, h } from './dom.js';
+import { api, setCsrfToken } from './api.js';
+import { fill } from './dom.js';
 import { codeSignInView } from './code-sign-in.js';
 import { assignmentsView } from './student-assignments.js';
 import { feedbackView } from './student-feedback.js';
 import { submitView } from './student-submit.js';
+import { pageShell } from './page-shell.js';
 
 /**
- * @import { Children } from './dom.js'
  * @import { StudentMe } from './student-types.js'
  * @import { SessionState } from '../../schemas/api/session.ts'
  */
@@ -25,35 +25,19 @@ let me = null;
 /** Why the sign-in form is shown again, once. @type {string | undefined} */
 let signInNote;
 
-/** @param {...Children} nodes */
-function show(...nodes) {
-  fill(main, ...nodes);
-}
-
-/** @param {unknown} error */
-function failure(error) {
-  if (error instanceof ApiFailure && error.status === 401) {
+const { show, failure, header: signedInLine } = pageShell({
+  main,
+  who,
+  route: () => route(),
+  forget: (why) => {
     me = null;
-    signInNote = 'Your session has ended. Enter your access code again.';
-    return route();
-  }
-  show(h('p', { class: 'form-error', role: 'alert' }, error instanceof Error ? error.message : String(error)));
-}
-
-async function signOut() {
-  try {
-    await api('DELETE', '/v1/session');
-  } finally {
-    me = null;
-    setCsrfToken(null);
-    location.hash = '#/';
-    route();
-  }
-}
+    if (why === 'session-ended') signInNote = 'Your session has ended. Enter your access code again.';
+  },
+});
 
 /** @param {StudentMe} student */
 function header(student) {
-  fill(who, h('span', {}, `Signed in as ${student.displayName ? `${student.displayName} (${student.studentId})` : student.studentId}`), h('button', { type: 'button', class: 'quiet', onclick: signOut }, 'Sign out'));
+  signedInLine(`Signed in as ${student.displayName ? `${student.displayName} (${student.studentId})` : student.studentId}`);
 }
 
 async function readMe() {
