@@ -84,12 +84,13 @@ module.exports = {
     },
     layer('batches-below-pool', '^server/batches/', '^(server/(batches|checks|signals|engine|input)|kinds|reports|schemas)/', 'The work a worker does, below the pool that runs it.'),
     layer('store-below-its-users', '^server/store/', ['^(server/store|schemas|migrations)/', LOW_ROOT_FILES], 'SQL knows nothing of grading or HTTP.'),
+    layer('lti-on-the-store', '^server/lti/', ['^(server/(lti|store)|schemas|migrations)/', LOW_ROOT_FILES], "A learning platform's messages and services, kept in the store; grading and the routes use them."),
     layer('jobs-on-the-store', '^server/jobs/', ['^(server/(jobs|store)|schemas|migrations)/', LOW_ROOT_FILES], 'The job queue keeps jobs in the database; it knows no job type.'),
     layer('pool-runs-batches-and-kinds', '^server/pool/', '^(server/(pool|batches)|kinds)/', 'The pool names its tasks; the command and grading use the pool.'),
     layer(
       'grading-below-routes',
       '^server/grading/',
-      ['^(server/(grading|jobs|pool|batches|store|checks|signals|engine|input)|kinds|reports|schemas)/', LOW_ROOT_FILES],
+      ['^(server/(grading|jobs|lti|pool|batches|store|checks|signals|engine|input)|kinds|reports|schemas)/', LOW_ROOT_FILES],
       'What a request or a job does with the checker and the store, without HTTP.',
     ),
     {

@@ -13,6 +13,7 @@ import * as studentDoor from './2026-12-05T2000-student-door.ts';
 import * as ltiLaunch from './2026-12-05T2100-lti-launch.ts';
 import * as pageSummaries from './2026-12-05T2100-page-summaries.ts';
 import * as ltiContexts from './2026-12-05T2300-lti-contexts.ts';
+import * as ltiGrades from './2026-12-05T2330-lti-grades.ts';
 import * as ltiDeepLinks from './2026-12-05T2200-lti-deep-links.ts';
 
 /**
@@ -36,4 +37,5 @@ export const migrations: Record<string, Migration> = {
   '2026-12-05T2100-page-summaries': pageSummaries,
   '2026-12-05T2200-lti-deep-links': ltiDeepLinks,
   '2026-12-05T2300-lti-contexts': ltiContexts,
+  '2026-12-05T2330-lti-grades': ltiGrades,
 };

@@ -80,7 +80,7 @@ export async function buildApp(options: AppOptions): Promise<FastifyInstance> {
     await jobs.stop();
     await pool?.close();
   });
-  await startServiceJobs(jobs, { db: options.store.db, regrades, sectionFiles, work: working, concurrency: pool?.size ?? 1 });
+  await startServiceJobs(jobs, { db: options.store.db, regrades, sectionFiles, work: working, concurrency: pool?.size ?? 1, passbackRetrySeconds: options.config.passbackRetrySeconds });
 
   await app.register(servicesPlugin, { config: options.config, store: options.store, grader, regrades, sectionFiles, jobs });
   await app.register(errorHandlerPlugin);

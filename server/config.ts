@@ -24,6 +24,8 @@ export const ConfigSchema = z.object({
   RATEPROOF_CODE_TRIES: z.string().trim().regex(/^\d+$/, 'a whole number of tries').transform(Number).pipe(z.number().min(1).max(100_000)).optional(),
   /** Proxies in front of the service whose X-Forwarded-For to believe (docker compose: 1, its Caddy); unset, none. */
   RATEPROOF_PROXY_HOPS: z.string().trim().regex(/^\d+$/, 'a whole number of proxies').transform(Number).pipe(z.number().min(1).max(10)).optional(),
+  /** Seconds before grade passback tries a platform again, doubling each time; default 30. */
+  RATEPROOF_PASSBACK_RETRY_SECONDS: z.string().trim().regex(/^\d+$/, 'a whole number of seconds').transform(Number).pipe(z.number().min(1).max(3600)).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -50,6 +52,8 @@ export interface Config {
    * and protocol: the address the code sign-in's limit counts by. Unset, the connection's own address.
    */
   proxyHops?: number;
+  /** First wait before grade passback tries a platform again (default: the passback queue's own). */
+  passbackRetrySeconds?: number;
   /** What this process does (`rateproof serve` flags): serve requests and work jobs (the default), or one of them. */
   role?: ProcessRole;
 }
@@ -100,5 +104,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     bigSection: c.RATEPROOF_BIG_SECTION,
     codeTriesPerMinute: c.RATEPROOF_CODE_TRIES,
     proxyHops: c.RATEPROOF_PROXY_HOPS,
+    passbackRetrySeconds: c.RATEPROOF_PASSBACK_RETRY_SECONDS,
   };
 }

@@ -1,6 +1,16 @@
 import { z } from 'zod';
 import { Enrolment } from './rosters.ts';
 
+/**
+ * Grade passback (LTI AGS) for one student: `waiting` (queued, or to be tried again after `reason`),
+ * `sent` (the platform took the score), or `failed` (given up or refused, with `reason`); `at` is when
+ * it was sent, or else queued.
+ */
+export const GradeSent = z.object({ state: z.enum(['waiting', 'sent', 'failed']), reason: z.string().nullable(), at: z.date() });
+
+/** How many failed grade sends wait again after a TA's "send again". */
+export const SendsRetried = z.object({ waiting: z.number() });
+
 /** One roster student's latest result for an assignment, or their not having submitted. */
 export const ResultRow = z.object({
   studentId: z.string(),
@@ -38,6 +48,8 @@ export const ResultRow = z.object({
   releasedVersion: z.number().nullable(),
   /** Released, and the latest result (a regrade, an override, a new version) would show the student something else: `score` beside `releasedScore`. */
   changedSinceRelease: z.boolean(),
+  /** Where sending the released score to the student's learning platform stands; null for a student no platform knows, or nothing sent yet. */
+  gradeSent: GradeSent.nullable(),
 });
 export type ResultRow = z.infer<typeof ResultRow>;
 

@@ -45,3 +45,12 @@ export function launchedRole(roles: readonly string[]): LaunchedRole | undefined
   if (has(ROLE.learner)) return 'student';
   return undefined;
 }
+
+/**
+ * AGS 2.0: the claim a launch carries when the platform offers the context's grade services (the
+ * line item container, and the line item bound to the launched link when it has one), and the scopes
+ * a token for them asks: line items read and managed, scores posted.
+ */
+export const AGS_CLAIM = 'https://purl.imsglobal.org/spec/lti-ags/claim/endpoint';
+const AGS_SCOPE = 'https://purl.imsglobal.org/spec/lti-ags/scope/';
+export const AGS_SCOPES = { lineItem: `${AGS_SCOPE}lineitem`, score: `${AGS_SCOPE}score` } as const;

@@ -5,6 +5,7 @@ import type { Database } from '../store/database.ts';
 import { signingKey } from '../store/lti-keys.ts';
 import type { PendingDeepLink } from '../store/lti-deep-links.ts';
 import { CLAIM, DL_CLAIM } from './claims.ts';
+import { lineItemFor } from './grade-service.ts';
 
 /**
  * The custom parameters a deep-linked resource link carries (LTI Core 1.3, 5.4.6): the platform sends
@@ -30,7 +31,8 @@ export interface Placed {
 /**
  * The deep linking response (Deep Linking 2.0, 4.5): a JWT signed RS256 with our current signing key
  * (its kid in the header), from our client id to the platform, holding one LTI resource link whose
- * custom parameters name the assignment and section chosen, and the request's data echoed.
+ * custom parameters name the assignment and section chosen, with a line item for its scores (a
+ * platform offering AGS 2.0 makes it and binds it to the link), and the request's data echoed.
  */
 export async function deepLinkingResponse(db: Kysely<Database>, link: PendingDeepLink, platform: { issuer: string; clientId: string }, placed: Placed): Promise<string> {
   const key = await signingKey(db);
@@ -40,6 +42,7 @@ export async function deepLinkingResponse(db: Kysely<Database>, link: PendingDee
     type: 'ltiResourceLink',
     title: placed.title,
     custom: { [CUSTOM.assignmentId]: String(placed.assignmentId), [CUSTOM.sectionId]: String(placed.sectionId) },
+    lineItem: lineItemFor({ id: placed.assignmentId, title: placed.title }),
   };
   return new SignJWT({
     nonce: randomBytes(16).toString('base64url'),

@@ -5,7 +5,8 @@ import { useLoginState, storeLoginState, storeTicket } from '../store/lti-launch
 import { getAssignment, listAssignments } from '../store/assignments.ts';
 import { getSection, listSections } from '../store/courses.ts';
 import { storeDeepLink } from '../store/lti-deep-links.ts';
-import { storeMembershipsUrl } from '../store/lti-contexts.ts';
+import { storeContextUrls } from '../store/lti-contexts.ts';
+import { storeLineItem } from '../store/lti-line-items.ts';
 import { getPlatform, placeResourceLink, placementOf, platformsOfIssuer, type PlatformRow } from '../store/lti-platforms.ts';
 import { launchedStaff, launchedStudent, type LaunchedPerson } from '../store/lti-users.ts';
 import { launchedRole } from './claims.ts';
@@ -88,8 +89,11 @@ export async function completeLaunch(db: Kysely<Database>, idToken: string | und
   const launch = await verifyLaunch(idToken, platform, platformKeys(platform.jwksUrl), use.nonce);
   const role = launchedRole(launch.roles);
   if (!role) throw new LaunchRefused('no-mapped-role');
-  // Only the membership URL is kept, and only from staff: a roster pull is theirs to start (NRPS 2.0).
-  if (role !== 'student' && launch.contextId !== undefined && launch.membershipsUrl !== undefined) await storeMembershipsUrl(db, platform.id, launch.contextId, launch.membershipsUrl);
+  // Of the context only its service URLs are kept: the membership URL from staff alone, as a roster
+  // pull is theirs to start (NRPS 2.0); the line item container from anyone's launch (AGS 2.0).
+  if (launch.contextId !== undefined) {
+    await storeContextUrls(db, platform.id, launch.contextId, { ...(role !== 'student' ? { membershipsUrl: launch.membershipsUrl } : {}), lineItemsUrl: launch.lineItemsUrl });
+  }
   if (launch.kind === 'deep-linking') return chooseToPlace(db, platform, launch, role);
   return db.transaction().execute((trx) => admit(trx, platform, launch, role));
 }
@@ -131,12 +135,14 @@ export async function ofCourse(db: Kysely<Database>, courseId: number, pair: { a
 async function admit(db: Kysely<Database>, platform: PlatformRow, launch: VerifiedResourceLink, role: 'instructor' | 'ta' | 'student'): Promise<LaunchOutcome> {
   const person: LaunchedPerson = { platformId: platform.id, courseId: platform.courseId, sub: launch.sub, displayName: launch.displayName, roles: launch.roles };
   const ticket = secret();
+  const placement = await placementFor(db, platform, launch);
+  // AGS 2.0: the line item the platform bound to this link is where its assignment's scores go.
+  if (placement && launch.lineItemUrl !== undefined) await storeLineItem(db, { platformId: platform.id, contextId: launch.contextId!, assignmentId: placement.assignmentId, url: launch.lineItemUrl });
   if (role === 'instructor') {
     await storeTicket(db, ticket, { staffId: await launchedStaff(db, person, 'instructor') }, TICKET_SECONDS);
     return { kind: 'ticket', ticket, as: 'staff' };
   }
   // A learner's or a TA's launch lands in the section the resource link was placed on.
-  const placement = await placementFor(db, platform, launch);
   if (!placement) return { kind: 'not-placed' };
   if (role === 'ta') {
     await storeTicket(db, ticket, { staffId: await launchedStaff(db, person, 'ta', placement.sectionId) }, TICKET_SECONDS);

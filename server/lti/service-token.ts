@@ -24,9 +24,30 @@ const TokenAnswer = z.object({ access_token: z.string().min(1), token_type: z.st
 /** Tokens kept per platform, token URL and scope set, until shortly before they expire. */
 const cache = new Map<string, { token: string; until: number }>();
 
-/** A failure at one of the platform's services: a 502 naming the step, never a 500. */
-export function platformFailed(step: string, why: string): ApiError {
-  return new ApiError('platform-unavailable', `the learning platform's ${step} failed (${why}); nothing was changed, so try again later`);
+/**
+ * A failure at one of the platform's services: a 502 naming the step, never a 500. `lasting` when
+ * trying again unchanged would fail again (the platform refused what was sent), not when it was down.
+ */
+export class PlatformFailure extends ApiError {
+  constructor(
+    readonly step: string,
+    readonly why: string,
+    readonly lasting: boolean,
+  ) {
+    super('platform-unavailable', `the learning platform's ${step} failed (${why}); nothing was changed, so try again later`);
+  }
+}
+
+export function platformFailed(step: string, why: string, lasting = false): PlatformFailure {
+  return new PlatformFailure(step, why, lasting);
+}
+
+/** Whether a status refuses the request itself (a 4xx other than a timeout or too many requests), so that sending it again is no use. */
+export const refusedStatus = (status: number): boolean => status >= 400 && status < 500 && status !== 408 && status !== 429;
+
+/** Forgets the tokens kept for a platform: one its service turned down (expired or revoked early). */
+export function forgetServiceTokens(platformId: number): void {
+  for (const key of cache.keys()) if (key.startsWith(`${platformId} `)) cache.delete(key);
 }
 
 /**
@@ -64,7 +85,7 @@ export async function serviceToken(db: Kysely<Database>, platform: TokenPlatform
   } catch {
     throw platformFailed('token endpoint', 'no answer');
   }
-  if (!response.ok) throw platformFailed('token endpoint', `status ${response.status}`);
+  if (!response.ok) throw platformFailed('token endpoint', `status ${response.status}`, refusedStatus(response.status));
   const answer = TokenAnswer.safeParse(await response.json().catch(() => undefined));
   if (!answer.success) throw platformFailed('token endpoint', 'not a token answer');
   // RFC 6749, 5.1: expires_in is recommended, not required; without it the token is used once.

@@ -1,5 +1,5 @@
 import { errors, jwtVerify, type JWTPayload, type JWTVerifyGetKey } from 'jose';
-import { CLAIM, DL_CLAIM, NRPS_CLAIM } from './claims.ts';
+import { AGS_CLAIM, CLAIM, DL_CLAIM, NRPS_CLAIM } from './claims.ts';
 import { LaunchRefused, type RefusalCode } from './refusal.ts';
 
 /** The registration a launch is checked against. */
@@ -17,6 +17,9 @@ interface VerifiedPerson {
   contextId: string | undefined;
   /** The context's membership service (NRPS 2.0), when the platform offers it. */
   membershipsUrl: string | undefined;
+  /** The context's line item container and the launched link's own line item (AGS 2.0), when offered. */
+  lineItemsUrl: string | undefined;
+  lineItemUrl: string | undefined;
 }
 
 /** A resource link launch, with the custom parameters of its link (LTI Core 1.3, 5.4.6). */
@@ -103,6 +106,8 @@ export async function verifyLaunch(idToken: string, platform: LaunchPlatform, ke
     roles: roles as string[],
     contextId: text((claims[CLAIM.context] as { id?: unknown } | undefined)?.id),
     membershipsUrl: httpUrl((claims[NRPS_CLAIM] as { context_memberships_url?: unknown } | undefined)?.context_memberships_url),
+    lineItemsUrl: httpUrl((claims[AGS_CLAIM] as { lineitems?: unknown } | undefined)?.lineitems),
+    lineItemUrl: httpUrl((claims[AGS_CLAIM] as { lineitem?: unknown } | undefined)?.lineitem),
   };
   // LTI Core 1.3, 5.3.1: the message types this tool takes.
   const messageType = claims[CLAIM.messageType];

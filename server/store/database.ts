@@ -6,6 +6,7 @@ type Ref = number;
 type Json<T> = ColumnType<T, string, string>;
 
 export type EnrolmentStatus = 'enrolled' | 'withdrawn' | 'removed';
+export type GradeSendState = 'waiting' | 'sent' | 'failed';
 
 export interface Database {
   courses: { id: Generated<number>; name: string; created_at: Generated<Date> };
@@ -138,8 +139,6 @@ export interface Database {
   deadlines: { assignment_id: Ref; section_id: Ref; due_at: Date; set_by: Ref; set_at: Generated<Date> };
   /** The first time a student opened a release of their feedback. */
   feedback_reads: { release_id: Ref; student_row_id: Ref; first_read_at: Generated<Date> };
-  /** What grade passback would send (no platform is connected yet). */
-  passback_records: { id: Generated<number>; assignment_id: Ref; section_id: Ref; grades: Json<unknown>; recorded_at: Generated<Date> };
   /** A learning platform the admin registered, bound to one course. */
   lti_platforms: { id: Generated<number>; course_id: Ref; issuer: string; client_id: string; auth_url: string; token_url: string; jwks_url: string; created_at: Generated<Date> };
   lti_deployments: { platform_id: Ref; deployment_id: string };
@@ -155,6 +154,22 @@ export interface Database {
   lti_tickets: { ticket_hash: string; student_row_id: Ref | null; staff_id: Ref | null; expires_at: Date };
   /** A deep linking request waiting for the instructor's choice (a hash, single use, short-lived). */
   /** A platform context's membership service URL, for roster pulls (NRPS 2.0). */
-  lti_contexts: { platform_id: Ref; context_id: string; memberships_url: string };
+  /** A platform context's service URLs, as launches sent them. */
+  lti_contexts: { platform_id: Ref; context_id: string; memberships_url: string | null; line_items_url: string | null };
+  /** The line item an assignment's scores go to in a platform context (AGS 2.0). */
+  lti_line_items: { platform_id: Ref; context_id: string; assignment_id: Ref; url: string };
+  /** Where sending one student's released score for an assignment to their platform stands. */
+  grade_sends: {
+    assignment_id: Ref;
+    student_row_id: Ref;
+    platform_id: Ref;
+    generation: Generated<number>;
+    state: GradeSendState;
+    reason: string | null;
+    tries: Generated<number>;
+    queued_at: Generated<Date>;
+    sent_at: Date | null;
+    sent_score: number | null;
+  };
   lti_deep_links: { ticket_hash: string; platform_id: Ref; deployment_id: string; return_url: string; data: string | null; expires_at: Date };
 }

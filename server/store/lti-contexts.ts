@@ -1,12 +1,20 @@
 import type { Kysely } from 'kysely';
 import type { Database, EnrolmentStatus } from './database.ts';
 
-/** Keeps a context's membership service URL (NRPS 2.0) as the latest staff launch sent it. */
-export async function storeMembershipsUrl(db: Kysely<Database>, platformId: number, contextId: string, url: string): Promise<void> {
+/** A context's service URLs as a launch sent them: its membership service (NRPS 2.0) and line item container (AGS 2.0). */
+export interface ContextUrls {
+  membershipsUrl?: string;
+  lineItemsUrl?: string;
+}
+
+/** Keeps the service URLs a launch sent for its context; one not sent keeps what an earlier launch sent. */
+export async function storeContextUrls(db: Kysely<Database>, platformId: number, contextId: string, urls: ContextUrls): Promise<void> {
+  const set = { ...(urls.membershipsUrl !== undefined ? { memberships_url: urls.membershipsUrl } : {}), ...(urls.lineItemsUrl !== undefined ? { line_items_url: urls.lineItemsUrl } : {}) };
+  if (Object.keys(set).length === 0) return;
   await db
     .insertInto('lti_contexts')
-    .values({ platform_id: platformId, context_id: contextId, memberships_url: url })
-    .onConflict((oc) => oc.columns(['platform_id', 'context_id']).doUpdateSet({ memberships_url: url }))
+    .values({ platform_id: platformId, context_id: contextId, ...set })
+    .onConflict((oc) => oc.columns(['platform_id', 'context_id']).doUpdateSet(set))
     .execute();
 }
 
