@@ -17,7 +17,7 @@ import { uploadPanel } from './upload-panel.js';
  * @import { KindDescription } from '../../schemas/api/kinds.ts'
  */
 /** A results row as the page reads it, its times as ISO strings. @typedef {AsJson<ResultRowOfService>} ResultRow */
-/** @typedef {'studentId' | 'version' | 'submittedAt' | 'late' | 'status' | 'score' | 'errors' | 'warnings' | 'codes' | 'released' | 'feedbackFirstReadAt'} Column */
+/** @typedef {'studentId' | 'version' | 'submittedAt' | 'late' | 'status' | 'score' | 'errors' | 'warnings' | 'codes' | 'released' | 'feedbackFirstReadAt' | 'gradeSent'} Column */
 
 /** @type {Record<string, [label: string, keep: (row: ResultRow) => boolean]>} */
 const STATUS_FILTERS = {
@@ -32,6 +32,7 @@ const STATUS_FILTERS = {
   late: ['Handed in late', (r) => r.late],
   held: ['Late, waiting to be accepted', (r) => r.held],
   unread: ['Released, feedback not read', (r) => r.released && r.feedbackFirstReadAt === null],
+  'not-sent': ['Grade not sent to the course', (r) => r.gradeSent?.state === 'failed'],
 };
 
 /**
@@ -59,7 +60,12 @@ const COLUMNS = [
   ['codes', 'Findings'],
   ['released', 'Released'],
   ['feedbackFirstReadAt', 'Read'],
+  ['gradeSent', 'Grade sent'],
 ];
+
+/** Where a grade send stands, in words; the order the column sorts by (trouble first when descending). */
+const SEND_WORDS = { sent: 'sent', waiting: 'waiting', failed: 'not sent' };
+const SEND_RANK = { sent: 0, waiting: 1, failed: 2 };
 
 const COLUMN_LABELS = Object.fromEntries(COLUMNS);
 
@@ -177,7 +183,8 @@ export async function sectionView(place, failure, instructor) {
   const compare = (a, b) => {
     const key = state.sort;
     // Lateness ranks held work above late above on time; findings by how many.
-    const value = (/** @type {ResultRow} */ r) => (key === 'codes' ? r.codes.length : key === 'late' ? (r.held ? 2 : r.late ? 1 : 0) : r[key]);
+    const value = (/** @type {ResultRow} */ r) =>
+      key === 'codes' ? r.codes.length : key === 'late' ? (r.held ? 2 : r.late ? 1 : 0) : key === 'gradeSent' ? (r.gradeSent ? SEND_RANK[r.gradeSent.state] : null) : r[key];
     const [x, y] = [value(a), value(b)];
     // A column holds words, numbers, or yes and no (false before true, as 0 before 1).
     const before = typeof x === 'string' && typeof y === 'string' ? x < y : Number(x) < Number(y);
@@ -217,7 +224,7 @@ export async function sectionView(place, failure, instructor) {
           h('button', { type: 'button', class: 'link', onclick: () => ((state.status = 'changed'), draw()) }, 'Show only them'),
         )
       : null;
-    fill(releaseArea, ask, note);
+    fill(releaseArea, ask, note, sendNote());
   }
 
   /**
@@ -243,9 +250,12 @@ export async function sectionView(place, failure, instructor) {
     });
   }
 
+  /** The columns shown: "Grade sent" only where a learning platform takes this section's grades. */
+  const columns = () => (rows.some((r) => r.gradeSent !== null) ? COLUMNS : COLUMNS.filter(([key]) => key !== 'gradeSent'));
+
   function drawHead() {
     fill(headRow,
-      ...COLUMNS.map(([key, label]) => {
+      ...columns().map(([key, label]) => {
         const sorted = state.sort === key;
         return h(
           'th',
@@ -279,6 +289,36 @@ export async function sectionView(place, failure, instructor) {
     return r.late ? h('span', { class: 'late-mark' }, 'late') : '';
   }
 
+  /**
+   * A grade send in words: sent (when), waiting (and why, once a try failed), or not sent with the reason.
+   * @param {ResultRow} r
+   */
+  function sendCell(r) {
+    const send = r.gradeSent;
+    if (!send) return '';
+    const when = new Date(send.at).toLocaleString();
+    return [h('span', { class: `send-${send.state}`, title: send.state === 'sent' ? `sent ${when}` : `queued ${when}` }, SEND_WORDS[send.state]), send.reason ? h('span', { class: 'send-reason' }, send.reason) : null];
+  }
+
+  /** Grades the platform did not take: how many, and the action that sends them again. */
+  function sendNote() {
+    const failed = rows.filter((r) => r.gradeSent?.state === 'failed').length;
+    if (failed === 0) return null;
+    return h(
+      'p',
+      { class: 'send-note' },
+      `${plural(failed, 'grade')} could not be sent to the course's learning platform (the reasons are in the Grade sent column). `,
+      h('button', { type: 'button', class: 'small', onclick: async () => {
+        try {
+          await api('POST', `${base}/passback`);
+          await refresh();
+        } catch (error) {
+          failure(error);
+        }
+      } }, 'Send again'),
+    );
+  }
+
   function draw() {
     // The filter is also set from the changed-since-release note: the select follows it.
     statusSelect.value = state.status;
@@ -304,6 +344,7 @@ export async function sectionView(place, failure, instructor) {
           cell('codes', {}, r.codes.join(', ')),
           cell('released', {}, r.submissionId === null ? '' : r.changedSinceRelease ? h('strong', { class: 'changed' }, 'changed since release') : r.released ? 'yes' : r.held ? 'held' : 'no'),
           cell('feedbackFirstReadAt', { class: 'when', title: r.feedbackFirstReadAt ? new Date(r.feedbackFirstReadAt).toLocaleString() : undefined }, r.feedbackFirstReadAt ? shortWhen(r.feedbackFirstReadAt) : r.released ? 'not yet' : ''),
+          columns().length === COLUMNS.length ? cell('gradeSent', {}, sendCell(r)) : null,
         ),
       ),
     );
