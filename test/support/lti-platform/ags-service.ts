@@ -216,7 +216,8 @@ export class AgsService {
 
   /**
    * AGS 2.0, 3.4: a score published; per (line item, user) the platform keeps the one with the latest
-   * timestamp and ignores one older than it holds (3.4.6), answering 204 either way.
+   * timestamp and ignores one older than it holds (3.4.6), answering 204 either way. Timestamps are
+   * compared to the millisecond (Date.parse); finer digits are accepted but do not order.
    */
   private publish(item: LineItem, body: string, headers: IncomingHttpHeaders, granted: ReadonlySet<string> | undefined): Answer {
     this.scoreRequests++;

@@ -345,9 +345,9 @@ export class TestPlatform {
 
   /**
    * The token endpoint (Security Framework 1.0, 4.1; RFC 7523 client assertion): the client credentials
-   * grant, the assertion type named, a non-empty set of the scopes offered (the NRPS one and AGS 2.0's,
-   * anything else refused as invalid_scope, RFC 6749 5.2), granted as asked; the assertion checked with jose against the
-   * tool's key set as served (RS256, a kid in the header): iss and sub the client id, aud this token
+   * grant, the assertion type named, a non-empty set of the scopes offered (the NRPS one and AGS 2.0's;
+   * anything else is invalid_scope, RFC 6749 5.2), granted as asked; the assertion checked with jose
+   * against the tool's key set as served (RS256, a kid in the header): iss and sub the client id, aud this token
    * endpoint, iat and exp at most 5 minutes apart, a jti never seen before. Throws on any failing check.
    */
   private async issueToken(body: string): Promise<Answer> {
