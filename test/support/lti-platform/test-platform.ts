@@ -2,17 +2,22 @@ import { randomBytes } from 'node:crypto';
 import { createServer, type IncomingHttpHeaders, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createLocalJWKSet, decodeProtectedHeader, exportJWK, generateKeyPair, jwtVerify, SignJWT, type CryptoKey, type JWK } from 'jose';
+import { AGS_CLAIM, AGS_SCOPES, AgsService, lineItemFields, type LineItem, type Score } from './ags-service.ts';
+import { Refused, requireScope, type Answer } from './answer.ts';
 
 /**
  * A learning platform of our own making, written from the 1EdTech specifications (LTI Core 1.3 and
  * the Security Framework 1.0): its own RS256 key pair, its key set served over HTTP on a free port,
- * login initiation, and id_token issue. No platform product is run or imitated.
+ * login initiation, id_token issue, a token endpoint, the membership service (NRPS 2.0) and the
+ * assignment and grade services (AGS 2.0, in ags-service.ts). No platform product is run or imitated.
  */
 
 const LTI = 'https://purl.imsglobal.org/spec/lti/claim/';
 const NRPS_CLAIM = 'https://purl.imsglobal.org/spec/lti-nrps/claim/namesroleservice';
 const NRPS_SCOPE = 'https://purl.imsglobal.org/spec/lti-nrps/scope/contextmembership.readonly';
 const NRPS_MEDIA_TYPE = 'application/vnd.ims.lti-nrps.v2.membershipcontainer+json';
+/** The scopes a tool may ask the token endpoint for: the services this platform has. */
+const OFFERED_SCOPES: string[] = [NRPS_SCOPE, ...Object.values(AGS_SCOPES)];
 const DL = 'https://purl.imsglobal.org/spec/lti-dl/claim/';
 const MEMBERSHIP = 'http://purl.imsglobal.org/vocab/lis/v2/membership';
 /** Context roles (LTI Core 1.3, A.2.3); a TA is sent with its principal role too (A.2.3.1). */
@@ -29,11 +34,12 @@ export interface PlatformUser {
   roles: readonly string[];
 }
 
-/** A resource link the platform made from a tool's deep linking response (Deep Linking 2.0, 3.1 and 4.5). */
+/** A resource link the platform made from a tool's deep linking response (Deep Linking 2.0, 3.1 and 4.5), with the line item it asked for. */
 export interface DeepLinkedItem {
   resourceLinkId: string;
   title: string;
   custom: Record<string, string>;
+  lineItemId?: string;
 }
 
 /** A member of the context as the membership service lists them (NRPS 2.0). */
@@ -42,14 +48,6 @@ export interface ContextMember {
   name?: string;
   roles: readonly string[];
   status?: 'Active' | 'Inactive' | 'Deleted';
-}
-
-/** What the platform answers: a status other than 200 and headers only where a service needs them. */
-interface Answer {
-  type: string;
-  body: string;
-  status?: number;
-  headers?: Record<string, string>;
 }
 
 export interface AuthRequest {
@@ -76,22 +74,31 @@ export class TestPlatform {
   readonly deepLinkingData = 'platform-state-8c1e';
   private keyCount = 0;
   private linkCount = 0;
+  /** The resource links of the context: the fixed one and those made by deep linking. */
+  private readonly links = new Set<string>([this.resourceLinkId]);
+  /** AGS 2.0 for the one context; its switches and readers are the platform's own below. */
+  private readonly ags: AgsService;
 
   private constructor(
     private readonly server: Server,
     readonly base: string,
     private key: { privateKey: CryptoKey; kid: string },
     private jwks: JWK[],
-  ) {}
+  ) {
+    this.ags = new AgsService(`${base}/contexts/${encodeURIComponent(this.contextId)}/lineitems`, (id) => this.links.has(id));
+  }
 
   static async start(): Promise<TestPlatform> {
     const holder: { platform?: TestPlatform } = {};
     const server = createServer((request, response) => {
       const chunks: Buffer[] = [];
       request.on('data', (chunk: Buffer) => chunks.push(chunk));
-      request.on('end', () => holder.platform!.answer(request.url ?? '/', Buffer.concat(chunks).toString(), request.headers).then(
+      request.on('end', () => holder.platform!.answer(request.method ?? 'GET', request.url ?? '/', Buffer.concat(chunks).toString(), request.headers).then(
         ({ type, body, status, headers }) => response.writeHead(status ?? 200, { ...headers, 'content-type': type }).end(body),
-        (error: Error) => response.writeHead(error.message === 'not found' ? 404 : 400, { 'content-type': 'text/plain' }).end(error.message),
+        (error: Error) => {
+          const status = error instanceof Refused ? error.status : error.message === 'not found' ? 404 : 400;
+          response.writeHead(status, { ...(error instanceof Refused ? error.headers : {}), 'content-type': 'text/plain' }).end(error.message);
+        },
       ));
     });
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -116,11 +123,13 @@ export class TestPlatform {
    * initiates login at the tool by form POST (5.1.1.1); and its authorisation endpoint, which answers
    * the tool's authentication request with the id_token form-posted back (5.1.1.2-5.1.1.3).
    */
-  private async answer(path: string, body: string, headers: IncomingHttpHeaders = {}): Promise<Answer> {
+  private async answer(method: string, path: string, body: string, headers: IncomingHttpHeaders): Promise<Answer> {
     const url = new URL(path, this.base);
-    if (url.pathname === '/token' || url.pathname === '/memberships') {
+    if (url.pathname === '/token' || url.pathname === '/memberships' || url.pathname.startsWith('/contexts/')) {
       if (this.down) return { type: 'text/plain', body: 'down for maintenance', status: 503 };
-      return url.pathname === '/token' ? this.issueToken(body) : this.membership(url, headers);
+      if (url.pathname === '/token') return this.issueToken(body);
+      const granted = this.tokens.get(/^Bearer (.+)$/.exec(headers.authorization ?? '')?.[1] ?? '');
+      return url.pathname === '/memberships' ? this.membership(url, headers, granted) : this.ags.answer(method, url, body, headers, granted);
     }
     if (url.pathname === '/jwks') return { type: 'application/json', body: JSON.stringify({ keys: this.jwks }) };
     // Deep Linking 2.0, 4.5: the tool form-posts its response as the field JWT to the return URL.
@@ -198,6 +207,8 @@ export class TestPlatform {
       [`${LTI}context`]: { id: this.contextId },
       // NRPS 2.0: the context's membership service, offered in every launch.
       [NRPS_CLAIM]: { context_memberships_url: this.membershipsUrl, service_versions: ['2.0'] },
+      // AGS 2.0, 3.1: the context's line items, and the launched link's own when it has one.
+      [AGS_CLAIM]: this.ags.claim(this.resourceLinkId),
     };
   }
 
@@ -213,6 +224,8 @@ export class TestPlatform {
     const { [`${LTI}resource_link`]: _link, ...common } = this.launchClaims(user, nonce);
     return {
       ...common,
+      // No resource link yet, so no line item of one (AGS 2.0, 3.1).
+      [AGS_CLAIM]: this.ags.claim(),
       [`${LTI}message_type`]: 'LtiDeepLinkingRequest',
       [`${DL}deep_linking_settings`]: {
         deep_link_return_url: this.deepLinkReturnUrl,
@@ -245,16 +258,28 @@ export class TestPlatform {
     for (const [claim, value] of Object.entries(want)) if (payload[claim] !== value) throw new Error(`${claim} is ${String(payload[claim])}, not ${value}`);
     const items = payload[`${DL}content_items`];
     if (!Array.isArray(items) || items.length !== 1) throw new Error('not exactly one content item');
-    const item = items[0] as { type?: unknown; title?: unknown; custom?: unknown };
+    const item = items[0] as { type?: unknown; title?: unknown; custom?: unknown; lineItem?: unknown };
     if (item.type !== 'ltiResourceLink' || typeof item.title !== 'string') throw new Error(`content item: ${JSON.stringify(item)}`);
     const custom = (item.custom ?? {}) as Record<string, string>;
     if (Object.values(custom).some((v) => typeof v !== 'string')) throw new Error('custom parameters must be strings (LTI Core 1.3, 5.4.6)');
-    return { resourceLinkId: `link-deep-${++this.linkCount}`, title: item.title, custom };
+    const link: DeepLinkedItem = { resourceLinkId: `link-deep-${++this.linkCount}`, title: item.title, custom };
+    this.links.add(link.resourceLinkId);
+    // Deep Linking 2.0, 3.3 (ltiResourceLink's lineItem): a line item bound to the new link; its label
+    // defaults to the item's title; scoreMaximum checked as the line item service checks it (AGS 2.0).
+    if (item.lineItem !== undefined) {
+      if (typeof item.lineItem !== 'object' || item.lineItem === null) throw new Error('lineItem is not an object');
+      const fields = lineItemFields({ label: item.title, ...item.lineItem, resourceLinkId: link.resourceLinkId });
+      link.lineItemId = this.ags.create(fields).id;
+    }
+    return link;
   }
 
-  /** The claims of a launch of a deep-linked resource link: its id, title and custom parameters (LTI Core 1.3, 5.3.5 and 5.4.6). */
+  /**
+   * The claims of a launch of a deep-linked resource link: its id, title and custom parameters (LTI
+   * Core 1.3, 5.3.5 and 5.4.6), and its line item as `lineitem` (AGS 2.0, 3.1).
+   */
   linkClaims(link: DeepLinkedItem): Record<string, unknown> {
-    return { [`${LTI}resource_link`]: { id: link.resourceLinkId, title: link.title }, [`${LTI}custom`]: link.custom };
+    return { [`${LTI}resource_link`]: { id: link.resourceLinkId, title: link.title }, [`${LTI}custom`]: link.custom, [AGS_CLAIM]: this.ags.claim(link.resourceLinkId) };
   }
 
   /**
@@ -283,7 +308,10 @@ export class TestPlatform {
     return `${this.base}/memberships`;
   }
 
-  /** The context's members (NRPS 2.0), listed `pageSize` to a page; `down` answers 503 from both services; `failPage` answers 500 for that page (0-based). */
+  /**
+   * The context's members (NRPS 2.0), listed `pageSize` to a page; `down` answers 503 from the token,
+   * membership, line item and score endpoints; `failPage` answers 500 for that page (0-based).
+   */
   readonly members: ContextMember[] = [];
   pageSize = 2;
   down = false;
@@ -291,20 +319,48 @@ export class TestPlatform {
   /** Every token request received, and the client assertions that passed every check. */
   tokenRequests = 0;
   readonly assertions: Record<string, unknown>[] = [];
-  private readonly tokens = new Set<string>();
+  /** Each access token issued, with the scopes it was granted. */
+  private readonly tokens = new Map<string, ReadonlySet<string>>();
   private readonly seenJti = new Set<string>();
+
+  /** After this many more scores accepted, the scores endpoint answers 503 until this is set again (undefined: never). */
+  get failScoresAfter(): number | undefined {
+    return this.ags.failScoresAfter;
+  }
+  set failScoresAfter(count: number | undefined) {
+    this.ags.failScoresAfter = count;
+  }
+  /** Requests that reached the scores endpoint while the platform was up, refused or not. */
+  get scoreRequests(): number {
+    return this.ags.scoreRequests;
+  }
+  /** The context's line items (AGS 2.0, 3.2), in the order made. */
+  get lineItems(): readonly LineItem[] {
+    return this.ags.lineItems;
+  }
+  /** Per user, the score the platform holds for a line item (by its `id` URL): the one with the latest timestamp. */
+  gradebook(lineItemId: string): Map<string, Score> {
+    return this.ags.gradebook(lineItemId);
+  }
 
   /**
    * The token endpoint (Security Framework 1.0, 4.1; RFC 7523 client assertion): the client credentials
-   * grant, the assertion type named, the NRPS scope asked; the assertion checked with jose against the
-   * tool's key set as served (RS256, a kid in the header): iss and sub the client id, aud this token
+   * grant, the assertion type named, a non-empty set of the scopes offered (the NRPS one and AGS 2.0's;
+   * anything else is invalid_scope, RFC 6749 5.2), granted as asked; the assertion checked with jose
+   * against the tool's key set as served (RS256, a kid in the header): iss and sub the client id, aud this token
    * endpoint, iat and exp at most 5 minutes apart, a jti never seen before. Throws on any failing check.
    */
   private async issueToken(body: string): Promise<Answer> {
     this.tokenRequests++;
     const form = new URLSearchParams(body);
-    const want = { grant_type: 'client_credentials', client_assertion_type: 'urn:ietf:params:oauth:client-assertion-type:jwt-bearer', scope: NRPS_SCOPE };
+    const want = { grant_type: 'client_credentials', client_assertion_type: 'urn:ietf:params:oauth:client-assertion-type:jwt-bearer' };
     for (const [name, value] of Object.entries(want)) if (form.get(name) !== value) throw new Error(`${name} is ${form.get(name)}, not ${value}`);
+    const asked = new Set((form.get('scope') ?? '').split(' ').filter(Boolean));
+    const unknown = [...asked].filter((scope) => !OFFERED_SCOPES.includes(scope));
+    if (asked.size === 0 || unknown.length > 0) {
+      const description = asked.size === 0 ? 'no scope asked' : `scope not offered: ${unknown.join(' ')}`;
+      return { type: 'application/json', body: JSON.stringify({ error: 'invalid_scope', error_description: description }), status: 400 };
+    }
     const assertion = form.get('client_assertion') ?? '';
     const header = decodeProtectedHeader(assertion);
     if (header.alg !== 'RS256' || typeof header.kid !== 'string') throw new Error(`header: alg ${header.alg}, kid ${header.kid}`);
@@ -322,17 +378,16 @@ export class TestPlatform {
     this.seenJti.add(payload.jti!);
     this.assertions.push(payload);
     const token = randomBytes(24).toString('base64url');
-    this.tokens.add(token);
-    return { type: 'application/json', body: JSON.stringify({ access_token: token, token_type: 'Bearer', expires_in: 3600, scope: NRPS_SCOPE }) };
+    this.tokens.set(token, asked);
+    return { type: 'application/json', body: JSON.stringify({ access_token: token, token_type: 'Bearer', expires_in: 3600, scope: [...asked].join(' ') }) };
   }
 
   /**
-   * The membership service (NRPS 2.0): a bearer token this platform issued, the container's media type
-   * accepted; members `pageSize` at a time, the next page named by `Link: <…>; rel="next"`.
+   * The membership service (NRPS 2.0): a bearer token this platform issued with the NRPS scope, the
+   * container's media type accepted; members `pageSize` at a time, the next page named by `Link: <…>; rel="next"`.
    */
-  private membership(url: URL, headers: IncomingHttpHeaders): Answer {
-    const token = /^Bearer (.+)$/.exec(headers.authorization ?? '')?.[1];
-    if (!token || !this.tokens.has(token)) return { type: 'text/plain', body: 'no valid bearer token', status: 401 };
+  private membership(url: URL, headers: IncomingHttpHeaders, granted: ReadonlySet<string> | undefined): Answer {
+    requireScope(granted, [NRPS_SCOPE]);
     if (!String(headers.accept ?? '').includes(NRPS_MEDIA_TYPE)) throw new Error(`accept is ${headers.accept}`);
     const page = Number(url.searchParams.get('page') ?? '0');
     if (page === this.failPage) return { type: 'text/plain', body: 'page failed', status: 500 };
