@@ -63,7 +63,7 @@ const COLUMNS = [
   ['gradeSent', 'Grade sent'],
 ];
 
-/** Where a grade send stands, in words; the order the column sorts by (trouble first when descending). */
+/** Where a grade send stands, in words; how the column ranks it (trouble first when descending). */
 const SEND_WORDS = { sent: 'sent', waiting: 'waiting', failed: 'not sent' };
 const SEND_RANK = { sent: 0, waiting: 1, failed: 2 };
 
