@@ -38,7 +38,7 @@ describe.each(['postgres', 'pglite'] as const)('the API on %s', (engine) => {
     ]);
     // A TA's upload is on time by definition; nothing released, so nothing read.
     expect(table.body[0]).toMatchObject({ version: 1, status: 'checked', score: 22, maxScore: 22, released: false, source: 'staff', late: false, held: false, feedbackFirstReadAt: null });
-    expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, submittedAt: null, source: null, late: false, held: false, feedbackFirstReadAt: null, status: 'not-submitted', enrolment: 'enrolled', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false });
+    expect(table.body[2]).toEqual({ studentId: 'S-003', submissionId: null, version: null, submittedAt: null, source: null, late: false, held: false, feedbackFirstReadAt: null, status: 'not-submitted', enrolment: 'enrolled', score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false, gradeSent: null });
     const csv = await api.app.inject({ method: 'GET', url: `${url()}/gradebook.csv`, headers: { authorization: `Bearer ${s.taAToken}` } });
     expect(csv.body.split('\r\n')[3]).toBe('S-003,,,not-submitted,0,0,0,,Acid catalysis (invented)');
   });

@@ -145,6 +145,7 @@ const examples: Record<string, (f: Fixture) => { url: string; body?: unknown }> 
   'GET /v1/sections/:sectionId/assignments/:assignmentId/signals': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/signals` }),
   'POST /v1/sections/:sectionId/assignments/:assignmentId/release': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/release` }),
   'POST /v1/submissions/:submissionId/release': (f) => ({ url: `/v1/submissions/${f.submissionId}/release` }),
+  'POST /v1/sections/:sectionId/assignments/:assignmentId/passback': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/passback` }),
   'GET /v1/submissions/:submissionId/feedback.pdf': (f) => ({ url: `/v1/submissions/${f.submissionId}/feedback.pdf` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/feedback.zip': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/feedback.zip` }),
   'GET /v1/sections/:sectionId/assignments/:assignmentId/summary.pdf': (f) => ({ url: `/v1/sections/${f.sectionA.id}/assignments/${f.assignment.id}/summary.pdf` }),
