@@ -29,7 +29,7 @@ describe('results page from kept summaries', () => {
   /** The page as the route built it before summaries were kept: every row worked out from the findings. */
   async function before() {
     const rows = await sectionStandings(api.database.store.db, s.sectionA.id, s.assignment.id);
-    const none = { submissionId: null, version: null, submittedAt: null, source: null, late: false, held: false, feedbackFirstReadAt: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false };
+    const none = { submissionId: null, version: null, submittedAt: null, source: null, late: false, held: false, feedbackFirstReadAt: null, score: null, maxScore: null, errors: 0, warnings: 0, infos: 0, codes: [], released: false, releasedScore: null, releasedVersion: null, changedSinceRelease: false, gradeSent: null };
     return rows.map((row) => {
       if (!row.submission) return { ...none, studentId: row.studentId, status: row.enrolment === 'withdrawn' ? 'withdrawn' : 'not-submitted', enrolment: row.enrolment };
       const { submission, result, released } = row;
@@ -55,6 +55,8 @@ describe('results page from kept summaries', () => {
         releasedScore: released?.score ?? null,
         releasedVersion: row.releasedVersion ?? null,
         changedSinceRelease: row.changedSinceRelease,
+        // No learning platform in this course: no grade is sent.
+        gradeSent: null,
       };
     });
   }
