@@ -6,6 +6,7 @@ import { buildApp } from '../../server/app.ts';
 import { listPlatforms, placementOf } from '../../server/store/lti-platforms.ts';
 import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type PlatformUser } from '../support/lti-platform/test-platform.ts';
+import { chooseToPlace, HOST, launchTool, postTicket, ticketOf } from '../support/lti-platform/tool-launch.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
 
 /**
@@ -14,11 +15,6 @@ import { openTestDatabase, type TestDatabase } from '../support/test-database.ts
  * and the link it makes binds a learner's later launch. Sections of the specifications named beside
  * each check (from memory).
  */
-const TOOL = 'http://localhost:80';
-const HOST = { host: 'localhost:80' };
-const SAME_ORIGIN = { ...HOST, origin: TOOL };
-const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
-const FORM = { 'content-type': 'application/x-www-form-urlencoded' };
 const LTI = 'https://purl.imsglobal.org/spec/lti/claim/';
 const DL = 'https://purl.imsglobal.org/spec/lti-dl/claim/';
 
@@ -60,19 +56,8 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
     await database?.close();
   });
 
-  /** Security Framework 1.0, 5.1.1.1-5.1.1.3: login initiated, then the platform's id_token posted with the state. */
-  async function launch(user: PlatformUser, change: Parameters<TestPlatform['idToken']>[2] = {}) {
-    const res = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(platform.loginInitiation(user, TOOL))}`, headers: HOST });
-    expect(res.statusCode, res.body).toBe(302);
-    const auth = platform.readAuthRequest(String(res.headers.location), user);
-    return app.inject({ method: 'POST', url: '/v1/lti/launch', headers: FORM, payload: form({ id_token: await platform.idToken(user, auth.nonce, change), state: auth.state }) });
-  }
-
-  const ticketOf = (page: string) => /name="ticket" value="([^"]+)"/.exec(page)![1];
-
-  /** The instructor's choice, posted from our own page. */
-  const choose = (ticket: string, assignmentId: number, sectionId: number, headers: Record<string, string> = SAME_ORIGIN) =>
-    app.inject({ method: 'POST', url: '/v1/lti/deep-link', headers: { ...FORM, ...headers }, payload: form({ ticket, assignmentId: String(assignmentId), sectionId: String(sectionId) }) });
+  const launch = (user: PlatformUser, change: Parameters<TestPlatform['idToken']>[2] = {}) => launchTool(app, platform, user, change);
+  const choose = (ticket: string, assignmentId: number, sectionId: number, headers?: Record<string, string>) => chooseToPlace(app, ticket, assignmentId, sectionId, headers);
 
   async function choicePage() {
     const res = await launch(instructor, { deepLinking: true });
@@ -121,8 +106,7 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
     // from the link's custom parameters (LTI Core 1.3, 5.4.6: they come back in each launch).
     const launched = await launch(learner, { claims: platform.linkClaims(link) });
     expect(launched.statusCode, launched.body).toBe(200);
-    const ticket = ticketOf(launched.body);
-    const entered = await app.inject({ method: 'POST', url: '/v1/lti/enter', headers: { ...FORM, ...SAME_ORIGIN }, payload: form({ ticket }) });
+    const entered = await postTicket(app, launched.body);
     expect(entered.statusCode, entered.body).toBe(303);
     expect(entered.headers.location).toBe('/student');
     const cookie = String(entered.headers['set-cookie']).split(';')[0];

@@ -8,15 +8,13 @@ import { signingKey } from '../../server/store/lti-keys.ts';
 import { listPlatforms } from '../../server/store/lti-platforms.ts';
 import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type PlatformUser } from '../support/lti-platform/test-platform.ts';
+import { FORM, form, initiate as initiateLogin, postLaunch, postTicket, TOOL } from '../support/lti-platform/tool-launch.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
 
 /**
  * LTI 1.3 launches from a test platform of our own (test/support/lti-platform), checked against the
  * 1EdTech specifications: LTI Core 1.3 and the Security Framework 1.0, named beside each check.
  */
-const TOOL = 'http://localhost:80';
-const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
-const FORM = { 'content-type': 'application/x-www-form-urlencoded' };
 
 // Invented people; their subject ids and names must never reach the log.
 const learner: PlatformUser = { sub: 'sub-learner-7f3a91', name: 'Ada Quenby', roles: PLATFORM_ROLES.learner };
@@ -49,22 +47,10 @@ describe('LTI 1.3 launch from a test platform', () => {
     await database?.close();
   });
 
-  /** Security Framework 1.0, 5.1.1.1-5.1.1.2: the platform initiates login and the tool redirects with state and nonce. */
-  async function initiate(user: PlatformUser) {
-    const res = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(platform.loginInitiation(user, TOOL))}`, headers: { host: 'localhost:80' } });
-    expect(res.statusCode, res.body).toBe(302);
-    return platform.readAuthRequest(String(res.headers.location), user);
-  }
-
-  /** Security Framework 1.0, 5.1.1.3: the platform form-posts the id_token with the state. */
-  const post = (fields: Record<string, string>) => app.inject({ method: 'POST', url: '/v1/lti/launch', headers: FORM, payload: form(fields) });
-
-  /** The launch's page posts its ticket back to this origin; the session cookie is set there. */
-  async function enter(page: string, headers: Record<string, string> = { origin: 'http://localhost:80', host: 'localhost:80' }) {
-    const ticket = /name="ticket" value="([^"]+)"/.exec(page)?.[1];
-    expect(ticket).toBeDefined();
-    return app.inject({ method: 'POST', url: '/v1/lti/enter', headers: { ...FORM, ...headers }, payload: form({ ticket: ticket! }) });
-  }
+  // Thin wrappers: the refusal cases below need the auth request, the raw launch post and odd enter headers.
+  const initiate = (user: PlatformUser) => initiateLogin(app, platform, user);
+  const post = (fields: Record<string, string>) => postLaunch(app, fields);
+  const enter = (page: string, headers?: Record<string, string>) => postTicket(app, page, headers);
 
   async function launchAs(user: PlatformUser) {
     const auth = await initiate(user);

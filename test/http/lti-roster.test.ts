@@ -4,6 +4,7 @@ import { buildApp } from '../../server/app.ts';
 import { nextPage } from '../../server/lti/memberships.ts';
 import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type ContextMember, type PlatformUser } from '../support/lti-platform/test-platform.ts';
+import { launchTool } from '../support/lti-platform/tool-launch.ts';
 import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
 
 /**
@@ -12,8 +13,6 @@ import { openTestDatabase, type TestDatabase } from '../support/test-database.ts
  * the specifications (not confirmed here against the documents). The tool is served on a real port
  * so that the platform checks our client assertions against our key set as served, with jose.
  */
-const FORM = { 'content-type': 'application/x-www-form-urlencoded' };
-const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
 
 // Invented people.
 const instructor: PlatformUser = { sub: 'sub-instructor-r1', name: 'Ines Calloway', roles: PLATFORM_ROLES.instructor };
@@ -50,10 +49,7 @@ describe('roster pull by NRPS 2.0 from a test platform', () => {
 
   /** A whole launch (Security Framework 1.0, 5.1.1), its id_token carrying the NRPS claim as every launch of this platform does. */
   async function launch(user: PlatformUser) {
-    const login = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(platform.loginInitiation(user, 'http://localhost:80'))}`, headers: { host: 'localhost:80' } });
-    expect(login.statusCode, login.body).toBe(302);
-    const auth = platform.readAuthRequest(String(login.headers.location), user);
-    const launched = await app.inject({ method: 'POST', url: '/v1/lti/launch', headers: FORM, payload: form({ id_token: await platform.idToken(user, auth.nonce), state: auth.state }) });
+    const launched = await launchTool(app, platform, user);
     expect(launched.statusCode, launched.body).toBe(200);
   }
 
