@@ -1,13 +1,12 @@
-import { PassThrough } from 'node:stream';
 import type { FastifyInstance } from 'fastify';
 import { decodeJwt, decodeProtectedHeader } from 'jose';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildApp } from '../../server/app.ts';
 import { listPlatforms, placementOf } from '../../server/store/lti-platforms.ts';
-import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
+import { ADMIN_TOKEN, call, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type PlatformUser } from '../support/lti-platform/test-platform.ts';
 import { chooseToPlace, HOST, launchTool, postTicket, ticketOf } from '../support/lti-platform/tool-launch.ts';
-import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
+import { openToolAndPlatform, type ToolAndPlatform } from '../support/lti-platform/tool-fixture.ts';
+import type { TestDatabase } from '../support/test-database.ts';
 
 /**
  * Deep Linking 2.0 from a test platform of our own (test/support/lti-platform): an instructor places
@@ -30,17 +29,13 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
   let seed: Seed;
   let secondAssignment: { id: number; title: string };
   let otherCourse: { assignment: { id: number }; section: { id: number } };
+  let tool: ToolAndPlatform | undefined;
   const log: string[] = [];
 
   beforeAll(async () => {
-    database = await openTestDatabase('postgres');
-    const stream = new PassThrough();
-    stream.on('data', (chunk) => log.push(...String(chunk).split('\n').filter(Boolean)));
-    app = await buildApp({ config: { ...testConfig, logLevel: 'info' }, store: database.store, logger: { stream } });
-    platform = await TestPlatform.start();
-    seed = await seedCourse(app);
+    tool = await openToolAndPlatform({ log });
+    ({ database, app, platform, seed } = tool);
     secondAssignment = (await call(app, 'POST', `/v1/courses/${seed.course.id}/assignments`, seed.instructorToken, { title: 'Ester hydrolysis (invented)', settings: seed.settings }, 201)).body;
-    await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(seed.course.id), 201);
     // Another course, with its own assignment and section, that the platform is not bound to.
     const other = (await call(app, 'POST', '/v1/courses', ADMIN_TOKEN, { name: 'Another course (invented)' }, 201)).body;
     const otherInstructor = (await call(app, 'POST', `/v1/courses/${other.id}/staff`, ADMIN_TOKEN, { handle: 'other-instructor', role: 'instructor' }, 201)).body;
@@ -50,11 +45,7 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
       assignment: (await call(app, 'POST', `/v1/courses/${other.id}/assignments`, otherToken, { title: 'Elsewhere (invented)', settings: seed.settings }, 201)).body,
     };
   }, 60_000);
-  afterAll(async () => {
-    await app?.close();
-    await platform?.close();
-    await database?.close();
-  });
+  afterAll(() => tool?.close());
 
   const launch = (user: PlatformUser, change: Parameters<TestPlatform['idToken']>[2] = {}) => launchTool(app, platform, user, change);
   const choose = (ticket: string, assignmentId: number, sectionId: number, headers?: Record<string, string>) => chooseToPlace(app, ticket, assignmentId, sectionId, headers);
