@@ -1,8 +1,9 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ADMIN_TOKEN, call, openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
+import { openApi, seedCourse, type Api, type Seed } from '../support/api-fixture.ts';
 import { CHROMIUM_ABSENT, chromiumPresent, launchChromium } from '../support/chromium.ts';
 import { PLATFORM_ROLES, TestPlatform } from '../support/lti-platform/test-platform.ts';
+import { placeOnSectionA, registerPlatform } from '../support/lti-platform/tool-fixture.ts';
 
 if (!chromiumPresent) console.warn(CHROMIUM_ABSENT);
 
@@ -26,8 +27,7 @@ describe.skipIf(!chromiumPresent)('an LTI launch in a browser', () => {
     const address = await api.app.listen({ port: 0, host: '127.0.0.1' });
     tool = address.replace('127.0.0.1', 'localhost');
     platform = await TestPlatform.start();
-    const registered = await call(api.app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(s.course.id), 201);
-    await call(api.app, 'PUT', `/v1/sections/${s.sectionA.id}/assignments/${s.assignment.id}/lti-placement`, s.instructorToken, { platformId: registered.body.id, contextId: platform.contextId, resourceLinkId: platform.resourceLinkId }, 200);
+    await placeOnSectionA(api.app, s, platform, await registerPlatform(api.app, platform, s.course.id));
     platform.users.set('sub-browser-learner', { sub: 'sub-browser-learner', name: 'Fay Lindqvist', roles: PLATFORM_ROLES.learner });
     platform.users.set('sub-browser-instructor', { sub: 'sub-browser-instructor', name: 'Gus Hartwell', roles: PLATFORM_ROLES.instructor });
     platform.toolKeySetUrl = `${address}/v1/lti/jwks`;

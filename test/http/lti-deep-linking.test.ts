@@ -1,12 +1,12 @@
-import { PassThrough } from 'node:stream';
 import type { FastifyInstance } from 'fastify';
 import { decodeJwt, decodeProtectedHeader } from 'jose';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildApp } from '../../server/app.ts';
 import { listPlatforms, placementOf } from '../../server/store/lti-platforms.ts';
-import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
+import { ADMIN_TOKEN, call, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type PlatformUser } from '../support/lti-platform/test-platform.ts';
-import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
+import { chooseToPlace, HOST, launchTool, postTicket, ticketOf } from '../support/lti-platform/tool-launch.ts';
+import { openToolAndPlatform, type ToolAndPlatform } from '../support/lti-platform/tool-fixture.ts';
+import type { TestDatabase } from '../support/test-database.ts';
 
 /**
  * Deep Linking 2.0 from a test platform of our own (test/support/lti-platform): an instructor places
@@ -14,11 +14,6 @@ import { openTestDatabase, type TestDatabase } from '../support/test-database.ts
  * and the link it makes binds a learner's later launch. Sections of the specifications named beside
  * each check (from memory).
  */
-const TOOL = 'http://localhost:80';
-const HOST = { host: 'localhost:80' };
-const SAME_ORIGIN = { ...HOST, origin: TOOL };
-const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
-const FORM = { 'content-type': 'application/x-www-form-urlencoded' };
 const LTI = 'https://purl.imsglobal.org/spec/lti/claim/';
 const DL = 'https://purl.imsglobal.org/spec/lti-dl/claim/';
 
@@ -34,17 +29,13 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
   let seed: Seed;
   let secondAssignment: { id: number; title: string };
   let otherCourse: { assignment: { id: number }; section: { id: number } };
+  let tool: ToolAndPlatform | undefined;
   const log: string[] = [];
 
   beforeAll(async () => {
-    database = await openTestDatabase('postgres');
-    const stream = new PassThrough();
-    stream.on('data', (chunk) => log.push(...String(chunk).split('\n').filter(Boolean)));
-    app = await buildApp({ config: { ...testConfig, logLevel: 'info' }, store: database.store, logger: { stream } });
-    platform = await TestPlatform.start();
-    seed = await seedCourse(app);
+    tool = await openToolAndPlatform({ log });
+    ({ database, app, platform, seed } = tool);
     secondAssignment = (await call(app, 'POST', `/v1/courses/${seed.course.id}/assignments`, seed.instructorToken, { title: 'Ester hydrolysis (invented)', settings: seed.settings }, 201)).body;
-    await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(seed.course.id), 201);
     // Another course, with its own assignment and section, that the platform is not bound to.
     const other = (await call(app, 'POST', '/v1/courses', ADMIN_TOKEN, { name: 'Another course (invented)' }, 201)).body;
     const otherInstructor = (await call(app, 'POST', `/v1/courses/${other.id}/staff`, ADMIN_TOKEN, { handle: 'other-instructor', role: 'instructor' }, 201)).body;
@@ -54,25 +45,10 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
       assignment: (await call(app, 'POST', `/v1/courses/${other.id}/assignments`, otherToken, { title: 'Elsewhere (invented)', settings: seed.settings }, 201)).body,
     };
   }, 60_000);
-  afterAll(async () => {
-    await app?.close();
-    await platform?.close();
-    await database?.close();
-  });
+  afterAll(() => tool?.close());
 
-  /** Security Framework 1.0, 5.1.1.1-5.1.1.3: login initiated, then the platform's id_token posted with the state. */
-  async function launch(user: PlatformUser, change: Parameters<TestPlatform['idToken']>[2] = {}) {
-    const res = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(platform.loginInitiation(user, TOOL))}`, headers: HOST });
-    expect(res.statusCode, res.body).toBe(302);
-    const auth = platform.readAuthRequest(String(res.headers.location), user);
-    return app.inject({ method: 'POST', url: '/v1/lti/launch', headers: FORM, payload: form({ id_token: await platform.idToken(user, auth.nonce, change), state: auth.state }) });
-  }
-
-  const ticketOf = (page: string) => /name="ticket" value="([^"]+)"/.exec(page)![1];
-
-  /** The instructor's choice, posted from our own page. */
-  const choose = (ticket: string, assignmentId: number, sectionId: number, headers: Record<string, string> = SAME_ORIGIN) =>
-    app.inject({ method: 'POST', url: '/v1/lti/deep-link', headers: { ...FORM, ...headers }, payload: form({ ticket, assignmentId: String(assignmentId), sectionId: String(sectionId) }) });
+  const launch = (user: PlatformUser, change: Parameters<TestPlatform['idToken']>[2] = {}) => launchTool(app, platform, user, change);
+  const choose = (ticket: string, assignmentId: number, sectionId: number, headers?: Record<string, string>) => chooseToPlace(app, ticket, assignmentId, sectionId, headers);
 
   async function choicePage() {
     const res = await launch(instructor, { deepLinking: true });
@@ -121,8 +97,7 @@ describe('LTI Deep Linking 2.0 from a test platform', () => {
     // from the link's custom parameters (LTI Core 1.3, 5.4.6: they come back in each launch).
     const launched = await launch(learner, { claims: platform.linkClaims(link) });
     expect(launched.statusCode, launched.body).toBe(200);
-    const ticket = ticketOf(launched.body);
-    const entered = await app.inject({ method: 'POST', url: '/v1/lti/enter', headers: { ...FORM, ...SAME_ORIGIN }, payload: form({ ticket }) });
+    const entered = await postTicket(app, launched.body);
     expect(entered.statusCode, entered.body).toBe(303);
     expect(entered.headers.location).toBe('/student');
     const cookie = String(entered.headers['set-cookie']).split(';')[0];

@@ -1,13 +1,13 @@
 import { readFileSync } from 'node:fs';
 import type { FastifyInstance } from 'fastify';
 import { afterAll, beforeAll, describe, expect, it, onTestFinished, vi } from 'vitest';
-import { buildApp } from '../../server/app.ts';
 import { giveUpPassback } from '../../server/grading/grade-passback.ts';
-import { ADMIN_TOKEN, call, seedCourse, submissionsFor, testConfig, type Seed } from '../support/api-fixture.ts';
+import { call, submissionsFor, type Seed } from '../support/api-fixture.ts';
 import { AGS_CLAIM } from '../support/lti-platform/ags-service.ts';
 import { PLATFORM_ROLES, TestPlatform, type DeepLinkedItem, type PlatformUser } from '../support/lti-platform/test-platform.ts';
 import { chooseToPlace, enterTool, launchTool, ticketOf } from '../support/lti-platform/tool-launch.ts';
-import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
+import { openToolAndPlatform, type ToolAndPlatform } from '../support/lti-platform/tool-fixture.ts';
+import type { TestDatabase } from '../support/test-database.ts';
 
 /**
  * Grades sent by Assignment and Grade Services 2.0 to a test platform of our own making
@@ -44,21 +44,14 @@ describe('grades sent to a test platform by AGS 2.0', () => {
   let link: DeepLinkedItem;
   const sessions = new Map<string, { cookie: string; 'x-csrf-token': string }>();
 
+  let tool: ToolAndPlatform | undefined;
+
   beforeAll(async () => {
-    database = await openTestDatabase('postgres');
     // A passback that waits tries again after 1 s, doubling (30 s in service): an outage here lasts seconds.
-    app = await buildApp({ config: { ...testConfig, passbackRetrySeconds: 1 }, store: database.store });
-    await app.listen({ port: 0, host: '127.0.0.1' });
-    platform = await TestPlatform.start();
-    platform.toolKeySetUrl = `http://127.0.0.1:${(app.server.address() as { port: number }).port}/v1/lti/jwks`;
-    seed = await seedCourse(app);
-    platformId = (await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(seed.course.id), 201)).body.id;
+    tool = await openToolAndPlatform({ served: true, config: { passbackRetrySeconds: 1 } });
+    ({ database, app, platform, seed, platformId } = tool);
   }, 60_000);
-  afterAll(async () => {
-    await app?.close();
-    await platform?.close();
-    await database?.close();
-  });
+  afterAll(() => tool?.close());
 
   const base = (sectionId = seed.sectionA.id, assignmentId = seed.assignment.id) => `/v1/sections/${sectionId}/assignments/${assignmentId}`;
   const results = async (sectionId?: number, assignmentId?: number) => (await call(app, 'GET', `${base(sectionId, assignmentId)}/results`, seed.instructorToken, undefined, 200)).body as Row[];

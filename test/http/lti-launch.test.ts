@@ -1,22 +1,19 @@
-import { PassThrough } from 'node:stream';
 import type { FastifyInstance } from 'fastify';
 import { createLocalJWKSet, generateKeyPair, importJWK, jwtVerify, SignJWT } from 'jose';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildApp } from '../../server/app.ts';
 import { storeLoginState } from '../../server/store/lti-launch-states.ts';
 import { signingKey } from '../../server/store/lti-keys.ts';
 import { listPlatforms } from '../../server/store/lti-platforms.ts';
-import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
+import { ADMIN_TOKEN, call, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type PlatformUser } from '../support/lti-platform/test-platform.ts';
-import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
+import { FORM, form, initiate as initiateLogin, postLaunch, postTicket, TOOL } from '../support/lti-platform/tool-launch.ts';
+import { openToolAndPlatform, placeOnSectionA, registerPlatform, type ToolAndPlatform } from '../support/lti-platform/tool-fixture.ts';
+import type { TestDatabase } from '../support/test-database.ts';
 
 /**
  * LTI 1.3 launches from a test platform of our own (test/support/lti-platform), checked against the
  * 1EdTech specifications: LTI Core 1.3 and the Security Framework 1.0, named beside each check.
  */
-const TOOL = 'http://localhost:80';
-const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
-const FORM = { 'content-type': 'application/x-www-form-urlencoded' };
 
 // Invented people; their subject ids and names must never reach the log.
 const learner: PlatformUser = { sub: 'sub-learner-7f3a91', name: 'Ada Quenby', roles: PLATFORM_ROLES.learner };
@@ -30,41 +27,20 @@ describe('LTI 1.3 launch from a test platform', () => {
   let app: FastifyInstance;
   let platform: TestPlatform;
   let seed: Seed;
+  let tool: ToolAndPlatform | undefined;
   const log: string[] = [];
 
   beforeAll(async () => {
-    database = await openTestDatabase('postgres');
-    const stream = new PassThrough();
-    stream.on('data', (chunk) => log.push(...String(chunk).split('\n').filter(Boolean)));
-    app = await buildApp({ config: { ...testConfig, logLevel: 'info' }, store: database.store, logger: { stream } });
-    platform = await TestPlatform.start();
-    seed = await seedCourse(app);
-    const registered = await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(seed.course.id), 201);
-    // The instructor places the platform's resource link on the assignment in section A.
-    await call(app, 'PUT', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/lti-placement`, seed.instructorToken, { platformId: registered.body.id, contextId: platform.contextId, resourceLinkId: platform.resourceLinkId }, 200);
+    tool = await openToolAndPlatform({ log });
+    ({ database, app, platform, seed } = tool);
+    await placeOnSectionA(app, seed, platform, tool.platformId);
   }, 60_000);
-  afterAll(async () => {
-    await app?.close();
-    await platform?.close();
-    await database?.close();
-  });
+  afterAll(() => tool?.close());
 
-  /** Security Framework 1.0, 5.1.1.1-5.1.1.2: the platform initiates login and the tool redirects with state and nonce. */
-  async function initiate(user: PlatformUser) {
-    const res = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(platform.loginInitiation(user, TOOL))}`, headers: { host: 'localhost:80' } });
-    expect(res.statusCode, res.body).toBe(302);
-    return platform.readAuthRequest(String(res.headers.location), user);
-  }
-
-  /** Security Framework 1.0, 5.1.1.3: the platform form-posts the id_token with the state. */
-  const post = (fields: Record<string, string>) => app.inject({ method: 'POST', url: '/v1/lti/launch', headers: FORM, payload: form(fields) });
-
-  /** The launch's page posts its ticket back to this origin; the session cookie is set there. */
-  async function enter(page: string, headers: Record<string, string> = { origin: 'http://localhost:80', host: 'localhost:80' }) {
-    const ticket = /name="ticket" value="([^"]+)"/.exec(page)?.[1];
-    expect(ticket).toBeDefined();
-    return app.inject({ method: 'POST', url: '/v1/lti/enter', headers: { ...FORM, ...headers }, payload: form({ ticket: ticket! }) });
-  }
+  // Thin wrappers: the refusal cases below need the auth request, the raw launch post and odd enter headers.
+  const initiate = (user: PlatformUser) => initiateLogin(app, platform, user);
+  const post = (fields: Record<string, string>) => postLaunch(app, fields);
+  const enter = (page: string, headers?: Record<string, string>) => postTicket(app, page, headers);
 
   async function launchAs(user: PlatformUser) {
     const auth = await initiate(user);
@@ -256,7 +232,7 @@ describe('LTI 1.3 launch from a test platform', () => {
   it("refuses a launch when the platform's key set cannot be fetched (platform-keys-unreachable)", async () => {
     // A second platform, registered, whose key set server has gone away.
     const gone = await TestPlatform.start();
-    await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, gone.registration(seed.course.id), 201);
+    await registerPlatform(app, gone, seed.course.id);
     const res = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(gone.loginInitiation(learner, TOOL))}` });
     const auth = gone.readAuthRequest(String(res.headers.location), learner);
     const token = await gone.idToken(learner, auth.nonce);

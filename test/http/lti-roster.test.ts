@@ -1,10 +1,10 @@
 import type { FastifyInstance } from 'fastify';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildApp } from '../../server/app.ts';
 import { nextPage } from '../../server/lti/memberships.ts';
-import { ADMIN_TOKEN, call, seedCourse, testConfig, type Seed } from '../support/api-fixture.ts';
+import { call, type Seed } from '../support/api-fixture.ts';
 import { PLATFORM_ROLES, TestPlatform, type ContextMember, type PlatformUser } from '../support/lti-platform/test-platform.ts';
-import { openTestDatabase, type TestDatabase } from '../support/test-database.ts';
+import { launchTool } from '../support/lti-platform/tool-launch.ts';
+import { openToolAndPlatform, placeOnSectionA, type ToolAndPlatform } from '../support/lti-platform/tool-fixture.ts';
 
 /**
  * Rosters pulled from a test platform's membership service (NRPS 2.0), with the service token asked
@@ -12,8 +12,6 @@ import { openTestDatabase, type TestDatabase } from '../support/test-database.ts
  * the specifications (not confirmed here against the documents). The tool is served on a real port
  * so that the platform checks our client assertions against our key set as served, with jose.
  */
-const FORM = { 'content-type': 'application/x-www-form-urlencoded' };
-const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
 
 // Invented people.
 const instructor: PlatformUser = { sub: 'sub-instructor-r1', name: 'Ines Calloway', roles: PLATFORM_ROLES.instructor };
@@ -24,36 +22,23 @@ const staffMembers: ContextMember[] = [
 ];
 
 describe('roster pull by NRPS 2.0 from a test platform', () => {
-  let database: TestDatabase;
   let app: FastifyInstance;
   let platform: TestPlatform;
   let seed: Seed;
   let pullUrl: string;
+  let tool: ToolAndPlatform | undefined;
 
   beforeAll(async () => {
-    database = await openTestDatabase('postgres');
-    app = await buildApp({ config: testConfig, store: database.store });
-    await app.listen({ port: 0, host: '127.0.0.1' });
-    platform = await TestPlatform.start();
-    const address = app.server.address() as { port: number };
-    platform.toolKeySetUrl = `http://127.0.0.1:${address.port}/v1/lti/jwks`;
-    seed = await seedCourse(app);
-    const registered = await call(app, 'POST', '/v1/lti/platforms', ADMIN_TOKEN, platform.registration(seed.course.id), 201);
-    await call(app, 'PUT', `/v1/sections/${seed.sectionA.id}/assignments/${seed.assignment.id}/lti-placement`, seed.instructorToken, { platformId: registered.body.id, contextId: platform.contextId, resourceLinkId: platform.resourceLinkId }, 200);
+    tool = await openToolAndPlatform({ served: true });
+    ({ app, platform, seed } = tool);
+    await placeOnSectionA(app, seed, platform, tool.platformId);
     pullUrl = `/v1/sections/${seed.sectionA.id}/roster/pull`;
   }, 60_000);
-  afterAll(async () => {
-    await app?.close();
-    await platform?.close();
-    await database?.close();
-  });
+  afterAll(() => tool?.close());
 
   /** A whole launch (Security Framework 1.0, 5.1.1), its id_token carrying the NRPS claim as every launch of this platform does. */
   async function launch(user: PlatformUser) {
-    const login = await app.inject({ method: 'GET', url: `/v1/lti/login?${form(platform.loginInitiation(user, 'http://localhost:80'))}`, headers: { host: 'localhost:80' } });
-    expect(login.statusCode, login.body).toBe(302);
-    const auth = platform.readAuthRequest(String(login.headers.location), user);
-    const launched = await app.inject({ method: 'POST', url: '/v1/lti/launch', headers: FORM, payload: form({ id_token: await platform.idToken(user, auth.nonce), state: auth.state }) });
+    const launched = await launchTool(app, platform, user);
     expect(launched.statusCode, launched.body).toBe(200);
   }
 
