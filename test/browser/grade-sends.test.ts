@@ -1,5 +1,5 @@
 import type { FastifyInstance } from 'fastify';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { buildApp } from '../../server/app.ts';
 import { giveUpPassback } from '../../server/grading/grade-passback.ts';
@@ -71,11 +71,21 @@ describe.skipIf(!chromiumPresent)('grade sends on the results page', () => {
     await database?.close();
   });
 
+  /** One browser context per staff token, signed in once: its session cookie serves each page after. */
+  const signedIn = new Map<string, BrowserContext>();
   /** The results page of a section, signed in as its TA, at a window `width` wide. */
   async function resultsPage(sectionId: number, token: string, width = 1280): Promise<{ page: Page; problems: string[] }> {
-    const page = await browser.newPage({ viewport: { width, height: 900 } });
+    let context = signedIn.get(token);
+    if (!context) {
+      context = await browser.newContext();
+      const first = await context.newPage();
+      await signIn(first, origin, token);
+      await first.close();
+      signedIn.set(token, context);
+    }
+    const page = await context.newPage();
+    await page.setViewportSize({ width, height: 900 });
     const problems = watchProblems(page);
-    await signIn(page, origin, token);
     await page.goto(`${origin}/#/section/${sectionId}/assignment/${s.assignment.id}`);
     await page.getByRole('table', { name: 'Latest result of each student' }).waitFor();
     return { page, problems };
