@@ -81,7 +81,7 @@ export async function noteFailedTry(db: Kysely<Database>, assignmentId: number, 
 export async function giveUpSends(db: Kysely<Database>, assignmentId: number, sectionId: number): Promise<void> {
   await db
     .updateTable('grade_sends')
-    .set({ state: 'failed', reason: sql<string>`'gave up after ' || tries || ' tries: ' || coalesce(reason, 'no answer')` })
+    .set({ state: 'failed', reason: sql<string>`'gave up after ' || tries || CASE WHEN tries = 1 THEN ' try: ' ELSE ' tries: ' END || coalesce(reason, 'no answer')` })
     .where('assignment_id', '=', assignmentId)
     .where('state', '=', 'waiting')
     .where('student_row_id', 'in', (eb) => eb.selectFrom('students').select('id').where('section_id', '=', sectionId))

@@ -297,7 +297,7 @@ export async function sectionView(place, failure, instructor) {
     const send = r.gradeSent;
     if (!send) return '';
     const when = new Date(send.at).toLocaleString();
-    return [h('span', { class: `send-${send.state}`, title: send.state === 'sent' ? `sent ${when}` : `queued ${when}` }, SEND_WORDS[send.state]), send.reason ? h('span', { class: 'send-reason' }, send.reason) : null];
+    return [h('span', { class: `send-${send.state}`, title: send.state === 'sent' ? `sent ${when}` : `queued ${when}` }, SEND_WORDS[send.state]), send.reason ? [' ', h('span', { class: 'send-reason' }, send.reason)] : null];
   }
 
   /** Grades the platform did not take: how many, and the action that sends them again. */
@@ -310,8 +310,9 @@ export async function sectionView(place, failure, instructor) {
       `${plural(failed, 'grade')} could not be sent to the course's learning platform (the reasons are in the Grade sent column). `,
       h('button', { type: 'button', class: 'small', onclick: async () => {
         try {
-          await api('POST', `${base}/passback`);
+          const { waiting } = /** @type {{ waiting: number }} */ (await api('POST', `${base}/passback`));
           await refresh();
+          releaseArea.append(h('p', { role: 'status' }, `${plural(waiting, 'grade')} queued to be sent again.`));
         } catch (error) {
           failure(error);
         }
