@@ -11,9 +11,10 @@ import { parseOptions } from './parse-options.ts';
 import { InFlight } from './in-flight.ts';
 import { JsonBatcher, JsonLayoutError, type JsonBatch } from '../batches/json-batches.ts';
 import { readAssignment, readCsvSubmissions } from './read-input.ts';
-import { renderTable, type TableEntry } from '../../reports/results-table.ts';
+import { renderTableRows } from '../../reports/results-table.ts';
 import type { ReportWriter } from './write-reports.ts';
 import { ProgressLine } from './progress-line.ts';
+import { KeptLines } from './kept-lines.ts';
 
 /**
  * `rateproof check`: grades a submissions file offline. A JSON or JSON Lines file is read as a stream
@@ -66,6 +67,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
   let pool: WorkerPool | undefined;
   let progress: ProgressLine | undefined;
   let writer: ReportWriter | undefined;
+  let sink: ResultSink | undefined;
   try {
     const makeWriter = async () => {
       if (values.out !== undefined) writer = new (await import('./write-reports.ts')).ReportWriter(values.out, { assignmentPath, submissionsPath }, assignment, io, pool);
@@ -73,7 +75,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     if (isCsv) {
       const submissions = await readCsvSubmissions(assignment.kind, submissionsPath, reportedPath, io);
       await makeWriter();
-      const sink = new ResultSink(printed, io, writer);
+      sink = new ResultSink(printed, io, writer);
       await sink.add(0, checkSubmissions(assignment, submissions, { output: printed, arrays, keep }), 0);
       return await sink.finish(values, assignment.settings);
     }
@@ -85,7 +87,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     }
     await makeWriter();
     if (io.stderrIsTerminal && !values.quiet) progress = new ProgressLine(io.stderr, size);
-    const sink = new ResultSink(printed, io, writer, progress);
+    sink = new ResultSink(printed, io, writer, progress);
     const settingsJson = JSON.stringify(assignment.settings);
     const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
     const layout = { jsonLines, batchBytes: writer ? SHEET_BATCH_BYTES : BATCH_BYTES, perWorker: writer ? 1 : 2 };
@@ -95,8 +97,9 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
   } finally {
     progress?.end();
     await pool?.close();
-    // After a failure: the temporary file of what the summary would have read.
+    // After a failure: the temporary files of what the summary and the table would have read.
     await writer?.discard();
+    await sink?.discard();
   }
 }
 
@@ -171,7 +174,9 @@ class ResultSink {
   private readonly waiting = new Map<number, { batch: CheckedBatch; bytes: number }>();
   private next = 0;
   private printedAny = false;
-  private readonly table: TableEntry[] = [];
+  /** The table's rows, and each submission's details to print after them (a course's are megabytes of text: kept on disk). */
+  private readonly rows: string[][] = [];
+  private readonly details = new KeptLines<string>();
   private done = 0;
   private bytes = 0;
   /** For --signals: the checked submissions as given, and each student's own signals. */
@@ -197,7 +202,11 @@ class ResultSink {
   }
 
   private async take(batch: CheckedBatch, bytes: number): Promise<void> {
-    if (batch.table) this.table.push(...batch.table);
+    for (const { row, details } of batch.table ?? []) {
+      this.rows.push(row);
+      if (details) this.details.push(details);
+    }
+    await this.details.flushed();
     if (batch.text) {
       if (this.printed === 'json') this.io.stdout(this.printedAny ? `,\n${batch.text}` : `[\n${batch.text}`);
       else this.io.stdout(batch.text);
@@ -218,10 +227,31 @@ class ResultSink {
   async finish(options: { out?: string; signals?: string }, settings: unknown): Promise<number> {
     const count = await this.writer?.finish();
     this.progress?.end();
-    if (this.printed === 'table') this.io.stdout(renderTable(this.table));
+    if (this.printed === 'table') await this.printTable();
     else if (this.printed === 'json') this.io.stdout(this.printedAny ? '\n]\n' : '[]\n');
     if (this.printed === 'table' && count !== undefined) this.io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${options.out}\n`);
     if (options.signals !== undefined) await writeSignals(options.signals, settings, this.checked, this.students, this.printed === 'table', this.io);
     return 0;
   }
+
+  private async printTable(): Promise<void> {
+    this.io.stdout(renderTableRows(this.rows));
+    let text = '';
+    for await (const details of this.details.drain()) {
+      text += details;
+      if (text.length >= PRINTED_CHUNK) {
+        this.io.stdout(text);
+        text = '';
+      }
+    }
+    this.io.stdout(`${text}\n`);
+  }
+
+  /** Removes what was kept for the table, after a failure. */
+  async discard(): Promise<void> {
+    await this.details.discard();
+  }
 }
+
+// The table's details are printed a few pages at a time rather than in a write per submission.
+const PRINTED_CHUNK = 1 << 16;
