@@ -2,6 +2,8 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { basename, dirname, extname, join } from 'node:path';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
+import type { SectionTotals } from '../../reports/section-summary.ts';
+import type { SectionSignals } from '../signals/section-report.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
 import { GradebookRows } from '../../reports/gradebook-csv.ts';
 import type { Assignment } from '../checks/check.ts';
@@ -80,6 +82,18 @@ export class ReportWriter {
     await this.writing.done();
     // The section is read back here: the workers' memory is given back first.
     await this.pool?.close();
+    const { totals, signals } = await this.readBack();
+    const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
+    await this.save('summary.pdf', await renderSummaryOfTotals(totals, { header: this.header, signals }));
+    return this.sheets;
+  }
+
+  /**
+   * What was kept, read back one line at a time: the gradebook written, the summary's totals and the
+   * section's signals returned. Each part is let go once it has served (the gradebook's rows and the
+   * signals' copy of the readings, half of what a course's read-back holds), before the summary is drawn.
+   */
+  private async readBack(): Promise<{ totals: SectionTotals; signals: SectionSignals }> {
     const { sectionTotals } = await import('../../kinds/documents.ts');
     const { sectionSignalCollector } = await import('../../kinds/section-signals.ts');
     const gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
@@ -95,9 +109,7 @@ export class ReportWriter {
       }
     }
     await this.save('gradebook.csv', gradebook.text());
-    const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
-    await this.save('summary.pdf', await renderSummaryOfTotals(totals, { header: this.header, signals: signals.finish() }));
-    return this.sheets;
+    return { totals, signals: signals.finish() };
   }
 
   /** Removes what was kept, after a failure. */

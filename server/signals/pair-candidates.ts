@@ -11,9 +11,11 @@
  * honest runs agree on few cells, and each lookup finds few runs.
  */
 
+import { fractionAt } from './run-fraction.ts';
+
 export interface CandidateRun {
-  /** F of each reading, 1 at the first and 0 at the last. */
-  f: number[];
+  /** The readings, whose F (see `fractionAt`) is compared. */
+  x: number[];
   /** The largest difference in a cell that still counts as agreeing (for a pair, the larger of the two). */
   tolerance: number;
 }
@@ -44,9 +46,9 @@ function runsByLength(runs: Array<Array<CandidateRun | undefined>>): Map<number,
   runs.forEach((list, owner) => {
     for (const run of list) {
       if (!run) continue;
-      const group = groups.get(run.f.length) ?? [];
+      const group = groups.get(run.x.length) ?? [];
       group.push({ owner, run });
-      groups.set(run.f.length, group);
+      groups.set(run.x.length, group);
     }
   });
   return groups;
@@ -70,7 +72,7 @@ const slack = (value: number, reach: number) => (reach + Math.abs(value)) * 1e-1
 
 /** Runs of one length whose F agrees on at least `matchingShare` of the cells, counted exactly. */
 function addRunCandidates(group: OwnedRun[], matchingShare: number, add: (a: number, b: number) => void): void {
-  const length = group[0].run.f.length;
+  const length = group[0].run.x.length;
   const count = group.length;
   // The two end cells always agree: the inner ones must make up the share, and at most `spare` may differ.
   const inner = length - 2;
@@ -82,7 +84,9 @@ function addRunCandidates(group: OwnedRun[], matchingShare: number, add: (a: num
   }
   // F of the inner cells, one row per run; and per cell, the runs in order of F with those values.
   const f = new Float64Array(count * inner);
-  group.forEach((g, r) => f.set(g.run.f.slice(1, length - 1), r * inner));
+  group.forEach((g, r) => {
+    for (let c = 0; c < inner; c++) f[r * inner + c] = fractionAt(g.run.x, c + 1);
+  });
   const tolerance = Float64Array.from(group, (g) => g.run.tolerance);
   const orders: Int32Array[] = [];
   const sorted: Float64Array[] = [];
