@@ -5,6 +5,7 @@ import type { WorkerPool } from '../pool/worker-pool.ts';
 import { WorkerTaskError } from '../pool/worker-pool.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkJsonBatch, checkSubmissions, type CheckedBatch, type KeptParts, type ResultOutput } from '../batches/check-json-batch.ts';
+import type { DrawnBatch } from '../batches/check-and-draw.ts';
 import { fileErrorReason, InputError, isFileError, UsageError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { parseOptions } from './parse-options.ts';
@@ -26,8 +27,8 @@ import { KeptLines } from './kept-lines.ts';
 // About 500 submissions of four 16-reading runs: big enough that a worker's round trip is cheap
 // beside the checking, small enough to spread a file of a few thousand over every core.
 const BATCH_BYTES = 1 << 20;
-// With --out a batch's results and read submissions wait in memory for its sheets, which take some
-// thirty times as long as the checking: smaller batches, fewer at once, keep that wait small.
+// With --out a worker keeps a batch's sheets until it has drawn them all, and a batch checked out of
+// turn waits for the one before it: smaller batches, fewer at once, keep that small.
 const SHEET_BATCH_BYTES = 1 << 18;
 // Below this a worker's start-up (loading the checker) costs more than it saves.
 const POOL_MIN_BYTES = 4 << 20;
@@ -91,7 +92,12 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     const settingsJson = JSON.stringify(assignment.settings);
     const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
     const layout = { jsonLines, batchBytes: writer ? SHEET_BATCH_BYTES : BATCH_BYTES, perWorker: writer ? 1 : 2 };
-    await streamBatches(submissionsPath, layout, pool, (batch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep }), sink);
+    const job = (batch: JsonBatch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep });
+    const started = pool;
+    const frame = writer?.frame();
+    // With --out a worker draws the sheets of the batch it checked: its results and submissions stay there.
+    const inPool = started && { size: started.size, run: (batch: JsonBatch) => (frame ? started.run('check-and-draw', { ...job(batch), ...frame }) : started.run('check-json-batch', job(batch))) };
+    await streamBatches(submissionsPath, layout, inPool, job, sink);
     progress?.end();
     return await sink.finish(values, assignment.settings);
   } finally {
@@ -135,7 +141,7 @@ async function sizeOf(path: string): Promise<number> {
 async function streamBatches(
   path: string,
   { jsonLines, batchBytes, perWorker }: { jsonLines: boolean; batchBytes: number; perWorker: number },
-  pool: WorkerPool | undefined,
+  pool: { size: number; run: (batch: JsonBatch) => Promise<CheckedBatch | DrawnBatch> } | undefined,
   job: (batch: JsonBatch) => Parameters<typeof checkJsonBatch>[0],
   sink: ResultSink,
 ): Promise<void> {
@@ -147,7 +153,7 @@ async function streamBatches(
     const bytes = Buffer.byteLength(batch.text);
     if (!pool) return sink.add(n, checkJsonBatch(job(batch)), bytes);
     // A batch holds its place until its sheets are written: at most so many batches' results in memory.
-    await inFlight.add(() => pool.run('check-json-batch', job(batch)).then((checked) => sink.add(n, checked, bytes)));
+    await inFlight.add(() => pool.run(batch).then((checked) => sink.add(n, checked, bytes)));
   };
   try {
     let first = true;
@@ -171,7 +177,7 @@ async function streamBatches(
 
 /** Takes checked batches as they finish and prints them (and writes their sheets) in the file's order. */
 class ResultSink {
-  private readonly waiting = new Map<number, { batch: CheckedBatch; bytes: number }>();
+  private readonly waiting = new Map<number, { batch: CheckedBatch | DrawnBatch; bytes: number }>();
   private next = 0;
   private printedAny = false;
   /** The table's rows, and each submission's details to print after them (a course's are megabytes of text: kept on disk). */
@@ -191,7 +197,7 @@ class ResultSink {
   ) {}
 
   /** Resolves when this batch (and any before it that were waiting for it) are printed and their sheets written. */
-  async add(seq: number, batch: CheckedBatch, bytes: number): Promise<void> {
+  async add(seq: number, batch: CheckedBatch | DrawnBatch, bytes: number): Promise<void> {
     this.waiting.set(seq, { batch, bytes });
     const taken: Array<Promise<void>> = [];
     for (let w = this.waiting.get(this.next); w; w = this.waiting.get(this.next)) {
@@ -201,7 +207,7 @@ class ResultSink {
     await Promise.all(taken);
   }
 
-  private async take(batch: CheckedBatch, bytes: number): Promise<void> {
+  private async take(batch: CheckedBatch | DrawnBatch, bytes: number): Promise<void> {
     for (const { row, details } of batch.table ?? []) {
       this.rows.push(row);
       if (details) this.details.push(details);
@@ -217,7 +223,8 @@ class ResultSink {
       if (batch.submissions && r.status === 'checked') this.checked.push(batch.submissions[i]);
       if (batch.submissions && (r.signals ?? []).length > 0) this.students.push({ studentId: r.studentId, signals: r.signals });
     }
-    if (this.writer && batch.reads) await this.writer.add(results, batch.reads);
+    if (this.writer && 'sheets' in batch) await this.writer.addDrawn(batch);
+    else if (this.writer && 'reads' in batch && batch.reads) await this.writer.add(results, batch.reads);
     this.done += batch.count;
     this.bytes += bytes;
     this.progress?.update(this.done, this.bytes);

@@ -17,12 +17,17 @@ export class KeptLines<T> {
 
   /** Appends one value: values are read back in the order of these calls. */
   push(value: T): void {
+    this.pushLines(`${JSON.stringify(value)}\n`);
+  }
+
+  /** Appends values already written as `push` writes them (each one's JSON and a line break), as made in a worker. */
+  pushLines(lines: string): void {
     if (!this.file) {
       this.file = openFile();
       this.file.stream.on('error', (error) => (this.failure ??= error));
     }
     if (this.failure) throw this.failure;
-    this.file.stream.write(`${JSON.stringify(value)}\n`);
+    this.file.stream.write(lines);
   }
 
   /** Resolves when the file's buffer has room again: what was pushed is on its way to the disk, not held. */

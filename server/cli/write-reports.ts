@@ -8,7 +8,8 @@ import { UniqueNames } from '../../reports/file-names.ts';
 import { GradebookRows } from '../../reports/gradebook-csv.ts';
 import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
-import { withoutArrays } from '../batches/check-json-batch.ts';
+import { sheetParts, type KeptResult } from '../batches/sheet-parts.ts';
+import type { DrawnBatch } from '../batches/check-and-draw.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { InFlight } from './in-flight.ts';
@@ -16,15 +17,10 @@ import { KeptLines } from './kept-lines.ts';
 
 const WRITES_IN_FLIGHT = 8;
 
-/** What the gradebook and the summary read of a result: no rubric items, per-reading arrays or finding messages. */
-function summaryPart(result: CheckResult): CheckResult {
-  const { items: _items, ...rest } = withoutArrays(result);
-  return { ...rest, findings: rest.findings.map((f) => ({ ...f, message: '' })) };
-}
-
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary, written batch by
- * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Of each
+ * batch as results come in file order. With a pool, the worker that checked a batch draws its sheets
+ * (`checkAndDraw`), so that results and submissions stay there; without, they are drawn here. Of each
  * result only what the gradebook and summary read, and each checked submission, go to a temporary file
  * as they come; once the sheets are done and the pool is closed they are read back one at a time into
  * the gradebook's rows, the summary's running totals and the section's signals, and let go. Nothing
@@ -37,7 +33,7 @@ export class ReportWriter {
   private readonly names = new UniqueNames();
   private readonly writing = new InFlight(WRITES_IN_FLIGHT);
   /** Per result, in file order: the part the summary reads, and the submission as read where it has a sheet. */
-  private readonly kept = new KeptLines<[CheckResult] | [CheckResult, unknown]>();
+  private readonly kept = new KeptLines<KeptResult>();
   private sheets = 0;
 
   constructor(
@@ -52,29 +48,35 @@ export class ReportWriter {
     this.settings = assignment.settings as KindSettings;
   }
 
-  /** The next batch in file order: its sheets drawn and written; resolves when they are. */
+  /** What a worker needs to draw the sheets of a batch it checks (`checkAndDraw`). */
+  frame(): { header: SummaryHeader; settings: KindSettings } {
+    return { header: this.header, settings: this.settings };
+  }
+
+  /** The next batch in file order, checked in this thread: its sheets drawn and written; resolves when they are. */
   async add(results: CheckResult[], reads: unknown[]): Promise<void> {
     const sheets: Array<{ name: string; input: FeedbackInput }> = [];
     for (const [i, result] of results.entries()) {
-      const read = reads[i];
-      const drawn = result.status === 'checked' && result.studentId !== null && read !== undefined;
-      this.kept.push(drawn ? [summaryPart(result), read] : [summaryPart(result)]);
-      if (!drawn) continue;
-      sheets.push({ name: this.names.take(result.studentId!), input: { header: { ...this.header, studentId: result.studentId!, version: 1 }, settings: this.settings, submission: read, result } });
+      const { kept, input } = sheetParts(this.header, this.settings, result, reads[i]);
+      this.kept.push(kept);
+      if (input) sheets.push({ name: this.names.take(input.header.studentId), input });
     }
     this.sheets += sheets.length;
     await this.kept.flushed();
-    const { pool } = this;
-    if (pool) {
-      await Promise.all(sheets.map(async ({ name, input }) => this.save(name, await pool.run('render-sheet', input))));
-      return;
-    }
     const { feedbackSheetOrReason } = await import('../../kinds/documents.ts');
     // Each sheet is written while the next is drawn, a few at most in flight.
     for (const { name, input } of sheets) {
       const bytes = await feedbackSheetOrReason(input);
       await this.writing.add(() => this.save(name, bytes));
     }
+  }
+
+  /** The next batch in file order, checked and drawn in a worker: its sheets written; resolves when they are. */
+  async addDrawn(batch: DrawnBatch): Promise<void> {
+    this.kept.pushLines(batch.kept);
+    this.sheets += batch.sheets.length;
+    await this.kept.flushed();
+    await Promise.all(batch.sheets.map(({ studentId, bytes }) => this.save(this.names.take(studentId), bytes)));
   }
 
   /** The gradebook and the summary, after the last batch; returns the sheet count. */

@@ -4,6 +4,7 @@
  */
 export const tasks = {
   'check-json-batch': () => import('../batches/check-json-batch.ts').then((m) => m.checkJsonBatch),
+  'check-and-draw': () => import('../batches/check-and-draw.ts').then((m) => m.checkAndDraw),
   'grade-for-store': () => import('../batches/graded-for-store.ts').then((m) => m.gradeForStore),
   'render-sheet': () => import('../../kinds/documents.ts').then((m) => m.feedbackSheetOrReason),
   'render-summary': () => import('../../kinds/documents.ts').then((m) => m.sectionSummary),
