@@ -2,6 +2,7 @@ import { feedbackSheetOrReason } from '../../kinds/documents.ts';
 import type { KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
 import { checkJsonBatch, type CheckedBatch, type CheckJsonBatchInput } from './check-json-batch.ts';
 import { sheetParts } from './sheet-parts.ts';
+import { withMoved } from './moved-buffers.ts';
 
 export interface CheckAndDrawInput extends CheckJsonBatchInput {
   header: SummaryHeader;
@@ -33,5 +34,6 @@ export async function checkAndDraw(input: CheckAndDrawInput): Promise<DrawnBatch
     kept += `${JSON.stringify(parts.kept)}\n`;
     if (parts.input) sheets.push({ studentId: parts.input.header.studentId, bytes: await feedbackSheetOrReason(parts.input) });
   }
-  return { ...printed, kept, sheets, ...(withSubmissions ? { results, submissions } : {}) };
+  const drawn = { ...printed, kept, sheets, ...(withSubmissions ? { results, submissions } : {}) };
+  return withMoved(drawn, sheets.map((s) => s.bytes));
 }
