@@ -2,14 +2,12 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { basename, dirname, extname, join } from 'node:path';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
-import type { SectionTotals } from '../../reports/section-summary.ts';
-import type { SectionSignals } from '../signals/section-report.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
-import { GradebookRows } from '../../reports/gradebook-csv.ts';
 import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
 import { sheetParts, type KeptResult } from '../batches/sheet-parts.ts';
 import type { DrawnBatch } from '../batches/check-and-draw.ts';
+import type { SectionFilesInput } from '../batches/section-files.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { InFlight } from './in-flight.ts';
@@ -23,9 +21,8 @@ const WRITES_IN_FLIGHT = 8;
  * (`checkAndDraw`), so that results and submissions stay there; without, they are drawn here. Of each
  * result only what the gradebook and summary read, and each checked submission, go to a temporary file
  * as they come; once the sheets are done and the pool is closed they are read back one at a time into
- * the gradebook's rows, the summary's running totals and the section's signals, and let go. Nothing
- * grows with the file in memory but those totals, and the main thread loads the summary's drawing only
- * then, not beside the workers.
+ * the gradebook's rows, the summary's running totals and the section's signals (`sectionFiles`; in a
+ * worker of its own after a pool), and let go. Nothing grows with the file in memory but those totals.
  */
 export class ReportWriter {
   private readonly header: SummaryHeader;
@@ -35,6 +32,7 @@ export class ReportWriter {
   /** Per result, in file order: the part the summary reads, and the submission as read where it has a sheet. */
   private readonly kept = new KeptLines<KeptResult>();
   private sheets = 0;
+  private results = 0;
 
   constructor(
     private readonly dir: string,
@@ -59,6 +57,7 @@ export class ReportWriter {
     for (const [i, result] of results.entries()) {
       const { kept, input } = sheetParts(this.header, this.settings, result, reads[i]);
       this.kept.push(kept);
+      this.results += 1;
       if (input) sheets.push({ name: this.names.take(input.header.studentId), input });
     }
     this.sheets += sheets.length;
@@ -74,6 +73,7 @@ export class ReportWriter {
   /** The next batch in file order, checked and drawn in a worker: its sheets written; resolves when they are. */
   async addDrawn(batch: DrawnBatch): Promise<void> {
     this.kept.pushLines(batch.kept);
+    this.results += batch.count;
     this.sheets += batch.sheets.length;
     await this.kept.flushed();
     await Promise.all(batch.sheets.map(({ studentId, bytes }) => this.save(this.names.take(studentId), bytes)));
@@ -82,36 +82,14 @@ export class ReportWriter {
   /** The gradebook and the summary, after the last batch; returns the sheet count. */
   async finish(): Promise<number> {
     await this.writing.done();
-    // The section is read back here: the workers' memory is given back first.
+    // The section is read back once the sheets' workers have given their memory back.
     await this.pool?.close();
-    const { totals, signals } = await this.readBack();
-    const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
-    await this.save('summary.pdf', await renderSummaryOfTotals(totals, { header: this.header, signals }));
+    const input: SectionFilesInput = { path: await this.kept.written(), header: this.header, settings: this.settings };
+    const { gradebook, summary } = this.pool ? await sectionFilesInWorker(input, this.results) : await (await import('../batches/section-files.ts')).sectionFiles(input);
+    await this.save('gradebook.csv', gradebook);
+    await this.save('summary.pdf', summary);
+    await this.kept.discard();
     return this.sheets;
-  }
-
-  /**
-   * What was kept, read back one line at a time: the gradebook written, the summary's totals and the
-   * section's signals returned. Each part is let go once it has served (the gradebook's rows and the
-   * signals' copy of the readings, half of what a course's read-back holds), before the summary is drawn.
-   */
-  private async readBack(): Promise<{ totals: SectionTotals; signals: SectionSignals }> {
-    const { sectionTotals } = await import('../../kinds/documents.ts');
-    const { sectionSignalCollector } = await import('../../kinds/section-signals.ts');
-    const gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
-    const totals = await sectionTotals(this.settings, true);
-    const signals = sectionSignalCollector(this.settings);
-    for await (const [result, ...read] of this.kept.drain()) {
-      gradebook.add(result);
-      // The result before its submission: a signal is placed from its student's last submission.
-      totals.addResult(result);
-      for (const submission of read) {
-        totals.addSubmission(submission);
-        signals.add(submission);
-      }
-    }
-    await this.save('gradebook.csv', gradebook.text());
-    return { totals, signals: signals.finish() };
   }
 
   /** Removes what was kept, after a failure. */
@@ -126,5 +104,21 @@ export class ReportWriter {
     } catch (error) {
       throw new InputError(`cannot write ${path}: ${fileErrorReason(error)}`);
     }
+  }
+}
+
+/**
+ * The gradebook and summary of a long file in a worker of their own, its heap bounded: in the command's
+ * thread the signals' comparison of 20,000 submissions let the heap grow by some 90 MB of garbage before
+ * it was collected; a bound makes V8 collect sooner. The bound is far above what the read-back holds
+ * (about 5 kB a submission at most), so that it never stops a run.
+ */
+async function sectionFilesInWorker(input: SectionFilesInput, results: number): Promise<{ gradebook: string; summary: Uint8Array }> {
+  const { createWorkerPool } = await import('../pool/worker-pool.ts');
+  const worker = createWorkerPool(1, { maxOldGenerationSizeMb: Math.max(512, Math.ceil(results / 50)), maxYoungGenerationSizeMb: 16 });
+  try {
+    return await worker.run('section-files', input);
+  } finally {
+    await worker.close();
   }
 }
