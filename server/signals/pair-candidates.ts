@@ -23,9 +23,10 @@ export interface CandidateRun {
 /**
  * Submission pairs [i, j], i < j, in the order a loop over all pairs would meet them: those with a run
  * pair that may match, and those with a reported value written alike (`shared` keys, such as a rate
- * constant's exact text, as a submission lists them).
+ * constant's exact text, as a submission lists them). Given one at a time from a sorted typed array of
+ * keys: a course's 250,000 candidates held as pairs were some 20 MB until the last was compared.
  */
-export function pairCandidates(runs: Array<Array<CandidateRun | undefined>>, matchingShare: number, shared: Array<string[]>): Array<[number, number]> {
+export function* pairCandidates(runs: Array<Array<CandidateRun | undefined>>, matchingShare: number, shared: Array<string[]>): Generator<[number, number]> {
   const n = runs.length;
   const pairs = new Set<number>();
   const add = (a: number, b: number) => {
@@ -33,7 +34,10 @@ export function pairCandidates(runs: Array<Array<CandidateRun | undefined>>, mat
   };
   for (const owners of groupedBy(shared).values()) addAllPairs(owners, add);
   for (const group of runsByLength(runs).values()) addRunCandidates(group, matchingShare, add);
-  return [...pairs].sort((a, b) => a - b).map((key) => [Math.floor(key / n), key % n]);
+  // Keys below n² are whole numbers that a double holds exactly; a typed array sorts them by value.
+  const keys = Float64Array.from(pairs).sort();
+  pairs.clear();
+  for (const key of keys) yield [Math.floor(key / n), key % n];
 }
 
 interface OwnedRun {
