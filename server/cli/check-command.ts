@@ -29,7 +29,7 @@ import { KeptLines } from './kept-lines.ts';
 const BATCH_BYTES = 1 << 20;
 // With --out a worker keeps a batch's sheets until it has drawn them all, and a batch checked out of
 // turn waits for the one before it: smaller batches, fewer at once, keep that small.
-const SHEET_BATCH_BYTES = 1 << 17;
+const SHEET_BATCH_BYTES = 1 << 16;
 // Below this a worker's start-up (loading the checker) costs more than it saves.
 const POOL_MIN_BYTES = 4 << 20;
 
