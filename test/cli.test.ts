@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
 import { caught } from './support/thrown.ts';
+import { pdfText } from './support/pdf-reading.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CheckResult } from '../schemas/result.ts';
 import { run } from '../server/cli.ts';
@@ -292,6 +293,28 @@ describe('rateproof check --out DIR', () => {
       's-02,,0,rejected,0,0,0,,assignment',
       expect.stringMatching(/^s-03,[\d.]+,[\d.]+,checked,/),
     ]);
+  });
+
+  it('writes the same files, prints the same table and finds the same signals in two worker threads as in this thread', async () => {
+    // Sheets name the time they were graded, to the minute: the one thing two runs may differ in.
+    const ungraded = (text: string) => text.replace(/\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/g, '(graded)');
+    const written = async (workers: string) => {
+      const out = file(`out-workers-${workers}`);
+      const signals = file(`signals-workers-${workers}.json`);
+      const result = await rateproof('check', '--assignment', file('assignment.json'), file('batch.json'), '--out', out, '--signals', signals, '--workers', workers);
+      expect(result.code).toBe(0);
+      const files: Array<[string, string]> = [];
+      for (const name of (await readdir(out)).sort()) {
+        const bytes = await readFile(join(out, name));
+        files.push([name, name.endsWith('.pdf') ? ungraded(await pdfText(bytes)) : bytes.toString('utf8')]);
+      }
+      return { files, signals: await readFile(signals, 'utf8'), stdout: result.stdout.replaceAll(out, 'OUT').replaceAll(signals, 'SIGNALS') };
+    };
+    const pooled = await written('2');
+    expect(pooled).toEqual(await written('0'));
+    // The batch: s-01 and s-03 checked (a sheet each), s-02 not a number; s-03's runs warm up (a signal).
+    expect(pooled.files.map(([name]) => name)).toEqual(['gradebook.csv', 's-01.pdf', 's-03.pdf', 'summary.pdf']);
+    expect(JSON.parse(pooled.signals).students.map((s: { studentId: string }) => s.studentId)).toEqual(['s-03']);
   });
 
   it('a folder it cannot write to: exit 2 and one line naming the file', async () => {

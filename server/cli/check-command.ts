@@ -5,15 +5,17 @@ import type { WorkerPool } from '../pool/worker-pool.ts';
 import { WorkerTaskError } from '../pool/worker-pool.ts';
 import type { CheckResult } from '../../schemas/result.ts';
 import { checkJsonBatch, checkSubmissions, type CheckedBatch, type KeptParts, type ResultOutput } from '../batches/check-json-batch.ts';
+import type { DrawnBatch } from '../batches/check-and-draw.ts';
 import { fileErrorReason, InputError, isFileError, UsageError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { parseOptions } from './parse-options.ts';
 import { InFlight } from './in-flight.ts';
 import { JsonBatcher, JsonLayoutError, type JsonBatch } from '../batches/json-batches.ts';
 import { readAssignment, readCsvSubmissions } from './read-input.ts';
-import { renderTable, type TableEntry } from '../../reports/results-table.ts';
+import { renderTableRows } from '../../reports/results-table.ts';
 import type { ReportWriter } from './write-reports.ts';
 import { ProgressLine } from './progress-line.ts';
+import { KeptLines } from './kept-lines.ts';
 
 /**
  * `rateproof check`: grades a submissions file offline. A JSON or JSON Lines file is read as a stream
@@ -25,9 +27,9 @@ import { ProgressLine } from './progress-line.ts';
 // About 500 submissions of four 16-reading runs: big enough that a worker's round trip is cheap
 // beside the checking, small enough to spread a file of a few thousand over every core.
 const BATCH_BYTES = 1 << 20;
-// With --out a batch's results and read submissions wait in memory for its sheets, which take some
-// thirty times as long as the checking: smaller batches, fewer at once, keep that wait small.
-const SHEET_BATCH_BYTES = 1 << 18;
+// With --out a worker keeps a batch's sheets until it has drawn them all, and a batch checked out of
+// turn waits for the one before it: smaller batches, fewer at once, keep that small.
+const SHEET_BATCH_BYTES = 1 << 16;
 // Below this a worker's start-up (loading the checker) costs more than it saves.
 const POOL_MIN_BYTES = 4 << 20;
 
@@ -66,6 +68,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
   let pool: WorkerPool | undefined;
   let progress: ProgressLine | undefined;
   let writer: ReportWriter | undefined;
+  let sink: ResultSink | undefined;
   try {
     const makeWriter = async () => {
       if (values.out !== undefined) writer = new (await import('./write-reports.ts')).ReportWriter(values.out, { assignmentPath, submissionsPath }, assignment, io, pool);
@@ -73,7 +76,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     if (isCsv) {
       const submissions = await readCsvSubmissions(assignment.kind, submissionsPath, reportedPath, io);
       await makeWriter();
-      const sink = new ResultSink(printed, io, writer);
+      sink = new ResultSink(printed, io, writer);
       await sink.add(0, checkSubmissions(assignment, submissions, { output: printed, arrays, keep }), 0);
       return await sink.finish(values, assignment.settings);
     }
@@ -85,18 +88,24 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
     }
     await makeWriter();
     if (io.stderrIsTerminal && !values.quiet) progress = new ProgressLine(io.stderr, size);
-    const sink = new ResultSink(printed, io, writer, progress);
+    sink = new ResultSink(printed, io, writer, progress);
     const settingsJson = JSON.stringify(assignment.settings);
     const jsonLines = /\.(jsonl|ndjson)$/i.test(submissionsPath);
     const layout = { jsonLines, batchBytes: writer ? SHEET_BATCH_BYTES : BATCH_BYTES, perWorker: writer ? 1 : 2 };
-    await streamBatches(submissionsPath, layout, pool, (batch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep }), sink);
+    const job = (batch: JsonBatch) => ({ settingsJson, batch, jsonLines, output: printed, arrays, keep });
+    const started = pool;
+    const frame = writer?.frame();
+    // With --out a worker draws the sheets of the batch it checked: its results and submissions stay there.
+    const inPool = started && { size: started.size, run: (batch: JsonBatch) => (frame ? started.run('check-and-draw', { ...job(batch), ...frame }) : started.run('check-json-batch', job(batch))) };
+    await streamBatches(submissionsPath, layout, inPool, job, sink);
     progress?.end();
     return await sink.finish(values, assignment.settings);
   } finally {
     progress?.end();
     await pool?.close();
-    // After a failure: the temporary file of what the summary would have read.
+    // After a failure: the temporary files of what the summary and the table would have read.
     await writer?.discard();
+    await sink?.discard();
   }
 }
 
@@ -132,7 +141,7 @@ async function sizeOf(path: string): Promise<number> {
 async function streamBatches(
   path: string,
   { jsonLines, batchBytes, perWorker }: { jsonLines: boolean; batchBytes: number; perWorker: number },
-  pool: WorkerPool | undefined,
+  pool: { size: number; run: (batch: JsonBatch) => Promise<CheckedBatch | DrawnBatch> } | undefined,
   job: (batch: JsonBatch) => Parameters<typeof checkJsonBatch>[0],
   sink: ResultSink,
 ): Promise<void> {
@@ -144,7 +153,7 @@ async function streamBatches(
     const bytes = Buffer.byteLength(batch.text);
     if (!pool) return sink.add(n, checkJsonBatch(job(batch)), bytes);
     // A batch holds its place until its sheets are written: at most so many batches' results in memory.
-    await inFlight.add(() => pool.run('check-json-batch', job(batch)).then((checked) => sink.add(n, checked, bytes)));
+    await inFlight.add(() => pool.run(batch).then((checked) => sink.add(n, checked, bytes)));
   };
   try {
     let first = true;
@@ -168,10 +177,12 @@ async function streamBatches(
 
 /** Takes checked batches as they finish and prints them (and writes their sheets) in the file's order. */
 class ResultSink {
-  private readonly waiting = new Map<number, { batch: CheckedBatch; bytes: number }>();
+  private readonly waiting = new Map<number, { batch: CheckedBatch | DrawnBatch; bytes: number }>();
   private next = 0;
   private printedAny = false;
-  private readonly table: TableEntry[] = [];
+  /** The table's rows, and each submission's details to print after them (a course's are megabytes of text: kept on disk). */
+  private readonly rows: string[][] = [];
+  private readonly details = new KeptLines<string>();
   private done = 0;
   private bytes = 0;
   /** For --signals: the checked submissions as given, and each student's own signals. */
@@ -186,7 +197,7 @@ class ResultSink {
   ) {}
 
   /** Resolves when this batch (and any before it that were waiting for it) are printed and their sheets written. */
-  async add(seq: number, batch: CheckedBatch, bytes: number): Promise<void> {
+  async add(seq: number, batch: CheckedBatch | DrawnBatch, bytes: number): Promise<void> {
     this.waiting.set(seq, { batch, bytes });
     const taken: Array<Promise<void>> = [];
     for (let w = this.waiting.get(this.next); w; w = this.waiting.get(this.next)) {
@@ -196,8 +207,12 @@ class ResultSink {
     await Promise.all(taken);
   }
 
-  private async take(batch: CheckedBatch, bytes: number): Promise<void> {
-    if (batch.table) this.table.push(...batch.table);
+  private async take(batch: CheckedBatch | DrawnBatch, bytes: number): Promise<void> {
+    for (const { row, details } of batch.table ?? []) {
+      this.rows.push(row);
+      if (details) this.details.push(details);
+    }
+    await this.details.flushed();
     if (batch.text) {
       if (this.printed === 'json') this.io.stdout(this.printedAny ? `,\n${batch.text}` : `[\n${batch.text}`);
       else this.io.stdout(batch.text);
@@ -208,7 +223,8 @@ class ResultSink {
       if (batch.submissions && r.status === 'checked') this.checked.push(batch.submissions[i]);
       if (batch.submissions && (r.signals ?? []).length > 0) this.students.push({ studentId: r.studentId, signals: r.signals });
     }
-    if (this.writer && batch.reads) await this.writer.add(results, batch.reads);
+    if (this.writer && 'sheets' in batch) await this.writer.addDrawn(batch);
+    else if (this.writer && 'reads' in batch && batch.reads) await this.writer.add(results, batch.reads);
     this.done += batch.count;
     this.bytes += bytes;
     this.progress?.update(this.done, this.bytes);
@@ -218,10 +234,31 @@ class ResultSink {
   async finish(options: { out?: string; signals?: string }, settings: unknown): Promise<number> {
     const count = await this.writer?.finish();
     this.progress?.end();
-    if (this.printed === 'table') this.io.stdout(renderTable(this.table));
+    if (this.printed === 'table') await this.printTable();
     else if (this.printed === 'json') this.io.stdout(this.printedAny ? '\n]\n' : '[]\n');
     if (this.printed === 'table' && count !== undefined) this.io.stdout(`wrote ${count} feedback sheets, gradebook.csv and summary.pdf to ${options.out}\n`);
     if (options.signals !== undefined) await writeSignals(options.signals, settings, this.checked, this.students, this.printed === 'table', this.io);
     return 0;
   }
+
+  private async printTable(): Promise<void> {
+    this.io.stdout(renderTableRows(this.rows));
+    let text = '';
+    for await (const details of this.details.drain()) {
+      text += details;
+      if (text.length >= PRINTED_CHUNK) {
+        this.io.stdout(text);
+        text = '';
+      }
+    }
+    this.io.stdout(`${text}\n`);
+  }
+
+  /** Removes what was kept for the table, after a failure. */
+  async discard(): Promise<void> {
+    await this.details.discard();
+  }
 }
+
+// The table's details are printed a few pages at a time rather than in a write per submission.
+const PRINTED_CHUNK = 1 << 16;

@@ -1,9 +1,9 @@
-import { createReadStream, createWriteStream, mkdtempSync, type WriteStream } from 'node:fs';
+import { createWriteStream, mkdtempSync, type WriteStream } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import { once } from 'node:events';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createInterface } from 'node:readline';
+import { jsonLinesOf } from '../batches/json-lines-file.ts';
 
 /**
  * Values kept to the end of a long run, one JSON line each, in a temporary file rather than in memory:
@@ -17,12 +17,17 @@ export class KeptLines<T> {
 
   /** Appends one value: values are read back in the order of these calls. */
   push(value: T): void {
+    this.pushLines(`${JSON.stringify(value)}\n`);
+  }
+
+  /** Appends values already written as `push` writes them (each one's JSON and a line break), as made in a worker. */
+  pushLines(lines: string): void {
     if (!this.file) {
       this.file = openFile();
       this.file.stream.on('error', (error) => (this.failure ??= error));
     }
     if (this.failure) throw this.failure;
-    this.file.stream.write(`${JSON.stringify(value)}\n`);
+    this.file.stream.write(lines);
   }
 
   /** Resolves when the file's buffer has room again: what was pushed is on its way to the disk, not held. */
@@ -34,20 +39,31 @@ export class KeptLines<T> {
 
   /** Every value pushed, in order; the file is removed afterwards. */
   async *drain(): AsyncGenerator<T> {
-    const file = this.file;
-    if (!file) return;
-    this.file = undefined;
     try {
-      file.stream.end();
-      await once(file.stream, 'close');
-      if (this.failure) throw this.failure;
-      for await (const line of createInterface({ input: createReadStream(file.stream.path), crlfDelay: Infinity })) yield JSON.parse(line) as T;
+      const path = await this.written();
+      if (path !== undefined) yield* jsonLinesOf<T>(path);
     } finally {
-      await rm(file.dir, { recursive: true, force: true });
+      await this.discard();
     }
   }
 
-  /** Removes the file without reading it (after a failure). */
+  /**
+   * Ends the writing: the path of the file of every value pushed, one JSON line each in order, for
+   * another thread to read (`jsonLinesOf`); undefined when nothing was pushed. The file stays until
+   * `discard`.
+   */
+  async written(): Promise<string | undefined> {
+    const stream = this.file?.stream;
+    if (!stream) return undefined;
+    if (!stream.closed) {
+      stream.end();
+      await once(stream, 'close');
+    }
+    if (this.failure) throw this.failure;
+    return String(stream.path);
+  }
+
+  /** Removes the file, read or not. */
   async discard(): Promise<void> {
     const file = this.file;
     this.file = undefined;

@@ -3,10 +3,11 @@ import { basename, dirname, extname, join } from 'node:path';
 import type { CheckResult } from '../../schemas/result.ts';
 import type { FeedbackInput, KindSettings, SummaryHeader } from '../../reports/feedback-input.ts';
 import { UniqueNames } from '../../reports/file-names.ts';
-import { GradebookRows } from '../../reports/gradebook-csv.ts';
 import type { Assignment } from '../checks/check.ts';
 import type { WorkerPool } from '../pool/worker-pool.ts';
-import { withoutArrays } from '../batches/check-json-batch.ts';
+import { sheetParts, type KeptResult } from '../batches/sheet-parts.ts';
+import type { DrawnBatch } from '../batches/check-and-draw.ts';
+import type { SectionFilesInput } from '../batches/section-files.ts';
 import { fileErrorReason, InputError } from './cli-errors.ts';
 import type { CliIo } from './cli-io.ts';
 import { InFlight } from './in-flight.ts';
@@ -14,20 +15,14 @@ import { KeptLines } from './kept-lines.ts';
 
 const WRITES_IN_FLIGHT = 8;
 
-/** What the gradebook and the summary read of a result: no rubric items, per-reading arrays or finding messages. */
-function summaryPart(result: CheckResult): CheckResult {
-  const { items: _items, ...rest } = withoutArrays(result);
-  return { ...rest, findings: rest.findings.map((f) => ({ ...f, message: '' })) };
-}
-
 /**
  * --out: a feedback sheet per checked result, the gradebook and the section summary, written batch by
- * batch as results come in file order. Sheets are drawn in the worker pool when there is one. Of each
+ * batch as results come in file order. With a pool, the worker that checked a batch draws its sheets
+ * (`checkAndDraw`), so that results and submissions stay there; without, they are drawn here. Of each
  * result only what the gradebook and summary read, and each checked submission, go to a temporary file
  * as they come; once the sheets are done and the pool is closed they are read back one at a time into
- * the gradebook's rows, the summary's running totals and the section's signals, and let go. Nothing
- * grows with the file in memory but those totals, and the main thread loads the summary's drawing only
- * then, not beside the workers.
+ * the gradebook's rows, the summary's running totals and the section's signals (`sectionFiles`; in a
+ * worker of its own after a pool), and let go. Nothing grows with the file in memory but those totals.
  */
 export class ReportWriter {
   private readonly header: SummaryHeader;
@@ -35,8 +30,9 @@ export class ReportWriter {
   private readonly names = new UniqueNames();
   private readonly writing = new InFlight(WRITES_IN_FLIGHT);
   /** Per result, in file order: the part the summary reads, and the submission as read where it has a sheet. */
-  private readonly kept = new KeptLines<[CheckResult] | [CheckResult, unknown]>();
+  private readonly kept = new KeptLines<KeptResult>();
   private sheets = 0;
+  private results = 0;
 
   constructor(
     private readonly dir: string,
@@ -50,23 +46,22 @@ export class ReportWriter {
     this.settings = assignment.settings as KindSettings;
   }
 
-  /** The next batch in file order: its sheets drawn and written; resolves when they are. */
+  /** What a worker needs to draw the sheets of a batch it checks (`checkAndDraw`). */
+  frame(): { header: SummaryHeader; settings: KindSettings } {
+    return { header: this.header, settings: this.settings };
+  }
+
+  /** The next batch in file order, checked in this thread: its sheets drawn and written; resolves when they are. */
   async add(results: CheckResult[], reads: unknown[]): Promise<void> {
     const sheets: Array<{ name: string; input: FeedbackInput }> = [];
     for (const [i, result] of results.entries()) {
-      const read = reads[i];
-      const drawn = result.status === 'checked' && result.studentId !== null && read !== undefined;
-      this.kept.push(drawn ? [summaryPart(result), read] : [summaryPart(result)]);
-      if (!drawn) continue;
-      sheets.push({ name: this.names.take(result.studentId!), input: { header: { ...this.header, studentId: result.studentId!, version: 1 }, settings: this.settings, submission: read, result } });
+      const { kept, input } = sheetParts(this.header, this.settings, result, reads[i]);
+      this.kept.push(kept);
+      this.results += 1;
+      if (input) sheets.push({ name: this.names.take(input.header.studentId), input });
     }
     this.sheets += sheets.length;
     await this.kept.flushed();
-    const { pool } = this;
-    if (pool) {
-      await Promise.all(sheets.map(async ({ name, input }) => this.save(name, await pool.run('render-sheet', input))));
-      return;
-    }
     const { feedbackSheetOrReason } = await import('../../kinds/documents.ts');
     // Each sheet is written while the next is drawn, a few at most in flight.
     for (const { name, input } of sheets) {
@@ -75,28 +70,25 @@ export class ReportWriter {
     }
   }
 
+  /** The next batch in file order, checked and drawn in a worker: its sheets written; resolves when they are. */
+  async addDrawn(batch: DrawnBatch): Promise<void> {
+    this.kept.pushLines(batch.kept);
+    this.results += batch.count;
+    this.sheets += batch.sheets.length;
+    await this.kept.flushed();
+    await Promise.all(batch.sheets.map(({ studentId, bytes }) => this.save(this.names.take(studentId), bytes)));
+  }
+
   /** The gradebook and the summary, after the last batch; returns the sheet count. */
   async finish(): Promise<number> {
     await this.writing.done();
-    // The section is read back here: the workers' memory is given back first.
+    // The section is read back once the sheets' workers have given their memory back.
     await this.pool?.close();
-    const { sectionTotals } = await import('../../kinds/documents.ts');
-    const { sectionSignalCollector } = await import('../../kinds/section-signals.ts');
-    const gradebook = new GradebookRows({ assignment: this.header.assignment, bom: true });
-    const totals = await sectionTotals(this.settings, true);
-    const signals = sectionSignalCollector(this.settings);
-    for await (const [result, ...read] of this.kept.drain()) {
-      gradebook.add(result);
-      // The result before its submission: a signal is placed from its student's last submission.
-      totals.addResult(result);
-      for (const submission of read) {
-        totals.addSubmission(submission);
-        signals.add(submission);
-      }
-    }
-    await this.save('gradebook.csv', gradebook.text());
-    const { renderSummaryOfTotals } = await import('../../reports/section-summary.ts');
-    await this.save('summary.pdf', await renderSummaryOfTotals(totals, { header: this.header, signals: signals.finish() }));
+    const input: SectionFilesInput = { path: await this.kept.written(), header: this.header, settings: this.settings };
+    const { gradebook, summary } = this.pool ? await sectionFilesInWorker(input, this.results) : await (await import('../batches/section-files.ts')).sectionFiles(input);
+    await this.save('gradebook.csv', gradebook);
+    await this.save('summary.pdf', summary);
+    await this.kept.discard();
     return this.sheets;
   }
 
@@ -112,5 +104,21 @@ export class ReportWriter {
     } catch (error) {
       throw new InputError(`cannot write ${path}: ${fileErrorReason(error)}`);
     }
+  }
+}
+
+/**
+ * The gradebook and summary of a long file in a worker of their own, its heap bounded: in the command's
+ * thread the signals' comparison of 20,000 submissions let the heap grow by some 90 MB of garbage before
+ * it was collected; a bound makes V8 collect sooner. The bound is far above what the read-back holds
+ * (about 5 kB a submission at most), so that it never stops a run.
+ */
+async function sectionFilesInWorker(input: SectionFilesInput, results: number): Promise<{ gradebook: string; summary: Uint8Array }> {
+  const { createWorkerPool } = await import('../pool/worker-pool.ts');
+  const worker = createWorkerPool(1, { maxOldGenerationSizeMb: Math.max(512, Math.ceil(results / 50)), maxYoungGenerationSizeMb: 16 });
+  try {
+    return await worker.run('section-files', input);
+  } finally {
+    await worker.close();
   }
 }

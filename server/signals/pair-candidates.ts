@@ -11,9 +11,11 @@
  * honest runs agree on few cells, and each lookup finds few runs.
  */
 
+import { fractionAt } from './run-fraction.ts';
+
 export interface CandidateRun {
-  /** F of each reading, 1 at the first and 0 at the last. */
-  f: number[];
+  /** The readings, whose F (see `fractionAt`) is compared. */
+  x: number[];
   /** The largest difference in a cell that still counts as agreeing (for a pair, the larger of the two). */
   tolerance: number;
 }
@@ -21,9 +23,10 @@ export interface CandidateRun {
 /**
  * Submission pairs [i, j], i < j, in the order a loop over all pairs would meet them: those with a run
  * pair that may match, and those with a reported value written alike (`shared` keys, such as a rate
- * constant's exact text, as a submission lists them).
+ * constant's exact text, as a submission lists them). Given one at a time from a sorted typed array of
+ * keys: a course's 250,000 candidates held as pairs were some 20 MB until the last was compared.
  */
-export function pairCandidates(runs: Array<Array<CandidateRun | undefined>>, matchingShare: number, shared: Array<string[]>): Array<[number, number]> {
+export function* pairCandidates(runs: Array<Array<CandidateRun | undefined>>, matchingShare: number, shared: Array<string[]>): Generator<[number, number]> {
   const n = runs.length;
   const pairs = new Set<number>();
   const add = (a: number, b: number) => {
@@ -31,7 +34,10 @@ export function pairCandidates(runs: Array<Array<CandidateRun | undefined>>, mat
   };
   for (const owners of groupedBy(shared).values()) addAllPairs(owners, add);
   for (const group of runsByLength(runs).values()) addRunCandidates(group, matchingShare, add);
-  return [...pairs].sort((a, b) => a - b).map((key) => [Math.floor(key / n), key % n]);
+  // Keys below n² are whole numbers that a double holds exactly; a typed array sorts them by value.
+  const keys = Float64Array.from(pairs).sort();
+  pairs.clear();
+  for (const key of keys) yield [Math.floor(key / n), key % n];
 }
 
 interface OwnedRun {
@@ -44,9 +50,9 @@ function runsByLength(runs: Array<Array<CandidateRun | undefined>>): Map<number,
   runs.forEach((list, owner) => {
     for (const run of list) {
       if (!run) continue;
-      const group = groups.get(run.f.length) ?? [];
+      const group = groups.get(run.x.length) ?? [];
       group.push({ owner, run });
-      groups.set(run.f.length, group);
+      groups.set(run.x.length, group);
     }
   });
   return groups;
@@ -70,7 +76,7 @@ const slack = (value: number, reach: number) => (reach + Math.abs(value)) * 1e-1
 
 /** Runs of one length whose F agrees on at least `matchingShare` of the cells, counted exactly. */
 function addRunCandidates(group: OwnedRun[], matchingShare: number, add: (a: number, b: number) => void): void {
-  const length = group[0].run.f.length;
+  const length = group[0].run.x.length;
   const count = group.length;
   // The two end cells always agree: the inner ones must make up the share, and at most `spare` may differ.
   const inner = length - 2;
@@ -82,7 +88,9 @@ function addRunCandidates(group: OwnedRun[], matchingShare: number, add: (a: num
   }
   // F of the inner cells, one row per run; and per cell, the runs in order of F with those values.
   const f = new Float64Array(count * inner);
-  group.forEach((g, r) => f.set(g.run.f.slice(1, length - 1), r * inner));
+  group.forEach((g, r) => {
+    for (let c = 0; c < inner; c++) f[r * inner + c] = fractionAt(g.run.x, c + 1);
+  });
   const tolerance = Float64Array.from(group, (g) => g.run.tolerance);
   const orders: Int32Array[] = [];
   const sorted: Float64Array[] = [];

@@ -1,5 +1,6 @@
 import { displayStepOf } from './display-step.ts';
 import { pairCandidates } from './pair-candidates.ts';
+import { fractionAt } from './run-fraction.ts';
 
 /**
  * Data that look alike across a section, where every student measured their own: pairs of
@@ -47,9 +48,12 @@ export interface SharedReport {
   groups: string[][];
 }
 
+/**
+ * A run as compared. F is not kept beside the readings but worked out from them where it is read
+ * (`fractionAt`): on a course-wide file the copy of F was a third of what the comparison held.
+ */
 interface Prepared {
   x: number[];
-  f: number[];
   /** The step the readings are written to. */
   step: number;
   /** Two display steps as a share of the run's amplitude. */
@@ -62,7 +66,7 @@ function prepare(readings: Array<[number, number]>): Prepared | undefined {
   const span = x[0] - x[x.length - 1];
   if (span === 0) return undefined;
   const step = displayStepOf(x);
-  return { x, f: x.map((v) => (v - x[x.length - 1]) / span), step, tolerance: (STEPS * step) / Math.abs(span) };
+  return { x, step, tolerance: (STEPS * step) / Math.abs(span) };
 }
 
 function constantWithin(values: number[], tolerance: number): boolean {
@@ -73,12 +77,12 @@ function compareRuns(a: Prepared, b: Prepared): Omit<RunMatch, 'runs'> | undefin
   if (a.x.length !== b.x.length) return undefined;
   const tolerance = Math.max(a.tolerance, b.tolerance);
   // Most pairs differ in most cells: stop once too many differ.
-  const allowed = a.f.length - Math.ceil(MATCHING_SHARE * a.f.length);
-  let differing = 0;
-  for (let i = 0; i < a.f.length && differing <= allowed; i++) if (!(Math.abs(a.f[i] - b.f[i]) <= tolerance)) differing++;
-  if (differing > allowed) return undefined;
-  const matching = a.f.length - differing;
   const cells = a.x.length;
+  const allowed = cells - Math.ceil(MATCHING_SHARE * cells);
+  let differing = 0;
+  for (let i = 0; i < cells && differing <= allowed; i++) if (!(Math.abs(fractionAt(a.x, i) - fractionAt(b.x, i)) <= tolerance)) differing++;
+  if (differing > allowed) return undefined;
+  const matching = cells - differing;
   if (matching === cells) {
     const step = Math.max(a.step, b.step);
     if (a.x.every((v, i) => v === b.x[i])) return { relation: 'identical', matchingCells: cells, cells };

@@ -105,6 +105,17 @@ async function benchJsonLines(data: { assignment: string; submissions: string },
 
 const TIME = '/usr/bin/time';
 
+/** The course-wide file alone (`npx tsx test/bench/course-file.ts`): the corpus of 20,000 made or reused, `check --out` measured once. */
+export async function benchCourseFileAlone(): Promise<void> {
+  const data = await corpus(CHECKED);
+  const dir = await mkdtemp(join(tmpdir(), 'rateproof-bench-'));
+  try {
+    await benchCourseFile(data, dir);
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}
+
 /**
  * `check --out` on the whole corpus, once: its peak memory (the largest resident set, as GNU time
  * reports it) against the goal of 300 MB, and how long the 20,000 sheets take.

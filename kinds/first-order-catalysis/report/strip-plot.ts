@@ -1,6 +1,6 @@
 import { prettyUnit } from '../../../reports/format.ts';
 import { compactPage, contentLeft, contentWidth, moveTo, type Doc } from '../../../reports/pdf/document.ts';
-import { legend, marker } from '../../../reports/pdf/marks.ts';
+import { legend, markerStamp } from '../../../reports/pdf/marks.ts';
 import { Plot } from '../../../reports/pdf/plot.ts';
 import { drawRich } from '../../../reports/pdf/rich-text.ts';
 import { niceAxis, type Axis } from '../../../reports/pdf/scale.ts';
@@ -47,11 +47,12 @@ export function drawStripPlot(doc: Doc, values: ClassValues): void {
   rows.forEach((row, r) => {
     const centre = plot.sy(1.5 - r);
     drawRich(doc, row.label, plot.area.x - 5, centre - 4, { size: SIZE.tiny, color: COLOR.muted, align: 'right' });
+    const mark = markerStamp(doc, row.shape, 4, row.color);
     plot.clipped(() => {
       row.data.forEach((v, i) => {
         // A fixed spread within the row (golden-ratio steps), so that equal values stay visible.
         const jitter = (((i * 0.618034) % 1) - 0.5) * 0.6;
-        if (plot.inside(v, 1)) marker(doc, row.shape, plot.sx(v), plot.sy(1.5 - r + jitter), 4, row.color);
+        if (plot.inside(v, 1)) mark(plot.sx(v), plot.sy(1.5 - r + jitter));
         // A course's marks would otherwise be held as some ten small pieces each.
         if (i % MARKS_PER_PIECE === MARKS_PER_PIECE - 1) compactPage(doc);
       });
