@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { PLATFORM_TIMEOUT_MS, platformFailed, refusedStatus } from './service-token.ts';
+import { askPlatform as ask, platformFailed } from './service-token.ts';
 
 /** AGS 2.0 media types: a line item, a container of them, a score. */
 const LINE_ITEM_TYPE = 'application/vnd.ims.lis.v2.lineitem+json';
@@ -23,17 +23,6 @@ const LineItem = z.object({ id: z.url() });
 /** The line item an assignment makes in a context's container, or asks for in a deep link. */
 export function lineItemFor(assignment: { id: number; title: string }) {
   return { scoreMaximum: LINE_ITEM_MAXIMUM, label: assignment.title.slice(0, 200), resourceId: resourceIdOf(assignment.id), tag: LINE_ITEM_TAG };
-}
-
-async function ask(step: string, url: string, init: RequestInit): Promise<Response> {
-  let response: Response;
-  try {
-    response = await fetch(url, { ...init, signal: AbortSignal.timeout(PLATFORM_TIMEOUT_MS) });
-  } catch {
-    throw platformFailed(step, 'no answer');
-  }
-  if (!response.ok) throw platformFailed(step, `status ${response.status}`, refusedStatus(response.status));
-  return response;
 }
 
 /**

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { PLATFORM_TIMEOUT_MS, platformFailed } from './service-token.ts';
+import { askPlatform, platformFailed } from './service-token.ts';
 
 /** NRPS 2.0: the scope a roster read asks for, and the media type of a membership container. */
 export const MEMBERSHIP_SCOPE = 'https://purl.imsglobal.org/spec/lti-nrps/scope/contextmembership.readonly';
@@ -36,13 +36,7 @@ export async function fetchMembers(url: string, token: string): Promise<Member[]
   let next: string | undefined = url;
   for (let page = 0; next !== undefined; page++) {
     if (page === MAX_PAGES) throw platformFailed('membership service', `more than ${MAX_PAGES} pages`);
-    let response: Response;
-    try {
-      response = await fetch(next, { headers: { accept: MEMBERSHIP_MEDIA_TYPE, authorization: `Bearer ${token}` }, signal: AbortSignal.timeout(PLATFORM_TIMEOUT_MS) });
-    } catch {
-      throw platformFailed('membership service', 'no answer');
-    }
-    if (!response.ok) throw platformFailed('membership service', `status ${response.status}`);
+    const response = await askPlatform('membership service', next, { headers: { accept: MEMBERSHIP_MEDIA_TYPE, authorization: `Bearer ${token}` } });
     const body = Container.safeParse(await response.json().catch(() => undefined));
     if (!body.success) throw platformFailed('membership service', 'not a membership container');
     members.push(...body.data.members);

@@ -10,7 +10,7 @@ import { signingKey } from '../store/lti-keys.ts';
 const ASSERTION_SECONDS = 300;
 const EARLY_SECONDS = 60;
 /** How long a platform's service may take to answer (common practice, no source). */
-export const PLATFORM_TIMEOUT_MS = 10_000;
+const PLATFORM_TIMEOUT_MS = 10_000;
 
 /** The platform a service token is asked of. */
 export interface TokenPlatform {
@@ -44,6 +44,18 @@ export function platformFailed(step: string, why: string, lasting = false): Plat
 
 /** Whether a status refuses the request itself (a 4xx other than a timeout or too many requests), so that sending it again is no use. */
 export const refusedStatus = (status: number): boolean => status >= 400 && status < 500 && status !== 408 && status !== 429;
+
+/** A request to one of the platform's services: no answer, or an error status, is a failure naming the step. */
+export async function askPlatform(step: string, url: string, init: RequestInit): Promise<Response> {
+  let response: Response;
+  try {
+    response = await fetch(url, { ...init, signal: AbortSignal.timeout(PLATFORM_TIMEOUT_MS) });
+  } catch {
+    throw platformFailed(step, 'no answer');
+  }
+  if (!response.ok) throw platformFailed(step, `status ${response.status}`, refusedStatus(response.status));
+  return response;
+}
 
 /** Forgets the tokens kept for a platform: one its service turned down (expired or revoked early). */
 export function forgetServiceTokens(platformId: number): void {
@@ -79,13 +91,7 @@ export async function serviceToken(db: Kysely<Database>, platform: TokenPlatform
     client_assertion: assertion,
     scope,
   });
-  let response: Response;
-  try {
-    response = await fetch(platform.tokenUrl, { method: 'POST', body: form, headers: { accept: 'application/json' }, signal: AbortSignal.timeout(PLATFORM_TIMEOUT_MS) });
-  } catch {
-    throw platformFailed('token endpoint', 'no answer');
-  }
-  if (!response.ok) throw platformFailed('token endpoint', `status ${response.status}`, refusedStatus(response.status));
+  const response = await askPlatform('token endpoint', platform.tokenUrl, { method: 'POST', body: form, headers: { accept: 'application/json' } });
   const answer = TokenAnswer.safeParse(await response.json().catch(() => undefined));
   if (!answer.success) throw platformFailed('token endpoint', 'not a token answer');
   // RFC 6749, 5.1: expires_in is recommended, not required; without it the token is used once.

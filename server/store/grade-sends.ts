@@ -50,31 +50,27 @@ export async function waitingSends(db: Kysely<Database>, assignmentId: number, s
     .execute();
 }
 
-/** Records a send's outcome, if no newer release has made it wait again since it was read. */
-export async function settleSend(db: Kysely<Database>, assignmentId: number, send: TriedSend, outcome: { state: 'sent'; score: number } | { state: 'failed'; reason: string }): Promise<void> {
-  await db
+/** A try's update of one send, counted, if no newer release has made it wait again since it was read. */
+function updateTried(db: Kysely<Database>, assignmentId: number, send: TriedSend) {
+  return db
     .updateTable('grade_sends')
-    .set(outcome.state === 'sent' ? { state: 'sent', sent_at: sql<Date>`now()`, sent_score: outcome.score, reason: null } : { state: 'failed', reason: outcome.reason })
     .set((eb) => ({ tries: eb('tries', '+', 1) }))
     .where('assignment_id', '=', assignmentId)
     .where('student_row_id', '=', send.studentRowId)
     .where('generation', '=', send.generation)
-    .where('state', '=', 'waiting')
+    .where('state', '=', 'waiting');
+}
+
+/** Records a send's outcome. */
+export async function settleSend(db: Kysely<Database>, assignmentId: number, send: TriedSend, outcome: { state: 'sent'; score: number } | { state: 'failed'; reason: string }): Promise<void> {
+  await updateTried(db, assignmentId, send)
+    .set(outcome.state === 'sent' ? { state: 'sent', sent_at: sql<Date>`now()`, sent_score: outcome.score, reason: null } : { state: 'failed', reason: outcome.reason })
     .execute();
 }
 
 /** Keeps the reason a try failed on sends that stay waiting, to be tried again. */
 export async function noteFailedTry(db: Kysely<Database>, assignmentId: number, sends: TriedSend[], reason: string): Promise<void> {
-  for (const send of sends) {
-    await db
-      .updateTable('grade_sends')
-      .set((eb) => ({ reason, tries: eb('tries', '+', 1) }))
-      .where('assignment_id', '=', assignmentId)
-      .where('student_row_id', '=', send.studentRowId)
-      .where('generation', '=', send.generation)
-      .where('state', '=', 'waiting')
-      .execute();
-  }
+  for (const send of sends) await updateTried(db, assignmentId, send).set({ reason }).execute();
 }
 
 /** Gives up the sends of a section's assignment still waiting once the job's tries are used up, keeping the last reason. */
